@@ -1,0 +1,58 @@
+using System.CommandLine;
+using System.Reflection;
+using ModalChain.Cli.Commands;
+using ModalChain.Core;
+
+namespace ModalChain.Cli;
+
+/// <summary>The command-line program: builds the command tree, parses, runs one command and maps outcomes to exit codes.</summary>
+public static class CliApp
+{
+    /// <summary>The tool's version as printed by --version and recorded in every output.</summary>
+    public static string Version { get; } =
+        typeof(CliApp).Assembly.GetCustomAttribute<AssemblyInformationalVersionAttribute>()?.InformationalVersion ?? "0.0.0";
+
+    internal const string CautionHelp = "Caution: " + Cautions.Text;
+
+    /// <summary>Runs the program with <paramref name="args"/>, writing results to <paramref name="output"/> and problems to <paramref name="error"/>.</summary>
+    /// <returns>The exit code (see <see cref="ExitCodes"/>).</returns>
+    public static int Run(string[] args, TextWriter output, TextWriter error)
+    {
+        var io = new Streams(output, error);
+        var root = new RootCommand(
+            "ModalChain: natural frequencies, mode shapes and vibration response of lumped mass-spring-damper models " +
+            "of floors, platforms, racks and shelving that carry machinery.\n\n" +
+            "Exit codes: 0 done, 1 a check failed, 2 input error, 3 numerical failure, 4 internal error.\n\n" + CautionHelp);
+        root.Subcommands.Add(ValidateCommand.Create(io));
+        root.Subcommands.Add(ModesCommand.Create(io));
+
+        var parse = root.Parse(args);
+        var config = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };
+        if (parse.Errors.Count > 0 && !WantsHelp(args))
+        {
+            foreach (var e in parse.Errors) error.WriteLine($"modalchain: error: {e.Message}");
+            error.WriteLine("Run 'modalchain --help' (or 'modalchain COMMAND --help') for usage.");
+            return ExitCodes.InputError;
+        }
+        try
+        {
+            return parse.Invoke(config);
+        }
+        catch (NumericalFailureException e)
+        {
+            error.WriteLine($"modalchain: error: numerical failure: {e.Message}");
+            return ExitCodes.NumericalFailure;
+        }
+        catch (Exception e)
+        {
+            error.WriteLine($"modalchain: internal error ({e.GetType().Name}): {e.Message}");
+            error.WriteLine("This is a bug in ModalChain; please report it with the model file that caused it.");
+            return ExitCodes.InternalError;
+        }
+    }
+
+    private static bool WantsHelp(string[] args) => args.Any(a => a is "--help" or "-h" or "-?");
+}
+
+/// <summary>Where a command writes: results to <see cref="Output"/>, diagnostics and notes to <see cref="Error"/>.</summary>
+internal sealed record Streams(TextWriter Output, TextWriter Error);

@@ -1,0 +1,40 @@
+using System.CommandLine;
+using ModalChain.Io.Diagnostics;
+using ModalChain.Io.Model;
+
+namespace ModalChain.Cli.Commands;
+
+/// <summary>Output formats of the result commands.</summary>
+internal enum OutputFormat
+{
+    Table,
+    Json,
+    Csv,
+}
+
+/// <summary>Arguments and helpers every command shares, so each reads and reports the model the same way.</summary>
+internal static class CommonOptions
+{
+    public static Argument<string> ModelFile() => new("FILE") { Description = "The model file (YAML); see docs/model-format.md." };
+
+    public static Option<OutputFormat> Format() => new("--format")
+    {
+        Description = "table (for reading), json (one object on stdout, SI units) or csv (for spreadsheets).",
+        DefaultValueFactory = _ => OutputFormat.Table,
+    };
+
+    /// <summary>Loads the model, printing every diagnostic; returns null (and the caller exits 2) when it has errors.</summary>
+    public static ModelDocument? Load(string file, Streams io)
+    {
+        var result = ModelReader.ReadFile(file);
+        foreach (var d in result.Diagnostics) io.Error.WriteLine(d.ToString());
+        if (result.Model is null)
+        {
+            var count = result.Errors.Count();
+            io.Error.WriteLine($"{file}: {count} error{(count == 1 ? "" : "s")}; nothing was analysed.");
+        }
+        return result.Model;
+    }
+
+    public static int WarningCount(ModelDocument document) => document.Warnings.Count(w => w.Severity == Severity.Warning);
+}

@@ -1,0 +1,38 @@
+using System.CommandLine;
+using System.Globalization;
+using ModalChain.Core.Model;
+
+namespace ModalChain.Cli.Commands;
+
+/// <summary><c>modalchain validate FILE</c>: reads and checks a model, then prints a short summary.</summary>
+internal static class ValidateCommand
+{
+    public static Command Create(Streams io)
+    {
+        var file = CommonOptions.ModelFile();
+        var command = new Command("validate",
+            "Check a model file and summarise it (degrees of freedom, total mass, warnings). " +
+            "Every problem is reported as FILE:LINE:COL. Exit code 2 when the file has errors.\n\n" + CliApp.CautionHelp)
+        { file };
+        command.SetAction(parse =>
+        {
+            var path = parse.GetValue(file)!;
+            var document = CommonOptions.Load(path, io);
+            if (document is null) return ExitCodes.InputError;
+            var n = document.Network;
+            var inv = CultureInfo.InvariantCulture;
+            var o = io.Output;
+            o.WriteLine($"{path}: valid");
+            o.WriteLine($"  title:               {n.Title}");
+            o.WriteLine(string.Create(inv, $"  degrees of freedom:  {n.Masses.Length} (one direction per mass)"));
+            o.WriteLine(string.Create(inv, $"  total mass:          {n.TotalMass:G6} kg"));
+            o.WriteLine(string.Create(inv, $"  springs, dampers:    {n.Springs.Length}, {n.Dampers.Length}"));
+            var groups = Topology.UnsupportedGroups(n);
+            o.WriteLine(string.Create(inv, $"  unsupported groups:  {groups.Length}{(groups.Length > 0 ? " (rigid-body modes expected)" : "")}"));
+            o.WriteLine(string.Create(inv, $"  warnings:            {CommonOptions.WarningCount(document)}"));
+            o.WriteLine($"  sha256:              {document.Sha256}");
+            return ExitCodes.Success;
+        });
+        return command;
+    }
+}

@@ -1,0 +1,58 @@
+using System.Globalization;
+using ModalChain.Core;
+using ModalChain.Core.Analyses.Modal;
+
+namespace ModalChain.Cli.Formatting;
+
+/// <summary>The human-readable modes table: frequency, period, effective mass and where each mode lives.</summary>
+internal static class ModesTable
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    public static void Write(TextWriter o, ModalResult result)
+    {
+        var n = result.Network;
+        o.WriteLine(n.Title);
+        o.WriteLine(string.Create(Inv, $"{result.Matrices.Size} degrees of freedom, total mass {result.TotalMass:G6} kg, {result.Modes.Length} modes"));
+        o.WriteLine();
+        var table = new TextTable("mode", "frequency [Hz]", "omega [rad/s]", "period [s]", "eff. mass [%]", "cumulative [%]", "where it moves (kinetic energy share)");
+        foreach (var m in result.Modes)
+        {
+            table.Add(
+                m.Number.ToString(Inv),
+                m.NaturalFrequencyHz.ToString("F4", Inv),
+                m.AngularFrequency.ToString("F3", Inv),
+                m.IsRigidBody ? "rigid body" : m.PeriodSeconds.ToString("G5", Inv),
+                (100 * m.EffectiveMassFraction).ToString("F1", Inv),
+                (100 * m.CumulativeEffectiveMassFraction).ToString("F1", Inv),
+                Dominant(result, m));
+        }
+        table.Write(o, lastColumnLeftAligned: true);
+        o.WriteLine();
+
+        var fundamental = result.Modes.FirstOrDefault(m => !m.IsRigidBody);
+        if (fundamental is not null && n.Springs.Length > 0)
+        {
+            var i = Enumerable.Range(0, n.Springs.Length).MaxBy(k => fundamental.StrainEnergyShare[k]);
+            o.WriteLine(string.Create(Inv,
+                $"Mode {fundamental.Number} stores {100 * fundamental.StrainEnergyShare[i]:F0} % of its strain energy in spring '{n.Springs[i].Name}': stiffening it raises that mode most."));
+        }
+        if (result.RigidBodyModeCount > 0)
+            o.WriteLine($"{result.RigidBodyModeCount} rigid-body mode(s) at 0 Hz: part of the network is not held by springs.");
+        o.WriteLine(string.Create(Inv,
+            $"Quality: max residual {result.Quality.MaxResidual:0.0E+00}, max M-orthogonality error {result.Quality.MaxOrthogonalityError:0.0E+00} ({result.Algorithm})."));
+        o.WriteLine();
+        o.WriteLine("Caution: " + Cautions.Text);
+    }
+
+    private static string Dominant(ModalResult result, Mode mode)
+    {
+        var dofs = result.Matrices.Dofs.Dofs;
+        var parts = Enumerable.Range(0, dofs.Length)
+            .OrderByDescending(i => mode.KineticEnergyShare[i])
+            .Take(3)
+            .Where(i => mode.KineticEnergyShare[i] >= 0.05)
+            .Select(i => string.Create(Inv, $"{dofs[i]} {100 * mode.KineticEnergyShare[i]:F0}%"));
+        return string.Join(", ", parts);
+    }
+}

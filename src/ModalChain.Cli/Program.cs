@@ -1,0 +1,3 @@
+using ModalChain.Cli;
+
+return CliApp.Run(args, Console.Out, Console.Error);

@@ -1,0 +1,129 @@
+using System.Collections.Immutable;
+using MathNet.Numerics.LinearAlgebra;
+using ModalChain.Core.Assembly;
+using ModalChain.Core.Model;
+using ModalChain.Core.Solvers;
+
+namespace ModalChain.Core.Analyses.Modal;
+
+/// <summary>Options of a modal analysis.</summary>
+/// <param name="Count">How many of the lowest modes to compute; null for all.</param>
+/// <param name="Solver">A specific eigen algorithm, or null to let <see cref="GeneralizedEigen"/> choose.</param>
+public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? Solver = null);
+
+/// <summary>Undamped natural frequencies, mode shapes and their participation, energy shares and quality figures.</summary>
+/// <remarks>
+/// Solves K φ = ω² M φ. Shapes are mass-normalised (φᵀMφ = 1). Participation Γ = φᵀMι and effective modal mass
+/// M* = Γ² (Chopra, Dynamics of Structures, §13.2; the 90 % cumulative rule is in ASCE 7-16 §12.9.1.1 and
+/// EN 1998-1 §4.3.3.3.1). A mode is rigid-body when λ &lt; 1e-10 · s, with s = maxᵢ Σⱼ|Kᵢⱼ|/Mᵢᵢ, a Gershgorin
+/// bound on the largest eigenvalue.
+/// </remarks>
+public static class ModalAnalysis
+{
+    private const double RigidBodyTolerance = 1e-10;
+
+    /// <summary>Assembles and solves <paramref name="network"/>.</summary>
+    public static ModalResult Solve(Network network, ModalOptions? options = null) =>
+        Solve(network, Assembler.Assemble(network), options);
+
+    /// <summary>Solves already assembled matrices of <paramref name="network"/>.</summary>
+    public static ModalResult Solve(Network network, StructuralMatrices matrices, ModalOptions? options = null)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        ArgumentNullException.ThrowIfNull(matrices);
+        options ??= new ModalOptions();
+        if (matrices.Size == 0) throw new ArgumentException("The network has no masses.", nameof(network));
+
+        var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver);
+        var m = matrices.Mass;
+        var k = matrices.Stiffness;
+        var iota = matrices.Influence;
+        var totalMass = iota * (m * iota);
+        var scale = StiffnessScale(k, m);
+
+        var springEnds = network.Springs
+            .Select(s => (a: matrices.Dofs.IndexOf(s.NodeA), b: matrices.Dofs.IndexOf(s.NodeB), k: s.Stiffness))
+            .ToArray();
+
+        var modes = ImmutableArray.CreateBuilder<Mode>(solution.Count);
+        var cumulative = 0.0;
+        var maxResidual = 0.0;
+        for (var j = 0; j < solution.Count; j++)
+        {
+            var phi = solution.Shapes.Column(j);
+            var lambda = solution.EigenValues[j];
+            var rigid = lambda < RigidBodyTolerance * scale;
+            var omega2 = rigid ? 0.0 : lambda;
+            var omega = Math.Sqrt(omega2);
+            var f = omega / (2 * Math.PI);
+
+            var mPhi = m * phi;
+            var kPhi = k * phi;
+            var residual = rigid
+                ? kPhi.L2Norm() / (scale * mPhi.L2Norm())
+                : (kPhi - mPhi * lambda).L2Norm() / kPhi.L2Norm();
+            maxResidual = Math.Max(maxResidual, residual);
+
+            var gamma = phi * (m * iota);
+            var effective = gamma * gamma / (phi * mPhi);
+            var fraction = effective / totalMass;
+            cumulative += fraction;
+
+            modes.Add(new Mode(
+                Number: j + 1,
+                EigenValue: omega2,
+                AngularFrequency: omega,
+                NaturalFrequencyHz: f,
+                PeriodSeconds: rigid ? double.PositiveInfinity : 1 / f,
+                IsRigidBody: rigid,
+                Shape: [.. phi],
+                ParticipationFactor: gamma,
+                EffectiveModalMass: effective,
+                EffectiveMassFraction: fraction,
+                CumulativeEffectiveMassFraction: cumulative,
+                KineticEnergyShare: KineticShares(phi, mPhi),
+                StrainEnergyShare: rigid ? [.. new double[springEnds.Length]] : StrainShares(phi, springEnds),
+                Residual: residual));
+        }
+
+        var quality = new ModalQuality(maxResidual, OrthogonalityError(solution.Shapes, m));
+        return new ModalResult(network, matrices, modes.MoveToImmutable(), totalMass, quality, solution.Algorithm);
+    }
+
+    /// <summary>maxᵢ Σⱼ |Kᵢⱼ| / Mᵢᵢ in rad²/s²: an upper bound on ω²_max for diagonal M, used to judge "zero".</summary>
+    internal static double StiffnessScale(Matrix<double> k, Matrix<double> m)
+    {
+        var scale = 0.0;
+        for (var i = 0; i < k.RowCount; i++)
+            scale = Math.Max(scale, k.Row(i).L1Norm() / m[i, i]);
+        return scale > 0 ? scale : 1.0;
+    }
+
+    private static ImmutableArray<double> KineticShares(Vector<double> phi, Vector<double> mPhi)
+    {
+        var shares = phi.PointwiseMultiply(mPhi);
+        var sum = shares.Sum();
+        return [.. shares.Select(s => s / sum)];
+    }
+
+    private static ImmutableArray<double> StrainShares(Vector<double> phi, (int a, int b, double k)[] springs)
+    {
+        var energies = springs.Select(s =>
+        {
+            var d = (s.a >= 0 ? phi[s.a] : 0) - (s.b >= 0 ? phi[s.b] : 0);
+            return s.k * d * d;
+        }).ToArray();
+        var sum = energies.Sum();
+        return [.. energies.Select(e => sum > 0 ? e / sum : 0)];
+    }
+
+    private static double OrthogonalityError(Matrix<double> shapes, Matrix<double> m)
+    {
+        var g = shapes.TransposeThisAndMultiply(m * shapes);
+        var worst = 0.0;
+        for (var i = 0; i < g.RowCount; i++)
+            for (var j = 0; j < g.ColumnCount; j++)
+                worst = Math.Max(worst, Math.Abs(g[i, j] - (i == j ? 1 : 0)));
+        return worst;
+    }
+}

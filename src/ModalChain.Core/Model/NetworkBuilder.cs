@@ -1,0 +1,83 @@
+using System.Collections.Immutable;
+
+namespace ModalChain.Core.Model;
+
+/// <summary>Collects elements and produces an immutable <see cref="Network"/>; the only mutable view of a network.</summary>
+public sealed class NetworkBuilder
+{
+    private readonly List<Mass> _masses = [];
+    private readonly List<Support> _supports = [new Support(Network.Ground)];
+    private readonly List<Spring> _springs = [];
+    private readonly List<Damper> _dampers = [];
+    private readonly HashSet<string> _names = [Network.Ground];
+
+    /// <summary>Title of the network being built.</summary>
+    public string Title { get; set; } = "Untitled network";
+
+    /// <summary>Adds a mass.</summary>
+    /// <param name="name">Unique name.</param>
+    /// <param name="kilograms">Mass in kg, positive and finite.</param>
+    /// <param name="position">Optional drawing position in m.</param>
+    public NetworkBuilder AddMass(string name, double kilograms, DrawingPosition? position = null)
+    {
+        Guard.Positive(kilograms, nameof(kilograms));
+        ClaimNodeName(name);
+        _masses.Add(new Mass(name, kilograms, position));
+        return this;
+    }
+
+    /// <summary>Adds a support (a node that does not move unless an analysis prescribes its motion).</summary>
+    public NetworkBuilder AddSupport(string name, DrawingPosition? position = null)
+    {
+        ClaimNodeName(name);
+        _supports.Add(new Support(name, position));
+        return this;
+    }
+
+    /// <summary>Sets the drawing position of ground.</summary>
+    public NetworkBuilder PlaceGround(DrawingPosition position)
+    {
+        _supports[0] = _supports[0] with { Position = position };
+        return this;
+    }
+
+    /// <summary>Adds a spring of stiffness <paramref name="stiffness"/> in N/m between two existing nodes.</summary>
+    public NetworkBuilder AddSpring(string name, string nodeA, string nodeB, double stiffness)
+    {
+        Guard.NonNegative(stiffness, nameof(stiffness));
+        CheckEnds(name, nodeA, nodeB);
+        if (_springs.Any(s => s.Name == name))
+            throw new ArgumentException($"A spring named '{name}' already exists.", nameof(name));
+        _springs.Add(new Spring(name, nodeA, nodeB, stiffness));
+        return this;
+    }
+
+    /// <summary>Adds a viscous damper of coefficient <paramref name="coefficient"/> in N·s/m between two existing nodes.</summary>
+    public NetworkBuilder AddDamper(string name, string nodeA, string nodeB, double coefficient)
+    {
+        Guard.NonNegative(coefficient, nameof(coefficient));
+        CheckEnds(name, nodeA, nodeB);
+        if (_dampers.Any(d => d.Name == name))
+            throw new ArgumentException($"A damper named '{name}' already exists.", nameof(name));
+        _dampers.Add(new Damper(name, nodeA, nodeB, coefficient));
+        return this;
+    }
+
+    /// <summary>Produces the immutable network.</summary>
+    public Network Build() => new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]);
+
+    private void ClaimNodeName(string name)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(name);
+        if (!_names.Add(name))
+            throw new ArgumentException($"A node named '{name}' already exists.", nameof(name));
+    }
+
+    private void CheckEnds(string element, string nodeA, string nodeB)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(element);
+        if (!_names.Contains(nodeA)) throw new ArgumentException($"'{element}' refers to unknown node '{nodeA}'.", nameof(nodeA));
+        if (!_names.Contains(nodeB)) throw new ArgumentException($"'{element}' refers to unknown node '{nodeB}'.", nameof(nodeB));
+        if (nodeA == nodeB) throw new ArgumentException($"'{element}' connects '{nodeA}' to itself.", nameof(nodeB));
+    }
+}

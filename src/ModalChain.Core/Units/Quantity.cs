@@ -1,0 +1,30 @@
+namespace ModalChain.Core.Units;
+
+/// <summary>The physical kinds of value a model file may state, each with its SI unit.</summary>
+public enum Quantity
+{
+    /// <summary>Mass, SI unit kg.</summary>
+    Mass,
+    /// <summary>Translational stiffness, SI unit N/m.</summary>
+    Stiffness,
+    /// <summary>Viscous damping coefficient, SI unit N·s/m.</summary>
+    Damping,
+    /// <summary>Length or displacement, SI unit m.</summary>
+    Length,
+    /// <summary>Frequency or rotational speed, SI unit Hz (cycles per second).</summary>
+    Frequency,
+    /// <summary>Dimensionless ratio, SI unit 1 (so 2 % is 0.02).</summary>
+    Ratio,
+    /// <summary>Force, SI unit N.</summary>
+    Force,
+    /// <summary>Time, SI unit s.</summary>
+    Time,
+    /// <summary>Plane angle, SI unit rad.</summary>
+    Angle,
+    /// <summary>Velocity, SI unit m/s.</summary>
+    Velocity,
+    /// <summary>Acceleration, SI unit m/s².</summary>
+    Acceleration,
+    /// <summary>Mass-radius product of a rotating unbalance, SI unit kg·m.</summary>
+    MassRadius,
+}

@@ -1,0 +1,95 @@
+using System.Collections.Frozen;
+using System.Globalization;
+
+namespace ModalChain.Core.Units;
+
+/// <summary>The unit symbols a model file may use, with their factors to SI.</summary>
+/// <remarks>
+/// Conversion factors are exact by definition where one exists (inch = 0.0254 m, pound = 0.45359237 kg,
+/// standard gravity g = 9.80665 m/s², pound-force = 4.4482216152605 N).
+/// Symbols are matched case-sensitively after normalising "·", "⋅" and spaces inside compound units to "*",
+/// "²" to "^2", and "per" spellings are not accepted: the trade's written forms are.
+/// </remarks>
+public static class UnitTable
+{
+    private const double Inch = 0.0254;
+    private const double Pound = 0.45359237;
+    private const double PoundForce = 4.4482216152605;
+    private const double StandardGravity = 9.80665;
+
+    private static readonly FrozenDictionary<Quantity, (string Symbol, double Factor)[]> Table =
+        new Dictionary<Quantity, (string, double)[]>
+        {
+            [Quantity.Mass] = [("kg", 1), ("g", 1e-3), ("t", 1e3), ("lb", Pound)],
+            [Quantity.Stiffness] = [("N/m", 1), ("kN/m", 1e3), ("N/mm", 1e3), ("kN/mm", 1e6), ("MN/m", 1e6), ("lbf/in", PoundForce / Inch)],
+            [Quantity.Damping] = [("N*s/m", 1), ("Ns/m", 1), ("kN*s/m", 1e3), ("kNs/m", 1e3), ("N*s/mm", 1e3), ("lbf*s/in", PoundForce / Inch)],
+            [Quantity.Length] = [("m", 1), ("mm", 1e-3), ("cm", 1e-2), ("um", 1e-6), ("µm", 1e-6), ("in", Inch)],
+            [Quantity.Frequency] = [("Hz", 1), ("rpm", 1.0 / 60), ("rad/s", 1 / (2 * Math.PI)), ("cpm", 1.0 / 60)],
+            [Quantity.Ratio] = [("%", 0.01)],
+            [Quantity.Force] = [("N", 1), ("kN", 1e3), ("MN", 1e6), ("lbf", PoundForce)],
+            [Quantity.Time] = [("s", 1), ("ms", 1e-3), ("min", 60)],
+            [Quantity.Angle] = [("rad", 1), ("deg", Math.PI / 180), ("°", Math.PI / 180)],
+            [Quantity.Velocity] = [("m/s", 1), ("mm/s", 1e-3), ("um/s", 1e-6), ("µm/s", 1e-6), ("in/s", Inch)],
+            [Quantity.Acceleration] = [("m/s^2", 1), ("mm/s^2", 1e-3), ("g", StandardGravity), ("in/s^2", Inch)],
+            [Quantity.MassRadius] = [("kg*m", 1), ("g*mm", 1e-6), ("g*m", 1e-3), ("g*cm", 1e-5), ("kg*mm", 1e-3), ("oz*in", Pound / 16 * Inch)],
+        }.ToFrozenDictionary();
+
+    /// <summary>The SI unit symbol of <paramref name="quantity"/> as the tool prints it.</summary>
+    public static string SiSymbol(Quantity quantity) => quantity switch
+    {
+        Quantity.Mass => "kg",
+        Quantity.Stiffness => "N/m",
+        Quantity.Damping => "N*s/m",
+        Quantity.Length => "m",
+        Quantity.Frequency => "Hz",
+        Quantity.Ratio => "1",
+        Quantity.Force => "N",
+        Quantity.Time => "s",
+        Quantity.Angle => "rad",
+        Quantity.Velocity => "m/s",
+        Quantity.Acceleration => "m/s^2",
+        Quantity.MassRadius => "kg*m",
+        _ => throw new ArgumentOutOfRangeException(nameof(quantity), quantity, null),
+    };
+
+    /// <summary>Lowercase name of the quantity as written in messages ("stiffness", "mass-radius").</summary>
+    public static string Describe(Quantity quantity) => quantity switch
+    {
+        Quantity.MassRadius => "mass-radius",
+        Quantity.Damping => "damping coefficient",
+        _ => quantity.ToString().ToLowerInvariant(),
+    };
+
+    /// <summary>Accepted symbols for <paramref name="quantity"/>, in the order documented.</summary>
+    public static IReadOnlyList<string> Symbols(Quantity quantity) => [.. Table[quantity].Select(u => u.Symbol)];
+
+    /// <summary>Factor that turns a value in <paramref name="symbol"/> into SI, or null when the symbol is not a unit of <paramref name="quantity"/>.</summary>
+    public static double? FactorToSi(Quantity quantity, string symbol)
+    {
+        var s = Normalise(symbol);
+        foreach (var (sym, factor) in Table[quantity])
+            if (sym == s) return factor;
+        return null;
+    }
+
+    /// <summary>The quantities for which <paramref name="symbol"/> is a unit (used to say "kg is a unit of mass").</summary>
+    public static IReadOnlyList<Quantity> QuantitiesOf(string symbol)
+    {
+        var s = Normalise(symbol);
+        return [.. Table.Where(kv => kv.Value.Any(u => u.Symbol == s)).Select(kv => kv.Key).Order()];
+    }
+
+    /// <summary>Formats <paramref name="siValue"/> in the SI unit with invariant culture, e.g. "12.5 kN/m" is never produced: always "12500 N/m".</summary>
+    public static string FormatSi(double siValue, Quantity quantity) =>
+        siValue.ToString("G6", CultureInfo.InvariantCulture) + " " + SiSymbol(quantity);
+
+    internal static string Normalise(string symbol)
+    {
+        var s = symbol.Trim()
+            .Replace('·', '*').Replace('⋅', '*').Replace('×', '*')
+            .Replace("²", "^2").Replace("**2", "^2");
+        // "kN s/m" and "N s/m" are common handwritten forms of a product.
+        s = string.Join('*', s.Split(' ', StringSplitOptions.RemoveEmptyEntries));
+        return s;
+    }
+}

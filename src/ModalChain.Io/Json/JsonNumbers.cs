@@ -1,0 +1,34 @@
+using System.Text.Json;
+
+namespace ModalChain.Io.Json;
+
+/// <summary>Number writing shared by the JSON writers: non-finite values become null, since JSON has no infinity.</summary>
+internal static class JsonNumbers
+{
+    public static void Number(this Utf8JsonWriter writer, string name, double value)
+    {
+        if (double.IsFinite(value)) writer.WriteNumber(name, value);
+        else writer.WriteNull(name);
+    }
+
+    public static void Number(this Utf8JsonWriter writer, double value)
+    {
+        if (double.IsFinite(value)) writer.WriteNumberValue(value);
+        else writer.WriteNullValue();
+    }
+
+    public static void Array(this Utf8JsonWriter writer, string name, IEnumerable<double> values)
+    {
+        writer.WriteStartArray(name);
+        foreach (var v in values) writer.Number(v);
+        writer.WriteEndArray();
+    }
+
+    /// <summary>An object from names to numbers, e.g. a mode shape keyed by mass name.</summary>
+    public static void Keyed(this Utf8JsonWriter writer, string name, IReadOnlyList<string> keys, IReadOnlyList<double> values)
+    {
+        writer.WriteStartObject(name);
+        for (var i = 0; i < keys.Count; i++) writer.Number(keys[i], values[i]);
+        writer.WriteEndObject();
+    }
+}

@@ -1,0 +1,75 @@
+using System.Text.Encodings.Web;
+using System.Text.Json;
+using ModalChain.Core;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Io.Model;
+
+namespace ModalChain.Io.Json;
+
+/// <summary>Writes a modal result as the stable JSON object of <c>modalchain modes --format json</c> (SI units).</summary>
+/// <remarks>Field names are a public contract read by other tools; add fields, never rename them. See docs/model-format.md.</remarks>
+public static class ModesJson
+{
+    /// <summary>Options shared by every JSON output of the tool: indented, non-ASCII kept readable.</summary>
+    public static readonly JsonWriterOptions WriterOptions = new() { Indented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
+
+    /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
+    public static void Write(Stream stream, ModelDocument document, ModalResult result, string toolVersion)
+    {
+        using var writer = new Utf8JsonWriter(stream, WriterOptions);
+        writer.WriteStartObject();
+        WriteBody(writer, document, result, toolVersion);
+        writer.WriteEndObject();
+    }
+
+    /// <summary>Writes the properties of the modes object into an object the caller has opened.</summary>
+    public static void WriteBody(Utf8JsonWriter writer, ModelDocument document, ModalResult result, string toolVersion)
+    {
+        var network = result.Network;
+        var dofNames = result.Matrices.Dofs.Dofs.Select(d => d.ToString()).ToArray();
+        var springNames = network.Springs.Select(s => s.Name).ToArray();
+
+        writer.WriteString("title", network.Title);
+        writer.WriteStartObject("source");
+        writer.WriteString("file", document.File);
+        writer.WriteString("sha256", document.Sha256);
+        writer.WriteString("tool_version", toolVersion);
+        writer.WriteEndObject();
+        writer.WriteStartArray("dofs");
+        foreach (var d in dofNames) writer.WriteStringValue(d);
+        writer.WriteEndArray();
+        writer.Number("total_mass_kg", result.TotalMass);
+        writer.WriteString("algorithm", result.Algorithm);
+
+        writer.WriteStartArray("modes");
+        foreach (var mode in result.Modes)
+        {
+            writer.WriteStartObject();
+            writer.WriteNumber("number", mode.Number);
+            writer.Number("frequency_hz", mode.NaturalFrequencyHz);
+            writer.Number("omega_rad_s", mode.AngularFrequency);
+            writer.Number("period_s", mode.PeriodSeconds);
+            writer.WriteBoolean("rigid_body", mode.IsRigidBody);
+            writer.Keyed("shape", dofNames, mode.Shape);
+            writer.Number("participation", mode.ParticipationFactor);
+            writer.Number("effective_mass_kg", mode.EffectiveModalMass);
+            writer.Number("effective_mass_fraction", mode.EffectiveMassFraction);
+            writer.Number("cumulative_mass_fraction", mode.CumulativeEffectiveMassFraction);
+            writer.Keyed("kinetic_energy_share", dofNames, mode.KineticEnergyShare);
+            writer.Keyed("strain_energy_share", springNames, mode.StrainEnergyShare);
+            writer.Number("residual", mode.Residual);
+            writer.WriteEndObject();
+        }
+        writer.WriteEndArray();
+
+        writer.WriteStartObject("quality");
+        writer.Number("max_residual", result.Quality.MaxResidual);
+        writer.Number("max_orthogonality_error", result.Quality.MaxOrthogonalityError);
+        writer.WriteEndObject();
+
+        writer.WriteStartArray("warnings");
+        foreach (var w in document.Warnings) writer.WriteStringValue(w.ToString());
+        writer.WriteEndArray();
+        writer.WriteString("caution", Cautions.Text);
+    }
+}

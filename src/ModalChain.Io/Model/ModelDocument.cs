@@ -1,0 +1,30 @@
+using System.Collections.Immutable;
+using ModalChain.Core.Model;
+using ModalChain.Io.Diagnostics;
+
+namespace ModalChain.Io.Model;
+
+/// <summary>A model file read and checked: the network in SI units plus where each element was written.</summary>
+/// <param name="File">The file name as the user gave it.</param>
+/// <param name="Sha256">Lower-case hexadecimal SHA-256 of the file's bytes, so outputs can be traced to their input.</param>
+/// <param name="Network">The network, all values in SI.</param>
+/// <param name="Warnings">Warnings found while reading (the model is usable).</param>
+/// <param name="Positions">Where each element was written: keys such as "masses.deck", "springs.columns".</param>
+public sealed record ModelDocument(
+    string File,
+    string Sha256,
+    Network Network,
+    ImmutableArray<Diagnostic> Warnings,
+    ImmutableDictionary<string, SourcePosition> Positions);
+
+/// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>
+/// <param name="Model">The model when there were no errors; null otherwise.</param>
+/// <param name="Diagnostics">Every error and warning, in file order.</param>
+public sealed record LoadResult(ModelDocument? Model, ImmutableArray<Diagnostic> Diagnostics)
+{
+    /// <summary>True when the model can be analysed.</summary>
+    public bool Succeeded => Model is not null;
+
+    /// <summary>The errors alone.</summary>
+    public IEnumerable<Diagnostic> Errors => Diagnostics.Where(d => d.Severity == Severity.Error);
+}

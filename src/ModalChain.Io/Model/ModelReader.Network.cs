@@ -1,0 +1,169 @@
+using System.Text.RegularExpressions;
+using ModalChain.Core.Model;
+using ModalChain.Core.Units;
+using ModalChain.Io.Diagnostics;
+using ModalChain.Io.Yaml;
+using CoreNetwork = ModalChain.Core.Model.Network;
+
+namespace ModalChain.Io.Model;
+
+public static partial class ModelReader
+{
+    // Plausibility limits: values beyond them are almost always a unit or typing mistake (common practice).
+    private static readonly Range MassRange = new(1e-6, 1e9);             // 1 mg .. 1,000,000 t
+    private static readonly Range StiffnessRange = new(0, 1e14);          // N/m
+    private static readonly Range DampingRange = new(0, 1e13);            // N·s/m
+    private static readonly Range DrawingRange = new(-1e5, 1e5);          // m
+
+    [GeneratedRegex(@"^[\p{L}\p{N}_][\p{L}\p{N}_.\-]*$")]
+    private static partial Regex NamePattern();
+
+    private static CoreNetwork? ReadNetwork(YMapping top, ReadContext context, string defaultTitle)
+    {
+        var builder = new NetworkBuilder { Title = defaultTitle };
+        if (top["title"] is { } titleNode && context.Text(titleNode, "'title'") is { } title) builder.Title = title;
+
+        var massesNode = top["masses"];
+        if (massesNode is null)
+        {
+            context.Error(top, "the model has no 'masses' section; a network needs at least one mass");
+            return null;
+        }
+        if (context.Mapping(massesNode, "'masses'") is not { } masses) return null;
+        if (masses.Entries.Length == 0)
+        {
+            context.Error(massesNode, "'masses' is empty; a network needs at least one mass");
+            return null;
+        }
+
+        var nodes = new HashSet<string> { CoreNetwork.Ground };
+        foreach (var (key, value) in masses.Entries)
+        {
+            if (!CheckName(key, context, "mass")) continue;
+            var what = $"mass '{key.Value}'";
+            context.Positions[$"masses.{key.Value}"] = key.Position;
+            double? kg;
+            DrawingPosition? at = null;
+            if (value is YScalar)
+                kg = context.Value(value, Quantity.Mass, MassRange, what); // shorthand: "deck: 3200 kg"
+            else if (context.Mapping(value, what) is { } entry)
+            {
+                context.RejectUnknownKeys(entry, what, "mass", "at");
+                kg = context.Required(entry, "mass", Quantity.Mass, MassRange, what);
+                if (entry["at"] is { } atNode) at = ReadPosition(atNode, context, what);
+            }
+            else continue;
+            nodes.Add(key.Value);
+            if (kg is { } m && !context.HasErrors) builder.AddMass(key.Value, m, at);
+        }
+
+        var springs = ReadTwoNodeSection(top, "springs", "spring", "stiffness", Quantity.Stiffness, StiffnessRange, nodes, context);
+        var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
+        if (context.HasErrors) return null;
+
+        foreach (var (name, a, b, k) in springs) builder.AddSpring(name, a, b, k);
+        foreach (var (name, a, b, c) in dampers) builder.AddDamper(name, a, b, c);
+        var network = builder.Build();
+        WarnAboutConnectivity(network, context);
+        return network;
+    }
+
+    private static List<(string Name, string A, string B, double Value)> ReadTwoNodeSection(
+        YMapping top, string section, string element, string valueKey, Quantity quantity, Range range,
+        HashSet<string> nodes, ReadContext context)
+    {
+        var result = new List<(string, string, string, double)>();
+        if (top[section] is not { } sectionNode) return result;
+        if (sectionNode is YScalar s && s.IsPlainNull) return result;
+        if (context.Mapping(sectionNode, $"'{section}'") is not { } mapping) return result;
+
+        foreach (var (key, value) in mapping.Entries)
+        {
+            if (!CheckName(key, context, element)) continue;
+            var what = $"{element} '{key.Value}'";
+            context.Positions[$"{section}.{key.Value}"] = key.Position;
+            if (context.Mapping(value, what) is not { } entry) continue;
+            context.RejectUnknownKeys(entry, what, "between", valueKey);
+            var ends = ReadBetween(entry, nodes, context, what);
+            var v = context.Required(entry, valueKey, quantity, range, what);
+            if (ends is { } e && v is { } x) result.Add((key.Value, e.A, e.B, x));
+        }
+        return result;
+    }
+
+    private static (string A, string B)? ReadBetween(YMapping entry, HashSet<string> nodes, ReadContext context, string what)
+    {
+        var node = entry["between"];
+        if (node is null)
+        {
+            context.Error(entry, $"{what} needs 'between: [node, node]' naming the two masses or supports it connects");
+            return null;
+        }
+        if (node is not YSequence { Items.Length: 2 } seq)
+        {
+            context.Error(node, $"'between' of {what} must list exactly two nodes, e.g. [ground, deck]");
+            return null;
+        }
+        var names = new string?[2];
+        for (var i = 0; i < 2; i++)
+        {
+            var name = context.Text(seq.Items[i], $"'between' of {what}");
+            if (name is null) continue;
+            if (!nodes.Contains(name))
+            {
+                context.Error(seq.Items[i], $"{what} refers to unknown node '{name}'{ReadContext.Suggest(name, nodes)}; declare it under 'masses' or use 'ground'");
+                continue;
+            }
+            names[i] = name;
+        }
+        if (names[0] is null || names[1] is null) return null;
+        if (names[0] == names[1])
+        {
+            context.Error(seq, $"{what} connects '{names[0]}' to itself; its two ends must differ");
+            return null;
+        }
+        return (names[0]!, names[1]!);
+    }
+
+    private static DrawingPosition? ReadPosition(YNode node, ReadContext context, string what)
+    {
+        if (node is not YSequence { Items.Length: 2 } seq)
+        {
+            context.Error(node, $"'at' of {what} must be a drawing position [x, y] in m");
+            return null;
+        }
+        var x = context.Value(seq.Items[0], Quantity.Length, DrawingRange, $"'at' of {what}");
+        var y = context.Value(seq.Items[1], Quantity.Length, DrawingRange, $"'at' of {what}");
+        return x is { } xv && y is { } yv ? new DrawingPosition(xv, yv) : null;
+    }
+
+    private static bool CheckName(YScalar key, ReadContext context, string element)
+    {
+        if (key.Value == CoreNetwork.Ground)
+        {
+            context.Error(key, $"'{CoreNetwork.Ground}' is the reserved fixed support and cannot name a {element}");
+            return false;
+        }
+        if (!NamePattern().IsMatch(key.Value))
+        {
+            context.Error(key, $"'{key.Value}' is not a usable {element} name; use letters, digits, '_', '-' and '.', starting with a letter or digit");
+            return false;
+        }
+        return true;
+    }
+
+    private static void WarnAboutConnectivity(CoreNetwork network, ReadContext context)
+    {
+        var loose = Topology.MassesWithoutSpring(network).ToHashSet();
+        foreach (var name in loose)
+            context.Warning(context.Positions[$"masses.{name}"],
+                $"mass '{name}' has no spring: nothing holds it, so it has a rigid-body mode (reported at 0 Hz)");
+        foreach (var group in Topology.UnsupportedGroups(network))
+        {
+            if (group.All(loose.Contains)) continue;
+            context.Warning(context.Positions[$"masses.{group[0]}"],
+                $"masses {string.Join(", ", group.Select(g => $"'{g}'"))} are not connected to ground by springs: " +
+                "that part of the network has a rigid-body mode (reported at 0 Hz)");
+        }
+    }
+}

@@ -1,0 +1,63 @@
+using System.Collections.Immutable;
+using System.Security.Cryptography;
+using System.Text;
+using ModalChain.Io.Diagnostics;
+using ModalChain.Io.Yaml;
+
+namespace ModalChain.Io.Model;
+
+/// <summary>Reads a model file (YAML) into a checked <see cref="ModelDocument"/>, collecting every problem at once.</summary>
+/// <remarks>
+/// The format is described in docs/model-format.md. Each top-level section has its own reader in a file
+/// <c>ModelReader.Section.cs</c>; values are converted to SI here and nowhere else.
+/// </remarks>
+public static partial class ModelReader
+{
+    /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
+    private static readonly string[] TopLevelKeys = ["title", "masses", "springs", "dampers"];
+
+    /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
+    public static LoadResult ReadFile(string path)
+    {
+        ArgumentNullException.ThrowIfNull(path);
+        byte[] bytes;
+        try { bytes = File.ReadAllBytes(path); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        {
+            var reason = e is FileNotFoundException or DirectoryNotFoundException ? "file not found" : "cannot read the file: " + e.Message;
+            return new LoadResult(null, [new Diagnostic(Severity.Error, path, new SourcePosition(1, 1), reason)]);
+        }
+        return Read(bytes, path);
+    }
+
+    /// <summary>Reads model text; <paramref name="file"/> names it in diagnostics.</summary>
+    public static LoadResult Read(string text, string file) => Read(Encoding.UTF8.GetBytes(text), file);
+
+    private static LoadResult Read(byte[] bytes, string file)
+    {
+        var text = new UTF8Encoding(false).GetString(bytes).TrimStart('\uFEFF');
+        var context = new ReadContext(file);
+        var root = YamlTree.Load(text, file, context.Diagnostics);
+        if (root is null || (root is YScalar s && s.IsPlainNull))
+        {
+            if (!context.HasErrors) context.Error(new SourcePosition(1, 1), "the model file is empty; it needs at least a 'masses' section");
+            return Finish(context, null);
+        }
+        if (context.Mapping(root, "the model file") is not { } top) return Finish(context, null);
+
+        context.RejectUnknownKeys(top, "the model file", TopLevelKeys);
+        var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file));
+        if (network is null || context.HasErrors) return Finish(context, null);
+
+        var document = new ModelDocument(
+            file,
+            Convert.ToHexStringLower(SHA256.HashData(bytes)),
+            network,
+            [.. context.Diagnostics.Where(d => d.Severity == Severity.Warning)],
+            context.Positions.ToImmutableDictionary());
+        return Finish(context, document);
+    }
+
+    private static LoadResult Finish(ReadContext context, ModelDocument? model) =>
+        new(model, [.. context.Diagnostics.OrderBy(d => d.Position.Line).ThenBy(d => d.Position.Column)]);
+}

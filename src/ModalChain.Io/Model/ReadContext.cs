@@ -1,0 +1,123 @@
+using ModalChain.Core.Units;
+using ModalChain.Io.Diagnostics;
+using ModalChain.Io.Yaml;
+
+namespace ModalChain.Io.Model;
+
+/// <summary>Plausible range of a value; outside it the value is taken as a typing or unit mistake.</summary>
+/// <param name="Minimum">Smallest accepted SI value.</param>
+/// <param name="Maximum">Largest accepted SI value.</param>
+/// <param name="MinimumInclusive">Whether <paramref name="Minimum"/> itself is accepted.</param>
+internal readonly record struct Range(double Minimum, double Maximum, bool MinimumInclusive = true)
+{
+    public static readonly Range Any = new(double.MinValue, double.MaxValue);
+}
+
+/// <summary>State shared by the section readers of one file: the file name and the diagnostics found so far.</summary>
+internal sealed class ReadContext(string file)
+{
+    public string File { get; } = file;
+    public List<Diagnostic> Diagnostics { get; } = [];
+    public Dictionary<string, SourcePosition> Positions { get; } = [];
+    public bool HasErrors => Diagnostics.Any(d => d.Severity == Severity.Error);
+
+    public void Error(YNode node, string message) => Error(node.Position, message);
+    public void Error(SourcePosition at, string message) => Diagnostics.Add(new Diagnostic(Severity.Error, File, at, message));
+    public void Warning(SourcePosition at, string message) => Diagnostics.Add(new Diagnostic(Severity.Warning, File, at, message));
+
+    /// <summary>The node as a mapping, or an error saying what was expected.</summary>
+    public YMapping? Mapping(YNode node, string what)
+    {
+        if (node is YMapping m) return m;
+        Error(node, $"{what} must be a mapping of 'key: value' entries");
+        return null;
+    }
+
+    /// <summary>The entries of a mapping after reporting keys not in <paramref name="allowed"/>.</summary>
+    public void RejectUnknownKeys(YMapping mapping, string what, params string[] allowed)
+    {
+        foreach (var (key, _) in mapping.Entries)
+            if (!allowed.Contains(key.Value))
+                Error(key, $"unknown key '{key.Value}' in {what}{Suggest(key.Value, allowed)}; accepted keys: {string.Join(", ", allowed)}");
+    }
+
+    /// <summary>Reads a required value of <paramref name="quantity"/> from <paramref name="mapping"/>[<paramref name="key"/>].</summary>
+    public double? Required(YMapping mapping, string key, Quantity quantity, Range range, string what)
+    {
+        var node = mapping[key];
+        if (node is null)
+        {
+            Error(mapping, $"{what} needs '{key}'");
+            return null;
+        }
+        return Value(node, quantity, range, $"'{key}' of {what}");
+    }
+
+    /// <summary>Reads an optional value; null when absent.</summary>
+    public double? Optional(YMapping mapping, string key, Quantity quantity, Range range, string what) =>
+        mapping[key] is { } node ? Value(node, quantity, range, $"'{key}' of {what}") : null;
+
+    /// <summary>Reads one scalar as <paramref name="quantity"/>, checking it lies in <paramref name="range"/>.</summary>
+    public double? Value(YNode node, Quantity quantity, Range range, string what)
+    {
+        if (node is not YScalar scalar || scalar.IsPlainNull)
+        {
+            Error(node, $"{what} must be a {UnitTable.Describe(quantity)} value such as '{Example(quantity)}'");
+            return null;
+        }
+        var parsed = QuantityParser.Parse(scalar.Value, quantity);
+        if (!parsed.Succeeded)
+        {
+            Error(node, $"{what}: {parsed.Error}");
+            return null;
+        }
+        var v = parsed.Value;
+        var belowMinimum = range.MinimumInclusive ? v < range.Minimum : v <= range.Minimum;
+        if (belowMinimum || v > range.Maximum)
+        {
+            Error(node, $"{what} is {UnitTable.FormatSi(v, quantity)}, {RangeText(range, quantity)}");
+            return null;
+        }
+        return v;
+    }
+
+    /// <summary>Reads a scalar string; null with an error when the node is not a non-empty scalar.</summary>
+    public string? Text(YNode node, string what)
+    {
+        if (node is YScalar s && !s.IsPlainNull) return s.Value;
+        Error(node, $"{what} must be text");
+        return null;
+    }
+
+    private static string RangeText(Range range, Quantity quantity)
+    {
+        if (range.Minimum == 0 && !range.MinimumInclusive && range.Maximum == double.MaxValue) return "but it must be positive";
+        if (range.Minimum == 0 && range.MinimumInclusive && range.Maximum == double.MaxValue) return "but it must not be negative";
+        var low = range.Minimum == 0 && !range.MinimumInclusive ? "positive" : (range.MinimumInclusive ? "at least " : "above ") + UnitTable.FormatSi(range.Minimum, quantity);
+        return $"outside the plausible range ({low} and at most {UnitTable.FormatSi(range.Maximum, quantity)}); check the number and its unit";
+    }
+
+    private static string Example(Quantity quantity) => quantity switch
+    {
+        Quantity.Ratio => "2 %",
+        _ => "12 " + UnitTable.Symbols(quantity)[0],
+    };
+
+    /// <summary>" (did you mean 'x'?)" for the closest allowed word within two edits, or empty.</summary>
+    public static string Suggest(string word, IEnumerable<string> allowed)
+    {
+        var best = allowed.Select(a => (a, d: EditDistance(word.ToLowerInvariant(), a.ToLowerInvariant()))).OrderBy(p => p.d).FirstOrDefault();
+        return best.a is not null && best.d <= 2 ? $" (did you mean '{best.a}'?)" : "";
+    }
+
+    private static int EditDistance(string a, string b)
+    {
+        var d = new int[a.Length + 1, b.Length + 1];
+        for (var i = 0; i <= a.Length; i++) d[i, 0] = i;
+        for (var j = 0; j <= b.Length; j++) d[0, j] = j;
+        for (var i = 1; i <= a.Length; i++)
+            for (var j = 1; j <= b.Length; j++)
+                d[i, j] = Math.Min(Math.Min(d[i - 1, j] + 1, d[i, j - 1] + 1), d[i - 1, j - 1] + (a[i - 1] == b[j - 1] ? 0 : 1));
+        return d[a.Length, b.Length];
+    }
+}
