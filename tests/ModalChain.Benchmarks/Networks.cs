@@ -1,0 +1,24 @@
+using ModalChain.Core.Model;
+
+namespace ModalChain.Benchmarks;
+
+/// <summary>Seeded benchmark networks, so every run measures the same model.</summary>
+public static class Networks
+{
+    /// <summary>A fixed-free chain of n masses with a seeded spread of masses (±30 %) and stiffnesses (±30 %), plus random cross springs.</summary>
+    public static Network RandomChain(int n, int seed = 1, int crossSprings = 0)
+    {
+        var random = new Random(seed);
+        var b = new NetworkBuilder { Title = $"benchmark chain of {n}" };
+        for (var i = 0; i < n; i++) b.AddMass($"m{i}", 100 * (0.7 + 0.6 * random.NextDouble()));
+        b.AddSpring("s0", Network.Ground, "m0", 1e6 * (0.7 + 0.6 * random.NextDouble()));
+        for (var i = 1; i < n; i++) b.AddSpring($"s{i}", $"m{i - 1}", $"m{i}", 1e6 * (0.7 + 0.6 * random.NextDouble()));
+        for (var c = 0; c < crossSprings; c++)
+        {
+            var a = random.Next(n);
+            var d = random.Next(n);
+            if (a != d) b.AddSpring($"x{c}", $"m{a}", $"m{d}", 1e5 * random.NextDouble());
+        }
+        return b.Build();
+    }
+}
