@@ -172,24 +172,39 @@ public class RandomNetworkInvariantTests(RandomNetworkSet set) : IClassFixture<R
     }
 
     [Fact]
-    public void StrainEnergyOfEveryElasticMode_EqualsHalfItsEigenvalue()
+    public void StrainEnergyOfEverySpring_IsItsShareOfHalfTheEigenvalue()
     {
-        // ½ Σ k (φ_a − φ_b)² = ½ φᵀKφ = ½ ω² for a mass-normalised shape; tolerance 1e-12·s + 1e-9·ω².
+        // ½ Σ k (φ_a − φ_b)² = ½ φᵀKφ = ½ ω² for a mass-normalised shape, so spring s holds k_s Δφ_s² / ω² of it.
+        // Tolerances: 1e-12·s + 1e-9·ω² on the sum, 1e-9 + 1e-12·s/ω² on each share.
         foreach (var c in set.Cases)
         {
             var dofs = c.Matrices.Dofs;
             foreach (var mode in c.Result.Modes.Where(m => !m.IsRigidBody))
             {
-                var energy = c.Network.Springs.Sum(s =>
+                var energies = c.Network.Springs.Select(s =>
                 {
                     var a = dofs.IndexOf(s.NodeA);
                     var b = dofs.IndexOf(s.NodeB);
                     var d = (a >= 0 ? mode.Shape[a] : 0) - (b >= 0 ? mode.Shape[b] : 0);
                     return s.Stiffness * d * d;
-                });
-                NumericAssert.Close(mode.EigenValue, energy, new Tolerance(1e-12 * c.Scale, 1e-9), $"case {c.Index}, mode {mode.Number}: Σ k Δφ²");
+                }).ToArray();
+                NumericAssert.Close(mode.EigenValue, energies.Sum(), new Tolerance(1e-12 * c.Scale, 1e-9), $"case {c.Index}, mode {mode.Number}: Σ k Δφ²");
+                var shares = energies.Select(e => e / mode.EigenValue).ToArray();
+                NumericAssert.Close(shares, mode.StrainEnergyShare, Tolerance.Abs(1e-9 + 1e-12 * c.Scale / mode.EigenValue), $"case {c.Index}, mode {mode.Number}: strain shares");
             }
         }
+    }
+
+    [Fact]
+    public void KineticEnergyOfEveryMass_IsItsMassTimesTheShapeSquared()
+    {
+        // With φᵀMφ = 1 and lumped M, mass i carries m_i φ_i² of the kinetic energy. Tolerance 1e-12.
+        foreach (var c in set.Cases)
+            foreach (var mode in c.Result.Modes)
+            {
+                var shares = c.Network.Masses.Select((m, i) => m.Kilograms * mode.Shape[i] * mode.Shape[i]).ToArray();
+                NumericAssert.Close(shares, mode.KineticEnergyShare, Tolerance.Abs(1e-12), $"case {c.Index}, mode {mode.Number}: kinetic shares");
+            }
     }
 
     [Fact]
