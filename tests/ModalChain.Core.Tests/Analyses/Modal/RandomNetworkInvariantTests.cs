@@ -94,12 +94,12 @@ public class RandomNetworkInvariantTests(RandomNetworkSet set) : IClassFixture<R
     [Fact]
     public void Shapes_AreMassOrthonormal()
     {
-        // Φᵀ M Φ = I, every entry within 1e-10.
+        // Φᵀ M Φ = I, every entry within 1e-12.
         foreach (var c in set.Cases)
         {
             var phi = Shapes(c.Result);
             var gram = phi.TransposeThisAndMultiply(c.Matrices.Mass * phi);
-            NumericAssert.Close(Matrix<double>.Build.DenseIdentity(phi.ColumnCount), gram, Tolerance.Abs(1e-10), $"case {c.Index}: ΦᵀMΦ");
+            NumericAssert.Close(Matrix<double>.Build.DenseIdentity(phi.ColumnCount), gram, Tolerance.Abs(1e-12), $"case {c.Index}: ΦᵀMΦ");
         }
     }
 
@@ -253,12 +253,13 @@ public class RandomNetworkInvariantTests(RandomNetworkSet set) : IClassFixture<R
     [Fact]
     public void QualityFigures_AreSmall()
     {
-        // The reported residual and orthogonality error stay near round-off on well-posed networks: residual
-        // ≤ 1e-8 (it is relative to ‖Kφ‖, which is small for the lowest modes of stiff networks), orthogonality ≤ 1e-10.
+        // The reported residual and orthogonality error stay near round-off on these networks: residual ≤ 1e-9 (it is
+        // relative to ‖Kφ‖, which is small for the lowest modes of stiff networks; seen up to ~4e-12), orthogonality
+        // ≤ 1e-12 (seen up to ~9e-15).
         foreach (var c in set.Cases)
         {
-            NumericAssert.Small(c.Result.Quality.MaxResidual, 1e-8, $"case {c.Index}: max residual");
-            NumericAssert.Small(c.Result.Quality.MaxOrthogonalityError, 1e-10, $"case {c.Index}: max orthogonality error");
+            NumericAssert.Small(c.Result.Quality.MaxResidual, 1e-9, $"case {c.Index}: max residual");
+            NumericAssert.Small(c.Result.Quality.MaxOrthogonalityError, 1e-12, $"case {c.Index}: max orthogonality error");
             Assert.Equal(c.Result.Modes.Max(m => m.Residual), c.Result.Quality.MaxResidual);
         }
     }
