@@ -32,9 +32,9 @@ internal static class YamlTree
     public static YNode? Load(string text, string file, List<Diagnostic> diagnostics)
     {
         var anchors = new Dictionary<string, YNode>();
+        var parser = new TrackingParser(new Parser(new StringReader(text)));
         try
         {
-            var parser = new Parser(new StringReader(text));
             parser.Consume<StreamStart>();
             if (parser.Accept<StreamEnd>(out _)) return null;
             parser.Consume<DocumentStart>();
@@ -46,8 +46,86 @@ internal static class YamlTree
         }
         catch (YamlException e)
         {
-            diagnostics.Add(new Diagnostic(Severity.Error, file, Pos(e.Start), "malformed YAML: " + Tidy(e.Message)));
+            var (at, message) = Explain(e, text, parser.OpenFlow);
+            diagnostics.Add(new Diagnostic(Severity.Error, file, at, "malformed YAML: " + message));
             return null;
+        }
+        catch (InvalidOperationException)
+        {
+            // YamlDotNet's scanner throws this (not a YamlException, and without a mark) for some unclosed flow
+            // collections followed by more lines, e.g. "deck: {mass: 3 kg" then "springs: ...".
+            var (at, message) = parser.OpenFlow is { } open
+                ? (Pos(open.Start), $"this '{open.Bracket}' is never closed; add '{Closing(open.Bracket)}' at the end of the entry")
+                : (Pos(parser.LastStart), "the text after this point cannot be read; look for an unclosed '{', '[' or quote");
+            diagnostics.Add(new Diagnostic(Severity.Error, file, at, "malformed YAML: " + message));
+            return null;
+        }
+    }
+
+    // YamlDotNet's messages say what the scanner saw; add the likely cause and, where its mark is unhelpful, a better place.
+    private static (SourcePosition At, string Message) Explain(YamlException e, string text, OpenCollection? open)
+    {
+        var raw = Tidy(e.Message).TrimEnd('.');
+        var at = Pos(e.Start);
+        if (raw.Contains("tab", StringComparison.OrdinalIgnoreCase) && FirstIndentingTab(text) is { } tab)
+            return (tab, "a tab is used for indentation; YAML indents with spaces only");
+        if (open is { } o && (raw.Contains("flow sequence", StringComparison.Ordinal) || raw.Contains("flow mapping", StringComparison.Ordinal)))
+        {
+            var opener = Pos(o.Start);
+            var hint = $"the '{o.Bracket}' opened at line {opener.Line}, column {opener.Column} is not closed with '{Closing(o.Bracket)}'";
+            // When the scanner only notices at a later line (often the end of the file), the opener is the place to fix.
+            return at.Line > opener.Line ? (opener, $"this '{o.Bracket}' is never closed; add '{Closing(o.Bracket)}' at the end of the entry") : (at, $"{raw} ({hint})");
+        }
+        if (raw.Contains("quoted scalar", StringComparison.Ordinal))
+            return (at, $"{raw} (is a quote left open?)");
+        if (raw.Contains("did not find expected key", StringComparison.Ordinal))
+            return (at, $"{raw} (check the indentation: the keys of one mapping must start in the same column)");
+        if (raw.Contains("found invalid mapping", StringComparison.Ordinal))
+            return (at, $"{raw} (a 'key: value' is indented deeper than the key before it, or the line above lacks its ':')");
+        return (at, raw);
+    }
+
+    private static SourcePosition? FirstIndentingTab(string text)
+    {
+        var lines = text.Split('\n');
+        for (var i = 0; i < lines.Length; i++)
+        {
+            var line = lines[i];
+            var indent = line.Length - line.TrimStart(' ', '\t').Length;
+            var tab = line.IndexOf('\t', 0, indent);
+            if (tab >= 0) return new SourcePosition(i + 1, tab + 1);
+        }
+        return null;
+    }
+
+    private static char Closing(char bracket) => bracket == '{' ? '}' : ']';
+
+    private readonly record struct OpenCollection(Mark Start, char Bracket);
+
+    /// <summary>Remembers where the last event started and which flow collections are open, to place errors the scanner cannot.</summary>
+    private sealed class TrackingParser(IParser inner) : IParser
+    {
+        private readonly Stack<OpenCollection?> _open = new();
+
+        public Mark LastStart { get; private set; } = Mark.Empty;
+
+        /// <summary>The innermost flow collection ('{' or '[') not yet closed, if any.</summary>
+        public OpenCollection? OpenFlow => _open.FirstOrDefault(c => c is not null);
+
+        public ParsingEvent? Current => inner.Current;
+
+        public bool MoveNext()
+        {
+            var moved = inner.MoveNext();
+            if (!moved || inner.Current is not { } e) return moved;
+            LastStart = e.Start;
+            switch (e)
+            {
+                case MappingStart m: _open.Push(m.Style == MappingStyle.Flow ? new OpenCollection(m.Start, '{') : null); break;
+                case SequenceStart q: _open.Push(q.Style == SequenceStyle.Flow ? new OpenCollection(q.Start, '[') : null); break;
+                case MappingEnd or SequenceEnd when _open.Count > 0: _open.Pop(); break;
+            }
+            return moved;
         }
     }
 
