@@ -85,7 +85,7 @@ internal sealed partial class ReadContext(string file)
         var belowMinimum = range.MinimumInclusive ? v < range.Minimum : v <= range.Minimum;
         if (belowMinimum || v > range.Maximum)
         {
-            Error(node, $"{what} is {UnitTable.FormatSi(v, quantity)}, {RangeText(range, quantity, v)}");
+            Error(node, $"{what} is {Si(v, quantity)}, {RangeText(range, quantity, v)}");
             return null;
         }
         return v;
@@ -110,8 +110,16 @@ internal sealed partial class ReadContext(string file)
             return $"but a {UnitTable.Describe(quantity)} must be positive";
         if (range.Minimum == 0 && !range.MinimumInclusive && range.Maximum == double.MaxValue) return "but it must be positive";
         if (range.Minimum == 0 && range.MinimumInclusive && range.Maximum == double.MaxValue) return "but it must not be negative";
-        var low = range.Minimum == 0 && !range.MinimumInclusive ? "positive" : (range.MinimumInclusive ? "at least " : "above ") + UnitTable.FormatSi(range.Minimum, quantity);
-        return $"outside the plausible range ({low} and at most {UnitTable.FormatSi(range.Maximum, quantity)}); check the number and its unit";
+        var low = range.Minimum == 0 && !range.MinimumInclusive ? "positive" : (range.MinimumInclusive ? "at least " : "above ") + Si(range.Minimum, quantity);
+        return $"outside the plausible range ({low} and at most {Si(range.Maximum, quantity)}); check the number and its unit";
+    }
+
+    // Plain digits where a reader takes them in at a glance ("-8400000 N/m"), powers of ten beyond ("1e+30 kg").
+    private static string Si(double value, Quantity quantity)
+    {
+        var magnitude = Math.Abs(value);
+        var format = value == 0 || (magnitude >= 1e-3 && magnitude < 1e9) ? "0.######" : "0.###e+0";
+        return value.ToString(format, System.Globalization.CultureInfo.InvariantCulture) + " " + UnitTable.SiSymbol(quantity);
     }
 
     private static string Example(Quantity quantity) => quantity switch
