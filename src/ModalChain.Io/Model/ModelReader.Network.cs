@@ -37,6 +37,8 @@ public static partial class ModelReader
         if (context.Mapping(massesNode, "'masses'") is not { } masses) return null;
         if (masses.Entries.Length == 0)
         {
+            // Its only entries were already reported (e.g. a key that is a list): "empty" would be a second, wrong error.
+            if (masses.DroppedKeys) return null;
             context.Error(massesNode, "'masses' is empty; a network needs at least one mass, e.g. 'deck: 3200 kg'");
             return null;
         }

@@ -17,7 +17,10 @@ internal sealed record YScalar(SourcePosition Position, string Value, bool Quote
 internal sealed record YSequence(SourcePosition Position, ImmutableArray<YNode> Items) : YNode(Position);
 
 /// <summary>A mapping whose keys are scalars, in document order, duplicates already rejected.</summary>
-internal sealed record YMapping(SourcePosition Position, ImmutableArray<KeyValuePair<YScalar, YNode>> Entries) : YNode(Position)
+/// <param name="Position">Where the mapping starts.</param>
+/// <param name="Entries">The entries kept, in document order.</param>
+/// <param name="DroppedKeys">True when an entry was left out because its key was already reported (duplicate, or not a scalar).</param>
+internal sealed record YMapping(SourcePosition Position, ImmutableArray<KeyValuePair<YScalar, YNode>> Entries, bool DroppedKeys = false) : YNode(Position)
 {
     public YNode? this[string key] => Entries.FirstOrDefault(e => e.Key.Value == key).Value;
 }
@@ -155,6 +158,7 @@ internal static class YamlTree
         {
             var entries = ImmutableArray.CreateBuilder<KeyValuePair<YScalar, YNode>>();
             var seen = new Dictionary<string, SourcePosition>();
+            var dropped = false;
             while (!parser.TryConsume<MappingEnd>(out _))
             {
                 var keyNode = ReadNode(parser, file, diagnostics, anchors);
@@ -162,18 +166,20 @@ internal static class YamlTree
                 if (keyNode is not YScalar key)
                 {
                     diagnostics.Add(new Diagnostic(Severity.Error, file, keyNode.Position, "a key must be a plain name, not a list or mapping"));
+                    dropped = true;
                     continue;
                 }
                 if (seen.TryGetValue(key.Value, out var first))
                 {
                     diagnostics.Add(new Diagnostic(Severity.Error, file, key.Position,
                         $"duplicate key '{key.Value}' (first defined at line {first.Line}); names must be unique"));
+                    dropped = true;
                     continue;
                 }
                 seen[key.Value] = key.Position;
                 entries.Add(new(key, value));
             }
-            node = new YMapping(Pos(map.Start), entries.ToImmutable());
+            node = new YMapping(Pos(map.Start), entries.ToImmutable(), dropped);
             anchor = map.Anchor.IsEmpty ? null : map.Anchor.Value;
         }
         else
