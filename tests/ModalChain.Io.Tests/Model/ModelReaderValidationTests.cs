@@ -381,6 +381,6 @@ public class ModelReaderValidationTests
             Assert.Equal($"{FileName}:{line}:{column}: error: ", errors[i].ToString()[..$"{FileName}:{line}:{column}: error: ".Length]);
             Assert.Contains(says, errors[i].Message, StringComparison.Ordinal);
         }
-        Assert.Equal(r.Diagnostics.OrderBy(d => d.Position.Line).ThenBy(d => d.Position.Column), r.Diagnostics);
+        Assert.Equal(r.Diagnostics.OrderBy(d => d.Position.Line).ThenBy(d => d.Position.Column).ToArray(), r.Diagnostics.ToArray());
     }
 }
