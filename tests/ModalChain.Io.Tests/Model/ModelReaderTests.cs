@@ -253,4 +253,39 @@ public class ModelReaderTests
         Assert.False(r.Succeeded);
         ErrorAt(r, 5, ColumnOf("  c: {between: [ground, deck], stiffness: -1}", "-1"), "cannot be negative");
     }
+
+    [Fact]
+    public void Latin1File_IsReportedAtTheFirstByteThatIsNotUtf8()
+    {
+        // "Bühne" saved in ISO-8859-1: ü is the single byte 0xFC, which UTF-8 does not allow on its own.
+        var bytes = Encoding.Latin1.GetBytes("masses:\n  deck: 3200 kg\n  Bühne: 10 kg\n");
+        var path = Path.Combine(Path.GetTempPath(), $"modalchain-latin1-{Guid.NewGuid():N}.yaml");
+        File.WriteAllBytes(path, bytes);
+        try
+        {
+            var r = ModelReader.ReadFile(path);
+            var d = Assert.Single(r.Errors);
+            Assert.Equal(new SourcePosition(3, 4), d.Position);
+            Assert.Contains("not UTF-8", d.Message, StringComparison.Ordinal);
+            Assert.Contains("0xFC", d.Message, StringComparison.Ordinal);
+        }
+        finally { File.Delete(path); }
+    }
+
+    [Fact]
+    public void Utf16FileWithAByteOrderMark_Reads()
+    {
+        var text = "title: Bühne\nmasses:\n  deck: 3200 kg\nsprings:\n  c: {between: [ground, deck], stiffness: 95 kN/mm}\n";
+        var bytes = Encoding.Unicode.GetPreamble().Concat(Encoding.Unicode.GetBytes(text)).ToArray();
+        var path = Path.Combine(Path.GetTempPath(), $"modalchain-utf16-{Guid.NewGuid():N}.yaml");
+        File.WriteAllBytes(path, bytes);
+        try
+        {
+            var r = ModelReader.ReadFile(path);
+            Assert.True(r.Succeeded, string.Join("\n", r.Diagnostics));
+            Assert.Equal("Bühne", r.Model!.Network.Title);
+            Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(bytes)), r.Model.Sha256);
+        }
+        finally { File.Delete(path); }
+    }
 }
