@@ -95,7 +95,12 @@ public static partial class ModelReader
             if (!CheckName(key, context, element)) continue;
             var what = $"{element} '{key.Value}'";
             context.Positions[$"{section}.{key.Value}"] = key.Position;
-            if (context.Mapping(value, what) is not { } entry) continue;
+            if (value is not YMapping entry)
+            {
+                var example = quantity == Quantity.Stiffness ? "95 kN/mm" : "1.5 kN*s/m";
+                context.Error(value, $"{what} must be a mapping such as '{{between: [ground, deck], {valueKey}: {example}}}'");
+                continue;
+            }
             context.RejectUnknownKeys(entry, what, "between", valueKey);
             var ends = ReadBetween(entry, key.Position, nodes, context, what);
             var v = context.Required(entry, valueKey, quantity, range, what, key.Position);
