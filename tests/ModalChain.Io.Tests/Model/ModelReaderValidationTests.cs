@@ -310,6 +310,49 @@ public class ModelReaderValidationTests
     }
 
     [Fact]
+    public void SpringWrittenAsAPlainValue_ShowsTheMappingToWrite()
+    {
+        const string line4 = "  columns: 95 kN/mm";
+        var r = Read("masses:", "  deck: 3200 kg", "springs:", line4);
+        SingleError(r, 4, ColumnOf(line4, "95"), "spring 'columns' must be a mapping", "{between: [ground, deck], stiffness: 95 kN/mm}");
+    }
+
+    [Fact]
+    public void DamperWrittenAsAList_ShowsTheMappingToWrite()
+    {
+        const string line6 = "  loss: [ground, deck]";
+        var r = Read("masses:", "  deck: 3200 kg", "springs:", "  c: {between: [ground, deck], stiffness: 1 kN/mm}", "dampers:", line6);
+        SingleError(r, 6, ColumnOf(line6, "["), "damper 'loss' must be a mapping", "coefficient: 1.5 kN*s/m");
+    }
+
+    [Fact]
+    public void SectionWrittenAsAList_IsReportedAtTheList()
+    {
+        var r = Read("masses:", "  deck: 3200 kg", "springs:", "  - columns");
+        SingleError(r, 4, 3, "'springs' must be a mapping");
+    }
+
+    [Fact]
+    public void NodeNamesAreCaseSensitive_AndTheSuggestionSaysSo()
+    {
+        const string line4 = "  c: {between: [Ground, deck], stiffness: 1 kN/mm}";
+        var r = Read("masses:", "  deck: 3200 kg", "springs:", line4);
+        SingleError(r, 4, ColumnOf(line4, "Ground"), "unknown node 'Ground'", "did you mean 'ground'?");
+    }
+
+    [Theory]
+    [InlineData("8.4 mm", "'mm' is a unit of length")]
+    [InlineData("8.4 Hz", "'Hz' is a unit of frequency")]
+    [InlineData("8.4 kN*s/m", "'kN*s/m' is a unit of damping coefficient")]
+    [InlineData("8.4 kn/mm", "unknown unit 'kn/mm'")]
+    public void StiffnessWithTheWrongUnit_NamesTheUnitsQuantity(string value, string says)
+    {
+        var line4 = $"  c: {{between: [ground, deck], stiffness: {value}}}";
+        var r = Read("masses:", "  deck: 3200 kg", "springs:", line4);
+        SingleError(r, 4, ColumnOf(line4, value), says, "accepted units: N/m");
+    }
+
+    [Fact]
     public void RootThatIsNotAMapping_IsReportedAtTheStart()
     {
         var r = Read("- deck", "- skid");
