@@ -22,6 +22,7 @@ public class ModelReaderTests
         "  m-kg: 12.5 kg",
         "  m-g: {mass: 2500 g, at: [1500 mm, 2 in]}",
         "  m-t: {mass: 1.2 t, at: [0.5 m, -3]}",
+        "  m-cm: {mass: 3 kg, at: [25 cm, 1500 µm]}",
         "  m-lb: 100 lb",
         "  m-plain: 7",
         "springs:",
@@ -32,12 +33,18 @@ public class ModelReaderTests
         "  k-mnm: {between: [m-lb, m-plain], stiffness: 1.1 MN/m}",
         "  k-lbfin: {between: [ground, m-plain], stiffness: 500 lbf/in}",
         "  k-plain: {between: [ground, m-t], stiffness: 3e5}",
+        "  k-cm: {between: [ground, m-cm], stiffness: 1 kN/mm}",
         "dampers:",
         "  c-star: {between: [ground, m-kg], coefficient: 10 N*s/m}",
         "  c-dot: {between: [ground, m-g], coefficient: 11 N·s/m}",
         "  c-ns: {between: [ground, m-t], coefficient: 12 Ns/m}",
         "  c-kn: {between: [ground, m-lb], coefficient: 1.3 kN*s/m}",
         "  c-plain: {between: [ground, m-plain], coefficient: 14}",
+        "  c-space: {between: [ground, m-kg], coefficient: 15 N s/m}",
+        "  c-kns: {between: [ground, m-g], coefficient: 1.6 kNs/m}",
+        "  c-nsmm: {between: [ground, m-t], coefficient: 1.7 N*s/mm}",
+        "  c-lbf: {between: [ground, m-lb], coefficient: 2 lbf*s/in}",
+        "  c-middot: {between: [ground, m-plain], coefficient: 1.9 kN⋅s/m}",
     ];
 
     private static Network ReadUnitModel()
@@ -76,6 +83,11 @@ public class ModelReaderTests
         NumericAssert.Close(12, C("c-ns"), exact, "Ns/m");
         NumericAssert.Close(1300, C("c-kn"), exact, "kN*s/m");
         NumericAssert.Close(14, C("c-plain"), exact, "plain number = N*s/m");
+        NumericAssert.Close(15, C("c-space"), exact, "N s/m");
+        NumericAssert.Close(1600, C("c-kns"), exact, "kNs/m");
+        NumericAssert.Close(1700, C("c-nsmm"), exact, "N*s/mm");
+        NumericAssert.Close(2 * PoundForce / Inch, C("c-lbf"), exact, "lbf*s/in");
+        NumericAssert.Close(1900, C("c-middot"), exact, "kN⋅s/m (dot operator)");
     }
 
     [Fact]
@@ -88,6 +100,9 @@ public class ModelReaderTests
         var t = n.Masses.Single(m => m.Name == "m-t").Position!.Value;
         Assert.Equal(new DrawingPosition(0.5, -3), t);
         Assert.Null(n.Masses.Single(m => m.Name == "m-kg").Position);
+        var cm = n.Masses.Single(m => m.Name == "m-cm").Position!.Value;
+        NumericAssert.Close(0.25, cm.X, Tolerance.Rel(1e-15), "25 cm");
+        NumericAssert.Close(1.5e-3, cm.Y, Tolerance.Rel(1e-15), "1500 µm");
     }
 
     [Fact]
@@ -125,10 +140,10 @@ public class ModelReaderTests
     {
         var n = ReadUnitModel();
         Assert.Equal("Every unit of the model format", n.Title);
-        Assert.Equal(["m-kg", "m-g", "m-t", "m-lb", "m-plain"], n.Masses.Select(m => m.Name));
+        Assert.Equal(["m-kg", "m-g", "m-t", "m-cm", "m-lb", "m-plain"], n.Masses.Select(m => m.Name));
         Assert.Equal(("ground", "m-kg"), (n.Springs[0].NodeA, n.Springs[0].NodeB));
-        Assert.Equal(7, n.Springs.Length);
-        Assert.Equal(5, n.Dampers.Length);
+        Assert.Equal(8, n.Springs.Length);
+        Assert.Equal(10, n.Dampers.Length);
     }
 
     [Fact]
@@ -152,8 +167,8 @@ public class ModelReaderTests
         var r = Read(UnitModel);
         var p = r.Model!.Positions;
         Assert.Equal(new SourcePosition(3, 3), p["masses.m-kg"]);
-        Assert.Equal(new SourcePosition(9, 3), p["springs.k-nm"]);
-        Assert.Equal(new SourcePosition(21, 3), p["dampers.c-plain"]);
+        Assert.Equal(new SourcePosition(10, 3), p["springs.k-nm"]);
+        Assert.Equal(new SourcePosition(23, 3), p["dampers.c-plain"]);
     }
 
     [Fact]
