@@ -20,6 +20,10 @@ internal sealed partial class ReadContext(string file)
     [System.Text.RegularExpressions.GeneratedRegex(@"^\s*([+-]?\d+),(\d+)")]
     private static partial System.Text.RegularExpressions.Regex DecimalComma();
 
+    // "3 200 kg": thousands grouped with a space, which would otherwise read as 3 with the unit "200 kg".
+    [System.Text.RegularExpressions.GeneratedRegex(@"^(\s*[+-]?\d{1,3}) (\d{3}\b)")]
+    private static partial System.Text.RegularExpressions.Regex GroupedDigits();
+
     public string File { get; } = file;
     public List<Diagnostic> Diagnostics { get; } = [];
     public Dictionary<string, SourcePosition> Positions { get; } = [];
@@ -73,6 +77,11 @@ internal sealed partial class ReadContext(string file)
         if (DecimalComma().IsMatch(scalar.Value))
         {
             Error(node, $"{what}: '{scalar.Value}' uses a decimal comma; write the decimal point, e.g. '{DecimalComma().Replace(scalar.Value, "$1.$2")}'");
+            return null;
+        }
+        if (GroupedDigits().IsMatch(scalar.Value))
+        {
+            Error(node, $"{what}: '{scalar.Value}' groups digits with spaces; write the number without separators, e.g. '{GroupedDigits().Replace(scalar.Value, "$1$2")}'");
             return null;
         }
         var parsed = QuantityParser.Parse(scalar.Value, quantity);
