@@ -161,6 +161,14 @@ public class ModelReaderValidationTests
     }
 
     [Fact]
+    public void DigitsGroupedWithSpaces_SayToWriteThemTogether()
+    {
+        const string line2 = "  deck: 3 200 kg";
+        var r = Read("masses:", line2);
+        SingleError(r, 2, ColumnOf(line2, "3 200"), "groups digits with spaces", "'3200 kg'");
+    }
+
+    [Fact]
     public void TextWhereANumberBelongs_IsReportedAtTheValue()
     {
         const string line2 = "  deck: {mass: heavy}";
