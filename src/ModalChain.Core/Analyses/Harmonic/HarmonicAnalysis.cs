@@ -132,17 +132,21 @@ public static class HarmonicAnalysis
         var terms = loading.Terms.Count;
         var x = new Complex[nf * nk];
         var failed = -1;
-        Parallel.For(0, nf, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, Math.Min(Environment.ProcessorCount, nf / 64 + 1)) },
-            () => (Workspace: engine.CreateWorkspace(), Coefficients: new Complex[terms], Powers: new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1]),
-            (k, _, local) =>
+        // Contiguous chunks, one per worker, each with its workspace allocated once: no allocation per frequency.
+        var workers = Math.Max(1, Math.Min(Environment.ProcessorCount, nf / 64 + 1));
+        Parallel.For(0, workers, new ParallelOptions { MaxDegreeOfParallelism = workers }, w =>
+        {
+            var workspace = engine.CreateWorkspace();
+            var coefficients = new Complex[terms];
+            var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];
+            for (var k = (int)((long)nf * w / workers); k < (int)((long)nf * (w + 1) / workers); k++)
             {
                 var omega = 2 * Math.PI * frequenciesHz[k];
-                HarmonicLoading.Powers(omega, local.Powers);
-                for (var r = 0; r < terms; r++) local.Coefficients[r] = local.Powers[loading.Terms[r].Power - HarmonicLoading.MinPower];
-                if (!engine.Solve(omega, local.Coefficients, x.AsSpan(k * nk, nk), local.Workspace)) Interlocked.Exchange(ref failed, k);
-                return local;
-            },
-            _ => { });
+                HarmonicLoading.Powers(omega, powers);
+                for (var r = 0; r < terms; r++) coefficients[r] = powers[loading.Terms[r].Power - HarmonicLoading.MinPower];
+                if (!engine.Solve(omega, coefficients, x.AsSpan(k * nk, nk), workspace)) Interlocked.Exchange(ref failed, k);
+            }
+        });
         if (failed >= 0)
             throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,
                 $"the dynamic stiffness is singular at {frequenciesHz[failed]:G6} Hz ({n} DOFs): an undamped natural frequency; add damping or move the point"));
