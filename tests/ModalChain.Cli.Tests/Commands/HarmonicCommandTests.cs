@@ -145,6 +145,32 @@ public class HarmonicCommandTests
         finally { File.Delete(path); }
     }
 
+    private const string BadInputBase = "masses:\n  deck: {mass: 100 kg}\nsupports:\n  plinth:\nsprings:\n  s: {between: [plinth, deck], stiffness: 1 kN/mm}\n";
+
+    [Theory]
+    [InlineData("loads:\n  f: {kind: force, at: dek, amplitude: 1 N}\nharmonic:\n  frequencies: [5 Hz]\n", 8, "dek", "unknown mass 'dek'")]
+    [InlineData("loads:\n  q: {kind: base-motion, support: ground, acceleration: 0.1 g}\nharmonic:\n  frequencies: [5 Hz]\n", 8, "ground", "moves 'ground', which is fixed")]
+    [InlineData("loads:\n  f: {kind: force, at: deck, amplitude: 1 N}\nharmonic:\n  frequencies: {from: 9 Hz, to: 3 Hz}\n", 10, "3 Hz", "must be above 'from'")]
+    [InlineData("loads:\n  f: {kind: force, at: deck, amplitude: 1 N}\nharmonic:\n  frequencies: {from: 1 Hz, to: 3 Hz, points: 0}\n", 10, "0}", "'points'")]
+    [InlineData("damping:\n  modal: -2 %\nloads:\n  f: {kind: force, at: deck, amplitude: 1 N}\nharmonic:\n  frequencies: [5 Hz]\n", 8, "-2 %", "cannot be negative")]
+    public void BadHarmonicInput_IsOneClearErrorAtItsPosition_ExitTwo(string tail, int line, string token, string message)
+    {
+        var text = BadInputBase + tail;
+        var path = TempModel(text);
+        try
+        {
+            var (code, output, error) = Run("harmonic", path);
+            Assert.Equal(2, code);
+            Assert.Equal("", output);
+            var column = text.Split('\n')[line - 1].IndexOf(token, StringComparison.Ordinal) + 1;
+            Assert.True(column > 0, $"'{token}' is on line {line}");
+            var first = error.Split('\n')[0];
+            Assert.StartsWith($"{path}:{line}:{column}: error: ", first);
+            Assert.Contains(message, first);
+        }
+        finally { File.Delete(path); }
+    }
+
     [Fact]
     public void CommandLineSweepErrors_ExitTwo()
     {
