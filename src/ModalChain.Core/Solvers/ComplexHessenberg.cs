@@ -108,14 +108,9 @@ public sealed class ComplexHessenberg
                 var l = c[0] / sub;
                 urow[0] = sub;
                 urow[1] = -next[1] + s;
-                var c1 = c[1] - l * urow[1];
-                c[1] = c1;
-                for (var j = 2; j < urow.Length; j++)
-                {
-                    var v = -next[j];
-                    urow[j] = v;
-                    c[j] -= l * v;
-                }
+                c[1] -= l * urow[1];
+                for (var j = 2; j < urow.Length; j++) urow[j] = -next[j];
+                ComplexKernels.SubtractScaled(c[2..], l, urow[2..]);
                 (g[k], g[k + 1]) = (g[k + 1], g[k]);
                 g[k + 1] -= l * g[k];
             }
@@ -127,7 +122,7 @@ public sealed class ComplexHessenberg
                 for (var j = 1; j < urow.Length; j++) urow[j] = c[j];
                 var diagonal = -next[1] + s;
                 c[1] = diagonal - l * urow[1];
-                for (var j = 2; j < urow.Length; j++) c[j] = -next[j] - l * urow[j];
+                ComplexKernels.NegateSubtractScaled(c[2..], next[2..], l, urow[2..]);
                 g[k + 1] -= l * g[k];
             }
         }
@@ -135,8 +130,7 @@ public sealed class ComplexHessenberg
         for (var i = n - 1; i >= 0; i--)
         {
             var row = u.Slice(i * n, n);
-            var sum = g[i];
-            for (var j = i + 1; j < n; j++) sum -= row[j] * g[j];
+            var sum = g[i] - ComplexKernels.Dot(row[(i + 1)..], g[(i + 1)..]);
             if (row[i] == Complex.Zero) return false;
             g[i] = sum / row[i];
         }
