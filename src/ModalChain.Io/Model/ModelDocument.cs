@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Model;
 using ModalChain.Io.Diagnostics;
 
@@ -15,7 +16,11 @@ public sealed record ModelDocument(
     string Sha256,
     Network Network,
     ImmutableArray<Diagnostic> Warnings,
-    ImmutableDictionary<string, SourcePosition> Positions);
+    ImmutableDictionary<string, SourcePosition> Positions)
+{
+    /// <summary>The criteria of the file's <c>criteria:</c> section (empty when it has none).</summary>
+    public CriteriaSet Criteria { get; init; } = CriteriaSet.None;
+}
 
 /// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>
 /// <param name="Model">The model when there were no errors; null otherwise.</param>
