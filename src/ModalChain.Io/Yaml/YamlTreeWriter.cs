@@ -32,7 +32,7 @@ internal static class YamlTreeWriter
                 emitter.Emit(new Scalar(null, null, s.Value, s.Quoted ? ScalarStyle.DoubleQuoted : ScalarStyle.Any, !s.Quoted, s.Quoted));
                 break;
             case YSequence seq:
-                var flowList = depth >= 2 || seq.Items.All(i => i is YScalar);
+                var flowList = depth >= 3 || seq.Items.All(i => i is YScalar);
                 emitter.Emit(new SequenceStart(null, null, true, flowList ? SequenceStyle.Flow : SequenceStyle.Block));
                 foreach (var item in seq.Items) Emit(emitter, item, flowList ? Math.Max(depth + 1, 2) : depth + 1);
                 emitter.Emit(new SequenceEnd());
