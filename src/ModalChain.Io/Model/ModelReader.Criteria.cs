@@ -27,7 +27,7 @@ public static partial class ModelReader
             context.Positions["criteria.separation"] = sep.Position;
             const string what = "the separation criterion";
             context.RejectUnknownKeys(sep, what, "margin", "speeds", "orders");
-            var margin = sep["margin"] is null ? SeparationCriterion.DefaultMargin : context.Optional(sep, "margin", Quantity.Ratio, MarginRange, what);
+            var margin = sep["margin"] is { } marginNode ? ReadMargin(marginNode, what, context) : SeparationCriterion.DefaultMargin;
             var speeds = sep["speeds"] is { } speedsNode
                 ? ReadList(speedsNode, Quantity.Frequency, SpeedRange, $"'speeds' of {what}", context)
                 : Missing(sep, $"{what} needs 'speeds', the running speeds to keep clear of, e.g. [1480 rpm]", context);
@@ -51,6 +51,15 @@ public static partial class ModelReader
                     }
         }
         return new CriteriaSet(separation, limits.ToImmutable());
+    }
+
+    private static double? ReadMargin(YNode node, string what, ReadContext context)
+    {
+        if (context.Value(node, Quantity.Ratio, Range.Any, $"'margin' of {what}") is not { } m) return null;
+        if (m > MarginRange.Minimum && m <= MarginRange.Maximum) return m;
+        context.Error(node, string.Create(System.Globalization.CultureInfo.InvariantCulture,
+            $"'margin' of {what} is {m * 100:G4} %; it must be above 0 % and at most {MarginRange.Maximum * 100:G3} % (20 % is usual)"));
+        return null;
     }
 
     private static VibrationLimit? ReadLimit(YNode node, int number, ReadContext context, CoreNetwork? network)

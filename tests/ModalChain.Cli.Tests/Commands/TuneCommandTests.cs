@@ -1,0 +1,91 @@
+using ModalChain.TestSupport;
+
+namespace ModalChain.Cli.Tests.Commands;
+
+public class TuneCommandTests
+{
+    [Fact]
+    public void Json_HasTheIssuedFields_AndDenHartogValues()
+    {
+        // Den Hartog 1956 §3.3 [confirmed citation]: μ = 5 % → f = 0.952381, ζ_a = 0.133631 (absorber-referenced),
+        // 0.127267 (primary-referenced); peak √41 (REFERENCES §3). Tolerance 5e-7 absolute on the printed digits.
+        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "json");
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.Equal(2, json.GetProperty("mode").GetInt32());
+        Assert.Equal("deck", json.GetProperty("host").GetString());
+        var modalMass = json.GetProperty("modal_mass_kg").GetDouble();
+        var a = json.GetProperty("absorber");
+        NumericAssert.Close(0.05 * modalMass, a.GetProperty("mass_kg").GetDouble(), Tolerance.Rel(1e-14), "m_a = μM");
+        NumericAssert.Close(0.952381, a.GetProperty("frequency_ratio").GetDouble(), Tolerance.Abs(5e-7), "f");
+        NumericAssert.Close(0.133631, a.GetProperty("damping_ratio").GetDouble(), Tolerance.Abs(5e-7), "ζ_a");
+        NumericAssert.Close(0.127267, a.GetProperty("damping_ratio_primary_referenced").GetDouble(), Tolerance.Abs(5e-7), "ζ primary");
+        var k = a.GetProperty("stiffness_n_per_m").GetDouble();
+        var m = a.GetProperty("mass_kg").GetDouble();
+        NumericAssert.Close(a.GetProperty("frequency_hz").GetDouble(), Math.Sqrt(k / m) / (2 * Math.PI), Tolerance.Rel(1e-12), "f = √(k/m)/2π");
+        NumericAssert.Close(Math.Sqrt(41), json.GetProperty("fixed_point_peak").GetDouble(), Tolerance.Rel(1e-14), "√41");
+        Assert.Equal(System.Text.Json.JsonValueKind.Array, json.GetProperty("mistuning").ValueKind);
+        Assert.Contains("fatigue", json.GetProperty("absorber_caution").GetString());
+    }
+
+    [Fact]
+    public void Table_CarriesBothCautionsAndBothDampingConventions()
+    {
+        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "0.05");
+        Assert.Equal(0, run.ExitCode);
+        Assert.Contains("Absorber caution:", run.Output);
+        Assert.Contains("detunes", run.Output);
+        Assert.Contains("licensed", run.Output);
+        Assert.Contains("0.133631", run.Output);
+        Assert.Contains("0.127267", run.Output);
+    }
+
+    [Fact]
+    public void Write_ProducesAModelEveryCommandReads()
+    {
+        var output = Path.Combine(Path.GetTempPath(), "modalchain-tests-" + Guid.NewGuid().ToString("N") + ".yaml");
+        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--write", output);
+        Assert.Equal(0, run.ExitCode);
+        Assert.Contains("wrote", run.Error);
+        var modes = CliRun.Of("modes", output, "--format", "json");
+        Assert.Equal(0, modes.ExitCode);
+        Assert.Equal(3, modes.Json().GetProperty("modes").GetArrayLength());
+        Assert.Equal(0, CliRun.Of("validate", output).ExitCode);
+        Assert.Contains(CliRun.Of("check", output).ExitCode, new[] { 0, 1 });
+    }
+
+    [Theory]
+    [InlineData("--host", "roof", "--mass-ratio", "5 %", "'roof' is not a mass")]
+    [InlineData("--host", "ground", "--mass-ratio", "5 %", "is a support")]
+    [InlineData("--host", "deck", "--mass-ratio", "0 %", "must be positive")]
+    [InlineData("--host", "deck", "--mass-ratio", "-5 %", "must be positive")]
+    [InlineData("--host", "deck", "--mass-ratio", "500 %", "not a tuned absorber")]
+    [InlineData("--host", "deck", "--mass-ratio", "5 kg", "--mass-ratio")]
+    [InlineData("--host", "deck", "--mass-ratio", "five", "--mass-ratio")]
+    public void BadInputs_ExitTwoWithAClearMessage(string o1, string v1, string o2, string v2, string expected)
+    {
+        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), o1, v1, o2, v2);
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains(expected, run.Error);
+        Assert.DoesNotContain("   at ", run.Error); // no stack trace
+    }
+
+    [Fact]
+    public void ModeOutOfRange_ExitsTwo()
+    {
+        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--mode", "7");
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("mode 7 does not exist", run.Error);
+    }
+
+    [Fact]
+    public void BaseTarget_UsesWarburtonsTuning()
+    {
+        // Warburton 1982 [confirmed citation; formulas from memory]: μ = 5 % base acceleration f = 0.940401, ζ_a = 0.135333.
+        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--target", "base", "--format", "json");
+        Assert.Equal(0, run.ExitCode);
+        var a = run.Json().GetProperty("absorber");
+        NumericAssert.Close(0.940401, a.GetProperty("frequency_ratio").GetDouble(), Tolerance.Abs(5e-7), "f");
+        NumericAssert.Close(0.135333, a.GetProperty("damping_ratio").GetDouble(), Tolerance.Abs(5e-7), "ζ_a");
+    }
+}
