@@ -9,7 +9,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     private static readonly Range MarginRange = new(0, 0.95, MinimumInclusive: false);
-    private static readonly Range SpeedRange = new(0, 1e5, MinimumInclusive: false);      // Hz
+    private static readonly Range SeparationSpeedRange = new(0, 1e5, MinimumInclusive: false);      // Hz
     private static readonly Range OrderRange = new(0, 1000, MinimumInclusive: false);
     private static readonly Range LimitRange = new(0, 1e6, MinimumInclusive: false);
 
@@ -29,8 +29,8 @@ public static partial class ModelReader
             context.RejectUnknownKeys(sep, what, "margin", "speeds", "orders");
             var margin = sep["margin"] is { } marginNode ? ReadMargin(marginNode, what, context) : SeparationCriterion.DefaultMargin;
             var speeds = sep["speeds"] is { } speedsNode
-                ? ReadList(speedsNode, Quantity.Frequency, SpeedRange, $"'speeds' of {what}", context)
-                : Missing(sep, $"{what} needs 'speeds', the running speeds to keep clear of, e.g. [1480 rpm]", context);
+                ? ReadList(speedsNode, Quantity.Frequency, SeparationSpeedRange, $"'speeds' of {what}", context)
+                : MissingCriterion(sep, $"{what} needs 'speeds', the running speeds to keep clear of, e.g. [1480 rpm]", context);
             var orders = sep["orders"] is { } ordersNode
                 ? ReadList(ordersNode, Quantity.Ratio, OrderRange, $"'orders' of {what}", context)
                 : [1.0];
@@ -129,7 +129,7 @@ public static partial class ModelReader
         return values.All(v => v is not null) ? [.. values.Select(v => v!.Value)] : null;
     }
 
-    private static ImmutableArray<double>? Missing(YMapping at, string message, ReadContext context)
+    private static ImmutableArray<double>? MissingCriterion(YMapping at, string message, ReadContext context)
     {
         context.Error(at, message);
         return null;
