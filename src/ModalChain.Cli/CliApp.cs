@@ -28,6 +28,7 @@ public static class CliApp
         root.Subcommands.Add(CheckCommand.Create(io));
         root.Subcommands.Add(TuneCommand.Create(io));
         root.Subcommands.Add(StudyCommand.Create(io));
+        root.Subcommands.Add(HarmonicCommand.Create(io));
 
         var parse = root.Parse(args);
         var config = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };

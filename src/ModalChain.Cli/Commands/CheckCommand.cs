@@ -3,6 +3,7 @@ using System.Globalization;
 using ModalChain.Cli.Formatting;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Criteria;
+using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;

@@ -5,6 +5,7 @@ using ModalChain.Cli.Formatting;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Analyses.Studies;
+using ModalChain.Core.Model;
 using ModalChain.Core.Units;
 using ModalChain.Io.Csv;
 using ModalChain.Io.Json;
@@ -59,6 +60,15 @@ internal static class StudyCommand
             if (a is null || b is null) return ExitCodes.InputError;
             var criteria = ImmutableArray.CreateBuilder<StudyCriterion>();
             if (document.Criteria.Separation is { } sep) criteria.Add(StudyCriterion.Separation(sep));
+            var operatingLoads = OperatingPoints.Loads(document).Where(l => l.SpeedHz is > 0).ToArray();
+            if (!document.Criteria.Limits.IsDefaultOrEmpty)
+            {
+                if (operatingLoads.Length == 0)
+                    io.Error.WriteLine("note: the model's vibration limits are not followed: no load has a running speed, so there is no operating point.");
+                else
+                    foreach (var limit in document.Criteria.Limits)
+                        criteria.Add(OperatingPointCriteria.Limit(limit, document.Structure, operatingLoads));
+            }
             var request = new StudyRequest(parameter, a.Value.Si, b.Value.Si, parse.GetValue(steps),
                 parse.GetValue(spacing) == "geometric" ? StudySpacing.Geometric : StudySpacing.Linear, criteria.ToImmutable());
             var problems = request.Problems();
@@ -67,8 +77,6 @@ internal static class StudyCommand
                 foreach (var p in problems) io.Error.WriteLine($"modalchain: error: {p}");
                 return ExitCodes.InputError;
             }
-            if (!document.Criteria.Limits.IsDefaultOrEmpty)
-                io.Error.WriteLine("note: vibration limits are not followed through studies by this build; only frequency separation is.");
 
             using var bar = ProgressBar.ForTerminal(io, request.Steps, "solving");
             var result = ParameterStudy.Run(document.Network, request, bar);

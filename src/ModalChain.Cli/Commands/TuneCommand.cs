@@ -70,30 +70,43 @@ internal static class TuneCommand
                 return ExitCodes.InputError;
             }
             var tuneMethod = parse.GetValue(method) == "optimal" ? TuneMethod.Optimal : TuneMethod.DenHartog;
+            var closedForm = AbsorberTuning.Design(modal, request);
+            var names = AbsorberTuning.FreeNames(document.Network, closedForm.Host);
+            var structure = document.Structure;
+            var design = closedForm;
+            string? improvement = null;
+            var methodName = request.Target == AbsorberTarget.Force ? "den-hartog" : "warburton";
             if (tuneMethod == TuneMethod.Optimal)
             {
-                io.Error.WriteLine("modalchain: error: --method optimal needs the harmonic response of the full network, which this build does not compute yet; use --method den-hartog");
-                return ExitCodes.InputError;
+                var closedPeak = AbsorberPerformance.WorstPeak(AbsorberPerformance.With(structure, closedForm, names), closedForm).Peak;
+                var (optimised, evaluations) = AbsorberPerformance.Optimise(structure, closedForm, names);
+                var optimisedPeak = AbsorberPerformance.WorstPeak(AbsorberPerformance.With(structure, optimised, names), optimised).Peak;
+                if (optimisedPeak <= closedPeak) design = optimised with { ChosenBy = closedForm.ChosenBy };
+                improvement = string.Create(Inv,
+                    $"worst host peak {Math.Min(optimisedPeak, closedPeak):G6} against {closedPeak:G6} with the closed form ({100 * (1 - Math.Min(optimisedPeak, closedPeak) / closedPeak):F2} % lower; {evaluations} response evaluations)");
+                methodName = "optimal";
             }
-            var design = AbsorberTuning.Design(modal, request);
-            var methodName = request.Target == AbsorberTarget.Force ? "den-hartog" : "warburton";
+            var assessment = AbsorberPerformance.Assess(structure, design, names);
 
             if (parse.GetValue(write) is { } output)
             {
-                var code = WriteModel(document, design, output, io);
+                var code = WriteModel(document, design, names, output, io);
                 if (code != ExitCodes.Success) return code;
             }
             if (parse.GetValue(format) == OutputFormat.Json)
             {
                 using var stdout = new MemoryStream();
-                TuneJson.Write(stdout, document, design, methodName, null, null, CliApp.Version);
+                TuneJson.Write(stdout, document, design, methodName, assessment, improvement, CliApp.Version);
                 io.Output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
             }
-            else WriteTable(io.Output, document, design, request);
+            else WriteTable(io.Output, document, design, request, assessment, improvement);
             return ExitCodes.Success;
         });
         return command;
     }
+
+    private static string Peak(double value) =>
+        double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
 
     private static ImmutableArray<double>? Excitations(ModelDocument document, string? speedText, Streams io)
     {
@@ -118,9 +131,8 @@ internal static class TuneCommand
         _ => AbsorberTarget.Force,
     };
 
-    private static int WriteModel(ModelDocument document, AbsorberDesign design, string output, Streams io)
+    private static int WriteModel(ModelDocument document, AbsorberDesign design, AbsorberNames names, string output, Streams io)
     {
-        var names = AbsorberTuning.FreeNames(document.Network, design.Host);
         var network = AbsorberTuning.Attach(document.Network, design, names);
         string original;
         try { original = File.ReadAllText(document.File); }
@@ -145,7 +157,7 @@ internal static class TuneCommand
         return ExitCodes.Success;
     }
 
-    private static void WriteTable(TextWriter o, ModelDocument document, AbsorberDesign d, AbsorberRequest request)
+    private static void WriteTable(TextWriter o, ModelDocument document, AbsorberDesign d, AbsorberRequest request, AbsorberAssessment a, string? improvement)
     {
         o.WriteLine(document.Network.Title);
         o.WriteLine();
@@ -169,6 +181,22 @@ internal static class TuneCommand
         o.WriteLine(string.Create(Inv, $"                        {d.DampingRatioPrimaryReferenced:F6}  (the same damper referred to the mode's frequency: c/(2*m*omega_p))"));
         if (d.Target == AbsorberTarget.Force)
             o.WriteLine(string.Create(Inv, $"  expected peak         {d.Optimum.PeakAmplification:F4} x static deflection at the host (fixed-point value sqrt(1+2/mu), undamped single-mode primary)"));
+        o.WriteLine();
+        o.WriteLine(string.Create(Inv, $"On the full model (all modes, the model's damping), harmonic force at '{d.Host}', band {a.BandHz.Low:F2}-{a.BandHz.High:F2} Hz:"));
+        o.WriteLine("  peaks are |x_host| * K / |F| with K = modal mass * omega_p^2 (the static deflection of the mode's equivalent spring)");
+        o.WriteLine($"  peak before           {Peak(a.PeakBefore)}");
+        o.WriteLine(string.Create(Inv, $"  peak after            {Peak(a.PeakAfter)} at {a.PeakFrequencyHz:F3} Hz"));
+        o.WriteLine(string.Create(Inv, $"  absorber stroke       {a.StrokePerForce * 1e6:G4} mm per kN of force at the host, at {a.PeakFrequencyHz:F3} Hz (relative to the host)"));
+        if (improvement is not null) o.WriteLine($"  optimal tuning:       {improvement}");
+        o.WriteLine("  mistuning (absorber frequency off, same mass and damping ratio):");
+        var table = new Formatting.TextTable("frequency error", "absorber [Hz]", "peak after", "vs tuned");
+        foreach (var p in a.Mistuning)
+            table.Add(string.Create(Inv, $"{p.FrequencyError * 100:+0;-0} %"), (d.FrequencyHz * (1 + p.FrequencyError)).ToString("F3", Inv), Peak(p.Peak),
+                string.Create(Inv, $"{100 * (p.Peak / a.PeakAfter - 1):+0.0;-0.0} %"));
+        var lines = new StringWriter();
+        table.Write(lines);
+        foreach (var line in lines.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries)) o.WriteLine("    " + line);
+        o.WriteLine("  With the absorber, two modes sit either side of the controlled frequency: judge the fix by the vibration limits, not by separation.");
         if (request.MassRatio > AbsorberTuning.LargeMassRatio)
             o.WriteLine(string.Create(Inv, $"Note: a mass ratio above {AbsorberTuning.LargeMassRatio * 100:G3} % stretches the single-mode approximation; check the result on the full model."));
         o.WriteLine();

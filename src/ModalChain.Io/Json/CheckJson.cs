@@ -1,6 +1,7 @@
 using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Criteria;
+using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Io.Model;
 
 namespace ModalChain.Io.Json;

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using ModalChain.Core.Analyses.Criteria;
+using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Model;
 using ModalChain.Io.Diagnostics;
 
@@ -18,6 +19,12 @@ public sealed record ModelDocument(
     ImmutableArray<Diagnostic> Warnings,
     ImmutableDictionary<string, SourcePosition> Positions)
 {
+    /// <summary>The network with its distributed damping and its loads (SI); a model without them has none.</summary>
+    public StructuralModel Structure { get; init; } = StructuralModel.Of(Network);
+
+    /// <summary>The harmonic sweep the file asks for in its 'harmonic' section, or null when it has none.</summary>
+    public HarmonicSpec? Harmonic { get; init; }
+
     /// <summary>The criteria of the file's <c>criteria:</c> section (empty when it has none).</summary>
     public CriteriaSet Criteria { get; init; } = CriteriaSet.None;
 }

@@ -1,5 +1,6 @@
 using System.Collections.Immutable;
 using ModalChain.Core.Analyses.Criteria;
+using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Units;
 using ModalChain.Io.Yaml;
 using CoreNetwork = ModalChain.Core.Model.Network;

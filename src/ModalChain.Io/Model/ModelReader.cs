@@ -14,7 +14,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "springs", "dampers", "criteria"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "damping", "loads", "harmonic", "criteria"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -47,6 +47,11 @@ public static partial class ModelReader
 
         context.RejectUnknownKeys(top, "the model file", TopLevelKeys);
         var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file));
+        var massNames = DeclaredNames(top, "masses");
+        var supportNames = DeclaredNames(top, "supports");
+        var damping = ReadDamping(top, context);
+        var loads = ReadLoads(top, massNames, supportNames, context);
+        var harmonic = ReadHarmonic(top, massNames, loads, context);
         var criteria = ReadCriteria(top, context, network);
         if (network is null || context.HasErrors) return Finish(context, null);
 
@@ -56,7 +61,11 @@ public static partial class ModelReader
             network,
             [.. context.Diagnostics.Where(d => d.Severity == Severity.Warning)],
             context.Positions.ToImmutableDictionary())
-        { Criteria = criteria };
+        {
+            Structure = new Core.Model.StructuralModel(network, damping, loads),
+            Harmonic = harmonic,
+            Criteria = criteria,
+        };
         return Finish(context, document);
     }
 

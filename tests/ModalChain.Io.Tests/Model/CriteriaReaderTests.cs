@@ -1,4 +1,5 @@
 using ModalChain.Core.Analyses.Criteria;
+using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Io.Model;
 using ModalChain.TestSupport;
 

@@ -77,4 +77,31 @@ public class ModelWriterTests
         Assert.Equal(expected.Masses.ToArray(), after.Network.Masses.ToArray());
         Assert.Contains("at: [0, 0.5]", text);
     }
+
+    [Fact]
+    public void DampingLoadsAndSweep_AreCarriedOverUnchanged()
+    {
+        const string withHarmonic = """
+            title: Chiller skid on a steel deck
+            masses:
+              deck: {mass: 3200 kg}
+              skid: {mass: 850 kg}
+            springs:
+              columns: {between: [ground, deck], stiffness: 95 kN/mm}
+              mounts:  {between: [deck, skid], stiffness: 8.4 kN/mm}
+            damping:
+              modal: [2 %, 3 %]
+            loads:
+              unbalance: {kind: unbalance, at: skid, mass-radius: 12000 g*mm, speed: 1480 rpm}
+            harmonic:
+              loads: [unbalance]
+              frequencies: {from: 1 Hz, to: 60 Hz, points: 600, spacing: log}
+              outputs: [deck, skid]
+            """;
+        var (before, _, after, _) = RoundTrip(withHarmonic);
+        Assert.Equal(before.Structure.Damping.ModalRatios.ToArray(), after.Structure.Damping.ModalRatios.ToArray());
+        Assert.Equal(before.Structure.Loads.ToArray(), after.Structure.Loads.ToArray());
+        Assert.Equal(before.Harmonic!.Outputs.ToArray(), after.Harmonic!.Outputs.ToArray());
+        Assert.Equal(before.Harmonic.Frequencies, after.Harmonic.Frequencies);
+    }
 }

@@ -1,18 +1,8 @@
 using System.Collections.Immutable;
 using System.Numerics;
+using ModalChain.Core.Analyses.Harmonic;
 
 namespace ModalChain.Core.Analyses.Criteria;
-
-/// <summary>The kinematic quantity a vibration limit bounds.</summary>
-public enum ResponseQuantity
-{
-    /// <summary>Displacement, m.</summary>
-    Displacement,
-    /// <summary>Velocity, m/s.</summary>
-    Velocity,
-    /// <summary>Acceleration, m/s².</summary>
-    Acceleration,
-}
 
 /// <summary>Which amplitude of a steady-state vibration a limit bounds.</summary>
 public enum AmplitudeMeasure

@@ -217,3 +217,18 @@ public static class ParameterStudy
         return 0.5 * (a + b);
     }
 }
+
+/// <summary>Study criteria that need the steady-state response at the operating points.</summary>
+public static class OperatingPointCriteria
+{
+    /// <summary>A vibration limit as a study criterion: the structure's damping and loads stay, its network follows the study.</summary>
+    public static StudyCriterion Limit(ModalChain.Core.Analyses.Criteria.VibrationLimit limit, StructuralModel structure, IReadOnlyList<Load> loads)
+    {
+        ArgumentNullException.ThrowIfNull(limit);
+        ArgumentNullException.ThrowIfNull(structure);
+        ArgumentNullException.ThrowIfNull(loads);
+        return new StudyCriterion("limit " + limit.Describe(), (network, _) =>
+            ModalChain.Core.Analyses.Criteria.OperatingPointLimits.WorstReserve(
+                ModalChain.Core.Assembly.DampedSystem.Build(structure with { Network = network }), loads, [limit]));
+    }
+}

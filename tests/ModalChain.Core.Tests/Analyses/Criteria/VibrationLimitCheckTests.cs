@@ -1,5 +1,6 @@
 using System.Numerics;
 using ModalChain.Core.Analyses.Criteria;
+using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.TestSupport;
 
 namespace ModalChain.Core.Tests.Analyses.Criteria;

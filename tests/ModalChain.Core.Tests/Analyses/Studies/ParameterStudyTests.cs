@@ -3,6 +3,7 @@ using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Analyses.Studies;
 using ModalChain.Core.Model;
+using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.TestSupport;
 
 namespace ModalChain.Core.Tests.Analyses.Studies;
@@ -179,5 +180,43 @@ public class ParameterStudyTests
     {
         var values = new StudyRequest(new ParameterPath(ParameterKind.Mass, "a"), 1, 1000, 4, StudySpacing.Geometric, []).Values();
         NumericAssert.Close([1.0, 10.0, 100.0, 1000.0], values, Tolerance.Rel(1e-14));
+    }
+}
+
+public class OperatingPointStudyTests
+{
+    [Fact]
+    public void DisplacementLimitThreshold_AgreesWithTheClosedFormResponse()
+    {
+        // One mass with 3 % modal damping (c = 2ζ√(km)) under a 2 kN force at 12 Hz: |X| = F/√((k − mω²)² + (cω)²)
+        // (REFERENCES §4, from memory). Varying k from 3 to 12 MN/m passes through resonance (k = mω² = 5.68 MN/m);
+        // the limit |X| ≤ 2 mm fails near it. The thresholds must agree with a bisection on the closed form to 0.1 %
+        // (the requirement), asserted to 1e-6.
+        const double m = 1000, f = 2000, zeta = 0.03, speed = 12, limitValue = 2e-3;
+        var w = 2 * Math.PI * speed;
+        var net = new NetworkBuilder().AddMass("deck", m).AddSpring("legs", Network.Ground, "deck", 3e6).Build();
+        var load = new ForceLoad("pump", "deck", f, 0, speed);
+        var structure = new StructuralModel(net, DampingModel.Modal(zeta), [load]);
+        var limit = new VibrationLimit("deck", ModalChain.Core.Analyses.Harmonic.ResponseQuantity.Displacement, AmplitudeMeasure.Peak, limitValue);
+        var criterion = OperatingPointCriteria.Limit(limit, structure, [load]);
+        var request = new StudyRequest(new ParameterPath(ParameterKind.Stiffness, "legs"), 3e6, 12e6, 19, StudySpacing.Linear, [criterion]);
+        var result = ParameterStudy.Run(net, request);
+
+        double X(double k) => f / Math.Sqrt(Math.Pow(k - m * w * w, 2) + Math.Pow(2 * zeta * Math.Sqrt(k * m) * w, 2));
+        Assert.Equal(2, result.Thresholds.Length);
+        foreach (var t in result.Thresholds)
+        {
+            double lo = t.Bracket.Low, hi = t.Bracket.High;
+            var passLo = X(lo) <= limitValue;
+            while (hi - lo > 1e-13 * hi)
+            {
+                var mid = 0.5 * (lo + hi);
+                if ((X(mid) <= limitValue) == passLo) lo = mid; else hi = mid;
+            }
+            NumericAssert.Close(0.5 * (lo + hi), t.Value, Tolerance.Rel(1e-6), "threshold stiffness");
+        }
+        // The reserve at each step is (limit − |X|)/limit.
+        foreach (var s in result.Steps)
+            NumericAssert.Close((limitValue - X(s.Value)) / limitValue, s.Reserves[0], Tolerance.Abs(1e-8), $"reserve at k = {s.Value}");
     }
 }

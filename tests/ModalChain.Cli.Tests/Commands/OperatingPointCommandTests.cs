@@ -1,0 +1,66 @@
+using ModalChain.TestSupport;
+
+namespace ModalChain.Cli.Tests.Commands;
+
+/// <summary>The commands on the example model with loads and damping: limits at the operating point, tuning assessed on the full model.</summary>
+public class OperatingPointCommandTests
+{
+    private static string Example => Path.Combine(CliRun.Models(), "mezzanine-fan-absorber-check.yaml");
+
+    [Fact]
+    public void Check_EvaluatesTheLimitsAtTheRunningSpeed()
+    {
+        var run = CliRun.Of("check", Example, "--format", "json");
+        Assert.Equal(1, run.ExitCode);
+        var limits = run.Json().GetProperty("limits");
+        Assert.Equal(2, limits.GetArrayLength());
+        Assert.Equal(0, run.Json().GetProperty("not_evaluated").GetArrayLength());
+        foreach (var l in limits.EnumerateArray())
+        {
+            var value = l.GetProperty("value").GetDouble();
+            var limit = l.GetProperty("limit").GetDouble();
+            NumericAssert.Close((limit - value) / limit, l.GetProperty("reserve").GetDouble(), Tolerance.Rel(1e-12), "reserve = (limit − value)/limit");
+            Assert.Equal(value <= limit, l.GetProperty("passes").GetBoolean());
+        }
+    }
+
+    [Fact]
+    public void Tune_ReportsPeaksStrokeAndMistuning()
+    {
+        var run = CliRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--format", "json");
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        var before = json.GetProperty("peak_before").GetDouble();
+        var after = json.GetProperty("peak_after").GetDouble();
+        Assert.True(after < before, $"the absorber should lower the peak: {before} → {after}");
+        Assert.True(json.GetProperty("stroke_m").GetDouble() > 0);
+        var mistuning = json.GetProperty("mistuning");
+        Assert.Equal([-0.1, -0.05, 0.05, 0.1], mistuning.EnumerateArray().Select(p => p.GetProperty("frequency_error").GetDouble()).ToArray());
+        Assert.All(mistuning.EnumerateArray(), p => Assert.True(p.GetProperty("peak").GetDouble() > after));
+    }
+
+    [Fact]
+    public void TuneOptimal_IsNoWorseThanTheClosedForm_AndTheWrittenModelMeetsItsLimits()
+    {
+        var closed = CliRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--format", "json").Json();
+        var output = Path.Combine(Path.GetTempPath(), "modalchain-tests-" + Guid.NewGuid().ToString("N") + ".yaml");
+        var run = CliRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--method", "optimal", "--format", "json", "--write", output);
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.Equal("optimal", json.GetProperty("method").GetString());
+        Assert.Contains("closed form", json.GetProperty("improvement").GetString());
+        Assert.True(json.GetProperty("peak_after").GetDouble() <= closed.GetProperty("peak_after").GetDouble() * (1 + 1e-9));
+        var check = CliRun.Of("check", output, "--format", "json").Json();
+        Assert.All(check.GetProperty("limits").EnumerateArray(), l => Assert.True(l.GetProperty("passes").GetBoolean(), l.ToString()));
+    }
+
+    [Fact]
+    public void Study_FollowsTheLimitsAndFindsTheirThresholds()
+    {
+        var run = CliRun.Of("study", Example, "--vary", "springs.beams.stiffness", "--from", "40 kN/mm", "--to", "140 kN/mm", "--steps", "11", "--format", "json");
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.Equal(3, json.GetProperty("criteria").GetArrayLength()); // separation and two limits
+        Assert.Contains(json.GetProperty("thresholds").EnumerateArray(), t => t.GetProperty("criterion").GetString()!.StartsWith("limit acceleration peak at deck"));
+    }
+}
