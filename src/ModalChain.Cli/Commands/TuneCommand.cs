@@ -86,7 +86,10 @@ internal static class TuneCommand
                     $"worst host peak {Math.Min(optimisedPeak, closedPeak):G6} against {closedPeak:G6} with the closed form ({100 * (1 - Math.Min(optimisedPeak, closedPeak) / closedPeak):F2} % lower; {evaluations} response evaluations)");
                 methodName = "optimal";
             }
-            var assessment = AbsorberPerformance.Assess(structure, design, names);
+            var assessment = AbsorberPerformance.Assess(structure, design, names) with
+            {
+                OperatingStroke = AbsorberPerformance.OperatingStroke(structure, design, names, OperatingPoints.Loads(document)),
+            };
 
             if (parse.GetValue(write) is { } output)
             {
@@ -187,6 +190,9 @@ internal static class TuneCommand
         o.WriteLine($"  peak before           {Peak(a.PeakBefore)}");
         o.WriteLine(string.Create(Inv, $"  peak after            {Peak(a.PeakAfter)} at {a.PeakFrequencyHz:F3} Hz"));
         o.WriteLine(string.Create(Inv, $"  absorber stroke       {a.StrokePerForce * 1e6:G4} mm per kN of force at the host, at {a.PeakFrequencyHz:F3} Hz (relative to the host)"));
+        o.WriteLine(double.IsFinite(a.OperatingStroke)
+            ? string.Create(Inv, $"  stroke in operation   {a.OperatingStroke * 1e3:G4} mm peak under the model's loads at their running speeds")
+            : "  stroke in operation   not computed: no load of the model has a running speed");
         if (improvement is not null) o.WriteLine($"  optimal tuning:       {improvement}");
         o.WriteLine("  mistuning (absorber frequency off, same mass and damping ratio):");
         var table = new Formatting.TextTable("frequency error", "absorber [Hz]", "peak after", "vs tuned");

@@ -46,8 +46,10 @@ public static class TuneJson
             w.Number("peak_before", a.PeakBefore);
             w.Number("peak_after", a.PeakAfter);
             w.Number("peak_frequency_hz", a.PeakFrequencyHz);
-            w.Number("stroke_m", a.StrokePerForce);
-            w.WriteString("stroke_basis", "per newton of harmonic force at the host, at the frequency of the worst peak");
+            w.Number("stroke_m", a.OperatingStroke);
+            w.WriteString("stroke_basis", "peak relative displacement of the absorber to the host under the model's loads at their running speeds; null when no load has a speed");
+            w.Number("stroke_per_force_m_per_n", a.StrokePerForce);
+            w.WriteString("stroke_per_force_basis", "per newton of harmonic force at the host, at the frequency of the worst peak");
             w.WriteStartArray("mistuning");
             foreach (var p in a.Mistuning)
             {
@@ -63,6 +65,7 @@ public static class TuneJson
             w.WriteNull("peak_before");
             w.WriteNull("peak_after");
             w.WriteNull("stroke_m");
+            w.WriteNull("stroke_per_force_m_per_n");
             w.WriteStartArray("mistuning");
             w.WriteEndArray();
         }

@@ -34,6 +34,7 @@ public class OperatingPointCommandTests
         var after = json.GetProperty("peak_after").GetDouble();
         Assert.True(after < before, $"the absorber should lower the peak: {before} → {after}");
         Assert.True(json.GetProperty("stroke_m").GetDouble() > 0);
+        Assert.True(json.GetProperty("stroke_per_force_m_per_n").GetDouble() > 0);
         var mistuning = json.GetProperty("mistuning");
         Assert.Equal([-0.1, -0.05, 0.05, 0.1], mistuning.EnumerateArray().Select(p => p.GetProperty("frequency_error").GetDouble()).ToArray());
         Assert.All(mistuning.EnumerateArray(), p => Assert.True(p.GetProperty("peak").GetDouble() > after));

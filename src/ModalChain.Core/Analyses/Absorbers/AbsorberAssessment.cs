@@ -16,4 +16,8 @@ public sealed record MistuningPoint(double FrequencyError, double Peak);
 /// <param name="Mistuning">Peaks with the absorber's frequency off by ±5 % and ±10 %.</param>
 public sealed record AbsorberAssessment(
     (double Low, double High) BandHz, double PeakBefore, double PeakAfter, double PeakFrequencyHz, double StrokePerForce,
-    ImmutableArray<MistuningPoint> Mistuning);
+    ImmutableArray<MistuningPoint> Mistuning)
+{
+    /// <summary>Peak stroke in m under the model's own loads at their running speeds; NaN when no load has a speed.</summary>
+    public double OperatingStroke { get; init; } = double.NaN;
+}

@@ -81,6 +81,23 @@ public static class AbsorberPerformance
         return (design, evaluations);
     }
 
+    /// <summary>The absorber's stroke (peak relative displacement to the host, m) under the model's own loads at their running speeds.</summary>
+    /// <remarks>Loads are grouped by speed as for vibration limits; strokes at distinct speeds add as a peak bound Σ|X_a − X_h|. NaN when no load has a speed.</remarks>
+    public static double OperatingStroke(StructuralModel model, AbsorberDesign design, AbsorberNames names, IReadOnlyList<Load> loads)
+    {
+        ArgumentNullException.ThrowIfNull(loads);
+        var groups = loads.Where(l => l.SpeedHz is > 0).GroupBy(l => l.SpeedHz!.Value).ToList();
+        if (groups.Count == 0) return double.NaN;
+        var system = DampedSystem.Build(With(model, design, names));
+        var stroke = 0.0;
+        foreach (var g in groups)
+        {
+            var r = HarmonicAnalysis.Sweep(system, [g.Key], [.. g], [design.Host, names.Mass], HarmonicMethod.Direct);
+            stroke += (r.ResponseOf(names.Mass)!.Displacement[0] - r.ResponseOf(design.Host)!.Displacement[0]).Magnitude;
+        }
+        return stroke;
+    }
+
     /// <summary><paramref name="model"/> with the absorber of <paramref name="design"/> attached.</summary>
     public static StructuralModel With(StructuralModel model, AbsorberDesign design, AbsorberNames names)
     {

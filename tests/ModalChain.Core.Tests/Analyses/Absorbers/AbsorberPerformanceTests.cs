@@ -69,4 +69,17 @@ public class AbsorberPerformanceTests
         NumericAssert.Close(1.0, p[0], Tolerance.Abs(1e-4), "x");
         NumericAssert.Close(1.0, p[1], Tolerance.Abs(1e-4), "y");
     }
+
+    [Fact]
+    public void OperatingStroke_IsTheRelativeMotionUnderTheModelsLoad()
+    {
+        // A 3 kN force at the host at 0.9 of the primary's frequency: stroke = F·|X2 − X1| from the independent two-mass receptance.
+        var (model, design, names) = UndampedPrimary(0.05);
+        var speed = 0.9 * design.ModeFrequencyHz;
+        var load = new ForceLoad("pump", "floor", 3000, 0, speed);
+        var stroke = AbsorberPerformance.OperatingStroke(model, design, names, [load]);
+        var (x1, x2) = TwoMassAbsorberReference.Response(M, K, design.Mass, design.Stiffness, design.Damping, 2 * Math.PI * speed);
+        NumericAssert.Close(3000 * (x2 - x1).Magnitude, stroke, Tolerance.Rel(1e-9), "stroke in m");
+        Assert.True(double.IsNaN(AbsorberPerformance.OperatingStroke(model, design, names, [load with { SpeedHz = null }])));
+    }
 }
