@@ -19,6 +19,10 @@ internal static class CheckCommand
     {
         var file = CommonOptions.ModelFile();
         var format = CommonOptions.Format();
+        format.Validators.Add(r =>
+        {
+            if (r.GetValueOrDefault<OutputFormat>() == OutputFormat.Csv) r.AddError("--format csv is not offered by check; use table or json.");
+        });
         var command = new Command("check",
             "Evaluate the criteria of the model's 'criteria:' section: frequency separation (no natural frequency within " +
             "±margin of any running speed × order) and vibration limits at the operating points. Each criterion prints " +

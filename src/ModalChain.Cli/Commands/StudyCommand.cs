@@ -210,6 +210,15 @@ internal static class StudyCommand
         {
             o.WriteLine("Crossings (resonance can be met at these speeds during run-up and run-down):");
             table.Write(o);
+            var operating = (document.Criteria.Separation?.SpeedsHz ?? [])
+                .Concat(OperatingPoints.Loads(document).Where(l => l.SpeedHz is > 0).Select(l => l.SpeedHz!.Value))
+                .Distinct().Order().ToList();
+            foreach (var s in operating)
+            {
+                var nearest = chart.Crossings.MinBy(c => Math.Abs(Math.Log(c.SpeedHz / s)))!;
+                o.WriteLine(string.Create(Inv,
+                    $"Operating speed {s * 60:G6} rpm: nearest crossing at {nearest.SpeedHz * 60:F1} rpm (mode {nearest.ModeNumber}, order {nearest.Order:G4}), {100 * (nearest.SpeedHz / s - 1):+0.0;-0.0} % away."));
+            }
         }
         o.WriteLine();
         o.WriteLine("Caution: " + Cautions.Text);

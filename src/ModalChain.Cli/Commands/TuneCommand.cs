@@ -42,6 +42,10 @@ internal static class TuneCommand
         };
         method.AcceptOnlyFromAmong("den-hartog", "optimal");
         var format = new Option<OutputFormat>("--format") { Description = "table or json (one object on stdout, SI units).", DefaultValueFactory = _ => OutputFormat.Table };
+        format.Validators.Add(r =>
+        {
+            if (r.GetValueOrDefault<OutputFormat>() == OutputFormat.Csv) r.AddError("--format csv is not offered by tune; use table or json.");
+        });
         var write = new Option<string?>("--write") { Description = "Also write the model with the absorber added to this file, ready for every other command." };
         var command = new Command("tune",
             "Size a tuned vibration absorber (mass, spring, damper) for one mode, from the mode's modal mass at the host " +

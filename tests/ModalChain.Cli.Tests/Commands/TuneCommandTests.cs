@@ -88,4 +88,12 @@ public class TuneCommandTests
         NumericAssert.Close(0.940401, a.GetProperty("frequency_ratio").GetDouble(), Tolerance.Abs(5e-7), "f");
         NumericAssert.Close(0.135333, a.GetProperty("damping_ratio").GetDouble(), Tolerance.Abs(5e-7), "ζ_a");
     }
+
+    [Fact]
+    public void CsvFormat_IsRefused()
+    {
+        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "csv");
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("not offered", run.Error);
+    }
 }
