@@ -117,7 +117,8 @@ internal static class StudyCommand
         {
             var row = new List<string> { (s.Value / unit.Factor).ToString("G6", Inv) };
             row.AddRange(result.Modes.Select(m => m.FrequenciesHz[s.Index].ToString("F3", Inv)));
-            row.AddRange(s.Reserves.Select(r => (r >= 0 ? "pass " : "FAIL ") + CheckCommand.Signed(r) + " %"));
+            row.AddRange(s.Reserves.Select((r, c) => (r >= 0 ? "pass " : "FAIL ") + CheckCommand.Signed(r) + " %" +
+                (req.Criteria[c].Limit is { } limit ? $" ({CheckCommand.Show(limit.Value * (1 - r), limit.Quantity)})" : "")));
             table.Add([.. row]);
         }
         table.Write(o);

@@ -40,6 +40,13 @@ public static class StudyJson
             w.WriteStartArray("passes");
             foreach (var s in result.Steps) w.WriteBooleanValue(s.Reserves[c] >= 0);
             w.WriteEndArray();
+            if (result.Request.Criteria[c].Limit is { } limit)
+            {
+                // The operating-point response at each value, in the limit's measure and SI unit.
+                w.WriteString("unit", CheckJson.Unit(limit.Quantity));
+                w.Number("limit", limit.Value);
+                w.Array("response", result.Steps.Select(s => limit.Value * (1 - s.Reserves[c])));
+            }
             w.WriteEndObject();
         }
         w.WriteEndArray();

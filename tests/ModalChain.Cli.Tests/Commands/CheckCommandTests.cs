@@ -62,4 +62,15 @@ public class CheckCommandTests
         Assert.Contains(run.ExitCode, new[] { 0, 1 });
         Assert.Equal("Supply fan on a steel mezzanine", run.Json().GetProperty("title").GetString());
     }
+
+    [Fact]
+    public void LimitsWithoutOperatingPoint_AreNotEvaluated_AndExitOne()
+    {
+        // A criterion that was not shown to pass does not pass (docs/criteria.md).
+        var path = CliRun.Deck("150 kN/mm", extra: "  limits:\n    - {at: deck, quantity: velocity, peak: 4 mm/s}");
+        var run = CliRun.Of("check", path);
+        Assert.Equal(1, run.ExitCode);
+        Assert.Contains("NOT EVALUATED", run.Output);
+        Assert.Contains("no load with a running speed", run.Output);
+    }
 }

@@ -63,5 +63,16 @@ public class OperatingPointCommandTests
         var json = run.Json();
         Assert.Equal(3, json.GetProperty("criteria").GetArrayLength()); // separation and two limits
         Assert.Contains(json.GetProperty("thresholds").EnumerateArray(), t => t.GetProperty("criterion").GetString()!.StartsWith("limit acceleration peak at deck"));
+        // The operating-point response at the model's own stiffness (68 kN/mm is not a step, so compare the shape only):
+        // response = limit·(1 − reserve) at every step, and it equals what 'check' finds at a step's value.
+        var deck = json.GetProperty("criteria").EnumerateArray().Single(c => c.GetProperty("name").GetString() == "limit acceleration peak at deck");
+        var limit = deck.GetProperty("limit").GetDouble();
+        var reserves = deck.GetProperty("reserve").EnumerateArray().Select(r => r.GetDouble()).ToArray();
+        var response = deck.GetProperty("response").EnumerateArray().Select(r => r.GetDouble()).ToArray();
+        for (var i = 0; i < reserves.Length; i++) NumericAssert.Close(limit * (1 - reserves[i]), response[i], Tolerance.Rel(1e-12), $"step {i}");
+        var atHundred = File.ReadAllText(Example).Replace("stiffness: 68 kN/mm", "stiffness: 100 kN/mm");
+        var check = CliRun.Of("check", CliRun.ModelFile(atHundred), "--format", "json").Json();
+        var deckLimit = check.GetProperty("limits").EnumerateArray().Single(l => l.GetProperty("at").GetString() == "deck");
+        NumericAssert.Close(deckLimit.GetProperty("value").GetDouble(), response[6], Tolerance.Rel(1e-9), "study at 100 kN/mm vs check");
     }
 }

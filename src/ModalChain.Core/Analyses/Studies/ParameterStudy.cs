@@ -20,6 +20,9 @@ public enum StudySpacing
 /// <param name="Reserve">The reserve (a fraction) of the criterion for a network and its modes; must be continuous in the parameter for thresholds to be exact.</param>
 public sealed record StudyCriterion(string Name, Func<Network, ModalResult, double> Reserve)
 {
+    /// <summary>The vibration limit this criterion checks, when it is one; its response at a step is Value·(1 − reserve).</summary>
+    public VibrationLimit? Limit { get; init; }
+
     /// <summary>The frequency-separation rule as a study criterion.</summary>
     public static StudyCriterion Separation(SeparationCriterion criterion)
     {
@@ -229,6 +232,7 @@ public static class OperatingPointCriteria
         ArgumentNullException.ThrowIfNull(loads);
         return new StudyCriterion("limit " + limit.Describe(), (network, _) =>
             ModalChain.Core.Analyses.Criteria.OperatingPointLimits.WorstReserve(
-                ModalChain.Core.Assembly.DampedSystem.Build(structure with { Network = network }), loads, [limit]));
+                ModalChain.Core.Assembly.DampedSystem.Build(structure with { Network = network }), loads, [limit]))
+        { Limit = limit };
     }
 }
