@@ -37,8 +37,8 @@ internal static class StudyCommand
         var format = CommonOptions.Format();
         var command = new Command("study",
             "Vary one numeric field of the model over a range, re-solve the modes at each value (in parallel), follow each " +
-            "mode by its shape (modal assurance criterion) so identities survive frequency crossings, and find by bisection " +
-            "the values at which each criterion of the model starts or stops passing.\n\n" + CliApp.CautionHelp)
+            "mode by its shape (modal assurance criterion) so identities survive frequency crossings, and find " +
+            "the values at which each criterion of the model starts or stops passing, by a bracketed root search.\n\n" + CliApp.CautionHelp)
         { file, vary, from, to, steps, spacing, orders, format };
         command.SetAction(parse =>
         {
@@ -135,7 +135,7 @@ internal static class StudyCommand
             o.WriteLine("No criterion changes between pass and fail over this range.");
         else
         {
-            o.WriteLine("Thresholds (bisection between neighbouring values):");
+            o.WriteLine("Thresholds (bracketed root search between neighbouring values, to 1e-9 of the value):");
             foreach (var t in result.Thresholds)
                 o.WriteLine($"  {t.Criterion}: {(t.PassesAbove ? "starts passing" : "stops passing")} at {unit.Show(t.Value, "G7")} " +
                             $"(passes {(t.PassesAbove ? "above" : "below")} it; between {unit.Show(t.Bracket.Low)} and {unit.Show(t.Bracket.High)})");

@@ -41,7 +41,7 @@ public sealed record StudyCriterion(string Name, Func<Network, ModalResult, doub
 /// <param name="Steps">Number of values including both ends, at least 2.</param>
 /// <param name="Spacing">Linear or geometric spacing.</param>
 /// <param name="Criteria">Criteria to evaluate at each value and whose thresholds to find.</param>
-/// <param name="ThresholdTolerance">Relative width (of the parameter value) at which threshold bisection stops.</param>
+/// <param name="ThresholdTolerance">Relative width (of the parameter value) at which the threshold search stops.</param>
 public sealed record StudyRequest(
     ParameterPath Parameter, double From, double To, int Steps, StudySpacing Spacing,
     ImmutableArray<StudyCriterion> Criteria, double ThresholdTolerance = 1e-9)
@@ -94,7 +94,7 @@ public sealed record TrackedMode(int Identity, ImmutableArray<double> Frequencie
 
 /// <summary>A value of the parameter at which a criterion changes from failing to passing or back.</summary>
 /// <param name="Criterion">The criterion's name.</param>
-/// <param name="Value">The threshold value, SI, found by bisection between two steps.</param>
+/// <param name="Value">The threshold value, SI, found by a bracketed root search between two steps.</param>
 /// <param name="PassesAbove">True when the criterion passes just above the threshold (it starts passing as the value rises).</param>
 /// <param name="Bracket">The two step values between which it was found.</param>
 public sealed record StudyThreshold(string Criterion, double Value, bool PassesAbove, (double Low, double High) Bracket);
@@ -106,12 +106,12 @@ public sealed record StudyThreshold(string Criterion, double Value, bool PassesA
 /// <param name="Thresholds">Every pass/fail change of every criterion, in order of criterion then value.</param>
 public sealed record StudyResult(StudyRequest Request, ImmutableArray<StudyStep> Steps, ImmutableArray<TrackedMode> Modes, ImmutableArray<StudyThreshold> Thresholds);
 
-/// <summary>Runs a <see cref="StudyRequest"/>: all steps in parallel, then mode tracking and threshold bisection.</summary>
+/// <summary>Runs a <see cref="StudyRequest"/>: all steps in parallel, then mode tracking and threshold searches (also in parallel).</summary>
 /// <remarks>
 /// Each step re-solves K φ = ω² M φ for the network with the parameter set. Modes are followed from step to step by
 /// the mass-weighted modal assurance criterion (Allemang &amp; Brown 1982). Where a criterion's pass state differs
-/// between two neighbouring steps, the parameter value at which its reserve changes sign is found by bisection to
-/// <see cref="StudyRequest.ThresholdTolerance"/>; a change that happens and reverses between two steps is not seen.
+/// between two neighbouring steps, the parameter value at which its reserve changes sign is found by a bracketed
+/// root search (Illinois regula falsi with bisection steps) to <see cref="StudyRequest.ThresholdTolerance"/>; a change that happens and reverses between two steps is not seen.
 /// Results do not depend on the number of threads: every step is stored at its index.
 /// </remarks>
 public static class ParameterStudy
@@ -183,39 +183,65 @@ public static class ParameterStudy
 
     private static ImmutableArray<StudyThreshold> Thresholds(Network network, StudyRequest request, ImmutableArray<double> values, double[][] reserves)
     {
-        var list = ImmutableArray.CreateBuilder<StudyThreshold>();
+        var brackets = new List<(int Criterion, int Step)>();
         for (var c = 0; c < request.Criteria.Length; c++)
+            for (var i = 0; i + 1 < values.Length; i++)
+                if (reserves[i][c] >= 0 != reserves[i + 1][c] >= 0) brackets.Add((c, i));
+
+        // Brackets are independent root searches: run them in parallel, store each at its index.
+        var found = new StudyThreshold[brackets.Count];
+        Parallel.For(0, brackets.Count, k =>
         {
+            var (c, i) = brackets[k];
             var criterion = request.Criteria[c];
             double Reserve(double v)
             {
                 var net = request.Parameter.Apply(network, v);
                 return criterion.Reserve(net, ModalAnalysis.Solve(net));
             }
-            for (var i = 0; i + 1 < values.Length; i++)
-            {
-                var passA = reserves[i][c] >= 0;
-                var passB = reserves[i + 1][c] >= 0;
-                if (passA == passB) continue;
-                var value = Bisect(Reserve, values[i], values[i + 1], passA, request.ThresholdTolerance);
-                var low = Math.Min(values[i], values[i + 1]);
-                var high = Math.Max(values[i], values[i + 1]);
-                var passesAbove = values[i + 1] > values[i] ? passB : passA;
-                list.Add(new StudyThreshold(criterion.Name, value, passesAbove, (low, high)));
-            }
-        }
-        return list.ToImmutable();
+            var value = Root(Reserve, values[i], values[i + 1], reserves[i][c], reserves[i + 1][c], request.ThresholdTolerance);
+            var passesAbove = values[i + 1] > values[i] ? reserves[i + 1][c] >= 0 : reserves[i][c] >= 0;
+            found[k] = new StudyThreshold(criterion.Name, value,
+                passesAbove, (Math.Min(values[i], values[i + 1]), Math.Max(values[i], values[i + 1])));
+        });
+        return [.. found];
     }
 
-    /// <summary>The value between <paramref name="a"/> and <paramref name="b"/> where the pass state changes, to relative width <paramref name="tolerance"/>.</summary>
-    internal static double Bisect(Func<double, double> reserve, double a, double b, bool passAtA, double tolerance)
+    /// <summary>The value between <paramref name="a"/> and <paramref name="b"/> where the pass state (reserve ≥ 0) changes, to relative width <paramref name="tolerance"/>.</summary>
+    /// <remarks>
+    /// The Illinois variant of regula falsi (Dowell &amp; Jarratt 1971), which keeps a bracket and converges
+    /// superlinearly on a smooth reserve; every third step is a bisection, and non-finite reserves fall back to
+    /// bisection, so the bracket always shrinks. The pass state, not the reserve's value, decides which end moves.
+    /// </remarks>
+    internal static double Root(Func<double, double> reserve, double a, double b, double fa, double fb, double tolerance)
     {
+        var passA = fa >= 0;
+        var side = 0;
         for (var iteration = 0; iteration < 200; iteration++)
         {
+            if (Math.Abs(b - a) <= tolerance * Math.Max(Math.Abs(a), Math.Abs(b))) break;
             var mid = 0.5 * (a + b);
-            if (Math.Abs(b - a) <= tolerance * Math.Max(Math.Abs(a), Math.Abs(b)) || mid == a || mid == b) return mid;
-            if (reserve(mid) >= 0 == passAtA) a = mid;
-            else b = mid;
+            var x = mid;
+            if (iteration % 3 != 2 && double.IsFinite(fa) && double.IsFinite(fb) && fa != fb)
+            {
+                var falsi = (a * fb - b * fa) / (fb - fa);
+                if (falsi > Math.Min(a, b) && falsi < Math.Max(a, b)) x = falsi;
+            }
+            if (x == a || x == b) x = mid;
+            if (x == a || x == b) break;
+            var fx = reserve(x);
+            if (fx >= 0 == passA)
+            {
+                a = x; fa = fx;
+                if (side == -1) fb /= 2;
+                side = -1;
+            }
+            else
+            {
+                b = x; fb = fx;
+                if (side == 1) fa /= 2;
+                side = 1;
+            }
         }
         return 0.5 * (a + b);
     }

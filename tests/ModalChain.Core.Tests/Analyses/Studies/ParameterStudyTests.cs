@@ -80,7 +80,7 @@ public class ParameterStudyTests
     public void SingleMassThresholds_MatchTheClosedForm()
     {
         // f = √(k/m)/2π leaves and enters the band (0.8·15, 1.2·15) Hz at k = m(2π·12)² and m(2π·18)².
-        // Bisection tolerance 1e-9 of the value; asserted to 1e-7 relative.
+        // Search tolerance 1e-9 of the value; asserted to 1e-7 relative.
         const double m = 1000;
         var net = new NetworkBuilder().AddMass("deck", m).AddSpring("legs", Network.Ground, "deck", 1e6).Build();
         var path = new ParameterPath(ParameterKind.Stiffness, "legs");
@@ -173,6 +173,24 @@ public class ParameterStudyTests
         var request = Request(new ParameterPath(ParameterKind.Mass, "a"), from, to, steps);
         Assert.Contains(request.Problems(), p => p.Contains(expected, StringComparison.Ordinal));
         Assert.Throws<ArgumentException>(() => ParameterStudy.Run(Pair(0), request));
+    }
+
+    [Fact]
+    public void ThresholdSearch_FindsACubeRootFasterThanBisection()
+    {
+        // x³ − 2 changes sign at 2^(1/3) (exact); bisection from [1, 2] to 1e-12 needs 40 halvings.
+        var calls = 0;
+        var root = ParameterStudy.Root(x => { calls++; return x * x * x - 2; }, 1, 2, -1, 6, 1e-12);
+        NumericAssert.Close(Math.Cbrt(2), root, Tolerance.Rel(1e-12), "2^(1/3)");
+        Assert.True(calls < 40, $"{calls} evaluations");
+    }
+
+    [Fact]
+    public void ThresholdSearch_OnAStepFunction_StillBrackets()
+    {
+        // A reserve that jumps (here from −1 to +∞ at 0.3) is still located to the tolerance by the bisection steps.
+        var root = ParameterStudy.Root(x => x < 0.3 ? -1 : double.PositiveInfinity, 0, 1, -1, double.PositiveInfinity, 1e-10);
+        NumericAssert.Close(0.3, root, Tolerance.Rel(1e-9), "jump position");
     }
 
     [Fact]
