@@ -8,7 +8,7 @@ public class CheckCommandTests
     public void PassingModel_ExitsZeroAndPrintsItsReserve()
     {
         // beams 150 kN/mm: deck mode about 38 Hz, clear of 24.5 and 49 Hz by more than 20 %.
-        var run = CliRun.Of("check", CliRun.Deck("150 kN/mm"));
+        var run = CommandRun.Of("check", CommandRun.Deck("150 kN/mm"));
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("all criteria pass", run.Output);
         Assert.Contains("reserve [%]", run.Output);
@@ -18,7 +18,7 @@ public class CheckCommandTests
     [Fact]
     public void FailingModel_ExitsOne()
     {
-        var run = CliRun.Of("check", CliRun.Deck("68 kN/mm"));
+        var run = CommandRun.Of("check", CommandRun.Deck("68 kN/mm"));
         Assert.Equal(1, run.ExitCode);
         Assert.Contains("FAIL", run.Output);
     }
@@ -26,7 +26,7 @@ public class CheckCommandTests
     [Fact]
     public void Json_IsOneObjectWithPairsAndReserves()
     {
-        var run = CliRun.Of("check", CliRun.Deck("68 kN/mm"), "--format", "json");
+        var run = CommandRun.Of("check", CommandRun.Deck("68 kN/mm"), "--format", "json");
         Assert.Equal(1, run.ExitCode);
         var json = run.Json();
         Assert.False(json.GetProperty("passes").GetBoolean());
@@ -40,8 +40,8 @@ public class CheckCommandTests
     [Fact]
     public void ModelWithoutCriteria_ExitsTwo()
     {
-        var path = CliRun.ModelFile("masses:\n  deck: 100 kg\nsprings:\n  s: {between: [ground, deck], stiffness: 1e5}\n");
-        var run = CliRun.Of("check", path);
+        var path = CommandRun.ModelFile("masses:\n  deck: 100 kg\nsprings:\n  s: {between: [ground, deck], stiffness: 1e5}\n");
+        var run = CommandRun.Of("check", path);
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("no 'criteria' section", run.Error);
     }
@@ -49,8 +49,8 @@ public class CheckCommandTests
     [Fact]
     public void BadCriteria_ExitTwoWithPositions()
     {
-        var path = CliRun.Deck("68 kN/mm", extra: "  limits:\n    - {at: roof, quantity: velocity, peak: 4 mm/s}");
-        var run = CliRun.Of("check", path);
+        var path = CommandRun.Deck("68 kN/mm", extra: "  limits:\n    - {at: roof, quantity: velocity, peak: 4 mm/s}");
+        var run = CommandRun.Of("check", path);
         Assert.Equal(2, run.ExitCode);
         Assert.Contains($"{path}:11:12: error:", run.Error);
     }
@@ -58,7 +58,7 @@ public class CheckCommandTests
     [Fact]
     public void ExampleModel_IsCheckedEndToEnd()
     {
-        var run = CliRun.Of("check", Path.Combine(CliRun.Models(), "mezzanine-fan-absorber-check.yaml"), "--format", "json");
+        var run = CommandRun.Of("check", Path.Combine(CommandRun.Models(), "mezzanine-fan-absorber-check.yaml"), "--format", "json");
         Assert.Contains(run.ExitCode, new[] { 0, 1 });
         Assert.Equal("Supply fan on a steel mezzanine", run.Json().GetProperty("title").GetString());
     }
@@ -67,8 +67,8 @@ public class CheckCommandTests
     public void LimitsWithoutOperatingPoint_AreNotEvaluated_AndExitOne()
     {
         // A criterion that was not shown to pass does not pass (docs/criteria.md).
-        var path = CliRun.Deck("150 kN/mm", extra: "  limits:\n    - {at: deck, quantity: velocity, peak: 4 mm/s}");
-        var run = CliRun.Of("check", path);
+        var path = CommandRun.Deck("150 kN/mm", extra: "  limits:\n    - {at: deck, quantity: velocity, peak: 4 mm/s}");
+        var run = CommandRun.Of("check", path);
         Assert.Equal(1, run.ExitCode);
         Assert.Contains("NOT EVALUATED", run.Output);
         Assert.Contains("no load with a running speed", run.Output);

@@ -5,12 +5,12 @@ namespace ModalChain.Cli.Tests.Commands;
 /// <summary>The commands on the example model with loads and damping: limits at the operating point, tuning assessed on the full model.</summary>
 public class OperatingPointCommandTests
 {
-    private static string Example => Path.Combine(CliRun.Models(), "mezzanine-fan-absorber-check.yaml");
+    private static string Example => Path.Combine(CommandRun.Models(), "mezzanine-fan-absorber-check.yaml");
 
     [Fact]
     public void Check_EvaluatesTheLimitsAtTheRunningSpeed()
     {
-        var run = CliRun.Of("check", Example, "--format", "json");
+        var run = CommandRun.Of("check", Example, "--format", "json");
         Assert.Equal(1, run.ExitCode);
         var limits = run.Json().GetProperty("limits");
         Assert.Equal(2, limits.GetArrayLength());
@@ -27,7 +27,7 @@ public class OperatingPointCommandTests
     [Fact]
     public void Tune_ReportsPeaksStrokeAndMistuning()
     {
-        var run = CliRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--format", "json");
+        var run = CommandRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--format", "json");
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
         var before = json.GetProperty("peak_before").GetDouble();
@@ -43,22 +43,22 @@ public class OperatingPointCommandTests
     [Fact]
     public void TuneOptimal_IsNoWorseThanTheClosedForm_AndTheWrittenModelMeetsItsLimits()
     {
-        var closed = CliRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--format", "json").Json();
+        var closed = CommandRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--format", "json").Json();
         var output = Path.Combine(Path.GetTempPath(), "modalchain-tests-" + Guid.NewGuid().ToString("N") + ".yaml");
-        var run = CliRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--method", "optimal", "--format", "json", "--write", output);
+        var run = CommandRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--method", "optimal", "--format", "json", "--write", output);
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
         Assert.Equal("optimal", json.GetProperty("method").GetString());
         Assert.Contains("closed form", json.GetProperty("improvement").GetString());
         Assert.True(json.GetProperty("peak_after").GetDouble() <= closed.GetProperty("peak_after").GetDouble() * (1 + 1e-9));
-        var check = CliRun.Of("check", output, "--format", "json").Json();
+        var check = CommandRun.Of("check", output, "--format", "json").Json();
         Assert.All(check.GetProperty("limits").EnumerateArray(), l => Assert.True(l.GetProperty("passes").GetBoolean(), l.ToString()));
     }
 
     [Fact]
     public void Study_FollowsTheLimitsAndFindsTheirThresholds()
     {
-        var run = CliRun.Of("study", Example, "--vary", "springs.beams.stiffness", "--from", "40 kN/mm", "--to", "140 kN/mm", "--steps", "11", "--format", "json");
+        var run = CommandRun.Of("study", Example, "--vary", "springs.beams.stiffness", "--from", "40 kN/mm", "--to", "140 kN/mm", "--steps", "11", "--format", "json");
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
         Assert.Equal(3, json.GetProperty("criteria").GetArrayLength()); // separation and two limits
@@ -71,7 +71,7 @@ public class OperatingPointCommandTests
         var response = deck.GetProperty("response").EnumerateArray().Select(r => r.GetDouble()).ToArray();
         for (var i = 0; i < reserves.Length; i++) NumericAssert.Close(limit * (1 - reserves[i]), response[i], Tolerance.Rel(1e-12), $"step {i}");
         var atHundred = File.ReadAllText(Example).Replace("stiffness: 68 kN/mm", "stiffness: 100 kN/mm");
-        var check = CliRun.Of("check", CliRun.ModelFile(atHundred), "--format", "json").Json();
+        var check = CommandRun.Of("check", CommandRun.ModelFile(atHundred), "--format", "json").Json();
         var deckLimit = check.GetProperty("limits").EnumerateArray().Single(l => l.GetProperty("at").GetString() == "deck");
         NumericAssert.Close(deckLimit.GetProperty("value").GetDouble(), response[6], Tolerance.Rel(1e-9), "study at 100 kN/mm vs check");
     }

@@ -7,7 +7,7 @@ public class StudyCommandTests
     [Fact]
     public void Json_ListsTrackedModesAndThresholds()
     {
-        var run = CliRun.Of("study", CliRun.Deck("68 kN/mm"), "--vary", "springs.beams.stiffness", "--from", "40 kN/mm", "--to", "140 kN/mm", "--steps", "11", "--format", "json");
+        var run = CommandRun.Of("study", CommandRun.Deck("68 kN/mm"), "--vary", "springs.beams.stiffness", "--from", "40 kN/mm", "--to", "140 kN/mm", "--steps", "11", "--format", "json");
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
         Assert.Equal("springs.beams.stiffness", json.GetProperty("parameter").GetString());
@@ -23,7 +23,7 @@ public class StudyCommandTests
     [Fact]
     public void Table_PrintsThresholdsInTheUsersUnit()
     {
-        var run = CliRun.Of("study", CliRun.Deck("68 kN/mm"), "--vary", "springs.beams.stiffness", "--from", "40 kN/mm", "--to", "140 kN/mm", "--steps", "11");
+        var run = CommandRun.Of("study", CommandRun.Deck("68 kN/mm"), "--vary", "springs.beams.stiffness", "--from", "40 kN/mm", "--to", "140 kN/mm", "--steps", "11");
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("starts passing at", run.Output);
         Assert.Contains("kN/mm", run.Output);
@@ -33,7 +33,7 @@ public class StudyCommandTests
     [Fact]
     public void Csv_HasOneRowPerValue()
     {
-        var run = CliRun.Of("study", CliRun.Deck("68 kN/mm"), "--vary", "masses.fan.mass", "--from", "200 kg", "--to", "800 kg", "--steps", "7", "--format", "csv");
+        var run = CommandRun.Of("study", CommandRun.Deck("68 kN/mm"), "--vary", "masses.fan.mass", "--from", "200 kg", "--to", "800 kg", "--steps", "7", "--format", "csv");
         Assert.Equal(0, run.ExitCode);
         var lines = run.Output.Split('\n', StringSplitOptions.RemoveEmptyEntries);
         Assert.Equal(1 + 7, lines.Length);
@@ -49,7 +49,7 @@ public class StudyCommandTests
     [InlineData("masses.deck.mass", "0 kg", "100 kg", "not a valid value")]
     public void BadInputs_ExitTwoWithAClearMessage(string vary, string from, string to, string expected)
     {
-        var run = CliRun.Of("study", CliRun.Deck("68 kN/mm"), "--vary", vary, "--from", from, "--to", to);
+        var run = CommandRun.Of("study", CommandRun.Deck("68 kN/mm"), "--vary", vary, "--from", from, "--to", to);
         Assert.Equal(2, run.ExitCode);
         Assert.Contains(expected, run.Error);
     }
@@ -57,9 +57,9 @@ public class StudyCommandTests
     [Fact]
     public void SpeedChart_ListsCrossingsAtNaturalFrequencyOverOrder()
     {
-        var path = CliRun.Deck("68 kN/mm");
-        var modes = CliRun.Of("modes", path, "--format", "json").Json().GetProperty("modes");
-        var run = CliRun.Of("study", path, "--vary", "speed", "--from", "0 rpm", "--to", "3000 rpm", "--steps", "61", "--format", "json");
+        var path = CommandRun.Deck("68 kN/mm");
+        var modes = CommandRun.Of("modes", path, "--format", "json").Json().GetProperty("modes");
+        var run = CommandRun.Of("study", path, "--vary", "speed", "--from", "0 rpm", "--to", "3000 rpm", "--steps", "61", "--format", "json");
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
         Assert.Equal(61, json.GetProperty("speeds_rpm").GetArrayLength());
@@ -74,7 +74,7 @@ public class StudyCommandTests
     [Fact]
     public void SpeedChart_BadRange_ExitsTwo()
     {
-        var run = CliRun.Of("study", CliRun.Deck("68 kN/mm"), "--vary", "speed", "--from", "1500 rpm", "--to", "1500 rpm");
+        var run = CommandRun.Of("study", CommandRun.Deck("68 kN/mm"), "--vary", "speed", "--from", "1500 rpm", "--to", "1500 rpm");
         Assert.Equal(2, run.ExitCode);
     }
 }

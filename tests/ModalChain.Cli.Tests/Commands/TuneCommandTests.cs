@@ -9,7 +9,7 @@ public class TuneCommandTests
     {
         // Den Hartog 1956 §3.3 [confirmed citation]: μ = 5 % → f = 0.952381, ζ_a = 0.133631 (absorber-referenced),
         // 0.127267 (primary-referenced); peak √41 (REFERENCES §3). Tolerance 5e-7 absolute on the printed digits.
-        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "json");
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "json");
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();
         Assert.Equal(2, json.GetProperty("mode").GetInt32());
@@ -31,7 +31,7 @@ public class TuneCommandTests
     [Fact]
     public void Table_CarriesBothCautionsAndBothDampingConventions()
     {
-        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "0.05");
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "0.05");
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("Absorber caution:", run.Output);
         Assert.Contains("detunes", run.Output);
@@ -44,14 +44,14 @@ public class TuneCommandTests
     public void Write_ProducesAModelEveryCommandReads()
     {
         var output = Path.Combine(Path.GetTempPath(), "modalchain-tests-" + Guid.NewGuid().ToString("N") + ".yaml");
-        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--write", output);
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--write", output);
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("wrote", run.Error);
-        var modes = CliRun.Of("modes", output, "--format", "json");
+        var modes = CommandRun.Of("modes", output, "--format", "json");
         Assert.Equal(0, modes.ExitCode);
         Assert.Equal(3, modes.Json().GetProperty("modes").GetArrayLength());
-        Assert.Equal(0, CliRun.Of("validate", output).ExitCode);
-        Assert.Contains(CliRun.Of("check", output).ExitCode, new[] { 0, 1 });
+        Assert.Equal(0, CommandRun.Of("validate", output).ExitCode);
+        Assert.Contains(CommandRun.Of("check", output).ExitCode, new[] { 0, 1 });
     }
 
     [Theory]
@@ -64,7 +64,7 @@ public class TuneCommandTests
     [InlineData("--host", "deck", "--mass-ratio", "five", "--mass-ratio")]
     public void BadInputs_ExitTwoWithAClearMessage(string o1, string v1, string o2, string v2, string expected)
     {
-        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), o1, v1, o2, v2);
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), o1, v1, o2, v2);
         Assert.Equal(2, run.ExitCode);
         Assert.Contains(expected, run.Error);
         Assert.DoesNotContain("   at ", run.Error); // no stack trace
@@ -73,7 +73,7 @@ public class TuneCommandTests
     [Fact]
     public void ModeOutOfRange_ExitsTwo()
     {
-        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--mode", "7");
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--mode", "7");
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("mode 7 does not exist", run.Error);
     }
@@ -82,7 +82,7 @@ public class TuneCommandTests
     public void BaseTarget_UsesWarburtonsTuning()
     {
         // Warburton 1982 [confirmed citation; formulas from memory]: μ = 5 % base acceleration f = 0.940401, ζ_a = 0.135333.
-        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--target", "base", "--format", "json");
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--target", "base", "--format", "json");
         Assert.Equal(0, run.ExitCode);
         var a = run.Json().GetProperty("absorber");
         NumericAssert.Close(0.940401, a.GetProperty("frequency_ratio").GetDouble(), Tolerance.Abs(5e-7), "f");
@@ -92,7 +92,7 @@ public class TuneCommandTests
     [Fact]
     public void CsvFormat_IsRefused()
     {
-        var run = CliRun.Of("tune", CliRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "csv");
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "csv");
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("not offered", run.Error);
     }

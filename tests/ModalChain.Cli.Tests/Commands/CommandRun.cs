@@ -2,15 +2,15 @@ using System.Text.Json;
 
 namespace ModalChain.Cli.Tests.Commands;
 
-/// <summary>Runs the command-line program in-process and keeps what it wrote.</summary>
-internal sealed record CliRun(int ExitCode, string Output, string Error)
+/// <summary>Runs the command-line program in-process and keeps what it wrote, with helpers for the check, tune and study tests.</summary>
+internal sealed record CommandRun(int ExitCode, string Output, string Error)
 {
-    public static CliRun Of(params string[] args)
+    public static CommandRun Of(params string[] args)
     {
         var output = new StringWriter();
         var error = new StringWriter();
         var code = CliApp.Run(args, output, error);
-        return new CliRun(code, output.ToString(), error.ToString());
+        return new CommandRun(code, output.ToString(), error.ToString());
     }
 
     public JsonElement Json() => JsonDocument.Parse(Output).RootElement;
