@@ -27,7 +27,7 @@ internal static class TuneCommand
         var file = CommonOptions.ModelFile();
         var host = new Option<string>("--host") { Description = "The mass the absorber hangs on.", Required = true };
         var ratio = new Option<string>("--mass-ratio") { Description = "Absorber mass over the mode's modal mass at the host, e.g. '5 %' or 0.05.", Required = true };
-        var mode = new Option<int?>("--mode") { Description = "Mode to control (default: the mode nearest a running speed × order of criteria.separation, or of --speed)." };
+        var mode = new Option<int?>("--mode") { Description = "Mode to control (default: the mode nearest a running speed × order of criteria.separation or a load's running speed, or --speed × those orders)." };
         var speed = new Option<string?>("--speed") { Description = "Running speed to choose the mode by, e.g. '1480 rpm' (overrides the speeds of criteria.separation)." };
         var target = new Option<string>("--target")
         {
@@ -128,7 +128,10 @@ internal static class TuneCommand
             var orders = document.Criteria.Separation?.Orders ?? [1.0];
             return [.. orders.Select(h => h * s.Value)];
         }
-        return document.Criteria.Separation is { } sep ? [.. sep.Excitations().Select(e => e.FrequencyHz)] : [];
+        // Running speeds × orders of the separation criterion, and the loads' own running speeds.
+        var fromCriteria = document.Criteria.Separation is { } sep ? sep.Excitations().Select(e => e.FrequencyHz) : [];
+        var fromLoads = OperatingPoints.Loads(document).Where(l => l.SpeedHz is > 0).Select(l => l.SpeedHz!.Value);
+        return [.. fromCriteria.Concat(fromLoads).Distinct()];
     }
 
     private static AbsorberTarget Target(string text) => text switch

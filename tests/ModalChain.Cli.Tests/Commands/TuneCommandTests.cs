@@ -96,4 +96,34 @@ public class TuneCommandTests
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("not offered", run.Error);
     }
+
+    [Fact]
+    public void LoadSpeed_ChoosesTheModeWhenTheModelHasNoSeparationCriterion()
+    {
+        // Deck 2600 kg on 68 kN/mm with a 400 kg fan on 1.6 kN/mm: modes near 9.7 and 26 Hz; a load at 1470 rpm (24.5 Hz)
+        // picks mode 2, one at 600 rpm (10 Hz) mode 1.
+        string Model(string speed) => CommandRun.ModelFile($"""
+            masses:
+              deck: 2600 kg
+              fan: 400 kg
+            springs:
+              beams: {"{"}between: [ground, deck], stiffness: 68 kN/mm{"}"}
+              mounts: {"{"}between: [deck, fan], stiffness: 1.6 kN/mm{"}"}
+            damping:
+              modal: 2 %
+            loads:
+              fan: {"{"}kind: unbalance, at: fan, mass-radius: 6 kg*mm, speed: {speed}{"}"}
+            """);
+        Assert.Equal(2, CommandRun.Of("tune", Model("1470 rpm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "json").Json().GetProperty("mode").GetInt32());
+        Assert.Equal(1, CommandRun.Of("tune", Model("600 rpm"), "--host", "fan", "--mass-ratio", "5 %", "--format", "json").Json().GetProperty("mode").GetInt32());
+    }
+
+    [Fact]
+    public void NoModeAndNoSpeedAnywhere_ExitsTwo()
+    {
+        var path = CommandRun.ModelFile("masses:\n  deck: 100 kg\nsprings:\n  s: {between: [ground, deck], stiffness: 1e5}\n");
+        var run = CommandRun.Of("tune", path, "--host", "deck", "--mass-ratio", "5 %");
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("--mode N", run.Error);
+    }
 }

@@ -92,7 +92,7 @@ public static class AbsorberTuning
 
         var mode = request.ModeNumber is { } chosen ? modal.Modes[chosen - 1] : Nearest(modal, request, out _);
         if (mode is null)
-            problems.Add("no mode to control: give --mode N, or state running speeds (criteria.separation.speeds) so the mode nearest to them can be chosen");
+            problems.Add("no mode to control: give --mode N, or state running speeds (criteria.separation.speeds, a load's speed, or --speed) so the mode nearest to them can be chosen");
         else if (mode.IsRigidBody)
             problems.Add($"mode {mode.Number} is a rigid-body mode (0 Hz); an absorber cannot be tuned to it");
         else if (Math.Abs(mode.Shape[host]) < 1e-9 * mode.Shape.Max(Math.Abs))
