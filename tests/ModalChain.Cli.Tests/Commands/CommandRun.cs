@@ -15,10 +15,30 @@ internal sealed record CommandRun(int ExitCode, string Output, string Error)
 
     public JsonElement Json() => JsonDocument.Parse(Output).RootElement;
 
-    /// <summary>Writes <paramref name="text"/> to a new temporary .yaml file and returns its path.</summary>
-    public static string ModelFile(string text)
+    private static readonly System.Collections.Concurrent.ConcurrentBag<string> Created = CreateBag();
+
+    private static System.Collections.Concurrent.ConcurrentBag<string> CreateBag()
+    {
+        var bag = new System.Collections.Concurrent.ConcurrentBag<string>();
+        AppDomain.CurrentDomain.ProcessExit += (_, _) =>
+        {
+            foreach (var f in bag) try { File.Delete(f); } catch (IOException) { }
+        };
+        return bag;
+    }
+
+    /// <summary>A new temporary .yaml path, deleted when the test process ends.</summary>
+    public static string TempPath()
     {
         var path = Path.Combine(Path.GetTempPath(), "modalchain-tests-" + Guid.NewGuid().ToString("N") + ".yaml");
+        Created.Add(path);
+        return path;
+    }
+
+    /// <summary>Writes <paramref name="text"/> to a new temporary .yaml file (deleted when the test process ends) and returns its path.</summary>
+    public static string ModelFile(string text)
+    {
+        var path = TempPath();
         File.WriteAllText(path, text);
         return path;
     }

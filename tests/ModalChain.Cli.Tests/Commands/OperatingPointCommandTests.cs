@@ -44,7 +44,7 @@ public class OperatingPointCommandTests
     public void TuneOptimal_IsNoWorseThanTheClosedForm_AndTheWrittenModelMeetsItsLimits()
     {
         var closed = CommandRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--format", "json").Json();
-        var output = Path.Combine(Path.GetTempPath(), "modalchain-tests-" + Guid.NewGuid().ToString("N") + ".yaml");
+        var output = CommandRun.TempPath();
         var run = CommandRun.Of("tune", Example, "--host", "deck", "--mass-ratio", "5 %", "--method", "optimal", "--format", "json", "--write", output);
         Assert.Equal(0, run.ExitCode);
         var json = run.Json();

@@ -43,7 +43,7 @@ public class TuneCommandTests
     [Fact]
     public void Write_ProducesAModelEveryCommandReads()
     {
-        var output = Path.Combine(Path.GetTempPath(), "modalchain-tests-" + Guid.NewGuid().ToString("N") + ".yaml");
+        var output = CommandRun.TempPath();
         var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--write", output);
         Assert.Equal(0, run.ExitCode);
         Assert.Contains("wrote", run.Error);
