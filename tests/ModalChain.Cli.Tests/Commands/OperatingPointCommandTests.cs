@@ -75,4 +75,20 @@ public class OperatingPointCommandTests
         var deckLimit = check.GetProperty("limits").EnumerateArray().Single(l => l.GetProperty("at").GetString() == "deck");
         NumericAssert.Close(deckLimit.GetProperty("value").GetDouble(), response[6], Tolerance.Rel(1e-9), "study at 100 kN/mm vs check");
     }
+
+    [Fact]
+    public void ExampleComments_FollowFromItsValues()
+    {
+        // The comments of the example state: 1470 rpm = 24.5 Hz; four mounts of 0.4 kN/mm make 1.6 kN/mm; a 150 kg
+        // impeller at grade G6.3 (e·ω = 6.3 mm/s) has m·e ≈ 6.1 kg·mm; the deck mode lies inside the ±20 % band.
+        var model = ModalChain.Io.Model.ModelReader.ReadFile(Example).Model!;
+        var speed = model.Criteria.Separation!.SpeedsHz.Single();
+        NumericAssert.Close(24.5, speed, Tolerance.Rel(1e-15), "1470 rpm");
+        NumericAssert.Close(4 * 0.4e6, model.Network.Springs.Single(s => s.Name == "mounts").Stiffness, Tolerance.Rel(1e-15), "mounts");
+        var unbalance = (ModalChain.Core.Model.UnbalanceLoad)model.Structure.Loads.Single();
+        NumericAssert.Close(150 * 6.3e-3 / (2 * Math.PI * speed), unbalance.MassRadius, Tolerance.Rel(0.01), "G6.3 unbalance");
+        var modes = CommandRun.Of("modes", Example, "--format", "json").Json().GetProperty("modes");
+        var deckMode = modes[1].GetProperty("frequency_hz").GetDouble();
+        Assert.InRange(deckMode, 0.8 * speed, 1.2 * speed);
+    }
 }
