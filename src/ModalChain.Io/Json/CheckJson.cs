@@ -6,16 +6,6 @@ using ModalChain.Io.Model;
 
 namespace ModalChain.Io.Json;
 
-/// <summary>The outcome of every criterion of a model, as <c>modalchain check --format json</c> writes it (SI units).</summary>
-/// <param name="Separation">The separation check, or null when the model states none.</param>
-/// <param name="Limits">The vibration-limit checks evaluated.</param>
-/// <param name="NotEvaluated">Criteria that could not be evaluated, each with the reason.</param>
-public sealed record CheckOutcome(SeparationResult? Separation, IReadOnlyList<LimitResult> Limits, IReadOnlyList<(string Criterion, string Reason)> NotEvaluated)
-{
-    /// <summary>True when every criterion was evaluated and passes.</summary>
-    public bool AllPass => (Separation?.Passes ?? true) && Limits.All(l => l.Passes) && NotEvaluated.Count == 0;
-}
-
 /// <summary>Writes a <see cref="CheckOutcome"/> as one JSON object.</summary>
 /// <remarks>Reserves are fractions: separation reserve = relative change of the natural frequency that reaches the band edge; limit reserve = (limit − value)/limit.</remarks>
 public static class CheckJson
