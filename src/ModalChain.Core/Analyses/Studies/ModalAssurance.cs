@@ -4,7 +4,7 @@ namespace ModalChain.Core.Analyses.Studies;
 
 /// <summary>The modal assurance criterion: how alike two mode shapes are, from 0 (orthogonal) to 1 (the same up to scale).</summary>
 /// <remarks>
-/// Allemang &amp; Brown (1982), "A correlation coefficient for modal vector analysis", Proc. 1st IMAC:
+/// Allemang &amp; Brown (1982), "A correlation coefficient for modal vector analysis", Proc. 1st IMAC (citation from memory):
 /// MAC(a, b) = (aᵀb)² / ((aᵀa)(bᵀb)). The mass-weighted form replaces each inner product xᵀy by xᵀMy, so that
 /// distinct modes of one model score exactly 0 (common practice in model correlation); it is the one used for
 /// tracking modes through a study because neighbouring steps have nearly the same M.

@@ -5,9 +5,9 @@ using ModalChain.TestSupport;
 
 namespace ModalChain.Core.Tests.Analyses.Criteria;
 
-// Harmonic kinematics: for x = Re(X e^{iωt}), |v| = ω|X|, |a| = ω²|X|, r.m.s. = peak/√2 (any vibration textbook,
-// e.g. Rao, Mechanical Vibrations, 5th ed., §1.10 [from memory]); the r.m.s. of a sum of harmonics at different
-// frequencies is the root of the sum of squares (Parseval).
+// Harmonic kinematics: for x = Re(X e^{iωt}), |v| = ω|X|, |a| = ω²|X|, r.m.s. = peak/√2 (any vibration textbook
+// [common practice]); the r.m.s. of a sum of harmonics at different frequencies is the root of the sum of squares
+// (Parseval's theorem [common practice]), also checked here by sampling.
 public class VibrationLimitCheckTests
 {
     [Fact]

@@ -5,7 +5,7 @@ using ModalChain.TestSupport;
 
 namespace ModalChain.Core.Tests.Analyses.Studies;
 
-// Allemang & Brown (1982), Proc. 1st IMAC: MAC(a, b) = (aᵀb)²/((aᵀa)(bᵀb)): 1 for proportional vectors, 0 for orthogonal ones.
+// Allemang & Brown (1982), Proc. 1st IMAC [citation from memory]: MAC(a, b) = (aᵀb)²/((aᵀa)(bᵀb)): 1 for proportional vectors, 0 for orthogonal ones.
 public class ModalAssuranceTests
 {
     [Fact]
