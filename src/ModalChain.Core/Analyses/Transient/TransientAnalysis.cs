@@ -1,0 +1,348 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using MathNet.Numerics.LinearAlgebra;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
+using ModalChain.Core.Model;
+using ModalChain.Core.Solvers;
+
+namespace ModalChain.Core.Analyses.Transient;
+
+/// <summary>Response of a network to loads that vary in time, from given initial conditions.</summary>
+/// <remarks>
+/// Solves M ü + C u̇ + K u = f(t) for the free DOFs in absolute coordinates. A support with a prescribed acceleration
+/// a_s(t) moves with u̇_s = ∫a_s and u_s = ∫u̇_s, integrated on the time grid exactly for a_s linear between steps;
+/// it loads the free DOFs through the springs and dampers attached to it: f_i += k u_s + c u̇_s (the partition
+/// −K_fs u_s − C_fs u̇_s of the full matrices). Warnings follow common practice: at least ~10 steps per period of the
+/// highest mode that takes a significant share (≥ 1 %) of the effective mass or of a load, and a duration of at
+/// least a few periods of the lowest mode.
+/// </remarks>
+public static class TransientAnalysis
+{
+    private const double SignificantShare = 0.01;
+    private const double MinimumStepsPerPeriod = 10;
+    private const double MinimumPeriodsOfLowestMode = 3;
+
+    /// <summary>Runs <paramref name="settings"/> on <paramref name="network"/>.</summary>
+    /// <param name="network">The network.</param>
+    /// <param name="matrices">Its matrices; C is the viscous damping used by newmark, hht and exact.</param>
+    /// <param name="excitations">Forces and support accelerations acting together.</param>
+    /// <param name="initial">Initial displacements (m) and velocities (m/s) of masses; others start at rest.</param>
+    /// <param name="settings">Duration, step, method and outputs.</param>
+    /// <param name="modes">A modal result of the same network with all modes, if already computed; otherwise it is computed.</param>
+    /// <param name="progress">Receives the fraction of steps done, about 200 times per run.</param>
+    public static TransientResult Run(Network network, StructuralMatrices matrices, IReadOnlyList<TransientExcitation> excitations,
+        IReadOnlyList<InitialCondition> initial, TransientSettings settings, ModalResult? modes = null, IProgress<double>? progress = null)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        ArgumentNullException.ThrowIfNull(matrices);
+        ArgumentNullException.ThrowIfNull(excitations);
+        ArgumentNullException.ThrowIfNull(initial);
+        ArgumentNullException.ThrowIfNull(settings);
+        settings.Check();
+        var dofs = matrices.Dofs;
+        var n = matrices.Size;
+        if (n == 0) throw new ArgumentException("The network has no masses.", nameof(network));
+        var h = settings.Step;
+        var steps = settings.StepCount;
+
+        var supportMotion = SupportMotion(network, excitations, h, steps);
+        var load = BuildLoad(network, dofs, excitations, supportMotion);
+        var probes = BuildProbes(network, dofs, settings, supportMotion);
+
+        var u0 = new double[n];
+        var v0 = new double[n];
+        foreach (var ic in initial)
+        {
+            var i = dofs.IndexOf(ic.Mass);
+            if (i < 0) throw new ArgumentException($"Initial condition for unknown mass '{ic.Mass}'.", nameof(initial));
+            Guard.Finite(ic.Displacement, nameof(initial));
+            Guard.Finite(ic.Velocity, nameof(initial));
+            u0[i] = ic.Displacement;
+            v0[i] = ic.Velocity;
+        }
+
+        modes ??= ModalAnalysis.Solve(network, matrices);
+        var warnings = new List<string>();
+        var rmsFrom = settings.RmsFrom ?? 0.0;
+        var rmsTo = settings.RmsTo ?? double.PositiveInfinity;
+        var system = new LinearDynamicSystem(matrices.Mass, matrices.Damping, matrices.Stiffness);
+        string description;
+        ResponseRecorder recorder;
+        var consideredModes = modes.Modes;
+
+        switch (settings.Method)
+        {
+            case TransientMethod.Newmark:
+            case TransientMethod.Hht:
+            {
+                var integrator = new NewmarkIntegrator(settings.Method == TransientMethod.Hht ? settings.HhtAlpha : 0.0);
+                description = integrator.Name;
+                recorder = PhysicalRecorder(system, probes, settings, steps, rmsFrom, rmsTo, progress);
+                integrator.Run(system, load.AsLoadVector(), u0, v0, h, steps, recorder);
+                break;
+            }
+            case TransientMethod.Exact:
+            {
+                var integrator = new StateSpaceExactIntegrator();
+                description = integrator.Name;
+                recorder = PhysicalRecorder(system, probes, settings, steps, rmsFrom, rmsTo, progress);
+                integrator.Run(system, load.AsLoadVector(), u0, v0, h, steps, recorder);
+                break;
+            }
+            case TransientMethod.Modal:
+            {
+                var count = Math.Min(settings.ModeCount ?? modes.Modes.Length, modes.Modes.Length);
+                consideredModes = modes.Modes[..count];
+                var shapes = Matrix<double>.Build.Dense(n, count, (i, j) => consideredModes[j].Shape[i]);
+                var omega = consideredModes.Select(m => m.AngularFrequency).ToArray();
+                var zeta = ModalDamping(settings, shapes, omega, matrices.Damping, warnings);
+                var integrator = new ModalSuperpositionIntegrator();
+                description = string.Create(CultureInfo.InvariantCulture, $"{integrator.Name}, {count} of {modes.Modes.Length} modes");
+                var twoZetaOmega = omega.Select((w, j) => 2 * zeta[j] * w).ToArray();
+                recorder = new ResponseRecorder(
+                    [.. probes.Select(p => p.ToModal(shapes))],
+                    SymmetricSparseMatrix.Diagonal(Enumerable.Repeat(1.0, count).ToArray()),
+                    SymmetricSparseMatrix.Diagonal(twoZetaOmega),
+                    SymmetricSparseMatrix.Diagonal(omega.Select(w => w * w).ToArray()),
+                    h, steps, settings.RecordEvery, rmsFrom, rmsTo, progress);
+                integrator.Run(shapes, omega, zeta, matrices.Mass, load, u0, v0, h, steps, recorder);
+                var cumulative = consideredModes[^1].CumulativeEffectiveMassFraction;
+                if (count < modes.Modes.Length && cumulative < 0.9)
+                    warnings.Add(Invariant($"The {count} modes kept carry {100 * cumulative:F1} % of the effective mass (less than 90 %): responses to loads that excite higher modes are underestimated."));
+                break;
+            }
+            default:
+                throw new ArgumentOutOfRangeException(nameof(settings), settings.Method, "Unknown method.");
+        }
+
+        warnings.AddRange(StepWarnings(modes, consideredModes, load, matrices, settings, excitations));
+        var energy = recorder.Energy;
+        if (energy.MaxRelativeError > 0.01)
+            warnings.Add(Invariant($"The energy balance closes only to {100 * energy.MaxRelativeError:F2} % of the largest energy: reduce the step."));
+
+        return new TransientResult(network, settings, description, steps, recorder.Times, recorder.Histories(), energy, [.. warnings]);
+    }
+
+    private static ResponseRecorder PhysicalRecorder(LinearDynamicSystem system, List<Probe> probes, TransientSettings settings,
+        int steps, double rmsFrom, double rmsTo, IProgress<double>? progress) =>
+        new(probes, SymmetricSparseMatrix.From(system.Mass), SymmetricSparseMatrix.From(system.Damping),
+            SymmetricSparseMatrix.From(system.Stiffness), settings.Step, steps, settings.RecordEvery, rmsFrom, rmsTo, progress);
+
+    /// <summary>ζⱼ from the settings (last repeats) or from the diagonal of ΦᵀCΦ; warns when C is far from classical.</summary>
+    private static double[] ModalDamping(TransientSettings settings, Matrix<double> shapes, double[] omega, Matrix<double> c, List<string> warnings)
+    {
+        var count = omega.Length;
+        var zeta = new double[count];
+        if (!settings.ModalDampingRatios.IsEmpty)
+        {
+            for (var j = 0; j < count; j++)
+                zeta[j] = settings.ModalDampingRatios[Math.Min(j, settings.ModalDampingRatios.Length - 1)];
+            return zeta;
+        }
+        var g = shapes.TransposeThisAndMultiply(c * shapes);
+        var worst = 0.0;
+        for (var i = 0; i < count; i++)
+        {
+            zeta[i] = omega[i] > 0 ? g[i, i] / (2 * omega[i]) : 0.0;
+            for (var j = 0; j < count; j++)
+                if (i != j && g[i, i] > 0 && g[j, j] > 0) worst = Math.Max(worst, Math.Abs(g[i, j]) / Math.Sqrt(g[i, i] * g[j, j]));
+        }
+        if (worst > 0.01)
+            warnings.Add(Invariant($"The damping is not classical (coupling {worst:G3} between modes): the modal method keeps only the diagonal of ΦᵀCΦ; use newmark or exact for this model."));
+        return zeta;
+    }
+
+    private static IEnumerable<string> StepWarnings(ModalResult modes, ImmutableArray<Mode> considered, LoadSet load,
+        StructuralMatrices matrices, TransientSettings settings, IReadOnlyList<TransientExcitation> excitations)
+    {
+        var h = settings.Step;
+        var n = matrices.Size;
+        var mass = Enumerable.Range(0, n).Select(i => matrices.Mass[i, i]).ToArray();
+        var highest = considered.Where(m => !m.IsRigidBody && Significant(m, load, mass)).MaxBy(m => m.AngularFrequency);
+        if (highest is not null && highest.PeriodSeconds < MinimumStepsPerPeriod * h)
+            yield return Invariant($"The step {h:G4} s gives only {highest.PeriodSeconds / h:F1} steps per period of mode {highest.Number} ({highest.NaturalFrequencyHz:G4} Hz), which takes a significant share of the mass or load: use at most {highest.PeriodSeconds / MinimumStepsPerPeriod:G3} s (about 10 steps per period, common practice).");
+
+        var lowest = modes.Modes.FirstOrDefault(m => !m.IsRigidBody);
+        if (lowest is not null && settings.Duration < MinimumPeriodsOfLowestMode * lowest.PeriodSeconds)
+            yield return Invariant($"The duration {settings.Duration:G4} s covers only {settings.Duration / lowest.PeriodSeconds:F2} periods of the lowest mode ({lowest.NaturalFrequencyHz:G4} Hz): run at least {MinimumPeriodsOfLowestMode * lowest.PeriodSeconds:G3} s to see its response.");
+
+        foreach (var e in excitations)
+        {
+            var f = e switch { ForceHistory fh => fh.Time, SupportAccelerationHistory sa => sa.Acceleration, _ => null };
+            var highestHz = f switch
+            {
+                SineFunction s => Math.Abs(s.FrequencyHz),
+                UnbalanceSpeedRamp r => Math.Max(r.FromRadPerSecond, r.ToRadPerSecond) / (2 * Math.PI),
+                _ => 0.0,
+            };
+            if (highestHz > 0 && highestHz * h * MinimumStepsPerPeriod > 1)
+                yield return Invariant($"Load '{e.Name}' reaches {highestHz:G4} Hz: the step {h:G4} s gives only {1 / (highestHz * h):F1} steps per cycle of the load.");
+            var pulse = f switch { RectangularPulse r => r.Duration, HalfSinePulse s => s.Duration, _ => double.PositiveInfinity };
+            if (pulse < MinimumStepsPerPeriod * h)
+                yield return Invariant($"Load '{e.Name}' lasts {pulse:G4} s, only {pulse / h:F1} steps: its shape is poorly resolved.");
+            if (f is TableFunction table)
+            {
+                var finest = Enumerable.Range(1, table.Times.Length - 1).Min(i => table.Times[i] - table.Times[i - 1]);
+                if (finest < h * (1 - 1e-9))
+                    yield return Invariant($"Load '{e.Name}' is sampled every {finest:G4} s, finer than the step {h:G4} s: samples between steps are skipped.");
+            }
+        }
+    }
+
+    /// <summary>A mode is significant when it carries ≥ 1 % of the effective mass or of a load term's (φᵀb)²/(bᵀM⁻¹b).</summary>
+    private static bool Significant(Mode mode, LoadSet load, double[] mass)
+    {
+        if (mode.EffectiveMassFraction >= SignificantShare) return true;
+        foreach (var term in load.Terms)
+        {
+            double projection = 0, norm = 0;
+            foreach (var (dof, w) in term.Distribution)
+            {
+                projection += w * mode.Shape[dof];
+                norm += w * w / mass[dof];
+            }
+            if (norm > 0 && projection * projection / norm >= SignificantShare) return true;
+        }
+        return false;
+    }
+
+    /// <summary>Displacement and velocity histories of each moving support, integrated on the step grid.</summary>
+    private static Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> SupportMotion(
+        Network network, IReadOnlyList<TransientExcitation> excitations, double h, int steps)
+    {
+        var motion = new Dictionary<string, (TimeFunction, TimeFunction)>();
+        foreach (var group in excitations.OfType<SupportAccelerationHistory>().GroupBy(e => e.Support))
+        {
+            if (group.Key == Network.Ground)
+                throw new ArgumentException("Ground is fixed; prescribe motion at another support.", nameof(excitations));
+            if (!network.IsSupport(group.Key))
+                throw new ArgumentException($"Support motion '{group.First().Name}' refers to unknown support '{group.Key}'.", nameof(excitations));
+            var d = new double[steps + 1];
+            var v = new double[steps + 1];
+            var aOld = group.Sum(e => e.Acceleration.ValueAt(0));
+            for (var s = 1; s <= steps; s++)
+            {
+                var aNew = group.Sum(e => e.Acceleration.ValueAt(s * h));
+                d[s] = d[s - 1] + h * v[s - 1] + h * h / 6 * (2 * aOld + aNew);
+                v[s] = v[s - 1] + 0.5 * h * (aOld + aNew);
+                aOld = aNew;
+            }
+            motion[group.Key] = (new GridHistory(h, d), new GridHistory(h, v));
+        }
+        return motion;
+    }
+
+    private static LoadSet BuildLoad(Network network, Dofs.DofMap dofs, IReadOnlyList<TransientExcitation> excitations,
+        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
+    {
+        var terms = new List<LoadTerm>();
+        foreach (var e in excitations.OfType<ForceHistory>())
+        {
+            var i = dofs.IndexOf(e.Mass);
+            if (i < 0) throw new ArgumentException($"Load '{e.Name}' acts at unknown mass '{e.Mass}'.", nameof(excitations));
+            Guard.Finite(e.Scale, nameof(excitations));
+            terms.Add(new LoadTerm([(i, e.Scale)], e.Time));
+        }
+        foreach (var (support, (displacement, velocity)) in supportMotion)
+        {
+            foreach (var s in network.Springs)
+                if (Other(s.NodeA, s.NodeB, support, dofs) is { } i && s.Stiffness > 0)
+                    terms.Add(new LoadTerm([(i, s.Stiffness)], displacement));
+            foreach (var d in network.Dampers)
+                if (Other(d.NodeA, d.NodeB, support, dofs) is { } i && d.Coefficient > 0)
+                    terms.Add(new LoadTerm([(i, d.Coefficient)], velocity));
+        }
+        return new LoadSet(dofs.Count, [.. terms]);
+    }
+
+    /// <summary>The DOF at the other end of an element with one end on <paramref name="support"/>, or null.</summary>
+    private static int? Other(string a, string b, string support, Dofs.DofMap dofs)
+    {
+        if (a == support && dofs.IndexOf(b) is var ib and >= 0) return ib;
+        if (b == support && dofs.IndexOf(a) is var ia and >= 0) return ia;
+        return null;
+    }
+
+    private static List<Probe> BuildProbes(Network network, Dofs.DofMap dofs, TransientSettings settings,
+        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
+    {
+        var outputs = settings.Outputs.IsEmpty ? [.. network.Masses.Select(m => m.Name)] : settings.Outputs;
+        var probes = new List<Probe>();
+        foreach (var name in outputs)
+        {
+            var i = dofs.IndexOf(name);
+            if (i < 0) throw new ArgumentException($"Output '{name}' is not a mass.", nameof(settings));
+            probes.Add(new Probe(name, ResponseQuantity.Displacement, [(i, 1.0)], [], [], []));
+            probes.Add(new Probe(name, ResponseQuantity.Velocity, [], [(i, 1.0)], [], []));
+            probes.Add(new Probe(name, ResponseQuantity.Acceleration, [], [], [(i, 1.0)], []));
+        }
+
+        var wanted = outputs.ToHashSet();
+        bool Recorded(string a, string b) => wanted.Contains(a) || wanted.Contains(b) || network.IsSupport(a) || network.IsSupport(b);
+
+        // End B minus end A; a support end contributes its prescribed motion, or nothing when it is fixed.
+        (List<(int, double)> State, List<(double, TimeFunction)> Known) Difference(string a, string b, double value, bool velocity)
+        {
+            var state = new List<(int, double)>();
+            var known = new List<(double, TimeFunction)>();
+            foreach (var (node, sign) in new[] { (b, 1.0), (a, -1.0) })
+            {
+                var i = dofs.IndexOf(node);
+                if (i >= 0) state.Add((i, sign * value));
+                else if (supportMotion.TryGetValue(node, out var m)) known.Add((sign * value, velocity ? m.Velocity : m.Displacement));
+            }
+            return (state, known);
+        }
+
+        foreach (var s in network.Springs.Where(s => Recorded(s.NodeA, s.NodeB)))
+        {
+            var (state, known) = Difference(s.NodeA, s.NodeB, s.Stiffness, velocity: false);
+            probes.Add(new Probe(s.Name, ResponseQuantity.SpringForce, [.. state], [], [], [.. known]));
+        }
+        foreach (var d in network.Dampers.Where(d => Recorded(d.NodeA, d.NodeB)))
+        {
+            var (state, known) = Difference(d.NodeA, d.NodeB, d.Coefficient, velocity: true);
+            probes.Add(new Probe(d.Name, ResponseQuantity.DamperForce, [], [.. state], [], [.. known]));
+        }
+
+        foreach (var support in network.Supports)
+        {
+            // Force on the support from each element: value × (u_other − u_support).
+            var u = new List<(int, double)>();
+            var v = new List<(int, double)>();
+            var known = new List<(double, TimeFunction)>();
+            var attached = false;
+            void Add(string a, string b, double value, bool velocity)
+            {
+                if (a != support.Name && b != support.Name) return;
+                attached = true;
+                var other = a == support.Name ? b : a;
+                var i = dofs.IndexOf(other);
+                if (i >= 0) (velocity ? v : u).Add((i, value));
+                else if (supportMotion.TryGetValue(other, out var m)) known.Add((value, velocity ? m.Velocity : m.Displacement));
+                if (supportMotion.TryGetValue(support.Name, out var own)) known.Add((-value, velocity ? own.Velocity : own.Displacement));
+            }
+            foreach (var s in network.Springs) Add(s.NodeA, s.NodeB, s.Stiffness, velocity: false);
+            foreach (var d in network.Dampers) Add(d.NodeA, d.NodeB, d.Coefficient, velocity: true);
+            if (attached) probes.Add(new Probe(support.Name, ResponseQuantity.Reaction, [.. u], [.. v], [], [.. known]));
+        }
+        return probes;
+    }
+
+    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
+
+    /// <summary>A history known on the step grid, linear between grid points and held after the last one.</summary>
+    private sealed record GridHistory(double Step, double[] Values) : TimeFunction
+    {
+        public override double ValueAt(double time)
+        {
+            var x = time / Step;
+            if (x <= 0) return Values[0];
+            var i = (int)x;
+            if (i >= Values.Length - 1) return Values[^1];
+            var w = x - i;
+            return w < 1e-9 ? Values[i] : Values[i] + w * (Values[i + 1] - Values[i]);
+        }
+    }
+}
