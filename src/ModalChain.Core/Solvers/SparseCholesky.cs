@@ -1,3 +1,6 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
+
 namespace ModalChain.Core.Solvers;
 
 /// <summary>Sparse Cholesky factorisation P A Pᵀ = L Lᵀ of a symmetric positive definite matrix, ordered by minimum degree.</summary>
@@ -108,21 +111,31 @@ public sealed class SparseCholesky
         var n = Size;
         if (b.Length != n || x.Length != n)
             throw new ArgumentException($"The factor is {n}×{n} but b has {b.Length} and x {x.Length} entries.");
-        var y = _scratch.AsSpan();
-        for (var k = 0; k < n; k++) y[k] = b[_permutation[k]];
+        // Index checks are removed by hand in this innermost loop of time stepping; the indices come from the
+        // symbolic factorisation, which only produces rows inside 0..n−1.
+        ref var y = ref MemoryMarshal.GetArrayDataReference(_scratch);
+        ref var perm = ref MemoryMarshal.GetArrayDataReference(_permutation);
+        ref var start = ref MemoryMarshal.GetArrayDataReference(_columnStart);
+        ref var rows = ref MemoryMarshal.GetArrayDataReference(_rows);
+        ref var values = ref MemoryMarshal.GetArrayDataReference(_values);
+        for (var k = 0; k < n; k++) Unsafe.Add(ref y, k) = b[Unsafe.Add(ref perm, k)];
         for (var j = 0; j < n; j++)
         {
-            var yj = y[j] / _values[_columnStart[j]];
-            y[j] = yj;
-            for (var p = _columnStart[j] + 1; p < _columnStart[j + 1]; p++) y[_rows[p]] -= _values[p] * yj;
+            var first = Unsafe.Add(ref start, j);
+            var end = Unsafe.Add(ref start, j + 1);
+            var yj = Unsafe.Add(ref y, j) / Unsafe.Add(ref values, first);
+            Unsafe.Add(ref y, j) = yj;
+            for (var p = first + 1; p < end; p++) Unsafe.Add(ref y, Unsafe.Add(ref rows, p)) -= Unsafe.Add(ref values, p) * yj;
         }
         for (var j = n - 1; j >= 0; j--)
         {
-            var sum = y[j];
-            for (var p = _columnStart[j] + 1; p < _columnStart[j + 1]; p++) sum -= _values[p] * y[_rows[p]];
-            y[j] = sum / _values[_columnStart[j]];
+            var first = Unsafe.Add(ref start, j);
+            var end = Unsafe.Add(ref start, j + 1);
+            var sum = Unsafe.Add(ref y, j);
+            for (var p = first + 1; p < end; p++) sum -= Unsafe.Add(ref values, p) * Unsafe.Add(ref y, Unsafe.Add(ref rows, p));
+            Unsafe.Add(ref y, j) = sum / Unsafe.Add(ref values, first);
         }
-        for (var k = 0; k < n; k++) x[_permutation[k]] = y[k];
+        for (var k = 0; k < n; k++) x[Unsafe.Add(ref perm, k)] = Unsafe.Add(ref y, k);
     }
 
     /// <summary>The elimination game with the minimum degree rule: ordering, its inverse and the pattern of each column of L.</summary>

@@ -1,3 +1,5 @@
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 using MathNet.Numerics.LinearAlgebra;
 
 namespace ModalChain.Core.Solvers;
@@ -12,6 +14,8 @@ public sealed class SymmetricSparseMatrix
     private readonly int[] _rowStart;
     private readonly int[] _columns;
     private readonly double[] _values;
+    private readonly int[] _rowsWithEntries;
+    private readonly double[] _diagonal;
 
     private SymmetricSparseMatrix(int size, int[] rowStart, int[] columns, double[] values)
     {
@@ -19,6 +23,11 @@ public sealed class SymmetricSparseMatrix
         _rowStart = rowStart;
         _columns = columns;
         _values = values;
+        _rowsWithEntries = [.. Enumerable.Range(0, size).Where(i => rowStart[i + 1] > rowStart[i])];
+        _diagonal = new double[size];
+        for (var i = 0; i < size; i++)
+            for (var p = rowStart[i]; p < rowStart[i + 1]; p++)
+                if (columns[p] == i) _diagonal[i] = values[p];
     }
 
     /// <summary>Number of rows (= columns).</summary>
@@ -26,6 +35,9 @@ public sealed class SymmetricSparseMatrix
 
     /// <summary>Number of stored entries (both triangles).</summary>
     public int NonZeros => _values.Length;
+
+    /// <summary>The rows (= columns, by symmetry) that hold at least one entry; a product reads only these entries of its argument.</summary>
+    public ReadOnlySpan<int> ActiveIndices => _rowsWithEntries;
 
     /// <summary>True when no entry lies off the diagonal.</summary>
     public bool IsDiagonal { get; private init; }
@@ -108,57 +120,74 @@ public sealed class SymmetricSparseMatrix
     /// <summary>Writes y = A x into <paramref name="y"/>; no allocation.</summary>
     public void Multiply(ReadOnlySpan<double> x, Span<double> y)
     {
-        if (x.Length != Size || y.Length != Size)
-            throw new ArgumentException($"The matrix is {Size}×{Size} but x has {x.Length} and y {y.Length} entries.");
-        for (var i = 0; i < Size; i++)
-        {
-            var sum = 0.0;
-            for (var p = _rowStart[i]; p < _rowStart[i + 1]; p++) sum += _values[p] * x[_columns[p]];
-            y[i] = sum;
-        }
+        y.Clear();
+        MultiplyAdd(1.0, x, y);
     }
 
     /// <summary>Adds w·A x to <paramref name="y"/>; no allocation.</summary>
     public void MultiplyAdd(double weight, ReadOnlySpan<double> x, Span<double> y)
     {
-        if (x.Length != Size || y.Length != Size)
-            throw new ArgumentException($"The matrix is {Size}×{Size} but x has {x.Length} and y {y.Length} entries.");
-        for (var i = 0; i < Size; i++)
+        CheckLength(x, y);
+        ref var xr = ref MemoryMarshal.GetReference(x);
+        if (IsDiagonal)
         {
-            var sum = 0.0;
-            for (var p = _rowStart[i]; p < _rowStart[i + 1]; p++) sum += _values[p] * x[_columns[p]];
-            y[i] += weight * sum;
+            for (var i = 0; i < Size; i++) y[i] += weight * _diagonal[i] * Unsafe.Add(ref xr, i);
+            return;
         }
+        foreach (var i in _rowsWithEntries)
+            y[i] += weight * RowDot(i, ref xr);
     }
 
     /// <summary>The quadratic form xᵀ A x; no allocation.</summary>
     public double QuadraticForm(ReadOnlySpan<double> x)
     {
+        CheckLength(x, x);
+        ref var xr = ref MemoryMarshal.GetReference(x);
         var total = 0.0;
-        for (var i = 0; i < Size; i++)
+        if (IsDiagonal)
         {
-            var sum = 0.0;
-            for (var p = _rowStart[i]; p < _rowStart[i + 1]; p++) sum += _values[p] * x[_columns[p]];
-            total += x[i] * sum;
+            for (var i = 0; i < Size; i++) total += _diagonal[i] * x[i] * x[i];
+            return total;
         }
+        foreach (var i in _rowsWithEntries) total += x[i] * RowDot(i, ref xr);
         return total;
     }
 
     /// <summary>The quadratic form (x + y)ᵀ A (x + y) without forming x + y; no allocation.</summary>
     public double QuadraticFormOfSum(ReadOnlySpan<double> x, ReadOnlySpan<double> y)
     {
+        CheckLength(x, y);
+        ref var xr = ref MemoryMarshal.GetReference(x);
+        ref var yr = ref MemoryMarshal.GetReference(y);
         var total = 0.0;
-        for (var i = 0; i < Size; i++)
+        foreach (var i in _rowsWithEntries)
         {
             var sum = 0.0;
             for (var p = _rowStart[i]; p < _rowStart[i + 1]; p++)
             {
                 var c = _columns[p];
-                sum += _values[p] * (x[c] + y[c]);
+                sum += _values[p] * (Unsafe.Add(ref xr, c) + Unsafe.Add(ref yr, c));
             }
             total += (x[i] + y[i]) * sum;
         }
         return total;
+    }
+
+    /// <summary>Σ_p A[i, col_p] x[col_p] over the stored entries of row i; the column indices are in range by construction.</summary>
+    private double RowDot(int i, ref double x)
+    {
+        var sum = 0.0;
+        ref var columns = ref MemoryMarshal.GetArrayDataReference(_columns);
+        ref var values = ref MemoryMarshal.GetArrayDataReference(_values);
+        var end = _rowStart[i + 1];
+        for (var p = _rowStart[i]; p < end; p++) sum += Unsafe.Add(ref values, p) * Unsafe.Add(ref x, Unsafe.Add(ref columns, p));
+        return sum;
+    }
+
+    private void CheckLength(ReadOnlySpan<double> x, ReadOnlySpan<double> y)
+    {
+        if (x.Length != Size || y.Length != Size)
+            throw new ArgumentException($"The matrix is {Size}×{Size} but the vectors have {x.Length} and {y.Length} entries.");
     }
 
     /// <summary>A dense copy (for tests and small models).</summary>

@@ -10,9 +10,10 @@ namespace ModalChain.Core.Analyses.Transient;
 /// M ü₊ + (1 + α)(C u̇₊ + K u₊) − α (C u̇ + K u) = (1 + α) f₊ − α f, with α ∈ [−⅓, 0], β = (1 − α)²/4, γ = ½ − α.
 /// α = 0 is the average-acceleration method (β = ¼, γ = ½): unconditionally stable and without amplitude decay for
 /// linear systems; α &lt; 0 damps the highest frequencies while keeping second-order accuracy.
-/// Solved in increments Δ = u₊ − u: K̂ Δ = (1 + α) f₊ − α f − K u + M(u̇/(βh) + (1/(2β) − 1) ü) − C(c_v u̇ + c_a ü), with
-/// K̂ = M/(βh²) + (1 + α) γ/(βh) C + (1 + α) K factorised once (sparse Cholesky), c_v = (1 + α)(1 − γ/β) − α and
-/// c_a = (1 + α) h (1 − γ/(2β)); then ü₊ = Δ/(βh²) − u̇/(βh) − (1/(2β) − 1) ü and u̇₊ from the Newmark relation.
+/// Each step solves K̂ u₊ = (1 + α) f₊ − α f + α K u + M(a₀u + a₂u̇ + a₃ü) + C((1 + α) a₁ u − c_v u̇ − c_a ü) with
+/// K̂ = a₀M + (1 + α) a₁ C + (1 + α) K factorised once (sparse Cholesky), a₀ = 1/(βh²), a₁ = γ/(βh), a₂ = 1/(βh),
+/// a₃ = 1/(2β) − 1, c_v = (1 + α)(1 − γ/β) − α and c_a = (1 + α) h (1 − γ/(2β)); then ü₊ = a₀(u₊ − u) − a₂u̇ − a₃ü and
+/// u̇₊ from the Newmark relation. For α = 0 the step needs no product with K, only with the diagonal M and with C.
 /// </remarks>
 public sealed class NewmarkIntegrator
 {
@@ -80,35 +81,46 @@ public sealed class NewmarkIntegrator
         var fNew = new double[n];
         var rhs = new double[n];
         var work = new double[n];
-        var delta = new double[n];
+        var next = new double[n];
 
         load(0, fOld);
         Integration.InitialAcceleration(m, c, k, fOld, u, v, a);
         sink.Accept(0, 0, u, v, a, fOld);
 
+        var massDiagonal = m.IsDiagonal ? Enumerable.Range(0, n).Select(i => m[i, i]).ToArray() : null;
+        var damped = c.ActiveIndices;
         for (var s = 1; s <= stepCount; s++)
         {
             var t = s * h;
             load(t, fNew);
-            k.Multiply(u, rhs);
+            if (massDiagonal is not null)
+            {
+                for (var i = 0; i < n; i++)
+                    rhs[i] = onePlusAlpha * fNew[i] - Alpha * fOld[i] + massDiagonal[i] * (a0 * u[i] + a2 * v[i] + a3 * a[i]);
+            }
+            else
+            {
+                for (var i = 0; i < n; i++)
+                {
+                    rhs[i] = onePlusAlpha * fNew[i] - Alpha * fOld[i];
+                    work[i] = a0 * u[i] + a2 * v[i] + a3 * a[i];
+                }
+                m.MultiplyAdd(1, work, rhs);
+            }
+            if (Alpha != 0) k.MultiplyAdd(Alpha, u, rhs);
+            if (damped.Length > 0)
+            {
+                // C only reads the DOFs that have a damper, so only those entries of its argument are formed.
+                foreach (var i in damped) work[i] = onePlusAlpha * a1 * u[i] - cv * v[i] - ca * a[i];
+                c.MultiplyAdd(1, work, rhs);
+            }
+            effective.Solve(rhs, next);
             for (var i = 0; i < n; i++)
             {
-                rhs[i] = onePlusAlpha * fNew[i] - Alpha * fOld[i] - rhs[i];
-                work[i] = a2 * v[i] + a3 * a[i];
-            }
-            m.MultiplyAdd(1, work, rhs);
-            if (c.NonZeros > 0)
-            {
-                for (var i = 0; i < n; i++) work[i] = cv * v[i] + ca * a[i];
-                c.MultiplyAdd(-1, work, rhs);
-            }
-            effective.Solve(rhs, delta);
-            for (var i = 0; i < n; i++)
-            {
-                var aNew = a0 * delta[i] - a2 * v[i] - a3 * a[i];
+                var aNew = a0 * (next[i] - u[i]) - a2 * v[i] - a3 * a[i];
                 v[i] += h * ((1 - Gamma) * a[i] + Gamma * aNew);
                 a[i] = aNew;
-                u[i] += delta[i];
+                u[i] = next[i];
             }
             sink.Accept(s, t, u, v, a, fNew);
             (fOld, fNew) = (fNew, fOld);

@@ -42,7 +42,7 @@ public sealed record ResponseHistory(string Name, ResponseQuantity Quantity, str
 /// <summary>The energy balance of a run, a quality figure: E₀ + W = T + V + D up to the integration error.</summary>
 /// <remarks>
 /// T = ½u̇ᵀMu̇, V = ½uᵀKu at each step; W = Σ ½(f + f₊)·(u₊ − u) and D = Σ (h/4)(u̇ + u̇₊)ᵀC(u̇ + u̇₊) accumulate
-/// by the trapezoidal rule. For average acceleration the balance is an exact identity of the scheme; for the other
+/// by the trapezoidal rule every step; the balance is closed every tenth step and at the end. For average acceleration the balance is an exact identity of the scheme; for the other
 /// methods it holds to the order of the rule. With a moving support, u is absolute and W is the work of the
 /// forces the support's motion puts into the free DOFs. For modal superposition the figures are those of the
 /// retained modes.
