@@ -23,9 +23,9 @@ public static class TransientAnalysis
     private const double MinimumStepsPerPeriod = 10;
     private const double MinimumPeriodsOfLowestMode = 3;
 
-    /// <summary>Runs <paramref name="settings"/> on <paramref name="network"/>.</summary>
+    /// <summary>Runs <paramref name="settings"/> on <paramref name="network"/> damped by its discrete dampers only.</summary>
     /// <param name="network">The network.</param>
-    /// <param name="matrices">Its matrices; C is the viscous damping used by newmark, hht and exact.</param>
+    /// <param name="matrices">Its matrices; C (the discrete dampers) is the viscous damping used by newmark, hht and exact.</param>
     /// <param name="excitations">Forces and support accelerations acting together.</param>
     /// <param name="initial">Initial displacements (m) and velocities (m/s) of masses; others start at rest.</param>
     /// <param name="settings">Duration, step, method and outputs.</param>
@@ -36,6 +36,37 @@ public static class TransientAnalysis
     {
         ArgumentNullException.ThrowIfNull(network);
         ArgumentNullException.ThrowIfNull(matrices);
+        return Run(network, matrices, SupportCoupling.FromElements(network, matrices.Dofs), null, excitations, initial, settings,
+            modes, progress, []);
+    }
+
+    /// <summary>Runs <paramref name="settings"/> on an assembled model with its full damping model (dampers, Rayleigh, modal).</summary>
+    /// <remarks>
+    /// C is <see cref="DampingMatrices.FF"/> of <paramref name="system"/> and the supports couple through K_fp, C_fp, K_pp and
+    /// C_pp of its partition, so distributed damping that acts on motion relative to the supports is kept. The modal method
+    /// uses the system's modal damping ratios unless the settings give their own. A loss factor has no time-domain form and
+    /// is left out, with a warning.
+    /// </remarks>
+    public static TransientResult Run(DampedSystem system, IReadOnlyList<TransientExcitation> excitations,
+        IReadOnlyList<InitialCondition> initial, TransientSettings settings, IProgress<double>? progress = null)
+    {
+        ArgumentNullException.ThrowIfNull(system);
+        var network = system.Model.Network;
+        var p = system.Partition;
+        var matrices = new StructuralMatrices(p.Free, p.Mass, p.StiffnessFF, system.Damping.FF,
+            Vector<double>.Build.Dense(p.FreeCount, 1.0), MassIsDiagonal: true);
+        var coupling = new SupportCoupling(p.Supports, p.StiffnessFP, system.Damping.FP, p.StiffnessPP, system.Damping.PP);
+        var notes = new List<string>();
+        if (system.LossFactor > 0)
+            notes.Add(Invariant($"The loss factor η = {system.LossFactor:G3} is a frequency-domain model and is left out of this time history; give modal or Rayleigh damping (ζ ≈ η/2 at resonance) for transient runs."));
+        var ratios = system.ModalDampingRatios.Select(z => double.IsNaN(z) ? 0.0 : z - system.LossFactor / 2).ToImmutableArray();
+        return Run(network, matrices, coupling, ratios, excitations, initial, settings, system.Modes, progress, notes);
+    }
+
+    private static TransientResult Run(Network network, StructuralMatrices matrices, SupportCoupling coupling, ImmutableArray<double>? modalRatios,
+        IReadOnlyList<TransientExcitation> excitations, IReadOnlyList<InitialCondition> initial, TransientSettings settings,
+        ModalResult? modes, IProgress<double>? progress, List<string> notes)
+    {
         ArgumentNullException.ThrowIfNull(excitations);
         ArgumentNullException.ThrowIfNull(initial);
         ArgumentNullException.ThrowIfNull(settings);
@@ -47,8 +78,8 @@ public static class TransientAnalysis
         var steps = settings.StepCount;
 
         var supportMotion = SupportMotion(network, excitations, h, steps);
-        var load = BuildLoad(network, dofs, excitations, supportMotion);
-        var probes = BuildProbes(network, dofs, settings, supportMotion);
+        var load = BuildLoad(dofs, excitations, coupling, supportMotion);
+        var probes = BuildProbes(network, dofs, settings, coupling, supportMotion);
 
         var u0 = new double[n];
         var v0 = new double[n];
@@ -63,7 +94,7 @@ public static class TransientAnalysis
         }
 
         modes ??= ModalAnalysis.Solve(network, matrices);
-        var warnings = new List<string>();
+        var warnings = notes;
         var rmsFrom = settings.RmsFrom ?? 0.0;
         var rmsTo = settings.RmsTo ?? double.PositiveInfinity;
         var system = new LinearDynamicSystem(matrices.Mass, matrices.Damping, matrices.Stiffness);
@@ -96,7 +127,7 @@ public static class TransientAnalysis
                 consideredModes = modes.Modes[..count];
                 var shapes = Matrix<double>.Build.Dense(n, count, (i, j) => consideredModes[j].Shape[i]);
                 var omega = consideredModes.Select(m => m.AngularFrequency).ToArray();
-                var zeta = ModalDamping(settings, shapes, omega, matrices.Damping, warnings);
+                var zeta = ModalDamping(settings, modalRatios, shapes, omega, matrices.Damping, warnings);
                 var integrator = new ModalSuperpositionIntegrator();
                 description = string.Create(CultureInfo.InvariantCulture, $"{integrator.Name}, {count} of {modes.Modes.Length} modes");
                 var twoZetaOmega = omega.Select((w, j) => 2 * zeta[j] * w).ToArray();
@@ -130,7 +161,8 @@ public static class TransientAnalysis
             SymmetricSparseMatrix.From(system.Stiffness), settings.Step, steps, settings.RecordEvery, rmsFrom, rmsTo, progress);
 
     /// <summary>ζⱼ from the settings (last repeats) or from the diagonal of ΦᵀCΦ; warns when C is far from classical.</summary>
-    private static double[] ModalDamping(TransientSettings settings, Matrix<double> shapes, double[] omega, Matrix<double> c, List<string> warnings)
+    private static double[] ModalDamping(TransientSettings settings, ImmutableArray<double>? given, Matrix<double> shapes, double[] omega,
+        Matrix<double> c, List<string> warnings)
     {
         var count = omega.Length;
         var zeta = new double[count];
@@ -140,11 +172,15 @@ public static class TransientAnalysis
                 zeta[j] = settings.ModalDampingRatios[Math.Min(j, settings.ModalDampingRatios.Length - 1)];
             return zeta;
         }
+        if (given is { } ratios && ratios.Length >= count)
+        {
+            for (var j = 0; j < count; j++) zeta[j] = Math.Max(0, ratios[j]);
+        }
         var g = shapes.TransposeThisAndMultiply(c * shapes);
         var worst = 0.0;
         for (var i = 0; i < count; i++)
         {
-            zeta[i] = omega[i] > 0 ? g[i, i] / (2 * omega[i]) : 0.0;
+            if (given is null || given.Value.Length < count) zeta[i] = omega[i] > 0 ? g[i, i] / (2 * omega[i]) : 0.0;
             for (var j = 0; j < count; j++)
                 if (i != j && g[i, i] > 0 && g[j, j] > 0) worst = Math.Max(worst, Math.Abs(g[i, j]) / Math.Sqrt(g[i, i] * g[j, j]));
         }
@@ -233,7 +269,7 @@ public static class TransientAnalysis
         return motion;
     }
 
-    private static LoadSet BuildLoad(Network network, Dofs.DofMap dofs, IReadOnlyList<TransientExcitation> excitations,
+    private static LoadSet BuildLoad(Dofs.DofMap dofs, IReadOnlyList<TransientExcitation> excitations, SupportCoupling coupling,
         Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
     {
         var terms = new List<LoadTerm>();
@@ -244,27 +280,22 @@ public static class TransientAnalysis
             Guard.Finite(e.Scale, nameof(excitations));
             terms.Add(new LoadTerm([(i, e.Scale)], e.Time));
         }
+        // A moving support loads the free DOFs by −K_fp u_s − C_fp u̇_s.
         foreach (var (support, (displacement, velocity)) in supportMotion)
         {
-            foreach (var s in network.Springs)
-                if (Other(s.NodeA, s.NodeB, support, dofs) is { } i && s.Stiffness > 0)
-                    terms.Add(new LoadTerm([(i, s.Stiffness)], displacement));
-            foreach (var d in network.Dampers)
-                if (Other(d.NodeA, d.NodeB, support, dofs) is { } i && d.Coefficient > 0)
-                    terms.Add(new LoadTerm([(i, d.Coefficient)], velocity));
+            var s = coupling.Supports.IndexOf(support);
+            var k = Column(coupling.StiffnessFP, s);
+            var c = Column(coupling.DampingFP, s);
+            if (k.Length > 0) terms.Add(new LoadTerm([.. k.Select(e => (e.Index, -e.Value))], displacement));
+            if (c.Length > 0) terms.Add(new LoadTerm([.. c.Select(e => (e.Index, -e.Value))], velocity));
         }
         return new LoadSet(dofs.Count, [.. terms]);
     }
 
-    /// <summary>The DOF at the other end of an element with one end on <paramref name="support"/>, or null.</summary>
-    private static int? Other(string a, string b, string support, Dofs.DofMap dofs)
-    {
-        if (a == support && dofs.IndexOf(b) is var ib and >= 0) return ib;
-        if (b == support && dofs.IndexOf(a) is var ia and >= 0) return ia;
-        return null;
-    }
+    private static (int Index, double Value)[] Column(Matrix<double> m, int column) =>
+        [.. Enumerable.Range(0, m.RowCount).Select(i => (i, m[i, column])).Where(e => e.Item2 != 0)];
 
-    private static List<Probe> BuildProbes(Network network, Dofs.DofMap dofs, TransientSettings settings,
+    private static List<Probe> BuildProbes(Network network, Dofs.DofMap dofs, TransientSettings settings, SupportCoupling coupling,
         Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
     {
         var outputs = settings.Outputs.IsEmpty ? [.. network.Masses.Select(m => m.Name)] : settings.Outputs;
@@ -281,12 +312,12 @@ public static class TransientAnalysis
         var wanted = outputs.ToHashSet();
         bool Recorded(string a, string b) => wanted.Contains(a) || wanted.Contains(b) || network.IsSupport(a) || network.IsSupport(b);
 
-        // End B minus end A; a support end contributes its prescribed motion, or nothing when it is fixed.
+        // value × (end A − end B); a support end contributes its prescribed motion, or nothing when it is fixed.
         (List<(int, double)> State, List<(double, TimeFunction)> Known) Difference(string a, string b, double value, bool velocity)
         {
             var state = new List<(int, double)>();
             var known = new List<(double, TimeFunction)>();
-            foreach (var (node, sign) in new[] { (b, 1.0), (a, -1.0) })
+            foreach (var (node, sign) in new[] { (a, 1.0), (b, -1.0) })
             {
                 var i = dofs.IndexOf(node);
                 if (i >= 0) state.Add((i, sign * value));
@@ -306,26 +337,23 @@ public static class TransientAnalysis
             probes.Add(new Probe(d.Name, ResponseQuantity.DamperForce, [], [.. state], [], [.. known]));
         }
 
-        foreach (var support in network.Supports)
+        // Force received by support s: r_s = −(K_pf u + C_pf u̇ + K_pp u_p + C_pp u̇_p), K_pf = K_fpᵀ.
+        for (var s = 0; s < coupling.Supports.Length; s++)
         {
-            // Force on the support from each element: value × (u_other − u_support).
-            var u = new List<(int, double)>();
-            var v = new List<(int, double)>();
+            var u = Column(coupling.StiffnessFP, s).Select(e => (e.Index, -e.Value)).ToList();
+            var v = Column(coupling.DampingFP, s).Select(e => (e.Index, -e.Value)).ToList();
             var known = new List<(double, TimeFunction)>();
-            var attached = false;
-            void Add(string a, string b, double value, bool velocity)
+            var attached = u.Count > 0 || v.Count > 0;
+            for (var t = 0; t < coupling.Supports.Length; t++)
             {
-                if (a != support.Name && b != support.Name) return;
-                attached = true;
-                var other = a == support.Name ? b : a;
-                var i = dofs.IndexOf(other);
-                if (i >= 0) (velocity ? v : u).Add((i, value));
-                else if (supportMotion.TryGetValue(other, out var m)) known.Add((value, velocity ? m.Velocity : m.Displacement));
-                if (supportMotion.TryGetValue(support.Name, out var own)) known.Add((-value, velocity ? own.Velocity : own.Displacement));
+                var kst = coupling.StiffnessPP[s, t];
+                var cst = coupling.DampingPP[s, t];
+                attached |= kst != 0 || cst != 0;
+                if (!supportMotion.TryGetValue(coupling.Supports[t], out var m)) continue;
+                if (kst != 0) known.Add((-kst, m.Displacement));
+                if (cst != 0) known.Add((-cst, m.Velocity));
             }
-            foreach (var s in network.Springs) Add(s.NodeA, s.NodeB, s.Stiffness, velocity: false);
-            foreach (var d in network.Dampers) Add(d.NodeA, d.NodeB, d.Coefficient, velocity: true);
-            if (attached) probes.Add(new Probe(support.Name, ResponseQuantity.Reaction, [.. u], [.. v], [], [.. known]));
+            if (attached) probes.Add(new Probe(coupling.Supports[s], ResponseQuantity.Reaction, [.. u], [.. v], [], [.. known]));
         }
         return probes;
     }
@@ -343,6 +371,40 @@ public static class TransientAnalysis
             if (i >= Values.Length - 1) return Values[^1];
             var w = x - i;
             return w < 1e-9 ? Values[i] : Values[i] + w * (Values[i + 1] - Values[i]);
+        }
+    }
+
+    /// <summary>How the supports (ground first) couple to the free DOFs: K_fp, C_fp (n × p) and K_pp, C_pp (p × p).</summary>
+    private sealed record SupportCoupling(ImmutableArray<string> Supports, Matrix<double> StiffnessFP, Matrix<double> DampingFP,
+        Matrix<double> StiffnessPP, Matrix<double> DampingPP)
+    {
+        /// <summary>The coupling of the discrete springs and dampers, assembled the same way as K and C.</summary>
+        public static SupportCoupling FromElements(Network network, Dofs.DofMap dofs)
+        {
+            var supports = network.Supports.Select(s => s.Name).ToImmutableArray();
+            var n = dofs.Count;
+            var p = supports.Length;
+            var kfp = Matrix<double>.Build.Sparse(n, p);
+            var cfp = Matrix<double>.Build.Sparse(n, p);
+            var kpp = Matrix<double>.Build.Dense(p, p);
+            var cpp = Matrix<double>.Build.Dense(p, p);
+            void Add(Matrix<double> fp, Matrix<double> pp, string a, string b, double value)
+            {
+                int Free(string node) => dofs.IndexOf(node);
+                int Prescribed(string node) => supports.IndexOf(node);
+                foreach (var (x, y) in new[] { (a, b), (b, a) })
+                {
+                    if (Prescribed(x) is var sx and >= 0)
+                    {
+                        pp[sx, sx] += value;
+                        if (Prescribed(y) is var sy and >= 0) pp[sx, sy] -= value;
+                        else if (Free(y) is var iy and >= 0) fp[iy, sx] -= value;
+                    }
+                }
+            }
+            foreach (var s in network.Springs) Add(kfp, kpp, s.NodeA, s.NodeB, s.Stiffness);
+            foreach (var d in network.Dampers) Add(cfp, cpp, d.NodeA, d.NodeB, d.Coefficient);
+            return new SupportCoupling(supports, kfp, cfp, kpp, cpp);
         }
     }
 }

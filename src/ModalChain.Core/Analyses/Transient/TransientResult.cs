@@ -15,13 +15,13 @@ public enum ResponseQuantity
     /// <summary>Acceleration of a mass in m/s².</summary>
     Acceleration,
 
-    /// <summary>Spring force k (u_B − u_A) in N (positive when end B has moved further along the direction than end A).</summary>
+    /// <summary>Spring force k (u_A − u_B) in N, A and B as the spring's ends are listed (the convention of the harmonic results).</summary>
     SpringForce,
 
-    /// <summary>Damper force c (u̇_B − u̇_A) in N, same sign convention as the springs.</summary>
+    /// <summary>Damper force c (u̇_A − u̇_B) in N, same sign convention as the springs.</summary>
     DamperForce,
 
-    /// <summary>Force the network applies to a support in N, positive along the direction of motion.</summary>
+    /// <summary>Force a support receives from the network in N, positive along the direction of motion.</summary>
     Reaction,
 }
 

@@ -43,14 +43,14 @@ public class TransientAnalysisTests
         NumericAssert.Close(0, u.Peak.Time, Tolerance.Abs(1e-12), "time of peak");
         NumericAssert.Close(x0 / Math.Sqrt(2), u.Rms, Tolerance.Rel(1e-9), "RMS");
         NumericAssert.Close(k * x0, result.Get("ground", ResponseQuantity.Reaction).Peak.Value, Tolerance.Rel(1e-12), "reaction = k x");
-        NumericAssert.Close(k * x0, result.Get("columns", ResponseQuantity.SpringForce).Values[0], Tolerance.Rel(1e-12), "k (u_B − u_A) with A = ground, B = deck");
+        NumericAssert.Close(-k * x0, result.Get("columns", ResponseQuantity.SpringForce).Values[0], Tolerance.Rel(1e-12), "k (u_A − u_B) with A = ground, B = deck");
     }
 
     [Fact]
     public void SupportAcceleration_GivesTheRelativeMotionClosedForm()
     {
         // A support accelerating by a0 from rest: the relative motion z = u − u_s obeys z̈ + ω² z = −a0, so
-        // z = −(a0/ω²)(1 − cos ωt) and the spring force is k z (Chopra, Dynamics of Structures, §1.7 and §4.3 — from memory).
+        // z = −(a0/ω²)(1 − cos ωt); the spring force k (u_slab − u_shelf) is −k z and the slab receives k z (Chopra, Dynamics of Structures, §1.7 and §4.3 — from memory).
         const double m = 80, k = 2e5, a0 = 0.8;
         var network = new NetworkBuilder().AddSupport("slab").AddMass("shelf", m).AddSpring("post", "slab", "shelf", k).Build();
         var omega = Math.Sqrt(k / m);
@@ -65,7 +65,7 @@ public class TransientAnalysisTests
         {
             var t = result.Times[s];
             var z = -(a0 / (omega * omega)) * (1 - Math.Cos(omega * t));
-            NumericAssert.Close(k * z, force.Values[s], Tolerance.Abs(1e-3 * m * a0), $"spring force at {t:F4}");
+            NumericAssert.Close(-k * z, force.Values[s], Tolerance.Abs(1e-3 * m * a0), $"spring force at {t:F4}");
             NumericAssert.Close(k * z, reaction.Values[s], Tolerance.Abs(1e-3 * m * a0), $"reaction at {t:F4}");
             NumericAssert.Close(0.5 * a0 * t * t + z, u.Values[s], Tolerance.Abs(1e-3 * a0 / (omega * omega)), $"absolute u at {t:F4}");
         }
