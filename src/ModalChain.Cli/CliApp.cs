@@ -26,6 +26,7 @@ public static class CliApp
         root.Subcommands.Add(ValidateCommand.Create(io));
         root.Subcommands.Add(ModesCommand.Create(io));
         root.Subcommands.Add(HarmonicCommand.Create(io));
+        root.Subcommands.Add(TransientCommand.Create(io));
 
         var parse = root.Parse(args);
         var config = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };
