@@ -47,3 +47,29 @@ public class TransientBenchmarks
     public TransientResult Modal20Modes1000Masses100kSteps() =>
         TransientAnalysis.Run(_network, _matrices, _loads, [], Settings(TransientMethod.Modal), _modes);
 }
+
+/// <summary>The modal method on the same 1,000-mass chain including its own eigen solve (20 modes by subspace iteration).</summary>
+[MemoryDiagnoser]
+public class TransientModalWithEigenBenchmarks
+{
+    private Network _network = null!;
+    private StructuralMatrices _matrices = null!;
+    private TransientExcitation[] _loads = null!;
+
+    [GlobalSetup]
+    public void Setup()
+    {
+        _network = Networks.RandomChain(1000, seed: 7, crossSprings: 100, dampers: 50);
+        _matrices = Assembler.Assemble(_network);
+        _loads =
+        [
+            new ForceHistory("start-up", "m500", 0.05, new UnbalanceSpeedRamp(0, 300, 8)),
+            new ForceHistory("bump", "m999", 1, new HalfSinePulse(5000, 0.02, 0.5)),
+        ];
+    }
+
+    [Benchmark]
+    public TransientResult Modal20ModesWithSubspaceEigen100kSteps() =>
+        TransientAnalysis.Run(_network, _matrices, _loads, [],
+            new TransientSettings(10, 1e-4, TransientMethod.Modal) { Outputs = ["m500", "m999"], ModeCount = 20 });
+}

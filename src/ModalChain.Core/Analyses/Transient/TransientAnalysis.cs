@@ -12,16 +12,19 @@ namespace ModalChain.Core.Analyses.Transient;
 /// <remarks>
 /// Solves M ü + C u̇ + K u = f(t) for the free DOFs in absolute coordinates. A support with a prescribed acceleration
 /// a_s(t) moves with u̇_s = ∫a_s and u_s = ∫u̇_s, integrated on the time grid exactly for a_s linear between steps;
-/// it loads the free DOFs through the springs and dampers attached to it: f_i += k u_s + c u̇_s (the partition
-/// −K_fs u_s − C_fs u̇_s of the full matrices). Warnings follow common practice: at least ~10 steps per period of the
+/// it loads the free DOFs by −K_fp u_s − C_fp u̇_s (for a spring k from the support to mass i, f_i += k u_s). Warnings follow common practice: at least ~10 steps per period of the
 /// highest mode that takes a significant share (≥ 1 %) of the effective mass or of a load, and a duration of at
-/// least a few periods of the lowest mode.
+/// least a few periods of the lowest mode. Models of more than 300 DOFs get only their lowest modes (30, or those the
+/// modal method keeps) by subspace iteration unless a complete modal result is passed in, so the step check then
+/// looks at those modes only.
 /// </remarks>
 public static class TransientAnalysis
 {
     private const double SignificantShare = 0.01;
     private const double MinimumStepsPerPeriod = 10;
     private const double MinimumPeriodsOfLowestMode = 3;
+    private const int LargeModel = 300;
+    private const int ModesForChecks = 30;
 
     /// <summary>Runs <paramref name="settings"/> on <paramref name="network"/> damped by its discrete dampers only.</summary>
     /// <param name="network">The network.</param>
@@ -93,7 +96,7 @@ public static class TransientAnalysis
             v0[i] = ic.Velocity;
         }
 
-        modes ??= ModalAnalysis.Solve(network, matrices);
+        modes ??= Modes(network, matrices, settings);
         var warnings = notes;
         var rmsFrom = settings.RmsFrom ?? 0.0;
         var rmsTo = settings.RmsTo ?? double.PositiveInfinity;
@@ -129,7 +132,7 @@ public static class TransientAnalysis
                 var omega = consideredModes.Select(m => m.AngularFrequency).ToArray();
                 var zeta = ModalDamping(settings, modalRatios, shapes, omega, matrices.Damping, warnings);
                 var integrator = new ModalSuperpositionIntegrator();
-                description = string.Create(CultureInfo.InvariantCulture, $"{integrator.Name}, {count} of {modes.Modes.Length} modes");
+                description = string.Create(CultureInfo.InvariantCulture, $"{integrator.Name}, {count} of {n} modes");
                 var twoZetaOmega = omega.Select((w, j) => 2 * zeta[j] * w).ToArray();
                 recorder = new ResponseRecorder(
                     [.. probes.Select(p => p.ToModal(shapes))],
@@ -139,7 +142,7 @@ public static class TransientAnalysis
                     h, steps, settings.RecordEvery, rmsFrom, rmsTo, progress);
                 integrator.Run(shapes, omega, zeta, matrices.Mass, load, u0, v0, h, steps, recorder);
                 var cumulative = consideredModes[^1].CumulativeEffectiveMassFraction;
-                if (count < modes.Modes.Length && cumulative < 0.9)
+                if (count < n && cumulative < 0.9)
                     warnings.Add(Invariant($"The {count} modes kept carry {100 * cumulative:F1} % of the effective mass (less than 90 %): responses to loads that excite higher modes are underestimated."));
                 break;
             }
@@ -153,6 +156,15 @@ public static class TransientAnalysis
             warnings.Add(Invariant($"The energy balance closes only to {100 * energy.MaxRelativeError:F2} % of the largest energy: reduce the step."));
 
         return new TransientResult(network, settings, description, steps, recorder.Times, recorder.Histories(), energy, [.. warnings]);
+    }
+
+    /// <summary>All modes for small models; for large ones only the lowest (those the modal method keeps, or 30 for the step checks), by subspace iteration.</summary>
+    private static ModalResult Modes(Network network, StructuralMatrices matrices, TransientSettings settings)
+    {
+        if (matrices.Size <= LargeModel || (settings.Method == TransientMethod.Modal && settings.ModeCount is null))
+            return ModalAnalysis.Solve(network, matrices);
+        var count = Math.Min(matrices.Size, settings.Method == TransientMethod.Modal ? settings.ModeCount!.Value : ModesForChecks);
+        return ModalAnalysis.Solve(network, matrices, new ModalOptions(count, new SubspaceIterationEigen()));
     }
 
     private static ResponseRecorder PhysicalRecorder(LinearDynamicSystem system, List<Probe> probes, TransientSettings settings,
