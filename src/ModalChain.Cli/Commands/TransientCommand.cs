@@ -81,6 +81,8 @@ internal static class TransientCommand
             if (loads.Count == 0 && spec.Initial.IsEmpty)
                 return Fail(io, $"{path}: nothing to respond to; give loads a 'time' function (see docs/model-format.md) or 'initial' conditions under 'transient'");
 
+            if (settings.Method == TransientMethod.Exact && document.Network.Masses.Length > TransientAnalysis.ExactMethodMaxDofs)
+                return Fail(io, $"the exact method is limited to {TransientAnalysis.ExactMethodMaxDofs} masses (this model has {document.Network.Masses.Length}); use --method newmark or modal");
             var system = DampedSystem.Build(document.Structure);
             var chosenFormat = parse.GetValue(format);
             using var bar = chosenFormat == OutputFormat.Table && settings.StepCount >= ProgressFromSteps && ProgressBar.CanShow(io) ? new ProgressBar(io.Error) : null;

@@ -24,6 +24,9 @@ public static class TransientAnalysis
     private const double MinimumStepsPerPeriod = 10;
     private const double MinimumPeriodsOfLowestMode = 3;
     private const int LargeModel = 300;
+
+    /// <summary>Largest model for <see cref="TransientMethod.Exact"/>: its dense exponential is of order 4n.</summary>
+    public const int ExactMethodMaxDofs = 400;
     private const int ModesForChecks = 30;
 
     /// <summary>Runs <paramref name="settings"/> on <paramref name="network"/> damped by its discrete dampers only.</summary>
@@ -79,6 +82,9 @@ public static class TransientAnalysis
         if (n == 0) throw new ArgumentException("The network has no masses.", nameof(network));
         var h = settings.Step;
         var steps = settings.StepCount;
+        if (settings.Method == TransientMethod.Exact && n > ExactMethodMaxDofs)
+            throw new ArgumentOutOfRangeException(nameof(settings), settings.Method,
+                $"The exact method forms a dense exponential of order 4n = {4 * n}; it is limited to {ExactMethodMaxDofs} DOFs. Use newmark or modal.");
 
         var supportMotion = SupportMotion(network, excitations, h, steps);
         var load = BuildLoad(dofs, excitations, coupling, supportMotion);

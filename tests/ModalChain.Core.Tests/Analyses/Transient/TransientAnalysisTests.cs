@@ -151,6 +151,9 @@ public class TransientAnalysisTests
         Assert.Throws<ArgumentException>(() => TransientAnalysis.Run(network, matrices, [], [new InitialCondition("nobody", 1, 0)], ok));
         Assert.Throws<ArgumentOutOfRangeException>(() => TransientAnalysis.Run(network, matrices, [], [], new TransientSettings(1, -1e-3)));
         Assert.Throws<ArgumentOutOfRangeException>(() => TransientAnalysis.Run(network, matrices, [], [], new TransientSettings(1, 2)));
+        var large = RandomNetwork(TransientAnalysis.ExactMethodMaxDofs + 1, seed: 1);
+        Assert.Throws<ArgumentOutOfRangeException>(() => TransientAnalysis.Run(large, Assembler.Assemble(large), [], [],
+            new TransientSettings(1, 1e-3, TransientMethod.Exact)));
     }
 
     [Fact]
