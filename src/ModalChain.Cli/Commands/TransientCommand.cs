@@ -85,8 +85,10 @@ internal static class TransientCommand
                 return Fail(io, $"the exact method is limited to {TransientAnalysis.ExactMethodMaxDofs} masses (this model has {document.Network.Masses.Length}); use --method newmark or modal");
             var system = DampedSystem.Build(document.Structure);
             var chosenFormat = parse.GetValue(format);
-            using var bar = chosenFormat == OutputFormat.Table && settings.StepCount >= ProgressFromSteps && ProgressBar.CanShow(io) ? new ProgressBar(io.Error) : null;
-            var result = TransientAnalysis.Run(system, loads, spec.Initial, settings, bar);
+            // The bar goes to a terminal only, and never with JSON or CSV (their output may be piped while stderr is not).
+            using var bar = chosenFormat == OutputFormat.Table && settings.StepCount >= ProgressFromSteps && !Console.IsOutputRedirected
+                ? ProgressBar.ForTerminal(io, 100, "time stepping") : null;
+            var result = TransientAnalysis.Run(system, loads, spec.Initial, settings, bar is null ? null : new PercentProgress(bar));
             bar?.Dispose();
             switch (chosenFormat)
             {
@@ -131,31 +133,10 @@ internal static class TransientCommand
         io.Error.WriteLine($"modalchain: error: {message}");
         return ExitCodes.InputError;
     }
-}
 
-/// <summary>A one-line progress bar on the error stream of a terminal; never shown when the streams are redirected.</summary>
-internal sealed class ProgressBar(TextWriter error) : IProgress<double>, IDisposable
-{
-    private int _shown = -1;
-    private bool _done;
-
-    /// <summary>True when both streams are the console's and neither is redirected to a file or pipe.</summary>
-    public static bool CanShow(Streams io) =>
-        ReferenceEquals(io.Error, Console.Error) && ReferenceEquals(io.Output, Console.Out) && !Console.IsErrorRedirected && !Console.IsOutputRedirected;
-
-    public void Report(double value)
+    /// <summary>Turns the analysis's fraction of steps done into whole percent for the shared progress bar.</summary>
+    private sealed class PercentProgress(IProgress<int> bar) : IProgress<double>
     {
-        var percent = (int)Math.Clamp(Math.Floor(100 * value), 0, 100);
-        if (percent == _shown || _done) return;
-        _shown = percent;
-        var filled = percent * 30 / 100;
-        error.Write($"\r[{new string('#', filled)}{new string('.', 30 - filled)}] {percent,3} %");
-    }
-
-    public void Dispose()
-    {
-        if (_done) return;
-        _done = true;
-        if (_shown >= 0) error.Write("\r" + new string(' ', 40) + "\r");
+        public void Report(double value) => bar.Report((int)Math.Round(100 * Math.Clamp(value, 0, 1)));
     }
 }

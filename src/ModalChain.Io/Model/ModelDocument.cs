@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Analyses.Transient;
 using ModalChain.Core.Model;
@@ -24,6 +25,9 @@ public sealed record ModelDocument(
 
     /// <summary>The harmonic sweep the file asks for in its 'harmonic' section, or null when it has none.</summary>
     public HarmonicSpec? Harmonic { get; init; }
+
+    /// <summary>The criteria of the file's <c>criteria:</c> section (empty when it has none).</summary>
+    public CriteriaSet Criteria { get; init; } = CriteriaSet.None;
 
     /// <summary>The loads that have a 'time' function, for transient runs (SI); harmonic sweeps do not see them.</summary>
     public ImmutableArray<TransientExcitation> TimedLoads { get; init; } = [];
