@@ -1,0 +1,41 @@
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Io.Model;
+using ModalChain.Reports.Drawing;
+using ModalChain.Reports.Units;
+
+namespace ModalChain.Reports.Sections;
+
+/// <summary>What every section may use: the model, the options and the analyses shared between sections (each computed once).</summary>
+public sealed class ReportContext
+{
+    private readonly Lazy<ModalResult> _modal;
+    private readonly Lazy<NetworkLayout> _layout;
+
+    /// <summary>Creates the context of one report run.</summary>
+    public ReportContext(ModelDocument document, ReportOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(document);
+        ArgumentNullException.ThrowIfNull(options);
+        Document = document;
+        Options = options;
+        Units = new DisplayUnits(options.Units);
+        _modal = new Lazy<ModalResult>(() => ModalAnalysis.Solve(document.Network,
+            new ModalOptions(Math.Min(options.MaxModes, document.Network.Masses.Length))));
+        _layout = new Lazy<NetworkLayout>(() => NetworkLayout.For(document.Network));
+    }
+
+    /// <summary>The model as read.</summary>
+    public ModelDocument Document { get; }
+
+    /// <summary>The options of the run.</summary>
+    public ReportOptions Options { get; }
+
+    /// <summary>Display units of the HTML and figures.</summary>
+    public DisplayUnits Units { get; }
+
+    /// <summary>The modal result of the lowest <see cref="ReportOptions.MaxModes"/> modes (solved on first use).</summary>
+    public ModalResult Modal => _modal.Value;
+
+    /// <summary>The drawing layout of the network (laid out on first use).</summary>
+    public NetworkLayout Layout => _layout.Value;
+}
