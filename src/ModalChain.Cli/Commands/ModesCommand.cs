@@ -1,6 +1,7 @@
 using System.CommandLine;
 using ModalChain.Cli.Formatting;
 using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
 using ModalChain.Io.Csv;
 using ModalChain.Io.Json;
 
@@ -28,12 +29,14 @@ internal static class ModesCommand
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
             var result = ModalAnalysis.Solve(document.Network, new ModalOptions(parse.GetValue(count)));
+            var damped = DampedSystem.Build(document.Structure);
+            var complexModes = damped.IsClassical ? [] : ComplexModes.Solve(damped);
             switch (parse.GetValue(format))
             {
                 case OutputFormat.Json:
                     using (var stdout = new MemoryStream())
                     {
-                        ModesJson.Write(stdout, document, result, CliApp.Version);
+                        ModesJson.Write(stdout, document, result, CliApp.Version, damped, complexModes);
                         io.Output.Write(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
                         io.Output.WriteLine();
                     }
@@ -42,7 +45,7 @@ internal static class ModesCommand
                     ModesCsv.Write(io.Output, result);
                     break;
                 default:
-                    ModesTable.Write(io.Output, result);
+                    ModesTable.Write(io.Output, result, damped, complexModes);
                     break;
             }
             return ExitCodes.Success;

@@ -1,6 +1,8 @@
 using System.Globalization;
 using ModalChain.Core;
+using System.Collections.Immutable;
 using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
 
 namespace ModalChain.Cli.Formatting;
 
@@ -9,13 +11,13 @@ internal static class ModesTable
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    public static void Write(TextWriter o, ModalResult result)
+    public static void Write(TextWriter o, ModalResult result, DampedSystem? damping = null, ImmutableArray<ComplexMode> complexModes = default)
     {
         var n = result.Network;
         o.WriteLine(n.Title);
         o.WriteLine(string.Create(Inv, $"{result.Matrices.Size} degrees of freedom, total mass {result.TotalMass:G6} kg, {result.Modes.Length} modes"));
         o.WriteLine();
-        var table = new TextTable("mode", "frequency [Hz]", "omega [rad/s]", "period [s]", "eff. mass [%]", "cumulative [%]", "where it moves (kinetic energy share)");
+        var table = new TextTable("mode", "frequency [Hz]", "omega [rad/s]", "period [s]", "damping [%]", "eff. mass [%]", "cumulative [%]", "where it moves (kinetic energy share)");
         foreach (var m in result.Modes)
         {
             table.Add(
@@ -23,6 +25,7 @@ internal static class ModesTable
                 m.NaturalFrequencyHz.ToString("F4", Inv),
                 m.AngularFrequency.ToString("F3", Inv),
                 m.IsRigidBody ? "rigid body" : m.PeriodSeconds.ToString("G5", Inv),
+                m.IsRigidBody ? "-" : (100 * Io.Json.ModesJson.DampingRatioOf(damping, m)).ToString("F2", Inv),
                 (100 * m.EffectiveMassFraction).ToString("F1", Inv),
                 (100 * m.CumulativeEffectiveMassFraction).ToString("F1", Inv),
                 Dominant(result, m));
@@ -36,6 +39,19 @@ internal static class ModesTable
             var i = Enumerable.Range(0, n.Springs.Length).MaxBy(k => fundamental.StrainEnergyShare[k]);
             o.WriteLine(string.Create(Inv,
                 $"Mode {fundamental.Number} stores {100 * fundamental.StrainEnergyShare[i]:F0} % of its strain energy in spring '{n.Springs[i].Name}': stiffening it raises that mode most."));
+        }
+        if (!complexModes.IsDefaultOrEmpty)
+        {
+            o.WriteLine();
+            o.WriteLine("The damping is not classical (it couples the modes above, whose damping is then an estimate).");
+            o.WriteLine("Complex modes of the damped system (state-space eigenproblem):");
+            var complex = new TextTable("root", "undamped [Hz]", "damped [Hz]", "damping [%]");
+            foreach (var c in complexModes)
+                complex.Add(c.Number.ToString(Inv), c.UndampedFrequencyHz.ToString("F4", Inv),
+                    c.IsOscillatory ? c.DampedFrequencyHz.ToString("F4", Inv) : "overdamped",
+                    c.IsOscillatory ? (100 * c.DampingRatio).ToString("F2", Inv) : "-");
+            complex.Write(o);
+            o.WriteLine();
         }
         if (result.RigidBodyModeCount > 0)
             o.WriteLine($"{result.RigidBodyModeCount} rigid-body mode(s) at 0 Hz: part of the network is not held by springs.");

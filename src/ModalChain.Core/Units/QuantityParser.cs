@@ -61,7 +61,7 @@ public static class QuantityParser
         return word.Equals("nan", StringComparison.OrdinalIgnoreCase)
             || word.Equals("inf", StringComparison.OrdinalIgnoreCase)
             || word.Equals("infinity", StringComparison.OrdinalIgnoreCase)
-            || s.StartsWith('∞');
+            || word.StartsWith('∞');
     }
 
     // Length of the leading numeric literal: sign, digits, decimal point, exponent.

@@ -2,6 +2,7 @@ using System.Text.Encodings.Web;
 using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
 using ModalChain.Io.Model;
 
 namespace ModalChain.Io.Json;
@@ -14,16 +15,24 @@ public static class ModesJson
     public static readonly JsonWriterOptions WriterOptions = new() { Indented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
 
     /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
-    public static void Write(Stream stream, ModelDocument document, ModalResult result, string toolVersion)
+    /// <param name="stream">Where to write (UTF-8).</param>
+    /// <param name="document">The model read.</param>
+    /// <param name="result">Its modes.</param>
+    /// <param name="toolVersion">Version recorded in 'source'.</param>
+    /// <param name="damping">The assembled damped system, for damping ratios per mode; null for an undamped report (ratios 0).</param>
+    /// <param name="complexModes">Complex modes, written when the damping is not classical; null or empty otherwise.</param>
+    public static void Write(Stream stream, ModelDocument document, ModalResult result, string toolVersion,
+        DampedSystem? damping = null, IReadOnlyList<ComplexMode>? complexModes = null)
     {
         using var writer = new Utf8JsonWriter(stream, WriterOptions);
         writer.WriteStartObject();
-        WriteBody(writer, document, result, toolVersion);
+        WriteBody(writer, document, result, toolVersion, damping, complexModes);
         writer.WriteEndObject();
     }
 
     /// <summary>Writes the properties of the modes object into an object the caller has opened.</summary>
-    public static void WriteBody(Utf8JsonWriter writer, ModelDocument document, ModalResult result, string toolVersion)
+    public static void WriteBody(Utf8JsonWriter writer, ModelDocument document, ModalResult result, string toolVersion,
+        DampedSystem? damping = null, IReadOnlyList<ComplexMode>? complexModes = null)
     {
         var network = result.Network;
         var dofNames = result.Matrices.Dofs.Dofs.Select(d => d.ToString()).ToArray();
@@ -58,9 +67,38 @@ public static class ModesJson
             writer.Keyed("kinetic_energy_share", dofNames, mode.KineticEnergyShare);
             writer.Keyed("strain_energy_share", springNames, mode.StrainEnergyShare);
             writer.Number("residual", mode.Residual);
+            var zeta = DampingRatioOf(damping, mode);
+            writer.Number("damping_ratio", zeta);
+            writer.Number("damped_frequency_hz", zeta < 1 ? mode.NaturalFrequencyHz * Math.Sqrt(1 - zeta * zeta) : double.NaN);
             writer.WriteEndObject();
         }
         writer.WriteEndArray();
+
+        writer.WriteStartObject("damping");
+        writer.WriteBoolean("classical", damping?.IsClassical ?? true);
+        writer.Number("non_classical_index", damping?.NonClassicalIndex ?? 0);
+        writer.Number("loss_factor", damping?.LossFactor ?? 0);
+        writer.WriteString("damping_ratio_basis", damping is null || damping.IsClassical
+            ? "exact modal damping ratio"
+            : "diagonal of the modal damping matrix (estimate); see complex_modes for the damped system's own values");
+        writer.WriteEndObject();
+        if (complexModes is { Count: > 0 })
+        {
+            writer.WriteStartArray("complex_modes");
+            foreach (var c in complexModes)
+            {
+                writer.WriteStartObject();
+                writer.WriteNumber("number", c.Number);
+                writer.Number("undamped_frequency_hz", c.UndampedFrequencyHz);
+                writer.Number("damped_frequency_hz", c.DampedFrequencyHz);
+                writer.Number("damping_ratio", c.DampingRatio);
+                writer.WriteBoolean("oscillatory", c.IsOscillatory);
+                writer.Number("eigenvalue_real", c.EigenValue.Real);
+                writer.Number("eigenvalue_imag", c.EigenValue.Imaginary);
+                writer.WriteEndObject();
+            }
+            writer.WriteEndArray();
+        }
 
         writer.WriteStartObject("quality");
         writer.Number("max_residual", result.Quality.MaxResidual);
@@ -71,5 +109,13 @@ public static class ModesJson
         foreach (var w in document.Warnings) writer.WriteStringValue(w.ToString());
         writer.WriteEndArray();
         writer.WriteString("caution", Cautions.Text);
+    }
+
+    /// <summary>The damping ratio of <paramref name="mode"/>: from <paramref name="damping"/>, 0 without one, NaN for a rigid-body mode.</summary>
+    public static double DampingRatioOf(DampedSystem? damping, Mode mode)
+    {
+        ArgumentNullException.ThrowIfNull(mode);
+        if (mode.IsRigidBody) return double.NaN;
+        return damping is null ? 0 : damping.ModalDampingRatios[mode.Number - 1];
     }
 }

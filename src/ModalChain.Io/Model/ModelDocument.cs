@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Model;
 using ModalChain.Io.Diagnostics;
 
@@ -15,7 +16,14 @@ public sealed record ModelDocument(
     string Sha256,
     Network Network,
     ImmutableArray<Diagnostic> Warnings,
-    ImmutableDictionary<string, SourcePosition> Positions);
+    ImmutableDictionary<string, SourcePosition> Positions)
+{
+    /// <summary>The network with its distributed damping and its loads (SI); a model without them has none.</summary>
+    public StructuralModel Structure { get; init; } = StructuralModel.Of(Network);
+
+    /// <summary>The harmonic sweep the file asks for in its 'harmonic' section, or null when it has none.</summary>
+    public HarmonicSpec? Harmonic { get; init; }
+}
 
 /// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>
 /// <param name="Model">The model when there were no errors; null otherwise.</param>

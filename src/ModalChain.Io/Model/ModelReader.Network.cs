@@ -57,6 +57,7 @@ public static partial class ModelReader
             if (kg is { } m && !context.HasErrors) builder.AddMass(key.Value, m, at);
         }
 
+        ReadSupports(top, context, builder, nodes);
         var springs = ReadTwoNodeSection(top, "springs", "spring", "stiffness", Quantity.Stiffness, StiffnessRange, nodes, context);
         var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
         if (context.HasErrors) return null;
@@ -111,7 +112,7 @@ public static partial class ModelReader
             if (name is null) continue;
             if (!nodes.Contains(name))
             {
-                context.Error(seq.Items[i], $"{what} refers to unknown node '{name}'{ReadContext.Suggest(name, nodes)}; declare it under 'masses' or use 'ground'");
+                context.Error(seq.Items[i], $"{what} refers to unknown node '{name}'{ReadContext.Suggest(name, nodes)}; declare it under 'masses' or 'supports', or use 'ground'");
                 continue;
             }
             names[i] = name;

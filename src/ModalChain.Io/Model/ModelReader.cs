@@ -14,7 +14,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "springs", "dampers"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "damping", "loads", "harmonic"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -47,6 +47,11 @@ public static partial class ModelReader
 
         context.RejectUnknownKeys(top, "the model file", TopLevelKeys);
         var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file));
+        var massNames = DeclaredNames(top, "masses");
+        var supportNames = DeclaredNames(top, "supports");
+        var damping = ReadDamping(top, context);
+        var loads = ReadLoads(top, massNames, supportNames, context);
+        var harmonic = ReadHarmonic(top, massNames, loads, context);
         if (network is null || context.HasErrors) return Finish(context, null);
 
         var document = new ModelDocument(
@@ -54,7 +59,11 @@ public static partial class ModelReader
             Convert.ToHexStringLower(SHA256.HashData(bytes)),
             network,
             [.. context.Diagnostics.Where(d => d.Severity == Severity.Warning)],
-            context.Positions.ToImmutableDictionary());
+            context.Positions.ToImmutableDictionary())
+        {
+            Structure = new Core.Model.StructuralModel(network, damping, loads),
+            Harmonic = harmonic,
+        };
         return Finish(context, document);
     }
 

@@ -1,0 +1,103 @@
+using System.CommandLine;
+using System.Globalization;
+using ModalChain.Cli.Formatting;
+using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Assembly;
+using ModalChain.Io.Csv;
+using ModalChain.Io.Json;
+
+namespace ModalChain.Cli.Commands;
+
+/// <summary><c>modalchain harmonic FILE</c>: steady-state response to the model's harmonic loads over a frequency sweep.</summary>
+internal static class HarmonicCommand
+{
+    public static Command Create(Streams io)
+    {
+        var file = CommonOptions.ModelFile();
+        var format = CommonOptions.Format();
+        var outputs = new Option<string[]>("--output")
+        {
+            Description = "Report this mass (repeat for several); overrides 'outputs' of the file. Default: every mass.",
+            AllowMultipleArgumentsPerToken = true,
+        };
+        var from = new Option<double?>("--from") { Description = "Lowest frequency of the sweep in Hz (overrides the file's range)." };
+        var to = new Option<double?>("--to") { Description = "Highest frequency of the sweep in Hz." };
+        var points = new Option<int?>("--points") { Description = "Number of points of the sweep (at least 2; default 400 when the file gives none)." };
+        var method = new Option<HarmonicMethod?>("--method") { Description = "direct (exact, any damping) or modal (superposition with residual flexibility)." };
+        var command = new Command("harmonic",
+            "Steady-state response to the model's harmonic loads (forces, rotating unbalances, support motions) over a " +
+            "frequency sweep: displacement, velocity and acceleration of each output mass, spring and damper forces, support " +
+            "reactions and transmissibility, the peak of each over the sweep, and the response at each load's running speed. " +
+            "The sweep comes from the file's 'harmonic' section; --from/--to/--points override it.\n\n" + CliApp.CautionHelp)
+        { file, outputs, from, to, points, method, format };
+        command.SetAction(parse =>
+        {
+            var path = parse.GetValue(file)!;
+            var document = CommonOptions.Load(path, io);
+            if (document is null) return ExitCodes.InputError;
+            var model = document.Structure;
+            var spec = document.Harmonic;
+            var fromHz = parse.GetValue(from);
+            var toHz = parse.GetValue(to);
+            var pointCount = parse.GetValue(points);
+
+            if (model.Loads.IsEmpty)
+                return Fail(io, $"{path}: the model has no 'loads'; a harmonic response needs at least one (see docs/model-format.md)");
+            if (spec is null && (fromHz is null || toHz is null))
+                return Fail(io, $"{path}: the model has no 'harmonic' section; add one or give --from and --to");
+            spec ??= new HarmonicSpec([], new FrequencyRange(1, 2, 2, FrequencySpacing.Linear), true, [], HarmonicMethod.Direct);
+
+            if (fromHz is not null || toHz is not null || pointCount is not null)
+            {
+                var range = spec.Frequencies as FrequencyRange;
+                var f0 = fromHz ?? range?.FromHz;
+                var f1 = toHz ?? range?.ToHz;
+                if (f0 is null || f1 is null)
+                    return Fail(io, "--points alone cannot change an explicit frequency list; give --from and --to as well");
+                if (!(f0 > 0) || !double.IsFinite(f0.Value)) return Fail(io, "--from must be a positive frequency in Hz");
+                if (!(f1 > f0) || !double.IsFinite(f1.Value))
+                    return Fail(io, string.Create(CultureInfo.InvariantCulture, $"--to ({f1} Hz) must be above --from ({f0} Hz)"));
+                var n = pointCount ?? range?.Points ?? 400;
+                if (n < 2) return Fail(io, "--points must be at least 2");
+                spec = spec with { Frequencies = new FrequencyRange(f0.Value, f1.Value, n, range?.Spacing ?? FrequencySpacing.Linear) };
+            }
+            var chosen = parse.GetValue(outputs);
+            if (chosen is { Length: > 0 })
+            {
+                var unknown = chosen.Where(o => !model.Network.IsMass(o)).ToArray();
+                if (unknown.Length > 0)
+                    return Fail(io, $"--output names {string.Join(", ", unknown.Select(u => $"'{u}'"))}, which {(unknown.Length == 1 ? "is not a mass" : "are not masses")} of the model");
+                spec = spec with { Outputs = [.. chosen.Distinct()] };
+            }
+            if (parse.GetValue(method) is { } m) spec = spec with { Method = m };
+
+            var system = DampedSystem.Build(model);
+            var result = HarmonicAnalysis.Solve(system, spec);
+            switch (parse.GetValue(format))
+            {
+                case OutputFormat.Json:
+                    using (var stdout = new MemoryStream())
+                    {
+                        HarmonicJson.Write(stdout, document, result, CliApp.Version);
+                        io.Output.Write(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
+                        io.Output.WriteLine();
+                    }
+                    break;
+                case OutputFormat.Csv:
+                    HarmonicCsv.Write(io.Output, result);
+                    break;
+                default:
+                    HarmonicTable.Write(io.Output, document, system, result);
+                    break;
+            }
+            return ExitCodes.Success;
+        });
+        return command;
+    }
+
+    private static int Fail(Streams io, string message)
+    {
+        io.Error.WriteLine($"modalchain: error: {message}");
+        return ExitCodes.InputError;
+    }
+}

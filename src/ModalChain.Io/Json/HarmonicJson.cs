@@ -1,0 +1,181 @@
+using System.Numerics;
+using System.Text.Json;
+using ModalChain.Core;
+using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Io.Model;
+
+namespace ModalChain.Io.Json;
+
+/// <summary>Writes a harmonic result as the JSON object of <c>modalchain harmonic --format json</c> (SI units).</summary>
+/// <remarks>
+/// Field names are a public contract: frequencies_hz, responses (dof, quantity, unit, magnitude, phase_deg),
+/// reactions (support, magnitude, phase_deg), peaks, operating_points; further fields are additions. Phases are
+/// in degrees in (−180, 180], of Re(A e^{iωt}) relative to the loads' phase reference.
+/// </remarks>
+public static class HarmonicJson
+{
+    /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
+    public static void Write(Stream stream, ModelDocument document, HarmonicResult result, string toolVersion)
+    {
+        ArgumentNullException.ThrowIfNull(document);
+        ArgumentNullException.ThrowIfNull(result);
+        using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
+        w.WriteStartObject();
+        w.WriteString("title", document.Network.Title);
+        w.WriteStartObject("source");
+        w.WriteString("file", document.File);
+        w.WriteString("sha256", document.Sha256);
+        w.WriteString("tool_version", toolVersion);
+        w.WriteEndObject();
+        w.WriteString("method", result.Method == HarmonicMethod.Modal ? "modal" : "direct");
+        w.WriteNumber("modes_used", result.ModesUsed);
+        w.WriteStartArray("loads");
+        foreach (var l in result.Loads) w.WriteStringValue(l);
+        w.WriteEndArray();
+        w.Array("frequencies_hz", result.FrequenciesHz);
+
+        w.WriteStartArray("responses");
+        foreach (var r in result.Responses)
+            foreach (var q in Enum.GetValues<ResponseQuantity>())
+            {
+                var values = Enumerable.Range(0, result.FrequenciesHz.Length).Select(k => r.At(k, result.FrequenciesHz[k], q)).ToArray();
+                w.WriteStartObject();
+                w.WriteString("dof", r.Dof);
+                w.WriteString("quantity", Name(q));
+                w.WriteString("unit", Unit(q));
+                Series(w, values);
+                w.WriteEndObject();
+            }
+        w.WriteEndArray();
+
+        w.WriteStartArray("element_forces");
+        foreach (var e in result.ElementForces)
+        {
+            w.WriteStartObject();
+            w.WriteString("element", e.Element);
+            w.WriteString("kind", e.Kind == ElementKind.Spring ? "spring" : "damper");
+            w.WriteString("unit", "N");
+            Series(w, e.Force);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        w.WriteStartArray("reactions");
+        foreach (var r in result.Reactions)
+        {
+            w.WriteStartObject();
+            w.WriteString("support", r.Support);
+            w.WriteString("unit", "N");
+            Series(w, r.Force);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        w.WriteStartArray("transmissibility");
+        foreach (var t in result.Transmissibilities)
+        {
+            w.WriteStartObject();
+            w.WriteString("kind", t.Kind);
+            if (t.Dof is null) w.WriteNull("dof"); else w.WriteString("dof", t.Dof);
+            w.WriteString("reference", t.Reference);
+            w.Array("ratio", t.Ratio);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        w.WriteStartArray("peaks");
+        foreach (var p in result.Peaks())
+        {
+            w.WriteStartObject();
+            w.WriteString("dof", p.Dof);
+            w.WriteString("quantity", Name(p.Quantity));
+            w.WriteString("unit", Unit(p.Quantity));
+            w.Number("magnitude", p.Magnitude);
+            w.Number("frequency_hz", p.FrequencyHz);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        w.WriteStartArray("operating_points");
+        foreach (var op in result.OperatingPoints)
+        {
+            var at = op.Response;
+            w.WriteStartObject();
+            w.Number("speed_hz", op.SpeedHz);
+            w.Number("speed_rpm", op.SpeedHz * 60);
+            w.WriteStartArray("loads");
+            foreach (var l in op.Loads) w.WriteStringValue(l);
+            w.WriteEndArray();
+            w.WriteStartArray("responses");
+            foreach (var r in at.Responses)
+                foreach (var q in Enum.GetValues<ResponseQuantity>())
+                {
+                    w.WriteStartObject();
+                    w.WriteString("dof", r.Dof);
+                    w.WriteString("quantity", Name(q));
+                    w.WriteString("unit", Unit(q));
+                    Point(w, r.At(0, op.SpeedHz, q));
+                    w.WriteEndObject();
+                }
+            w.WriteEndArray();
+            w.WriteStartArray("element_forces");
+            foreach (var e in at.ElementForces)
+            {
+                w.WriteStartObject();
+                w.WriteString("element", e.Element);
+                w.WriteString("kind", e.Kind == ElementKind.Spring ? "spring" : "damper");
+                w.WriteString("unit", "N");
+                Point(w, e.Force[0]);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteStartArray("reactions");
+            foreach (var r in at.Reactions)
+            {
+                w.WriteStartObject();
+                w.WriteString("support", r.Support);
+                w.WriteString("unit", "N");
+                Point(w, r.Force[0]);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        w.WriteStartArray("notes");
+        foreach (var n in result.Notes) w.WriteStringValue(n);
+        w.WriteEndArray();
+        w.WriteStartArray("warnings");
+        foreach (var d in document.Warnings) w.WriteStringValue(d.ToString());
+        w.WriteEndArray();
+        w.WriteString("caution", Cautions.Text);
+        w.WriteEndObject();
+    }
+
+    /// <summary>The JSON name of a quantity: "displacement", "velocity", "acceleration".</summary>
+    public static string Name(ResponseQuantity q) => q.ToString().ToLowerInvariant();
+
+    /// <summary>The SI unit of a quantity as written in JSON and CSV headers.</summary>
+    public static string Unit(ResponseQuantity q) => q switch
+    {
+        ResponseQuantity.Displacement => "m",
+        ResponseQuantity.Velocity => "m/s",
+        _ => "m/s^2",
+    };
+
+    /// <summary>Phase of <paramref name="z"/> in degrees.</summary>
+    public static double PhaseDegrees(Complex z) => z == Complex.Zero ? 0 : z.Phase * 180 / Math.PI;
+
+    private static void Series(Utf8JsonWriter w, IReadOnlyList<Complex> values)
+    {
+        w.Array("magnitude", values.Select(z => z.Magnitude));
+        w.Array("phase_deg", values.Select(PhaseDegrees));
+    }
+
+    private static void Point(Utf8JsonWriter w, Complex z)
+    {
+        w.Number("magnitude", z.Magnitude);
+        w.Number("phase_deg", PhaseDegrees(z));
+    }
+}
