@@ -22,11 +22,13 @@ public sealed class ModesSection : IReportSection
     private readonly ModalResult _result;
     private readonly ChartFigure _massChart;
     private readonly ImmutableArray<SchematicFigure> _modeFigures;
+    private readonly ImmutableArray<ComplexMode> _complexModes;
 
     private ModesSection(ReportContext context)
     {
         _context = context;
         _result = context.Modal;
+        _complexModes = context.Damped.IsClassical ? [] : ComplexModes.Solve(context.Damped);
         _massChart = MassChart(_result);
         var layout = context.Layout;
         var scale = NetworkFigure.NiceShapeScale(layout);
@@ -74,7 +76,7 @@ public sealed class ModesSection : IReportSection
         var total = network.Masses.Length;
         var limit = shown < total ? string.Create(Inv, $" (the report shows at most the lowest {_context.Options.MaxModes})") : "";
         html.Paragraph(string.Create(Inv, $"The undamped natural modes (K φ = ω² M φ), lowest first: {shown} of {total} mode{(total == 1 ? "" : "s")}{limit}. ") +
-            "f is the natural frequency, T = 1/f the period, ω = 2πf. Shapes are mass-normalised (φᵀMφ = 1); M* is the effective modal mass, " +
+            "f is the undamped natural frequency, T = 1/f the period, ω = 2πf, ζ the modal damping ratio. Shapes are mass-normalised (φᵀMφ = 1); M* is the effective modal mass, " +
             "the part of the total mass that moves with the mode when all supports move together, and Σ M* its running total. " +
             "Dominant masses carry the largest shares of the mode's kinetic energy; the key spring stores the largest share of its " +
             "strain energy, so it is the one whose stiffness moves the mode most.");
@@ -84,6 +86,7 @@ public sealed class ModesSection : IReportSection
             DisplayUnits.Number(m.NaturalFrequencyHz),
             m.IsRigidBody ? "∞" : DisplayUnits.Number(m.PeriodSeconds),
             DisplayUnits.Number(m.AngularFrequency),
+            m.IsRigidBody ? "—" : DisplayUnits.Percent(ModesJson.DampingRatioOf(_context.Damped, m)),
             u.Mass(m.EffectiveModalMass),
             DisplayUnits.Percent(m.EffectiveMassFraction),
             DisplayUnits.Percent(m.CumulativeEffectiveMassFraction),
@@ -91,8 +94,14 @@ public sealed class ModesSection : IReportSection
             m.IsRigidBody || network.Springs.Length == 0 ? "—" : Dominant([.. network.Springs.Select(s => s.Name)], m.StrainEnergyShare, 1),
         ]);
         html.Table("Natural modes",
-            ["Mode", "f (Hz)", "T (s)", "ω (rad/s)", $"M* ({u.MassSymbol})", "M* (%)", "Σ M* (%)", "Dominant masses", "Key spring"],
-            rows, new HashSet<int> { 0, 1, 2, 3, 4, 5, 6 }, "modes-table");
+            ["Mode", "f (Hz)", "T (s)", "ω (rad/s)", "ζ (%)", $"M* ({u.MassSymbol})", "M* (%)", "Σ M* (%)", "Dominant masses", "Key spring"],
+            rows, new HashSet<int> { 0, 1, 2, 3, 4, 5, 6, 7 }, "modes-table");
+        if (!_complexModes.IsEmpty)
+            html.Table("Complex modes of the damped system (the damping is not classical, so the undamped shapes are coupled)",
+                ["Mode", "Undamped frequency (Hz)", "Damped frequency (Hz)", "Damping ratio (%)"],
+                _complexModes.Take(_result.Modes.Length).Select(c => (IReadOnlyList<string>)
+                    [c.Number.ToString(Inv), DisplayUnits.Number(c.UndampedFrequencyHz), c.IsOscillatory ? DisplayUnits.Number(c.DampedFrequencyHz) : "overdamped", DisplayUnits.Percent(c.DampingRatio)]),
+                new HashSet<int> { 0, 1, 2, 3 });
         html.Paragraph(string.Create(Inv,
             $"Quality: largest eigen residual ‖Kφ − ω²Mφ‖/‖Kφ‖ = {_result.Quality.MaxResidual:0.0e+00}; largest M-orthogonality error |ΦᵀMΦ − I| = {_result.Quality.MaxOrthogonalityError:0.0e+00}; solver: {_result.Algorithm}."),
             "quality");
@@ -108,7 +117,7 @@ public sealed class ModesSection : IReportSection
     public void WriteJson(Utf8JsonWriter json)
     {
         json.WriteStartObject();
-        ModesJson.WriteBody(json, _context.Document, _result, _context.Options.ToolVersion);
+        ModesJson.WriteBody(json, _context.Document, _result, _context.Options.ToolVersion, _context.Damped, _complexModes);
         json.WriteEndObject();
     }
 

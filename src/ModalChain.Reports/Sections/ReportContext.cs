@@ -1,4 +1,6 @@
+using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
 using ModalChain.Io.Model;
 using ModalChain.Reports.Drawing;
 using ModalChain.Reports.Units;
@@ -10,6 +12,8 @@ public sealed class ReportContext
 {
     private readonly Lazy<ModalResult> _modal;
     private readonly Lazy<NetworkLayout> _layout;
+    private readonly Lazy<DampedSystem> _damped;
+    private readonly Lazy<HarmonicResult?> _harmonic;
 
     /// <summary>Creates the context of one report run.</summary>
     public ReportContext(ModelDocument document, ReportOptions options)
@@ -22,6 +26,9 @@ public sealed class ReportContext
         _modal = new Lazy<ModalResult>(() => ModalAnalysis.Solve(document.Network,
             new ModalOptions(Math.Min(options.MaxModes, document.Network.Masses.Length))));
         _layout = new Lazy<NetworkLayout>(() => NetworkLayout.For(document.Network));
+        _damped = new Lazy<DampedSystem>(() => DampedSystem.Build(document.Structure));
+        _harmonic = new Lazy<HarmonicResult?>(() =>
+            document.Harmonic is { } spec && !document.Structure.Loads.IsEmpty ? HarmonicAnalysis.Solve(Damped, spec) : null);
     }
 
     /// <summary>The model as read.</summary>
@@ -35,6 +42,12 @@ public sealed class ReportContext
 
     /// <summary>The modal result of the lowest <see cref="ReportOptions.MaxModes"/> modes (solved on first use).</summary>
     public ModalResult Modal => _modal.Value;
+
+    /// <summary>The model with its damping assembled and every undamped mode solved (shared by the damped analyses).</summary>
+    public DampedSystem Damped => _damped.Value;
+
+    /// <summary>The harmonic sweep the model asks for, or null when it has no 'harmonic' section or no loads.</summary>
+    public HarmonicResult? Harmonic => _harmonic.Value;
 
     /// <summary>The drawing layout of the network (laid out on first use).</summary>
     public NetworkLayout Layout => _layout.Value;

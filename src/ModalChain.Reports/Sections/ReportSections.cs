@@ -11,5 +11,6 @@ public static class ReportSections
     [
         ModelSummarySection.Create,
         ModesSection.Create,
+        HarmonicSection.Create,
     ];
 }
