@@ -27,17 +27,20 @@ public static class CliApp
         root.Subcommands.Add(ModesCommand.Create(io));
         root.Subcommands.Add(HarmonicCommand.Create(io));
         root.Subcommands.Add(ReportCommand.Create(io));
+        // The built-in action prints the entry assembly's version, which is the host's when run in-process.
+        foreach (var v in root.Options.OfType<VersionOption>()) v.Action = new PrintVersion(output);
 
-        var parse = root.Parse(args);
-        var config = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };
-        if (parse.Errors.Count > 0 && !WantsHelp(args))
-        {
-            foreach (var e in parse.Errors) error.WriteLine($"modalchain: error: {e.Message}");
-            error.WriteLine("Run 'modalchain --help' (or 'modalchain COMMAND --help') for usage.");
-            return ExitCodes.InputError;
-        }
         try
         {
+            // Parsing runs option validators and converters, so it sits inside the handler too: no stack trace escapes.
+            var parse = root.Parse(args);
+            var config = new InvocationConfiguration { Output = output, Error = error, EnableDefaultExceptionHandler = false };
+            if (parse.Errors.Count > 0 && !WantsHelp(args))
+            {
+                foreach (var e in parse.Errors) error.WriteLine($"modalchain: error: {e.Message}");
+                error.WriteLine("Run 'modalchain --help' (or 'modalchain COMMAND --help') for usage.");
+                return ExitCodes.InputError;
+            }
             return parse.Invoke(config);
         }
         catch (NumericalFailureException e)
@@ -54,6 +57,17 @@ public static class CliApp
     }
 
     private static bool WantsHelp(string[] args) => args.Any(a => a is "--help" or "-h" or "-?");
+
+    private sealed class PrintVersion(TextWriter output) : System.CommandLine.Invocation.SynchronousCommandLineAction
+    {
+        public override bool ClearsParseErrors => true;
+
+        public override int Invoke(ParseResult parseResult)
+        {
+            output.WriteLine(Version);
+            return ExitCodes.Success;
+        }
+    }
 }
 
 /// <summary>Where a command writes: results to <see cref="Output"/>, diagnostics and notes to <see cref="Error"/>.</summary>

@@ -17,11 +17,19 @@ internal static class CommonOptions
 {
     public static Argument<string> ModelFile() => new("FILE") { Description = "The model file (YAML); see docs/model-format.md." };
 
-    public static Option<OutputFormat> Format() => new("--format")
+    public static Option<OutputFormat> Format()
     {
-        Description = "table (for reading), json (one object on stdout, SI units) or csv (for spreadsheets).",
-        DefaultValueFactory = _ => OutputFormat.Table,
-    };
+        // Lower-case words on the command line and in help; without AcceptOnlyFromAmong a wrong value was reported
+        // with the internal enum's full type name, and help listed the members capitalised.
+        var option = new Option<OutputFormat>("--format")
+        {
+            Description = "table (for reading, the default), json (one object on stdout, SI units) or csv (for spreadsheets).",
+            HelpName = "table|json|csv",
+        };
+        option.AcceptOnlyFromAmong("table", "json", "csv");
+        // No DefaultValueFactory: help would print "[default: Table]"; an absent --format is default(OutputFormat), Table.
+        return option;
+    }
 
     /// <summary>Loads the model, printing every diagnostic; returns null (and the caller exits 2) when it has errors.</summary>
     public static ModelDocument? Load(string file, Streams io)

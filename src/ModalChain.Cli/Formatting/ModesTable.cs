@@ -15,7 +15,7 @@ internal static class ModesTable
     {
         var n = result.Network;
         o.WriteLine(n.Title);
-        o.WriteLine(string.Create(Inv, $"{result.Matrices.Size} degrees of freedom, total mass {result.TotalMass:G6} kg, {result.Modes.Length} modes"));
+        o.WriteLine(string.Create(Inv, $"{result.Matrices.Size} degrees of freedom, total mass {result.TotalMass:G6} kg, {result.Modes.Length} mode{(result.Modes.Length == 1 ? "" : "s")}"));
         o.WriteLine();
         var table = new TextTable("mode", "frequency [Hz]", "omega [rad/s]", "period [s]", "damping [%]", "eff. mass [%]", "cumulative [%]", "where it moves (kinetic energy share)");
         foreach (var m in result.Modes)

@@ -29,10 +29,17 @@ public static partial class ModelReader
             context.Error(top, "the model has no 'masses' section; a network needs at least one mass");
             return null;
         }
+        if (massesNode is YScalar { IsPlainNull: true })
+        {
+            context.Error(massesNode, "'masses' is empty; a network needs at least one mass, e.g. 'deck: 3200 kg'");
+            return null;
+        }
         if (context.Mapping(massesNode, "'masses'") is not { } masses) return null;
         if (masses.Entries.Length == 0)
         {
-            context.Error(massesNode, "'masses' is empty; a network needs at least one mass");
+            // Its only entries were already reported (e.g. a key that is a list): "empty" would be a second, wrong error.
+            if (masses.DroppedKeys) return null;
+            context.Error(massesNode, "'masses' is empty; a network needs at least one mass, e.g. 'deck: 3200 kg'");
             return null;
         }
 
@@ -42,18 +49,24 @@ public static partial class ModelReader
             if (!CheckName(key, context, "mass")) continue;
             var what = $"mass '{key.Value}'";
             context.Positions[$"masses.{key.Value}"] = key.Position;
+            // Known as a node even when its value is wrong, so springs that name it do not add a second error.
+            nodes.Add(key.Value);
             double? kg;
             DrawingPosition? at = null;
             if (value is YScalar)
                 kg = context.Value(value, Quantity.Mass, MassRange, what); // shorthand: "deck: 3200 kg"
+            else if (value is YSequence)
+            {
+                context.Error(value, $"{what} must be a value such as '3200 kg' or a mapping such as '{{mass: 3200 kg, at: [0, 0]}}'");
+                continue;
+            }
             else if (context.Mapping(value, what) is { } entry)
             {
                 context.RejectUnknownKeys(entry, what, "mass", "at");
-                kg = context.Required(entry, "mass", Quantity.Mass, MassRange, what);
+                kg = context.Required(entry, "mass", Quantity.Mass, MassRange, what, key.Position);
                 if (entry["at"] is { } atNode) at = ReadPosition(atNode, context, what);
             }
             else continue;
-            nodes.Add(key.Value);
             if (kg is { } m && !context.HasErrors) builder.AddMass(key.Value, m, at);
         }
 
@@ -83,21 +96,26 @@ public static partial class ModelReader
             if (!CheckName(key, context, element)) continue;
             var what = $"{element} '{key.Value}'";
             context.Positions[$"{section}.{key.Value}"] = key.Position;
-            if (context.Mapping(value, what) is not { } entry) continue;
+            if (value is not YMapping entry)
+            {
+                var example = quantity == Quantity.Stiffness ? "95 kN/mm" : "1.5 kN*s/m";
+                context.Error(value, $"{what} must be a mapping such as '{{between: [ground, deck], {valueKey}: {example}}}'");
+                continue;
+            }
             context.RejectUnknownKeys(entry, what, "between", valueKey);
-            var ends = ReadBetween(entry, nodes, context, what);
-            var v = context.Required(entry, valueKey, quantity, range, what);
+            var ends = ReadBetween(entry, key.Position, nodes, context, what);
+            var v = context.Required(entry, valueKey, quantity, range, what, key.Position);
             if (ends is { } e && v is { } x) result.Add((key.Value, e.A, e.B, x));
         }
         return result;
     }
 
-    private static (string A, string B)? ReadBetween(YMapping entry, HashSet<string> nodes, ReadContext context, string what)
+    private static (string A, string B)? ReadBetween(YMapping entry, SourcePosition owner, HashSet<string> nodes, ReadContext context, string what)
     {
         var node = entry["between"];
         if (node is null)
         {
-            context.Error(entry, $"{what} needs 'between: [node, node]' naming the two masses or supports it connects");
+            context.Error(owner, $"{what} needs 'between: [node, node]' naming the two masses or supports it connects");
             return null;
         }
         if (node is not YSequence { Items.Length: 2 } seq)

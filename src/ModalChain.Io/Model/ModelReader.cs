@@ -35,8 +35,8 @@ public static partial class ModelReader
 
     private static LoadResult Read(byte[] bytes, string file)
     {
-        var text = new UTF8Encoding(false).GetString(bytes).TrimStart('\uFEFF');
         var context = new ReadContext(file);
+        if (Decode(bytes, context) is not { } text) return Finish(context, null);
         var root = YamlTree.Load(text, file, context.Diagnostics);
         if (root is null || (root is YScalar s && s.IsPlainNull))
         {
@@ -65,6 +65,24 @@ public static partial class ModelReader
             Harmonic = harmonic,
         };
         return Finish(context, document);
+    }
+
+    // Model files are UTF-8 (with or without a byte-order mark). A file saved as UTF-16 ("Unicode" in some Windows
+    // editors) is decoded by its mark; any other encoding is reported rather than silently turned into U+FFFD.
+    private static string? Decode(byte[] bytes, ReadContext context)
+    {
+        if (bytes is [0xFF, 0xFE, ..]) return Encoding.Unicode.GetString(bytes, 2, bytes.Length - 2);
+        if (bytes is [0xFE, 0xFF, ..]) return Encoding.BigEndianUnicode.GetString(bytes, 2, bytes.Length - 2);
+        var chars = new char[bytes.Length];
+        var status = System.Text.Unicode.Utf8.ToUtf16(bytes, chars, out var read, out var written, replaceInvalidSequences: false);
+        if (status == System.Buffers.OperationStatus.Done) return new string(chars, 0, written).TrimStart('\uFEFF');
+
+        var decoded = new string(chars, 0, written).TrimStart('\uFEFF');
+        var line = decoded.Count(c => c == '\n') + 1;
+        var column = decoded.Length - (decoded.LastIndexOf('\n') + 1) + 1;
+        context.Error(new SourcePosition(line, column),
+            $"the file is not UTF-8 text (byte 0x{bytes[read]:X2} here); save it with UTF-8 encoding");
+        return null;
     }
 
     private static LoadResult Finish(ReadContext context, ModelDocument? model) =>

@@ -14,8 +14,16 @@ internal readonly record struct Range(double Minimum, double Maximum, bool Minim
 }
 
 /// <summary>State shared by the section readers of one file: the file name and the diagnostics found so far.</summary>
-internal sealed class ReadContext(string file)
+internal sealed partial class ReadContext(string file)
 {
+    // "3,5 kg": a decimal comma, as written in much of Europe; model files use the invariant decimal point.
+    [System.Text.RegularExpressions.GeneratedRegex(@"^\s*([+-]?\d+),(\d+)")]
+    private static partial System.Text.RegularExpressions.Regex DecimalComma();
+
+    // "3 200 kg": thousands grouped with a space, which would otherwise read as 3 with the unit "200 kg".
+    [System.Text.RegularExpressions.GeneratedRegex(@"^(\s*[+-]?\d{1,3}) (\d{3}\b)")]
+    private static partial System.Text.RegularExpressions.Regex GroupedDigits();
+
     public string File { get; } = file;
     public List<Diagnostic> Diagnostics { get; } = [];
     public Dictionary<string, SourcePosition> Positions { get; } = [];
@@ -42,12 +50,13 @@ internal sealed class ReadContext(string file)
     }
 
     /// <summary>Reads a required value of <paramref name="quantity"/> from <paramref name="mapping"/>[<paramref name="key"/>].</summary>
-    public double? Required(YMapping mapping, string key, Quantity quantity, Range range, string what)
+    /// <remarks>A missing key is reported at <paramref name="owner"/> (where the element is named) when given, else at the mapping's start.</remarks>
+    public double? Required(YMapping mapping, string key, Quantity quantity, Range range, string what, SourcePosition? owner = null)
     {
         var node = mapping[key];
         if (node is null)
         {
-            Error(mapping, $"{what} needs '{key}'");
+            Error(owner ?? mapping.Position, $"{what} needs '{key}', e.g. '{key}: {Example(quantity)}'");
             return null;
         }
         return Value(node, quantity, range, $"'{key}' of {what}");
@@ -65,6 +74,16 @@ internal sealed class ReadContext(string file)
             Error(node, $"{what} must be a {UnitTable.Describe(quantity)} value such as '{Example(quantity)}'");
             return null;
         }
+        if (DecimalComma().IsMatch(scalar.Value))
+        {
+            Error(node, $"{what}: '{scalar.Value}' uses a decimal comma; write the decimal point, e.g. '{DecimalComma().Replace(scalar.Value, "$1.$2")}'");
+            return null;
+        }
+        if (GroupedDigits().IsMatch(scalar.Value))
+        {
+            Error(node, $"{what}: '{scalar.Value}' groups digits with spaces; write the number without separators, e.g. '{GroupedDigits().Replace(scalar.Value, "$1$2")}'");
+            return null;
+        }
         var parsed = QuantityParser.Parse(scalar.Value, quantity);
         if (!parsed.Succeeded)
         {
@@ -75,7 +94,7 @@ internal sealed class ReadContext(string file)
         var belowMinimum = range.MinimumInclusive ? v < range.Minimum : v <= range.Minimum;
         if (belowMinimum || v > range.Maximum)
         {
-            Error(node, $"{what} is {UnitTable.FormatSi(v, quantity)}, {RangeText(range, quantity)}");
+            Error(node, $"{what} is {Si(v, quantity)}, {RangeText(range, quantity, v)}");
             return null;
         }
         return v;
@@ -89,12 +108,27 @@ internal sealed class ReadContext(string file)
         return null;
     }
 
-    private static string RangeText(Range range, Quantity quantity)
+    private static string RangeText(Range range, Quantity quantity, double value)
     {
+        // Say the sign rule plainly when that is what was broken; the plausible range is for magnitudes.
+        if (value < 0 && range.Minimum >= 0)
+            return range.Minimum > 0 || !range.MinimumInclusive
+                ? $"but a {UnitTable.Describe(quantity)} must be positive"
+                : $"but a {UnitTable.Describe(quantity)} cannot be negative";
+        if (value == 0 && (range.Minimum > 0 || !range.MinimumInclusive))
+            return $"but a {UnitTable.Describe(quantity)} must be positive";
         if (range.Minimum == 0 && !range.MinimumInclusive && range.Maximum == double.MaxValue) return "but it must be positive";
         if (range.Minimum == 0 && range.MinimumInclusive && range.Maximum == double.MaxValue) return "but it must not be negative";
-        var low = range.Minimum == 0 && !range.MinimumInclusive ? "positive" : (range.MinimumInclusive ? "at least " : "above ") + UnitTable.FormatSi(range.Minimum, quantity);
-        return $"outside the plausible range ({low} and at most {UnitTable.FormatSi(range.Maximum, quantity)}); check the number and its unit";
+        var low = range.Minimum == 0 && !range.MinimumInclusive ? "positive" : (range.MinimumInclusive ? "at least " : "above ") + Si(range.Minimum, quantity);
+        return $"outside the plausible range ({low} and at most {Si(range.Maximum, quantity)}); check the number and its unit";
+    }
+
+    // Plain digits where a reader takes them in at a glance ("-8400000 N/m"), powers of ten beyond ("1e+30 kg").
+    private static string Si(double value, Quantity quantity)
+    {
+        var magnitude = Math.Abs(value);
+        var format = value == 0 || (magnitude >= 1e-3 && magnitude < 1e9) ? "0.######" : "0.###e+0";
+        return value.ToString(format, System.Globalization.CultureInfo.InvariantCulture) + " " + UnitTable.SiSymbol(quantity);
     }
 
     private static string Example(Quantity quantity) => quantity switch

@@ -30,9 +30,9 @@ public class DenseGeneralizedEigenTests
     [Fact]
     public void FullMass_SolvesThroughCholeskyAndMatchesTheDeterminantCondition()
     {
-        // A consistent-mass-like M = (m/6)[[2, 1], [1, 2]] with K = k[[2, −1], [−1, 1]]: det(K − λM) = 0 is the
-        // quadratic (m²/12)λ² − (5km/6 + ... ) λ + k² = 0, solved here directly from its coefficients
-        // a = det M, b = −(K11 M22 + K22 M11 − 2 K12 M12), c = det K (2×2 algebra, common practice). Tolerance 1e-12.
+        // A consistent-mass-like M = (m/6)[[2, 1], [1, 2]] with K = k[[2, −1], [−1, 1]]: for 2×2 matrices
+        // det(K − λM) = a λ² + b λ + c with a = det M, b = −(K11 M22 + K22 M11 − 2 K12 M12), c = det K
+        // (2×2 algebra, common practice); its roots are the expected λ. Tolerance 1e-12 relative.
         const double mm = 6.0, kk = 1.0e4;
         var k = Matrix<double>.Build.DenseOfArray(new double[,] { { 2 * kk, -kk }, { -kk, kk } });
         var m = Matrix<double>.Build.DenseOfArray(new double[,] { { 2 * mm / 6, mm / 6 }, { mm / 6, 2 * mm / 6 } });

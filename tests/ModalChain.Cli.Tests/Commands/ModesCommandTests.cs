@@ -1,0 +1,74 @@
+using System.Text.Json;
+using ModalChain.TestSupport;
+using static ModalChain.Cli.Tests.CliRun;
+
+namespace ModalChain.Cli.Tests.Commands;
+
+/// <summary><c>modes</c> on models the examples do not cover: rigid-body modes, warnings, another culture.</summary>
+public class ModesCommandTests
+{
+    private const string Floating =
+        "title: Cart and load on a frictionless track\n" +
+        "masses:\n" +
+        "  cart: 400 kg\n" +
+        "  load: 100 kg\n" +
+        "springs:\n" +
+        "  coupler: {between: [cart, load], stiffness: 20 kN/m}\n";
+
+    [Fact]
+    public void UnsupportedNetwork_ReportsARigidBodyMode_WithAWarningOnStderr()
+    {
+        using var model = new TempModel(Floating);
+        var o = Run("modes", model.Path);
+        Assert.True(o.ExitCode == 0, o.ToString());
+        Assert.StartsWith($"{model.Path}:3:3: warning: masses 'cart', 'load' are not connected to ground", o.Stderr, StringComparison.Ordinal);
+        var row1 = o.Stdout.Split('\n').First(l => l.TrimStart().StartsWith("1 ", StringComparison.Ordinal));
+        Assert.Contains("rigid body", row1, StringComparison.Ordinal);
+        Assert.Contains("1 rigid-body mode(s) at 0 Hz", o.Stdout, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void UnsupportedNetwork_JsonStaysOneObject_WithTheWarningInside()
+    {
+        using var model = new TempModel(Floating);
+        var o = Run("modes", model.Path, "--format", "json");
+        Assert.Equal(0, o.ExitCode);
+        using var json = JsonDocument.Parse(o.Stdout);
+        var modes = json.RootElement.GetProperty("modes");
+        Assert.Equal(JsonValueKind.Null, modes[0].GetProperty("period_s").ValueKind);
+        // Free-free two-mass oscillator: ω² = k (m1 + m2)/(m1 m2) (common practice).
+        NumericAssert.Close(Math.Sqrt(20e3 * 500 / 40e3), modes[1].GetProperty("omega_rad_s").GetDouble(), Tolerance.Rel(1e-12), "elastic ω");
+        Assert.Single(json.RootElement.GetProperty("warnings").EnumerateArray());
+        Assert.Contains("warning:", o.Stderr, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("table")]
+    [InlineData("json")]
+    [InlineData("csv")]
+    public void Output_IsIdenticalUnderADecimalCommaCulture(string format)
+    {
+        var path = ModelPath("chiller-deck.yaml");
+        var invariant = Run("modes", path, "--format", format);
+        CliOutcome german;
+        using (new CultureScope("de-DE")) german = Run("modes", path, "--format", format);
+        Assert.Equal(0, german.ExitCode);
+        Assert.Equal(invariant.Stdout, german.Stdout);
+    }
+
+    [Fact]
+    public void ChillerDeck_MatchesTheTwoMassFrequencyEquation()
+    {
+        // m1 m2 ω⁴ − [m1 k2 + m2 (k1 + k2)] ω² + k1 k2 = 0 (two masses in a chain from ground, k3 = 0;
+        // REFERENCES.md §1; any vibration textbook, common practice). deck 3200 kg on 95 kN/mm, skid 850 kg on 8.4 kN/mm.
+        const double m1 = 3200, m2 = 850, k1 = 95e6, k2 = 8.4e6;
+        double a = m1 * m2, b = -(m1 * k2 + m2 * (k1 + k2)), c = k1 * k2;
+        var disc = Math.Sqrt(b * b - 4 * a * c);
+        double[] omega = [Math.Sqrt((-b - disc) / (2 * a)), Math.Sqrt((-b + disc) / (2 * a))];
+        var o = Run("modes", ModelPath("chiller-deck.yaml"), "--format", "json");
+        using var json = JsonDocument.Parse(o.Stdout);
+        var modes = json.RootElement.GetProperty("modes");
+        for (var i = 0; i < 2; i++)
+            NumericAssert.Close(omega[i], modes[i].GetProperty("omega_rad_s").GetDouble(), Tolerance.Rel(1e-10), $"ω{i + 1}");
+    }
+}

@@ -1,0 +1,57 @@
+using System.Diagnostics;
+using System.Text.Json;
+using static ModalChain.Cli.Tests.CliRun;
+
+namespace ModalChain.Cli.Tests;
+
+/// <summary>The built executable, run as a child process: proves Program.cs passes the real streams and exit code.</summary>
+public class ProgramTests
+{
+    private static (int ExitCode, string Stdout, string Stderr) Exec(params string[] args)
+    {
+        // modalchain.dll is copied next to the test assembly by the project reference.
+        var dll = Path.Combine(AppContext.BaseDirectory, "modalchain.dll");
+        Assert.True(File.Exists(dll), $"{dll} not found");
+        // The muxer that runs these tests (DOTNET_HOST_PATH is set by `dotnet test`); "dotnet" on PATH otherwise.
+        var host = Environment.GetEnvironmentVariable("DOTNET_HOST_PATH") is { Length: > 0 } h ? h : "dotnet";
+        var start = new ProcessStartInfo(host)
+        {
+            RedirectStandardOutput = true,
+            RedirectStandardError = true,
+            UseShellExecute = false,
+        };
+        start.ArgumentList.Add("exec");
+        start.ArgumentList.Add(dll);
+        foreach (var a in args) start.ArgumentList.Add(a);
+        start.Environment["DOTNET_CLI_TELEMETRY_OPTOUT"] = "1";
+        using var process = Process.Start(start)!;
+        var stdout = process.StandardOutput.ReadToEndAsync();
+        var stderr = process.StandardError.ReadToEndAsync();
+        if (!process.WaitForExit(TimeSpan.FromSeconds(60)))
+        {
+            process.Kill(entireProcessTree: true);
+            Assert.Fail("modalchain did not finish within 60 s");
+        }
+        return (process.ExitCode, stdout.Result, stderr.Result);
+    }
+
+    [Fact]
+    public void Executable_WritesJsonToStdout_AndExitsZero()
+    {
+        var (code, stdout, stderr) = Exec("modes", ModelPath("chiller-deck.yaml"), "--format", "json");
+        Assert.True(code == 0, stderr);
+        using var json = JsonDocument.Parse(stdout);
+        Assert.Equal(2, json.RootElement.GetProperty("modes").GetArrayLength());
+    }
+
+    [Fact]
+    public void Executable_ExitsTwo_OnABrokenModel_WithThePositionOnStderr()
+    {
+        using var model = new TempModel("masses:\n  deck: -1 kg\n");
+        var (code, stdout, stderr) = Exec("validate", model.Path);
+        Assert.Equal(ExitCodes.InputError, code);
+        Assert.Equal("", stdout);
+        Assert.StartsWith($"{model.Path}:2:9: error: ", stderr, StringComparison.Ordinal);
+        Assert.DoesNotContain("   at ", stderr, StringComparison.Ordinal);
+    }
+}
