@@ -92,10 +92,13 @@ public static class NetworkFigure
             for (var i = 0; i < rest.Length; i++)
             {
                 var tip = frames[0][i];
+                // The label sits on the outer side of the displaced block, away from the undeformed one.
+                var outward = mode.Shape[i] >= 0;
                 var offset = frame.Axis == ChainAxis.Vertical
-                    ? new Point(frame.HalfWidth + 4, frame.HalfHeight + 11)
-                    : new Point(frame.HalfWidth + 4, -frame.HalfHeight - 4);
-                shapes.Add(new TextShape(tip + offset, Signed(mode.Shape[i]), 10, TextAnchor.Start, false, Palette.Vermillion)
+                    ? new Point(outward ? frame.HalfWidth + 4 : -frame.HalfWidth - 4, 4)
+                    : new Point(0, outward ? -frame.HalfHeight - 5 : frame.HalfHeight + 13);
+                var anchor = frame.Axis == ChainAxis.Horizontal ? TextAnchor.Middle : outward ? TextAnchor.Start : TextAnchor.End;
+                shapes.Add(new TextShape(tip + offset, Signed(mode.Shape[i]), 10, anchor, false, Palette.Vermillion)
                 { Class = "amplitude", Data = ImmutableDictionary<string, string>.Empty.Add("mass", layout.Masses[i].Name) });
             }
         var data = frame.Data
@@ -191,11 +194,11 @@ public static class NetworkFigure
             var parts = ImmutableArray.CreateBuilder<Shape>();
             for (var p = 0; p < geometry[0].Length; p++)
                 parts.Add(new PathShape([.. geometry.Select(g => g[p])], pen));
-            if (labels && units is not null)
+            var start = geometry[0][0][0];
+            var end = e.Kind == ElementKind.Spring ? geometry[0][0][^1] : geometry[0][2][0];
+            // Labels of very short elements would sit on the blocks; the tables of the report list every value anyway.
+            if (labels && units is not null && (end - start).Length >= 60)
             {
-                var line = geometry[0][0];
-                var start = line[0];
-                var end = geometry[0][^1][0];
                 var mid = 0.5 * (start + end);
                 var u = Unit(end - start, frame.Axis);
                 var n = new Point(-u.Y, u.X);
@@ -333,7 +336,10 @@ public static class NetworkFigure
             s = Math.Min(s, MaxPixelsPerSpacing / layout.Spacing);
             var spacingPx = layout.Spacing * s;
             var halfHeight = Math.Clamp(0.14 * spacingPx, 2.5, 15);
-            var halfWidth = Math.Clamp(2.2 * halfHeight, 5, 34);
+            var longest = layout.Masses.Max(m => m.Name.Length);
+            var halfWidth = halfHeight >= 9
+                ? Math.Clamp(Math.Max(2.2 * halfHeight, 0.5 * (longest * 0.62 * Math.Min(11, 1.6 * halfHeight) + 12)), 5, 62)
+                : Math.Clamp(2.2 * halfHeight, 5, 34);
             var top = 16 + headerLines * HeaderLine + BodyMargin;
             var body = spanY * s;
             var height = top + body + BodyMargin + 10 + footerLines * FooterLine + 8;

@@ -23,12 +23,25 @@ public sealed class HarmonicSection : IReportSection
     private readonly HarmonicResult _result;
     private readonly ImmutableArray<ChartFigure> _figures;
 
+    /// <summary>Most response charts the section draws; results.json always holds every output.</summary>
+    public const int MaxCharts = 8;
+
+    /// <summary>The outputs that have a chart, in output order.</summary>
+    public ImmutableArray<DofResponse> Charted { get; }
+
     private HarmonicSection(ReportContext context, HarmonicResult result)
     {
         _context = context;
         _result = result;
         var log = context.Document.Harmonic?.Frequencies is FrequencyRange { Spacing: FrequencySpacing.Logarithmic };
-        _figures = [.. result.Responses.Select(r => ResponseChart(r, log))];
+        // A chart per output up to a readable number; beyond it, the outputs with the largest peak displacement.
+        Charted = [.. result.Responses
+            .Select((r, i) => (r, i, peak: r.Displacement.Max(x => x.Magnitude)))
+            .OrderByDescending(p => result.Responses.Length <= MaxCharts ? -p.i : p.peak)
+            .Take(MaxCharts)
+            .OrderBy(p => p.i)
+            .Select(p => p.r)];
+        _figures = [.. Charted.Select(r => ResponseChart(r, log))];
     }
 
     /// <summary>The factory registered in <see cref="ReportSections.Default"/>: null when the model asks for no harmonic response.</summary>
@@ -101,6 +114,8 @@ public sealed class HarmonicSection : IReportSection
                     new HashSet<int> { 1, 2 });
         }
         html.Paragraph("In each chart the upper panel is the displacement amplitude on a logarithmic axis and the lower panel its phase relative to the loads; dashed grey lines mark the natural frequencies and dash-dot orange lines the running speeds.");
+        if (Charted.Length < _result.Responses.Length)
+            html.Paragraph(string.Create(Inv, $"Charts are drawn for the {Charted.Length} of {_result.Responses.Length} outputs with the largest peak displacement; results.json holds every output."), "note");
         foreach (var figure in _figures) html.Figure(figure);
     }
 

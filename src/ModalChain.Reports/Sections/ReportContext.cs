@@ -23,8 +23,12 @@ public sealed class ReportContext
         Document = document;
         Options = options;
         Units = new DisplayUnits(options.Units);
-        _modal = new Lazy<ModalResult>(() => ModalAnalysis.Solve(document.Network,
-            new ModalOptions(Math.Min(options.MaxModes, document.Network.Masses.Length))));
+        // The damped system already holds every undamped mode: the report's modes are its lowest ones, not a second solve.
+        _modal = new Lazy<ModalResult>(() =>
+        {
+            var all = Damped.Modes;
+            return all.Modes.Length <= options.MaxModes ? all : all with { Modes = [.. all.Modes.Take(options.MaxModes)] };
+        });
         _layout = new Lazy<NetworkLayout>(() => NetworkLayout.For(document.Network));
         _damped = new Lazy<DampedSystem>(() => DampedSystem.Build(document.Structure));
         _harmonic = new Lazy<HarmonicResult?>(() =>
@@ -40,7 +44,7 @@ public sealed class ReportContext
     /// <summary>Display units of the HTML and figures.</summary>
     public DisplayUnits Units { get; }
 
-    /// <summary>The modal result of the lowest <see cref="ReportOptions.MaxModes"/> modes (solved on first use).</summary>
+    /// <summary>The lowest <see cref="ReportOptions.MaxModes"/> modes (quality figures are over every mode solved).</summary>
     public ModalResult Modal => _modal.Value;
 
     /// <summary>The model with its damping assembled and every undamped mode solved (shared by the damped analyses).</summary>
