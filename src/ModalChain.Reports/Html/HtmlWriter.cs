@@ -85,13 +85,6 @@ public sealed class HtmlWriter
         return this;
     }
 
-    /// <summary>Markup the caller has built with this writer's own methods elsewhere (never data).</summary>
-    internal HtmlWriter Raw(string markup)
-    {
-        _html.Append(markup);
-        return this;
-    }
-
     /// <inheritdoc />
     public override string ToString() => _html.ToString();
 }

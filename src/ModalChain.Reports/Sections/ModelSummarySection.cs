@@ -4,7 +4,6 @@ using ModalChain.Core.Model;
 using ModalChain.Reports.Drawing;
 using ModalChain.Reports.Figures;
 using ModalChain.Reports.Html;
-using ModalChain.Reports.Units;
 
 namespace ModalChain.Reports.Sections;
 
@@ -145,7 +144,4 @@ public sealed class ModelSummarySection : IReportSection
         }
         json.WriteEndArray();
     }
-
-    /// <summary>Formats a mass for table cells (kept here so the summary and its tests agree).</summary>
-    internal static string MassCell(DisplayUnits units, double kg) => units.Mass(kg);
 }
