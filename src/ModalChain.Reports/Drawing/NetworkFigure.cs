@@ -59,7 +59,7 @@ public static class NetworkFigure
             for (var i = 0; i < centres.Length; i++)
             {
                 var name = layout.Masses[i].Name;
-                var value = units.Mass(massKilograms[name]) + " " + units.MassSymbol;
+                var value = units.Mass(massKilograms[name], given: true) + " " + units.MassSymbol;
                 shapes.Add(new TextShape(centres[i] + new Point(frame.HalfWidth + 5, 4), value, 10, TextAnchor.Start, false, "#333333") { Class = "mass-value" });
             }
         Footer(shapes, frame, footer, legend: null);
@@ -204,8 +204,8 @@ public static class NetworkFigure
                 var n = new Point(-u.Y, u.X);
                 if (n.X < 0 || (n.X == 0 && n.Y > 0)) n = -1 * n;
                 var value = e.Kind == ElementKind.Spring
-                    ? units.Stiffness(e.Value) + " " + units.StiffnessSymbol
-                    : units.Damping(e.Value) + " " + units.DampingSymbol;
+                    ? units.Stiffness(e.Value, given: true) + " " + units.StiffnessSymbol
+                    : units.Damping(e.Value, given: true) + " " + units.DampingSymbol;
                 // Two elements side by side get their labels on either side; more stack their labels on one side.
                 var spread = 0.5 * Math.Max(0, e.ParallelCount - 1) * Math.Min(24, 1.5 * frame.HalfWidth / Math.Max(1, e.ParallelCount - 1));
                 var left = e.ParallelCount == 2 && e.ParallelIndex == 0;

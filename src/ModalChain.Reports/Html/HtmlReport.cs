@@ -88,7 +88,7 @@ internal static class HtmlReport
         .figure-body svg { display: block; width: 100%; height: auto; max-height: 225mm; border: 1px solid var(--rule); }
         figcaption { font-size: 9pt; color: var(--muted); margin-top: 0.35em; }
         figcaption .file { font-family: 'DejaVu Sans Mono', 'Liberation Mono', monospace; font-size: 8pt; color: #777; margin-left: 0.4em; }
-        .mode-figure { display: grid; grid-template-columns: 1fr 30%; gap: 0 3mm; align-items: start; }
+        .mode-figure { display: grid; grid-template-columns: 1fr 27%; gap: 0 3mm; align-items: start; }
         .mode-figure .figure-body { grid-column: 1; }
         .mode-figure figcaption { grid-column: 1 / span 2; }
         .mode-figure:not(:has(.animation)) .figure-body { grid-column: 1 / span 2; }

@@ -23,7 +23,7 @@ public sealed class ModelSummarySection : IReportSection
         {
             "Network: " + network.Title,
             string.Create(CultureInfo.InvariantCulture,
-                $"{network.Masses.Length} masses, {network.Springs.Length} springs, {network.Dampers.Length} dampers; total mass {units.Mass(network.TotalMass)} {units.MassSymbol}"),
+                $"{Count(network.Masses.Length, "mass", "masses")}, {Count(network.Springs.Length, "spring", "springs")}, {Count(network.Dampers.Length, "damper", "dampers")}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
         };
         var footer = new[] { PositionNote(layout) };
         var scene = NetworkFigure.Network(layout, header, footer, units, network.Masses.ToDictionary(m => m.Name, m => m.Kilograms));
@@ -43,6 +43,8 @@ public sealed class ModelSummarySection : IReportSection
     /// <inheritdoc />
     public IReadOnlyList<ReportFigure> Figures => [_drawing];
 
+    private static string Count(int n, string one, string many) => n.ToString(CultureInfo.InvariantCulture) + " " + (n == 1 ? one : many);
+
     /// <summary>Says where the drawing's positions came from.</summary>
     public static string PositionNote(NetworkLayout layout) => layout.Automatic
         ? "Positions laid out automatically (masses stacked by their distance from the supports), since not every mass has a distinct 'at'."
@@ -58,22 +60,22 @@ public sealed class ModelSummarySection : IReportSection
         [
             ("Title", network.Title),
             ("Degrees of freedom", network.Masses.Length.ToString(CultureInfo.InvariantCulture) + " (one direction of motion per mass)"),
-            ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass)),
+            ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass, given: true)),
             ("Masses, springs, dampers", string.Create(CultureInfo.InvariantCulture, $"{network.Masses.Length}, {network.Springs.Length}, {network.Dampers.Length}")),
             ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
             ("Parts not held by a spring to a support", groups.Length == 0 ? "none" : string.Join("; ", groups.Select(g => string.Join(", ", g))) + " (rigid-body modes at 0 Hz)"),
         ]);
         html.Table("Masses", ["Name", $"Mass ({u.MassSymbol})", $"Drawing position ({u.LengthSymbol})"],
-            network.Masses.Select(m => (IReadOnlyList<string>)[m.Name, u.Mass(m.Kilograms),
-                m.Position is { } p ? $"({u.Length(p.X)}, {u.Length(p.Y)})" : "—"]),
+            network.Masses.Select(m => (IReadOnlyList<string>)[m.Name, u.Mass(m.Kilograms, given: true),
+                m.Position is { } p ? $"({u.Length(p.X, given: true)}, {u.Length(p.Y, given: true)})" : "—"]),
             new HashSet<int> { 1 });
         if (network.Springs.Length > 0)
             html.Table("Springs", ["Name", "Between", $"Stiffness ({u.StiffnessSymbol})"],
-                network.Springs.Select(s => (IReadOnlyList<string>)[s.Name, $"{s.NodeA} – {s.NodeB}", u.Stiffness(s.Stiffness)]),
+                network.Springs.Select(s => (IReadOnlyList<string>)[s.Name, $"{s.NodeA} – {s.NodeB}", u.Stiffness(s.Stiffness, given: true)]),
                 new HashSet<int> { 2 });
         if (network.Dampers.Length > 0)
             html.Table("Dampers", ["Name", "Between", $"Coefficient ({u.DampingSymbol})"],
-                network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}", u.Damping(d.Coefficient)]),
+                network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}", u.Damping(d.Coefficient, given: true)]),
                 new HashSet<int> { 2 });
         if (_context.Document.Warnings.Length > 0)
         {

@@ -39,16 +39,24 @@ public sealed class DisplayUnits
     public string LengthSymbol => _length.Symbol;
 
     /// <summary>A mass given in kg, as a number in the display unit.</summary>
-    public string Mass(double kilograms) => Number(kilograms / _mass.Factor);
+    /// <param name="kilograms">Mass in kg.</param>
+    /// <param name="given">True for a value the user wrote (shown to six digits without padding zeros), false for a result (four significant digits).</param>
+    public string Mass(double kilograms, bool given = false) => Format(kilograms / _mass.Factor, given);
 
     /// <summary>A stiffness given in N/m, as a number in the display unit.</summary>
-    public string Stiffness(double newtonsPerMetre) => Number(newtonsPerMetre / _stiffness.Factor);
+    public string Stiffness(double newtonsPerMetre, bool given = false) => Format(newtonsPerMetre / _stiffness.Factor, given);
 
     /// <summary>A damping coefficient given in N·s/m, as a number in the display unit.</summary>
-    public string Damping(double newtonSecondsPerMetre) => Number(newtonSecondsPerMetre / _damping.Factor);
+    public string Damping(double newtonSecondsPerMetre, bool given = false) => Format(newtonSecondsPerMetre / _damping.Factor, given);
 
     /// <summary>A drawing length given in m, as a number in the display unit.</summary>
-    public string Length(double metres) => Number(metres / _length.Factor);
+    public string Length(double metres, bool given = false) => Format(metres / _length.Factor, given);
+
+    /// <summary>A value the user wrote, to six significant digits without padding zeros ("850", "1.2", "95000").</summary>
+    public static string Given(double value) =>
+        double.IsFinite(value) ? value.ToString("G6", CultureInfo.InvariantCulture) : Number(value);
+
+    private static string Format(double value, bool given) => given ? Given(value) : Number(value);
 
     /// <summary>A number with four significant digits, without exponent for ordinary magnitudes.</summary>
     public static string Number(double value, int digits = 4)
