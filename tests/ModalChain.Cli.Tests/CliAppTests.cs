@@ -36,7 +36,7 @@ public class CliAppTests
         Assert.DoesNotContain("   at ", o.Stderr, StringComparison.Ordinal);
         var lines = o.Stderr.Split('\n', StringSplitOptions.RemoveEmptyEntries).Select(l => l.TrimEnd('\r')).ToArray();
         Assert.Equal($"{model.Path}:3:{Col(3, "-3200")}: error: 'mass' of mass 'deck' is -3200 kg, but a mass must be positive", lines[0]);
-        Assert.Equal($"{model.Path}:6:{Col(6, "dek")}: error: spring 'columns' refers to unknown node 'dek' (did you mean 'deck'?); declare it under 'masses' or use 'ground'", lines[1]);
+        Assert.Equal($"{model.Path}:6:{Col(6, "dek")}: error: spring 'columns' refers to unknown node 'dek' (did you mean 'deck'?); declare it under 'masses' or 'supports', or use 'ground'", lines[1]);
         Assert.StartsWith($"{model.Path}:7:{Col(7, "8.4 kg")}: error: 'stiffness' of spring 'mounts': 'kg' is a unit of mass", lines[2], StringComparison.Ordinal);
         Assert.Equal($"{model.Path}: 3 errors; nothing was analysed.", lines[3]);
         Assert.Equal(4, lines.Length);

@@ -76,44 +76,61 @@ public sealed class ComplexHessenberg
         return new ComplexHessenberg(n, h, q);
     }
 
-    /// <summary>Solves (s·I − H) y = g in place in <paramref name="g"/>; <paramref name="work"/> holds n·n entries and is overwritten.</summary>
-    /// <remarks>Gaussian elimination with partial pivoting between neighbouring rows, O(n²).</remarks>
+    /// <summary>Solves (s·I − H) y = g in place in <paramref name="g"/>; <paramref name="work"/> holds n·n + n entries and is overwritten.</summary>
+    /// <remarks>
+    /// Gaussian elimination with partial pivoting between neighbouring rows, O(n²). Rows of sI − H are formed as they
+    /// are reached, so H is read once and each row of U is written once (no copy of the whole matrix per shift).
+    /// </remarks>
     /// <returns>False when the shifted matrix is exactly singular.</returns>
     public bool SolveShifted(Complex s, Span<Complex> g, Span<Complex> work)
     {
         var n = Order;
         var hs = H.AsSpan();
-        // work = sI − H, upper Hessenberg.
-        for (var i = 0; i < n; i++)
+        var u = work[..(n * n)];
+        var carried = work.Slice(n * n, n);   // the row still to be eliminated, entries k..n−1
+        // Row 0 of sI − H.
         {
-            var from = Math.Max(0, i - 1);
-            var src = hs.Slice(i * n + from, n - from);
-            var dst = work.Slice(i * n + from, n - from);
-            for (var j = 0; j < src.Length; j++) dst[j] = -src[j];
-            work[i * n + i] += s;
+            var h0 = hs.Slice(0, n);
+            for (var j = 0; j < n; j++) carried[j] = -h0[j];
+            carried[0] += s;
         }
         for (var k = 0; k < n - 1; k++)
         {
-            var rowK = work.Slice(k * n + k, n - k);
-            var rowN = work.Slice((k + 1) * n + k, n - k);
-            if (ComplexLu.Magnitude1(rowN[0]) > ComplexLu.Magnitude1(rowK[0]))
+            // Next row of sI − H: −H[k+1, k..] with s on its diagonal.
+            var next = hs.Slice((k + 1) * n + k, n - k);
+            var sub = -next[0];
+            var c = carried.Slice(k, n - k);
+            var urow = u.Slice(k * n + k, n - k);
+            if (ComplexLu.Magnitude1(sub) > ComplexLu.Magnitude1(c[0]))
             {
-                for (var j = 0; j < rowK.Length; j++) (rowK[j], rowN[j]) = (rowN[j], rowK[j]);
+                // The fresh row becomes U's row k; the carried row is eliminated against it.
+                if (sub == Complex.Zero) return false;
+                var l = c[0] / sub;
+                urow[0] = sub;
+                urow[1] = -next[1] + s;
+                c[1] -= l * urow[1];
+                for (var j = 2; j < urow.Length; j++) urow[j] = -next[j];
+                ComplexKernels.SubtractScaled(c[2..], l, urow[2..]);
                 (g[k], g[k + 1]) = (g[k + 1], g[k]);
+                g[k + 1] -= l * g[k];
             }
-            if (rowK[0] == Complex.Zero) return false;
-            var l = rowN[0] / rowK[0];
-            if (l != Complex.Zero)
+            else
             {
-                for (var j = 1; j < rowK.Length; j++) rowN[j] -= l * rowK[j];
+                if (c[0] == Complex.Zero) return false;
+                var l = sub / c[0];
+                urow[0] = c[0];
+                for (var j = 1; j < urow.Length; j++) urow[j] = c[j];
+                var diagonal = -next[1] + s;
+                c[1] = diagonal - l * urow[1];
+                ComplexKernels.NegateSubtractScaled(c[2..], next[2..], l, urow[2..]);
                 g[k + 1] -= l * g[k];
             }
         }
+        u[(n - 1) * n + n - 1] = carried[n - 1];
         for (var i = n - 1; i >= 0; i--)
         {
-            var row = work.Slice(i * n, n);
-            var sum = g[i];
-            for (var j = i + 1; j < n; j++) sum -= row[j] * g[j];
+            var row = u.Slice(i * n, n);
+            var sum = g[i] - ComplexKernels.Dot(row[(i + 1)..], g[(i + 1)..]);
             if (row[i] == Complex.Zero) return false;
             g[i] = sum / row[i];
         }

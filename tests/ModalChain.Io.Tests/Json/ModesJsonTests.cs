@@ -54,14 +54,15 @@ public class ModesJsonTests
         string[] required = ["title", "dofs", "total_mass_kg", "modes", "quality"];
         string[] requiredMode = ["number", "frequency_hz", "omega_rad_s", "period_s", "shape", "participation", "effective_mass_kg", "effective_mass_fraction"];
         Assert.Subset(Names(root).ToHashSet(), required.ToHashSet());
-        Assert.Equal(["title", "source", "dofs", "total_mass_kg", "algorithm", "modes", "quality", "warnings", "caution"], Names(root));
+        Assert.Equal(["title", "source", "dofs", "total_mass_kg", "algorithm", "modes", "damping", "quality", "warnings", "caution"], Names(root));
 
         foreach (var mode in root.GetProperty("modes").EnumerateArray())
         {
             Assert.Subset(Names(mode).ToHashSet(), requiredMode.ToHashSet());
             Assert.Equal(
                 ["number", "frequency_hz", "omega_rad_s", "period_s", "rigid_body", "shape", "participation", "effective_mass_kg",
-                 "effective_mass_fraction", "cumulative_mass_fraction", "kinetic_energy_share", "strain_energy_share", "residual"],
+                 "effective_mass_fraction", "cumulative_mass_fraction", "kinetic_energy_share", "strain_energy_share", "residual",
+                 "damping_ratio", "damped_frequency_hz"],
                 Names(mode));
             Assert.Equal(["m1", "m2"], Names(mode.GetProperty("shape")));
             Assert.Equal(["k1", "k2"], Names(mode.GetProperty("strain_energy_share")));

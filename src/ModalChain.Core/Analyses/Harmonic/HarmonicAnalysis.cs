@@ -74,12 +74,33 @@ public static class HarmonicAnalysis
             if (p.Free.IndexOf(e.NodeA) is var a and >= 0) neededSet.Add(a);
             if (p.Free.IndexOf(e.NodeB) is var b and >= 0) neededSet.Add(b);
         }
-        for (var i = 0; i < n; i++)
-            for (var s = 0; s < p.SupportCount; s++)
-                if (p.StiffnessFP[i, s] != 0 || system.Damping.FP[i, s] != 0) neededSet.Add(i);
         var needed = neededSet.ToArray();
         var slot = new Dictionary<int, int>();
         for (var k = 0; k < needed.Length; k++) slot[needed[k]] = k;
+        // Observation rows: unit rows for the displacements needed, then K_pf and C_pf rows for each support's reaction.
+        var observations = new List<double[]>(needed.Length + 2 * p.SupportCount);
+        foreach (var i in needed)
+        {
+            var unit = new double[n];
+            unit[i] = 1;
+            observations.Add(unit);
+        }
+        var stiffnessRow = new int[p.SupportCount];
+        var dampingRow = new int[p.SupportCount];
+        for (var s = 0; s < p.SupportCount; s++)
+        {
+            var ks = new double[n];
+            var cs = new double[n];
+            for (var i = 0; i < n; i++)
+            {
+                ks[i] = p.StiffnessFP[i, s];
+                cs[i] = system.Damping.FP[i, s];
+            }
+            stiffnessRow[s] = ks.Any(v => v != 0) ? observations.Count : -1;
+            if (stiffnessRow[s] >= 0) observations.Add(ks);
+            dampingRow[s] = cs.Any(v => v != 0) ? observations.Count : -1;
+            if (dampingRow[s] >= 0) observations.Add(cs);
+        }
 
         var notes = ImmutableArray.CreateBuilder<string>();
         int used;
@@ -90,7 +111,7 @@ public static class HarmonicAnalysis
             used = modeCount is { } c ? Math.Clamp(c, 1, n)
                 : Math.Max(1, system.Modes.Modes.Count(m => m.NaturalFrequencyHz <= 2 * fmax));
             var rigid = system.Modes.RigidBodyModeCount > 0;
-            engine = new ModalEngine(system, loading, needed, used, residualFlexibility: !rigid);
+            engine = new ModalEngine(system, loading, [.. observations], used, residualFlexibility: !rigid);
             notes.Add(string.Create(CultureInfo.InvariantCulture, $"modal superposition of {used} of {n} modes") +
                 (used < n ? (rigid ? "; residual flexibility left out (the network has rigid-body modes)" : ", residual flexibility for the rest") : ""));
             if (!system.IsClassical)
@@ -100,28 +121,32 @@ public static class HarmonicAnalysis
         else
         {
             used = 0;
-            engine = new DirectEngine(system, loading, needed);
+            engine = new DirectEngine(system, loading, [.. observations]);
             notes.Add("direct solve (Hessenberg form of the state matrix, exact for any damping)");
         }
         if (system.Model.Damping.IsNone && !system.HasViscousDamping)
             notes.Add("the model has no damping: responses at natural frequencies are unbounded");
 
         var nf = frequenciesHz.Count;
-        var nk = needed.Length;
+        var nk = observations.Count;
         var terms = loading.Terms.Count;
         var x = new Complex[nf * nk];
         var failed = -1;
-        Parallel.For(0, nf, new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, Math.Min(Environment.ProcessorCount, nf / 64 + 1)) },
-            () => (Workspace: engine.CreateWorkspace(), Coefficients: new Complex[terms], Powers: new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1]),
-            (k, _, local) =>
+        // Contiguous chunks, one per worker, each with its workspace allocated once: no allocation per frequency.
+        var workers = Math.Max(1, Math.Min(Environment.ProcessorCount, nf / 64 + 1));
+        Parallel.For(0, workers, new ParallelOptions { MaxDegreeOfParallelism = workers }, w =>
+        {
+            var workspace = engine.CreateWorkspace();
+            var coefficients = new Complex[terms];
+            var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];
+            for (var k = (int)((long)nf * w / workers); k < (int)((long)nf * (w + 1) / workers); k++)
             {
                 var omega = 2 * Math.PI * frequenciesHz[k];
-                HarmonicLoading.Powers(omega, local.Powers);
-                for (var r = 0; r < terms; r++) local.Coefficients[r] = local.Powers[loading.Terms[r].Power - HarmonicLoading.MinPower];
-                if (!engine.Solve(omega, local.Coefficients, x.AsSpan(k * nk, nk), local.Workspace)) Interlocked.Exchange(ref failed, k);
-                return local;
-            },
-            _ => { });
+                HarmonicLoading.Powers(omega, powers);
+                for (var r = 0; r < terms; r++) coefficients[r] = powers[loading.Terms[r].Power - HarmonicLoading.MinPower];
+                if (!engine.Solve(omega, coefficients, x.AsSpan(k * nk, nk), workspace)) Interlocked.Exchange(ref failed, k);
+            }
+        });
         if (failed >= 0)
             throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,
                 $"the dynamic stiffness is singular at {frequenciesHz[failed]:G6} Hz ({n} DOFs): an undamped natural frequency; add damping or move the point"));
@@ -160,11 +185,8 @@ public static class HarmonicAnalysis
             {
                 var iw = new Complex(0, 2 * Math.PI * frequenciesHz[k]);
                 var sum = Complex.Zero;
-                foreach (var i in needed)
-                {
-                    var z = p.StiffnessFP[i, s] * hysteretic + iw * system.Damping.FP[i, s];
-                    if (z != Complex.Zero) sum += z * x[k * nk + slot[i]];
-                }
+                if (stiffnessRow[s] >= 0) sum += hysteretic * x[k * nk + stiffnessRow[s]];
+                if (dampingRow[s] >= 0) sum += iw * x[k * nk + dampingRow[s]];
                 for (var t = 0; t < p.SupportCount; t++)
                 {
                     var ut = u[k * p.SupportCount + t];
@@ -225,7 +247,9 @@ public static class HarmonicAnalysis
         var frequencies = FrequencyGrid.Build(new FrequencyRange(fromHz, toHz, points, FrequencySpacing.Linear), true,
             [.. system.Modes.Modes.Select(m => m.NaturalFrequencyHz)], system.ModalDampingRatios);
         var loading = HarmonicLoading.Compile(system, loads);
-        var engine = new DirectEngine(system, loading, [index]);
+        var unitRow = new double[system.Partition.FreeCount];
+        unitRow[index] = 1;
+        var engine = new DirectEngine(system, loading, [unitRow]);
         var ws = engine.CreateWorkspace();
         var coefficients = new Complex[loading.Terms.Count];
         var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];

@@ -7,18 +7,31 @@ namespace ModalChain.Core.Analyses.Harmonic;
 /// <summary>Per-thread scratch memory of an engine, allocated once per sweep and thread.</summary>
 internal abstract class EngineWorkspace;
 
-/// <summary>Computes the displacement at selected free DOFs for one frequency, writing into caller-owned buffers.</summary>
-internal abstract class HarmonicEngine(int[] needed)
+/// <summary>Computes fixed linear functions y_k = w_kᵀ X of the free displacements for one frequency, into caller-owned buffers.</summary>
+/// <remarks>
+/// An observation row w_k is a unit vector for the displacement of one mass, or a row of K_pf or C_pf for a support
+/// reaction; asking for the functions rather than all of X keeps each frequency's cost proportional to the outputs.
+/// </remarks>
+internal abstract class HarmonicEngine(double[][] observations)
 {
-    /// <summary>Free-DOF indices whose displacement <see cref="Solve"/> writes, in order.</summary>
-    public int[] Needed { get; } = needed;
+    /// <summary>The observation rows w_k, each of length n (free DOFs).</summary>
+    public double[][] Observations { get; } = observations;
+
+    /// <summary>Σ_i w_i a_i over the non-zero weights.</summary>
+    protected static Complex Dot(double[] w, Func<int, Complex> a)
+    {
+        var s = Complex.Zero;
+        for (var i = 0; i < w.Length; i++)
+            if (w[i] != 0) s += w[i] * a(i);
+        return s;
+    }
 
     public abstract EngineWorkspace CreateWorkspace();
 
-    /// <summary>Writes X at <see cref="Needed"/> into <paramref name="x"/> for circular frequency ω in rad/s; false when the system is singular there.</summary>
+    /// <summary>Writes y_k = w_kᵀX into <paramref name="x"/> for circular frequency ω in rad/s; false when the system is singular there.</summary>
     /// <param name="omega">Circular frequency in rad/s.</param>
     /// <param name="coefficients">(iω)^{p_r} per load term, in the order of the loading's terms.</param>
-    /// <param name="x">Displacements in m, one per needed DOF.</param>
+    /// <param name="x">One value per observation row (m for a unit row, N for a stiffness row, N·s/m·m for a damping row).</param>
     /// <param name="workspace">Scratch memory from <see cref="CreateWorkspace"/>.</param>
     public abstract bool Solve(double omega, ReadOnlySpan<Complex> coefficients, Span<Complex> x, EngineWorkspace workspace);
 }
@@ -34,11 +47,11 @@ internal sealed class DirectEngine : HarmonicEngine
 {
     private readonly ComplexHessenberg _hessenberg;
     private readonly Complex[] _g;    // terms × N: Qᴴ B b_r
-    private readonly Complex[] _qx;   // needed × N: rows of Q for the needed displacements, divided by ω0
+    private readonly Complex[] _qx;   // observations × N: w_kᵀ Q[0..n) / ω0
     private readonly int _order;
     private readonly int _terms;
 
-    public DirectEngine(DampedSystem system, HarmonicLoading loading, int[] needed) : base(needed)
+    public DirectEngine(DampedSystem system, HarmonicLoading loading, double[][] observations) : base(observations)
     {
         var p = system.Partition;
         var n = p.FreeCount;
@@ -77,15 +90,25 @@ internal sealed class DirectEngine : HarmonicEngine
                 for (var j = 0; j < order; j++) g[j] += Complex.Conjugate(row[j]) * bi;
             }
         }
-        _qx = new Complex[needed.Length * order];
-        for (var kk = 0; kk < needed.Length; kk++)
-            for (var j = 0; j < order; j++) _qx[kk * order + j] = q[needed[kk] * order + j] / w0;
+        _qx = new Complex[observations.Length * order];
+        for (var kk = 0; kk < observations.Length; kk++)
+        {
+            var w = observations[kk];
+            var row = _qx.AsSpan(kk * order, order);
+            for (var i = 0; i < n; i++)
+            {
+                if (w[i] == 0) continue;
+                var f = w[i] / w0;
+                var qi = q.AsSpan(i * order, order);
+                for (var j = 0; j < order; j++) row[j] += f * qi[j];
+            }
+        }
     }
 
     private sealed class Workspace(int order) : EngineWorkspace
     {
         public readonly Complex[] G = new Complex[order];
-        public readonly Complex[] Matrix = new Complex[order * order];
+        public readonly Complex[] Matrix = new Complex[order * order + order];
     }
 
     public override EngineWorkspace CreateWorkspace() => new Workspace(_order);
@@ -132,10 +155,10 @@ internal sealed class ModalEngine : HarmonicEngine
     private readonly double[]? _coupling;    // Ĉ m×m when not classical
     private readonly Complex _hysteretic;
     private readonly Complex[] _p;           // m × terms: φ_jᵀ b_r
-    private readonly double[] _phi;          // needed × m
-    private readonly Complex[]? _residual;   // needed × terms: R b_r / (1+iη)
+    private readonly double[] _phi;          // observations × m: w_kᵀ φ_j
+    private readonly Complex[]? _residual;   // observations × terms: w_kᵀ R b_r / (1+iη)
 
-    public ModalEngine(DampedSystem system, HarmonicLoading loading, int[] needed, int modeCount, bool residualFlexibility) : base(needed)
+    public ModalEngine(DampedSystem system, HarmonicLoading loading, double[][] observations, int modeCount, bool residualFlexibility) : base(observations)
     {
         var modes = system.Modes.Modes;
         var n = system.Partition.FreeCount;
@@ -159,22 +182,31 @@ internal sealed class ModalEngine : HarmonicEngine
                 for (var i = 0; i < n; i++) s += modes[j].Shape[i] * b[i];
                 _p[j * _terms + r] = s;
             }
-        _phi = new double[needed.Length * _m];
-        for (var k = 0; k < needed.Length; k++)
-            for (var j = 0; j < _m; j++) _phi[k * _m + j] = modes[j].Shape[needed[k]];
+        var no = observations.Length;
+        _phi = new double[no * _m];
+        for (var k = 0; k < no; k++)
+            for (var j = 0; j < _m; j++)
+            {
+                var w = observations[k];
+                var shape = modes[j].Shape;
+                var s = 0.0;
+                for (var i = 0; i < n; i++)
+                    if (w[i] != 0) s += w[i] * shape[i];
+                _phi[k * _m + j] = s;
+            }
 
         if (residualFlexibility && _m < n)
         {
             var lu = system.Partition.StiffnessFF.LU();
-            _residual = new Complex[needed.Length * _terms];
+            _residual = new Complex[no * _terms];
             for (var r = 0; r < _terms; r++)
             {
                 var b = loading.Terms[r].Vector;
                 var re = lu.Solve(MathNet.Numerics.LinearAlgebra.Vector<double>.Build.Dense(n, i => b[i].Real));
                 var im = lu.Solve(MathNet.Numerics.LinearAlgebra.Vector<double>.Build.Dense(n, i => b[i].Imaginary));
-                for (var k = 0; k < needed.Length; k++)
+                for (var k = 0; k < no; k++)
                 {
-                    var s = new Complex(re[needed[k]], im[needed[k]]);
+                    var s = Dot(observations[k], i => new Complex(re[i], im[i]));
                     for (var j = 0; j < _m; j++) s -= _phi[k * _m + j] * _p[j * _terms + r] / _lambda[j];
                     _residual[k * _terms + r] = s / _hysteretic;
                 }
