@@ -25,6 +25,9 @@ public static class CliApp
             "Exit codes: 0 done, 1 a check failed, 2 input error, 3 numerical failure, 4 internal error.\n\n" + CautionHelp);
         root.Subcommands.Add(ValidateCommand.Create(io));
         root.Subcommands.Add(ModesCommand.Create(io));
+        root.Subcommands.Add(CheckCommand.Create(io));
+        root.Subcommands.Add(TuneCommand.Create(io));
+        root.Subcommands.Add(StudyCommand.Create(io));
         root.Subcommands.Add(HarmonicCommand.Create(io));
         root.Subcommands.Add(ReportCommand.Create(io));
         // The built-in action prints the entry assembly's version, which is the host's when run in-process.

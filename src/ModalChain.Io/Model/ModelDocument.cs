@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Model;
 using ModalChain.Io.Diagnostics;
@@ -23,6 +24,9 @@ public sealed record ModelDocument(
 
     /// <summary>The harmonic sweep the file asks for in its 'harmonic' section, or null when it has none.</summary>
     public HarmonicSpec? Harmonic { get; init; }
+
+    /// <summary>The criteria of the file's <c>criteria:</c> section (empty when it has none).</summary>
+    public CriteriaSet Criteria { get; init; } = CriteriaSet.None;
 }
 
 /// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>

@@ -14,7 +14,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "damping", "loads", "harmonic"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "damping", "loads", "harmonic", "criteria"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -52,6 +52,7 @@ public static partial class ModelReader
         var damping = ReadDamping(top, context);
         var loads = ReadLoads(top, massNames, supportNames, context);
         var harmonic = ReadHarmonic(top, massNames, loads, context);
+        var criteria = ReadCriteria(top, context, network);
         if (network is null || context.HasErrors) return Finish(context, null);
 
         var document = new ModelDocument(
@@ -63,6 +64,7 @@ public static partial class ModelReader
         {
             Structure = new Core.Model.StructuralModel(network, damping, loads),
             Harmonic = harmonic,
+            Criteria = criteria,
         };
         return Finish(context, document);
     }

@@ -1,0 +1,129 @@
+using System.CommandLine;
+using System.Globalization;
+using ModalChain.Cli.Formatting;
+using ModalChain.Core;
+using ModalChain.Core.Analyses.Criteria;
+using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Io.Json;
+using ModalChain.Io.Model;
+
+namespace ModalChain.Cli.Commands;
+
+/// <summary><c>modalchain check FILE</c>: evaluates the model's criteria; exit 0 when all pass, 1 when any fails, 2 on input errors.</summary>
+internal static class CheckCommand
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    public static Command Create(Streams io)
+    {
+        var file = CommonOptions.ModelFile();
+        var format = CommonOptions.Format();
+        format.Validators.Add(r =>
+        {
+            if (r.GetValueOrDefault<OutputFormat>() == OutputFormat.Csv) r.AddError("--format csv is not offered by check; use table or json.");
+        });
+        var command = new Command("check",
+            "Evaluate the criteria of the model's 'criteria:' section: frequency separation (no natural frequency within " +
+            "±margin of any running speed × order) and vibration limits at the operating points. Each criterion prints " +
+            "its reserve, how far it is from failing in %. Exit code 0 when all pass, 1 when any fails or cannot be " +
+            "evaluated, 2 on input errors. Default margins are common practice, not code requirements (docs/criteria.md).\n\n" +
+            CliApp.CautionHelp)
+        { file, format };
+        command.SetAction(parse =>
+        {
+            var path = parse.GetValue(file)!;
+            var document = CommonOptions.Load(path, io);
+            if (document is null) return ExitCodes.InputError;
+            if (document.Criteria.IsEmpty)
+            {
+                io.Error.WriteLine($"{path}: error: the model has no 'criteria' section, so there is nothing to check (see docs/model-format.md)");
+                return ExitCodes.InputError;
+            }
+            var outcome = Evaluate(document);
+            if (parse.GetValue(format) == OutputFormat.Json)
+            {
+                using var stdout = new MemoryStream();
+                CheckJson.Write(stdout, document, outcome, CliApp.Version);
+                io.Output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
+            }
+            else Write(io.Output, document, outcome);
+            return outcome.AllPass ? ExitCodes.Success : ExitCodes.CheckFailed;
+        });
+        return command;
+    }
+
+    /// <summary>Evaluates every criterion of <paramref name="document"/>.</summary>
+    internal static CheckOutcome Evaluate(ModelDocument document)
+    {
+        var modal = ModalAnalysis.Solve(document.Network);
+        var criteria = document.Criteria;
+        var separation = criteria.Separation is { } s
+            ? SeparationCheck.Evaluate([.. modal.Modes.Select(m => m.NaturalFrequencyHz)], s)
+            : null;
+        var (limits, notEvaluated) = OperatingPoints.EvaluateLimits(document, criteria.Limits);
+        return new CheckOutcome(separation, limits, notEvaluated);
+    }
+
+    private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome)
+    {
+        o.WriteLine(document.Network.Title);
+        o.WriteLine();
+        if (outcome.Separation is { } sep)
+        {
+            var c = sep.Criterion;
+            o.WriteLine(string.Create(Inv, $"Frequency separation: no natural frequency within ±{c.Margin * 100:G4} % of running speed × order"));
+            var table = new TextTable("speed", "order", "excitation [Hz]", "band [Hz]", "nearest mode", "f_n [Hz]", "separation [%]", "reserve [%]", "result");
+            foreach (var (speed, order, fe) in c.Excitations())
+            {
+                var pairs = sep.Pairs.Where(p => p.SpeedHz == speed && p.Order == order).ToList();
+                if (pairs.Count == 0) continue;
+                var worst = pairs.MinBy(p => p.Reserve)!;
+                table.Add(
+                    string.Create(Inv, $"{speed * 60:G6} rpm"),
+                    order.ToString("G4", Inv),
+                    fe.ToString("F3", Inv),
+                    string.Create(Inv, $"{(1 - c.Margin) * fe:F2}-{(1 + c.Margin) * fe:F2}"),
+                    worst.ModeNumber.ToString(Inv),
+                    worst.NaturalFrequencyHz.ToString("F3", Inv),
+                    (100 * worst.Separation).ToString("F1", Inv),
+                    Signed(worst.Reserve),
+                    worst.Passes ? "pass" : "FAIL");
+            }
+            table.Write(o);
+            o.WriteLine(sep.Passes
+                ? string.Create(Inv, $"  passes; the governing mode may shift {100 * sep.Reserve:F1} % before it enters a band.")
+                : string.Create(Inv, $"  FAILS; the governing mode must shift {-100 * sep.Reserve:F1} % to leave its band."));
+            o.WriteLine("  reserve = relative change of the natural frequency that puts it on the nearest band edge (positive: clear).");
+            o.WriteLine();
+        }
+        if (outcome.Limits.Count > 0)
+        {
+            o.WriteLine("Vibration limits at the operating points (steady state)");
+            var table = new TextTable("where", "quantity", "measure", "value", "limit", "reserve [%]", "result");
+            foreach (var l in outcome.Limits)
+                table.Add(l.Limit.At, l.Limit.Quantity.ToString().ToLowerInvariant(), l.Limit.Measure == AmplitudeMeasure.Peak ? "peak" : "rms",
+                    Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Signed(l.Reserve), l.Passes ? "pass" : "FAIL");
+            table.Write(o);
+            o.WriteLine("  reserve = (limit - value) / limit.");
+            o.WriteLine();
+        }
+        foreach (var (criterion, reason) in outcome.NotEvaluated)
+            o.WriteLine($"NOT EVALUATED: {criterion}: {reason}");
+        if (outcome.NotEvaluated.Count > 0) o.WriteLine();
+        o.WriteLine(outcome.AllPass ? "Result: all criteria pass." : "Result: at least one criterion fails or could not be evaluated.");
+        o.WriteLine("These criteria are the ones stated in the model file; default margins are common practice, not code compliance.");
+        o.WriteLine();
+        o.WriteLine("Caution: " + Cautions.Text);
+    }
+
+    internal static string Signed(double fraction) =>
+        double.IsPositiveInfinity(fraction) ? "inf" : (100 * fraction).ToString("+0.0;-0.0;0.0", Inv);
+
+    internal static string Show(double si, ResponseQuantity q) => q switch
+    {
+        ResponseQuantity.Displacement => (si * 1e3).ToString("G4", Inv) + " mm",
+        ResponseQuantity.Velocity => (si * 1e3).ToString("G4", Inv) + " mm/s",
+        _ => si.ToString("G4", Inv) + " m/s^2",
+    };
+}

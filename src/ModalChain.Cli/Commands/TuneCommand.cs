@@ -1,0 +1,220 @@
+using System.Collections.Immutable;
+using System.CommandLine;
+using System.Globalization;
+using ModalChain.Core;
+using ModalChain.Core.Analyses.Absorbers;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Units;
+using ModalChain.Io.Json;
+using ModalChain.Io.Model;
+
+namespace ModalChain.Cli.Commands;
+
+/// <summary>How the absorber is tuned.</summary>
+internal enum TuneMethod
+{
+    DenHartog,
+    Optimal,
+}
+
+/// <summary><c>modalchain tune FILE --host MASS --mass-ratio 5 %</c>: sizes a tuned vibration absorber for one mode.</summary>
+internal static class TuneCommand
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    public static Command Create(Streams io)
+    {
+        var file = CommonOptions.ModelFile();
+        var host = new Option<string>("--host") { Description = "The mass the absorber hangs on.", Required = true };
+        var ratio = new Option<string>("--mass-ratio") { Description = "Absorber mass over the mode's modal mass at the host, e.g. '5 %' or 0.05.", Required = true };
+        var mode = new Option<int?>("--mode") { Description = "Mode to control (default: the mode nearest a running speed × order of criteria.separation or a load's running speed, or --speed × those orders)." };
+        var speed = new Option<string?>("--speed") { Description = "Running speed to choose the mode by, e.g. '1480 rpm' (overrides the speeds of criteria.separation)." };
+        var target = new Option<string>("--target")
+        {
+            Description = "force (harmonic force on the structure; Den Hartog), base (harmonic base acceleration; Warburton 1982) or random-force (white-noise force; Warburton 1982).",
+            DefaultValueFactory = _ => "force",
+        };
+        target.AcceptOnlyFromAmong("force", "base", "random-force");
+        var method = new Option<string>("--method")
+        {
+            Description = "den-hartog (the classical closed form for the target) or optimal (numerical minimisation of the host's worst peak on the full network).",
+            DefaultValueFactory = _ => "den-hartog",
+        };
+        method.AcceptOnlyFromAmong("den-hartog", "optimal");
+        var format = new Option<OutputFormat>("--format") { Description = "table or json (one object on stdout, SI units).", DefaultValueFactory = _ => OutputFormat.Table };
+        format.Validators.Add(r =>
+        {
+            if (r.GetValueOrDefault<OutputFormat>() == OutputFormat.Csv) r.AddError("--format csv is not offered by tune; use table or json.");
+        });
+        var write = new Option<string?>("--write") { Description = "Also write the model with the absorber added to this file, ready for every other command." };
+        var command = new Command("tune",
+            "Size a tuned vibration absorber (mass, spring, damper) for one mode, from the mode's modal mass at the host " +
+            "(1/phi_host^2 with mass-normalised shapes) and the classical optimum for the target excitation. The damping " +
+            "ratio printed is the absorber's own, c/(2*sqrt(k*m)).\n\n" + AbsorberCaution.Text + "\n\n" + CliApp.CautionHelp)
+        { file, host, ratio, mode, speed, target, method, format, write };
+        command.SetAction(parse =>
+        {
+            var path = parse.GetValue(file)!;
+            var document = CommonOptions.Load(path, io);
+            if (document is null) return ExitCodes.InputError;
+            var mu = QuantityParser.Parse(parse.GetValue(ratio)!, Quantity.Ratio);
+            if (!mu.Succeeded)
+            {
+                io.Error.WriteLine($"modalchain: error: --mass-ratio '{parse.GetValue(ratio)}': {mu.Error}");
+                return ExitCodes.InputError;
+            }
+            var excitations = Excitations(document, parse.GetValue(speed), io);
+            if (excitations is null) return ExitCodes.InputError;
+            var modal = ModalAnalysis.Solve(document.Network);
+            var request = new AbsorberRequest(parse.GetValue(host)!, mu.Value, parse.GetValue(mode), excitations.Value, Target(parse.GetValue(target)!));
+            var problems = AbsorberTuning.Problems(modal, request);
+            if (problems.Length > 0)
+            {
+                foreach (var p in problems) io.Error.WriteLine($"modalchain: error: {p}");
+                return ExitCodes.InputError;
+            }
+            var tuneMethod = parse.GetValue(method) == "optimal" ? TuneMethod.Optimal : TuneMethod.DenHartog;
+            var closedForm = AbsorberTuning.Design(modal, request);
+            var names = AbsorberTuning.FreeNames(document.Network, closedForm.Host);
+            var structure = document.Structure;
+            var design = closedForm;
+            string? improvement = null;
+            var methodName = request.Target == AbsorberTarget.Force ? "den-hartog" : "warburton";
+            if (tuneMethod == TuneMethod.Optimal)
+            {
+                var closedPeak = AbsorberPerformance.WorstPeak(AbsorberPerformance.With(structure, closedForm, names), closedForm).Peak;
+                var (optimised, evaluations) = AbsorberPerformance.Optimise(structure, closedForm, names);
+                var optimisedPeak = AbsorberPerformance.WorstPeak(AbsorberPerformance.With(structure, optimised, names), optimised).Peak;
+                if (optimisedPeak <= closedPeak) design = optimised with { ChosenBy = closedForm.ChosenBy };
+                improvement = string.Create(Inv,
+                    $"worst host peak {Math.Min(optimisedPeak, closedPeak):G6} against {closedPeak:G6} with the closed form ({100 * (1 - Math.Min(optimisedPeak, closedPeak) / closedPeak):F2} % lower; {evaluations} response evaluations)");
+                methodName = "optimal";
+            }
+            var assessment = AbsorberPerformance.Assess(structure, design, names) with
+            {
+                OperatingStroke = AbsorberPerformance.OperatingStroke(structure, design, names, OperatingPoints.Loads(document)),
+            };
+
+            if (parse.GetValue(write) is { } output)
+            {
+                var code = WriteModel(document, design, names, output, io);
+                if (code != ExitCodes.Success) return code;
+            }
+            if (parse.GetValue(format) == OutputFormat.Json)
+            {
+                using var stdout = new MemoryStream();
+                TuneJson.Write(stdout, document, design, methodName, assessment, improvement, CliApp.Version);
+                io.Output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
+            }
+            else WriteTable(io.Output, document, design, request, assessment, improvement);
+            return ExitCodes.Success;
+        });
+        return command;
+    }
+
+    private static string Peak(double value) =>
+        double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
+
+    private static ImmutableArray<double>? Excitations(ModelDocument document, string? speedText, Streams io)
+    {
+        if (speedText is not null)
+        {
+            var s = QuantityParser.Parse(speedText, Quantity.Frequency);
+            if (!s.Succeeded || !(s.Value > 0))
+            {
+                io.Error.WriteLine($"modalchain: error: --speed '{speedText}': {s.Error ?? "must be positive"}");
+                return null;
+            }
+            var orders = document.Criteria.Separation?.Orders ?? [1.0];
+            return [.. orders.Select(h => h * s.Value)];
+        }
+        // Running speeds × orders of the separation criterion, and the loads' own running speeds.
+        var fromCriteria = document.Criteria.Separation is { } sep ? sep.Excitations().Select(e => e.FrequencyHz) : [];
+        var fromLoads = OperatingPoints.Loads(document).Where(l => l.SpeedHz is > 0).Select(l => l.SpeedHz!.Value);
+        return [.. fromCriteria.Concat(fromLoads).Distinct()];
+    }
+
+    private static AbsorberTarget Target(string text) => text switch
+    {
+        "base" => AbsorberTarget.BaseAcceleration,
+        "random-force" => AbsorberTarget.RandomForce,
+        _ => AbsorberTarget.Force,
+    };
+
+    private static int WriteModel(ModelDocument document, AbsorberDesign design, AbsorberNames names, string output, Streams io)
+    {
+        var network = AbsorberTuning.Attach(document.Network, design, names);
+        string original;
+        try { original = File.ReadAllText(document.File); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            io.Error.WriteLine($"modalchain: error: cannot read {document.File} again to write {output}: {e.Message}");
+            return ExitCodes.InputError;
+        }
+        var text = ModelWriter.WithAdditions(original, document.File, network,
+        [
+            $"Written by modalchain tune from {Path.GetFileName(document.File)} (sha256 {document.Sha256[..12]}).",
+            string.Create(Inv, $"Absorber '{names.Mass}' on '{design.Host}' for mode {design.ModeNumber} ({design.ModeFrequencyHz:F3} Hz), mass ratio {design.Optimum.MassRatio * 100:G4} %."),
+            "Comments of the original file are not carried over.",
+        ]);
+        try { File.WriteAllText(output, text); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        {
+            io.Error.WriteLine($"modalchain: error: cannot write {output}: {e.Message}");
+            return ExitCodes.InputError;
+        }
+        io.Error.WriteLine($"wrote {output}: the model with absorber mass '{names.Mass}', spring '{names.Spring}'{(design.Damping > 0 ? $" and damper '{names.Damper}'" : "")}");
+        return ExitCodes.Success;
+    }
+
+    private static void WriteTable(TextWriter o, ModelDocument document, AbsorberDesign d, AbsorberRequest request, AbsorberAssessment a, string? improvement)
+    {
+        o.WriteLine(document.Network.Title);
+        o.WriteLine();
+        var targetText = d.Target switch
+        {
+            AbsorberTarget.Force => "harmonic force on the structure (Den Hartog 1956, fixed points)",
+            AbsorberTarget.BaseAcceleration => "harmonic base acceleration (Warburton 1982)",
+            _ => "white-noise force (Warburton 1982)",
+        };
+        o.WriteLine(string.Create(Inv, $"Mode controlled:        {d.ModeNumber} at {d.ModeFrequencyHz:F4} Hz ({d.ChosenBy})"));
+        o.WriteLine(string.Create(Inv, $"Host:                   {d.Host}; modal mass there 1/phi^2 = {d.ModalMass:G6} kg"));
+        o.WriteLine(string.Create(Inv, $"Mass ratio:             {d.Optimum.MassRatio * 100:G4} %"));
+        o.WriteLine($"Tuned for:              {targetText}");
+        o.WriteLine();
+        o.WriteLine("Absorber");
+        o.WriteLine(string.Create(Inv, $"  mass                  {d.Mass:G6} kg"));
+        o.WriteLine(string.Create(Inv, $"  stiffness             {d.Stiffness:G6} N/m ({d.Stiffness / 1e6:G5} kN/mm)"));
+        o.WriteLine(string.Create(Inv, $"  damping coefficient   {d.Damping:G6} N*s/m"));
+        o.WriteLine(string.Create(Inv, $"  tuned frequency       {d.FrequencyHz:F4} Hz (ratio to the mode {d.FrequencyHz / d.ModeFrequencyHz:F6})"));
+        o.WriteLine(string.Create(Inv, $"  damping ratio         {d.DampingRatio:F6}  (absorber's own: c/(2*sqrt(k*m)))"));
+        o.WriteLine(string.Create(Inv, $"                        {d.DampingRatioPrimaryReferenced:F6}  (the same damper referred to the mode's frequency: c/(2*m*omega_p))"));
+        if (d.Target == AbsorberTarget.Force)
+            o.WriteLine(string.Create(Inv, $"  expected peak         {d.Optimum.PeakAmplification:F4} x static deflection at the host (fixed-point value sqrt(1+2/mu), undamped single-mode primary)"));
+        o.WriteLine();
+        o.WriteLine(string.Create(Inv, $"On the full model (all modes, the model's damping), harmonic force at '{d.Host}', band {a.BandHz.Low:F2}-{a.BandHz.High:F2} Hz:"));
+        o.WriteLine("  peaks are |x_host| * K / |F| with K = modal mass * omega_p^2 (the static deflection of the mode's equivalent spring)");
+        o.WriteLine($"  peak before           {Peak(a.PeakBefore)}");
+        o.WriteLine(string.Create(Inv, $"  peak after            {Peak(a.PeakAfter)} at {a.PeakFrequencyHz:F3} Hz"));
+        o.WriteLine(string.Create(Inv, $"  absorber stroke       {a.StrokePerForce * 1e6:G4} mm per kN of force at the host, at {a.PeakFrequencyHz:F3} Hz (relative to the host)"));
+        o.WriteLine(double.IsFinite(a.OperatingStroke)
+            ? string.Create(Inv, $"  stroke in operation   {a.OperatingStroke * 1e3:G4} mm peak under the model's loads at their running speeds")
+            : "  stroke in operation   not computed: no load of the model has a running speed");
+        if (improvement is not null) o.WriteLine($"  optimal tuning:       {improvement}");
+        o.WriteLine("  mistuning (absorber frequency off, same mass and damping ratio):");
+        var table = new Formatting.TextTable("frequency error", "absorber [Hz]", "peak after", "vs tuned");
+        foreach (var p in a.Mistuning)
+            table.Add(string.Create(Inv, $"{p.FrequencyError * 100:+0;-0} %"), (d.FrequencyHz * (1 + p.FrequencyError)).ToString("F3", Inv), Peak(p.Peak),
+                string.Create(Inv, $"{100 * (p.Peak / a.PeakAfter - 1):+0.0;-0.0} %"));
+        var lines = new StringWriter();
+        table.Write(lines);
+        foreach (var line in lines.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries)) o.WriteLine("    " + line);
+        o.WriteLine("  With the absorber, two modes sit either side of the controlled frequency: judge the fix by the vibration limits, not by separation.");
+        if (request.MassRatio > AbsorberTuning.LargeMassRatio)
+            o.WriteLine(string.Create(Inv, $"Note: a mass ratio above {AbsorberTuning.LargeMassRatio * 100:G3} % stretches the single-mode approximation; check the result on the full model."));
+        o.WriteLine();
+        o.WriteLine("Absorber caution: " + AbsorberCaution.Text);
+        o.WriteLine();
+        o.WriteLine("Caution: " + Cautions.Text);
+    }
+}

@@ -1,0 +1,176 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Model;
+
+namespace ModalChain.Core.Analyses.Absorbers;
+
+/// <summary>What to tune: where the absorber hangs, how heavy it is, which mode it controls and against what.</summary>
+/// <param name="Host">Name of the mass the absorber is attached to.</param>
+/// <param name="MassRatio">μ = absorber mass / modal mass of the controlled mode at the host, a fraction in (0, 1].</param>
+/// <param name="ModeNumber">1-based mode to control, or null to take the mode nearest an excitation frequency.</param>
+/// <param name="ExcitationsHz">Excitation frequencies in Hz (running speeds × orders) used to choose the mode when <paramref name="ModeNumber"/> is null.</param>
+/// <param name="Target">The excitation the tuning is optimal for.</param>
+public sealed record AbsorberRequest(
+    string Host, double MassRatio, int? ModeNumber, ImmutableArray<double> ExcitationsHz, AbsorberTarget Target = AbsorberTarget.Force);
+
+/// <summary>A sized absorber: the equivalent single-mode primary it was designed for and its own mass, spring and damper.</summary>
+/// <param name="Host">Mass the absorber is attached to.</param>
+/// <param name="ModeNumber">1-based mode controlled.</param>
+/// <param name="ModeFrequencyHz">Natural frequency f_p of the controlled mode in Hz.</param>
+/// <param name="ModalMass">Modal mass of the mode at the host, 1/φ_host² with mass-normalised φ, in kg.</param>
+/// <param name="Optimum">The dimensionless optimum used.</param>
+/// <param name="Target">The excitation it is tuned for.</param>
+/// <param name="Mass">Absorber mass m_a = μ·M in kg.</param>
+/// <param name="Stiffness">Absorber spring k_a = m_a (f ω_p)² in N/m.</param>
+/// <param name="Damping">Absorber damper c_a = 2 ζ_a √(k_a m_a) in N·s/m.</param>
+/// <param name="FrequencyHz">Tuned frequency √(k_a/m_a)/2π in Hz.</param>
+/// <param name="ChosenBy">Why this mode: "--mode" or the excitation it is nearest to.</param>
+public sealed record AbsorberDesign(
+    string Host, int ModeNumber, double ModeFrequencyHz, double ModalMass, AbsorberOptimum Optimum, AbsorberTarget Target,
+    double Mass, double Stiffness, double Damping, double FrequencyHz, string ChosenBy)
+{
+    /// <summary>ζ_a = c_a / (2√(k_a m_a)), referred to the absorber's own frequency.</summary>
+    public double DampingRatio => Damping / (2 * Math.Sqrt(Stiffness * Mass));
+
+    /// <summary>c_a / (2 m_a ω_p), referred to the controlled mode's frequency.</summary>
+    public double DampingRatioPrimaryReferenced => Damping / (2 * Mass * 2 * Math.PI * ModeFrequencyHz);
+
+    /// <summary>Returns the same absorber with its spring retuned to <paramref name="frequencyHz"/> and its damping ratio <paramref name="dampingRatio"/> kept.</summary>
+    public AbsorberDesign Retuned(double frequencyHz, double dampingRatio)
+    {
+        Guard.Positive(frequencyHz, nameof(frequencyHz));
+        Guard.NonNegative(dampingRatio, nameof(dampingRatio));
+        var omega = 2 * Math.PI * frequencyHz;
+        var k = Mass * omega * omega;
+        return this with { Stiffness = k, Damping = 2 * dampingRatio * Math.Sqrt(k * Mass), FrequencyHz = frequencyHz };
+    }
+}
+
+/// <summary>Names of the elements an absorber adds to a network.</summary>
+/// <param name="Mass">Name of the absorber mass.</param>
+/// <param name="Spring">Name of its spring to the host.</param>
+/// <param name="Damper">Name of its damper to the host.</param>
+public sealed record AbsorberNames(string Mass, string Spring, string Damper);
+
+/// <summary>Sizes a tuned absorber for one mode of a network from the classical optimum of its equivalent single-mode primary.</summary>
+/// <remarks>
+/// Mode j seen at the host h behaves like a single mass M = 1/φ_{h,j}² on a spring M ω_j² when φ is mass-normalised
+/// (φᵀMφ = 1): the kinetic energy ½ q̇² of the mode equals ½ M ẋ_h² with x_h = φ_h q. The absorber is sized for that
+/// primary: m_a = μ M, ω_a = f ω_j, c_a = 2 ζ_a m_a ω_a (Den Hartog 1956 §3.3; Warburton 1982). The approximation is
+/// good when the mode is well separated from its neighbours and the absorber is light.
+/// </remarks>
+public static class AbsorberTuning
+{
+    /// <summary>The largest mass ratio accepted: an absorber heavier than the modal mass it controls is not a tuned absorber.</summary>
+    public const double MaximumMassRatio = 1.0;
+
+    /// <summary>Above this mass ratio the single-mode approximation and the classical formulas are stretched; the tool says so.</summary>
+    public const double LargeMassRatio = 0.25;
+
+    /// <summary>Problems with <paramref name="request"/> for <paramref name="modal"/>, as sentences a user can act on; empty when it can be designed.</summary>
+    public static ImmutableArray<string> Problems(ModalResult modal, AbsorberRequest request)
+    {
+        ArgumentNullException.ThrowIfNull(modal);
+        ArgumentNullException.ThrowIfNull(request);
+        var problems = ImmutableArray.CreateBuilder<string>();
+        var inv = CultureInfo.InvariantCulture;
+        var host = modal.Matrices.Dofs.IndexOf(request.Host);
+        if (host < 0)
+            problems.Add(modal.Network.IsSupport(request.Host)
+                ? $"host '{request.Host}' is a support; an absorber must hang on a mass"
+                : $"host '{request.Host}' is not a mass of the model; masses: {string.Join(", ", modal.Network.Masses.Select(m => m.Name))}");
+        if (!(request.MassRatio > 0) || !double.IsFinite(request.MassRatio))
+            problems.Add(string.Create(inv, $"mass ratio must be positive, got {request.MassRatio * 100:G4} %"));
+        else if (request.MassRatio > MaximumMassRatio)
+            problems.Add(string.Create(inv, $"mass ratio {request.MassRatio * 100:G4} % is beyond {MaximumMassRatio * 100:G3} %: an absorber heavier than the modal mass it controls is not a tuned absorber (typical ratios are 1-25 %)"));
+        else if (request.Target == AbsorberTarget.BaseAcceleration && request.MassRatio >= 2)
+            problems.Add("base-acceleration tuning needs a mass ratio below 200 %");
+        if (request.ModeNumber is { } n && (n < 1 || n > modal.Modes.Length))
+            problems.Add($"mode {n} does not exist; the model has {modal.Modes.Length} mode(s)");
+        if (problems.Count > 0) return problems.ToImmutable();
+
+        var mode = request.ModeNumber is { } chosen ? modal.Modes[chosen - 1] : Nearest(modal, request, out _);
+        if (mode is null)
+            problems.Add("no mode to control: give --mode N, or state running speeds (criteria.separation.speeds, a load's speed, or --speed) so the mode nearest to them can be chosen");
+        else if (mode.IsRigidBody)
+            problems.Add($"mode {mode.Number} is a rigid-body mode (0 Hz); an absorber cannot be tuned to it");
+        else if (Math.Abs(mode.Shape[host]) < 1e-9 * mode.Shape.Max(Math.Abs))
+            problems.Add($"'{request.Host}' does not move in mode {mode.Number} (it sits at a node of the mode shape); hang the absorber where the mode moves");
+        return problems.ToImmutable();
+    }
+
+    /// <summary>Designs the absorber; call <see cref="Problems"/> first, since an invalid request is a caller bug here.</summary>
+    public static AbsorberDesign Design(ModalResult modal, AbsorberRequest request)
+    {
+        var problems = Problems(modal, request);
+        if (problems.Length > 0) throw new ArgumentException(string.Join("; ", problems), nameof(request));
+        var inv = CultureInfo.InvariantCulture;
+        string chosenBy;
+        Mode mode;
+        if (request.ModeNumber is { } n)
+        {
+            mode = modal.Modes[n - 1];
+            chosenBy = "--mode";
+        }
+        else
+        {
+            mode = Nearest(modal, request, out var excitation)!;
+            chosenBy = string.Create(inv, $"nearest to the excitation at {excitation:G6} Hz");
+        }
+        var host = modal.Matrices.Dofs.IndexOf(request.Host);
+        var modalMass = mode.ModalMassAt(host);
+        var optimum = ClassicalOptimum.For(request.Target, request.MassRatio);
+        var ma = request.MassRatio * modalMass;
+        var omegaA = optimum.FrequencyRatio * mode.AngularFrequency;
+        var ka = ma * omegaA * omegaA;
+        var ca = 2 * optimum.DampingRatio * ma * omegaA;
+        return new AbsorberDesign(request.Host, mode.Number, mode.NaturalFrequencyHz, modalMass, optimum, request.Target,
+            ma, ka, ca, omegaA / (2 * Math.PI), chosenBy);
+    }
+
+    /// <summary>Element names for an absorber on <paramref name="host"/> that clash with nothing in <paramref name="network"/>.</summary>
+    public static AbsorberNames FreeNames(Network network, string host)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        var taken = network.Masses.Select(m => m.Name).Concat(network.Supports.Select(s => s.Name))
+            .Concat(network.Springs.Select(s => s.Name)).Concat(network.Dampers.Select(d => d.Name)).ToHashSet();
+        for (var i = 1; ; i++)
+        {
+            var stem = i == 1 ? $"{host}-absorber" : $"{host}-absorber-{i}";
+            var names = new AbsorberNames(stem, stem + "-spring", stem + "-damper");
+            if (!taken.Contains(names.Mass) && !taken.Contains(names.Spring) && !taken.Contains(names.Damper)) return names;
+        }
+    }
+
+    /// <summary>The network with the absorber's mass, spring and damper added (mass drawn 0.5 m above the host when it has a position).</summary>
+    public static Network Attach(Network network, AbsorberDesign design, AbsorberNames names)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        ArgumentNullException.ThrowIfNull(design);
+        ArgumentNullException.ThrowIfNull(names);
+        var host = network.Masses.FirstOrDefault(m => m.Name == design.Host)
+            ?? throw new ArgumentException($"'{design.Host}' is not a mass of the network.", nameof(design));
+        DrawingPosition? at = host.Position is { } p ? new DrawingPosition(p.X, p.Y + 0.5) : null;
+        return network.WithAdded(
+            [new Mass(names.Mass, design.Mass, at)],
+            [new Spring(names.Spring, design.Host, names.Mass, design.Stiffness)],
+            design.Damping > 0 ? [new Damper(names.Damper, design.Host, names.Mass, design.Damping)] : []);
+    }
+
+    /// <summary>The non-rigid mode nearest (in ratio) to any excitation frequency, or null when there are none.</summary>
+    private static Mode? Nearest(ModalResult modal, AbsorberRequest request, out double excitationHz)
+    {
+        excitationHz = double.NaN;
+        if (request.ExcitationsHz.IsDefaultOrEmpty) return null;
+        Mode? best = null;
+        var bestDistance = double.PositiveInfinity;
+        foreach (var mode in modal.Modes.Where(m => !m.IsRigidBody))
+            foreach (var fe in request.ExcitationsHz)
+            {
+                var d = Math.Abs(Math.Log(mode.NaturalFrequencyHz / fe));
+                if (d < bestDistance) { bestDistance = d; best = mode; excitationHz = fe; }
+            }
+        return best;
+    }
+}

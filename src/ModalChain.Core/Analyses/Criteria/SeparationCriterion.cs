@@ -1,0 +1,62 @@
+using System.Collections.Immutable;
+
+namespace ModalChain.Core.Analyses.Criteria;
+
+/// <summary>The frequency-separation rule: no natural frequency within ±margin of any running speed × order.</summary>
+/// <remarks>
+/// The excitation frequency of a speed s (Hz) and an order h is f_e = h·s. The forbidden band is the open interval
+/// ((1 − m)·f_e, (1 + m)·f_e); a natural frequency exactly on an edge passes. The 20 % margin that is usual in
+/// machine-foundation work is common practice, not a code requirement (see docs/criteria.md).
+/// </remarks>
+/// <param name="Margin">Margin m as a fraction of the excitation frequency (0.2 for ±20 %), in (0, 1).</param>
+/// <param name="SpeedsHz">Running speeds in Hz (revolutions per second), each positive.</param>
+/// <param name="Orders">Harmonic orders h (1 for running speed, 2 for twice running speed, …), each positive.</param>
+public sealed record SeparationCriterion(double Margin, ImmutableArray<double> SpeedsHz, ImmutableArray<double> Orders)
+{
+    /// <summary>The margin used when a model does not state one: ±20 % (common practice).</summary>
+    public const double DefaultMargin = 0.20;
+
+    /// <summary>Checks the fields; throws for a caller bug (the reader reports input problems itself).</summary>
+    public SeparationCriterion Validated()
+    {
+        if (!(Margin > 0 && Margin < 1)) throw new ArgumentOutOfRangeException(nameof(Margin), Margin, "The margin must lie in (0, 1).");
+        if (SpeedsHz.IsDefaultOrEmpty) throw new ArgumentException("At least one running speed is needed.", nameof(SpeedsHz));
+        if (Orders.IsDefaultOrEmpty) throw new ArgumentException("At least one order is needed.", nameof(Orders));
+        foreach (var s in SpeedsHz) Guard.Positive(s, nameof(SpeedsHz));
+        foreach (var h in Orders) Guard.Positive(h, nameof(Orders));
+        return this;
+    }
+
+    /// <summary>Every excitation frequency h·s in Hz with its speed and order, speeds outer, orders inner, in the order given.</summary>
+    public IEnumerable<(double SpeedHz, double Order, double FrequencyHz)> Excitations() =>
+        SpeedsHz.SelectMany(s => Orders.Select(h => (s, h, h * s)));
+}
+
+/// <summary>How one natural frequency stands against one excitation frequency.</summary>
+/// <param name="ModeNumber">1-based number of the mode (ascending frequency).</param>
+/// <param name="NaturalFrequencyHz">The mode's natural frequency in Hz.</param>
+/// <param name="SpeedHz">Running speed in Hz.</param>
+/// <param name="Order">Harmonic order.</param>
+/// <param name="ExcitationHz">Excitation frequency order × speed in Hz.</param>
+/// <param name="Separation">|f_n / f_e − 1|, the relative distance from the excitation (a fraction).</param>
+/// <param name="Reserve">
+/// Signed relative change of the natural frequency that would put it on the nearest band edge, as a fraction of
+/// f_n: positive outside the band (how far it may move before failing), negative inside (how far it must move to pass).
+/// </param>
+/// <param name="Passes">True when the natural frequency is outside the open band (an edge passes).</param>
+public sealed record SeparationPair(
+    int ModeNumber, double NaturalFrequencyHz, double SpeedHz, double Order, double ExcitationHz,
+    double Separation, double Reserve, bool Passes);
+
+/// <summary>The outcome of a separation check over every mode, speed and order.</summary>
+/// <param name="Criterion">The rule checked.</param>
+/// <param name="Pairs">One entry per (mode, speed, order), modes outer.</param>
+/// <param name="Governing">The pair with the smallest reserve (the one nearest to failing, or failing most); null with no modes.</param>
+public sealed record SeparationResult(SeparationCriterion Criterion, ImmutableArray<SeparationPair> Pairs, SeparationPair? Governing)
+{
+    /// <summary>True when every pair passes.</summary>
+    public bool Passes => Pairs.All(p => p.Passes);
+
+    /// <summary>The governing reserve as a fraction (+∞ when there is nothing to check).</summary>
+    public double Reserve => Governing?.Reserve ?? double.PositiveInfinity;
+}

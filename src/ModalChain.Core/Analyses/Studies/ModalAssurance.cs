@@ -1,0 +1,36 @@
+using MathNet.Numerics.LinearAlgebra;
+
+namespace ModalChain.Core.Analyses.Studies;
+
+/// <summary>The modal assurance criterion: how alike two mode shapes are, from 0 (orthogonal) to 1 (the same up to scale).</summary>
+/// <remarks>
+/// Allemang &amp; Brown (1982), "A correlation coefficient for modal vector analysis", Proc. 1st IMAC (citation from memory):
+/// MAC(a, b) = (aᵀb)² / ((aᵀa)(bᵀb)). The mass-weighted form replaces each inner product xᵀy by xᵀMy, so that
+/// distinct modes of one model score exactly 0 (common practice in model correlation); it is the one used for
+/// tracking modes through a study because neighbouring steps have nearly the same M.
+/// </remarks>
+public static class ModalAssurance
+{
+    /// <summary>MAC of <paramref name="a"/> and <paramref name="b"/>; with <paramref name="massDiagonal"/> (kg) the mass-weighted form.</summary>
+    public static double Criterion(IReadOnlyList<double> a, IReadOnlyList<double> b, IReadOnlyList<double>? massDiagonal = null)
+    {
+        ArgumentNullException.ThrowIfNull(a);
+        ArgumentNullException.ThrowIfNull(b);
+        if (a.Count != b.Count) throw new ArgumentException($"Shapes have {a.Count} and {b.Count} entries.", nameof(b));
+        if (massDiagonal is not null && massDiagonal.Count != a.Count) throw new ArgumentException("The mass diagonal must match the shapes.", nameof(massDiagonal));
+        double ab = 0, aa = 0, bb = 0;
+        for (var i = 0; i < a.Count; i++)
+        {
+            var w = massDiagonal?[i] ?? 1.0;
+            ab += w * a[i] * b[i];
+            aa += w * a[i] * a[i];
+            bb += w * b[i] * b[i];
+        }
+        return aa > 0 && bb > 0 ? ab * ab / (aa * bb) : 0;
+    }
+
+    /// <summary>The matrix MAC[i, j] between shapes <paramref name="first"/>[i] and <paramref name="second"/>[j].</summary>
+    public static Matrix<double> Matrix(IReadOnlyList<IReadOnlyList<double>> first, IReadOnlyList<IReadOnlyList<double>> second,
+        IReadOnlyList<double>? massDiagonal = null) =>
+        Matrix<double>.Build.Dense(first.Count, second.Count, (i, j) => Criterion(first[i], second[j], massDiagonal));
+}

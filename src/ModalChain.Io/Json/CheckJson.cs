@@ -1,0 +1,90 @@
+using System.Text.Json;
+using ModalChain.Core;
+using ModalChain.Core.Analyses.Criteria;
+using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Io.Model;
+
+namespace ModalChain.Io.Json;
+
+/// <summary>Writes a <see cref="CheckOutcome"/> as one JSON object.</summary>
+/// <remarks>Reserves are fractions: separation reserve = relative change of the natural frequency that reaches the band edge; limit reserve = (limit − value)/limit.</remarks>
+public static class CheckJson
+{
+    /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
+    public static void Write(Stream stream, ModelDocument document, CheckOutcome outcome, string toolVersion)
+    {
+        using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
+        w.WriteStartObject();
+        w.WriteString("title", document.Network.Title);
+        Source(w, document, toolVersion);
+        w.WriteBoolean("passes", outcome.AllPass);
+        if (outcome.Separation is { } sep)
+        {
+            w.WriteStartObject("separation");
+            w.WriteBoolean("passes", sep.Passes);
+            w.Number("margin", sep.Criterion.Margin);
+            w.Array("speeds_hz", sep.Criterion.SpeedsHz);
+            w.Array("orders", sep.Criterion.Orders);
+            w.Number("reserve", sep.Reserve);
+            w.WriteStartArray("pairs");
+            foreach (var p in sep.Pairs)
+            {
+                w.WriteStartObject();
+                w.WriteNumber("mode", p.ModeNumber);
+                w.Number("frequency_hz", p.NaturalFrequencyHz);
+                w.Number("speed_hz", p.SpeedHz);
+                w.Number("order", p.Order);
+                w.Number("excitation_hz", p.ExcitationHz);
+                w.Number("separation", p.Separation);
+                w.Number("reserve", p.Reserve);
+                w.WriteBoolean("passes", p.Passes);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteEndObject();
+        }
+        else w.WriteNull("separation");
+        w.WriteStartArray("limits");
+        foreach (var l in outcome.Limits)
+        {
+            w.WriteStartObject();
+            w.WriteString("at", l.Limit.At);
+            w.WriteString("quantity", l.Limit.Quantity.ToString().ToLowerInvariant());
+            w.WriteString("measure", l.Limit.Measure == AmplitudeMeasure.Peak ? "peak" : "rms");
+            w.WriteString("unit", Unit(l.Limit.Quantity));
+            w.Number("limit", l.Limit.Value);
+            w.Number("value", l.Value);
+            w.Number("reserve", l.Reserve);
+            w.WriteBoolean("passes", l.Passes);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+        w.WriteStartArray("not_evaluated");
+        foreach (var (criterion, reason) in outcome.NotEvaluated)
+        {
+            w.WriteStartObject();
+            w.WriteString("criterion", criterion);
+            w.WriteString("reason", reason);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+        w.WriteString("caution", Cautions.Text);
+        w.WriteEndObject();
+    }
+
+    internal static string Unit(ResponseQuantity q) => q switch
+    {
+        ResponseQuantity.Displacement => "m",
+        ResponseQuantity.Velocity => "m/s",
+        _ => "m/s^2",
+    };
+
+    internal static void Source(Utf8JsonWriter w, ModelDocument document, string toolVersion)
+    {
+        w.WriteStartObject("source");
+        w.WriteString("file", document.File);
+        w.WriteString("sha256", document.Sha256);
+        w.WriteString("tool_version", toolVersion);
+        w.WriteEndObject();
+    }
+}

@@ -1,0 +1,84 @@
+using System.Text.Json;
+using ModalChain.Core;
+using ModalChain.Core.Analyses.Absorbers;
+using ModalChain.Io.Model;
+
+namespace ModalChain.Io.Json;
+
+/// <summary>Writes an absorber design as the JSON object of <c>modalchain tune --format json</c> (SI units).</summary>
+/// <remarks>
+/// Field names are a public contract. <c>absorber.damping_ratio</c> is ζ_a = c_a/(2√(k_a m_a)), referred to the absorber's
+/// own frequency; <c>absorber.damping_ratio_primary_referenced</c> is c_a/(2 m_a ω_p). Peaks are dynamic amplifications
+/// |x_host|·K/|F| with K = M ω_p² of the controlled mode; null when no response was computed.
+/// </remarks>
+public static class TuneJson
+{
+    /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
+    public static void Write(Stream stream, ModelDocument document, AbsorberDesign design, string method,
+        AbsorberAssessment? assessment, string? improvement, string toolVersion)
+    {
+        using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
+        w.WriteStartObject();
+        w.WriteString("title", document.Network.Title);
+        CheckJson.Source(w, document, toolVersion);
+        w.WriteNumber("mode", design.ModeNumber);
+        w.Number("mode_frequency_hz", design.ModeFrequencyHz);
+        w.WriteString("mode_chosen_by", design.ChosenBy);
+        w.WriteString("host", design.Host);
+        w.Number("modal_mass_kg", design.ModalMass);
+        w.Number("mass_ratio", design.Optimum.MassRatio);
+        w.WriteString("target", Target(design.Target));
+        w.WriteString("method", method);
+        w.WriteStartObject("absorber");
+        w.Number("mass_kg", design.Mass);
+        w.Number("stiffness_n_per_m", design.Stiffness);
+        w.Number("damping_n_s_per_m", design.Damping);
+        w.Number("frequency_hz", design.FrequencyHz);
+        w.Number("frequency_ratio", design.FrequencyHz / design.ModeFrequencyHz);
+        w.Number("damping_ratio", design.DampingRatio);
+        w.Number("damping_ratio_primary_referenced", design.DampingRatioPrimaryReferenced);
+        w.WriteString("damping_ratio_convention", "c/(2*sqrt(k*m)) of the absorber, referred to its own frequency");
+        w.WriteEndObject();
+        w.Number("fixed_point_peak", design.Optimum.PeakAmplification);
+        if (assessment is { } a)
+        {
+            w.Array("band_hz", [a.BandHz.Low, a.BandHz.High]);
+            w.Number("peak_before", a.PeakBefore);
+            w.Number("peak_after", a.PeakAfter);
+            w.Number("peak_frequency_hz", a.PeakFrequencyHz);
+            w.Number("stroke_m", a.OperatingStroke);
+            w.WriteString("stroke_basis", "peak relative displacement of the absorber to the host under the model's loads at their running speeds; null when no load has a speed");
+            w.Number("stroke_per_force_m_per_n", a.StrokePerForce);
+            w.WriteString("stroke_per_force_basis", "per newton of harmonic force at the host, at the frequency of the worst peak");
+            w.WriteStartArray("mistuning");
+            foreach (var p in a.Mistuning)
+            {
+                w.WriteStartObject();
+                w.Number("frequency_error", p.FrequencyError);
+                w.Number("peak", p.Peak);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+        }
+        else
+        {
+            w.WriteNull("peak_before");
+            w.WriteNull("peak_after");
+            w.WriteNull("stroke_m");
+            w.WriteNull("stroke_per_force_m_per_n");
+            w.WriteStartArray("mistuning");
+            w.WriteEndArray();
+        }
+        if (improvement is not null) w.WriteString("improvement", improvement);
+        w.WriteString("absorber_caution", AbsorberCaution.Text);
+        w.WriteString("caution", Cautions.Text);
+        w.WriteEndObject();
+    }
+
+    internal static string Target(AbsorberTarget t) => t switch
+    {
+        AbsorberTarget.Force => "force",
+        AbsorberTarget.BaseAcceleration => "base",
+        _ => "random-force",
+    };
+}

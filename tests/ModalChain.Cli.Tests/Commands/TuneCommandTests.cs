@@ -1,0 +1,129 @@
+using ModalChain.TestSupport;
+
+namespace ModalChain.Cli.Tests.Commands;
+
+public class TuneCommandTests
+{
+    [Fact]
+    public void Json_HasTheIssuedFields_AndDenHartogValues()
+    {
+        // Den Hartog 1956 §3.3 [confirmed citation]: μ = 5 % → f = 0.952381, ζ_a = 0.133631 (absorber-referenced),
+        // 0.127267 (primary-referenced); peak √41 (REFERENCES §3). Tolerance 5e-7 absolute on the printed digits.
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "json");
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.Equal(2, json.GetProperty("mode").GetInt32());
+        Assert.Equal("deck", json.GetProperty("host").GetString());
+        var modalMass = json.GetProperty("modal_mass_kg").GetDouble();
+        var a = json.GetProperty("absorber");
+        NumericAssert.Close(0.05 * modalMass, a.GetProperty("mass_kg").GetDouble(), Tolerance.Rel(1e-14), "m_a = μM");
+        NumericAssert.Close(0.952381, a.GetProperty("frequency_ratio").GetDouble(), Tolerance.Abs(5e-7), "f");
+        NumericAssert.Close(0.133631, a.GetProperty("damping_ratio").GetDouble(), Tolerance.Abs(5e-7), "ζ_a");
+        NumericAssert.Close(0.127267, a.GetProperty("damping_ratio_primary_referenced").GetDouble(), Tolerance.Abs(5e-7), "ζ primary");
+        var k = a.GetProperty("stiffness_n_per_m").GetDouble();
+        var m = a.GetProperty("mass_kg").GetDouble();
+        NumericAssert.Close(a.GetProperty("frequency_hz").GetDouble(), Math.Sqrt(k / m) / (2 * Math.PI), Tolerance.Rel(1e-12), "f = √(k/m)/2π");
+        NumericAssert.Close(Math.Sqrt(41), json.GetProperty("fixed_point_peak").GetDouble(), Tolerance.Rel(1e-14), "√41");
+        Assert.Equal(System.Text.Json.JsonValueKind.Array, json.GetProperty("mistuning").ValueKind);
+        Assert.Contains("fatigue", json.GetProperty("absorber_caution").GetString());
+    }
+
+    [Fact]
+    public void Table_CarriesBothCautionsAndBothDampingConventions()
+    {
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "0.05");
+        Assert.Equal(0, run.ExitCode);
+        Assert.Contains("Absorber caution:", run.Output);
+        Assert.Contains("detunes", run.Output);
+        Assert.Contains("licensed", run.Output);
+        Assert.Contains("0.133631", run.Output);
+        Assert.Contains("0.127267", run.Output);
+    }
+
+    [Fact]
+    public void Write_ProducesAModelEveryCommandReads()
+    {
+        var output = CommandRun.TempPath();
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--write", output);
+        Assert.Equal(0, run.ExitCode);
+        Assert.Contains("wrote", run.Error);
+        var modes = CommandRun.Of("modes", output, "--format", "json");
+        Assert.Equal(0, modes.ExitCode);
+        Assert.Equal(3, modes.Json().GetProperty("modes").GetArrayLength());
+        Assert.Equal(0, CommandRun.Of("validate", output).ExitCode);
+        Assert.Contains(CommandRun.Of("check", output).ExitCode, new[] { 0, 1 });
+    }
+
+    [Theory]
+    [InlineData("--host", "roof", "--mass-ratio", "5 %", "'roof' is not a mass")]
+    [InlineData("--host", "ground", "--mass-ratio", "5 %", "is a support")]
+    [InlineData("--host", "deck", "--mass-ratio", "0 %", "must be positive")]
+    [InlineData("--host", "deck", "--mass-ratio", "-5 %", "must be positive")]
+    [InlineData("--host", "deck", "--mass-ratio", "500 %", "not a tuned absorber")]
+    [InlineData("--host", "deck", "--mass-ratio", "5 kg", "--mass-ratio")]
+    [InlineData("--host", "deck", "--mass-ratio", "five", "--mass-ratio")]
+    public void BadInputs_ExitTwoWithAClearMessage(string o1, string v1, string o2, string v2, string expected)
+    {
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), o1, v1, o2, v2);
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains(expected, run.Error);
+        Assert.DoesNotContain("   at ", run.Error); // no stack trace
+    }
+
+    [Fact]
+    public void ModeOutOfRange_ExitsTwo()
+    {
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--mode", "7");
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("mode 7 does not exist", run.Error);
+    }
+
+    [Fact]
+    public void BaseTarget_UsesWarburtonsTuning()
+    {
+        // Warburton 1982 [confirmed citation; formulas from memory]: μ = 5 % base acceleration f = 0.940401, ζ_a = 0.135333.
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--target", "base", "--format", "json");
+        Assert.Equal(0, run.ExitCode);
+        var a = run.Json().GetProperty("absorber");
+        NumericAssert.Close(0.940401, a.GetProperty("frequency_ratio").GetDouble(), Tolerance.Abs(5e-7), "f");
+        NumericAssert.Close(0.135333, a.GetProperty("damping_ratio").GetDouble(), Tolerance.Abs(5e-7), "ζ_a");
+    }
+
+    [Fact]
+    public void CsvFormat_IsRefused()
+    {
+        var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "csv");
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("not offered", run.Error);
+    }
+
+    [Fact]
+    public void LoadSpeed_ChoosesTheModeWhenTheModelHasNoSeparationCriterion()
+    {
+        // Deck 2600 kg on 68 kN/mm with a 400 kg fan on 1.6 kN/mm: modes near 9.7 and 26 Hz; a load at 1470 rpm (24.5 Hz)
+        // picks mode 2, one at 600 rpm (10 Hz) mode 1.
+        string Model(string speed) => CommandRun.ModelFile($"""
+            masses:
+              deck: 2600 kg
+              fan: 400 kg
+            springs:
+              beams: {"{"}between: [ground, deck], stiffness: 68 kN/mm{"}"}
+              mounts: {"{"}between: [deck, fan], stiffness: 1.6 kN/mm{"}"}
+            damping:
+              modal: 2 %
+            loads:
+              fan: {"{"}kind: unbalance, at: fan, mass-radius: 6 kg*mm, speed: {speed}{"}"}
+            """);
+        Assert.Equal(2, CommandRun.Of("tune", Model("1470 rpm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "json").Json().GetProperty("mode").GetInt32());
+        Assert.Equal(1, CommandRun.Of("tune", Model("600 rpm"), "--host", "fan", "--mass-ratio", "5 %", "--format", "json").Json().GetProperty("mode").GetInt32());
+    }
+
+    [Fact]
+    public void NoModeAndNoSpeedAnywhere_ExitsTwo()
+    {
+        var path = CommandRun.ModelFile("masses:\n  deck: 100 kg\nsprings:\n  s: {between: [ground, deck], stiffness: 1e5}\n");
+        var run = CommandRun.Of("tune", path, "--host", "deck", "--mass-ratio", "5 %");
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("--mode N", run.Error);
+    }
+}

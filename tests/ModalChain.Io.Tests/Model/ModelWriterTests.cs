@@ -1,0 +1,107 @@
+using ModalChain.Core.Analyses.Absorbers;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Model;
+using ModalChain.Io.Model;
+
+namespace ModalChain.Io.Tests.Model;
+
+public class ModelWriterTests
+{
+    private const string Original = """
+        # A comment that is not carried over.
+        title: "Fan deck: bay 3"
+        masses:
+          deck: {mass: 2600 kg, at: [0, 0]}
+          fan-base: 420 kg
+        springs:
+          beams:  {between: [ground, deck], stiffness: 68 kN/mm}
+          mounts: {between: [deck, fan-base], stiffness: 1.6 kN/mm}
+        criteria:
+          separation: {margin: 20 %, speeds: [1470 rpm], orders: [1, 2]}
+          limits:
+            - {at: fan-base, quantity: velocity, rms: 4.5 mm/s}
+        """;
+
+    private static (ModelDocument Before, Network Expected, ModelDocument After, string Text) RoundTrip(string original)
+    {
+        var before = ModelReader.Read(original, "in.yaml").Model!;
+        var modal = ModalAnalysis.Solve(before.Network);
+        var design = AbsorberTuning.Design(modal, new AbsorberRequest("deck", 0.05, 2, []));
+        var expected = AbsorberTuning.Attach(before.Network, design, AbsorberTuning.FreeNames(before.Network, "deck"));
+        var text = ModelWriter.WithAdditions(original, "in.yaml", expected, ["written by a test"]);
+        var read = ModelReader.Read(text, "out.yaml");
+        Assert.True(read.Succeeded, string.Join("\n", read.Diagnostics) + "\n" + text);
+        return (before, expected, read.Model!, text);
+    }
+
+    [Fact]
+    public void WrittenModel_ReadsBackAsTheSameNetwork()
+    {
+        var (before, expected, after, text) = RoundTrip(Original);
+        Assert.Equal(expected.Title, after.Network.Title);
+        Assert.Equal(expected.Masses.ToArray(), after.Network.Masses.ToArray());
+        Assert.Equal(expected.Springs.ToArray(), after.Network.Springs.ToArray());
+        Assert.Equal(expected.Dampers.ToArray(), after.Network.Dampers.ToArray());
+        Assert.Equal(expected.Supports.ToArray(), after.Network.Supports.ToArray());
+        // Criteria are carried over unchanged.
+        Assert.Equal(before.Criteria.Separation!.SpeedsHz.ToArray(), after.Criteria.Separation!.SpeedsHz.ToArray());
+        Assert.Equal(before.Criteria.Limits.ToArray(), after.Criteria.Limits.ToArray());
+        Assert.StartsWith("# written by a test\n", text);
+        Assert.Contains("stiffness: 68 kN/mm", text); // original entries keep their units
+    }
+
+    [Fact]
+    public void ModelWithoutDampers_GainsADampersSection()
+    {
+        var (_, expected, after, text) = RoundTrip(Original);
+        Assert.Single(after.Network.Dampers);
+        Assert.Equal("deck-absorber-damper", after.Network.Dampers[0].Name);
+        Assert.True(text.IndexOf("dampers:", StringComparison.Ordinal) < text.IndexOf("criteria:", StringComparison.Ordinal));
+        Assert.Equal(expected.Dampers[0].Coefficient, after.Network.Dampers[0].Coefficient);
+    }
+
+    [Fact]
+    public void WrittenModel_HasTheSameModesAsTheNetworkInMemory()
+    {
+        var (_, expected, after, _) = RoundTrip(Original);
+        var a = ModalAnalysis.Solve(expected).Modes.Select(m => m.NaturalFrequencyHz).ToArray();
+        var b = ModalAnalysis.Solve(after.Network).Modes.Select(m => m.NaturalFrequencyHz).ToArray();
+        Assert.Equal(a, b);
+    }
+
+    [Fact]
+    public void UnderADecimalCommaCulture_NumbersStayInvariant()
+    {
+        using var culture = new ModalChain.TestSupport.CultureScope("de-DE");
+        var (_, expected, after, text) = RoundTrip(Original);
+        Assert.Equal(expected.Masses.ToArray(), after.Network.Masses.ToArray());
+        Assert.Contains("at: [0, 0.5]", text);
+    }
+
+    [Fact]
+    public void DampingLoadsAndSweep_AreCarriedOverUnchanged()
+    {
+        const string withHarmonic = """
+            title: Chiller skid on a steel deck
+            masses:
+              deck: {mass: 3200 kg}
+              skid: {mass: 850 kg}
+            springs:
+              columns: {between: [ground, deck], stiffness: 95 kN/mm}
+              mounts:  {between: [deck, skid], stiffness: 8.4 kN/mm}
+            damping:
+              modal: [2 %, 3 %]
+            loads:
+              unbalance: {kind: unbalance, at: skid, mass-radius: 12000 g*mm, speed: 1480 rpm}
+            harmonic:
+              loads: [unbalance]
+              frequencies: {from: 1 Hz, to: 60 Hz, points: 600, spacing: log}
+              outputs: [deck, skid]
+            """;
+        var (before, _, after, _) = RoundTrip(withHarmonic);
+        Assert.Equal(before.Structure.Damping.ModalRatios.ToArray(), after.Structure.Damping.ModalRatios.ToArray());
+        Assert.Equal(before.Structure.Loads.ToArray(), after.Structure.Loads.ToArray());
+        Assert.Equal(before.Harmonic!.Outputs.ToArray(), after.Harmonic!.Outputs.ToArray());
+        Assert.Equal(before.Harmonic.Frequencies, after.Harmonic.Frequencies);
+    }
+}
