@@ -97,6 +97,9 @@ internal static class HtmlReport
         .animation-label { font-size: 7.5pt; color: var(--muted); text-transform: uppercase; letter-spacing: 0.05em; margin-bottom: 0.2em; }
         .quality, .note { font-size: 9pt; color: var(--muted); }
         ul.warnings { color: var(--warn); font-size: 9pt; }
+        .verdict { font-weight: bold; padding: 0.3em 0.6em; border-left: 5px solid; }
+        .verdict.pass { border-color: #009E73; }
+        .verdict.fail { border-color: var(--warn); color: var(--warn); }
         .report-footer { margin-top: 2em; border-top: 1.5px solid var(--ink); padding-top: 0.5em; font-size: 8.5pt; color: var(--muted); }
         .trace-line { font-family: 'DejaVu Sans Mono', 'Liberation Mono', monospace; font-size: 7.5pt; word-break: break-all; }
         @media (prefers-reduced-motion: reduce) { .animation { display: none; } }

@@ -12,5 +12,6 @@ public static class ReportSections
         ModelSummarySection.Create,
         ModesSection.Create,
         HarmonicSection.Create,
+        CriteriaSection.Create,
     ];
 }
