@@ -13,5 +13,6 @@ public static class ReportSections
         ModesSection.Create,
         HarmonicSection.Create,
         CriteriaSection.Create,
+        SpeedFrequencySection.Create,
     ];
 }
