@@ -5,8 +5,8 @@ namespace ModalChain.Benchmarks;
 /// <summary>Seeded benchmark networks, so every run measures the same model.</summary>
 public static class Networks
 {
-    /// <summary>A fixed-free chain of n masses with a seeded spread of masses (±30 %) and stiffnesses (±30 %), plus random cross springs.</summary>
-    public static Network RandomChain(int n, int seed = 1, int crossSprings = 0)
+    /// <summary>A fixed-free chain of n masses with a seeded spread of masses (±30 %) and stiffnesses (±30 %), plus random cross springs and dampers.</summary>
+    public static Network RandomChain(int n, int seed = 1, int crossSprings = 0, int dampers = 0)
     {
         var random = new Random(seed);
         var b = new NetworkBuilder { Title = $"benchmark chain of {n}" };
@@ -18,6 +18,14 @@ public static class Networks
             var a = random.Next(n);
             var d = random.Next(n);
             if (a != d) b.AddSpring($"x{c}", $"m{a}", $"m{d}", 1e5 * random.NextDouble());
+        }
+        // Dampers draw from their own generator so that the springs of a given seed do not change when dampers are added.
+        var dampingRandom = new Random(seed + 1);
+        for (var d = 0; d < dampers; d++)
+        {
+            var a = dampingRandom.Next(n);
+            var other = dampingRandom.Next(-1, n);
+            if (a != other) b.AddDamper($"c{d}", $"m{a}", other < 0 ? Network.Ground : $"m{other}", 2e3 * dampingRandom.NextDouble());
         }
         return b.Build();
     }

@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Analyses.Transient;
 using ModalChain.Core.Model;
 using ModalChain.Io.Diagnostics;
 
@@ -27,6 +28,12 @@ public sealed record ModelDocument(
 
     /// <summary>The criteria of the file's <c>criteria:</c> section (empty when it has none).</summary>
     public CriteriaSet Criteria { get; init; } = CriteriaSet.None;
+
+    /// <summary>The loads that have a 'time' function, for transient runs (SI); harmonic sweeps do not see them.</summary>
+    public ImmutableArray<TransientExcitation> TimedLoads { get; init; } = [];
+
+    /// <summary>The transient run the file asks for in its 'transient' section, or null when it has none.</summary>
+    public TransientSpec? Transient { get; init; }
 }
 
 /// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>

@@ -23,6 +23,10 @@ public static partial class ModelReader
         var declaredLoads = (top["loads"] as YMapping)?.Entries.Select(e => e.Key.Value).ToImmutableHashSet() ?? [];
 
         var loadNames = NameList(h, "loads", declaredLoads, "load", "'loads'", context);
+        if (h["loads"] is YSequence named)
+            foreach (var item in named.Items)
+                if (item is YScalar { Value: var loadName } && (top["loads"] as YMapping)?[loadName] is YMapping timed && timed["time"] is not null)
+                    context.Error(item, $"'loads' of 'harmonic' names '{loadName}', which has a 'time' function: it acts in transient runs only; give a load without 'time' for the sweep");
         if (h["loads"] is null && declaredLoads.IsEmpty)
             context.Error(h, "'harmonic' needs loads to act, but the model has no 'loads' section");
         var outputs = NameList(h, "outputs", masses, "mass", "'masses'", context);

@@ -28,6 +28,8 @@ public static partial class ModelReader
             var what = $"load '{key.Value}'";
             context.Positions[$"loads.{key.Value}"] = key.Position;
             if (context.Mapping(value, what) is not { } entry) continue;
+            // A load with a time function is a transient load, read by ReadTimedLoads; harmonic sweeps do not see it.
+            if (entry["time"] is not null) continue;
             if (entry["kind"] is not { } kindNode)
             {
                 context.Error(entry, $"{what} needs 'kind': one of {string.Join(", ", LoadKinds)}");

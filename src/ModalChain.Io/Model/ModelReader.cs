@@ -14,7 +14,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "damping", "loads", "harmonic", "criteria"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "damping", "loads", "harmonic", "transient", "criteria"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -52,6 +52,8 @@ public static partial class ModelReader
         var damping = ReadDamping(top, context);
         var loads = ReadLoads(top, massNames, supportNames, context);
         var harmonic = ReadHarmonic(top, massNames, loads, context);
+        var timedLoads = ReadTimedLoads(top, massNames, supportNames, context);
+        var transient = ReadTransient(top, massNames, timedLoads, context);
         var criteria = ReadCriteria(top, context, network);
         if (network is null || context.HasErrors) return Finish(context, null);
 
@@ -64,6 +66,8 @@ public static partial class ModelReader
         {
             Structure = new Core.Model.StructuralModel(network, damping, loads),
             Harmonic = harmonic,
+            TimedLoads = timedLoads,
+            Transient = transient,
             Criteria = criteria,
         };
         return Finish(context, document);

@@ -227,8 +227,8 @@ public static class HarmonicAnalysis
     /// <summary>The largest |X| of one mass over a band, cheaply: for optimisers that call it many times.</summary>
     /// <remarks>
     /// Sweeps <paramref name="points"/> points (refined around the natural frequencies in the band) by the direct
-    /// method at that single DOF, then narrows the best bracket by golden-section search (Kiefer 1953) to a relative
-    /// width of 1e-7. Cost: one Hessenberg reduction of the 2n state matrix plus O(n²) per point.
+    /// method at that single DOF, then narrows the bracket of every local maximum by golden-section search
+    /// (Kiefer 1953) to a relative width of 1e-7 and returns the largest. Cost: one Hessenberg reduction of the 2n state matrix plus O(n²) per point.
     /// </remarks>
     /// <param name="system">The assembled model.</param>
     /// <param name="loads">Loads acting together.</param>
@@ -263,18 +263,33 @@ public static class HarmonicAnalysis
             return x[0].Magnitude * Math.Pow(omega, (int)quantity);
         }
         var values = frequencies.Select(Magnitude).ToArray();
-        var best = Array.IndexOf(values, values.Max());
-        double lo = frequencies[Math.Max(0, best - 1)], hi = frequencies[Math.Min(frequencies.Length - 1, best + 1)];
+        var worst = Array.IndexOf(values, values.Max());
+        if (double.IsPositiveInfinity(values[worst])) return new ResponsePeak(dof, quantity, values[worst], frequencies[worst]);
+
+        // A tuned absorber leaves two nearly equal peaks; refining only the highest sample would let an optimiser
+        // trade a sampled peak for an unsampled one, so every interior local maximum is refined.
+        var best = new ResponsePeak(dof, quantity, values[worst], frequencies[worst]);
+        for (var i = 1; i < values.Length - 1; i++)
+        {
+            if (!(values[i] >= values[i - 1] && values[i] >= values[i + 1])) continue;
+            var (f, v) = GoldenSectionMaximum(Magnitude, frequencies[i - 1], frequencies[i + 1]);
+            if (v > best.Magnitude) best = new ResponsePeak(dof, quantity, v, f);
+        }
+        return best;
+    }
+
+    /// <summary>Maximum of a unimodal function on [lo, hi] by golden-section search (Kiefer 1953) to a relative width of 1e-7.</summary>
+    private static (double At, double Value) GoldenSectionMaximum(Func<double, double> function, double lo, double hi)
+    {
         var ratio = (Math.Sqrt(5) - 1) / 2;
-        double c = hi - ratio * (hi - lo), d = lo + ratio * (hi - lo), fc = Magnitude(c), fd = Magnitude(d);
+        double c = hi - ratio * (hi - lo), d = lo + ratio * (hi - lo), fc = function(c), fd = function(d);
         while (hi - lo > 1e-7 * hi)
         {
-            if (fc > fd) { hi = d; d = c; fd = fc; c = hi - ratio * (hi - lo); fc = Magnitude(c); }
-            else { lo = c; c = d; fc = fd; d = lo + ratio * (hi - lo); fd = Magnitude(d); }
+            if (fc > fd) { hi = d; d = c; fd = fc; c = hi - ratio * (hi - lo); fc = function(c); }
+            else { lo = c; c = d; fc = fd; d = lo + ratio * (hi - lo); fd = function(d); }
         }
-        var fPeak = (lo + hi) / 2;
-        var vPeak = Magnitude(fPeak);
-        return vPeak >= values[best] ? new ResponsePeak(dof, quantity, vPeak, fPeak) : new ResponsePeak(dof, quantity, values[best], frequencies[best]);
+        var at = (lo + hi) / 2;
+        return (at, function(at));
     }
 
     private static ImmutableArray<Load> ResolveLoads(StructuralModel model, ImmutableArray<string> names)

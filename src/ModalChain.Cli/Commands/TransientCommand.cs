@@ -1,0 +1,142 @@
+using System.CommandLine;
+using System.Globalization;
+using ModalChain.Cli.Formatting;
+using ModalChain.Core.Analyses.Transient;
+using ModalChain.Core.Assembly;
+using ModalChain.Core.Units;
+using ModalChain.Io.Csv;
+using ModalChain.Io.Json;
+
+namespace ModalChain.Cli.Commands;
+
+/// <summary><c>modalchain transient FILE</c>: response in time to the model's timed loads and initial conditions.</summary>
+internal static class TransientCommand
+{
+    private const int ProgressFromSteps = 20_000;
+
+    public static Command Create(Streams io)
+    {
+        var file = CommonOptions.ModelFile();
+        var format = CommonOptions.Format();
+        var method = new Option<string?>("--method") { Description = "newmark (average acceleration), hht (with high-frequency damping), exact (state space, small models) or modal (lowest modes, long runs)." };
+        var step = new Option<string?>("--step") { Description = "Time step with its unit, e.g. '1 ms' (overrides the file's 'step')." };
+        var duration = new Option<string?>("--duration") { Description = "Simulated time with its unit, e.g. '6 s' (overrides the file's 'duration')." };
+        var outputs = new Option<string[]>("--output")
+        {
+            Description = "Record this mass (repeat for several); overrides 'outputs' of the file. Default: every mass.",
+            AllowMultipleArgumentsPerToken = true,
+        };
+        var command = new Command("transient",
+            "Response in time to the model's timed loads (steps, pulses, sines, recorded tables, run-ups and run-downs of a " +
+            "rotating unbalance, support accelerations) from its initial conditions: displacement, velocity and acceleration " +
+            "of each output mass, spring and damper forces and support reactions, with their peaks and RMS and an energy " +
+            "balance. The run comes from the file's 'transient' section; the options override it. A progress bar is shown " +
+            "on long runs, only on a terminal and only with the table format.\n\n" + CliApp.CautionHelp)
+        { file, method, step, duration, outputs, format };
+        command.SetAction(parse =>
+        {
+            var path = parse.GetValue(file)!;
+            var document = CommonOptions.Load(path, io);
+            if (document is null) return ExitCodes.InputError;
+            var spec = document.Transient;
+            var stepText = parse.GetValue(step);
+            var durationText = parse.GetValue(duration);
+            if (spec is null && (stepText is null || durationText is null))
+                return Fail(io, $"{path}: the model has no 'transient' section; add one (see docs/model-format.md) or give --duration and --step");
+            spec ??= new TransientSpec([], [], new TransientSettings(1, 1));
+            var settings = spec.Settings;
+
+            if (durationText is not null)
+            {
+                if (Time(durationText, "--duration", io) is not { } d) return ExitCodes.InputError;
+                settings = settings with { Duration = d };
+            }
+            if (stepText is not null)
+            {
+                if (Time(stepText, "--step", io) is not { } h) return ExitCodes.InputError;
+                settings = settings with { Step = h };
+            }
+            if (settings.Step > settings.Duration)
+                return Fail(io, string.Create(CultureInfo.InvariantCulture, $"the step ({settings.Step:G4} s) is longer than the duration ({settings.Duration:G4} s)"));
+            if (settings.Duration / settings.Step > 5e7)
+                return Fail(io, string.Create(CultureInfo.InvariantCulture, $"{settings.Duration / settings.Step:G3} steps is more than 5e7; lengthen the step or shorten the run"));
+            if (parse.GetValue(method) is { } m)
+            {
+                TransientMethod? chosen = m switch { "newmark" => TransientMethod.Newmark, "hht" => TransientMethod.Hht, "exact" => TransientMethod.Exact, "modal" => TransientMethod.Modal, _ => null };
+                if (chosen is null) return Fail(io, $"--method is '{m}'; write newmark, hht, exact or modal");
+                settings = settings with { Method = chosen.Value };
+            }
+            var chosenOutputs = parse.GetValue(outputs);
+            if (chosenOutputs is { Length: > 0 })
+            {
+                var unknown = chosenOutputs.Where(o => !document.Network.IsMass(o)).ToArray();
+                if (unknown.Length > 0)
+                    return Fail(io, $"--output names {string.Join(", ", unknown.Select(u => $"'{u}'"))}, which {(unknown.Length == 1 ? "is not a mass" : "are not masses")} of the model");
+                settings = settings with { Outputs = [.. chosenOutputs.Distinct()] };
+            }
+
+            var loads = spec.Loads.IsEmpty
+                ? document.TimedLoads.ToList()
+                : spec.Loads.Select(n => document.TimedLoads.First(l => l.Name == n)).ToList();
+            if (loads.Count == 0 && spec.Initial.IsEmpty)
+                return Fail(io, $"{path}: nothing to respond to; give loads a 'time' function (see docs/model-format.md) or 'initial' conditions under 'transient'");
+
+            if (settings.Method == TransientMethod.Exact && document.Network.Masses.Length > TransientAnalysis.ExactMethodMaxDofs)
+                return Fail(io, $"the exact method is limited to {TransientAnalysis.ExactMethodMaxDofs} masses (this model has {document.Network.Masses.Length}); use --method newmark or modal");
+            var system = DampedSystem.Build(document.Structure);
+            var chosenFormat = parse.GetValue(format);
+            // The bar goes to a terminal only, and never with JSON or CSV (their output may be piped while stderr is not).
+            using var bar = chosenFormat == OutputFormat.Table && settings.StepCount >= ProgressFromSteps && !Console.IsOutputRedirected
+                ? ProgressBar.ForTerminal(io, 100, "time stepping") : null;
+            var result = TransientAnalysis.Run(system, loads, spec.Initial, settings, bar is null ? null : new PercentProgress(bar));
+            bar?.Dispose();
+            switch (chosenFormat)
+            {
+                case OutputFormat.Json:
+                    using (var stdout = new MemoryStream())
+                    {
+                        TransientJson.Write(stdout, document, result, [.. loads.Select(l => l.Name)], CliApp.Version);
+                        io.Output.Write(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
+                        io.Output.WriteLine();
+                    }
+                    break;
+                case OutputFormat.Csv:
+                    TransientCsv.Write(io.Output, result);
+                    break;
+                default:
+                    TransientTable.Write(io.Output, document, system, result, loads);
+                    break;
+            }
+            return ExitCodes.Success;
+        });
+        return command;
+    }
+
+    private static double? Time(string text, string option, Streams io)
+    {
+        var parsed = QuantityParser.Parse(text, Quantity.Time);
+        if (!parsed.Succeeded)
+        {
+            Fail(io, $"{option} '{text}': {parsed.Error}");
+            return null;
+        }
+        if (!(parsed.Value > 0) || !double.IsFinite(parsed.Value))
+        {
+            Fail(io, $"{option} '{text}' must be a positive time, e.g. '1 ms'");
+            return null;
+        }
+        return parsed.Value;
+    }
+
+    private static int Fail(Streams io, string message)
+    {
+        io.Error.WriteLine($"modalchain: error: {message}");
+        return ExitCodes.InputError;
+    }
+
+    /// <summary>Turns the analysis's fraction of steps done into whole percent for the shared progress bar.</summary>
+    private sealed class PercentProgress(IProgress<int> bar) : IProgress<double>
+    {
+        public void Report(double value) => bar.Report((int)Math.Round(100 * Math.Clamp(value, 0, 1)));
+    }
+}

@@ -1,0 +1,428 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using MathNet.Numerics.LinearAlgebra;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
+using ModalChain.Core.Model;
+using ModalChain.Core.Solvers;
+
+namespace ModalChain.Core.Analyses.Transient;
+
+/// <summary>Response of a network to loads that vary in time, from given initial conditions.</summary>
+/// <remarks>
+/// Solves M ü + C u̇ + K u = f(t) for the free DOFs in absolute coordinates. A support with a prescribed acceleration
+/// a_s(t) moves with u̇_s = ∫a_s and u_s = ∫u̇_s, integrated on the time grid exactly for a_s linear between steps;
+/// it loads the free DOFs by −K_fp u_s − C_fp u̇_s (for a spring k from the support to mass i, f_i += k u_s). Warnings follow common practice: at least ~10 steps per period of the
+/// highest mode that takes a significant share (≥ 1 %) of the effective mass or of a load, and a duration of at
+/// least a few periods of the lowest mode. Models of more than 300 DOFs get only their lowest modes (30, or those the
+/// modal method keeps) by subspace iteration unless a complete modal result is passed in, so the step check then
+/// looks at those modes only.
+/// </remarks>
+public static class TransientAnalysis
+{
+    private const double SignificantShare = 0.01;
+    private const double MinimumStepsPerPeriod = 10;
+    private const double MinimumPeriodsOfLowestMode = 3;
+    private const int LargeModel = 300;
+
+    /// <summary>Largest model for <see cref="TransientMethod.Exact"/>: its dense exponential is of order 4n.</summary>
+    public const int ExactMethodMaxDofs = 400;
+    private const int ModesForChecks = 30;
+
+    /// <summary>Runs <paramref name="settings"/> on <paramref name="network"/> damped by its discrete dampers only.</summary>
+    /// <param name="network">The network.</param>
+    /// <param name="matrices">Its matrices; C (the discrete dampers) is the viscous damping used by newmark, hht and exact.</param>
+    /// <param name="excitations">Forces and support accelerations acting together.</param>
+    /// <param name="initial">Initial displacements (m) and velocities (m/s) of masses; others start at rest.</param>
+    /// <param name="settings">Duration, step, method and outputs.</param>
+    /// <param name="modes">A modal result of the same network with all modes, if already computed; otherwise it is computed.</param>
+    /// <param name="progress">Receives the fraction of steps done, about 200 times per run.</param>
+    public static TransientResult Run(Network network, StructuralMatrices matrices, IReadOnlyList<TransientExcitation> excitations,
+        IReadOnlyList<InitialCondition> initial, TransientSettings settings, ModalResult? modes = null, IProgress<double>? progress = null)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        ArgumentNullException.ThrowIfNull(matrices);
+        return Run(network, matrices, SupportCoupling.FromElements(network, matrices.Dofs), null, excitations, initial, settings,
+            modes, progress, []);
+    }
+
+    /// <summary>Runs <paramref name="settings"/> on an assembled model with its full damping model (dampers, Rayleigh, modal).</summary>
+    /// <remarks>
+    /// C is <see cref="DampingMatrices.FF"/> of <paramref name="system"/> and the supports couple through K_fp, C_fp, K_pp and
+    /// C_pp of its partition, so distributed damping that acts on motion relative to the supports is kept. The modal method
+    /// uses the system's modal damping ratios unless the settings give their own. A loss factor has no time-domain form and
+    /// is left out, with a warning.
+    /// </remarks>
+    public static TransientResult Run(DampedSystem system, IReadOnlyList<TransientExcitation> excitations,
+        IReadOnlyList<InitialCondition> initial, TransientSettings settings, IProgress<double>? progress = null)
+    {
+        ArgumentNullException.ThrowIfNull(system);
+        var network = system.Model.Network;
+        var p = system.Partition;
+        var matrices = new StructuralMatrices(p.Free, p.Mass, p.StiffnessFF, system.Damping.FF,
+            Vector<double>.Build.Dense(p.FreeCount, 1.0), MassIsDiagonal: true);
+        var coupling = new SupportCoupling(p.Supports, p.StiffnessFP, system.Damping.FP, p.StiffnessPP, system.Damping.PP);
+        var notes = new List<string>();
+        if (system.LossFactor > 0)
+            notes.Add(Invariant($"The loss factor η = {system.LossFactor:G3} is a frequency-domain model and is left out of this time history; give modal or Rayleigh damping (ζ ≈ η/2 at resonance) for transient runs."));
+        var ratios = system.ModalDampingRatios.Select(z => double.IsNaN(z) ? 0.0 : z - system.LossFactor / 2).ToImmutableArray();
+        return Run(network, matrices, coupling, ratios, excitations, initial, settings, system.Modes, progress, notes);
+    }
+
+    private static TransientResult Run(Network network, StructuralMatrices matrices, SupportCoupling coupling, ImmutableArray<double>? modalRatios,
+        IReadOnlyList<TransientExcitation> excitations, IReadOnlyList<InitialCondition> initial, TransientSettings settings,
+        ModalResult? modes, IProgress<double>? progress, List<string> notes)
+    {
+        ArgumentNullException.ThrowIfNull(excitations);
+        ArgumentNullException.ThrowIfNull(initial);
+        ArgumentNullException.ThrowIfNull(settings);
+        settings.Check();
+        var dofs = matrices.Dofs;
+        var n = matrices.Size;
+        if (n == 0) throw new ArgumentException("The network has no masses.", nameof(network));
+        var h = settings.Step;
+        var steps = settings.StepCount;
+        if (settings.Method == TransientMethod.Exact && n > ExactMethodMaxDofs)
+            throw new ArgumentOutOfRangeException(nameof(settings), settings.Method,
+                $"The exact method forms a dense exponential of order 4n = {4 * n}; it is limited to {ExactMethodMaxDofs} DOFs. Use newmark or modal.");
+
+        var supportMotion = SupportMotion(network, excitations, h, steps);
+        var load = BuildLoad(dofs, excitations, coupling, supportMotion);
+        var probes = BuildProbes(network, dofs, settings, coupling, supportMotion);
+
+        var u0 = new double[n];
+        var v0 = new double[n];
+        foreach (var ic in initial)
+        {
+            var i = dofs.IndexOf(ic.Mass);
+            if (i < 0) throw new ArgumentException($"Initial condition for unknown mass '{ic.Mass}'.", nameof(initial));
+            Guard.Finite(ic.Displacement, nameof(initial));
+            Guard.Finite(ic.Velocity, nameof(initial));
+            u0[i] = ic.Displacement;
+            v0[i] = ic.Velocity;
+        }
+
+        modes ??= Modes(network, matrices, settings);
+        var warnings = notes;
+        var rmsFrom = settings.RmsFrom ?? 0.0;
+        var rmsTo = settings.RmsTo ?? double.PositiveInfinity;
+        var system = new LinearDynamicSystem(matrices.Mass, matrices.Damping, matrices.Stiffness);
+        string description;
+        ResponseRecorder recorder;
+        var consideredModes = modes.Modes;
+
+        switch (settings.Method)
+        {
+            case TransientMethod.Newmark:
+            case TransientMethod.Hht:
+            {
+                var integrator = new NewmarkIntegrator(settings.Method == TransientMethod.Hht ? settings.HhtAlpha : 0.0);
+                description = integrator.Name;
+                recorder = PhysicalRecorder(system, probes, settings, steps, rmsFrom, rmsTo, progress);
+                integrator.Run(system, load.AsLoadVector(), u0, v0, h, steps, recorder);
+                break;
+            }
+            case TransientMethod.Exact:
+            {
+                var integrator = new StateSpaceExactIntegrator();
+                description = integrator.Name;
+                recorder = PhysicalRecorder(system, probes, settings, steps, rmsFrom, rmsTo, progress);
+                integrator.Run(system, load.AsLoadVector(), u0, v0, h, steps, recorder);
+                break;
+            }
+            case TransientMethod.Modal:
+            {
+                var count = Math.Min(settings.ModeCount ?? modes.Modes.Length, modes.Modes.Length);
+                consideredModes = modes.Modes[..count];
+                var shapes = Matrix<double>.Build.Dense(n, count, (i, j) => consideredModes[j].Shape[i]);
+                var omega = consideredModes.Select(m => m.AngularFrequency).ToArray();
+                var zeta = ModalDamping(settings, modalRatios, shapes, omega, matrices.Damping, warnings);
+                var integrator = new ModalSuperpositionIntegrator();
+                description = string.Create(CultureInfo.InvariantCulture, $"{integrator.Name}, {count} of {n} modes");
+                var twoZetaOmega = omega.Select((w, j) => 2 * zeta[j] * w).ToArray();
+                recorder = new ResponseRecorder(
+                    [.. probes.Select(p => p.ToModal(shapes))],
+                    SymmetricSparseMatrix.Diagonal(Enumerable.Repeat(1.0, count).ToArray()),
+                    SymmetricSparseMatrix.Diagonal(twoZetaOmega),
+                    SymmetricSparseMatrix.Diagonal(omega.Select(w => w * w).ToArray()),
+                    h, steps, settings.RecordEvery, rmsFrom, rmsTo, progress);
+                integrator.Run(shapes, omega, zeta, matrices.Mass, load, u0, v0, h, steps, recorder);
+                var cumulative = consideredModes[^1].CumulativeEffectiveMassFraction;
+                if (count < n && cumulative < 0.9)
+                    warnings.Add(Invariant($"The {count} modes kept carry {100 * cumulative:F1} % of the effective mass (less than 90 %): responses to loads that excite higher modes are underestimated."));
+                break;
+            }
+            default:
+                throw new ArgumentOutOfRangeException(nameof(settings), settings.Method, "Unknown method.");
+        }
+
+        warnings.AddRange(StepWarnings(modes, consideredModes, load, matrices, settings, excitations));
+        var energy = recorder.Energy;
+        if (energy.MaxRelativeError > 0.01)
+            warnings.Add(Invariant($"The energy balance closes only to {100 * energy.MaxRelativeError:F2} % of the largest energy: reduce the step."));
+
+        return new TransientResult(network, settings, description, steps, recorder.Times, recorder.Histories(), energy, [.. warnings]);
+    }
+
+    /// <summary>All modes for small models; for large ones only the lowest (those the modal method keeps, or 30 for the step checks), by subspace iteration.</summary>
+    private static ModalResult Modes(Network network, StructuralMatrices matrices, TransientSettings settings)
+    {
+        if (matrices.Size <= LargeModel || (settings.Method == TransientMethod.Modal && settings.ModeCount is null))
+            return ModalAnalysis.Solve(network, matrices);
+        var count = Math.Min(matrices.Size, settings.Method == TransientMethod.Modal ? settings.ModeCount!.Value : ModesForChecks);
+        return ModalAnalysis.Solve(network, matrices, new ModalOptions(count, new SubspaceIterationEigen()));
+    }
+
+    private static ResponseRecorder PhysicalRecorder(LinearDynamicSystem system, List<Probe> probes, TransientSettings settings,
+        int steps, double rmsFrom, double rmsTo, IProgress<double>? progress) =>
+        new(probes, SymmetricSparseMatrix.From(system.Mass), SymmetricSparseMatrix.From(system.Damping),
+            SymmetricSparseMatrix.From(system.Stiffness), settings.Step, steps, settings.RecordEvery, rmsFrom, rmsTo, progress);
+
+    /// <summary>ζⱼ from the settings (last repeats) or from the diagonal of ΦᵀCΦ; warns when C is far from classical.</summary>
+    private static double[] ModalDamping(TransientSettings settings, ImmutableArray<double>? given, Matrix<double> shapes, double[] omega,
+        Matrix<double> c, List<string> warnings)
+    {
+        var count = omega.Length;
+        var zeta = new double[count];
+        if (!settings.ModalDampingRatios.IsEmpty)
+        {
+            for (var j = 0; j < count; j++)
+                zeta[j] = settings.ModalDampingRatios[Math.Min(j, settings.ModalDampingRatios.Length - 1)];
+            return zeta;
+        }
+        if (given is { } ratios && ratios.Length >= count)
+        {
+            for (var j = 0; j < count; j++) zeta[j] = Math.Max(0, ratios[j]);
+        }
+        var g = shapes.TransposeThisAndMultiply(c * shapes);
+        var worst = 0.0;
+        for (var i = 0; i < count; i++)
+        {
+            if (given is null || given.Value.Length < count) zeta[i] = omega[i] > 0 ? g[i, i] / (2 * omega[i]) : 0.0;
+            for (var j = 0; j < count; j++)
+                if (i != j && g[i, i] > 0 && g[j, j] > 0) worst = Math.Max(worst, Math.Abs(g[i, j]) / Math.Sqrt(g[i, i] * g[j, j]));
+        }
+        if (worst > 0.01)
+            warnings.Add(Invariant($"The damping is not classical (coupling {worst:G3} between modes): the modal method keeps only the diagonal of ΦᵀCΦ; use newmark or exact for this model."));
+        return zeta;
+    }
+
+    private static IEnumerable<string> StepWarnings(ModalResult modes, ImmutableArray<Mode> considered, LoadSet load,
+        StructuralMatrices matrices, TransientSettings settings, IReadOnlyList<TransientExcitation> excitations)
+    {
+        var h = settings.Step;
+        var n = matrices.Size;
+        var mass = Enumerable.Range(0, n).Select(i => matrices.Mass[i, i]).ToArray();
+        var highest = considered.Where(m => !m.IsRigidBody && Significant(m, load, mass)).MaxBy(m => m.AngularFrequency);
+        if (highest is not null && highest.PeriodSeconds < MinimumStepsPerPeriod * h)
+            yield return Invariant($"The step {h:G4} s gives only {highest.PeriodSeconds / h:F1} steps per period of mode {highest.Number} ({highest.NaturalFrequencyHz:G4} Hz), which takes a significant share of the mass or load: use at most {highest.PeriodSeconds / MinimumStepsPerPeriod:G3} s (about 10 steps per period, common practice).");
+
+        var lowest = modes.Modes.FirstOrDefault(m => !m.IsRigidBody);
+        if (lowest is not null && settings.Duration < MinimumPeriodsOfLowestMode * lowest.PeriodSeconds)
+            yield return Invariant($"The duration {settings.Duration:G4} s covers only {settings.Duration / lowest.PeriodSeconds:F2} periods of the lowest mode ({lowest.NaturalFrequencyHz:G4} Hz): run at least {MinimumPeriodsOfLowestMode * lowest.PeriodSeconds:G3} s to see its response.");
+
+        foreach (var e in excitations)
+        {
+            var f = e switch { ForceHistory fh => fh.Time, SupportAccelerationHistory sa => sa.Acceleration, _ => null };
+            var highestHz = f switch
+            {
+                SineFunction s => Math.Abs(s.FrequencyHz),
+                UnbalanceSpeedRamp r => Math.Max(r.FromRadPerSecond, r.ToRadPerSecond) / (2 * Math.PI),
+                _ => 0.0,
+            };
+            if (highestHz > 0 && highestHz * h * MinimumStepsPerPeriod > 1)
+                yield return Invariant($"Load '{e.Name}' reaches {highestHz:G4} Hz: the step {h:G4} s gives only {1 / (highestHz * h):F1} steps per cycle of the load.");
+            var pulse = f switch { RectangularPulse r => r.Duration, HalfSinePulse s => s.Duration, _ => double.PositiveInfinity };
+            if (pulse < MinimumStepsPerPeriod * h)
+                yield return Invariant($"Load '{e.Name}' lasts {pulse:G4} s, only {pulse / h:F1} steps: its shape is poorly resolved.");
+            if (f is TableFunction table)
+            {
+                var finest = Enumerable.Range(1, table.Times.Length - 1).Min(i => table.Times[i] - table.Times[i - 1]);
+                if (finest < h * (1 - 1e-9))
+                    yield return Invariant($"Load '{e.Name}' is sampled every {finest:G4} s, finer than the step {h:G4} s: samples between steps are skipped.");
+            }
+        }
+    }
+
+    /// <summary>A mode is significant when it carries ≥ 1 % of the effective mass or of a load term's (φᵀb)²/(bᵀM⁻¹b).</summary>
+    private static bool Significant(Mode mode, LoadSet load, double[] mass)
+    {
+        if (mode.EffectiveMassFraction >= SignificantShare) return true;
+        foreach (var term in load.Terms)
+        {
+            double projection = 0, norm = 0;
+            foreach (var (dof, w) in term.Distribution)
+            {
+                projection += w * mode.Shape[dof];
+                norm += w * w / mass[dof];
+            }
+            if (norm > 0 && projection * projection / norm >= SignificantShare) return true;
+        }
+        return false;
+    }
+
+    /// <summary>Displacement and velocity histories of each moving support, integrated on the step grid.</summary>
+    private static Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> SupportMotion(
+        Network network, IReadOnlyList<TransientExcitation> excitations, double h, int steps)
+    {
+        var motion = new Dictionary<string, (TimeFunction, TimeFunction)>();
+        foreach (var group in excitations.OfType<SupportAccelerationHistory>().GroupBy(e => e.Support))
+        {
+            if (group.Key == Network.Ground)
+                throw new ArgumentException("Ground is fixed; prescribe motion at another support.", nameof(excitations));
+            if (!network.IsSupport(group.Key))
+                throw new ArgumentException($"Support motion '{group.First().Name}' refers to unknown support '{group.Key}'.", nameof(excitations));
+            var d = new double[steps + 1];
+            var v = new double[steps + 1];
+            var aOld = group.Sum(e => e.Acceleration.ValueAt(0));
+            for (var s = 1; s <= steps; s++)
+            {
+                var aNew = group.Sum(e => e.Acceleration.ValueAt(s * h));
+                d[s] = d[s - 1] + h * v[s - 1] + h * h / 6 * (2 * aOld + aNew);
+                v[s] = v[s - 1] + 0.5 * h * (aOld + aNew);
+                aOld = aNew;
+            }
+            motion[group.Key] = (new GridHistory(h, d), new GridHistory(h, v));
+        }
+        return motion;
+    }
+
+    private static LoadSet BuildLoad(Dofs.DofMap dofs, IReadOnlyList<TransientExcitation> excitations, SupportCoupling coupling,
+        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
+    {
+        var terms = new List<LoadTerm>();
+        foreach (var e in excitations.OfType<ForceHistory>())
+        {
+            var i = dofs.IndexOf(e.Mass);
+            if (i < 0) throw new ArgumentException($"Load '{e.Name}' acts at unknown mass '{e.Mass}'.", nameof(excitations));
+            Guard.Finite(e.Scale, nameof(excitations));
+            terms.Add(new LoadTerm([(i, e.Scale)], e.Time));
+        }
+        // A moving support loads the free DOFs by −K_fp u_s − C_fp u̇_s.
+        foreach (var (support, (displacement, velocity)) in supportMotion)
+        {
+            var s = coupling.Supports.IndexOf(support);
+            var k = Column(coupling.StiffnessFP, s);
+            var c = Column(coupling.DampingFP, s);
+            if (k.Length > 0) terms.Add(new LoadTerm([.. k.Select(e => (e.Index, -e.Value))], displacement));
+            if (c.Length > 0) terms.Add(new LoadTerm([.. c.Select(e => (e.Index, -e.Value))], velocity));
+        }
+        return new LoadSet(dofs.Count, [.. terms]);
+    }
+
+    private static (int Index, double Value)[] Column(Matrix<double> m, int column) =>
+        [.. Enumerable.Range(0, m.RowCount).Select(i => (i, m[i, column])).Where(e => e.Item2 != 0)];
+
+    private static List<Probe> BuildProbes(Network network, Dofs.DofMap dofs, TransientSettings settings, SupportCoupling coupling,
+        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
+    {
+        var outputs = settings.Outputs.IsEmpty ? [.. network.Masses.Select(m => m.Name)] : settings.Outputs;
+        var probes = new List<Probe>();
+        foreach (var name in outputs)
+        {
+            var i = dofs.IndexOf(name);
+            if (i < 0) throw new ArgumentException($"Output '{name}' is not a mass.", nameof(settings));
+            probes.Add(new Probe(name, ResponseQuantity.Displacement, [(i, 1.0)], [], [], []));
+            probes.Add(new Probe(name, ResponseQuantity.Velocity, [], [(i, 1.0)], [], []));
+            probes.Add(new Probe(name, ResponseQuantity.Acceleration, [], [], [(i, 1.0)], []));
+        }
+
+        var wanted = outputs.ToHashSet();
+        bool Recorded(string a, string b) => wanted.Contains(a) || wanted.Contains(b) || network.IsSupport(a) || network.IsSupport(b);
+
+        // value × (end A − end B); a support end contributes its prescribed motion, or nothing when it is fixed.
+        (List<(int, double)> State, List<(double, TimeFunction)> Known) Difference(string a, string b, double value, bool velocity)
+        {
+            var state = new List<(int, double)>();
+            var known = new List<(double, TimeFunction)>();
+            foreach (var (node, sign) in new[] { (a, 1.0), (b, -1.0) })
+            {
+                var i = dofs.IndexOf(node);
+                if (i >= 0) state.Add((i, sign * value));
+                else if (supportMotion.TryGetValue(node, out var m)) known.Add((sign * value, velocity ? m.Velocity : m.Displacement));
+            }
+            return (state, known);
+        }
+
+        foreach (var s in network.Springs.Where(s => Recorded(s.NodeA, s.NodeB)))
+        {
+            var (state, known) = Difference(s.NodeA, s.NodeB, s.Stiffness, velocity: false);
+            probes.Add(new Probe(s.Name, ResponseQuantity.SpringForce, [.. state], [], [], [.. known]));
+        }
+        foreach (var d in network.Dampers.Where(d => Recorded(d.NodeA, d.NodeB)))
+        {
+            var (state, known) = Difference(d.NodeA, d.NodeB, d.Coefficient, velocity: true);
+            probes.Add(new Probe(d.Name, ResponseQuantity.DamperForce, [], [.. state], [], [.. known]));
+        }
+
+        // Force received by support s: r_s = −(K_pf u + C_pf u̇ + K_pp u_p + C_pp u̇_p), K_pf = K_fpᵀ.
+        for (var s = 0; s < coupling.Supports.Length; s++)
+        {
+            var u = Column(coupling.StiffnessFP, s).Select(e => (e.Index, -e.Value)).ToList();
+            var v = Column(coupling.DampingFP, s).Select(e => (e.Index, -e.Value)).ToList();
+            var known = new List<(double, TimeFunction)>();
+            var attached = u.Count > 0 || v.Count > 0;
+            for (var t = 0; t < coupling.Supports.Length; t++)
+            {
+                var kst = coupling.StiffnessPP[s, t];
+                var cst = coupling.DampingPP[s, t];
+                attached |= kst != 0 || cst != 0;
+                if (!supportMotion.TryGetValue(coupling.Supports[t], out var m)) continue;
+                if (kst != 0) known.Add((-kst, m.Displacement));
+                if (cst != 0) known.Add((-cst, m.Velocity));
+            }
+            if (attached) probes.Add(new Probe(coupling.Supports[s], ResponseQuantity.Reaction, [.. u], [.. v], [], [.. known]));
+        }
+        return probes;
+    }
+
+    private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
+
+    /// <summary>A history known on the step grid, linear between grid points and held after the last one.</summary>
+    private sealed record GridHistory(double Step, double[] Values) : TimeFunction
+    {
+        public override double ValueAt(double time)
+        {
+            var x = time / Step;
+            if (x <= 0) return Values[0];
+            var i = (int)x;
+            if (i >= Values.Length - 1) return Values[^1];
+            var w = x - i;
+            return w < 1e-9 ? Values[i] : Values[i] + w * (Values[i + 1] - Values[i]);
+        }
+    }
+
+    /// <summary>How the supports (ground first) couple to the free DOFs: K_fp, C_fp (n × p) and K_pp, C_pp (p × p).</summary>
+    private sealed record SupportCoupling(ImmutableArray<string> Supports, Matrix<double> StiffnessFP, Matrix<double> DampingFP,
+        Matrix<double> StiffnessPP, Matrix<double> DampingPP)
+    {
+        /// <summary>The coupling of the discrete springs and dampers, assembled the same way as K and C.</summary>
+        public static SupportCoupling FromElements(Network network, Dofs.DofMap dofs)
+        {
+            var supports = network.Supports.Select(s => s.Name).ToImmutableArray();
+            var n = dofs.Count;
+            var p = supports.Length;
+            var kfp = Matrix<double>.Build.Sparse(n, p);
+            var cfp = Matrix<double>.Build.Sparse(n, p);
+            var kpp = Matrix<double>.Build.Dense(p, p);
+            var cpp = Matrix<double>.Build.Dense(p, p);
+            void Add(Matrix<double> fp, Matrix<double> pp, string a, string b, double value)
+            {
+                int Free(string node) => dofs.IndexOf(node);
+                int Prescribed(string node) => supports.IndexOf(node);
+                foreach (var (x, y) in new[] { (a, b), (b, a) })
+                {
+                    if (Prescribed(x) is var sx and >= 0)
+                    {
+                        pp[sx, sx] += value;
+                        if (Prescribed(y) is var sy and >= 0) pp[sx, sy] -= value;
+                        else if (Free(y) is var iy and >= 0) fp[iy, sx] -= value;
+                    }
+                }
+            }
+            foreach (var s in network.Springs) Add(kfp, kpp, s.NodeA, s.NodeB, s.Stiffness);
+            foreach (var d in network.Dampers) Add(cfp, cpp, d.NodeA, d.NodeB, d.Coefficient);
+            return new SupportCoupling(supports, kfp, cfp, kpp, cpp);
+        }
+    }
+}

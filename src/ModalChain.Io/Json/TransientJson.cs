@@ -1,0 +1,135 @@
+using System.Text.Json;
+using ModalChain.Core;
+using ModalChain.Core.Analyses.Transient;
+using ModalChain.Io.Model;
+
+namespace ModalChain.Io.Json;
+
+/// <summary>Writes a transient result as the JSON object of <c>modalchain transient --format json</c> (SI units).</summary>
+/// <remarks>
+/// Field names are a public contract: time_s, responses (dof, quantity, unit, values), element_forces (element, kind,
+/// unit, values), reactions (support, unit, values), peaks (name, quantity, unit, value, time_s, rms), energy, warnings;
+/// further fields are additions. Element forces are k(u_A − u_B) and c(u̇_A − u̇_B) with A and B as in 'between';
+/// a reaction is the force the support receives, positive along the direction of motion.
+/// </remarks>
+public static class TransientJson
+{
+    /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
+    public static void Write(Stream stream, ModelDocument document, TransientResult result, IReadOnlyList<string> loads, string toolVersion)
+    {
+        ArgumentNullException.ThrowIfNull(document);
+        ArgumentNullException.ThrowIfNull(result);
+        ArgumentNullException.ThrowIfNull(loads);
+        using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
+        w.WriteStartObject();
+        w.WriteString("title", document.Network.Title);
+        w.WriteStartObject("source");
+        w.WriteString("file", document.File);
+        w.WriteString("sha256", document.Sha256);
+        w.WriteString("tool_version", toolVersion);
+        w.WriteEndObject();
+        w.WriteString("method", MethodName(result.Settings.Method));
+        w.WriteString("method_description", result.MethodDescription);
+        w.Number("step_s", result.Settings.Step);
+        w.Number("duration_s", result.Settings.Duration);
+        w.WriteNumber("steps", result.StepCount);
+        w.WriteNumber("record_every", result.Settings.RecordEvery);
+        w.WriteStartArray("loads");
+        foreach (var l in loads) w.WriteStringValue(l);
+        w.WriteEndArray();
+        w.Array("time_s", result.Times);
+
+        w.WriteStartArray("responses");
+        foreach (var r in result.Responses.Where(r => IsMotion(r.Quantity)))
+        {
+            w.WriteStartObject();
+            w.WriteString("dof", r.Name);
+            w.WriteString("quantity", QuantityName(r.Quantity));
+            w.WriteString("unit", r.Unit);
+            w.Array("values", r.Values);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        w.WriteStartArray("element_forces");
+        foreach (var r in result.Responses.Where(r => r.Quantity is ResponseQuantity.SpringForce or ResponseQuantity.DamperForce))
+        {
+            w.WriteStartObject();
+            w.WriteString("element", r.Name);
+            w.WriteString("kind", r.Quantity == ResponseQuantity.SpringForce ? "spring" : "damper");
+            w.WriteString("unit", "N");
+            w.Array("values", r.Values);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        w.WriteStartArray("reactions");
+        foreach (var r in result.Responses.Where(r => r.Quantity == ResponseQuantity.Reaction))
+        {
+            w.WriteStartObject();
+            w.WriteString("support", r.Name);
+            w.WriteString("unit", "N");
+            w.Array("values", r.Values);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        w.WriteStartObject("rms_window_s");
+        w.Number("from", result.Settings.RmsFrom ?? 0);
+        w.Number("to", result.Settings.RmsTo ?? result.StepCount * result.Settings.Step);
+        w.WriteEndObject();
+        w.WriteStartArray("peaks");
+        foreach (var r in result.Responses)
+        {
+            w.WriteStartObject();
+            w.WriteString("name", r.Name);
+            w.WriteString("quantity", QuantityName(r.Quantity));
+            w.WriteString("unit", r.Unit);
+            w.Number("value", r.Peak.Value);
+            w.Number("time_s", r.Peak.Time);
+            w.Number("rms", r.Rms);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        var e = result.Energy;
+        w.WriteStartObject("energy");
+        w.Number("initial_j", e.InitialEnergy);
+        w.Number("input_work_j", e.InputWork);
+        w.Number("final_kinetic_j", e.FinalKineticEnergy);
+        w.Number("final_strain_j", e.FinalStrainEnergy);
+        w.Number("dissipated_j", e.Dissipated);
+        w.Number("max_relative_error", e.MaxRelativeError);
+        w.WriteEndObject();
+
+        w.WriteStartArray("warnings");
+        foreach (var warning in document.Warnings) w.WriteStringValue(warning.ToString());
+        foreach (var warning in result.Warnings) w.WriteStringValue(warning);
+        w.WriteEndArray();
+        w.WriteString("caution", Cautions.Text);
+        w.WriteEndObject();
+    }
+
+    /// <summary>The method's name as written in model files and on the command line.</summary>
+    public static string MethodName(TransientMethod method) => method switch
+    {
+        TransientMethod.Hht => "hht",
+        TransientMethod.Exact => "exact",
+        TransientMethod.Modal => "modal",
+        _ => "newmark",
+    };
+
+    /// <summary>The quantity's name in JSON and CSV headers.</summary>
+    public static string QuantityName(ResponseQuantity quantity) => quantity switch
+    {
+        ResponseQuantity.Displacement => "displacement",
+        ResponseQuantity.Velocity => "velocity",
+        ResponseQuantity.Acceleration => "acceleration",
+        ResponseQuantity.SpringForce => "spring_force",
+        ResponseQuantity.DamperForce => "damper_force",
+        _ => "reaction",
+    };
+
+    /// <summary>True for displacement, velocity and acceleration (the motion of a mass).</summary>
+    public static bool IsMotion(ResponseQuantity q) => q is ResponseQuantity.Displacement or ResponseQuantity.Velocity or ResponseQuantity.Acceleration;
+}

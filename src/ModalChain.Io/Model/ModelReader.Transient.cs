@@ -1,0 +1,193 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using ModalChain.Core.Analyses.Transient;
+using ModalChain.Core.Units;
+using ModalChain.Io.Yaml;
+
+namespace ModalChain.Io.Model;
+
+public static partial class ModelReader
+{
+    private static readonly Range InitialDisplacementRange = new(-100, 100);   // m
+    private static readonly Range InitialVelocityRange = new(-1e3, 1e3);      // m/s
+    private static readonly Range StepRange = new(0, 1e4, MinimumInclusive: false); // s
+    private const double MaxSteps = 5e7;
+
+    private static readonly string[] TimedLoadKinds = ["force", "unbalance", "base-motion"];
+    private static readonly string[] TransientMethods = ["newmark", "hht", "exact", "modal"];
+
+    /// <summary>Reads the loads that carry a 'time' function: forces and support accelerations in time, unbalances that run up or down.</summary>
+    private static ImmutableArray<TransientExcitation> ReadTimedLoads(YMapping top, ImmutableHashSet<string> masses,
+        ImmutableHashSet<string> supports, ReadContext context)
+    {
+        if (top["loads"] is not YMapping loads) return [];
+        var result = ImmutableArray.CreateBuilder<TransientExcitation>();
+        foreach (var (key, value) in loads.Entries)
+        {
+            if (value is not YMapping entry || entry["time"] is not { } time) continue;
+            var name = key.Value;
+            var what = $"load '{name}'";
+            if (entry["kind"] is not { } kindNode)
+            {
+                context.Error(entry, $"{what} needs 'kind': one of {string.Join(", ", TimedLoadKinds)}");
+                continue;
+            }
+            if (context.Text(kindNode, $"'kind' of {what}") is not { } kind) continue;
+            var timeWhat = $"'time' of {what}";
+            switch (kind)
+            {
+                case "force":
+                {
+                    context.RejectUnknownKeys(entry, what, "kind", "at", "time");
+                    var at = LoadMass(entry, masses, what, context);
+                    var f = ReadValueFunction(time, Quantity.Force, timeWhat, context);
+                    if (at is not null && f is not null) result.Add(new ForceHistory(name, at, 1.0, f));
+                    break;
+                }
+                case "unbalance":
+                {
+                    context.RejectUnknownKeys(entry, what, "kind", "at", "mass-radius", "time");
+                    var at = LoadMass(entry, masses, what, context);
+                    var me = context.Required(entry, "mass-radius", Quantity.MassRadius, MassRadiusRange, what);
+                    var f = ReadSpeedFunction(time, timeWhat, context);
+                    if (at is not null && me is { } u && f is not null) result.Add(new ForceHistory(name, at, u, f));
+                    break;
+                }
+                case "base-motion":
+                {
+                    context.RejectUnknownKeys(entry, what, "kind", "support", "time");
+                    var support = LoadSupport(entry, supports, what, context);
+                    var f = ReadValueFunction(time, Quantity.Acceleration, $"{timeWhat} (the support's acceleration)", context);
+                    if (support is not null && f is not null) result.Add(new SupportAccelerationHistory(name, support, f));
+                    break;
+                }
+                default:
+                    context.Error(kindNode, $"unknown kind '{kind}' of {what}{ReadContext.Suggest(kind, TimedLoadKinds)}; accepted: {string.Join(", ", TimedLoadKinds)}");
+                    break;
+            }
+        }
+        return result.ToImmutable();
+    }
+
+    /// <summary>Reads 'transient': duration, step, method, loads, outputs, initial conditions and the RMS window.</summary>
+    private static TransientSpec? ReadTransient(YMapping top, ImmutableHashSet<string> masses, ImmutableArray<TransientExcitation> timedLoads,
+        ReadContext context)
+    {
+        if (top["transient"] is not { } node || node is YScalar { IsPlainNull: true }) return null;
+        if (context.Mapping(node, "'transient'") is not { } t) return null;
+        const string what = "'transient'";
+        context.RejectUnknownKeys(t, what, "duration", "step", "method", "alpha", "modes", "loads", "outputs", "initial", "rms", "record-every");
+        context.Positions["transient"] = t.Position;
+
+        var duration = context.Required(t, "duration", Quantity.Time, DurationRange, what);
+        var step = context.Required(t, "step", Quantity.Time, StepRange, what);
+        if (duration is { } d && step is { } h)
+        {
+            if (h > d)
+                context.Error(t["step"]!, $"'step' of {what} ({Format(h)} s) is longer than 'duration' ({Format(d)} s); take a step of at most a tenth of the shortest period of interest");
+            else if (d / h > MaxSteps)
+                context.Error(t["step"]!, $"{what} asks for {d / h:G3} steps (duration / step), more than {MaxSteps:G2}; lengthen the step or shorten the run");
+        }
+
+        var method = TransientMethod.Newmark;
+        if (t["method"] is { } mNode && context.Text(mNode, $"'method' of {what}") is { } m)
+        {
+            var index = Array.IndexOf(TransientMethods, m);
+            if (index >= 0) method = (TransientMethod)index;
+            else context.Error(mNode, $"'method' of {what} is '{m}'{ReadContext.Suggest(m, TransientMethods)}; write one of {string.Join(", ", TransientMethods)}");
+        }
+        var alpha = context.Optional(t, "alpha", Quantity.Ratio, new Range(-1.0 / 3.0, 0), what) ?? -0.05;
+        if (t["alpha"] is not null && method != TransientMethod.Hht)
+            context.Warning(t["alpha"]!.Position, $"'alpha' of {what} only applies to method: hht and is ignored");
+
+        int? modes = null;
+        if (t["modes"] is { } nNode)
+        {
+            if (nNode is YScalar ns && int.TryParse(ns.Value, NumberStyles.None, CultureInfo.InvariantCulture, out var n) && n >= 1) modes = n;
+            else context.Error(nNode, $"'modes' of {what} must be a whole number of modes, at least 1");
+        }
+        var recordEvery = 1;
+        if (t["record-every"] is { } rNode)
+        {
+            if (rNode is YScalar rs && int.TryParse(rs.Value, NumberStyles.None, CultureInfo.InvariantCulture, out var r) && r >= 1) recordEvery = r;
+            else context.Error(rNode, $"'record-every' of {what} must be a whole number of steps, at least 1");
+        }
+
+        var timedNames = timedLoads.Select(l => l.Name).ToImmutableHashSet();
+        var loadNames = ImmutableArray.CreateBuilder<string>();
+        if (t["loads"] is { } lNode)
+        {
+            if (lNode is not YSequence seq) context.Error(lNode, $"'loads' of {what} must be a list of load names, e.g. [{timedNames.Order().FirstOrDefault() ?? "start-up"}]");
+            else
+                foreach (var item in seq.Items)
+                {
+                    if (context.Text(item, $"'loads' of {what}") is not { } name) continue;
+                    var declared = (top["loads"] as YMapping)?[name];
+                    if (declared is YMapping entry && entry["time"] is null)
+                        context.Error(item, $"'loads' of {what} names '{name}', which has no 'time' function (it is a harmonic load); give it one, e.g. time: {{kind: step, value: 2 kN, at: 0.1 s}}");
+                    else if (declared is null)
+                        context.Error(item, $"'loads' of {what} names unknown load '{name}'{ReadContext.Suggest(name, timedNames)}; declare it under 'loads' with a 'time' function");
+                    else if (loadNames.Contains(name)) context.Error(item, $"'loads' of {what} names '{name}' twice");
+                    else loadNames.Add(name);
+                }
+        }
+
+        var outputs = ImmutableArray.CreateBuilder<string>();
+        if (t["outputs"] is { } oNode)
+        {
+            if (oNode is not YSequence seq) context.Error(oNode, $"'outputs' of {what} must be a list of mass names");
+            else
+                foreach (var item in seq.Items)
+                {
+                    if (context.Text(item, $"'outputs' of {what}") is not { } name) continue;
+                    if (!masses.Contains(name)) context.Error(item, $"'outputs' of {what} names unknown mass '{name}'{ReadContext.Suggest(name, masses)}; declare it under 'masses'");
+                    else if (outputs.Contains(name)) context.Error(item, $"'outputs' of {what} names '{name}' twice");
+                    else outputs.Add(name);
+                }
+        }
+
+        var initial = ImmutableArray.CreateBuilder<InitialCondition>();
+        if (t["initial"] is { } iNode && context.Mapping(iNode, $"'initial' of {what}") is { } im)
+        {
+            foreach (var (massKey, stateNode) in im.Entries)
+            {
+                var iw = $"the initial state of '{massKey.Value}'";
+                if (!masses.Contains(massKey.Value))
+                {
+                    context.Error(massKey, $"'initial' of {what} names unknown mass '{massKey.Value}'{ReadContext.Suggest(massKey.Value, masses)}");
+                    continue;
+                }
+                if (context.Mapping(stateNode, iw) is not { } state) continue;
+                context.RejectUnknownKeys(state, iw, "displacement", "velocity");
+                var u0 = context.Optional(state, "displacement", Quantity.Length, InitialDisplacementRange, iw) ?? 0;
+                var v0 = context.Optional(state, "velocity", Quantity.Velocity, InitialVelocityRange, iw) ?? 0;
+                initial.Add(new InitialCondition(massKey.Value, u0, v0));
+            }
+        }
+
+        double? rmsFrom = null, rmsTo = null;
+        if (t["rms"] is { } wNode && context.Mapping(wNode, $"'rms' of {what}") is { } w)
+        {
+            context.RejectUnknownKeys(w, $"'rms' of {what}", "from", "to");
+            rmsFrom = context.Optional(w, "from", Quantity.Time, InstantRange, $"'rms' of {what}");
+            rmsTo = context.Optional(w, "to", Quantity.Time, InstantRange, $"'rms' of {what}");
+            if (rmsFrom is { } a && rmsTo is { } b && !(b > a))
+                context.Error(w["to"]!, $"'to' of 'rms' ({Format(b)} s) must be after 'from' ({Format(a)} s)");
+        }
+
+        if (loadNames.Count == 0 && t["loads"] is null && timedLoads.IsEmpty && initial.Count == 0)
+            context.Error(t, $"{what} has nothing to respond to: give loads with a 'time' function or 'initial' conditions");
+
+        if (duration is not { } dur || step is not { } stp || stp > dur || context.HasErrors) return null;
+        var settings = new TransientSettings(dur, stp, method)
+        {
+            HhtAlpha = alpha,
+            ModeCount = modes,
+            Outputs = outputs.ToImmutable(),
+            RmsFrom = rmsFrom,
+            RmsTo = rmsTo,
+            RecordEvery = recordEvery,
+        };
+        return new TransientSpec(loadNames.ToImmutable(), initial.ToImmutable(), settings);
+    }
+}

@@ -1,0 +1,53 @@
+using ModalChain.Core.Analyses.Transient;
+using ModalChain.Core.Model;
+using static ModalChain.Core.Tests.Analyses.Transient.TransientTestKit;
+
+namespace ModalChain.Core.Tests.Analyses.Transient;
+
+/// <summary>The time-stepping loops allocate nothing per step: the extra steps of a longer run cost no memory.</summary>
+public class AllocationTests
+{
+    private sealed class NullSink : IStepSink
+    {
+        public double Last;
+
+        public void Accept(int step, double time, ReadOnlySpan<double> u, ReadOnlySpan<double> v, ReadOnlySpan<double> a, ReadOnlySpan<double> f) =>
+            Last = u[0];
+    }
+
+    private static long Allocated(Action run)
+    {
+        run();
+        var before = GC.GetAllocatedBytesForCurrentThread();
+        run();
+        return GC.GetAllocatedBytesForCurrentThread() - before;
+    }
+
+    [Theory]
+    [InlineData("newmark")]
+    [InlineData("hht")]
+    [InlineData("exact")]
+    [InlineData("modal")]
+    public void ExtraSteps_AllocateNothing(string method)
+    {
+        var system = RandomSystem(12, seed: 3, rayleigh: true);
+        var load = new LoadSet(12, [new LoadTerm([(3, 1.0)], new HalfSinePulse(100, 0.01)), new LoadTerm([(7, 0.01)], new UnbalanceSpeedRamp(0, 100, 1))]);
+        var u0 = new double[12];
+        var v0 = new double[12];
+        var shapes = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.DenseIdentity(12);
+        var omega = Enumerable.Repeat(10.0, 12).ToArray();
+        var zeta = Enumerable.Repeat(0.02, 12).ToArray();
+        Action Run(int steps) => method switch
+        {
+            "newmark" => () => new NewmarkIntegrator().Run(system, load.AsLoadVector(), u0, v0, 1e-3, steps, new NullSink()),
+            "hht" => () => new NewmarkIntegrator(-0.1).Run(system, load.AsLoadVector(), u0, v0, 1e-3, steps, new NullSink()),
+            "exact" => () => new StateSpaceExactIntegrator().Run(system, load.AsLoadVector(), u0, v0, 1e-3, steps, new NullSink()),
+            _ => () => new ModalSuperpositionIntegrator().Run(shapes, omega, zeta, system.Mass, load, u0, v0, 1e-3, steps, new NullSink()),
+        };
+        var shortRun = Allocated(Run(100));
+        var longRun = Allocated(Run(5100));
+        // The smallest object is 24 bytes, so less than one byte per extra step means no allocation per step; the
+        // runtime may still allocate a few kB once (tiered compilation of the long loop).
+        Assert.True(longRun - shortRun < 5000, $"{method}: 5,000 extra steps allocated {longRun - shortRun} bytes");
+    }
+}
