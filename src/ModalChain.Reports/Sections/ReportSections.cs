@@ -12,6 +12,7 @@ public static class ReportSections
         ModelSummarySection.Create,
         ModesSection.Create,
         HarmonicSection.Create,
+        TransientSection.Create,
         CriteriaSection.Create,
         SpeedFrequencySection.Create,
     ];
