@@ -75,7 +75,7 @@ public sealed class TransientSection : IReportSection
             $"Time history over {DisplayUnits.Number(s.Duration)} s in {_result.StepCount} steps of {DisplayUnits.Number(s.Step)} s ({_result.MethodDescription}); loads: {(_loads.IsEmpty ? "none (initial conditions only)" : string.Join(", ", _loads))}."));
         foreach (var w in _result.Warnings) html.Paragraph(w, "note");
         html.Table("Peaks and RMS of each recorded response",
-            ["Response", "Quantity", "Unit", "Peak |value|", "at (s)", "RMS"],
+            ["Response", "Quantity", "Unit", "Peak (largest magnitude, signed)", "at (s)", "RMS"],
             _result.Responses.Select(r => (IReadOnlyList<string>)
                 [r.Name, TransientJson.QuantityName(r.Quantity), r.Unit, DisplayUnits.Number(r.Peak.Value), DisplayUnits.Number(r.Peak.Time), DisplayUnits.Number(r.Rms)]),
             new HashSet<int> { 3, 4, 5 });
