@@ -30,6 +30,7 @@ public static class CliApp
         root.Subcommands.Add(StudyCommand.Create(io));
         root.Subcommands.Add(HarmonicCommand.Create(io));
         root.Subcommands.Add(TransientCommand.Create(io));
+        root.Subcommands.Add(ReportCommand.Create(io));
         // The built-in action prints the entry assembly's version, which is the host's when run in-process.
         foreach (var v in root.Options.OfType<VersionOption>()) v.Action = new PrintVersion(output);
 

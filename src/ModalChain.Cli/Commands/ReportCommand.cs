@@ -1,0 +1,61 @@
+using System.CommandLine;
+using ModalChain.Reports;
+using ModalChain.Reports.Units;
+using ModalChain.Reports.Writing;
+
+namespace ModalChain.Cli.Commands;
+
+/// <summary><c>modalchain report FILE -o DIR</c>: the self-contained HTML report, every figure as its own file and results.json.</summary>
+internal static class ReportCommand
+{
+    public static Command Create(Streams io)
+    {
+        var file = CommonOptions.ModelFile();
+        var output = new Option<string>("--output", "-o") { Description = "Folder to write into (created when missing). Written atomically: a failed run leaves it as it was.", Required = true };
+        var format = new Option<ReportFormat>("--format")
+        {
+            Description = "html: report.html + SVG figures + results.json (default); svg: the SVG figures and results.json only; pdf: as html, plus each figure as PDF.",
+            DefaultValueFactory = _ => ReportFormat.Html,
+        };
+        var units = new Option<UnitSystem>("--units")
+        {
+            Description = "Units shown in the report: si (default) or imperial (lb, lbf/in, lbf·s/in, in). results.json is always SI.",
+            DefaultValueFactory = _ => UnitSystem.Si,
+        };
+        var modes = new Option<int>("--modes")
+        {
+            Description = "Largest number of modes tabulated and drawn (the lowest ones; default 20).",
+            DefaultValueFactory = _ => 20,
+        };
+        modes.Validators.Add(r =>
+        {
+            if (r.GetValueOrDefault<int>() < 1) r.AddError("--modes must be at least 1.");
+        });
+        var command = new Command("report",
+            "Write a reviewer's report of the model into a folder: report.html (one self-contained file: model summary, " +
+            "network drawing, modes table, one figure per mode shape, caution and traceability to the model file), each figure " +
+            "as its own SVG (and PDF with --format pdf), and results.json with every number behind the report (SI).\n\n" + CliApp.CautionHelp)
+        { file, output, format, units, modes };
+        command.SetAction(parse =>
+        {
+            var path = parse.GetValue(file)!;
+            var directory = parse.GetValue(output)!;
+            var document = CommonOptions.Load(path, io);
+            if (document is null) return ExitCodes.InputError;
+            var options = new ReportOptions(CliApp.Version, DateTimeOffset.UtcNow, parse.GetValue(units), parse.GetValue(modes));
+            var report = ReportBuilder.Build(document, options);
+            try
+            {
+                var files = ReportWriter.Write(report, directory, parse.GetValue(format));
+                io.Output.WriteLine($"{path}: report written to {directory}: {string.Join(", ", files)}");
+            }
+            catch (ReportWriteException e)
+            {
+                io.Error.WriteLine($"modalchain: error: {e.Message}");
+                return ExitCodes.InputError;
+            }
+            return ExitCodes.Success;
+        });
+        return command;
+    }
+}

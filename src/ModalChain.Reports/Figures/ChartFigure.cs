@@ -1,0 +1,92 @@
+using System.Globalization;
+using System.Text;
+using System.Text.RegularExpressions;
+using System.Xml.Linq;
+using ModalChain.Reports.Drawing;
+using OxyPlot;
+
+namespace ModalChain.Reports.Figures;
+
+/// <summary>An x-y chart drawn with OxyPlot and exported through SkiaSharp (SVG and PDF).</summary>
+/// <remarks>
+/// The SVG that SkiaSharp writes has no viewBox, numbers its clip paths from 1 in every file (so two charts inline in
+/// one HTML page would share ids) and leaves a trailing separator in per-glyph position lists; <see cref="Svg"/> fixes
+/// all three so the chart scales with the page and renders the same in every browser.
+/// </remarks>
+public sealed partial class ChartFigure : ReportFigure
+{
+    private readonly Lazy<string> _svg;
+
+    /// <summary>Creates a chart figure of <paramref name="width"/> × <paramref name="height"/> user units.</summary>
+    public ChartFigure(string name, string caption, PlotModel model, double width = NetworkFigure.Width, double height = 380)
+        : base(name, caption, "chart")
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        Model = model;
+        Width = width;
+        Height = height;
+        Charts.ApplyFont(model);
+        _svg = new Lazy<string>(Export);
+    }
+
+    /// <summary>The chart.</summary>
+    public PlotModel Model { get; }
+
+    /// <summary>Width in user units.</summary>
+    public double Width { get; }
+
+    /// <summary>Height in user units.</summary>
+    public double Height { get; }
+
+    /// <inheritdoc />
+    public override string Svg(bool standalone) =>
+        standalone ? "<?xml version=\"1.0\" encoding=\"utf-8\"?>\n" + _svg.Value : _svg.Value;
+
+    /// <inheritdoc />
+    public override void WritePdf(Stream stream)
+    {
+        // Text shaping needs HarfBuzz's native library, which the Linux no-dependency assets do not ship; plain glyph runs suffice for labels.
+        var exporter = new OxyPlot.SkiaSharp.PdfExporter { Width = (float)Width, Height = (float)Height, UseTextShaping = false };
+        lock (Model.SyncRoot) exporter.Export(Model, stream);
+    }
+
+    private string Export()
+    {
+        using var buffer = new MemoryStream();
+        var exporter = new OxyPlot.SkiaSharp.SvgExporter { Width = (float)Width, Height = (float)Height };
+        lock (Model.SyncRoot) exporter.Export(Model, buffer);
+        var document = XDocument.Parse(Encoding.UTF8.GetString(buffer.ToArray()));
+        var root = document.Root ?? throw new InvalidOperationException("The chart exporter wrote an empty SVG.");
+        XNamespace svg = "http://www.w3.org/2000/svg";
+        var w = Width.ToString(CultureInfo.InvariantCulture);
+        var h = Height.ToString(CultureInfo.InvariantCulture);
+        root.SetAttributeValue("viewBox", $"0 0 {w} {h}");
+        root.SetAttributeValue("width", w);
+        root.SetAttributeValue("height", h);
+        root.SetAttributeValue("font-family", Scene.FontStack);
+        root.SetAttributeValue("role", "img");
+        root.SetAttributeValue("data-figure", Name);
+        root.AddFirst(new XElement(svg + "title", Model.Title ?? Name));
+
+        // SkiaSharp numbers ids from a process-wide counter; renumber them in document order so output is reproducible.
+        var ids = root.DescendantsAndSelf().Attributes("id").Select(a => a.Value).Distinct(StringComparer.Ordinal)
+            .Select((id, i) => (id, i)).ToDictionary(p => p.id, p => $"{Name}-clip{p.i + 1}", StringComparer.Ordinal);
+        foreach (var element in root.DescendantsAndSelf())
+            foreach (var attribute in element.Attributes().ToArray())
+            {
+                if (attribute.Name == "id") attribute.Value = ids[attribute.Value];
+                else if (attribute.Value.Contains("url(#", StringComparison.Ordinal))
+                    attribute.Value = UrlReference().Replace(attribute.Value, m => ids.TryGetValue(m.Groups[1].Value, out var id) ? $"url(#{id})" : m.Value);
+                else if (attribute.Name.LocalName == "href" && attribute.Value.StartsWith('#') && ids.TryGetValue(attribute.Value[1..], out var target))
+                    attribute.Value = "#" + target;
+                else if (element.Name.LocalName == "text" && attribute.Name.LocalName is "x" or "y")
+                    attribute.Value = attribute.Value.Trim().TrimEnd(',').Trim();
+            }
+        foreach (var text in root.Descendants(svg + "text"))
+            if (text.Nodes().OfType<XText>().ToArray() is [var only]) only.Value = only.Value.Trim();
+        return root.ToString(SaveOptions.DisableFormatting);
+    }
+
+    [GeneratedRegex(@"url\(#([^)]+)\)")]
+    private static partial Regex UrlReference();
+}

@@ -1,0 +1,34 @@
+namespace ModalChain.Reports.Figures;
+
+/// <summary>A figure of the report: shown inline in report.html and written as its own file (SVG, and PDF on request).</summary>
+public abstract class ReportFigure
+{
+    /// <summary>Creates a figure named <paramref name="name"/> (the file stem, e.g. "mode-02").</summary>
+    protected ReportFigure(string name, string caption, string kind)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(name);
+        if (name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
+            throw new ArgumentException($"Figure name '{name}' must be a plain file stem (letters, digits, '-', '_').", nameof(name));
+        Name = name;
+        Caption = caption;
+        Kind = kind;
+    }
+
+    /// <summary>File stem after the figure's content ("network", "mode-01", "harmonic-skid").</summary>
+    public string Name { get; }
+
+    /// <summary>One or two sentences under the figure in the HTML report (plain text).</summary>
+    public string Caption { get; }
+
+    /// <summary>What the figure shows, used as its CSS class in the HTML ("mode", "network", "chart").</summary>
+    public string Kind { get; }
+
+    /// <summary>The figure as SVG: with an XML declaration when <paramref name="standalone"/>; element ids unique within a report.</summary>
+    public abstract string Svg(bool standalone);
+
+    /// <summary>An animated SVG of the figure for the screen view of the HTML, or null when the figure is a still.</summary>
+    public virtual string? AnimatedSvg() => null;
+
+    /// <summary>Writes the figure as a one-page vector PDF.</summary>
+    public abstract void WritePdf(Stream stream);
+}

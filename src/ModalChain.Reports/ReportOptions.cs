@@ -1,0 +1,27 @@
+using ModalChain.Reports.Units;
+
+namespace ModalChain.Reports;
+
+/// <summary>Which files a report run writes besides results.json.</summary>
+public enum ReportFormat
+{
+    /// <summary>report.html and every figure as SVG (the default).</summary>
+    Html,
+
+    /// <summary>Every figure as SVG, no HTML.</summary>
+    Svg,
+
+    /// <summary>report.html and every figure as SVG and as PDF.</summary>
+    Pdf,
+}
+
+/// <summary>Options of a report run.</summary>
+/// <param name="ToolVersion">Version of the tool, printed on the report for traceability.</param>
+/// <param name="Generated">When the report was made (printed in UTC).</param>
+/// <param name="Units">Display units of the HTML and figures; results.json is always SI.</param>
+/// <param name="MaxModes">Largest number of modes tabulated and drawn (the lowest ones).</param>
+public sealed record ReportOptions(string ToolVersion, DateTimeOffset Generated, UnitSystem Units = UnitSystem.Si, int MaxModes = 20)
+{
+    /// <summary>Networks up to this many masses get an animated mode view in the HTML (larger ones would bloat the file).</summary>
+    public int MaxAnimatedMasses { get; init; } = 40;
+}

@@ -1,0 +1,219 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using System.Text.Json;
+using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Io.Json;
+using ModalChain.Reports.Drawing;
+using ModalChain.Reports.Figures;
+using ModalChain.Reports.Html;
+using ModalChain.Reports.Units;
+using OxyPlot;
+using OxyPlot.Annotations;
+using OxyPlot.Axes;
+using OxyPlot.Series;
+
+namespace ModalChain.Reports.Sections;
+
+/// <summary>Steady-state harmonic response: one magnitude-and-phase chart per output mass, peaks and operating points.</summary>
+/// <remarks>Present when the model has a 'harmonic' section and loads. The numbers are the object of <c>modalchain harmonic --format json</c>.</remarks>
+public sealed class HarmonicSection : IReportSection
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+    private readonly ReportContext _context;
+    private readonly HarmonicResult _result;
+    private readonly ImmutableArray<ChartFigure> _figures;
+
+    /// <summary>Most response charts the section draws; results.json always holds every output.</summary>
+    public const int MaxCharts = 8;
+
+    /// <summary>The outputs that have a chart, in output order.</summary>
+    public ImmutableArray<DofResponse> Charted { get; }
+
+    private HarmonicSection(ReportContext context, HarmonicResult result)
+    {
+        _context = context;
+        _result = result;
+        var log = context.Document.Harmonic?.Frequencies is FrequencyRange { Spacing: FrequencySpacing.Logarithmic };
+        // A chart per output up to a readable number; beyond it, the outputs with the largest peak displacement.
+        Charted = [.. result.Responses
+            .Select((r, i) => (r, i, peak: r.Displacement.Max(x => x.Magnitude)))
+            .OrderByDescending(p => result.Responses.Length <= MaxCharts ? -p.i : p.peak)
+            .Take(MaxCharts)
+            .OrderBy(p => p.i)
+            .Select(p => p.r)];
+        _figures = [.. Charted.Select(r => ResponseChart(r, log))];
+    }
+
+    /// <summary>The factory registered in <see cref="ReportSections.Default"/>: null when the model asks for no harmonic response.</summary>
+    public static IReportSection? Create(ReportContext context)
+    {
+        ArgumentNullException.ThrowIfNull(context);
+        return context.Harmonic is { } result ? new HarmonicSection(context, result) : null;
+    }
+
+    /// <inheritdoc />
+    public string Key => "harmonic";
+
+    /// <inheritdoc />
+    public string Title => "Harmonic response";
+
+    /// <inheritdoc />
+    public IReadOnlyList<ReportFigure> Figures => _figures;
+
+    /// <summary>File stem of the response chart of mass <paramref name="dof"/>.</summary>
+    public static string FigureName(string dof) =>
+        "harmonic-" + new string([.. dof.Select(c => char.IsAsciiLetterOrDigit(c) || c is '-' or '_' ? c : '-')]);
+
+    /// <summary>Display unit of displacement amplitude: mm (SI) or in (imperial), and metres per unit.</summary>
+    private (string Symbol, double Metres) Displacement => _context.Units.System == UnitSystem.Imperial ? ("in", 0.0254) : ("mm", 1e-3);
+
+    private (string Symbol, double MetresPerSecond) Velocity => _context.Units.System == UnitSystem.Imperial ? ("in/s", 0.0254) : ("mm/s", 1e-3);
+
+    /// <inheritdoc />
+    public void WriteHtml(HtmlWriter html)
+    {
+        var f = _result.FrequenciesHz;
+        html.Paragraph(string.Create(Inv,
+            $"Steady-state response to {string.Join(", ", _result.Loads)} acting together, {f.Length} frequencies from {DisplayUnits.Number(f.Min())} to {DisplayUnits.Number(f.Max())} Hz, ") +
+            (_result.Method == HarmonicMethod.Modal
+                ? string.Create(Inv, $"by modal superposition of {_result.ModesUsed} modes with residual flexibility.")
+                : "by the direct complex solve (K(1 + iη) − ω²M + iωC) X = F at each frequency."));
+        foreach (var note in _result.Notes) html.Paragraph(note, "note");
+
+        var (dSym, dScale) = Displacement;
+        var (vSym, vScale) = Velocity;
+        var peaks = _result.Peaks();
+        html.Table("Largest response over the sweep",
+            ["Mass", $"Displacement ({dSym})", "at (Hz)", $"Velocity ({vSym})", "at (Hz)", "Acceleration (m/s²)", "at (Hz)"],
+            _result.Responses.Select(r =>
+            {
+                ResponsePeak P(ResponseQuantity q) => peaks.First(p => p.Dof == r.Dof && p.Quantity == q);
+                var d = P(ResponseQuantity.Displacement);
+                var v = P(ResponseQuantity.Velocity);
+                var a = P(ResponseQuantity.Acceleration);
+                return (IReadOnlyList<string>)[r.Dof, DisplayUnits.Number(d.Magnitude / dScale), DisplayUnits.Number(d.FrequencyHz),
+                    DisplayUnits.Number(v.Magnitude / vScale), DisplayUnits.Number(v.FrequencyHz), DisplayUnits.Number(a.Magnitude), DisplayUnits.Number(a.FrequencyHz)];
+            }), new HashSet<int> { 1, 2, 3, 4, 5, 6 });
+
+        foreach (var op in _result.OperatingPoints)
+        {
+            var at = op.Response;
+            html.Table(string.Create(Inv, $"At the running speed {DisplayUnits.Number(op.SpeedHz * 60)} rpm ({DisplayUnits.Number(op.SpeedHz)} Hz): {string.Join(", ", op.Loads)}"),
+                ["Mass", $"Displacement ({dSym})", $"Velocity ({vSym})", "Acceleration (m/s²)", "Phase of displacement (°)"],
+                at.Responses.Select(r => (IReadOnlyList<string>)
+                [
+                    r.Dof,
+                    DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Displacement).Magnitude / dScale),
+                    DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude / vScale),
+                    DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude),
+                    DisplayUnits.Number(HarmonicJson.PhaseDegrees(r.Displacement[0])),
+                ]), new HashSet<int> { 1, 2, 3, 4 });
+            if (at.Reactions.Length > 0)
+                html.Table("Force into each support at that speed", ["Support", "Force amplitude (N)", "Phase (°)"],
+                    at.Reactions.Select(r => (IReadOnlyList<string>)[r.Support, DisplayUnits.Number(r.Force[0].Magnitude), DisplayUnits.Number(HarmonicJson.PhaseDegrees(r.Force[0]))]),
+                    new HashSet<int> { 1, 2 });
+        }
+        html.Paragraph("In each chart the upper panel is the displacement amplitude on a logarithmic axis and the lower panel its phase relative to the loads; dashed grey lines mark the natural frequencies and dash-dot orange lines the running speeds.");
+        if (Charted.Length < _result.Responses.Length)
+            html.Paragraph(string.Create(Inv, $"Charts are drawn for the {Charted.Length} of {_result.Responses.Length} outputs with the largest peak displacement; results.json holds every output."), "note");
+        foreach (var figure in _figures) html.Figure(figure);
+    }
+
+    /// <inheritdoc />
+    public void WriteJson(Utf8JsonWriter json)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        using var buffer = new MemoryStream();
+        HarmonicJson.Write(buffer, _context.Document, _result, _context.Options.ToolVersion);
+        using var parsed = JsonDocument.Parse(buffer.ToArray());
+        parsed.RootElement.WriteTo(json);
+    }
+
+    private ChartFigure ResponseChart(DofResponse response, bool logFrequency)
+    {
+        var (dSym, dScale) = Displacement;
+        var f = _result.FrequenciesHz;
+        var model = Charts.Create($"Harmonic response of {response.Dof}", $"{_context.Document.Network.Title}: {string.Join(", ", _result.Loads)}");
+        Axis frequency = logFrequency ? Charts.Logarithmic(AxisPosition.Bottom, "Frequency (Hz)") : Charts.Linear(AxisPosition.Bottom, "Frequency (Hz)");
+        frequency.Minimum = f.Min();
+        frequency.Maximum = f.Max();
+        model.Axes.Add(frequency);
+        var magnitude = Charts.Logarithmic(AxisPosition.Left, $"Displacement amplitude ({dSym})");
+        magnitude.Key = "magnitude";
+        magnitude.StartPosition = 0.36;
+        magnitude.EndPosition = 1;
+        model.Axes.Add(magnitude);
+        var phase = Charts.Linear(AxisPosition.Left, "Phase (°)", -180, 180);
+        phase.Key = "phase";
+        phase.StartPosition = 0;
+        phase.EndPosition = 0.28;
+        phase.MajorStep = 90;
+        phase.MinorStep = 45;
+        model.Axes.Add(phase);
+
+        var amplitude = new LineSeries { Title = "displacement amplitude", YAxisKey = "magnitude" };
+        Charts.Style(amplitude, 0);
+        var angle = new LineSeries { Title = "phase", YAxisKey = "phase" };
+        Charts.Style(angle, 0);
+        angle.StrokeThickness = 1.4;
+        var order = Enumerable.Range(0, f.Length).OrderBy(k => f[k]).ToArray();
+        var smallest = double.MaxValue;
+        foreach (var k in order)
+        {
+            var x = response.Displacement[k];
+            var m = x.Magnitude / dScale;
+            if (m > 0) smallest = Math.Min(smallest, m);
+            amplitude.Points.Add(new DataPoint(f[k], m > 0 ? m : double.NaN));
+            angle.Points.Add(new DataPoint(f[k], HarmonicJson.PhaseDegrees(x)));
+        }
+        model.Series.Add(amplitude);
+        model.Series.Add(angle);
+
+        foreach (var mode in _context.Damped.Modes.Modes.Where(m => !m.IsRigidBody && m.NaturalFrequencyHz >= f.Min() && m.NaturalFrequencyHz <= f.Max()).Take(12))
+            model.Annotations.Add(Marker(mode.NaturalFrequencyHz, string.Create(Inv, $"f{mode.Number} {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz"), Palette.Grey, LineStyle.Dash));
+        foreach (var op in _result.OperatingPoints)
+            model.Annotations.Add(Marker(op.SpeedHz, string.Create(Inv, $"{DisplayUnits.Number(op.SpeedHz * 60)} rpm"), Palette.Orange, LineStyle.DashDot));
+
+        var peak = order.MaxBy(k => response.Displacement[k].Magnitude);
+        var top = response.Displacement[peak].Magnitude / dScale;
+        if (top > 0)
+        {
+            // Headroom above the peak for its label; at most six decades shown below it.
+            magnitude.Maximum = top * 4;
+            magnitude.Minimum = Math.Max(smallest, top * 1e-6) / 1.5;
+        }
+        model.Annotations.Add(new PointAnnotation
+        {
+            X = f[peak],
+            Y = response.Displacement[peak].Magnitude / dScale,
+            YAxisKey = "magnitude",
+            Shape = MarkerType.Diamond,
+            Size = 5,
+            Fill = OxyColor.Parse(Palette.Vermillion),
+            Text = string.Create(Inv, $"peak {DisplayUnits.Number(response.Displacement[peak].Magnitude / dScale)} {dSym} at {DisplayUnits.Number(f[peak])} Hz"),
+            TextColor = OxyColor.Parse(Palette.Black),
+            FontSize = 10,
+            TextHorizontalAlignment = HorizontalAlignment.Right,
+            TextVerticalAlignment = VerticalAlignment.Bottom,
+            TextMargin = 6,
+        });
+        var caption = string.Create(Inv,
+            $"Displacement amplitude (log scale) and phase of {response.Dof} over the sweep; natural frequencies dashed grey, running speeds dash-dot orange, the peak marked with a diamond.");
+        return new ChartFigure(FigureName(response.Dof), caption, model, height: 440);
+    }
+
+    private static LineAnnotation Marker(double x, string text, string colour, LineStyle style) => new()
+    {
+        Type = LineAnnotationType.Vertical,
+        X = x,
+        YAxisKey = "magnitude",
+        Color = OxyColor.Parse(colour),
+        LineStyle = style,
+        StrokeThickness = 1.2,
+        Text = text,
+        TextColor = OxyColor.Parse(colour == Palette.Grey ? Palette.Black : Palette.Vermillion),
+        FontSize = 9.5,
+        TextOrientation = AnnotationTextOrientation.Vertical,
+        TextHorizontalAlignment = HorizontalAlignment.Right,
+    };
+}

@@ -1,0 +1,149 @@
+using System.Globalization;
+using System.Text.Json;
+using ModalChain.Core.Model;
+using ModalChain.Reports.Drawing;
+using ModalChain.Reports.Figures;
+using ModalChain.Reports.Html;
+
+namespace ModalChain.Reports.Sections;
+
+/// <summary>The model as read: masses, springs, dampers, supports, total mass and the drawing of the network.</summary>
+public sealed class ModelSummarySection : IReportSection
+{
+    private readonly ReportContext _context;
+    private readonly SchematicFigure _drawing;
+
+    private ModelSummarySection(ReportContext context)
+    {
+        _context = context;
+        var network = context.Document.Network;
+        var layout = context.Layout;
+        var units = context.Units;
+        var header = new[]
+        {
+            "Network: " + network.Title,
+            string.Create(CultureInfo.InvariantCulture,
+                $"{Count(network.Masses.Length, "mass", "masses")}, {Count(network.Springs.Length, "spring", "springs")}, {Count(network.Dampers.Length, "damper", "dampers")}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
+        };
+        var footer = new[] { PositionNote(layout) };
+        var scene = NetworkFigure.Network(layout, header, footer, units, network.Masses.ToDictionary(m => m.Name, m => m.Kilograms));
+        _drawing = new SchematicFigure("network", "The network as modelled: masses (blocks), springs (zigzags), dampers (dashpots) and supports (hatched). "
+            + PositionNote(layout), "network", scene, animated: false);
+    }
+
+    /// <summary>The factory registered in <see cref="ReportSections.Default"/>; every model has this section.</summary>
+    public static IReportSection? Create(ReportContext context) => new ModelSummarySection(context);
+
+    /// <inheritdoc />
+    public string Key => "model";
+
+    /// <inheritdoc />
+    public string Title => "Model summary";
+
+    /// <inheritdoc />
+    public IReadOnlyList<ReportFigure> Figures => [_drawing];
+
+    private static string Count(int n, string one, string many) => n.ToString(CultureInfo.InvariantCulture) + " " + (n == 1 ? one : many);
+
+    /// <summary>Says where the drawing's positions came from.</summary>
+    public static string PositionNote(NetworkLayout layout) => layout.Automatic
+        ? "Positions laid out automatically (masses stacked by their distance from the supports), since not every mass has a distinct 'at'."
+        : "Positions from the model's 'at' values.";
+
+    /// <inheritdoc />
+    public void WriteHtml(HtmlWriter html)
+    {
+        var network = _context.Document.Network;
+        var u = _context.Units;
+        var groups = Topology.UnsupportedGroups(network);
+        html.Facts(
+        [
+            ("Title", network.Title),
+            ("Degrees of freedom", network.Masses.Length.ToString(CultureInfo.InvariantCulture) + " (one direction of motion per mass)"),
+            ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass, given: true)),
+            ("Masses, springs, dampers", string.Create(CultureInfo.InvariantCulture, $"{network.Masses.Length}, {network.Springs.Length}, {network.Dampers.Length}")),
+            ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
+            ("Parts not held by a spring to a support", groups.Length == 0 ? "none" : string.Join("; ", groups.Select(g => string.Join(", ", g))) + " (rigid-body modes at 0 Hz)"),
+        ]);
+        html.Table("Masses", ["Name", $"Mass ({u.MassSymbol})", $"Drawing position ({u.LengthSymbol})"],
+            network.Masses.Select(m => (IReadOnlyList<string>)[m.Name, u.Mass(m.Kilograms, given: true),
+                m.Position is { } p ? $"({u.Length(p.X, given: true)}, {u.Length(p.Y, given: true)})" : "—"]),
+            new HashSet<int> { 1 });
+        if (network.Springs.Length > 0)
+            html.Table("Springs", ["Name", "Between", $"Stiffness ({u.StiffnessSymbol})"],
+                network.Springs.Select(s => (IReadOnlyList<string>)[s.Name, $"{s.NodeA} – {s.NodeB}", u.Stiffness(s.Stiffness, given: true)]),
+                new HashSet<int> { 2 });
+        if (network.Dampers.Length > 0)
+            html.Table("Dampers", ["Name", "Between", $"Coefficient ({u.DampingSymbol})"],
+                network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}", u.Damping(d.Coefficient, given: true)]),
+                new HashSet<int> { 2 });
+        if (_context.Document.Warnings.Length > 0)
+        {
+            html.Heading("Warnings from reading the model");
+            html.List(_context.Document.Warnings.Select(w => w.ToString()), "warnings");
+        }
+        html.Figure(_drawing);
+    }
+
+    /// <inheritdoc />
+    public void WriteJson(Utf8JsonWriter json)
+    {
+        var network = _context.Document.Network;
+        json.WriteStartObject();
+        json.WriteString("title", network.Title);
+        json.WriteNumber("total_mass_kg", network.TotalMass);
+        json.WriteStartArray("masses");
+        foreach (var m in network.Masses)
+        {
+            json.WriteStartObject();
+            json.WriteString("name", m.Name);
+            json.WriteNumber("mass_kg", m.Kilograms);
+            if (m.Position is { } p)
+            {
+                json.WriteStartArray("at_m");
+                json.WriteNumberValue(p.X);
+                json.WriteNumberValue(p.Y);
+                json.WriteEndArray();
+            }
+            else json.WriteNull("at_m");
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+        Elements(json, "springs", network.Springs.Select(s => (s.Name, s.NodeA, s.NodeB, s.Stiffness)), "stiffness_n_per_m");
+        Elements(json, "dampers", network.Dampers.Select(d => (d.Name, d.NodeA, d.NodeB, d.Coefficient)), "coefficient_n_s_per_m");
+        json.WriteStartArray("supports");
+        foreach (var s in network.Supports) json.WriteStringValue(s.Name);
+        json.WriteEndArray();
+        json.WriteStartObject("drawing");
+        json.WriteBoolean("automatic_layout", _context.Layout.Automatic);
+        json.WriteString("axis", _context.Layout.Axis == ChainAxis.Vertical ? "vertical" : "horizontal");
+        json.WriteStartObject("positions_m");
+        foreach (var (name, at) in _context.Layout.Masses)
+        {
+            json.WriteStartArray(name);
+            json.WriteNumberValue(at.X);
+            json.WriteNumberValue(at.Y);
+            json.WriteEndArray();
+        }
+        json.WriteEndObject();
+        json.WriteEndObject();
+        json.WriteEndObject();
+    }
+
+    private static void Elements(Utf8JsonWriter json, string key, IEnumerable<(string Name, string A, string B, double Value)> elements, string valueKey)
+    {
+        json.WriteStartArray(key);
+        foreach (var (name, a, b, value) in elements)
+        {
+            json.WriteStartObject();
+            json.WriteString("name", name);
+            json.WriteStartArray("between");
+            json.WriteStringValue(a);
+            json.WriteStringValue(b);
+            json.WriteEndArray();
+            json.WriteNumber(valueKey, value);
+            json.WriteEndObject();
+        }
+        json.WriteEndArray();
+    }
+}

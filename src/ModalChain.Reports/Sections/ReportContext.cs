@@ -1,0 +1,58 @@
+using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
+using ModalChain.Io.Model;
+using ModalChain.Reports.Drawing;
+using ModalChain.Reports.Units;
+
+namespace ModalChain.Reports.Sections;
+
+/// <summary>What every section may use: the model, the options and the analyses shared between sections (each computed once).</summary>
+public sealed class ReportContext
+{
+    private readonly Lazy<ModalResult> _modal;
+    private readonly Lazy<NetworkLayout> _layout;
+    private readonly Lazy<DampedSystem> _damped;
+    private readonly Lazy<HarmonicResult?> _harmonic;
+
+    /// <summary>Creates the context of one report run.</summary>
+    public ReportContext(ModelDocument document, ReportOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(document);
+        ArgumentNullException.ThrowIfNull(options);
+        Document = document;
+        Options = options;
+        Units = new DisplayUnits(options.Units);
+        // The damped system already holds every undamped mode: the report's modes are its lowest ones, not a second solve.
+        _modal = new Lazy<ModalResult>(() =>
+        {
+            var all = Damped.Modes;
+            return all.Modes.Length <= options.MaxModes ? all : all with { Modes = [.. all.Modes.Take(options.MaxModes)] };
+        });
+        _layout = new Lazy<NetworkLayout>(() => NetworkLayout.For(document.Network));
+        _damped = new Lazy<DampedSystem>(() => DampedSystem.Build(document.Structure));
+        _harmonic = new Lazy<HarmonicResult?>(() =>
+            document.Harmonic is { } spec && !document.Structure.Loads.IsEmpty ? HarmonicAnalysis.Solve(Damped, spec) : null);
+    }
+
+    /// <summary>The model as read.</summary>
+    public ModelDocument Document { get; }
+
+    /// <summary>The options of the run.</summary>
+    public ReportOptions Options { get; }
+
+    /// <summary>Display units of the HTML and figures.</summary>
+    public DisplayUnits Units { get; }
+
+    /// <summary>The lowest <see cref="ReportOptions.MaxModes"/> modes (quality figures are over every mode solved).</summary>
+    public ModalResult Modal => _modal.Value;
+
+    /// <summary>The model with its damping assembled and every undamped mode solved (shared by the damped analyses).</summary>
+    public DampedSystem Damped => _damped.Value;
+
+    /// <summary>The harmonic sweep the model asks for, or null when it has no 'harmonic' section or no loads.</summary>
+    public HarmonicResult? Harmonic => _harmonic.Value;
+
+    /// <summary>The drawing layout of the network (laid out on first use).</summary>
+    public NetworkLayout Layout => _layout.Value;
+}

@@ -1,0 +1,152 @@
+using System.Collections.Immutable;
+using System.Globalization;
+using System.Text.Json;
+using ModalChain.Core.Analyses.Transient;
+using ModalChain.Io.Json;
+using ModalChain.Reports.Drawing;
+using ModalChain.Reports.Figures;
+using ModalChain.Reports.Html;
+using ModalChain.Reports.Units;
+using OxyPlot;
+using OxyPlot.Annotations;
+using OxyPlot.Axes;
+using OxyPlot.Series;
+
+namespace ModalChain.Reports.Sections;
+
+/// <summary>Transient time histories: displacement of each output mass against time with its peak marked, and the table of peaks.</summary>
+/// <remarks>Present when the model has a 'transient' section with loads or initial conditions; the numbers are those of <c>modalchain transient --format json</c>.</remarks>
+public sealed class TransientSection : IReportSection
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    /// <summary>Most points drawn per history; longer runs are reduced to the minimum and maximum of each bucket, so peaks survive.</summary>
+    public const int MaxPlotPoints = 4000;
+
+    /// <summary>Most history charts drawn (results.json holds every output).</summary>
+    public const int MaxCharts = 8;
+
+    private readonly ReportContext _context;
+    private readonly TransientResult _result;
+    private readonly ImmutableArray<string> _loads;
+    private readonly ImmutableArray<ChartFigure> _figures;
+
+    private TransientSection(ReportContext context, TransientResult result, ImmutableArray<string> loads)
+    {
+        _context = context;
+        _result = result;
+        _loads = loads;
+        _figures = [.. result.Responses.Where(r => r.Quantity == ResponseQuantity.Displacement).Take(MaxCharts).Select(HistoryChart)];
+    }
+
+    /// <summary>The factory registered in <see cref="ReportSections.Default"/>: null when the model asks for no transient run.</summary>
+    public static IReportSection? Create(ReportContext context)
+    {
+        ArgumentNullException.ThrowIfNull(context);
+        var document = context.Document;
+        if (document.Transient is not { } spec) return null;
+        var loads = spec.Loads.IsDefaultOrEmpty
+            ? document.TimedLoads.ToList()
+            : [.. spec.Loads.Select(n => document.TimedLoads.First(l => l.Name == n))];
+        if (loads.Count == 0 && spec.Initial.IsDefaultOrEmpty) return null;
+        var result = TransientAnalysis.Run(context.Damped, loads, spec.Initial, spec.Settings);
+        return new TransientSection(context, result, [.. loads.Select(l => l.Name)]);
+    }
+
+    /// <inheritdoc />
+    public string Key => "transient";
+
+    /// <inheritdoc />
+    public string Title => "Transient response";
+
+    /// <inheritdoc />
+    public IReadOnlyList<ReportFigure> Figures => _figures;
+
+    /// <summary>File stem of the history chart of mass <paramref name="name"/>.</summary>
+    public static string FigureName(string name) =>
+        "transient-" + new string([.. name.Select(c => char.IsAsciiLetterOrDigit(c) || c is '-' or '_' ? c : '-')]);
+
+    /// <inheritdoc />
+    public void WriteHtml(HtmlWriter html)
+    {
+        ArgumentNullException.ThrowIfNull(html);
+        var s = _result.Settings;
+        html.Paragraph(string.Create(Inv,
+            $"Time history over {DisplayUnits.Number(s.Duration)} s in {_result.StepCount} steps of {DisplayUnits.Number(s.Step)} s ({_result.MethodDescription}); loads: {(_loads.IsEmpty ? "none (initial conditions only)" : string.Join(", ", _loads))}."));
+        foreach (var w in _result.Warnings) html.Paragraph(w, "note");
+        html.Table("Peaks and RMS of each recorded response",
+            ["Response", "Quantity", "Unit", "Peak (largest magnitude, signed)", "at (s)", "RMS"],
+            _result.Responses.Select(r => (IReadOnlyList<string>)
+                [r.Name, TransientJson.QuantityName(r.Quantity), r.Unit, DisplayUnits.Number(r.Peak.Value), DisplayUnits.Number(r.Peak.Time), DisplayUnits.Number(r.Rms)]),
+            new HashSet<int> { 3, 4, 5 });
+        var e = _result.Energy;
+        html.Paragraph(string.Create(Inv,
+            $"Energy balance (quality figure): initial {DisplayUnits.Number(e.InitialEnergy)} J + input work {DisplayUnits.Number(e.InputWork)} J = kinetic {DisplayUnits.Number(e.FinalKineticEnergy)} J + strain {DisplayUnits.Number(e.FinalStrainEnergy)} J + dissipated {DisplayUnits.Number(e.Dissipated)} J, largest relative error {e.MaxRelativeError:0.0e+00}."), "quality");
+        foreach (var figure in _figures) html.Figure(figure);
+    }
+
+    /// <inheritdoc />
+    public void WriteJson(Utf8JsonWriter json)
+    {
+        ArgumentNullException.ThrowIfNull(json);
+        using var buffer = new MemoryStream();
+        TransientJson.Write(buffer, _context.Document, _result, _loads, _context.Options.ToolVersion);
+        using var parsed = JsonDocument.Parse(buffer.ToArray());
+        parsed.RootElement.WriteTo(json);
+    }
+
+    /// <summary>Indices to draw: every sample when few, else the first, last, minimum and maximum of each bucket.</summary>
+    public static IReadOnlyList<int> PlotIndices(IReadOnlyList<double> values)
+    {
+        ArgumentNullException.ThrowIfNull(values);
+        if (values.Count <= MaxPlotPoints) return [.. Enumerable.Range(0, values.Count)];
+        var buckets = MaxPlotPoints / 2;
+        var picked = new SortedSet<int> { 0, values.Count - 1 };
+        for (var b = 0; b < buckets; b++)
+        {
+            var from = (int)((long)b * values.Count / buckets);
+            var to = (int)((long)(b + 1) * values.Count / buckets);
+            int lo = from, hi = from;
+            for (var k = from; k < to; k++)
+            {
+                if (values[k] < values[lo]) lo = k;
+                if (values[k] > values[hi]) hi = k;
+            }
+            picked.Add(lo);
+            picked.Add(hi);
+        }
+        return [.. picked];
+    }
+
+    private ChartFigure HistoryChart(ResponseHistory history)
+    {
+        var imperial = _context.Units.System == UnitSystem.Imperial;
+        var (symbol, scale) = imperial ? ("in", 0.0254) : ("mm", 1e-3);
+        var model = Charts.Create($"Displacement of {history.Name}", $"{_context.Document.Network.Title}: transient");
+        model.Axes.Add(Charts.Linear(AxisPosition.Bottom, "Time (s)", _result.Times[0], _result.Times[^1]));
+        var largest = history.Values.Max(Math.Abs) / scale;
+        model.Axes.Add(largest > 0
+            ? Charts.Linear(AxisPosition.Left, $"Displacement ({symbol})", -1.35 * largest, 1.35 * largest) // room for the peak's label
+            : Charts.Linear(AxisPosition.Left, $"Displacement ({symbol})"));
+        var line = new LineSeries { Title = history.Name };
+        Charts.Style(line, 0);
+        line.StrokeThickness = 1.4;
+        foreach (var k in PlotIndices(history.Values)) line.Points.Add(new DataPoint(_result.Times[k], history.Values[k] / scale));
+        model.Series.Add(line);
+        var peakIndex = Enumerable.Range(0, history.Values.Length).MaxBy(k => Math.Abs(history.Values[k]));
+        model.Annotations.Add(new PointAnnotation
+        {
+            X = _result.Times[peakIndex],
+            Y = history.Values[peakIndex] / scale,
+            Shape = MarkerType.Diamond,
+            Size = 5,
+            Fill = OxyColor.Parse(Palette.Vermillion),
+            Text = string.Create(Inv, $"peak {DisplayUnits.Number(Math.Abs(history.Values[peakIndex]) / scale)} {symbol} at {DisplayUnits.Number(_result.Times[peakIndex])} s"),
+            TextColor = OxyColor.Parse(Palette.Black),
+            FontSize = 10,
+            TextVerticalAlignment = history.Values[peakIndex] >= 0 ? VerticalAlignment.Bottom : VerticalAlignment.Top,
+        });
+        var caption = string.Create(Inv, $"Displacement of {history.Name} against time; the largest magnitude is marked with a diamond.");
+        return new ChartFigure(FigureName(history.Name), caption, model, height: 320);
+    }
+}

@@ -1,0 +1,64 @@
+using System.Text.Json;
+using System.Text.RegularExpressions;
+using System.Xml.Linq;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Reports.Writing;
+using ModalChain.TestSupport;
+
+namespace ModalChain.Reports.Tests;
+
+/// <summary>The full report for every model in models/ (found at run time), written to disk and read back.</summary>
+public sealed class ModelFilesReportTests
+{
+    private static readonly ReportOptions Options = new("test", new DateTimeOffset(2026, 12, 1, 12, 0, 0, TimeSpan.Zero));
+
+    public static IEnumerable<object[]> Models() => Repository.ModelFiles();
+
+    [Fact]
+    public void ModelsFolder_HasAtLeastOneModel() => Assert.NotEmpty(Repository.ModelFiles());
+
+    [Theory]
+    [MemberData(nameof(Models))]
+    public void Report_IsWrittenWithWellFormedFiguresAndConsistentNumbers(string model)
+    {
+        var document = Repository.Load(model);
+        var dir = Path.Combine(Repository.TempDirectory(), "report");
+        var files = ReportWriter.Write(ReportBuilder.Build(document, Options), dir, ReportFormat.Html);
+        var modal = ModalAnalysis.Solve(document.Network, new ModalOptions(Math.Min(20, document.Network.Masses.Length)));
+
+        // Every SVG file: well-formed, viewBox; every mode figure names its mode and frequency with the unit.
+        foreach (var svg in files.Where(f => f.EndsWith(".svg", StringComparison.Ordinal)))
+            SvgAssert.WellFormedWithViewBox(File.ReadAllText(Path.Combine(dir, svg)));
+        foreach (var mode in modal.Modes)
+        {
+            var root = XDocument.Parse(File.ReadAllText(Path.Combine(dir, $"mode-{mode.Number:00}.svg"))).Root!;
+            var title = SvgAssert.Texts(root).First();
+            Assert.StartsWith($"Mode {mode.Number}: ", title, StringComparison.Ordinal);
+            Assert.Matches(@" Hz( \(rigid-body mode\))?$", title);
+            var (shape, _) = ModalChain.Reports.Sections.ModesSection.Normalised(mode);
+            Sections.ModesSectionTests.AssertDisplacements(root, [.. document.Network.Masses.Select(m => m.Name)], shape, $"{model} mode {mode.Number}");
+        }
+
+        // results.json holds the modes object of `modalchain modes --format json` under "modes", plus the report's own keys.
+        using var json = JsonDocument.Parse(File.ReadAllBytes(Path.Combine(dir, "results.json")));
+        var root2 = json.RootElement;
+        Assert.Equal(document.Sha256, root2.GetProperty("report").GetProperty("source").GetProperty("sha256").GetString());
+        var modes = root2.GetProperty("modes");
+        NumericAssert.Close(document.Network.TotalMass, modes.GetProperty("total_mass_kg").GetDouble(), Tolerance.Rel(1e-12), "total mass");
+        var jsonModes = modes.GetProperty("modes").EnumerateArray().ToArray();
+        Assert.Equal(modal.Modes.Length, jsonModes.Length);
+        for (var j = 0; j < jsonModes.Length; j++)
+            NumericAssert.Close(modal.Modes[j].NaturalFrequencyHz, jsonModes[j].GetProperty("frequency_hz").GetDouble(), Tolerance.Rel(1e-12), $"mode {j + 1} Hz");
+        Assert.Equal(document.Network.Masses.Length, root2.GetProperty("model").GetProperty("masses").GetArrayLength());
+
+        // The HTML: one figure per mode, the caution, the trace of the input, and nothing fetched from elsewhere.
+        var html = File.ReadAllText(Path.Combine(dir, "report.html"));
+        Assert.Equal(modal.Modes.Length, Regex.Matches(html, "<figure class=\"figure mode-figure\"").Count);
+        Assert.Contains(System.Net.WebUtility.HtmlEncode(ModalChain.Core.Cautions.Text), html, StringComparison.Ordinal);
+        Assert.Contains(document.Sha256, html, StringComparison.Ordinal);
+        Assert.Contains(Path.GetFileName(model), html, StringComparison.Ordinal);
+        Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
+        Assert.DoesNotMatch(@"(src|href)\s*=\s*""(https?:|//)", html);
+        Assert.DoesNotMatch(@"url\((https?:|//)", html);
+    }
+}

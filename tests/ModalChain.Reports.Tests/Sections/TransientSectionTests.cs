@@ -1,0 +1,60 @@
+using System.Globalization;
+using System.Text.Json;
+using System.Text.RegularExpressions;
+using ModalChain.Reports.Sections;
+using ModalChain.TestSupport;
+
+namespace ModalChain.Reports.Tests.Sections;
+
+/// <summary>The transient section: present only when asked for, the plotted peak is the closed-form one, long runs thinned without losing peaks.</summary>
+public sealed class TransientSectionTests
+{
+    private static readonly ReportOptions Options = new("test", DateTimeOffset.UnixEpoch);
+
+    // Undamped SDOF from rest under a suddenly applied constant force F: x(t) = (F/k)(1 − cos ωt), peak 2F/k at t = T/2
+    // (dynamic load factor 2; standard result, e.g. Chopra, Dynamics of Structures, §4.3; attribution from memory).
+    // m = 100 kg, k = 394784.176 N/m (f_n = 10 Hz, T = 0.1 s), F = 1 kN from t = 0: peak 5.0661 mm at 0.05 s.
+    private const string Model = """
+        title: step load on one mass
+        masses: {m: 100 kg}
+        springs: {k: {between: [ground, m], stiffness: 394784.176 N/m}}
+        loads:
+          drop: {kind: force, at: m, time: {kind: step, value: 1 kN, at: 0 s}}
+        transient:
+          duration: 0.3 s
+          step: 0.5 ms
+          method: newmark
+        """;
+
+    [Fact]
+    public void StepLoad_ChartMarksThePeakOfTheDynamicLoadFactorTwo()
+    {
+        var report = ReportBuilder.Build(Repository.Parse(Model), Options);
+        var chart = report.Figures.Single(f => f.Name == "transient-m");
+        var texts = SvgAssert.Texts(SvgAssert.WellFormedWithViewBox(chart.Svg(true)));
+        Assert.Contains("Time (s)", texts);
+        Assert.Contains("Displacement (mm)", texts);
+        var label = Regex.Match(texts.Single(t => t.StartsWith("peak ", StringComparison.Ordinal)), @"^peak ([0-9.]+) mm at ([0-9.]+) s$");
+        Assert.True(label.Success);
+        // Newmark average acceleration at Δt/T = 0.005: period error ~ 2e-4 (REFERENCES.md §5) and sampling of the crest: 0.1 %.
+        NumericAssert.Close(2 * 1000 / 394784.176 * 1e3, double.Parse(label.Groups[1].Value, CultureInfo.InvariantCulture), Tolerance.Rel(1e-3), "peak (mm)");
+        NumericAssert.Close(0.05, double.Parse(label.Groups[2].Value, CultureInfo.InvariantCulture), Tolerance.Abs(1e-3), "time of peak (s)");
+        using var json = JsonDocument.Parse(report.Json.ToArray());
+        Assert.True(json.RootElement.GetProperty("transient").TryGetProperty("time_s", out _));
+    }
+
+    [Fact]
+    public void PlotIndices_ThinLongHistoriesButKeepTheExtremes()
+    {
+        var values = Enumerable.Range(0, 20000).Select(i => Math.Sin(i * 0.013) * (i == 12345 ? 3 : 1)).ToArray();
+        var picked = TransientSection.PlotIndices(values);
+        Assert.True(picked.Count <= TransientSection.MaxPlotPoints + 2, $"{picked.Count} points kept");
+        Assert.Contains(12345, picked);
+        Assert.Contains(0, picked);
+        Assert.Contains(19999, picked);
+    }
+
+    [Fact]
+    public void ModelWithoutTransientSection_HasNoTransientSection() =>
+        Assert.DoesNotContain(ReportBuilder.Build(Repository.UniformChain(2, 1, 100), Options).Sections, s => s.Key == "transient");
+}
