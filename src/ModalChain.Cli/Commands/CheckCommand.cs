@@ -1,3 +1,4 @@
+using ModalChain.Core.Assembly;
 using System.CommandLine;
 using System.Globalization;
 using ModalChain.Cli.Formatting;
@@ -56,13 +57,7 @@ internal static class CheckCommand
     /// <summary>Evaluates every criterion of <paramref name="document"/>.</summary>
     internal static CheckOutcome Evaluate(ModelDocument document)
     {
-        var modal = ModalAnalysis.Solve(document.Network);
-        var criteria = document.Criteria;
-        var separation = criteria.Separation is { } s
-            ? SeparationCheck.Evaluate([.. modal.Modes.Select(m => m.NaturalFrequencyHz)], s)
-            : null;
-        var (limits, notEvaluated) = OperatingPoints.EvaluateLimits(document, criteria.Limits);
-        return new CheckOutcome(separation, limits, notEvaluated);
+        return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure), document.Criteria, document.OperatingLoads);
     }
 
     private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome)

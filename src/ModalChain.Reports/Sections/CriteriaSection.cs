@@ -30,14 +30,7 @@ public sealed class CriteriaSection : IReportSection
         ArgumentNullException.ThrowIfNull(context);
         var criteria = context.Document.Criteria;
         if (criteria.IsEmpty) return null;
-        var separation = criteria.Separation is { } s
-            ? SeparationCheck.Evaluate([.. context.Damped.Modes.Modes.Select(m => m.NaturalFrequencyHz)], s)
-            : null;
-        var limits = criteria.Limits.IsDefaultOrEmpty
-            ? new LimitOutcome([], [])
-            : OperatingPointLimits.Evaluate(context.Damped, OperatingLoads(context), criteria.Limits);
-        return new CriteriaSection(context, new CheckOutcome(separation, limits.Evaluated,
-            [.. limits.NotEvaluated.Select(n => ($"limit {n.Limit.Describe()}", n.Reason))]));
+        return new CriteriaSection(context, CriteriaCheck.Evaluate(context.Damped, criteria, context.Document.OperatingLoads));
     }
 
     /// <inheritdoc />
@@ -103,14 +96,6 @@ public sealed class CriteriaSection : IReportSection
         CheckJson.Write(buffer, _context.Document, _outcome, _context.Options.ToolVersion);
         using var parsed = JsonDocument.Parse(buffer.ToArray());
         parsed.RootElement.WriteTo(json);
-    }
-
-    /// <summary>The loads the operating points use: those the harmonic section names, else every load (as <c>modalchain check</c>).</summary>
-    private static IReadOnlyList<Load> OperatingLoads(ReportContext context)
-    {
-        var all = context.Document.Structure.Loads;
-        var selected = context.Document.Harmonic?.Loads;
-        return selected is { IsDefaultOrEmpty: false } names ? [.. all.Where(l => names.Contains(l.Name))] : all;
     }
 
     private static string Reserve(double fraction) =>
