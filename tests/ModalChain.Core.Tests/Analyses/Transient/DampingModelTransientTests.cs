@@ -55,4 +55,39 @@ public class DampingModelTransientTests
         // Without viscous damping the free vibration keeps its amplitude (Newmark has no amplitude decay).
         NumericAssert.Close(1e-3, result.Get("shelf", ResponseQuantity.Displacement).Values.Max(), Tolerance.Rel(1e-3), "amplitude");
     }
+    [Fact]
+    public void ModalDamping_NewmarkInModalCoordinates_MatchesThePhysicalStep()
+    {
+        // Modal damping fills C, so the analysis steps Newmark's recurrence in u = Φq with all modes. The recurrence is
+        // linear in M, C and K and ΦᵀMΦ = I, ΦᵀCΦ and ΦᵀKΦ are diagonal, so it must equal the physical step on the
+        // dense C to round-off (identity; Bathe, Finite Element Procedures, 1996, §9.3, from memory).
+        var network = new NetworkBuilder().AddSupport("floor")
+            .AddMass("a", 60).AddMass("b", 45).AddMass("c", 90).AddMass("d", 30).AddMass("e", 70)
+            .AddSpring("s1", "floor", "a", 3e5).AddSpring("s2", "a", "b", 2e5).AddSpring("s3", "b", "c", 4e5)
+            .AddSpring("s4", "c", "d", 1.5e5).AddSpring("s5", "d", "e", 2.5e5).AddSpring("s6", "a", "d", 1e5).Build();
+        var system = DampedSystem.Build(new StructuralModel(network, DampingModel.Modal(0.03), []));
+        var pulse = new HalfSinePulse(500, 0.02, 0.005);
+        const double h = 1e-3;
+        const int steps = 400;
+        var result = TransientAnalysis.Run(system, [new ForceHistory("bump", "e", 1.0, pulse)], [new InitialCondition("b", 1e-3, 0.02)],
+            new TransientSettings(steps * h, h, TransientMethod.Newmark));
+        Assert.Contains("coordinates of all 5 undamped modes", result.MethodDescription);
+
+        var p = system.Partition;
+        var dofs = p.Free;
+        var u0 = new double[5];
+        var v0 = new double[5];
+        u0[dofs.IndexOf("b")] = 1e-3;
+        v0[dofs.IndexOf("b")] = 0.02;
+        var reference = TransientTestKit.Run("newmark", new LinearDynamicSystem(p.Mass, system.Damping.FF, p.StiffnessFF),
+            TransientTestKit.Force(5, dofs.IndexOf("e"), pulse), u0, v0, h, steps);
+        foreach (var mass in new[] { "a", "c", "e" })
+        {
+            var history = result.Get(mass, ResponseQuantity.Displacement).Values;
+            var scale = reference.U.Max(u => Math.Abs(u[dofs.IndexOf(mass)]));
+            for (var s = 0; s <= steps; s += 20)
+                NumericAssert.Close(reference.U[s][dofs.IndexOf(mass)], history[s], Tolerance.Abs(1e-9 * scale), $"{mass} at step {s}");
+        }
+        Assert.True(result.Energy.MaxRelativeError < 1e-9, $"energy balance {result.Energy.MaxRelativeError}");
+    }
 }
