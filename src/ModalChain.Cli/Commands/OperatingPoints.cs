@@ -9,12 +9,7 @@ namespace ModalChain.Cli.Commands;
 internal static class OperatingPoints
 {
     /// <summary>The loads whose running speeds are the operating points: those the 'harmonic' section selects, else all of them.</summary>
-    public static IReadOnlyList<Load> Loads(ModelDocument document)
-    {
-        var all = document.Structure.Loads;
-        var selected = document.Harmonic?.Loads;
-        return selected is { IsDefaultOrEmpty: false } names ? [.. all.Where(l => names.Contains(l.Name))] : all;
-    }
+    public static IReadOnlyList<Load> Loads(ModelDocument document) => OperatingLoads.Of(document);
 
     /// <summary>Evaluates <paramref name="limits"/>; those that cannot be evaluated are returned with the reason.</summary>
     public static (List<LimitResult> Evaluated, List<(string Criterion, string Reason)> NotEvaluated) EvaluateLimits(

@@ -4,6 +4,7 @@ using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Model;
 using ModalChain.Io.Json;
+using ModalChain.Io.Model;
 using ModalChain.Reports.Figures;
 using ModalChain.Reports.Html;
 using ModalChain.Reports.Units;
@@ -35,7 +36,7 @@ public sealed class CriteriaSection : IReportSection
             : null;
         var limits = criteria.Limits.IsDefaultOrEmpty
             ? new LimitOutcome([], [])
-            : OperatingPointLimits.Evaluate(context.Damped, OperatingLoads(context), criteria.Limits);
+            : OperatingPointLimits.Evaluate(context.Damped, OperatingLoads.Of(context.Document), criteria.Limits);
         return new CriteriaSection(context, new CheckOutcome(separation, limits.Evaluated,
             [.. limits.NotEvaluated.Select(n => ($"limit {n.Limit.Describe()}", n.Reason))]));
     }
@@ -103,14 +104,6 @@ public sealed class CriteriaSection : IReportSection
         CheckJson.Write(buffer, _context.Document, _outcome, _context.Options.ToolVersion);
         using var parsed = JsonDocument.Parse(buffer.ToArray());
         parsed.RootElement.WriteTo(json);
-    }
-
-    /// <summary>The loads the operating points use: those the harmonic section names, else every load (as <c>modalchain check</c>).</summary>
-    private static IReadOnlyList<Load> OperatingLoads(ReportContext context)
-    {
-        var all = context.Document.Structure.Loads;
-        var selected = context.Document.Harmonic?.Loads;
-        return selected is { IsDefaultOrEmpty: false } names ? [.. all.Where(l => names.Contains(l.Name))] : all;
     }
 
     private static string Reserve(double fraction) =>
