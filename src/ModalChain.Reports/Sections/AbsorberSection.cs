@@ -89,7 +89,7 @@ public sealed class AbsorberSection : IReportSection
             ("Mode controlled", string.Create(Inv, $"{d.ModeNumber} at {DisplayUnits.Number(d.ModeFrequencyHz)} Hz ({d.ChosenBy})")),
             ("Host", d.Host),
             ("Modal mass at the host (1/φ²)", $"{u.Mass(d.ModalMass)} {u.MassSymbol}"),
-            ("Mass ratio μ", DisplayUnits.Percent(d.Optimum.MassRatio)),
+            ("Mass ratio μ", DisplayUnits.Percent(d.Optimum.MassRatio) + " %"),
             ("Tuned for", target),
             ("Method", Tuned.Method),
         ]);
@@ -153,38 +153,46 @@ public sealed class AbsorberSection : IReportSection
         var k = d.ModalMass * Math.Pow(2 * Math.PI * d.ModeFrequencyHz, 2);
         var model = Charts.Create($"Host response with and without the absorber: {d.Host}", $"{_context.Document.Network.Title}: harmonic force at {d.Host}, mode {d.ModeNumber}");
         model.Axes.Add(Charts.Linear(AxisPosition.Bottom, "Frequency (Hz)", lo, hi));
-        model.Axes.Add(Charts.Logarithmic(AxisPosition.Left, "Dynamic amplification |x·K/F| (–)"));
-        var series = new[]
-        {
-            (Title: "without absorber", Model: structure, Index: 1),
-            (Title: "with absorber", Model: AbsorberPerformance.With(structure, d, Tuned.Names), Index: 0),
-        };
-        foreach (var (title, m, index) in series)
+        var amplification = Charts.Logarithmic(AxisPosition.Left, "Dynamic amplification |x·K/F| (–)");
+        model.Axes.Add(amplification);
+        var with = Amplification(AbsorberPerformance.With(structure, d, Tuned.Names), frequencies, d.Host, k);
+        var without = Amplification(structure, frequencies, d.Host, k);
+        var withTop = Finite(with).DefaultIfEmpty(double.NaN).Max();
+        // An undamped primary's curve rises without bound near f_p: cap the axis so the absorber's two peaks stay readable.
+        if (double.IsFinite(withTop) && Finite(without).DefaultIfEmpty(0).Max() > 30 * withTop) amplification.Maximum = 30 * withTop;
+        var ceiling = double.IsFinite(amplification.Maximum) ? amplification.Maximum : double.PositiveInfinity;
+        foreach (var (title, values, index) in new[] { ("without absorber", without, 1), ("with absorber", with, 0) })
         {
             var line = new LineSeries { Title = title };
             Charts.Style(line, index);
-            var values = Amplification(m, frequencies, d.Host, k);
             for (var i = 0; i < frequencies.Length; i++)
                 line.Points.Add(new DataPoint(frequencies[i], double.IsFinite(values[i]) && values[i] > 0 ? values[i] : double.NaN));
             model.Series.Add(line);
-            // Each curve is named at its highest point: OxyPlot's SVG export drew only the first entry of a legend.
-            if (line.Points.Where(p => double.IsFinite(p.Y)).DefaultIfEmpty(DataPoint.Undefined).MaxBy(p => p.Y) is { } top && top.IsDefined())
-                model.Annotations.Add(new OxyPlot.Annotations.TextAnnotation
-                {
-                    Text = title,
-                    TextPosition = top,
-                    TextColor = line.Color,
-                    Stroke = OxyColors.Transparent,
-                    FontSize = 10,
-                    TextVerticalAlignment = VerticalAlignment.Bottom,
-                    TextHorizontalAlignment = index == 0 ? HorizontalAlignment.Left : HorizontalAlignment.Right,
-                    Offset = new ScreenVector(index == 0 ? 6 : -6, -4),
-                });
+            // Each curve is named beside it (OxyPlot's SVG export drew only the first entry of a legend): the absorber's curve
+            // at its highest point, the bare structure's where its rising flank passes twice that height (or at its highest point).
+            var drawn = line.Points.Where(p => double.IsFinite(p.Y) && p.Y <= ceiling).ToList();
+            if (drawn.Count == 0) continue;
+            var at = index == 1 && double.IsFinite(withTop) && drawn.FirstOrDefault(p => p.Y >= 2 * withTop) is { } flank && flank.IsDefined() && flank.Y >= 2 * withTop
+                ? flank
+                : drawn.MaxBy(p => p.Y);
+            model.Annotations.Add(new OxyPlot.Annotations.TextAnnotation
+            {
+                Text = title,
+                TextPosition = at,
+                TextColor = line.Color,
+                Stroke = OxyColors.Transparent,
+                FontSize = 10,
+                TextVerticalAlignment = VerticalAlignment.Bottom,
+                TextHorizontalAlignment = index == 0 ? HorizontalAlignment.Left : HorizontalAlignment.Right,
+                Offset = new ScreenVector(index == 0 ? 6 : -6, -4),
+            });
         }
         var caption = string.Create(Inv,
             $"Dynamic amplification of {d.Host} for a harmonic force there, without the absorber (dashed) and with it (solid); mode {d.ModeNumber} at {DisplayUnits.Number(d.ModeFrequencyHz)} Hz, absorber tuned to {DisplayUnits.Number(d.FrequencyHz)} Hz.");
         return new ChartFigure(FigureName, caption, model);
     }
+
+    private static IEnumerable<double> Finite(double[] values) => values.Where(v => double.IsFinite(v) && v > 0);
 
     private static double[] Amplification(StructuralModel model, double[] frequencies, string host, double modalStiffness)
     {
