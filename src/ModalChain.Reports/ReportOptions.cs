@@ -24,4 +24,7 @@ public sealed record ReportOptions(string ToolVersion, DateTimeOffset Generated,
 {
     /// <summary>Networks up to this many masses get an animated mode view in the HTML (larger ones would bloat the file).</summary>
     public int MaxAnimatedMasses { get; init; } = 40;
+
+    /// <summary>The absorber to size and show (the "Tuned vibration absorber" section), or null for none.</summary>
+    public Sections.AbsorberReportRequest? Absorber { get; init; }
 }

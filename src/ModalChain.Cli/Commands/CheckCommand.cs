@@ -57,7 +57,7 @@ internal static class CheckCommand
     /// <summary>Evaluates every criterion of <paramref name="document"/>.</summary>
     internal static CheckOutcome Evaluate(ModelDocument document)
     {
-        return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure), document.Criteria, document.OperatingLoads);
+        return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure), document.Criteria, OperatingLoads.Of(document));
     }
 
     private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome)

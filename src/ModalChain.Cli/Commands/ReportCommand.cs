@@ -1,5 +1,9 @@
 using System.CommandLine;
+using ModalChain.Core.Analyses.Absorbers;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Io.Model;
 using ModalChain.Reports;
+using ModalChain.Reports.Sections;
 using ModalChain.Reports.Units;
 using ModalChain.Reports.Writing;
 
@@ -31,11 +35,16 @@ internal static class ReportCommand
         {
             if (r.GetValueOrDefault<int>() < 1) r.AddError("--modes must be at least 1.");
         });
+        var absorberHost = AbsorberArguments.Host("--absorber-host", required: false);
+        absorberHost.Description = "Add a tuned-absorber section: the mass the absorber hangs on (with --mass-ratio; as modalchain tune --host).";
+        var massRatio = AbsorberArguments.MassRatio(required: false);
+        var absorberMode = AbsorberArguments.Mode("--absorber-mode");
+        var absorberMethod = AbsorberArguments.Method("--absorber-method");
         var command = new Command("report",
             "Write a reviewer's report of the model into a folder: report.html (one self-contained file: model summary, " +
-            "network drawing, modes table, one figure per mode shape, caution and traceability to the model file), each figure " +
+            "network drawing, modes table, one figure per mode shape, the tuned absorber with --absorber-host and --mass-ratio, caution and traceability to the model file), each figure " +
             "as its own SVG (and PDF with --format pdf), and results.json with every number behind the report (SI).\n\n" + CliApp.CautionHelp)
-        { file, output, format, units, modes };
+        { file, output, format, units, modes, absorberHost, massRatio, absorberMode, absorberMethod };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -43,6 +52,20 @@ internal static class ReportCommand
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
             var options = new ReportOptions(CliApp.Version, DateTimeOffset.UtcNow, parse.GetValue(units), parse.GetValue(modes));
+            var hostName = parse.GetValue(absorberHost);
+            var ratioText = parse.GetValue(massRatio);
+            if (hostName is null != ratioText is null)
+            {
+                io.Error.WriteLine("modalchain: error: --absorber-host and --mass-ratio go together: give both to add the absorber section, or neither.");
+                return ExitCodes.InputError;
+            }
+            if (hostName is not null && ratioText is not null)
+            {
+                var request = AbsorberArguments.Request(ModalAnalysis.Solve(document.Network), hostName, ratioText, parse.GetValue(absorberMode),
+                    OperatingLoads.AbsorberExcitations(document), AbsorberTarget.Force, io);
+                if (request is null) return ExitCodes.InputError;
+                options = options with { Absorber = new AbsorberReportRequest(request, AbsorberArguments.IsOptimal(parse.GetValue(absorberMethod))) };
+            }
             var report = ReportBuilder.Build(document, options);
             try
             {

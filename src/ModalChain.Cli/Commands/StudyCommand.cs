@@ -60,7 +60,7 @@ internal static class StudyCommand
             if (a is null || b is null) return ExitCodes.InputError;
             var criteria = ImmutableArray.CreateBuilder<StudyCriterion>();
             if (document.Criteria.Separation is { } sep) criteria.Add(StudyCriterion.Separation(sep));
-            var operatingLoads = OperatingPoints.Loads(document).Where(l => l.SpeedHz is > 0).ToArray();
+            var operatingLoads = OperatingLoads.Of(document).Where(l => l.SpeedHz is > 0).ToArray();
             if (!document.Criteria.Limits.IsDefaultOrEmpty)
             {
                 if (operatingLoads.Length == 0)
@@ -212,7 +212,7 @@ internal static class StudyCommand
             o.WriteLine("Crossings (resonance can be met at these speeds during run-up and run-down):");
             table.Write(o);
             var operating = (document.Criteria.Separation?.SpeedsHz ?? [])
-                .Concat(OperatingPoints.Loads(document).Where(l => l.SpeedHz is > 0).Select(l => l.SpeedHz!.Value))
+                .Concat(OperatingLoads.Of(document).Where(l => l.SpeedHz is > 0).Select(l => l.SpeedHz!.Value))
                 .Distinct().Order().ToList();
             foreach (var s in operating)
             {

@@ -10,13 +10,6 @@ using ModalChain.Io.Model;
 
 namespace ModalChain.Cli.Commands;
 
-/// <summary>How the absorber is tuned.</summary>
-internal enum TuneMethod
-{
-    DenHartog,
-    Optimal,
-}
-
 /// <summary><c>modalchain tune FILE --host MASS --mass-ratio 5 %</c>: sizes a tuned vibration absorber for one mode.</summary>
 internal static class TuneCommand
 {
@@ -25,9 +18,9 @@ internal static class TuneCommand
     public static Command Create(Streams io)
     {
         var file = CommonOptions.ModelFile();
-        var host = new Option<string>("--host") { Description = "The mass the absorber hangs on.", Required = true };
-        var ratio = new Option<string>("--mass-ratio") { Description = "Absorber mass over the mode's modal mass at the host, e.g. '5 %' or 0.05.", Required = true };
-        var mode = new Option<int?>("--mode") { Description = "Mode to control (default: the mode nearest a running speed × order of criteria.separation or a load's running speed, or --speed × those orders)." };
+        var host = AbsorberArguments.Host("--host", required: true);
+        var ratio = AbsorberArguments.MassRatio(required: true);
+        var mode = AbsorberArguments.Mode("--mode");
         var speed = new Option<string?>("--speed") { Description = "Running speed to choose the mode by, e.g. '1480 rpm' (overrides the speeds of criteria.separation)." };
         var target = new Option<string>("--target")
         {
@@ -35,12 +28,7 @@ internal static class TuneCommand
             DefaultValueFactory = _ => "force",
         };
         target.AcceptOnlyFromAmong("force", "base", "random-force");
-        var method = new Option<string>("--method")
-        {
-            Description = "den-hartog (the classical closed form for the target) or optimal (numerical minimisation of the host's worst peak on the full network).",
-            DefaultValueFactory = _ => "den-hartog",
-        };
-        method.AcceptOnlyFromAmong("den-hartog", "optimal");
+        var method = AbsorberArguments.Method("--method");
         var format = new Option<OutputFormat>("--format") { Description = "table or json (one object on stdout, SI units).", DefaultValueFactory = _ => OutputFormat.Table };
         format.Validators.Add(r =>
         {
@@ -57,43 +45,14 @@ internal static class TuneCommand
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            var mu = QuantityParser.Parse(parse.GetValue(ratio)!, Quantity.Ratio);
-            if (!mu.Succeeded)
-            {
-                io.Error.WriteLine($"modalchain: error: --mass-ratio '{parse.GetValue(ratio)}': {mu.Error}");
-                return ExitCodes.InputError;
-            }
             var excitations = Excitations(document, parse.GetValue(speed), io);
             if (excitations is null) return ExitCodes.InputError;
             var modal = ModalAnalysis.Solve(document.Network);
-            var request = new AbsorberRequest(parse.GetValue(host)!, mu.Value, parse.GetValue(mode), excitations.Value, Target(parse.GetValue(target)!));
-            var problems = AbsorberTuning.Problems(modal, request);
-            if (problems.Length > 0)
-            {
-                foreach (var p in problems) io.Error.WriteLine($"modalchain: error: {p}");
-                return ExitCodes.InputError;
-            }
-            var tuneMethod = parse.GetValue(method) == "optimal" ? TuneMethod.Optimal : TuneMethod.DenHartog;
-            var closedForm = AbsorberTuning.Design(modal, request);
-            var names = AbsorberTuning.FreeNames(document.Network, closedForm.Host);
-            var structure = document.Structure;
-            var design = closedForm;
-            string? improvement = null;
-            var methodName = request.Target == AbsorberTarget.Force ? "den-hartog" : "warburton";
-            if (tuneMethod == TuneMethod.Optimal)
-            {
-                var closedPeak = AbsorberPerformance.WorstPeak(AbsorberPerformance.With(structure, closedForm, names), closedForm).Peak;
-                var (optimised, evaluations) = AbsorberPerformance.Optimise(structure, closedForm, names);
-                var optimisedPeak = AbsorberPerformance.WorstPeak(AbsorberPerformance.With(structure, optimised, names), optimised).Peak;
-                if (optimisedPeak <= closedPeak) design = optimised with { ChosenBy = closedForm.ChosenBy };
-                improvement = string.Create(Inv,
-                    $"worst host peak {Math.Min(optimisedPeak, closedPeak):G6} against {closedPeak:G6} with the closed form ({100 * (1 - Math.Min(optimisedPeak, closedPeak) / closedPeak):F2} % lower; {evaluations} response evaluations)");
-                methodName = "optimal";
-            }
-            var assessment = AbsorberPerformance.Assess(structure, design, names) with
-            {
-                OperatingStroke = AbsorberPerformance.OperatingStroke(structure, design, names, OperatingPoints.Loads(document)),
-            };
+            var request = AbsorberArguments.Request(modal, parse.GetValue(host)!, parse.GetValue(ratio)!, parse.GetValue(mode), excitations.Value,
+                Target(parse.GetValue(target)!), io);
+            if (request is null) return ExitCodes.InputError;
+            var tuned = AbsorberStudy.Run(document.Structure, modal, request, AbsorberArguments.IsOptimal(parse.GetValue(method)), OperatingLoads.Of(document));
+            var (design, names, assessment, improvement) = (tuned.Design, tuned.Names, tuned.Assessment, tuned.Improvement);
 
             if (parse.GetValue(write) is { } output)
             {
@@ -103,7 +62,7 @@ internal static class TuneCommand
             if (parse.GetValue(format) == OutputFormat.Json)
             {
                 using var stdout = new MemoryStream();
-                TuneJson.Write(stdout, document, design, methodName, assessment, improvement, CliApp.Version);
+                TuneJson.Write(stdout, document, design, tuned.Method, assessment, improvement, CliApp.Version);
                 io.Output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
             }
             else WriteTable(io.Output, document, design, request, assessment, improvement);
@@ -128,10 +87,7 @@ internal static class TuneCommand
             var orders = document.Criteria.Separation?.Orders ?? [1.0];
             return [.. orders.Select(h => h * s.Value)];
         }
-        // Running speeds × orders of the separation criterion, and the loads' own running speeds.
-        var fromCriteria = document.Criteria.Separation is { } sep ? sep.Excitations().Select(e => e.FrequencyHz) : [];
-        var fromLoads = OperatingPoints.Loads(document).Where(l => l.SpeedHz is > 0).Select(l => l.SpeedHz!.Value);
-        return [.. fromCriteria.Concat(fromLoads).Distinct()];
+        return OperatingLoads.AbsorberExcitations(document);
     }
 
     private static AbsorberTarget Target(string text) => text switch

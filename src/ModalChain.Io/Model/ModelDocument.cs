@@ -34,10 +34,6 @@ public sealed record ModelDocument(
 
     /// <summary>The transient run the file asks for in its 'transient' section, or null when it has none.</summary>
     public TransientSpec? Transient { get; init; }
-
-    /// <summary>The loads whose running speeds are the operating points: those the 'harmonic' section selects, else all of them.</summary>
-    public IReadOnlyList<Load> OperatingLoads =>
-        Harmonic?.Loads is { IsDefaultOrEmpty: false } names ? [.. Structure.Loads.Where(l => names.Contains(l.Name))] : Structure.Loads;
 }
 
 /// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>

@@ -4,6 +4,7 @@ using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Model;
 using ModalChain.Io.Json;
+using ModalChain.Io.Model;
 using ModalChain.Reports.Figures;
 using ModalChain.Reports.Html;
 using ModalChain.Reports.Units;
@@ -30,7 +31,7 @@ public sealed class CriteriaSection : IReportSection
         ArgumentNullException.ThrowIfNull(context);
         var criteria = context.Document.Criteria;
         if (criteria.IsEmpty) return null;
-        return new CriteriaSection(context, CriteriaCheck.Evaluate(context.Damped, criteria, context.Document.OperatingLoads));
+        return new CriteriaSection(context, CriteriaCheck.Evaluate(context.Damped, criteria, OperatingLoads.Of(context.Document)));
     }
 
     /// <inheritdoc />

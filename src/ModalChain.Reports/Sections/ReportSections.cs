@@ -14,6 +14,7 @@ public static class ReportSections
         HarmonicSection.Create,
         TransientSection.Create,
         CriteriaSection.Create,
+        AbsorberSection.Create,
         SpeedFrequencySection.Create,
     ];
 }
