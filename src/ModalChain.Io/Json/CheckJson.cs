@@ -16,7 +16,7 @@ public static class CheckJson
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
         w.WriteString("title", document.Network.Title);
-        Source(w, document, toolVersion);
+        w.Source(document, toolVersion);
         w.WriteBoolean("passes", outcome.AllPass);
         if (outcome.Separation is { } sep)
         {
@@ -78,13 +78,4 @@ public static class CheckJson
         ResponseQuantity.Velocity => "m/s",
         _ => "m/s^2",
     };
-
-    internal static void Source(Utf8JsonWriter w, ModelDocument document, string toolVersion)
-    {
-        w.WriteStartObject("source");
-        w.WriteString("file", document.File);
-        w.WriteString("sha256", document.Sha256);
-        w.WriteString("tool_version", toolVersion);
-        w.WriteEndObject();
-    }
 }

@@ -22,11 +22,7 @@ public static class HarmonicJson
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
         w.WriteString("title", document.Network.Title);
-        w.WriteStartObject("source");
-        w.WriteString("file", document.File);
-        w.WriteString("sha256", document.Sha256);
-        w.WriteString("tool_version", toolVersion);
-        w.WriteEndObject();
+        w.Source(document, toolVersion);
         w.WriteString("method", result.Method == HarmonicMethod.Modal ? "modal" : "direct");
         w.WriteNumber("modes_used", result.ModesUsed);
         w.WriteStartArray("loads");

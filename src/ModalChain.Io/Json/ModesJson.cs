@@ -39,11 +39,7 @@ public static class ModesJson
         var springNames = network.Springs.Select(s => s.Name).ToArray();
 
         writer.WriteString("title", network.Title);
-        writer.WriteStartObject("source");
-        writer.WriteString("file", document.File);
-        writer.WriteString("sha256", document.Sha256);
-        writer.WriteString("tool_version", toolVersion);
-        writer.WriteEndObject();
+        writer.Source(document, toolVersion);
         writer.WriteStartArray("dofs");
         foreach (var d in dofNames) writer.WriteStringValue(d);
         writer.WriteEndArray();

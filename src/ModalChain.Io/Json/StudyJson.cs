@@ -14,7 +14,7 @@ public static class StudyJson
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
         w.WriteString("title", document.Network.Title);
-        CheckJson.Source(w, document, toolVersion);
+        w.Source(document, toolVersion);
         w.WriteString("parameter", result.Request.Parameter.Text);
         w.WriteString("unit", unit);
         w.Array("values", result.Steps.Select(s => s.Value));
@@ -71,7 +71,7 @@ public static class StudyJson
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
         w.WriteString("title", document.Network.Title);
-        CheckJson.Source(w, document, toolVersion);
+        w.Source(document, toolVersion);
         w.WriteString("chart", "speed-frequency");
         w.Array("speeds_hz", chart.SpeedsHz);
         w.Array("speeds_rpm", chart.SpeedsHz.Select(s => s * 60));

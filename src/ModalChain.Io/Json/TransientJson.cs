@@ -23,11 +23,7 @@ public static class TransientJson
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
         w.WriteString("title", document.Network.Title);
-        w.WriteStartObject("source");
-        w.WriteString("file", document.File);
-        w.WriteString("sha256", document.Sha256);
-        w.WriteString("tool_version", toolVersion);
-        w.WriteEndObject();
+        w.Source(document, toolVersion);
         w.WriteString("method", MethodName(result.Settings.Method));
         w.WriteString("method_description", result.MethodDescription);
         w.Number("step_s", result.Settings.Step);

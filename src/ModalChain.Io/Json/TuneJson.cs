@@ -20,7 +20,7 @@ public static class TuneJson
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
         w.WriteString("title", document.Network.Title);
-        CheckJson.Source(w, document, toolVersion);
+        w.Source(document, toolVersion);
         w.WriteNumber("mode", design.ModeNumber);
         w.Number("mode_frequency_hz", design.ModeFrequencyHz);
         w.WriteString("mode_chosen_by", design.ChosenBy);
