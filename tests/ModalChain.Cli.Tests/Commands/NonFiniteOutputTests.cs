@@ -79,11 +79,29 @@ public partial class NonFiniteOutputTests
         }
     }
 
+    [Fact]
+    public void Tune_OnAnUndampedModel_SaysThePeakBeforeIsUnbounded()
+    {
+        // No damping anywhere: the host's response at the controlled resonance grows without bound before the absorber.
+        using var model = new TempModel(
+            "masses: {deck: 2600 kg, fan: 400 kg}\nsprings:\n  beams: {between: [ground, deck], stiffness: 68 kN/mm}\n" +
+            "  mounts: {between: [deck, fan], stiffness: 1.6 kN/mm}\n");
+        var table = Run("tune", model.Path, "--host", "deck", "--mass-ratio", "5 %", "--mode", "2");
+        Assert.True(table.ExitCode == 0, table.ToString());
+        Assert.DoesNotMatch(NonFinite(), table.Stdout);
+        Assert.Contains("peak before           unbounded (no damping acts on that resonance)", table.Stdout, StringComparison.Ordinal);
+        var json = Run("tune", model.Path, "--host", "deck", "--mass-ratio", "5 %", "--mode", "2", "--format", "json");
+        using var doc = System.Text.Json.JsonDocument.Parse(json.Stdout);
+        Assert.Equal(System.Text.Json.JsonValueKind.Null, doc.RootElement.GetProperty("peak_before").ValueKind);
+        Assert.Equal("unbounded: no damping acts on that resonance", doc.RootElement.GetProperty("peak_before_note").GetString());
+        Assert.False(doc.RootElement.TryGetProperty("peak_after_note", out _)); // the absorber's damper bounds the peak after
+    }
+
     public static TheoryData<string, string> EveryModelAndFormat()
     {
         var data = new TheoryData<string, string>();
         foreach (var model in ModelNames())
-            foreach (var command in new[] { "modes", "check", "harmonic" })
+            foreach (var command in new[] { "modes", "check", "harmonic", "transient" })
                 foreach (var format in command == "check" ? new[] { "table", "json" } : ["table", "json", "csv"])
                     data.Add(model, command + " " + format);
         return data;
