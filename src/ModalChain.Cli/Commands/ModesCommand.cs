@@ -29,27 +29,25 @@ internal static class ModesCommand
                 return null;
             },
         };
+        var solver = CommonOptions.Solver();
         var command = new Command("modes",
             "Natural frequencies, periods, mass-normalised mode shapes, participation factors and effective modal masses " +
             "of the undamped network, with quality figures (eigen residual, M-orthogonality).\n\n" + CliApp.CautionHelp)
-        { file, count, format };
+        { file, count, solver, format };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            var result = ModalAnalysis.Solve(document.Network, new ModalOptions(parse.GetValue(count)));
-            var damped = DampedSystem.Build(document.Structure);
+            if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
+            // One eigen solve: the damping ratios are those of the modes reported, from the same shapes.
+            var result = ModalAnalysis.Solve(document.Network, new ModalOptions(parse.GetValue(count), Choice: choice));
+            var damped = DampedSystem.Build(document.Structure, result, choice);
             var complexModes = damped.IsClassical ? [] : ComplexModes.Solve(damped);
             switch (parse.GetValue(format))
             {
                 case OutputFormat.Json:
-                    using (var stdout = new MemoryStream())
-                    {
-                        ModesJson.Write(stdout, document, result, CliApp.Version, damped, complexModes);
-                        io.Output.Write(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
-                        io.Output.WriteLine();
-                    }
+                    io.WriteJson(stream => ModesJson.Write(stream, document, result, CliApp.Version, damped, complexModes));
                     break;
                 case OutputFormat.Csv:
                     ModesCsv.Write(io.Output, result);

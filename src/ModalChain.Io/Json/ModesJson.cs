@@ -67,6 +67,8 @@ public static class ModesJson
             writer.Number("damping_ratio", zeta);
             writer.Number("damped_frequency_hz", zeta < 1 ? mode.NaturalFrequencyHz * Math.Sqrt(1 - zeta * zeta) : double.NaN);
             writer.WriteEndObject();
+            // Hand finished modes to the stream as they are written rather than holding the whole document.
+            if (writer.BytesPending > 1 << 16) writer.Flush();
         }
         writer.WriteEndArray();
 
@@ -99,6 +101,7 @@ public static class ModesJson
         writer.WriteStartObject("quality");
         writer.Number("max_residual", result.Quality.MaxResidual);
         writer.Number("max_orthogonality_error", result.Quality.MaxOrthogonalityError);
+        writer.WriteString("solver", result.Algorithm);
         writer.WriteEndObject();
 
         writer.WriteStartArray("warnings");
