@@ -47,6 +47,33 @@ public class TransientAnalysisTests
     }
 
     [Fact]
+    public void RmsWindowOutsideTheRun_IsNotAvailableAndWarned()
+    {
+        // A window that holds no step has no RMS: reporting 0 would read as "no vibration" (common practice: say n/a).
+        var network = Sdof(100, 1e5);
+        var settings = new TransientSettings(1, 1e-3, TransientMethod.Exact) { RmsFrom = 8, RmsTo = 10 };
+        var result = TransientAnalysis.Run(network, Assembler.Assemble(network), [], [new InitialCondition("deck", 1e-3, 0)], settings);
+        Assert.All(result.Responses, r => Assert.True(double.IsNaN(r.Rms), $"{r.Name} {r.Quantity}: RMS {r.Rms}"));
+        Assert.Contains(result.Warnings, w => w.Contains("RMS window 8 to 10 s holds no step", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void RmsWindowPastTheEnd_IsWarnedAndCoversTheRunOnly()
+    {
+        // x0 cos ωt over whole periods: RMS x0/√2 (closed form); the window asks for more than the run has.
+        const double m = 100, k = 1e5, x0 = 3e-3;
+        var network = Sdof(m, k);
+        var period = 2 * Math.PI / Math.Sqrt(k / m);
+        var settings = new TransientSettings(10 * period, period / 200, TransientMethod.Exact) { RmsFrom = 0, RmsTo = 20 * period };
+        var result = TransientAnalysis.Run(network, Assembler.Assemble(network), [], [new InitialCondition("deck", x0, 0)], settings);
+        // N = 2000 steps over 10 periods, N + 1 samples with cos² = 1 at both ends: mean (N/2 + 1)/(N + 1) (closed form).
+        const int n = 2000;
+        Assert.Equal(n, result.StepCount);
+        NumericAssert.Close(x0 * Math.Sqrt((n / 2.0 + 1) / (n + 1)), result.Get("deck", ResponseQuantity.Displacement).Rms, Tolerance.Rel(1e-9), "RMS over the run");
+        Assert.Contains(result.Warnings, w => w.Contains("after the run", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void SupportAcceleration_GivesTheRelativeMotionClosedForm()
     {
         // A support accelerating by a0 from rest: the relative motion z = u − u_s obeys z̈ + ω² z = −a0, so
