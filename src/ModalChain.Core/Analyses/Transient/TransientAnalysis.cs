@@ -158,7 +158,7 @@ public static class TransientAnalysis
                 consideredModes = modes.Modes[..count];
                 var shapes = Matrix<double>.Build.Dense(n, count, (i, j) => consideredModes[j].Shape[i]);
                 var omega = consideredModes.Select(m => m.AngularFrequency).ToArray();
-                var zeta = ModalDamping(settings, modalRatios, shapes, omega, matrices.Damping, warnings);
+                var zeta = ModalDamping(settings, modalRatios, shapes, omega, matrices.Damping, warnings, Topology.UnsupportedGroups(network).Length);
                 var integrator = new ModalSuperpositionIntegrator();
                 description = string.Create(CultureInfo.InvariantCulture, $"{integrator.Name}, {count} of {n} modes");
                 var twoZetaOmega = omega.Select((w, j) => 2 * zeta[j] * w).ToArray();
@@ -244,16 +244,16 @@ public static class TransientAnalysis
         new(probes, SymmetricSparseMatrix.From(system.Mass), SymmetricSparseMatrix.From(system.Damping),
             SymmetricSparseMatrix.From(system.Stiffness), settings.Step, steps, settings.RecordEvery, rmsFrom, rmsTo, progress);
 
-    /// <summary>ζⱼ from the settings (last repeats) or from the diagonal of ΦᵀCΦ; warns when C is far from classical.</summary>
+    /// <summary>ζⱼ from the settings (elastic modes in order, last repeats) or from the diagonal of ΦᵀCΦ; warns when C is far from classical.</summary>
     private static double[] ModalDamping(TransientSettings settings, ImmutableArray<double>? given, Matrix<double> shapes, double[] omega,
-        Matrix<double> c, List<string> warnings)
+        Matrix<double> c, List<string> warnings, int rigidBodyModes)
     {
         var count = omega.Length;
         var zeta = new double[count];
         if (!settings.ModalDampingRatios.IsEmpty)
         {
-            for (var j = 0; j < count; j++)
-                zeta[j] = settings.ModalDampingRatios[Math.Min(j, settings.ModalDampingRatios.Length - 1)];
+            for (var j = rigidBodyModes; j < count; j++)
+                zeta[j] = settings.ModalDampingRatios[Math.Min(j - rigidBodyModes, settings.ModalDampingRatios.Length - 1)];
             return zeta;
         }
         if (given is { } ratios && ratios.Length >= count)
