@@ -57,9 +57,7 @@ internal static class TuneCommand
             }
             if (parse.GetValue(format) == OutputFormat.Json)
             {
-                using var stdout = new MemoryStream();
-                TuneJson.Write(stdout, document, tuned, CliApp.Version);
-                io.Output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
+                io.WriteJson(stream => TuneJson.Write(stream, document, tuned, CliApp.Version));
             }
             else WriteTable(io.Output, document, tuned, request);
             return ExitCodes.Success;

@@ -34,20 +34,23 @@ public static class DampingAssembly
         var fp = partition.DamperFP.Clone();
         var pp = partition.DamperPP.Clone();
 
-        var relative = Matrix<double>.Build.Dense(partition.FreeCount, partition.FreeCount);
+        // The relative-motion part and its quasi-static influence (a dense LU of K_ff) only when there is such damping.
+        Matrix<double>? relative = null;
         if (damping.Rayleigh is { } r)
         {
             ff += r.StiffnessCoefficient * partition.StiffnessFF;
             fp += r.StiffnessCoefficient * partition.StiffnessFP;
             pp += r.StiffnessCoefficient * partition.StiffnessPP;
-            relative += r.MassCoefficient * partition.Mass;
+            if (r.MassCoefficient != 0) relative = r.MassCoefficient * partition.Mass;
         }
         if (!damping.ModalRatios.IsDefaultOrEmpty)
         {
             if (modes is null || modes.Modes.Length != partition.FreeCount)
                 throw new ArgumentException("Modal damping needs every mode of the network.", nameof(modes));
-            relative += ModalDampingMatrix(partition.Mass, modes, damping);
+            var modal = ModalDampingMatrix(partition.Mass, modes, damping);
+            relative = relative is null ? modal : relative + modal;
         }
+        if (relative is null) return new DampingMatrices(ff, fp, pp);
 
         ff += relative;
         if (partition.QuasiStaticInfluence() is { } t)
@@ -60,18 +63,25 @@ public static class DampingAssembly
     }
 
     /// <summary>C_m = M Φ diag(2ζ_jω_j) Φᵀ M in N·s/m from the modal ratios of <paramref name="damping"/>; rigid-body modes get none.</summary>
+    /// <remarks>
+    /// The ratios apply to the elastic modes in order: the first ratio to the lowest elastic mode. The network's
+    /// rigid-body modes (one per group of masses that no chain of springs ties to a support,
+    /// <see cref="Topology.UnsupportedGroups"/>) are the lowest modes and take no ratio; they are counted from the
+    /// topology, which is exact, not from the size of their computed eigenvalues.
+    /// </remarks>
     public static Matrix<double> ModalDampingMatrix(Matrix<double> mass, ModalResult modes, DampingModel damping)
     {
         ArgumentNullException.ThrowIfNull(mass);
         ArgumentNullException.ThrowIfNull(modes);
         ArgumentNullException.ThrowIfNull(damping);
         var n = mass.RowCount;
+        var rigidBodyModes = Topology.UnsupportedGroups(modes.Network).Length;
         var mPhi = Matrix<double>.Build.Dense(n, modes.Modes.Length);
         var scaled = Matrix<double>.Build.Dense(n, modes.Modes.Length);
         for (var j = 0; j < modes.Modes.Length; j++)
         {
             var mode = modes.Modes[j];
-            var c = mode.IsRigidBody ? 0 : 2 * damping.ModalRatioOf(mode.Number) * mode.AngularFrequency;
+            var c = j < rigidBodyModes || mode.IsRigidBody ? 0 : 2 * damping.ModalRatioOf(j - rigidBodyModes + 1) * mode.AngularFrequency;
             for (var i = 0; i < n; i++)
             {
                 var v = mass[i, i] * mode.Shape[i];
@@ -87,6 +97,9 @@ public static class DampingAssembly
     {
         ArgumentNullException.ThrowIfNull(modes);
         ArgumentNullException.ThrowIfNull(dampingFF);
+        var count = modes.Modes.Length;
+        // No viscous damping at all (the common undamped modal run): Φᵀ 0 Φ needs no O(n²m) product.
+        if (dampingFF.Enumerate(Zeros.AllowSkip).All(v => v == 0)) return Matrix<double>.Build.Sparse(count, count);
         var phi = Shapes(modes);
         return phi.TransposeThisAndMultiply(dampingFF * phi);
     }
