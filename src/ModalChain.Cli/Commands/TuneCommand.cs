@@ -66,7 +66,7 @@ internal static class TuneCommand
     }
 
     private static string Peak(double value) =>
-        double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
+        double.IsNaN(value) ? "none in the band" : double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
 
     private static string EdgeNote(Core.Analyses.Harmonic.SweepEdge edge) => edge switch
     {
@@ -142,7 +142,8 @@ internal static class TuneCommand
         if (d.Target == AbsorberTarget.Force)
             o.WriteLine(string.Create(Inv, $"  expected peak         {d.Optimum.PeakAmplification:F4} x static deflection at the host (fixed-point value sqrt(1+2/mu), undamped single-mode primary)"));
         o.WriteLine();
-        o.WriteLine(string.Create(Inv, $"On the full model (all modes, the model's damping), harmonic force at '{d.Host}', band {a.BandHz.Low:F2}-{a.BandHz.High:F2} Hz (mode {d.ModeNumber}'s own band):"));
+        o.WriteLine(string.Create(Inv, $"On the full model (all modes, the model's damping), harmonic force at '{d.Host}', band {a.BandHz.Low:F2}-{a.BandHz.High:F2} Hz (0.5-1.5 f_p):"));
+        o.WriteLine("  each peak belongs to the mode of the model without the absorber whose shape matches best (MAC) the nearest mode with it");
         o.WriteLine("  peaks are |x_host| * K / |F| with K = modal mass * omega_p^2 (the static deflection of the mode's equivalent spring)");
         o.WriteLine($"  peak before           {Peak(a.PeakBefore)}{EdgeNote(a.PeakBeforeRisingAt)}");
         o.WriteLine(string.Create(Inv, $"  peak after            {Peak(a.PeakAfter)} at {a.PeakFrequencyHz:F3} Hz, mode {a.PeakAfterMode}'s peak{EdgeNote(a.PeakAfterRisingAt)}"));

@@ -84,7 +84,9 @@ public static class TuneJson
                 w.WriteNumber("mode", n.ModeNumber);
                 w.Number("frequency_hz", n.FrequencyHz);
                 w.Number("peak_before", n.PeakBefore);
+                w.Note("peak_before_note", NeighbourNote(n.PeakBefore));
                 w.Number("peak_after", n.PeakAfter);
+                w.Note("peak_after_note", NeighbourNote(n.PeakAfter));
                 w.WriteEndObject();
             }
             w.WriteEndArray();
@@ -140,6 +142,10 @@ public static class TuneJson
         ModalChain.Core.Analyses.Harmonic.SweepEdge.End => "end",
         _ => "none",
     };
+
+    // Beside a neighbouring mode's null peak: no peak of that mode inside the band, or an unbounded one.
+    private static string? NeighbourNote(double peak) =>
+        double.IsNaN(peak) ? "no peak of this mode inside the band" : Unbounded(peak);
 
     // Beside a null peak, why it has no finite value (JSON has no infinity); the table prints the same words.
     private static string? Unbounded(double peak) =>

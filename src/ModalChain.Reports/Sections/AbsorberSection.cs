@@ -148,7 +148,7 @@ public sealed class AbsorberSection : IReportSection
     }
 
     private static string Peak(double value) =>
-        double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
+        double.IsNaN(value) ? "none in the band" : double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
 
     private ChartFigure Chart()
     {

@@ -21,13 +21,13 @@ public sealed record SpeedResponse(double FrequencyHz, double Before, double Aft
 /// <summary>A mode of the model other than the controlled one whose frequency lies in 0.5–1.5 times the controlled mode's.</summary>
 /// <param name="ModeNumber">1-based number of the neighbouring mode (model without the absorber).</param>
 /// <param name="FrequencyHz">Its natural frequency, Hz.</param>
-/// <param name="PeakBefore">Host amplification peak in that mode's own band without the absorber (same measure as the controlled peak).</param>
+/// <param name="PeakBefore">Largest host amplification peak in 0.5–1.5 f_p that belongs to that mode, without the absorber (same measure as the controlled peak); NaN when none of the band's peaks belongs to it.</param>
 /// <param name="PeakAfter">The same with the absorber.</param>
 public sealed record NeighbourMode(int ModeNumber, double FrequencyHz, double PeakBefore, double PeakAfter);
 
 /// <summary>How a designed absorber performs on the full network, from harmonic responses.</summary>
-/// <param name="BandHz">The frequency band searched for peaks, Hz: 0.5–1.5 f_p narrowed to the controlled mode's own band between its neighbours (<see cref="AbsorberPerformance.Band"/>).</param>
-/// <param name="PeakBefore">Worst dynamic amplification of the host without the absorber: |x_host|·K_modal/|F| with the mode's modal stiffness K = M ω_p², for a unit force at the host.</param>
+/// <param name="BandHz">The frequency band searched for peaks, Hz: 0.5–1.5 f_p (<see cref="AbsorberPerformance.Band"/>).</param>
+/// <param name="PeakBefore">Largest peak of the controlled mode (<see cref="AbsorberPerformance.Owner"/>): worst dynamic amplification of the host without the absorber: |x_host|·K_modal/|F| with the mode's modal stiffness K = M ω_p², for a unit force at the host.</param>
 /// <param name="PeakAfter">The same with the absorber attached.</param>
 /// <param name="PeakFrequencyHz">Frequency of <paramref name="PeakAfter"/>, Hz.</param>
 /// <param name="StrokePerForce">Absorber stroke (relative displacement to the host) at that frequency per unit force at the host, m/N.</param>
@@ -39,7 +39,7 @@ public sealed record AbsorberAssessment(
     /// <summary>Peak stroke in m under the model's own loads at their running speeds; NaN when no load has a speed.</summary>
     public double OperatingStroke { get; init; } = double.NaN;
 
-    /// <summary>The mode (of the model without the absorber) the peak after belongs to: the one whose own band holds <see cref="PeakFrequencyHz"/>.</summary>
+    /// <summary>The mode (of the model without the absorber) the peak after belongs to, by <see cref="AbsorberPerformance.Owner"/>: the controlled one unless no peak in the band is its.</summary>
     public int PeakAfterMode { get; init; }
 
     /// <summary>Where the largest host response without the absorber sits when it is on an end of the band (the response rises beyond it).</summary>

@@ -9,11 +9,10 @@ namespace ModalChain.Core.Analyses.Absorbers;
 /// <remarks>
 /// The measure is the host's dynamic amplification |x_host|·K/|F| for a harmonic force F at the host, with K = M ω_p²
 /// the modal stiffness of the controlled mode (M its modal mass at the host), so that for a one-mass primary it is
-/// the classical |X₁|k/F of Den Hartog (1956). Peaks are searched in the controlled mode's own band: 0.5–1.5 f_p,
-/// narrowed at a neighbouring mode to the geometric mean of the two natural frequencies, so that every peak reported
-/// belongs to the controlled mode (a peak is attributed to the mode of the model without the absorber whose band, between
-/// the geometric means with its neighbours, holds it). The worst peak is found by a refined sweep whose every local
-/// maximum is refined by golden-section search; a largest value on an end of the band is flagged, not taken as the peak.
+/// the classical |X₁|k/F of Den Hartog (1956). Peaks are searched over 0.5–1.5 f_p by a refined sweep whose every local
+/// maximum is refined by golden-section search, and each is attributed to a mode of the model without the absorber by
+/// mode shape (<see cref="Owner"/>): the peak reported is the controlled mode's, the other modes' peaks are listed apart,
+/// and an end of the band where the controlled mode's response is larger than its peak is flagged, not taken as the peak.
 /// The band-optimal tuning minimises that peak over the absorber's frequency and damping ratio (its mass is fixed by
 /// μ), by the Nelder–Mead simplex method (Nelder &amp; Mead 1965) on (ln f_a, ln ζ_a) from the closed form. The
 /// running-speed tuning minimises the worst amplification over every excitation frequency f_e ± t·f_e (t the speed
@@ -44,7 +43,7 @@ public static class AbsorberPerformance
             && f[n - 1] >= 0.5 * design.ModeFrequencyHz && f[n - 1] <= 1.5 * design.ModeFrequencyHz && !Same(f[n - 1], design.ModeFrequencyHz))];
     }
 
-    /// <summary>The mode of the model without the absorber whose own band (between the geometric means with its neighbours) holds <paramref name="frequencyHz"/>.</summary>
+    /// <summary>The mode of the model without the absorber whose natural frequency is nearest (in ratio) to <paramref name="frequencyHz"/>: where an absorber's frequency sits.</summary>
     public static int ModeOf(AbsorberDesign design, double frequencyHz)
     {
         ArgumentNullException.ThrowIfNull(design);

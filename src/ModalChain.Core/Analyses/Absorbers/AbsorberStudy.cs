@@ -122,6 +122,6 @@ public static class AbsorberStudy
 
         static string Edge(SweepEdge e) => e == SweepEdge.Start ? "low end" : "high end";
         static string Range(AbsorberAssessment a) => string.Create(Inv, $"{a.BandHz.Low:F3}-{a.BandHz.High:F3} Hz");
-        static string Number(double v) => double.IsFinite(v) ? v.ToString("G4", Inv) : "unbounded";
+        static string Number(double v) => double.IsNaN(v) ? "none in the band" : double.IsFinite(v) ? v.ToString("G4", Inv) : "unbounded";
     }
 }
