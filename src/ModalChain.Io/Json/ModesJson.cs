@@ -4,6 +4,7 @@ using ModalChain.Core;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
@@ -38,7 +39,7 @@ public static class ModesJson
         var dofNames = result.Matrices.Dofs.Dofs.Select(d => d.ToString()).ToArray();
         var springNames = network.Springs.Select(s => s.Name).ToArray();
 
-        writer.WriteString("title", network.Title);
+        writer.WriteString("title", MarkupText.Clean(network.Title));
         writer.Source(document, toolVersion);
         writer.WriteStartArray("dofs");
         foreach (var d in dofNames) writer.WriteStringValue(d);

@@ -2,6 +2,7 @@ using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Studies;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
@@ -13,7 +14,7 @@ public static class StudyJson
     {
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
-        w.WriteString("title", document.Network.Title);
+        w.WriteString("title", MarkupText.Clean(document.Network.Title));
         w.Source(document, toolVersion);
         w.WriteString("parameter", result.Request.Parameter.Text);
         w.WriteString("unit", unit);
@@ -70,7 +71,7 @@ public static class StudyJson
     {
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
-        w.WriteString("title", document.Network.Title);
+        w.WriteString("title", MarkupText.Clean(document.Network.Title));
         w.Source(document, toolVersion);
         w.WriteString("chart", "speed-frequency");
         w.Array("speeds_hz", chart.SpeedsHz);
