@@ -222,4 +222,24 @@ public sealed class ReportCommandTests
             Assert.Equal(JsonValueKind.Object, json.RootElement.ValueKind);
         }
     }
+
+    [Fact]
+    public void FolderHoldingOtherFiles_ExitsTwoAndKeepsThem()
+    {
+        // A report replaces its whole folder, so a folder that is not a report (no marker file) is refused, not overwritten.
+        var dir = Path.Combine(Temp(), "mine");
+        Directory.CreateDirectory(dir);
+        File.WriteAllText(Path.Combine(dir, "report.html"), "my own page");
+        var (code, _, stderr) = Run("report", Path.Combine(Root, "models", "chiller-deck.yaml"), "-o", dir);
+        Assert.Equal(2, code);
+        Assert.Contains("not a ModalChain report folder", stderr, StringComparison.Ordinal);
+        Assert.Equal("my own page", File.ReadAllText(Path.Combine(dir, "report.html")));
+        Assert.Equal(["report.html"], Directory.GetFileSystemEntries(dir).Select(Path.GetFileName));
+
+        // A folder a report was written into is replaced by the next report.
+        var again = Path.Combine(Temp(), "report");
+        Assert.Equal(0, Run("report", Path.Combine(Root, "models", "chiller-deck.yaml"), "-o", again).Code);
+        Assert.Equal(0, Run("report", Path.Combine(Root, "models", "mezzanine-absorber.yaml"), "-o", again).Code);
+        Assert.Contains("mezzanine-absorber.yaml", File.ReadAllText(Path.Combine(again, "report.html")), StringComparison.Ordinal);
+    }
 }
