@@ -97,3 +97,26 @@ public sealed class AtomicFileTests
         Assert.Throws<IOException>(() => FilePaths.Canonical(Path.Combine(dir, "a")));
     }
 }
+
+/// <summary>The rule of DEVELOPERS.md "every file write goes through AtomicFile", checked on the sources.</summary>
+public sealed class FileWriteRuleTests
+{
+    [Fact]
+    public void NoSourceFileOutsideIoFiles_WritesAFileDirectly()
+    {
+        var root = new DirectoryInfo(AppContext.BaseDirectory);
+        while (root is not null && !File.Exists(Path.Combine(root.FullName, "ModalChain.sln"))) root = root.Parent;
+        Assert.NotNull(root);
+        var src = Path.Combine(root.FullName, "src");
+        // File.X but not AtomicFile.X; FileStream and StreamWriter on a path.
+        var write = new System.Text.RegularExpressions.Regex(@"(?<![\w.])File\.(Write|Create|Open|AppendAll|Move|Copy|Replace)|new FileStream\(|new StreamWriter\((?!stream)");
+        var offenders = Directory.EnumerateFiles(src, "*.cs", SearchOption.AllDirectories)
+            .Where(f => !f.Contains($"{Path.DirectorySeparatorChar}obj{Path.DirectorySeparatorChar}", StringComparison.Ordinal)
+                && !f.StartsWith(Path.Combine(src, "ModalChain.Io", "Files"), StringComparison.Ordinal))
+            .SelectMany(f => File.ReadLines(f).Select((line, i) => (f, i, line)))
+            .Where(x => write.IsMatch(x.line))
+            .Select(x => $"{Path.GetRelativePath(root.FullName, x.f)}:{x.i + 1}: {x.line.Trim()}")
+            .ToList();
+        Assert.True(offenders.Count == 0, "write through ModalChain.Io.Files.AtomicFile instead:\n" + string.Join("\n", offenders));
+    }
+}
