@@ -102,6 +102,7 @@ public static class AtomicFile
 /// <remarks>
 /// A name is <c>.TARGET.KIND-PID-RANDOM</c>: hidden, next to its target, and naming the process that made it, so a run
 /// removes only leftovers of processes that are no longer running (or its own) and never the work of a concurrent run.
+/// A name <c>.TARGET.KIND-GUID</c> (32 hex digits, no process id) was made by an earlier version and is always a leftover.
 /// </remarks>
 public static class Leftovers
 {
@@ -121,14 +122,18 @@ public static class Leftovers
         var prefix = Prefix(name, kind);
         // Filtered by hand rather than by a search pattern: the target's name may itself hold '*' or '?'.
         foreach (var entry in Directory.EnumerateFileSystemEntries(folder))
-        {
-            var file = Path.GetFileName(entry.AsSpan());
-            if (!file.StartsWith(prefix, StringComparison.Ordinal)) continue;
-            var rest = file[prefix.Length..];
-            var dash = rest.IndexOf('-');
-            if (dash <= 0 || !int.TryParse(rest[..dash], System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out var pid)) continue;
-            if (pid == Environment.ProcessId || !IsRunning(pid)) yield return entry;
-        }
+            if (IsStale(Path.GetFileName(entry), prefix)) yield return entry;
+    }
+
+    private static bool IsStale(string file, string prefix)
+    {
+        if (!file.StartsWith(prefix, StringComparison.Ordinal)) return false;
+        var rest = file.AsSpan(prefix.Length);
+        var dash = rest.IndexOf('-');
+        // Before names carried the process id, a staging folder was .TARGET.partial-GUID: always a leftover now.
+        if (dash < 0) return rest.Length == 32 && !rest.ContainsAnyExcept("0123456789abcdefABCDEF");
+        if (dash == 0 || !int.TryParse(rest[..dash], System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out var pid)) return false;
+        return pid == Environment.ProcessId || !IsRunning(pid);
     }
 
     private static string Prefix(string name, string kind) => $".{(name.Length > MaxStem ? name[..MaxStem] : name)}.{kind}-";

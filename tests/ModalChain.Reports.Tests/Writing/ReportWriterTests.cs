@@ -148,11 +148,14 @@ public sealed class ReportWriterTests
         Directory.CreateDirectory(live);
         var dead = Path.Combine(parent, $".out.partial-{int.MaxValue}-0123456789ab");
         Directory.CreateDirectory(dead);
+        var earlierVersion = Path.Combine(parent, $".out.partial-{Guid.NewGuid():N}"); // named without a process id
+        Directory.CreateDirectory(earlierVersion);
 
         ReportWriter.Write(SmallReport(), dir, ReportFormat.Html);
 
         Assert.True(Directory.Exists(live));
         Assert.False(Directory.Exists(dead));
+        Assert.False(Directory.Exists(earlierVersion));
     }
 
     [Fact]
