@@ -4,6 +4,7 @@ using ModalChain.Core;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
@@ -41,7 +42,7 @@ public static class ModesJson
         var dofKeys = dofNames.Select(d => JsonEncodedText.Encode(d, WriterOptions.Encoder)).ToArray();
         var springKeys = springNames.Select(s => JsonEncodedText.Encode(s, WriterOptions.Encoder)).ToArray();
 
-        writer.WriteString("title", network.Title);
+        writer.WriteString("title", MarkupText.Clean(network.Title));
         writer.Source(document, toolVersion);
         writer.WriteStartArray("dofs");
         foreach (var d in dofNames) writer.WriteStringValue(d);
