@@ -55,6 +55,7 @@ internal static class ModesTable
         }
         if (result.RigidBodyModeCount > 0)
             o.WriteLine($"{result.RigidBodyModeCount} rigid-body mode(s) at 0 Hz: part of the network is not held by springs.");
+        foreach (var w in result.Warnings) o.WriteLine("Warning: " + w);
         o.WriteLine(string.Create(Inv,
             $"Quality: max residual {result.Quality.MaxResidual:0.0E+00}, max M-orthogonality error {result.Quality.MaxOrthogonalityError:0.0E+00} ({result.Algorithm})."));
         o.WriteLine();

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Globalization;
 
 namespace ModalChain.Core.Model;
 
@@ -35,5 +36,31 @@ public static class Topology
         ArgumentNullException.ThrowIfNull(network);
         var touched = network.Springs.Where(s => s.Stiffness > 0).SelectMany(s => new[] { s.NodeA, s.NodeB }).ToHashSet();
         return [.. network.Masses.Where(m => !touched.Contains(m.Name)).Select(m => m.Name)];
+    }
+
+    /// <summary>Above this ratio of the stiffest to the softest spring a model carries a warning.</summary>
+    public const double WarnedStiffnessRatio = 1e8;
+
+    /// <summary>The springs stiffer than <see cref="WarnedStiffnessRatio"/> times the softest one, with that ratio; empty when none.</summary>
+    public static (double Ratio, Spring? Softest, ImmutableArray<Spring> Stiff) StiffnessSpread(Network network)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        var positive = network.Springs.Where(s => s.Stiffness > 0 && !(network.IsSupport(s.NodeA) && network.IsSupport(s.NodeB))).ToArray();
+        if (positive.Length < 2) return (1, null, []);
+        var softest = positive.MinBy(s => s.Stiffness)!;
+        var ratio = positive.Max(s => s.Stiffness) / softest.Stiffness;
+        return (ratio, softest, [.. positive.Where(s => s.Stiffness > softest.Stiffness * WarnedStiffnessRatio).OrderByDescending(s => s.Stiffness)]);
+    }
+
+    /// <summary>The warning for springs whose stiffnesses span more than <see cref="WarnedStiffnessRatio"/>, or null.</summary>
+    public static string? StiffnessRatioWarning(Network network)
+    {
+        var (ratio, softest, stiff) = StiffnessSpread(network);
+        if (stiff.IsEmpty || softest is null) return null;
+        var stiffest = stiff[0];
+        var names = string.Join(", ", stiff.Select(s => $"'{s.Name}'"));
+        var digits = Math.Log10(Math.Sqrt(ratio));
+        return string.Create(CultureInfo.InvariantCulture,
+            $"spring stiffnesses span a ratio of {ratio:0.###e+0} ('{stiffest.Name}' {stiffest.Stiffness:G4} N/m against '{softest.Name}' {softest.Stiffness:G4} N/m): the low modes are solved from the flexibility to keep their relative accuracy, but intermediate modes and residuals lose about {digits:0} digits; a spring that stiff usually stands for a rigid connection: consider tying its ends with 'links:' instead of {names}");
     }
 }

@@ -103,6 +103,7 @@ public static class ModesJson
 
         writer.WriteStartArray("warnings");
         foreach (var w in document.Warnings) writer.WriteStringValue(w.ToString());
+        foreach (var w in result.Warnings.Where(w => !document.Warnings.Any(d => d.Message == w))) writer.WriteStringValue(w);
         writer.WriteEndArray();
         writer.WriteString("caution", Cautions.Text);
     }

@@ -173,6 +173,9 @@ public static partial class ModelReader
 
     private static void WarnAboutConnectivity(CoreNetwork network, ReadContext context)
     {
+        var spread = Topology.StiffnessRatioWarning(network);
+        if (spread is not null && context.Positions.TryGetValue($"springs.{Topology.StiffnessSpread(network).Stiff[0].Name}", out var at))
+            context.Warning(at, spread);
         var loose = Topology.MassesWithoutSpring(network).ToHashSet();
         foreach (var name in loose)
             context.Warning(context.Positions[$"masses.{name}"],

@@ -107,6 +107,8 @@ public sealed class ModesSection : IReportSection
             "quality");
         if (_result.RigidBodyModeCount > 0)
             html.Paragraph(string.Create(Inv, $"{_result.RigidBodyModeCount} rigid-body mode(s) at 0 Hz: part of the network is not held by any spring to a support."), "note");
+        foreach (var w in _result.Warnings.Where(w => !_context.Document.Warnings.Any(d => d.Message == w)))
+            html.Paragraph("Warning: " + w, "note");
         html.Figure(_massChart);
         html.Heading("Mode shapes");
         html.Paragraph("Each figure shows the undeformed network (grey, dashed) and the mode shape (blue, solid). Displacements act in the network's single direction of motion and are drawn across the chain so masses do not overlap; the numbers beside the masses are the normalised amplitudes (largest = +1). A mode has no absolute amplitude: only the ratios between masses are meaningful.");

@@ -59,6 +59,9 @@ public sealed record ModalResult(
     ModalQuality Quality,
     string Algorithm)
 {
+    /// <summary>What a reviewer must know about the accuracy of these modes (stiffness spread, springs involved); empty when nothing.</summary>
+    public ImmutableArray<string> Warnings { get; init; } = [];
+
     /// <summary>Number of rigid-body (0 Hz) modes among <see cref="Modes"/>.</summary>
     public int RigidBodyModeCount => Modes.Count(m => m.IsRigidBody);
 }

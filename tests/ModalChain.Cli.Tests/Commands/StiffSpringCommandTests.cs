@@ -1,0 +1,73 @@
+using System.Text.Json;
+
+namespace ModalChain.Cli.Tests.Commands;
+
+/// <summary>
+/// The model of issue 12, item 1: a "rigid" support modelled as a 1e14 N/m spring beside a 100 N/m one. Its real
+/// 1.59 Hz mode (ω² ≈ 100 rad²/s², REFERENCES.md §1 two-DOF closed form) used to be reported as a
+/// 0 Hz rigid-body mode, so every command below gave a wrong answer without a word.
+/// </summary>
+public class StiffSpringCommandTests
+{
+    private const string Model = """
+        masses: {m0: 1 kg, m1: 1 kg}
+        springs:
+          k0: {between: [ground, m0], stiffness: 1e14 N/m}
+          k1: {between: [m0, m1], stiffness: 100 N/m}
+        damping: {modal: 2 %}
+        criteria: {separation: {speeds: 1.6 Hz}}
+        loads:
+          shaker: {kind: force, at: m1, amplitude: 1 N, speed: 96 rpm}
+        harmonic:
+          frequencies: {from: 1.5 Hz, to: 1.7 Hz, points: 21}
+        """;
+
+    [Fact]
+    public void Check_FailsTheSeparationCriterion()
+    {
+        // The mode at 1.5915 Hz lies inside 1.6 Hz ± 20 % (common practice band): the check must fail (exit 1).
+        using var model = new CliRun.TempModel(Model);
+        var outcome = CliRun.Run("check", model.Path);
+        Assert.True(outcome.ExitCode == 1, outcome.ToString());
+        Assert.Contains("FAIL", outcome.Stdout);
+    }
+
+    [Fact]
+    public void ModalHarmonic_ShowsTheResonance()
+    {
+        // m1 on 100 N/m behind a practically fixed m0 is a single-DOF oscillator, ζ = 2 %: peak displacement
+        // F/k · 1/(2ζ√(1−ζ²)) (REFERENCES.md §4; the other mode is 1e6 times higher, its share ~1e-12).
+        // Tolerance 1e-6 relative (the sweep refines its peaks).
+        using var model = new CliRun.TempModel(Model);
+        var outcome = CliRun.Run("harmonic", model.Path, "--method", "modal", "--output", "m1", "--format", "json");
+        Assert.True(outcome.ExitCode == 0, outcome.ToString());
+        using var json = JsonDocument.Parse(outcome.Stdout);
+        var peak = json.RootElement.GetProperty("peaks").EnumerateArray()
+            .Single(p => p.GetProperty("dof").GetString() == "m1" && p.GetProperty("quantity").GetString() == "displacement");
+        const double zeta = 0.02;
+        var expected = 1.0 / 100 / (2 * zeta * Math.Sqrt(1 - zeta * zeta));
+        Assert.InRange(peak.GetProperty("magnitude").GetDouble(), expected * (1 - 1e-6), expected * (1 + 1e-6));
+        Assert.InRange(peak.GetProperty("frequency_hz").GetDouble(), 1.58, 1.60);
+    }
+
+    [Fact]
+    public void Tune_AcceptsTheMode()
+    {
+        using var model = new CliRun.TempModel(Model);
+        var outcome = CliRun.Run("tune", model.Path, "--host", "m1", "--mass-ratio", "0.05");
+        Assert.True(outcome.ExitCode == 0, outcome.ToString());
+        Assert.Contains("1.5915 Hz", outcome.Stdout);
+    }
+
+    [Fact]
+    public void Modes_SaysWhichSpringsMakeTheSpreadAndOffersLinks()
+    {
+        using var model = new CliRun.TempModel(Model);
+        var outcome = CliRun.Run("modes", model.Path, "--format", "json");
+        Assert.True(outcome.ExitCode == 0, outcome.ToString());
+        using var json = JsonDocument.Parse(outcome.Stdout);
+        var warnings = json.RootElement.GetProperty("warnings").EnumerateArray().Select(w => w.GetString()!).ToArray();
+        Assert.Contains(warnings, w => w.Contains("1e+12", StringComparison.Ordinal) && w.Contains("'k0'", StringComparison.Ordinal) && w.Contains("links:", StringComparison.Ordinal));
+        Assert.All(json.RootElement.GetProperty("modes").EnumerateArray(), m => Assert.False(m.GetProperty("rigid_body").GetBoolean()));
+    }
+}
