@@ -48,7 +48,12 @@ internal static class ModesTable
             var complex = new TextTable("root", "undamped [Hz]", "damped [Hz]", "damping [%]");
             foreach (var c in complexModes)
                 complex.Add(c.Number.ToString(Inv), c.UndampedFrequencyHz.ToString("F4", Inv),
-                    c.IsOscillatory ? c.DampedFrequencyHz.ToString("F4", Inv) : "overdamped",
+                    c.Kind switch
+                    {
+                        ComplexModeKind.RigidBody => "rigid body (zero root)",
+                        ComplexModeKind.RigidBodyRelaxation => string.Create(Inv, $"rigid-body relaxation, {-c.EigenValue.Real:G4} 1/s"),
+                        _ => c.IsOscillatory ? c.DampedFrequencyHz.ToString("F4", Inv) : "overdamped",
+                    },
                     c.IsOscillatory ? (100 * c.DampingRatio).ToString("F2", Inv) : "-");
             complex.Write(o);
             o.WriteLine();

@@ -89,6 +89,7 @@ public static class ModesJson
                 writer.Number("damped_frequency_hz", c.DampedFrequencyHz);
                 writer.Number("damping_ratio", c.DampingRatio);
                 writer.WriteBoolean("oscillatory", c.IsOscillatory);
+                writer.WriteString("kind", KindName(c.Kind));
                 writer.Number("eigenvalue_real", c.EigenValue.Real);
                 writer.Number("eigenvalue_imag", c.EigenValue.Imaginary);
                 writer.WriteEndObject();
@@ -107,6 +108,14 @@ public static class ModesJson
         writer.WriteEndArray();
         writer.WriteString("caution", Cautions.Text);
     }
+
+    /// <summary>The JSON name of a complex root's kind: elastic, rigid-body (a zero root) or rigid-body-relaxation.</summary>
+    public static string KindName(ComplexModeKind kind) => kind switch
+    {
+        ComplexModeKind.RigidBody => "rigid-body",
+        ComplexModeKind.RigidBodyRelaxation => "rigid-body-relaxation",
+        _ => "elastic",
+    };
 
     /// <summary>The damping ratio of <paramref name="mode"/>: from <paramref name="damping"/>, 0 without one, NaN for a rigid-body mode.</summary>
     public static double DampingRatioOf(DampedSystem? damping, Mode mode)

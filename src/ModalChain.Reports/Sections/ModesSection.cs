@@ -100,7 +100,12 @@ public sealed class ModesSection : IReportSection
             html.Table("Complex modes of the damped system (the damping is not classical, so the undamped shapes are coupled)",
                 ["Mode", "Undamped frequency (Hz)", "Damped frequency (Hz)", "Damping ratio (%)"],
                 _complexModes.Take(_result.Modes.Length).Select(c => (IReadOnlyList<string>)
-                    [c.Number.ToString(Inv), DisplayUnits.Number(c.UndampedFrequencyHz), c.IsOscillatory ? DisplayUnits.Number(c.DampedFrequencyHz) : "overdamped", DisplayUnits.Percent(c.DampingRatio)]),
+                    [c.Number.ToString(Inv), DisplayUnits.Number(c.UndampedFrequencyHz), c.Kind switch
+                    {
+                        ComplexModeKind.RigidBody => "rigid body (zero root)",
+                        ComplexModeKind.RigidBodyRelaxation => "rigid-body relaxation, " + DisplayUnits.Number(-c.EigenValue.Real) + " 1/s",
+                        _ => c.IsOscillatory ? DisplayUnits.Number(c.DampedFrequencyHz) : "overdamped",
+                    }, c.IsOscillatory ? DisplayUnits.Percent(c.DampingRatio) : "—"]),
                 new HashSet<int> { 0, 1, 2, 3 });
         html.Paragraph(string.Create(Inv,
             $"Quality: largest eigen residual ‖Kφ − ω²Mφ‖/‖Kφ‖ = {_result.Quality.MaxResidual:0.0e+00}; largest M-orthogonality error |ΦᵀMΦ − I| = {_result.Quality.MaxOrthogonalityError:0.0e+00}; solver: {_result.Algorithm}."),

@@ -71,3 +71,36 @@ public class StiffSpringCommandTests
         Assert.All(json.RootElement.GetProperty("modes").EnumerateArray(), m => Assert.False(m.GetProperty("rigid_body").GetBoolean()));
     }
 }
+
+/// <summary>
+/// A free two-mass group with a damper to ground (issue 12, item 7): its rigid-body roots are listed as such, never as
+/// an unstable or a 1e-7 Hz "mode".
+/// </summary>
+public class FreeGroupComplexModesCommandTests
+{
+    [Fact]
+    public void Modes_LabelsTheZeroRootAndTheRelaxationRoot()
+    {
+        // det(λ²M + λC + K) = λ(m1m2λ³ + c·m2λ² + k(m1+m2)λ + c·k) (derived by hand): one zero root, one real
+        // relaxation root and one oscillatory pair.
+        const string model = """
+            masses: {a: 2 kg, b: 3 kg}
+            springs:
+              k: {between: [a, b], stiffness: 300 N/m}
+            dampers:
+              c: {between: [ground, a], coefficient: 7 N*s/m}
+            """;
+        using var file = new CliRun.TempModel(model);
+        var outcome = CliRun.Run("modes", file.Path, "--format", "json");
+        Assert.True(outcome.ExitCode == 0, outcome.ToString());
+        using var json = JsonDocument.Parse(outcome.Stdout);
+        var roots = json.RootElement.GetProperty("complex_modes").EnumerateArray().ToArray();
+        Assert.Equal(["rigid-body", "rigid-body-relaxation", "elastic"], roots.Select(r => r.GetProperty("kind").GetString()));
+        Assert.All(roots, r => Assert.True(r.GetProperty("eigenvalue_real").GetDouble() <= 0));
+        Assert.True(roots[2].GetProperty("oscillatory").GetBoolean());
+
+        var table = CliRun.Run("modes", file.Path);
+        Assert.Contains("rigid body (zero root)", table.Stdout);
+        Assert.Contains("rigid-body relaxation", table.Stdout);
+    }
+}
