@@ -36,6 +36,7 @@ public static class ModesJson
     {
         var network = result.Network;
         var dofNames = result.Matrices.Dofs.Dofs.Select(d => d.ToString()).ToArray();
+        var massNames = network.Masses.Select(m => m.Name).ToArray();
         var springNames = network.Springs.Select(s => s.Name).ToArray();
 
         writer.WriteString("title", network.Title);
@@ -55,7 +56,7 @@ public static class ModesJson
             writer.Number("omega_rad_s", mode.AngularFrequency);
             writer.Number("period_s", mode.PeriodSeconds);
             writer.WriteBoolean("rigid_body", mode.IsRigidBody);
-            writer.Keyed("shape", dofNames, mode.Shape);
+            writer.Keyed("shape", massNames, result.ShapeByMass(mode));
             writer.Number("participation", mode.ParticipationFactor);
             writer.Number("effective_mass_kg", mode.EffectiveModalMass);
             writer.Number("effective_mass_fraction", mode.EffectiveMassFraction);

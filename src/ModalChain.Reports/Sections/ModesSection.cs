@@ -134,7 +134,8 @@ public sealed class ModesSection : IReportSection
 
     private SchematicFigure ModeFigure(Mode mode, NetworkLayout layout, double scale, bool animate)
     {
-        var (shape, reference) = Normalised(mode);
+        // The drawing has every mass; linked masses share their DOF's value.
+        var (shape, reference) = Normalised(mode with { Shape = _result.ShapeByMass(mode) });
         var referenceName = layout.Masses[reference].Name;
         var header = new[]
         {

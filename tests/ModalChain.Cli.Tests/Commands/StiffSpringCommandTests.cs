@@ -104,3 +104,44 @@ public class FreeGroupComplexModesCommandTests
         Assert.Contains("rigid-body relaxation", table.Stdout);
     }
 }
+
+/// <summary>A model with 'links:' end to end: one DOF for the linked masses, results reported at each of them.</summary>
+public class LinksCommandTests
+{
+    private const string Model = """
+        masses:
+          deck: 3200 kg
+          frame: 400 kg
+          skid: 850 kg
+        springs:
+          columns: {between: [ground, deck], stiffness: 95 kN/mm}
+          mounts:  {between: [deck, frame], stiffness: 8.4 kN/mm}
+        links:
+          bolted: [frame, skid]
+        damping: {modal: 2 %}
+        loads:
+          unbalance: {kind: force, at: skid, amplitude: 1 kN, speed: 1480 rpm}
+        harmonic:
+          frequencies: {from: 1 Hz, to: 60 Hz, points: 100}
+        """;
+
+    [Fact]
+    public void ModesAndHarmonic_ReportEveryLinkedMass()
+    {
+        using var file = new CliRun.TempModel(Model);
+        var modes = CliRun.Run("modes", file.Path, "--format", "json");
+        Assert.True(modes.ExitCode == 0, modes.ToString());
+        using var json = JsonDocument.Parse(modes.Stdout);
+        Assert.Equal(["deck", "frame+skid"], json.RootElement.GetProperty("dofs").EnumerateArray().Select(d => d.GetString()));
+        foreach (var mode in json.RootElement.GetProperty("modes").EnumerateArray())
+        {
+            var shape = mode.GetProperty("shape");
+            Assert.Equal(shape.GetProperty("frame").GetDouble(), shape.GetProperty("skid").GetDouble());
+        }
+
+        var harmonic = CliRun.Run("harmonic", file.Path);
+        Assert.True(harmonic.ExitCode == 0, harmonic.ToString());
+        Assert.Contains(" frame ", harmonic.Stdout);
+        Assert.Contains(" skid ", harmonic.Stdout);
+    }
+}
