@@ -25,7 +25,7 @@ internal sealed record ResolvedModes(double[] EigenValues, Matrix<double> Shapes
 /// <para>
 /// A backward-stable symmetric solve gives each ω² with an absolute error of about ε·λ_max (ε the unit round-off), so
 /// a relative error ε·λ_max/ω². When λ_max/ω²_min exceeds <see cref="SpreadNeedingFlexibility"/> (relative error
-/// above ~2e-11 for the lowest mode) the flexible modes are solved again from the flexibility
+/// above ~2e-9 for the lowest mode) the flexible modes are solved again from the flexibility
 /// (<see cref="FlexibilityEigen"/>), whose error is relative to the largest flexibility, 1/ω²_min; modes with
 /// ω² ≤ √(ω²_min·λ_max) are taken from that solve, the higher ones from the direct solve, so every mode carries an
 /// error of at most about ε·√(λ_max/ω²_min) before the Rayleigh quotient, and second order in it after.
@@ -34,7 +34,7 @@ internal sealed record ResolvedModes(double[] EigenValues, Matrix<double> Shapes
 internal static class ModeResolution
 {
     /// <summary>Above this λ_max/ω²_min the low flexible modes are recomputed from the flexibility.</summary>
-    public const double SpreadNeedingFlexibility = 1e5;
+    public const double SpreadNeedingFlexibility = 1e7;
 
     /// <summary>Largest model solved densely a second time from its flexibility.</summary>
     public const int MaxFlexibilitySize = 2000;
