@@ -88,6 +88,8 @@ internal static class ModeResolution
                     $"The stiffness spread λ_max/ω²_min ≈ {spread:0.#e+0} leaves the lowest frequencies with a relative error up to about {2.2e-16 * spread:0.#e+0}; the model has {n} DOFs, more than the {MaxFlexibilitySize} the flexibility solve takes."));
             }
         }
+        // Only possible without the flexibility solve (too large a model): round-off below zero is no frequency.
+        for (var j = rigidCount; j < count; j++) values[j] = Math.Max(values[j], 0);
         var ratioWarning = Topology.StiffnessRatioWarning(network);
         if (ratioWarning is not null) warnings.Add(ratioWarning);
 
