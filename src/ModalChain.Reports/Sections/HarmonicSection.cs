@@ -236,6 +236,8 @@ public sealed class HarmonicSection : IReportSection
         });
         var caption = string.Create(Inv,
             $"{word} amplitude (peak, log scale) and phase of {response.Dof} over the sweep; natural frequencies dashed grey, running speeds dash-dot orange, the largest value marked with a diamond.");
+        if (curveTop > 0)
+            caption += $" Dashed steps: floor curve {string.Join(", ", _context.Document.Criteria.Floors.Where(c => c.At.Contains(response.Dof)).Select(c => c.Curve.Name))} per one-third-octave band, drawn as the peak of one sinusoid whose r.m.s. value is the band limit (√2 × limit); the check itself is made at the running speeds, band by band.";
         return new ChartFigure(FigureName(response.Dof, quantity), caption, model, height: 440);
     }
 
