@@ -2,6 +2,7 @@ using System.CommandLine;
 using ModalChain.Cli.Formatting;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
+using ModalChain.Core.Units;
 using ModalChain.Io.Csv;
 using ModalChain.Io.Json;
 
@@ -29,16 +30,34 @@ internal static class ModesCommand
                 return null;
             },
         };
+        var below = new Option<string?>("--below")
+        {
+            Description = "Report every mode with a natural frequency below this frequency, e.g. \"40 Hz\" or \"1500 rpm\" " +
+                "(with --count, at most the lowest N of them). Large sparse models are solved for these modes only, " +
+                "with a count proving none was missed.",
+            HelpName = "FREQUENCY",
+        };
         var command = new Command("modes",
             "Natural frequencies, periods, mass-normalised mode shapes, participation factors and effective modal masses " +
             "of the undamped network, with quality figures (eigen residual, M-orthogonality).\n\n" + CliApp.CautionHelp)
-        { file, count, format };
+        { file, count, below, format };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            var result = ModalAnalysis.Solve(document.Network, new ModalOptions(parse.GetValue(count)));
+            double? belowHz = null;
+            if (parse.GetValue(below) is { } belowText)
+            {
+                var parsed = QuantityParser.Parse(belowText, Quantity.Frequency);
+                if (!parsed.Succeeded || !(parsed.Value > 0) || !double.IsFinite(parsed.Value))
+                {
+                    io.Error.WriteLine($"modalchain: error: --below '{belowText}': {parsed.Error ?? "must be a positive frequency"}");
+                    return ExitCodes.InputError;
+                }
+                belowHz = parsed.Value;
+            }
+            var result = ModalAnalysis.Solve(document.Network, new ModalOptions(parse.GetValue(count), BelowFrequencyHz: belowHz));
             var damped = DampedSystem.Build(document.Structure);
             var complexModes = damped.IsClassical ? [] : ComplexModes.Solve(damped);
             switch (parse.GetValue(format))

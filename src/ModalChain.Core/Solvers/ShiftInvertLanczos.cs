@@ -224,12 +224,7 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
     private static double[] Combine(double[][] basis, Matrix<double> s, int column, int m, int n)
     {
         var y = new double[n];
-        for (var i = 0; i < m; i++)
-        {
-            var c = s[i, column];
-            var v = basis[i];
-            for (var r = 0; r < n; r++) y[r] += c * v[r];
-        }
+        for (var i = 0; i < m; i++) Axpy(s[i, column], basis[i], y);
         return y;
     }
 
@@ -273,14 +268,24 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
 
     private static double DotPlain(double[] x, double[] y)
     {
-        var sum = 0.0;
-        for (var i = 0; i < x.Length; i++) sum += x[i] * y[i];
+        var width = System.Numerics.Vector<double>.Count;
+        var sums = System.Numerics.Vector<double>.Zero;
+        var i = 0;
+        for (; i <= x.Length - width; i += width)
+            sums += new System.Numerics.Vector<double>(x, i) * new System.Numerics.Vector<double>(y, i);
+        var sum = System.Numerics.Vector.Sum(sums);
+        for (; i < x.Length; i++) sum += x[i] * y[i];
         return sum;
     }
 
     private static void Axpy(double a, double[] x, double[] y)
     {
-        for (var i = 0; i < x.Length; i++) y[i] += a * x[i];
+        var width = System.Numerics.Vector<double>.Count;
+        var av = new System.Numerics.Vector<double>(a);
+        var i = 0;
+        for (; i <= x.Length - width; i += width)
+            (new System.Numerics.Vector<double>(y, i) + av * new System.Numerics.Vector<double>(x, i)).CopyTo(y, i);
+        for (; i < x.Length; i++) y[i] += a * x[i];
     }
 
     private static void Scale(double[] x, double a)

@@ -9,7 +9,8 @@ namespace ModalChain.Core.Analyses.Modal;
 /// <summary>Options of a modal analysis.</summary>
 /// <param name="Count">How many of the lowest modes to compute; null for all.</param>
 /// <param name="Solver">A specific eigen algorithm, or null to let <see cref="GeneralizedEigen"/> choose.</param>
-public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? Solver = null);
+/// <param name="BelowFrequencyHz">Only the modes with natural frequency below this (Hz), all of them (up to <paramref name="Count"/>); null for no limit.</param>
+public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? Solver = null, double? BelowFrequencyHz = null);
 
 /// <summary>Undamped natural frequencies, mode shapes and their participation, energy shares and quality figures.</summary>
 /// <remarks>
@@ -32,9 +33,11 @@ public static class ModalAnalysis
         ArgumentNullException.ThrowIfNull(network);
         ArgumentNullException.ThrowIfNull(matrices);
         options ??= new ModalOptions();
+        if (options.BelowFrequencyHz is { } belowHz) Guard.Positive(belowHz, nameof(options.BelowFrequencyHz));
         if (matrices.Size == 0) throw new ArgumentException("The network has no masses.", nameof(network));
 
-        var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver);
+        double? limit = options.BelowFrequencyHz is { } below ? Math.Pow(2 * Math.PI * below, 2) : null;
+        var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver, limit);
         var m = matrices.Mass;
         var k = matrices.Stiffness;
         var iota = matrices.Influence;

@@ -1,0 +1,67 @@
+using System.Diagnostics;
+using System.Globalization;
+using MathNet.Numerics.LinearAlgebra;
+using ModalChain.Core.Solvers;
+
+namespace ModalChain.Benchmarks;
+
+/// <summary>
+/// Stopwatch stages of the sparse eigen solve on a fixed-edge grid, too large for BenchmarkDotNet's repetitions:
+/// <c>dotnet run -c Release --project tests/ModalChain.Benchmarks -- --sparse-stages ROWS COLUMNS MODES [--old-ordering]</c>.
+/// </summary>
+public static class SparseEigenStages
+{
+    public static void Run(int rows, int columns, int modes, bool oldOrdering)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        var total = Stopwatch.StartNew();
+        var watch = Stopwatch.StartNew();
+        var (k, m) = GridMatrices(rows, columns, 45.0, 1.2e7);
+        Report("matrices (Math.NET sparse)", watch);
+
+        var ks = SymmetricSparseMatrix.From(k);
+        var ms = SymmetricSparseMatrix.From(m);
+        Report("copy to SymmetricSparseMatrix", watch);
+
+        var pattern = SparseLdltPattern.Analyse(ks, ms);
+        Report(string.Create(inv, $"AMD ordering + symbolic: {pattern.FactorNonZeros:N0} entries in L"), watch);
+
+        var factor = SparseLdlt.Factor(pattern, ks, 1.0, ms);
+        Report("one numeric LDLᵀ", watch);
+
+        var solution = new ShiftInvertLanczos().Solve(k, m, modes, massIsDiagonal: true);
+        Report(string.Create(inv, $"ShiftInvertLanczos.Solve, lowest {modes} (own ordering, 2 factorisations, Lanczos, Sturm check)"), watch);
+        Console.WriteLine(string.Create(inv, $"  λ1 = {solution.EigenValues[0]:G10}, λ{modes} = {solution.EigenValues[^1]:G10} rad²/s²"));
+
+        if (oldOrdering)
+        {
+            var old = SparseCholesky.Factor(SymmetricSparseMatrix.Combine((1.0, k), (1.0, m)));
+            Report(string.Create(inv, $"old SparseCholesky (exact minimum degree): {old.FactorNonZeros:N0} entries in L"), watch);
+        }
+        Console.WriteLine(string.Create(inv, $"total {total.Elapsed.TotalSeconds:F2} s, peak working set {Process.GetCurrentProcess().PeakWorkingSet64 / 1048576.0:F0} MB"));
+    }
+
+    private static void Report(string stage, Stopwatch watch)
+    {
+        Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"{watch.Elapsed.TotalSeconds,8:F3} s  {stage}"));
+        watch.Restart();
+    }
+
+    /// <summary>K (N/m) and M (kg) of a rows × columns grid of masses m joined by springs k, fixed at every edge.</summary>
+    public static (Matrix<double> K, Matrix<double> M) GridMatrices(int rows, int columns, double mass, double stiffness)
+    {
+        var n = rows * columns;
+        var entries = new List<(int, int, double)>(5 * n);
+        for (var r = 0; r < rows; r++)
+            for (var c = 0; c < columns; c++)
+            {
+                var i = r * columns + c;
+                entries.Add((i, i, 4 * stiffness));
+                if (c + 1 < columns) { entries.Add((i, i + 1, -stiffness)); entries.Add((i + 1, i, -stiffness)); }
+                if (r + 1 < rows) { entries.Add((i, i + columns, -stiffness)); entries.Add((i + columns, i, -stiffness)); }
+            }
+        var k = Matrix<double>.Build.SparseOfIndexed(n, n, entries);
+        var m = Matrix<double>.Build.SparseDiagonal(n, mass);
+        return (k, m);
+    }
+}
