@@ -10,4 +10,9 @@ if (args.Length >= 4 && args[0] == "--sparse-stages")
     SparseEigenStages.Run(Whole(args[1]), Whole(args[2]), Whole(args[3]), args.Contains("--old-ordering"));
     return;
 }
+if (args.Length >= 1 && args[0] == "--cholesky-stages")
+{
+    SparseEigenStages.Cholesky();
+    return;
+}
 BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
