@@ -7,7 +7,7 @@ using ModalChain.Benchmarks;
 if (args.Length >= 4 && args[0] == "--sparse-stages")
 {
     static int Whole(string s) => int.Parse(s, CultureInfo.InvariantCulture);
-    SparseEigenStages.Run(Whole(args[1]), Whole(args[2]), Whole(args[3]), args.Contains("--old-ordering"));
+    SparseEigenStages.Run(Whole(args[1]), Whole(args[2]), Whole(args[3]));
     return;
 }
 if (args.Length >= 1 && args[0] == "--cholesky-stages")

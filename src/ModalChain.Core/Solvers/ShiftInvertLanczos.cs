@@ -97,7 +97,7 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
             var expected = SturmSequence.CountBelow(problem.Pattern, problem.K, problem.M, tau);
             var foundBelow = found.Count(f => f.Lambda < tau);
             if (expected == foundBelow && found.Count >= count)
-                return new Outcome(found.Take(count).ToList(), tau, expected, pass);
+                return new Outcome(found.Take(count).ToList(), tau, expected, foundBelow, pass);
             if (expected < foundBelow)
                 throw new NumericalFailureException(
                     $"Lanczos found {foundBelow} eigenvalues below {tau:G6} rad²/s² but the Sturm count of K − τM says {expected}.");
@@ -358,8 +358,8 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
         }
     }
 
-    /// <summary>The pairs found (ascending), the Sturm shift τ, its count and the number of Lanczos passes it took.</summary>
-    internal sealed record Outcome(List<(double Lambda, double[] Shape, double Residual)> Pairs, double CheckShift, int SturmCount, int Passes)
+    /// <summary>The pairs returned (ascending), the Sturm shift τ, its count, the pairs found below τ and the number of Lanczos passes it took.</summary>
+    internal sealed record Outcome(List<(double Lambda, double[] Shape, double Residual)> Pairs, double CheckShift, int SturmCount, int FoundBelowShift, int Passes)
     {
         public ImmutableArray<double> EigenValues => [.. Pairs.Select(p => p.Lambda)];
 
