@@ -34,6 +34,7 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
     private const double ClusterWidth = 1e-8;
     private const double RigidBodyTolerance = 1e-10;
     private const int MaxPasses = 6;
+    private const int PassSize = 120;   // most pairs one pass looks for; more come in further, deflated passes
     private const int MaxRestarts = 400;
 
     /// <inheritdoc />
@@ -76,9 +77,11 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
 
         var found = new List<(double Lambda, double[] Shape, double Residual)>();
         var skipsLeft = InjectedSkips;
-        var target = Math.Min(n, eigenvalueLimit is null ? count + 1 : count);
+        var extra = eigenvalueLimit is null ? 1 : 0;   // one pair beyond the wanted, to place τ in the gap above them
+        var target = Math.Min(Math.Min(n, count + extra), PassSize);
         var seed = 20001;
-        for (var pass = 1; pass <= MaxPasses; pass++)
+        var passes = MaxPasses + 2 * ((count + PassSize - 1) / PassSize);
+        for (var pass = 1; pass <= passes; pass++)
         {
             var locked = found.Select(f => f.Shape).ToList();
             found.AddRange(RunPass(problem, factor, sigma, target, locked, seed++));
@@ -89,11 +92,15 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
                 found.RemoveAt(Math.Min(found.Count - 1, count / 2));
             }
 
-            double tau;
-            if (eigenvalueLimit is { } limit) tau = limit;
-            else if (found.Count < count) { target = count - found.Count + 1; continue; }
-            else tau = CheckShift(found, count, problem.Scale);
+            // Not yet as many pairs as wanted: go on with the next ones (deflated), in passes of at most PassSize.
+            var have = eigenvalueLimit is { } l ? found.Count(f => f.Lambda < l) : found.Count;
+            if (have < count + (eigenvalueLimit is null && found.Count < n ? extra : 0) && found.Count < n)
+            {
+                target = Math.Min(Math.Min(n - found.Count, count + extra - have), PassSize);
+                continue;
+            }
 
+            var tau = eigenvalueLimit ?? CheckShift(found, count, problem.Scale);
             var expected = SturmSequence.CountBelow(problem.Pattern, problem.K, problem.M, tau);
             var foundBelow = found.Count(f => f.Lambda < tau);
             if (expected == foundBelow && found.Count >= count)
@@ -101,12 +108,12 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
             if (expected < foundBelow)
                 throw new NumericalFailureException(
                     $"Lanczos found {foundBelow} eigenvalues below {tau:G6} rad²/s² but the Sturm count of K − τM says {expected}.");
-            target = Math.Min(n - found.Count, Math.Max(expected - foundBelow, count - found.Count) + (eigenvalueLimit is null ? 1 : 0));
+            target = Math.Min(Math.Min(n - found.Count, Math.Max(expected - foundBelow, count - found.Count) + extra), PassSize);
             if (target <= 0)
                 throw new NumericalFailureException($"The Sturm count at {tau:G6} rad²/s² is {expected} but every one of the {n} vectors is already found.");
         }
         throw new NumericalFailureException(
-            $"Lanczos did not find every mode: after {MaxPasses} passes the Sturm count still disagrees with the {found.Count} pairs found.");
+            $"Lanczos did not find every mode: after {passes} passes ({found.Count} pairs found) the Sturm count could not confirm the lowest {count}.");
     }
 
     /// <summary>A τ above the cluster of the count-th eigenvalue and below the next distinct one found.</summary>

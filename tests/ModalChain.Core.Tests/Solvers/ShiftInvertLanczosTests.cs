@@ -59,6 +59,21 @@ public class ShiftInvertLanczosTests
         AssertSameSubspaces(dense, new EigenSolution(outcome.EigenValues, outcome.Shapes, "lanczos"), matrices.Mass, 1e-7);
     }
 
+    [Theory]
+    [InlineData(30, 30)]     // every mode: the Krylov space fills the whole space
+    [InlineData(30, 29)]
+    [InlineData(300, 125)]   // more modes than one pass looks for: found in further, deflated passes
+    public void ManyModes_MatchTheClosedForm(int n, int count)
+    {
+        // Fixed–fixed chain, ω_j = 2√(k/m) sin(jπ/(2(n+1))) (REFERENCES §2, common practice).
+        const double m = 2.0, k = 8.0e4;
+        var matrices = Assembler.Assemble(TestNetworks.UniformChain(n, m, k, ChainEnds.FixedFixed));
+        var solution = Solver.Solve(matrices.Stiffness, matrices.Mass, count, massIsDiagonal: true);
+        var exact = Enumerable.Range(1, count).Select(j => Math.Pow(2 * Math.Sqrt(k / m) * Math.Sin(j * Math.PI / (2 * (n + 1))), 2)).ToArray();
+        NumericAssert.Close(exact, solution.EigenValues, Tolerance.Rel(1e-9), "λ");
+        AssertMassOrthonormal(solution, matrices.Mass, 1e-9);
+    }
+
     [Fact]
     public void SkippedMode_IsCaughtByTheSturmCountAndFoundAgain()
     {
