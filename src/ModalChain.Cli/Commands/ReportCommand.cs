@@ -33,13 +33,16 @@ internal static class ReportCommand
             "network drawing, modes table, one figure per mode shape, the tuned absorber with --absorber-host and --mass-ratio, caution and traceability to the model file), each figure " +
             "as its own SVG (and PDF with --format pdf), and results.json with every number behind the report (SI).")
         { file, output, format, units, modes, absorberHost, massRatio, absorberMode, absorberMethod };
+        var solver = CommonOptions.Solver();
+        command.Add(solver);
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
             var directory = parse.GetValue(output)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            var options = new ReportOptions(CliApp.Version, DateTimeOffset.UtcNow, parse.GetValue(units), parse.GetValue(modes) ?? 20);
+            if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
+            var options = new ReportOptions(CliApp.Version, DateTimeOffset.UtcNow, parse.GetValue(units), parse.GetValue(modes) ?? 20) { Solver = choice };
             var hostName = parse.GetValue(absorberHost);
             var ratioText = parse.GetValue(massRatio);
             if (hostName is null != ratioText is null)
@@ -49,7 +52,7 @@ internal static class ReportCommand
             }
             if (hostName is not null && ratioText is not null)
             {
-                var request = AbsorberArguments.Request(ModalAnalysis.Solve(document.Network), hostName, ratioText, parse.GetValue(absorberMode),
+                var request = AbsorberArguments.Request(ModalAnalysis.Solve(document.Network, new ModalOptions(Choice: choice)), hostName, ratioText, parse.GetValue(absorberMode),
                     OperatingLoads.AbsorberExcitations(document), AbsorberTarget.Force, io);
                 if (request is null) return ExitCodes.InputError;
                 options = options with { Absorber = new AbsorberReportRequest(request, AbsorberArguments.IsOptimal(parse.GetValue(absorberMethod))) };

@@ -55,9 +55,7 @@ internal static class TuneCommand
             }
             if (parse.GetValue(format) == OutputFormat.Json)
             {
-                using var stdout = new MemoryStream();
-                TuneJson.Write(stdout, document, design, tuned.Method, assessment, improvement, CliApp.Version);
-                io.Output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
+                io.WriteJson(stream => TuneJson.Write(stream, document, design, tuned.Method, assessment, improvement, CliApp.Version));
             }
             else WriteTable(io.Output, document, design, request, assessment, improvement);
             return ExitCodes.Success;

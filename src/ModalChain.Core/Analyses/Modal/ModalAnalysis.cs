@@ -9,8 +9,10 @@ namespace ModalChain.Core.Analyses.Modal;
 /// <summary>Options of a modal analysis.</summary>
 /// <param name="Count">How many of the lowest modes to compute; null for all.</param>
 /// <param name="Solver">A specific eigen algorithm, or null to let <see cref="GeneralizedEigen"/> choose.</param>
+/// <param name="Choice">What <see cref="GeneralizedEigen"/> chooses from when <paramref name="Solver"/> is null.</param>
 /// <param name="BelowFrequencyHz">Only the modes with natural frequency below this (Hz), all of them (up to <paramref name="Count"/>); null for no limit.</param>
-public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? Solver = null, double? BelowFrequencyHz = null);
+public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? Solver = null, SolverChoice Choice = SolverChoice.Auto,
+    double? BelowFrequencyHz = null);
 
 /// <summary>Undamped natural frequencies, mode shapes and their participation, energy shares and quality figures.</summary>
 /// <remarks>
@@ -37,7 +39,7 @@ public static class ModalAnalysis
         if (matrices.Size == 0) throw new ArgumentException("The network has no masses.", nameof(network));
 
         double? limit = options.BelowFrequencyHz is { } below ? Math.Pow(2 * Math.PI * below, 2) : null;
-        var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver, limit);
+        var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver, options.Choice, limit);
         var m = matrices.Mass;
         var k = matrices.Stiffness;
         var iota = matrices.Influence;
@@ -89,7 +91,7 @@ public static class ModalAnalysis
                 Residual: residual));
         }
 
-        var quality = new ModalQuality(maxResidual, OrthogonalityError(solution.Shapes, m));
+        var quality = new ModalQuality(maxResidual, ModeChecks.OrthogonalityError(solution.Shapes, m, matrices.MassIsDiagonal));
         return new ModalResult(network, matrices, modes.MoveToImmutable(), totalMass, quality, solution.Algorithm);
     }
 
@@ -118,15 +120,5 @@ public static class ModalAnalysis
         }).ToArray();
         var sum = energies.Sum();
         return [.. energies.Select(e => sum > 0 ? e / sum : 0)];
-    }
-
-    private static double OrthogonalityError(Matrix<double> shapes, Matrix<double> m)
-    {
-        var g = shapes.TransposeThisAndMultiply(m * shapes);
-        var worst = 0.0;
-        for (var i = 0; i < g.RowCount; i++)
-            for (var j = 0; j < g.ColumnCount; j++)
-                worst = Math.Max(worst, Math.Abs(g[i, j] - (i == j ? 1 : 0)));
-        return worst;
     }
 }
