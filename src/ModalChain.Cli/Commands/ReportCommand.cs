@@ -39,10 +39,16 @@ internal static class ReportCommand
         {
             var path = parse.GetValue(file)!;
             var directory = parse.GetValue(output)!;
+            if (string.IsNullOrWhiteSpace(directory) || directory.Contains('\0'))
+            {
+                io.Error.WriteLine($"modalchain: error: --output must name a folder{(directory.Contains('\0') ? " (the name given holds a NUL character)" : " (the name given is empty)")}; give the folder to write the report into.");
+                return ExitCodes.InputError;
+            }
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
             if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
-            var options = new ReportOptions(CliApp.Version, DateTimeOffset.UtcNow, parse.GetValue(units), parse.GetValue(modes) ?? 20) { Solver = choice };
+            if (!Generated(io, out var generated)) return ExitCodes.InputError;
+            var options = new ReportOptions(CliApp.Version, generated, parse.GetValue(units), parse.GetValue(modes) ?? 20) { Solver = choice };
             var hostName = parse.GetValue(absorberHost);
             var ratioText = parse.GetValue(massRatio);
             if (hostName is null != ratioText is null)
@@ -71,5 +77,21 @@ internal static class ReportCommand
             return ExitCodes.Success;
         });
         return command;
+    }
+
+    /// <summary>The date printed on the report: now, or SOURCE_DATE_EPOCH (whole seconds since 1970 UTC) when set, so a report can be reproduced byte for byte.</summary>
+    private static bool Generated(Streams io, out DateTimeOffset generated)
+    {
+        generated = DateTimeOffset.UtcNow;
+        var epoch = Environment.GetEnvironmentVariable("SOURCE_DATE_EPOCH");
+        if (string.IsNullOrEmpty(epoch)) return true;
+        if (long.TryParse(epoch, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out var seconds)
+            && seconds <= DateTimeOffset.MaxValue.ToUnixTimeSeconds())
+        {
+            generated = DateTimeOffset.FromUnixTimeSeconds(seconds);
+            return true;
+        }
+        io.Error.WriteLine($"modalchain: error: SOURCE_DATE_EPOCH '{epoch}' is not a whole number of seconds since 1970-01-01 UTC; unset it or correct it.");
+        return false;
     }
 }
