@@ -18,6 +18,13 @@ internal static class StudyCommand
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
+    // The same limit as a parameter study's steps (StudyRequest.Problems): the chart is drawn from these points, and
+    // --steps 100000000 ran for minutes.
+    private const int MaxSpeedSteps = 100_000;
+
+    // The highest running speed a model file accepts (6,000,000 rpm); --to 1e308 Hz printed Infinity for the crossings.
+    private const double MaxSpeedHz = 1e5;
+
     public static Command Create(Streams io)
     {
         var file = CommonOptions.ModelFile();
@@ -150,14 +157,14 @@ internal static class StudyCommand
         var a = CommandValue.Parse(fromText, Quantity.Frequency, "--from", io);
         var b = CommandValue.Parse(toText, Quantity.Frequency, "--to", io);
         if (a is null || b is null) return ExitCodes.InputError;
-        if (a.Value.Si < 0 || !(b.Value.Si > a.Value.Si))
+        if (a.Value.Si < 0 || !(b.Value.Si > a.Value.Si) || b.Value.Si > MaxSpeedHz)
         {
-            io.Error.WriteLine("modalchain: error: the speed range needs 0 <= --from < --to");
+            io.Error.WriteLine(string.Create(Inv, $"modalchain: error: the speed range needs 0 <= --from < --to <= {MaxSpeedHz} Hz"));
             return ExitCodes.InputError;
         }
-        if (points < 2)
+        if (points < 2 || points > MaxSpeedSteps)
         {
-            io.Error.WriteLine($"modalchain: error: --steps must be at least 2 (got {points})");
+            io.Error.WriteLine(string.Create(Inv, $"modalchain: error: --steps must be from 2 to {MaxSpeedSteps} (got {points})"));
             return ExitCodes.InputError;
         }
         var orders = new List<double>();
