@@ -30,6 +30,8 @@ internal static class KnownIssues
     [
         new("12.5 (h-io)", "a FIFO given as the model or as a table file blocks the read: a hang",
             (c, o) => o.Hung && c.Special is SpecialFile.Fifo or SpecialFile.TableFifo),
+        new("12.8 (h-cli)", "check prints 'Infinity' or 'NaN' as a reserve or ratio",
+            (c, o) => c.Command == "check" && o.Problems.All(p => p.Contains("printed as a result", StringComparison.Ordinal))),
     ];
 
     public static KnownIssue? Tolerating(GuardCase c, CaseOutcome o) => All.FirstOrDefault(k => k.Matches(c, o));

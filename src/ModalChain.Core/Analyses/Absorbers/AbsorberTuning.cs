@@ -105,6 +105,10 @@ public static class AbsorberTuning
             problems.Add($"mode {mode.Number} is a rigid-body mode (0 Hz); an absorber cannot be tuned to it");
         else if (Math.Abs(mode.Shape[host]) < 1e-9 * mode.Shape.Max(Math.Abs))
             problems.Add($"'{request.Host}' does not move in mode {mode.Number} (it sits at a node of the mode shape); hang the absorber where the mode moves");
+        else if (request.MassRatio * mode.ModalMassAt(host) is var absorberMass && absorberMass > modal.Network.TotalMass)
+            // Near a node the modal mass at the host (1/φ²) grows without bound; such an absorber outweighs the whole
+            // structure, and tune --write wrote a model that no longer read (a 2e14 kg absorber).
+            problems.Add(string.Create(inv, $"'{request.Host}' hardly moves in mode {mode.Number}: its modal mass there is {mode.ModalMassAt(host):G4} kg, so the absorber would weigh {absorberMass:G4} kg, more than the whole model ({modal.Network.TotalMass:G4} kg); hang the absorber where the mode moves"));
         return problems.ToImmutable();
     }
 
