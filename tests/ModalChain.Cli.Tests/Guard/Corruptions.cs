@@ -195,9 +195,21 @@ internal static partial class Corruptions
         file.Applied.Add(new("extreme number", $"'{m.Value}' at offset {m.Index} -> '{number}'"));
     }
 
+    /// <summary>YAML escapes of characters a file cannot hold raw, for a double-quoted title.</summary>
+    private static readonly string[] EscapedControls = [@"\x1b[31m", @"\0", @"\uFFFE", @"\uFFFF", @"\u202E", @"\x07", @"\e", @"\N", @"\L", @"\P", @"\x7f", @"\b", @"\uD800"];
+
     public static void ControlCharacter(MutatedFile file, Random random)
     {
         var text = file.Text;
+        var title = TitleRegex().Match(text);
+        if (title.Success && random.Next(3) == 0)
+        {
+            // A double-quoted title reaches characters YAML refuses raw (ESC, NUL, U+FFFE) into every output.
+            var escape = EscapedControls[random.Next(EscapedControls.Length)];
+            file.Text = text[..title.Index] + $"title: \"Deck {escape} end\"" + text[(title.Index + title.Length)..];
+            file.Applied.Add(new("control character", $"title with the escape '{escape}'"));
+            return;
+        }
         var c = ControlCharacters[random.Next(ControlCharacters.Length)];
         int at;
         var titleAt = text.IndexOf("title:", StringComparison.Ordinal);
