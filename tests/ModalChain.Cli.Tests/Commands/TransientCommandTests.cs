@@ -103,10 +103,10 @@ public sealed class TransientCommandTests : IDisposable
     }
 
     [Theory]
-    [InlineData("--step", "-1 ms", "positive time")]
+    [InlineData("--step", "-1 ms", "must be positive (a time)")]
     [InlineData("--step", "20 s", "longer than the duration")]
     [InlineData("--step", "1 kg", "--step")]
-    [InlineData("--method", "euler", "--method is 'euler'")]
+    [InlineData("--method", "euler", "--method 'euler' is not one of newmark, hht, exact, modal")]
     [InlineData("--output", "nobody", "'nobody'")]
     public void BadOptions_ExitWithInputError(string option, string value, string message)
     {

@@ -33,8 +33,6 @@ internal static class KnownIssues
         new("12.4 (h-out)", "report exits 4 on a title with control characters (ESC, NUL, U+FFFE...) or on -o \"\"",
             (c, o) => c.Command == "report" && o.ExitCode == 4 && o.Problems.All(p => p.StartsWith("exit code 4", StringComparison.Ordinal) || p.StartsWith("the word 'Exception'", StringComparison.Ordinal))
                 && (c.Options.Contains("") || c.File.Applied.Any(a => a.Kind == "control character"))),
-        new("12.8 (h-cli)", "check prints 'Infinity' or 'NaN' as a reserve or ratio",
-            (c, o) => c.Command == "check" && o.Problems.All(p => p.Contains("printed as a result", StringComparison.Ordinal))),
     ];
 
     public static KnownIssue? Tolerating(GuardCase c, CaseOutcome o) => All.FirstOrDefault(k => k.Matches(c, o));
