@@ -24,6 +24,10 @@ internal sealed partial class GuardRunner(string root, TimeSpan budget)
     [DllImport("libc", EntryPoint = "mkfifo", SetLastError = true)]
     private static extern int MakeFifo(string path, uint mode);
 
+    // A .NET stack frame ("   at ModalChain.Core.X.Y(Double z)"), not a table's "   at [s]" column.
+    [GeneratedRegex(@"(?m)^\s+at [\w.`<>\[\],]+\(")]
+    private static partial Regex StackFrame();
+
     [GeneratedRegex(@"(?<![\w-])(NaN|-?Infinity|∞)(?![\w-])")]
     private static partial Regex NotANumber();
 
@@ -156,7 +160,7 @@ internal sealed partial class GuardRunner(string root, TimeSpan budget)
         if (o.ExitCode is < 0 or > 3) o.Problems.Add($"exit code {o.ExitCode} (only 0, 1, 2 or 3 are allowed)");
         foreach (var (name, text) in new[] { ("stdout", o.Stdout), ("stderr", o.Stderr) })
         {
-            if (text.Contains("   at ", StringComparison.Ordinal)) o.Problems.Add($"a stack trace frame ('   at ') on {name}");
+            if (StackFrame().IsMatch(text)) o.Problems.Add($"a stack trace frame ('   at Type.Method(') on {name}");
             if (text.Contains("Exception", StringComparison.Ordinal)) o.Problems.Add($"the word 'Exception' on {name}");
         }
         var source = System.Text.Encoding.UTF8.GetString(c.File.Bytes);
