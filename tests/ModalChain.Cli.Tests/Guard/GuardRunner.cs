@@ -172,6 +172,8 @@ internal sealed partial class GuardRunner(string root, TimeSpan budget)
         foreach (var leftover in Directory.EnumerateFileSystemEntries(dir, "*", SearchOption.AllDirectories))
         {
             var name = Path.GetFileName(leftover);
+            // The marker a complete report folder carries (written last) is part of the report, not a leftover.
+            if (name == Reports.Writing.ReportWriter.MarkerFile && Path.GetFileName(Path.GetDirectoryName(leftover)) == "report") continue;
             if (name.StartsWith('.') || name.Contains("partial", StringComparison.OrdinalIgnoreCase) || name.EndsWith(".tmp", StringComparison.OrdinalIgnoreCase))
                 o.Problems.Add($"a temporary file left behind: {Path.GetRelativePath(dir, leftover)}");
         }
@@ -188,6 +190,8 @@ internal sealed partial class GuardRunner(string root, TimeSpan budget)
     private static void CheckReport(string report, GuardCase c, CaseOutcome o)
     {
         if (o.ExitCode != 0) o.Problems.Add($"exit {o.ExitCode}, but a report folder was written");
+        if (!File.Exists(Path.Combine(report, Reports.Writing.ReportWriter.MarkerFile)))
+            o.Problems.Add($"report folder without its completion marker {Reports.Writing.ReportWriter.MarkerFile}");
         var json = Path.Combine(report, "results.json");
         if (!File.Exists(json))
         {

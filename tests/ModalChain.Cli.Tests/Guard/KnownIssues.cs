@@ -30,9 +30,6 @@ internal static class KnownIssues
     [
         new("12.5 (h-io)", "a FIFO given as the model or as a table file blocks the read: a hang",
             (c, o) => o.Hung && c.Special is SpecialFile.Fifo or SpecialFile.TableFifo),
-        new("12.4 (h-out)", "report exits 4 on a title with control characters (ESC, NUL, U+FFFE...) or on -o \"\"",
-            (c, o) => c.Command == "report" && o.ExitCode == 4 && o.Problems.All(p => p.StartsWith("exit code 4", StringComparison.Ordinal) || p.StartsWith("the word 'Exception'", StringComparison.Ordinal))
-                && (c.Options.Contains("") || c.File.Applied.Any(a => a.Kind == "control character"))),
     ];
 
     public static KnownIssue? Tolerating(GuardCase c, CaseOutcome o) => All.FirstOrDefault(k => k.Matches(c, o));
