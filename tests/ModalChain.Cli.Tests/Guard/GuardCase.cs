@@ -131,7 +131,7 @@ internal sealed class GuardCase
             < 760 => ("harmonic", Harmonic(random, format)),
             < 860 => ("transient", Transient(random, format)),
             < 940 => ("tune", Tune(random, host)),
-            < 994 => ("study", Study(model, random, format)),
+            < 996 => ("study", Study(model, random, format)),
             _ => ("report", ["-o", random.Next(10) == 0 ? "" : "{dir}/report", "--format", Pick(random, "html", "html", "svg", "pdf")]),
         };
         return (command, options);
