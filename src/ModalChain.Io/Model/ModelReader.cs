@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Security.Cryptography;
 using System.Text;
 using ModalChain.Io.Diagnostics;
+using ModalChain.Io.Files;
 using ModalChain.Io.Yaml;
 
 namespace ModalChain.Io.Model;
@@ -20,13 +21,8 @@ public static partial class ModelReader
     public static LoadResult ReadFile(string path)
     {
         ArgumentNullException.ThrowIfNull(path);
-        byte[] bytes;
-        try { bytes = File.ReadAllBytes(path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
-        {
-            var reason = e is FileNotFoundException or DirectoryNotFoundException ? "file not found" : "cannot read the file: " + e.Message;
-            return new LoadResult(null, [new Diagnostic(Severity.Error, path, new SourcePosition(1, 1), reason)]);
-        }
+        if (InputFile.ReadAllBytes(path, InputFile.MaximumModelBytes, "model file", out var error) is not { } bytes)
+            return new LoadResult(null, [new Diagnostic(Severity.Error, path, new SourcePosition(1, 1), error!)]);
         return Read(bytes, path);
     }
 
@@ -79,6 +75,8 @@ public static partial class ModelReader
     {
         if (bytes is [0xFF, 0xFE, ..]) return Encoding.Unicode.GetString(bytes, 2, bytes.Length - 2);
         if (bytes is [0xFE, 0xFF, ..]) return Encoding.BigEndianUnicode.GetString(bytes, 2, bytes.Length - 2);
+        try { return StrictUtf8.GetString(bytes).TrimStart('\uFEFF'); }
+        catch (DecoderFallbackException) { } // found again below, with its line and column
         var chars = new char[bytes.Length];
         var status = System.Text.Unicode.Utf8.ToUtf16(bytes, chars, out var read, out var written, replaceInvalidSequences: false);
         if (status == System.Buffers.OperationStatus.Done) return new string(chars, 0, written).TrimStart('\uFEFF');
@@ -90,6 +88,8 @@ public static partial class ModelReader
             $"the file is not UTF-8 text (byte 0x{bytes[read]:X2} here); save it with UTF-8 encoding");
         return null;
     }
+
+    private static readonly UTF8Encoding StrictUtf8 = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
 
     private static LoadResult Finish(ReadContext context, ModelDocument? model) =>
         new(model, [.. context.Diagnostics.OrderBy(d => d.Position.Line).ThenBy(d => d.Position.Column)]);
