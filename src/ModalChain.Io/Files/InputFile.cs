@@ -65,7 +65,7 @@ public static partial class InputFile
     }
 
     /// <summary>Reads to the end of <paramref name="stream"/> unless it holds more than <paramref name="limit"/> bytes.</summary>
-    private static byte[]? ReadAtMost(Stream stream, long limit, string what, out string? error)
+    internal static byte[]? ReadAtMost(Stream stream, long limit, string what, out string? error)
     {
         error = null;
         var expected = stream.CanSeek ? stream.Length : 0;
@@ -96,13 +96,12 @@ public static partial class InputFile
     }
 
     private static string TooLarge(long? size, long limit, string what) =>
-        (size is { } s ? $"the file is {Mebibytes(s)}" : $"the file is larger than {Mebibytes(limit)}") +
-        $"; a {what} may be at most {Mebibytes(limit)} (see docs/model-format.md)";
+        (size is { } s ? $"the file is {Bytes(s)}" : $"the file holds more than {Bytes(limit)}") +
+        $"; a {what} may be at most {Bytes(limit)} (see docs/model-format.md)";
 
-    private static string Mebibytes(long bytes) =>
-        bytes >= 1024 * 1024 && bytes % (1024 * 1024) == 0
-            ? string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{bytes / (1024 * 1024)} MiB")
-            : string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{bytes / (1024.0 * 1024.0):0.0} MiB");
+    private static string Bytes(long bytes) => bytes > 0 && bytes % (1024 * 1024) == 0
+        ? string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{bytes / (1024 * 1024)} MiB")
+        : string.Create(System.Globalization.CultureInfo.InvariantCulture, $"{bytes:N0} bytes");
 
     private abstract record FileKind
     {

@@ -31,7 +31,7 @@ internal sealed record YMapping(SourcePosition Position, ImmutableArray<KeyValue
 /// duplicate keys (which YAML forbids) are reported with their position instead of silently overwriting.
 /// <para>
 /// Two limits keep hostile files from exhausting the machine: collections nest at most <see cref="MaximumDepth"/>
-/// levels (a model needs five or six), checked as each '[' or '{' or block collection opens, before the scanner reads
+/// levels (a model needs four), checked as each '[' or '{' or block collection opens, before the scanner reads
 /// further; and aliases may add at most <see cref="MaximumAliasExpansion"/> nodes to the tree as a reader that
 /// follows them sees it (a file of nested aliases, "billion laughs", would otherwise stand for 10⁹ nodes), nor make
 /// it deeper than the same depth limit.
@@ -180,6 +180,7 @@ internal static class YamlTree
         private readonly List<YNode>[] _items = new List<YNode>[MaximumDepth + 1];
         private readonly List<KeyValuePair<YScalar, YNode>>[] _entries = new List<KeyValuePair<YScalar, YNode>>[MaximumDepth + 1];
 
+        /// <param name="depth">How many collections enclose the node.</param>
         public Anchored ReadNode(int depth)
         {
             if (parser.TryConsume<AnchorAlias>(out var alias))
@@ -191,6 +192,11 @@ internal static class YamlTree
                 if (_aliasExpansion > MaximumAliasExpansion)
                     throw new LimitExceeded(Pos(alias.Start),
                         $"the aliases of this file expand to more than 1,000,000 nodes (here '*{alias.Value.Value}'); write the values out or use fewer nested aliases");
+                // Aliases can make the tree deeper than the text (each anchor one level around the previous alias);
+                // the readers and the writer walk the tree, so its depth is held to the same limit as the text's.
+                if (depth + target.Height > MaximumDepth)
+                    throw new LimitExceeded(Pos(alias.Start),
+                        $"'*{alias.Value.Value}' here nests lists and mappings more than {MaximumDepth} levels deep; a model needs a handful of levels (see docs/model-format.md)");
                 return target;
             }
 
@@ -213,7 +219,6 @@ internal static class YamlTree
                     var item = ReadNode(depth + 1);
                     items.Add(item.Node);
                     (height, size) = (Math.Max(height, item.Height + 1), size + item.Size);
-                    CheckHeight(height, seq.Start);
                 }
                 node = new YSequence(Pos(seq.Start), [.. items]);
                 anchor = seq.Anchor.IsEmpty ? null : seq.Anchor.Value;
@@ -230,7 +235,6 @@ internal static class YamlTree
                     var keyRead = ReadNode(depth + 1);
                     var valueRead = ReadNode(depth + 1);
                     (height, size) = (Math.Max(height, Math.Max(keyRead.Height, valueRead.Height) + 1), size + keyRead.Size + valueRead.Size);
-                    CheckHeight(height, map.Start);
                     var (keyNode, value) = (keyRead.Node, valueRead.Node);
                     if (keyNode is not YScalar key)
                     {
@@ -287,15 +291,6 @@ internal static class YamlTree
             _strings.Add(value, value);
             return value;
         }
-    }
-
-    // Aliases can make the tree deeper than the text (each anchor one level around the previous alias); the
-    // readers and the writer walk the tree, so its depth is held to the same limit as the text's.
-    private static void CheckHeight(int height, Mark start)
-    {
-        if (height > MaximumDepth)
-            throw new LimitExceeded(Pos(start),
-                $"with its aliases, this collection nests more than {MaximumDepth} levels deep; a model needs a handful of levels (see docs/model-format.md)");
     }
 
     internal static SourcePosition Pos(Mark mark) => new(checked((int)mark.Line), checked((int)mark.Column));
