@@ -15,7 +15,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "damping", "loads", "harmonic", "transient", "criteria"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "damping", "loads", "harmonic", "transient", "criteria", "repeat"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -42,8 +42,9 @@ public static partial class ModelReader
         if (context.Mapping(root, "the model file") is not { } top) return Finish(context, null);
 
         context.RejectUnknownKeys(top, "the model file", TopLevelKeys);
-        var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file));
-        var massNames = DeclaredNames(top, "masses");
+        var repeated = ReadRepeat(top, context);
+        var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file), repeated);
+        var massNames = DeclaredNames(top, "masses").Union(repeated.MassNames);
         var supportNames = DeclaredNames(top, "supports");
         var damping = ReadDamping(top, context);
         var loads = ReadLoads(top, massNames, supportNames, context);
