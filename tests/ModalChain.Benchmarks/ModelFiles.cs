@@ -1,6 +1,5 @@
 using System.Diagnostics;
 using System.Globalization;
-using BenchmarkDotNet.Attributes;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 using ModalChain.Io.Model;
@@ -65,33 +64,5 @@ public static class ModelFiles
         {
             File.Delete(path);
         }
-    }
-}
-
-/// <summary>Reading, checking and assembling a grid model written out in full (issue 13, item 4).</summary>
-[MemoryDiagnoser]
-public class ModelReadingBenchmarks
-{
-    private string _path = "";
-
-    [Params(100, 250)]
-    public int Rows { get; set; }
-
-    [GlobalSetup]
-    public void Setup()
-    {
-        _path = Path.Combine(Path.GetTempPath(), $"modalchain-bench-grid-{Rows}-{Environment.ProcessId}.yaml");
-        ModelFiles.WriteGrid(_path, Rows, 400);
-    }
-
-    [GlobalCleanup]
-    public void Cleanup() => File.Delete(_path);
-
-    [Benchmark]
-    public StructuralMatrices ReadValidateAssemble()
-    {
-        var model = ModelReader.ReadFile(_path).Model ?? throw new InvalidOperationException("the generated model was rejected");
-        _ = Topology.UnsupportedGroups(model.Network);
-        return Assembler.Assemble(model.Network);
     }
 }
