@@ -1,7 +1,10 @@
 using System.CommandLine;
+using System.CommandLine.Help;
+using System.Globalization;
 using System.Reflection;
 using ModalChain.Cli.Commands;
 using ModalChain.Core;
+using ModalChain.Core.Analyses.Absorbers;
 
 namespace ModalChain.Cli;
 
@@ -14,25 +17,50 @@ public static class CliApp
 
     internal const string CautionHelp = "Caution: " + Cautions.Text;
 
+    /// <summary>Runs the program under the invariant culture: numbers are read and written the same on every machine.</summary>
+    /// <remarks>
+    /// The options read their numbers culture-independently themselves (<see cref="CommandValues"/>); running under the
+    /// invariant culture as well keeps every output byte-identical whatever the machine's language, including the
+    /// parser's own words ("Usage:", "Options:"), which would otherwise follow the user interface language.
+    /// </remarks>
     /// <summary>Runs the program with <paramref name="args"/>, writing results to <paramref name="output"/> and problems to <paramref name="error"/>.</summary>
     /// <returns>The exit code (see <see cref="ExitCodes"/>).</returns>
     public static int Run(string[] args, TextWriter output, TextWriter error)
+    {
+        var (culture, ui) = (CultureInfo.CurrentCulture, CultureInfo.CurrentUICulture);
+        CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
+        CultureInfo.CurrentUICulture = CultureInfo.InvariantCulture;
+        try { return RunInvariant(args, output, error); }
+        finally
+        {
+            CultureInfo.CurrentCulture = culture;
+            CultureInfo.CurrentUICulture = ui;
+        }
+    }
+
+    private static int RunInvariant(string[] args, TextWriter output, TextWriter error)
     {
         var io = new Streams(output, error);
         var root = new RootCommand(
             "ModalChain: natural frequencies, mode shapes and vibration response of lumped mass-spring-damper models " +
             "of floors, platforms, racks and shelving that carry machinery.\n\n" +
-            "Exit codes: 0 done, 1 a check failed, 2 input error, 3 numerical failure, 4 internal error.\n\n" + CautionHelp);
+            "Exit codes: 0 done, 1 a check failed, 2 input error, 3 numerical failure, 4 internal error.\n\n" +
+            "Numbers on the command line use '.' as the decimal point and may carry a unit of their kind ('30.5', '30.5 Hz', " +
+            "'1480 rpm'); a bare number is in the unit the option's help states.");
+        var tune = TuneCommand.Create(io);
         root.Subcommands.Add(ValidateCommand.Create(io));
         root.Subcommands.Add(ModesCommand.Create(io));
         root.Subcommands.Add(CheckCommand.Create(io));
-        root.Subcommands.Add(TuneCommand.Create(io));
+        root.Subcommands.Add(tune);
         root.Subcommands.Add(StudyCommand.Create(io));
         root.Subcommands.Add(HarmonicCommand.Create(io));
         root.Subcommands.Add(TransientCommand.Create(io));
         root.Subcommands.Add(ReportCommand.Create(io));
         // The built-in action prints the entry assembly's version, which is the host's when run in-process.
         foreach (var v in root.Options.OfType<VersionOption>()) v.Action = new PrintVersion(output);
+        // The caution closes every help page once; listing it in each command's description printed it nine times.
+        foreach (var h in root.Options.OfType<HelpOption>())
+            h.Action = new HelpWithCaution((HelpAction)h.Action!, output, new Dictionary<Command, string> { [tune] = "Absorber caution: " + AbsorberCaution.Text });
 
         try
         {
@@ -61,6 +89,25 @@ public static class CliApp
     }
 
     private static bool WantsHelp(string[] args) => args.Any(a => a is "--help" or "-h" or "-?");
+
+    /// <summary>The parser's help page, then the notes of the command shown (if any) and the caution, once.</summary>
+    private sealed class HelpWithCaution(HelpAction help, TextWriter output, IReadOnlyDictionary<Command, string> notes)
+        : System.CommandLine.Invocation.SynchronousCommandLineAction
+    {
+        public override bool ClearsParseErrors => true;
+
+        public override int Invoke(ParseResult parseResult)
+        {
+            var code = help.Invoke(parseResult);
+            if (notes.TryGetValue(parseResult.CommandResult.Command, out var note))
+            {
+                output.WriteLine(note);
+                output.WriteLine();
+            }
+            output.WriteLine(CautionHelp);
+            return code;
+        }
+    }
 
     private sealed class PrintVersion(TextWriter output) : System.CommandLine.Invocation.SynchronousCommandLineAction
     {

@@ -67,7 +67,7 @@ public class CliAppTests
 
     [Theory]
     [InlineData("modes", "MODEL", "--format", "xml")]
-    [InlineData("modes", "MODEL", "--format", "JSON")]
+    [InlineData("modes", "MODEL", "--format", "yaml")]
     [InlineData("modes", "MODEL", "--count", "0")]
     [InlineData("modes", "MODEL", "--count", "-2")]
     [InlineData("modes", "MODEL", "--count", "many")]

@@ -12,36 +12,35 @@ internal static class AbsorberArguments
     public static Option<string> Host(string name, bool required) =>
         new(name) { Description = "The mass the absorber hangs on.", Required = required };
 
-    public static Option<string> MassRatio(bool required) =>
-        new("--mass-ratio") { Description = "Absorber mass over the mode's modal mass at the host, e.g. '5 %' or 0.05.", Required = required };
-
-    public static Option<int?> Mode(string name) =>
-        new(name) { Description = "Mode to control (default: the mode nearest a running speed × order of criteria.separation or a load's running speed)." };
-
-    public static Option<string> Method(string name)
+    public static Option<CommandValue?> MassRatio(bool required)
     {
-        var method = new Option<string>(name)
-        {
-            Description = "den-hartog (the classical closed form for the target) or optimal (numerical minimisation of the host's worst peak on the full network).",
-            DefaultValueFactory = _ => "den-hartog",
-        };
-        method.AcceptOnlyFromAmong("den-hartog", "optimal");
-        return method;
+        var option = CommandValues.Quantity("--mass-ratio", Quantity.Ratio, "Absorber mass over the mode's modal mass at the host, e.g. '5 %' or 0.05.", ValueBound.Positive);
+        option.Required = required;
+        return option;
     }
 
-    public static bool IsOptimal(string? method) => method == "optimal";
+    public static Option<int?> Mode(string name) =>
+        CommandValues.Count(name, "Mode to control (default: the mode nearest a running speed × order of criteria.separation or a load's running speed).", 1);
 
-    /// <summary>The request, or null after printing every problem (mass ratio that does not parse, unknown host, mode out of range).</summary>
-    public static AbsorberRequest? Request(ModalResult modal, string host, string ratioText, int? mode, ImmutableArray<double> excitations,
+    public static Option<TuningMethod> Method(string name) =>
+        CommandValues.Choice(name,
+            "den-hartog (the classical closed form for the target; the default) or optimal (numerical minimisation of the host's worst peak on the full network).",
+            ("den-hartog", TuningMethod.DenHartog), ("optimal", TuningMethod.Optimal));
+
+    public static bool IsOptimal(TuningMethod method) => method == TuningMethod.Optimal;
+
+    /// <summary>How the absorber is tuned: the classical closed form, or numerically on the full network.</summary>
+    public enum TuningMethod
+    {
+        DenHartog,
+        Optimal,
+    }
+
+    /// <summary>The request, or null after printing every problem (unknown host, mode out of range).</summary>
+    public static AbsorberRequest? Request(ModalResult modal, string host, CommandValue ratio, int? mode, ImmutableArray<double> excitations,
         AbsorberTarget target, Streams io)
     {
-        var mu = QuantityParser.Parse(ratioText, Quantity.Ratio);
-        if (!mu.Succeeded)
-        {
-            io.Error.WriteLine($"modalchain: error: --mass-ratio '{ratioText}': {mu.Error}");
-            return null;
-        }
-        var request = new AbsorberRequest(host, mu.Value, mode, excitations, target);
+        var request = new AbsorberRequest(host, ratio.Si, mode, excitations, target);
         var problems = AbsorberTuning.Problems(modal, request);
         if (problems.Length == 0) return request;
         foreach (var p in problems) io.Error.WriteLine($"modalchain: error: {p}");

@@ -19,17 +19,12 @@ internal static class CheckCommand
     public static Command Create(Streams io)
     {
         var file = CommonOptions.ModelFile();
-        var format = CommonOptions.Format();
-        format.Validators.Add(r =>
-        {
-            if (r.GetValueOrDefault<OutputFormat>() == OutputFormat.Csv) r.AddError("--format csv is not offered by check; use table or json.");
-        });
+        var format = CommonOptions.Format(OutputFormat.Table, OutputFormat.Json);
         var command = new Command("check",
             "Evaluate the criteria of the model's 'criteria:' section: frequency separation (no natural frequency within " +
             "±margin of any running speed × order) and vibration limits at the operating points. Each criterion prints " +
             "its reserve, how far it is from failing in %. Exit code 0 when all pass, 1 when any fails or cannot be " +
-            "evaluated, 2 on input errors. Default margins are common practice, not code requirements (docs/criteria.md).\n\n" +
-            CliApp.CautionHelp)
+            "evaluated, 2 on input errors. Default margins are common practice, not code requirements (docs/criteria.md).")
         { file, format };
         command.SetAction(parse =>
         {
@@ -82,11 +77,13 @@ internal static class CheckCommand
                     worst.ModeNumber.ToString(Inv),
                     worst.NaturalFrequencyHz.ToString("F3", Inv),
                     (100 * worst.Separation).ToString("F1", Inv),
-                    Signed(worst.Reserve),
+                    Signed(worst.Reserve, worst.ReserveNote),
                     worst.Passes ? "pass" : "FAIL");
             }
             table.Write(o);
-            o.WriteLine(sep.Passes
+            o.WriteLine(sep.ReserveNote is { } note
+                ? $"  {(sep.Passes ? "passes" : "FAILS")}; reserve {note}."
+                : sep.Passes
                 ? string.Create(Inv, $"  passes; the governing mode may shift {100 * sep.Reserve:F1} % before it enters a band.")
                 : string.Create(Inv, $"  FAILS; the governing mode must shift {-100 * sep.Reserve:F1} % to leave its band."));
             o.WriteLine("  reserve = relative change of the natural frequency that puts it on the nearest band edge (positive: clear).");
@@ -98,7 +95,7 @@ internal static class CheckCommand
             var table = new TextTable("where", "quantity", "measure", "value", "limit", "reserve [%]", "result");
             foreach (var l in outcome.Limits)
                 table.Add(l.Limit.At, l.Limit.Quantity.ToString().ToLowerInvariant(), l.Limit.Measure == AmplitudeMeasure.Peak ? "peak" : "rms",
-                    Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Signed(l.Reserve), l.Passes ? "pass" : "FAIL");
+                    Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Signed(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL");
             table.Write(o);
             o.WriteLine("  reserve = (limit - value) / limit.");
             o.WriteLine();
@@ -112,10 +109,11 @@ internal static class CheckCommand
         o.WriteLine("Caution: " + Cautions.Text);
     }
 
-    internal static string Signed(double fraction) =>
-        double.IsPositiveInfinity(fraction) ? "inf" : (100 * fraction).ToString("+0.0;-0.0;0.0", Inv);
+    /// <summary>A reserve in % with its sign; a reserve with no finite value prints <paramref name="note"/> (never "inf" or "Infinity").</summary>
+    internal static string Signed(double fraction, string? note) =>
+        double.IsFinite(fraction) ? (100 * fraction).ToString("+0.0;-0.0;0.0", Inv) : note ?? "n/a";
 
-    internal static string Show(double si, ResponseQuantity q) => q switch
+    internal static string Show(double si, ResponseQuantity q) => !double.IsFinite(si) ? (double.IsPositiveInfinity(si) ? "unbounded" : "n/a") : q switch
     {
         ResponseQuantity.Displacement => (si * 1e3).ToString("G4", Inv) + " mm",
         ResponseQuantity.Velocity => (si * 1e3).ToString("G4", Inv) + " mm/s",

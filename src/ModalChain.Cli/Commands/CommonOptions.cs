@@ -17,18 +17,19 @@ internal static class CommonOptions
 {
     public static Argument<string> ModelFile() => new("FILE") { Description = "The model file (YAML); see docs/model-format.md." };
 
-    public static Option<OutputFormat> Format()
+    /// <summary>The --format option offering <paramref name="offered"/> (all three when none are named); absent, it is table.</summary>
+    public static Option<OutputFormat> Format(params OutputFormat[] offered)
     {
-        // Lower-case words on the command line and in help; without AcceptOnlyFromAmong a wrong value was reported
-        // with the internal enum's full type name, and help listed the members capitalised.
-        var option = new Option<OutputFormat>("--format")
+        if (offered.Length == 0) offered = [OutputFormat.Table, OutputFormat.Json, OutputFormat.Csv];
+        var described = offered.Select(f => f switch
         {
-            Description = "table (for reading, the default), json (one object on stdout, SI units) or csv (for spreadsheets).",
-            HelpName = "table|json|csv",
-        };
-        option.AcceptOnlyFromAmong("table", "json", "csv");
-        // No DefaultValueFactory: help would print "[default: Table]"; an absent --format is default(OutputFormat), Table.
-        return option;
+            OutputFormat.Table => "table (for reading, the default)",
+            OutputFormat.Json => "json (one object on stdout, SI units)",
+            _ => "csv (for spreadsheets)",
+        }).ToArray();
+        var sentence = described.Length == 1 ? described[0] : string.Join(", ", described[..^1]) + " or " + described[^1];
+        // Help lists only what the command writes, in lower case; an absent --format is default(OutputFormat), Table.
+        return CommandValues.Choice("--format", sentence + ".", [.. offered.Select(f => (f.ToString().ToLowerInvariant(), f))]);
     }
 
     /// <summary>Loads the model, printing every diagnostic; returns null (and the caller exits 2) when it has errors.</summary>

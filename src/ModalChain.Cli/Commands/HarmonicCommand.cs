@@ -3,6 +3,7 @@ using System.Globalization;
 using ModalChain.Cli.Formatting;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Assembly;
+using ModalChain.Core.Units;
 using ModalChain.Io.Csv;
 using ModalChain.Io.Json;
 
@@ -20,15 +21,17 @@ internal static class HarmonicCommand
             Description = "Report this mass (repeat for several); overrides 'outputs' of the file. Default: every mass.",
             AllowMultipleArgumentsPerToken = true,
         };
-        var from = new Option<double?>("--from") { Description = "Lowest frequency of the sweep in Hz (overrides the file's range)." };
-        var to = new Option<double?>("--to") { Description = "Highest frequency of the sweep in Hz." };
-        var points = new Option<int?>("--points") { Description = "Number of points of the sweep (at least 2; default 400 when the file gives none)." };
-        var method = new Option<HarmonicMethod?>("--method") { Description = "direct (exact, any damping) or modal (superposition with residual flexibility)." };
+        var from = CommandValues.Quantity("--from", Quantity.Frequency, "Lowest frequency of the sweep (overrides the file's range).", ValueBound.Positive);
+        var to = CommandValues.Quantity("--to", Quantity.Frequency, "Highest frequency of the sweep.", ValueBound.Positive);
+        var points = CommandValues.Count("--points", "Number of points of the sweep (at least 2; default 400 when the file gives none).", 2);
+        var method = CommandValues.Choice<HarmonicMethod?>("--method",
+            "direct (exact, any damping) or modal (superposition with residual flexibility); default: the file's 'method', else direct.",
+            ("direct", HarmonicMethod.Direct), ("modal", HarmonicMethod.Modal));
         var command = new Command("harmonic",
             "Steady-state response to the model's harmonic loads (forces, rotating unbalances, support motions) over a " +
             "frequency sweep: displacement, velocity and acceleration of each output mass, spring and damper forces, support " +
             "reactions and transmissibility, the peak of each over the sweep, and the response at each load's running speed. " +
-            "The sweep comes from the file's 'harmonic' section; --from/--to/--points override it.\n\n" + CliApp.CautionHelp)
+            "The sweep comes from the file's 'harmonic' section; --from/--to/--points override it.")
         { file, outputs, from, to, points, method, format };
         command.SetAction(parse =>
         {
@@ -37,8 +40,8 @@ internal static class HarmonicCommand
             if (document is null) return ExitCodes.InputError;
             var model = document.Structure;
             var spec = document.Harmonic;
-            var fromHz = parse.GetValue(from);
-            var toHz = parse.GetValue(to);
+            var fromHz = parse.GetValue(from)?.Si;
+            var toHz = parse.GetValue(to)?.Si;
             var pointCount = parse.GetValue(points);
 
             if (model.Loads.IsEmpty)

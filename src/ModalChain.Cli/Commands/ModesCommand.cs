@@ -14,24 +14,10 @@ internal static class ModesCommand
     {
         var file = CommonOptions.ModelFile();
         var format = CommonOptions.Format();
-        // A custom parser rather than a validator: a validator's GetValueOrDefault throws on "--count many" instead
-        // of reporting it, which crashed the program with a stack trace.
-        var count = new Option<int?>("--count")
-        {
-            Description = "Report only the lowest N modes (default: all).",
-            HelpName = "N",
-            CustomParser = r =>
-            {
-                var text = r.Tokens.Count == 1 ? r.Tokens[0].Value : string.Join(' ', r.Tokens.Select(t => t.Value));
-                if (int.TryParse(text, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out var n) && n >= 1)
-                    return n;
-                r.AddError($"--count must be a whole number of modes, at least 1 (got '{text}').");
-                return null;
-            },
-        };
+        var count = CommandValues.Count("--count", "Report only the lowest N modes (default: all).", 1);
         var command = new Command("modes",
             "Natural frequencies, periods, mass-normalised mode shapes, participation factors and effective modal masses " +
-            "of the undamped network, with quality figures (eigen residual, M-orthogonality).\n\n" + CliApp.CautionHelp)
+            "of the undamped network, with quality figures (eigen residual, M-orthogonality).")
         { file, count, format };
         command.SetAction(parse =>
         {

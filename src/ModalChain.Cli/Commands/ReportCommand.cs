@@ -16,25 +16,13 @@ internal static class ReportCommand
     {
         var file = CommonOptions.ModelFile();
         var output = new Option<string>("--output", "-o") { Description = "Folder to write into (created when missing). Written atomically: a failed run leaves it as it was.", Required = true };
-        var format = new Option<ReportFormat>("--format")
-        {
-            Description = "html: report.html + SVG figures + results.json (default); svg: the SVG figures and results.json only; pdf: as html, plus each figure as PDF.",
-            DefaultValueFactory = _ => ReportFormat.Html,
-        };
-        var units = new Option<UnitSystem>("--units")
-        {
-            Description = "Units shown in the report: si (default) or imperial (lb, lbf/in, lbf·s/in, in). results.json is always SI.",
-            DefaultValueFactory = _ => UnitSystem.Si,
-        };
-        var modes = new Option<int>("--modes")
-        {
-            Description = "Largest number of modes tabulated and drawn (the lowest ones; default 20).",
-            DefaultValueFactory = _ => 20,
-        };
-        modes.Validators.Add(r =>
-        {
-            if (r.GetValueOrDefault<int>() < 1) r.AddError("--modes must be at least 1.");
-        });
+        var format = CommandValues.Choice("--format",
+            "html: report.html + SVG figures + results.json (the default); svg: the SVG figures and results.json only; pdf: as html, plus each figure as PDF.",
+            ("html", ReportFormat.Html), ("svg", ReportFormat.Svg), ("pdf", ReportFormat.Pdf));
+        var units = CommandValues.Choice("--units",
+            "Units shown in the report: si (the default) or imperial (lb, lbf/in, lbf·s/in, in). results.json is always SI.",
+            ("si", UnitSystem.Si), ("imperial", UnitSystem.Imperial));
+        var modes = CommandValues.Count("--modes", "Largest number of modes tabulated and drawn (the lowest ones; default 20).", 1);
         var absorberHost = AbsorberArguments.Host("--absorber-host", required: false);
         absorberHost.Description = "Add a tuned-absorber section: the mass the absorber hangs on (with --mass-ratio; as modalchain tune --host).";
         var massRatio = AbsorberArguments.MassRatio(required: false);
@@ -43,7 +31,7 @@ internal static class ReportCommand
         var command = new Command("report",
             "Write a reviewer's report of the model into a folder: report.html (one self-contained file: model summary, " +
             "network drawing, modes table, one figure per mode shape, the tuned absorber with --absorber-host and --mass-ratio, caution and traceability to the model file), each figure " +
-            "as its own SVG (and PDF with --format pdf), and results.json with every number behind the report (SI).\n\n" + CliApp.CautionHelp)
+            "as its own SVG (and PDF with --format pdf), and results.json with every number behind the report (SI).")
         { file, output, format, units, modes, absorberHost, massRatio, absorberMode, absorberMethod };
         command.SetAction(parse =>
         {
@@ -51,7 +39,7 @@ internal static class ReportCommand
             var directory = parse.GetValue(output)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            var options = new ReportOptions(CliApp.Version, DateTimeOffset.UtcNow, parse.GetValue(units), parse.GetValue(modes));
+            var options = new ReportOptions(CliApp.Version, DateTimeOffset.UtcNow, parse.GetValue(units), parse.GetValue(modes) ?? 20);
             var hostName = parse.GetValue(absorberHost);
             var ratioText = parse.GetValue(massRatio);
             if (hostName is null != ratioText is null)

@@ -3,6 +3,7 @@ using System.CommandLine;
 using System.Globalization;
 using ModalChain.Cli.Formatting;
 using ModalChain.Core;
+using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Analyses.Studies;
 using ModalChain.Core.Model;
@@ -28,17 +29,19 @@ internal static class StudyCommand
                           "against running speed with the order lines and their crossings).",
             Required = true,
         };
-        var from = new Option<string>("--from") { Description = "First value with its unit, e.g. '50 kN/mm' (for speed: '0 rpm').", Required = true };
-        var to = new Option<string>("--to") { Description = "Last value with its unit, e.g. '200 kN/mm'.", Required = true };
-        var steps = new Option<int>("--steps") { Description = "Number of values including both ends (default 31).", DefaultValueFactory = _ => 31 };
-        var spacing = new Option<string>("--spacing") { Description = "linear or geometric (equal ratios).", DefaultValueFactory = _ => "linear" };
-        spacing.AcceptOnlyFromAmong("linear", "geometric");
+        const string fieldUnits = "A number with an optional unit of the varied field's kind; a bare number is in the field's SI unit " +
+                                  "(kg for a mass, N/m for a stiffness, N*s/m for a damping coefficient, Hz for speed), which the output states.";
+        var from = new Option<string>("--from") { Description = "First value, e.g. '50 kN/mm' (for speed: '0 rpm'). " + fieldUnits, HelpName = "value", Required = true };
+        var to = new Option<string>("--to") { Description = "Last value, e.g. '200 kN/mm'. " + fieldUnits, HelpName = "value", Required = true };
+        var steps = CommandValues.Count("--steps", "Number of values including both ends (at least 2; default 31).", 2);
+        var spacing = CommandValues.Choice("--spacing", "linear (the default) or geometric (equal ratios).",
+            ("linear", StudySpacing.Linear), ("geometric", StudySpacing.Geometric));
         var orders = new Option<string?>("--orders") { Description = "Orders for the speed-frequency chart, comma-separated (default: criteria.separation.orders, else 1,2)." };
         var format = CommonOptions.Format();
         var command = new Command("study",
             "Vary one numeric field of the model over a range, re-solve the modes at each value (in parallel), follow each " +
             "mode by its shape (modal assurance criterion) so identities survive frequency crossings, and find " +
-            "the values at which each criterion of the model starts or stops passing, by a bracketed root search.\n\n" + CliApp.CautionHelp)
+            "the values at which each criterion of the model starts or stops passing, by a bracketed root search.")
         { file, vary, from, to, steps, spacing, orders, format };
         command.SetAction(parse =>
         {
@@ -47,7 +50,7 @@ internal static class StudyCommand
             if (document is null) return ExitCodes.InputError;
             var varied = parse.GetValue(vary)!;
             if (varied == "speed")
-                return SpeedChart(document, parse.GetValue(from)!, parse.GetValue(to)!, parse.GetValue(steps), parse.GetValue(orders), parse.GetValue(format), io);
+                return SpeedChart(document, parse.GetValue(from)!, parse.GetValue(to)!, parse.GetValue(steps) ?? DefaultSteps, parse.GetValue(orders), parse.GetValue(format), io);
 
             var parameter = ParameterPath.Resolve(varied, document.Network, out var error);
             if (parameter is null)
@@ -55,8 +58,8 @@ internal static class StudyCommand
                 io.Error.WriteLine($"modalchain: error: --vary: {error}");
                 return ExitCodes.InputError;
             }
-            var a = CommandValue.Parse(parse.GetValue(from), parameter.Quantity, "--from", io);
-            var b = CommandValue.Parse(parse.GetValue(to), parameter.Quantity, "--to", io);
+            var a = Value(parse.GetValue(from)!, parameter.Quantity, "--from", varied, ValueBound.Any, io);
+            var b = Value(parse.GetValue(to)!, parameter.Quantity, "--to", varied, ValueBound.Any, io);
             if (a is null || b is null) return ExitCodes.InputError;
             var criteria = ImmutableArray.CreateBuilder<StudyCriterion>();
             if (document.Criteria.Separation is { } sep) criteria.Add(StudyCriterion.Separation(sep));
@@ -69,8 +72,7 @@ internal static class StudyCommand
                     foreach (var limit in document.Criteria.Limits)
                         criteria.Add(OperatingPointCriteria.Limit(limit, document.Structure, operatingLoads));
             }
-            var request = new StudyRequest(parameter, a.Value.Si, b.Value.Si, parse.GetValue(steps),
-                parse.GetValue(spacing) == "geometric" ? StudySpacing.Geometric : StudySpacing.Linear, criteria.ToImmutable());
+            var request = new StudyRequest(parameter, a.Si, b.Si, parse.GetValue(steps) ?? DefaultSteps, parse.GetValue(spacing), criteria.ToImmutable());
             var problems = request.Problems();
             if (problems.Length > 0)
             {
@@ -94,12 +96,25 @@ internal static class StudyCommand
                     StudyCsv.Write(io.Output, result, UnitTable.SiSymbol(parameter.Quantity));
                     break;
                 default:
-                    WriteTable(io.Output, document, result, a.Value);
+                    WriteTable(io.Output, document, result, a);
                     break;
             }
             return ExitCodes.Success;
         });
         return command;
+    }
+
+    private const int DefaultSteps = 31;
+
+    /// <summary>Reads --from or --to, whose kind is the varied field's; a bare number is noted on stderr with the unit it was read in.</summary>
+    private static CommandValue? Value(string text, Quantity quantity, string option, string field, ValueBound bound, Streams io)
+    {
+        var value = CommandValues.Read(text, quantity, option, bound, out var error);
+        if (value is null) io.Error.WriteLine($"modalchain: error: {error}");
+        else if (value.Bare)
+            io.Error.WriteLine($"note: {option} {text.Trim()} has no unit; read as {value.Show(value.Si)} " +
+                               (field == "speed" ? "(a bare speed is in Hz)." : $"(the SI unit of {field})."));
+        return value;
     }
 
     private static void WriteTable(TextWriter o, ModelDocument document, StudyResult result, CommandValue unit)
@@ -117,8 +132,9 @@ internal static class StudyCommand
         {
             var row = new List<string> { (s.Value / unit.Factor).ToString("G6", Inv) };
             row.AddRange(result.Modes.Select(m => m.FrequenciesHz[s.Index].ToString("F3", Inv)));
-            row.AddRange(s.Reserves.Select((r, c) => (r >= 0 ? "pass " : "FAIL ") + CheckCommand.Signed(r) + " %" +
-                (req.Criteria[c].Limit is { } limit ? $" ({CheckCommand.Show(limit.Value * (1 - r), limit.Quantity)})" : "")));
+            row.AddRange(s.Reserves.Select((r, c) => (r >= 0 ? "pass " : "FAIL ") + (double.IsFinite(r)
+                ? CheckCommand.Signed(r, null) + " %" + (req.Criteria[c].Limit is { } limit ? $" ({CheckCommand.Show(limit.Value * (1 - r), limit.Quantity)})" : "")
+                : req.Criteria[c].Limit is null ? ReserveNotes.OfSeparation(r, rigidBody: false) : ReserveNotes.OfLimit(0, r))));
             table.Add([.. row]);
         }
         table.Write(o);
@@ -147,17 +163,12 @@ internal static class StudyCommand
 
     private static int SpeedChart(ModelDocument document, string fromText, string toText, int points, string? ordersText, OutputFormat format, Streams io)
     {
-        var a = CommandValue.Parse(fromText, Quantity.Frequency, "--from", io);
-        var b = CommandValue.Parse(toText, Quantity.Frequency, "--to", io);
+        var a = Value(fromText, Quantity.Frequency, "--from", "speed", ValueBound.NonNegative, io);
+        var b = Value(toText, Quantity.Frequency, "--to", "speed", ValueBound.NonNegative, io);
         if (a is null || b is null) return ExitCodes.InputError;
-        if (a.Value.Si < 0 || !(b.Value.Si > a.Value.Si))
+        if (!(b.Si > a.Si))
         {
             io.Error.WriteLine("modalchain: error: the speed range needs 0 <= --from < --to");
-            return ExitCodes.InputError;
-        }
-        if (points < 2)
-        {
-            io.Error.WriteLine($"modalchain: error: --steps must be at least 2 (got {points})");
             return ExitCodes.InputError;
         }
         var orders = new List<double>();
@@ -181,7 +192,7 @@ internal static class StudyCommand
         else orders.AddRange(document.Criteria.Separation?.Orders ?? [1.0, 2.0]);
 
         var modal = ModalAnalysis.Solve(document.Network);
-        var chart = SpeedFrequencyChart.Build([.. modal.Modes.Select(m => (m.Number, m.NaturalFrequencyHz))], a.Value.Si, b.Value.Si, points, orders);
+        var chart = SpeedFrequencyChart.Build([.. modal.Modes.Select(m => (m.Number, m.NaturalFrequencyHz))], a.Si, b.Si, points, orders);
         if (format == OutputFormat.Json)
         {
             using var stdout = new MemoryStream();
@@ -200,7 +211,7 @@ internal static class StudyCommand
         }
         var o = io.Output;
         o.WriteLine(document.Network.Title);
-        o.WriteLine($"Speed-frequency chart from {a.Value.Show(a.Value.Si)} to {b.Value.Show(b.Value.Si)}: orders {string.Join(", ", chart.Orders.Select(h => h.ToString("G4", Inv) + "x"))}");
+        o.WriteLine($"Speed-frequency chart from {a.Show(a.Si)} to {b.Show(b.Si)}: orders {string.Join(", ", chart.Orders.Select(h => h.ToString("G4", Inv) + "x"))}");
         o.WriteLine("Natural frequencies of this structure do not depend on the machine's speed; an order line h x speed meets mode n at speed = f_n / h.");
         o.WriteLine();
         var table = new TextTable("speed [rpm]", "speed [Hz]", "order", "mode", "f_n [Hz]");

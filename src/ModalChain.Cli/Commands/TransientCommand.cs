@@ -18,9 +18,11 @@ internal static class TransientCommand
     {
         var file = CommonOptions.ModelFile();
         var format = CommonOptions.Format();
-        var method = new Option<string?>("--method") { Description = "newmark (average acceleration), hht (with high-frequency damping), exact (state space, small models) or modal (lowest modes, long runs)." };
-        var step = new Option<string?>("--step") { Description = "Time step with its unit, e.g. '1 ms' (overrides the file's 'step')." };
-        var duration = new Option<string?>("--duration") { Description = "Simulated time with its unit, e.g. '6 s' (overrides the file's 'duration')." };
+        var method = CommandValues.Choice<TransientMethod?>("--method",
+            "newmark (average acceleration), hht (with high-frequency damping), exact (state space, small models) or modal (lowest modes, long runs); default: the file's 'method'.",
+            ("newmark", TransientMethod.Newmark), ("hht", TransientMethod.Hht), ("exact", TransientMethod.Exact), ("modal", TransientMethod.Modal));
+        var step = CommandValues.Quantity("--step", Quantity.Time, "Time step, e.g. '1 ms' (overrides the file's 'step').", ValueBound.Positive);
+        var duration = CommandValues.Quantity("--duration", Quantity.Time, "Simulated time, e.g. '6 s' (overrides the file's 'duration').", ValueBound.Positive);
         var outputs = new Option<string[]>("--output")
         {
             Description = "Record this mass (repeat for several); overrides 'outputs' of the file. Default: every mass.",
@@ -31,7 +33,7 @@ internal static class TransientCommand
             "rotating unbalance, support accelerations) from its initial conditions: displacement, velocity and acceleration " +
             "of each output mass, spring and damper forces and support reactions, with their peaks and RMS and an energy " +
             "balance. The run comes from the file's 'transient' section; the options override it. A progress bar is shown " +
-            "on long runs, only on a terminal and only with the table format.\n\n" + CliApp.CautionHelp)
+            "on long runs, only on a terminal and only with the table format.")
         { file, method, step, duration, outputs, format };
         command.SetAction(parse =>
         {
@@ -39,33 +41,20 @@ internal static class TransientCommand
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
             var spec = document.Transient;
-            var stepText = parse.GetValue(step);
-            var durationText = parse.GetValue(duration);
-            if (spec is null && (stepText is null || durationText is null))
+            var stepValue = parse.GetValue(step);
+            var durationValue = parse.GetValue(duration);
+            if (spec is null && (stepValue is null || durationValue is null))
                 return Fail(io, $"{path}: the model has no 'transient' section; add one (see docs/model-format.md) or give --duration and --step");
             spec ??= new TransientSpec([], [], new TransientSettings(1, 1));
             var settings = spec.Settings;
 
-            if (durationText is not null)
-            {
-                if (Time(durationText, "--duration", io) is not { } d) return ExitCodes.InputError;
-                settings = settings with { Duration = d };
-            }
-            if (stepText is not null)
-            {
-                if (Time(stepText, "--step", io) is not { } h) return ExitCodes.InputError;
-                settings = settings with { Step = h };
-            }
+            if (durationValue is not null) settings = settings with { Duration = durationValue.Si };
+            if (stepValue is not null) settings = settings with { Step = stepValue.Si };
             if (settings.Step > settings.Duration)
                 return Fail(io, string.Create(CultureInfo.InvariantCulture, $"the step ({settings.Step:G4} s) is longer than the duration ({settings.Duration:G4} s)"));
             if (settings.Duration / settings.Step > 5e7)
                 return Fail(io, string.Create(CultureInfo.InvariantCulture, $"{settings.Duration / settings.Step:G3} steps is more than 5e7; lengthen the step or shorten the run"));
-            if (parse.GetValue(method) is { } m)
-            {
-                TransientMethod? chosen = m switch { "newmark" => TransientMethod.Newmark, "hht" => TransientMethod.Hht, "exact" => TransientMethod.Exact, "modal" => TransientMethod.Modal, _ => null };
-                if (chosen is null) return Fail(io, $"--method is '{m}'; write newmark, hht, exact or modal");
-                settings = settings with { Method = chosen.Value };
-            }
+            if (parse.GetValue(method) is { } chosen) settings = settings with { Method = chosen };
             var chosenOutputs = parse.GetValue(outputs);
             if (chosenOutputs is { Length: > 0 })
             {
@@ -110,22 +99,6 @@ internal static class TransientCommand
             return ExitCodes.Success;
         });
         return command;
-    }
-
-    private static double? Time(string text, string option, Streams io)
-    {
-        var parsed = QuantityParser.Parse(text, Quantity.Time);
-        if (!parsed.Succeeded)
-        {
-            Fail(io, $"{option} '{text}': {parsed.Error}");
-            return null;
-        }
-        if (!(parsed.Value > 0) || !double.IsFinite(parsed.Value))
-        {
-            Fail(io, $"{option} '{text}' must be a positive time, e.g. '1 ms'");
-            return null;
-        }
-        return parsed.Value;
     }
 
     private static int Fail(Streams io, string message)

@@ -21,35 +21,29 @@ internal static class TuneCommand
         var host = AbsorberArguments.Host("--host", required: true);
         var ratio = AbsorberArguments.MassRatio(required: true);
         var mode = AbsorberArguments.Mode("--mode");
-        var speed = new Option<string?>("--speed") { Description = "Running speed to choose the mode by, e.g. '1480 rpm' (overrides the speeds of criteria.separation)." };
-        var target = new Option<string>("--target")
-        {
-            Description = "force (harmonic force on the structure; Den Hartog), base (harmonic base acceleration; Warburton 1982) or random-force (white-noise force; Warburton 1982).",
-            DefaultValueFactory = _ => "force",
-        };
-        target.AcceptOnlyFromAmong("force", "base", "random-force");
+        var speed = CommandValues.Quantity("--speed", Quantity.Frequency,
+            "Running speed to choose the mode by, e.g. '1480 rpm' (overrides the speeds of criteria.separation).", ValueBound.Positive);
+        var target = CommandValues.Choice("--target",
+            "force (harmonic force on the structure; Den Hartog; the default), base (harmonic base acceleration; Warburton 1982) or random-force (white-noise force; Warburton 1982).",
+            ("force", AbsorberTarget.Force), ("base", AbsorberTarget.BaseAcceleration), ("random-force", AbsorberTarget.RandomForce));
         var method = AbsorberArguments.Method("--method");
-        var format = new Option<OutputFormat>("--format") { Description = "table or json (one object on stdout, SI units).", DefaultValueFactory = _ => OutputFormat.Table };
-        format.Validators.Add(r =>
-        {
-            if (r.GetValueOrDefault<OutputFormat>() == OutputFormat.Csv) r.AddError("--format csv is not offered by tune; use table or json.");
-        });
+        var format = CommonOptions.Format(OutputFormat.Table, OutputFormat.Json);
         var write = new Option<string?>("--write") { Description = "Also write the model with the absorber added to this file, ready for every other command." };
         var command = new Command("tune",
             "Size a tuned vibration absorber (mass, spring, damper) for one mode, from the mode's modal mass at the host " +
             "(1/phi_host^2 with mass-normalised shapes) and the classical optimum for the target excitation. The damping " +
-            "ratio printed is the absorber's own, c/(2*sqrt(k*m)).\n\n" + AbsorberCaution.Text + "\n\n" + CliApp.CautionHelp)
+            "ratio printed is the absorber's own, c/(2*sqrt(k*m)).")
         { file, host, ratio, mode, speed, target, method, format, write };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            var excitations = Excitations(document, parse.GetValue(speed), io);
+            var excitations = Excitations(document, parse.GetValue(speed));
             if (excitations is null) return ExitCodes.InputError;
             var modal = ModalAnalysis.Solve(document.Network);
             var request = AbsorberArguments.Request(modal, parse.GetValue(host)!, parse.GetValue(ratio)!, parse.GetValue(mode), excitations.Value,
-                Target(parse.GetValue(target)!), io);
+                parse.GetValue(target), io);
             if (request is null) return ExitCodes.InputError;
             var tuned = AbsorberStudy.Run(document.Structure, modal, request, AbsorberArguments.IsOptimal(parse.GetValue(method)), OperatingLoads.Of(document));
             var (design, names, assessment, improvement) = (tuned.Design, tuned.Names, tuned.Assessment, tuned.Improvement);
@@ -74,28 +68,15 @@ internal static class TuneCommand
     private static string Peak(double value) =>
         double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
 
-    private static ImmutableArray<double>? Excitations(ModelDocument document, string? speedText, Streams io)
+    private static ImmutableArray<double>? Excitations(ModelDocument document, CommandValue? speed)
     {
-        if (speedText is not null)
+        if (speed is not null)
         {
-            var s = QuantityParser.Parse(speedText, Quantity.Frequency);
-            if (!s.Succeeded || !(s.Value > 0))
-            {
-                io.Error.WriteLine($"modalchain: error: --speed '{speedText}': {s.Error ?? "must be positive"}");
-                return null;
-            }
             var orders = document.Criteria.Separation?.Orders ?? [1.0];
-            return [.. orders.Select(h => h * s.Value)];
+            return [.. orders.Select(h => h * speed.Si)];
         }
         return OperatingLoads.AbsorberExcitations(document);
     }
-
-    private static AbsorberTarget Target(string text) => text switch
-    {
-        "base" => AbsorberTarget.BaseAcceleration,
-        "random-force" => AbsorberTarget.RandomForce,
-        _ => AbsorberTarget.Force,
-    };
 
     private static int WriteModel(ModelDocument document, AbsorberDesign design, AbsorberNames names, string output, Streams io)
     {

@@ -12,7 +12,7 @@ internal static class ValidateCommand
         var file = CommonOptions.ModelFile();
         var command = new Command("validate",
             "Check a model file and summarise it (degrees of freedom, total mass, warnings). " +
-            "Every problem is reported as FILE:LINE:COL. Exit code 2 when the file has errors.\n\n" + CliApp.CautionHelp)
+            "Every problem is reported as FILE:LINE:COL. Exit code 2 when the file has errors.")
         { file };
         command.SetAction(parse =>
         {

@@ -80,6 +80,7 @@ internal static class HarmonicTable
 
         o.WriteLine();
         foreach (var n in result.Notes) o.WriteLine("Note: " + n + ".");
+        foreach (var w in result.Warnings) o.WriteLine("Warning: " + w + ".");
         o.WriteLine("Phases are relative to the loads' phase reference; velocity = iωX, acceleration = −ω²X; reactions are the force each support receives.");
         o.WriteLine();
         o.WriteLine("Caution: " + Cautions.Text);

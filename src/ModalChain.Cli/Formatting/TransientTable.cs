@@ -29,7 +29,7 @@ internal static class TransientTable
             var u = result.Get(name, ResponseQuantity.Displacement);
             var v = result.Get(name, ResponseQuantity.Velocity);
             var a = result.Get(name, ResponseQuantity.Acceleration);
-            motion.Add(name, Num(1e3 * u.Peak.Value), Time(u.Peak.Time), Num(1e3 * u.Rms), Num(1e3 * v.Peak.Value), Time(v.Peak.Time),
+            motion.Add(name, Num(1e3 * u.Peak.Value), Time(u.Peak.Time), Rms(1e3 * u.Rms), Num(1e3 * v.Peak.Value), Time(v.Peak.Time),
                 Num(a.Peak.Value), Time(a.Peak.Time));
         }
         motion.Write(o);
@@ -47,7 +47,7 @@ internal static class TransientTable
                     ResponseQuantity.DamperForce => "damper " + r.Name,
                     _ => "reaction at " + r.Name,
                 };
-                table.Add(label, Num(r.Peak.Value), Time(r.Peak.Time), Num(r.Rms));
+                table.Add(label, Num(r.Peak.Value), Time(r.Peak.Time), Rms(r.Rms));
             }
             table.Write(o);
         }
@@ -63,6 +63,9 @@ internal static class TransientTable
     }
 
     private static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
+
+    /// <summary>An RMS, or "n/a" when the window held no step.</summary>
+    private static string Rms(double v) => double.IsNaN(v) ? "n/a" : Num(v);
 
     private static string Time(double t) => t.ToString("F4", Inv);
 

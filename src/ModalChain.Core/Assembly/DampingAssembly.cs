@@ -60,18 +60,25 @@ public static class DampingAssembly
     }
 
     /// <summary>C_m = M Φ diag(2ζ_jω_j) Φᵀ M in N·s/m from the modal ratios of <paramref name="damping"/>; rigid-body modes get none.</summary>
+    /// <remarks>
+    /// The ratios apply to the elastic modes in order: the first ratio to the lowest elastic mode. The network's
+    /// rigid-body modes (one per group of masses that no chain of springs ties to a support,
+    /// <see cref="Topology.UnsupportedGroups"/>) are the lowest modes and take no ratio; they are counted from the
+    /// topology, which is exact, not from the size of their computed eigenvalues.
+    /// </remarks>
     public static Matrix<double> ModalDampingMatrix(Matrix<double> mass, ModalResult modes, DampingModel damping)
     {
         ArgumentNullException.ThrowIfNull(mass);
         ArgumentNullException.ThrowIfNull(modes);
         ArgumentNullException.ThrowIfNull(damping);
         var n = mass.RowCount;
+        var rigidBodyModes = Topology.UnsupportedGroups(modes.Network).Length;
         var mPhi = Matrix<double>.Build.Dense(n, modes.Modes.Length);
         var scaled = Matrix<double>.Build.Dense(n, modes.Modes.Length);
         for (var j = 0; j < modes.Modes.Length; j++)
         {
             var mode = modes.Modes[j];
-            var c = mode.IsRigidBody ? 0 : 2 * damping.ModalRatioOf(mode.Number) * mode.AngularFrequency;
+            var c = j < rigidBodyModes || mode.IsRigidBody ? 0 : 2 * damping.ModalRatioOf(j - rigidBodyModes + 1) * mode.AngularFrequency;
             for (var i = 0; i < n; i++)
             {
                 var v = mass[i, i] * mode.Shape[i];

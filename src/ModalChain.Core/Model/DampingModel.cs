@@ -35,7 +35,7 @@ public sealed record RayleighDamping(double MassCoefficient, double StiffnessCoe
 /// hysteretic loss factor η that makes the stiffness complex, K(1 + iη) (frequency-domain analyses only; at
 /// resonance it is equivalent to ζ = η/2). Modal ratios and Rayleigh damping are not used together.
 /// </remarks>
-/// <param name="ModalRatios">Damping ratio per mode, lowest first; the last one applies to all higher modes. Empty for none.</param>
+/// <param name="ModalRatios">Damping ratio per elastic mode, lowest first (rigid-body modes take none); the last one applies to all higher modes. Empty for none.</param>
 /// <param name="Rayleigh">Rayleigh coefficients, or null.</param>
 /// <param name="LossFactor">Hysteretic loss factor η (dimensionless), 0 for none.</param>
 public sealed record DampingModel(ImmutableArray<double> ModalRatios, RayleighDamping? Rayleigh, double LossFactor)
@@ -49,7 +49,7 @@ public sealed record DampingModel(ImmutableArray<double> ModalRatios, RayleighDa
     /// <summary>True when the model adds nothing to the discrete dampers.</summary>
     public bool IsNone => ModalRatios.IsDefaultOrEmpty && Rayleigh is null && LossFactor == 0;
 
-    /// <summary>The modal damping ratio given for 1-based mode <paramref name="number"/> (the last entry repeats), 0 when none is given.</summary>
+    /// <summary>The modal damping ratio given for 1-based elastic mode <paramref name="number"/> (the last entry repeats), 0 when none is given.</summary>
     public double ModalRatioOf(int number) =>
         ModalRatios.IsDefaultOrEmpty ? 0 : ModalRatios[Math.Min(number, ModalRatios.Length) - 1];
 }

@@ -7,7 +7,11 @@ using ModalChain.Io.Model;
 namespace ModalChain.Io.Json;
 
 /// <summary>Writes a <see cref="CheckOutcome"/> as one JSON object.</summary>
-/// <remarks>Reserves are fractions: separation reserve = relative change of the natural frequency that reaches the band edge; limit reserve = (limit − value)/limit.</remarks>
+/// <remarks>
+/// Reserves are fractions: separation reserve = relative change of the natural frequency that reaches the band edge;
+/// limit reserve = (limit − value)/limit. A reserve with no finite value is null, with "reserve_note" saying why
+/// (JSON has no infinity).
+/// </remarks>
 public static class CheckJson
 {
     /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
@@ -26,6 +30,7 @@ public static class CheckJson
             w.Array("speeds_hz", sep.Criterion.SpeedsHz);
             w.Array("orders", sep.Criterion.Orders);
             w.Number("reserve", sep.Reserve);
+            w.Note("reserve_note", sep.ReserveNote);
             w.WriteStartArray("pairs");
             foreach (var p in sep.Pairs)
             {
@@ -37,6 +42,7 @@ public static class CheckJson
                 w.Number("excitation_hz", p.ExcitationHz);
                 w.Number("separation", p.Separation);
                 w.Number("reserve", p.Reserve);
+                w.Note("reserve_note", p.ReserveNote);
                 w.WriteBoolean("passes", p.Passes);
                 w.WriteEndObject();
             }
@@ -55,6 +61,7 @@ public static class CheckJson
             w.Number("limit", l.Limit.Value);
             w.Number("value", l.Value);
             w.Number("reserve", l.Reserve);
+            w.Note("reserve_note", l.ReserveNote);
             w.WriteBoolean("passes", l.Passes);
             w.WriteEndObject();
         }

@@ -144,6 +144,7 @@ public static class HarmonicJson
         w.WriteEndArray();
         w.WriteStartArray("warnings");
         foreach (var d in document.Warnings) w.WriteStringValue(d.ToString());
+        foreach (var warning in result.Warnings) w.WriteStringValue(warning);
         w.WriteEndArray();
         w.WriteString("caution", Cautions.Text);
         w.WriteEndObject();

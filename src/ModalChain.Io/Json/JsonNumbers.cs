@@ -17,6 +17,12 @@ internal static class JsonNumbers
         else writer.WriteNullValue();
     }
 
+    /// <summary>A sentence saying why the number before it is null; written only when there is one.</summary>
+    public static void Note(this Utf8JsonWriter writer, string name, string? note)
+    {
+        if (note is not null) writer.WriteString(name, note);
+    }
+
     public static void Array(this Utf8JsonWriter writer, string name, IEnumerable<double> values)
     {
         writer.WriteStartArray(name);

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using ModalChain.Core;
+using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Studies;
 using ModalChain.Io.Model;
 
@@ -37,6 +38,20 @@ public static class StudyJson
             w.WriteStartObject();
             w.WriteString("name", result.Request.Criteria[c].Name);
             w.Array("reserve", result.Steps.Select(s => s.Reserves[c]));
+            if (result.Steps.Any(s => !double.IsFinite(s.Reserves[c])))
+            {
+                // Beside each null reserve, the reason (JSON has no infinity).
+                w.WriteStartArray("reserve_note");
+                foreach (var s in result.Steps)
+                {
+                    var note = result.Request.Criteria[c].Limit is null
+                        ? ReserveNotes.OfSeparation(s.Reserves[c], rigidBody: false)
+                        : ReserveNotes.OfLimit(0, s.Reserves[c]);
+                    if (note is null) w.WriteNullValue();
+                    else w.WriteStringValue(note);
+                }
+                w.WriteEndArray();
+            }
             w.WriteStartArray("passes");
             foreach (var s in result.Steps) w.WriteBooleanValue(s.Reserves[c] >= 0);
             w.WriteEndArray();

@@ -44,7 +44,9 @@ public static class TuneJson
         {
             w.Array("band_hz", [a.BandHz.Low, a.BandHz.High]);
             w.Number("peak_before", a.PeakBefore);
+            w.Note("peak_before_note", Unbounded(a.PeakBefore));
             w.Number("peak_after", a.PeakAfter);
+            w.Note("peak_after_note", Unbounded(a.PeakAfter));
             w.Number("peak_frequency_hz", a.PeakFrequencyHz);
             w.Number("stroke_m", a.OperatingStroke);
             w.WriteString("stroke_basis", "peak relative displacement of the absorber to the host under the model's loads at their running speeds; null when no load has a speed");
@@ -56,6 +58,7 @@ public static class TuneJson
                 w.WriteStartObject();
                 w.Number("frequency_error", p.FrequencyError);
                 w.Number("peak", p.Peak);
+                w.Note("peak_note", Unbounded(p.Peak));
                 w.WriteEndObject();
             }
             w.WriteEndArray();
@@ -81,4 +84,8 @@ public static class TuneJson
         AbsorberTarget.BaseAcceleration => "base",
         _ => "random-force",
     };
+
+    // Beside a null peak, why it has no finite value (JSON has no infinity); the table prints the same words.
+    private static string? Unbounded(double peak) =>
+        double.IsFinite(peak) ? null : "unbounded: no damping acts on that resonance";
 }

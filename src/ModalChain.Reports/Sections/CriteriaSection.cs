@@ -68,7 +68,7 @@ public sealed class CriteriaSection : IReportSection
                     DisplayUnits.Number(speed * 60), DisplayUnits.Given(order), DisplayUnits.Number(fe),
                     $"{DisplayUnits.Number((1 - c.Margin) * fe)} – {DisplayUnits.Number((1 + c.Margin) * fe)}",
                     worst.ModeNumber.ToString(Inv), DisplayUnits.Number(worst.NaturalFrequencyHz),
-                    DisplayUnits.Percent(worst.Separation), Reserve(worst.Reserve), worst.Passes ? "pass" : "FAIL",
+                    DisplayUnits.Percent(worst.Separation), Reserve(worst.Reserve, worst.ReserveNote), worst.Passes ? "pass" : "FAIL",
                 ]);
             }
             html.Table(string.Create(Inv, $"Frequency separation: no natural frequency within ±{DisplayUnits.Given(100 * c.Margin)} % of running speed × order"),
@@ -80,7 +80,7 @@ public sealed class CriteriaSection : IReportSection
                 ["Criterion", "Value", "Limit", "Reserve (%)", "Result"],
                 _outcome.Limits.Select(l => (IReadOnlyList<string>)
                 [
-                    l.Limit.Describe(), Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Reserve(l.Reserve), l.Passes ? "pass" : "FAIL",
+                    l.Limit.Describe(), Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Reserve(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL",
                 ]), new HashSet<int> { 1, 2, 3 }, "criteria-table");
         if (_outcome.NotEvaluated.Count > 0)
         {
@@ -99,8 +99,8 @@ public sealed class CriteriaSection : IReportSection
         parsed.RootElement.WriteTo(json);
     }
 
-    private static string Reserve(double fraction) =>
-        double.IsPositiveInfinity(fraction) ? "∞" : (100 * fraction).ToString("+0.0;−0.0;0.0", Inv);
+    private static string Reserve(double fraction, string? note) =>
+        double.IsFinite(fraction) ? (100 * fraction).ToString("+0.0;−0.0;0.0", Inv) : note ?? "n/a";
 
     private static string Show(double si, ResponseQuantity q) => q switch
     {

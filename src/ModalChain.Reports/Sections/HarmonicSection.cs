@@ -79,6 +79,7 @@ public sealed class HarmonicSection : IReportSection
                 ? string.Create(Inv, $"by modal superposition of {_result.ModesUsed} modes with residual flexibility.")
                 : "by the direct complex solve (K(1 + iη) − ω²M + iωC) X = F at each frequency."));
         foreach (var note in _result.Notes) html.Paragraph(note, "note");
+        foreach (var warning in _result.Warnings) html.Paragraph("Warning: " + warning, "note");
 
         var (dSym, dScale) = Displacement;
         var (vSym, vScale) = Velocity;

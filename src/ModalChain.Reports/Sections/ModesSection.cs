@@ -84,7 +84,7 @@ public sealed class ModesSection : IReportSection
         [
             m.Number.ToString(Inv),
             DisplayUnits.Number(m.NaturalFrequencyHz),
-            m.IsRigidBody ? "∞" : DisplayUnits.Number(m.PeriodSeconds),
+            m.IsRigidBody ? "rigid body" : DisplayUnits.Number(m.PeriodSeconds),
             DisplayUnits.Number(m.AngularFrequency),
             m.IsRigidBody ? "—" : DisplayUnits.Percent(ModesJson.DampingRatioOf(_context.Damped, m)),
             u.Mass(m.EffectiveModalMass),
@@ -132,7 +132,7 @@ public sealed class ModesSection : IReportSection
         var header = new[]
         {
             ModeTitle(mode),
-            string.Create(Inv, $"Period {(mode.IsRigidBody ? "∞" : DisplayUnits.Number(mode.PeriodSeconds) + " s")}  ·  ω = {DisplayUnits.Number(mode.AngularFrequency)} rad/s  ·  effective mass {DisplayUnits.Percent(mode.EffectiveMassFraction)} % of total (cumulative {DisplayUnits.Percent(mode.CumulativeEffectiveMassFraction)} %)"),
+            string.Create(Inv, $"Period {(mode.IsRigidBody ? "none (rigid-body mode)" : DisplayUnits.Number(mode.PeriodSeconds) + " s")}  ·  ω = {DisplayUnits.Number(mode.AngularFrequency)} rad/s  ·  effective mass {DisplayUnits.Percent(mode.EffectiveMassFraction)} % of total (cumulative {DisplayUnits.Percent(mode.CumulativeEffectiveMassFraction)} %)"),
         };
         var direction = layout.Axis == ChainAxis.Vertical ? "positive to the right" : "positive upwards";
         var footer = new[]
@@ -143,7 +143,7 @@ public sealed class ModesSection : IReportSection
         var overlay = new ModeOverlay(shape, referenceName, scale, animate ? 25 : 1);
         var scene = NetworkFigure.Mode(layout, overlay, header, footer);
         var caption = string.Create(Inv,
-            $"Mode {mode.Number} at {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz (period {(mode.IsRigidBody ? "∞" : DisplayUnits.Number(mode.PeriodSeconds) + " s")}), effective mass {DisplayUnits.Percent(mode.EffectiveMassFraction)} %. Shape normalised to +1 at {referenceName}.");
+            $"Mode {mode.Number} at {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz ({(mode.IsRigidBody ? "rigid-body mode" : "period " + DisplayUnits.Number(mode.PeriodSeconds) + " s")}), effective mass {DisplayUnits.Percent(mode.EffectiveMassFraction)} %. Shape normalised to +1 at {referenceName}.");
         return new SchematicFigure(FigureName(mode.Number), caption, "mode", scene, animate);
     }
 

@@ -77,7 +77,7 @@ public sealed class TransientSection : IReportSection
         html.Table("Peaks and RMS of each recorded response",
             ["Response", "Quantity", "Unit", "Peak (largest magnitude, signed)", "at (s)", "RMS"],
             _result.Responses.Select(r => (IReadOnlyList<string>)
-                [r.Name, TransientJson.QuantityName(r.Quantity), r.Unit, DisplayUnits.Number(r.Peak.Value), DisplayUnits.Number(r.Peak.Time), DisplayUnits.Number(r.Rms)]),
+                [r.Name, TransientJson.QuantityName(r.Quantity), r.Unit, DisplayUnits.Number(r.Peak.Value), DisplayUnits.Number(r.Peak.Time), double.IsNaN(r.Rms) ? "n/a" : DisplayUnits.Number(r.Rms)]),
             new HashSet<int> { 3, 4, 5 });
         var e = _result.Energy;
         html.Paragraph(string.Create(Inv,

@@ -56,11 +56,35 @@ public class CheckCommandTests
     }
 
     [Fact]
-    public void ExampleModel_IsCheckedEndToEnd()
+    public void ExampleModel_FailsItsSeparationCheck_AsItsDocumentationSays()
     {
+        // The example's header: "The deck's own mode lands near running speed, so the separation check fails".
         var run = CommandRun.Of("check", Path.Combine(CommandRun.Models(), "mezzanine-fan-absorber-check.yaml"), "--format", "json");
-        Assert.Contains(run.ExitCode, new[] { 0, 1 });
-        Assert.Equal("Supply fan on a steel mezzanine", run.Json().GetProperty("title").GetString());
+        Assert.Equal(1, run.ExitCode);
+        var json = run.Json();
+        Assert.Equal("Supply fan on a steel mezzanine", json.GetProperty("title").GetString());
+        Assert.False(json.GetProperty("passes").GetBoolean());
+        var sep = json.GetProperty("separation");
+        Assert.False(sep.GetProperty("passes").GetBoolean());
+
+        // Independent reference: the two undamped natural frequencies of deck (2600 kg on 68 kN/mm) and fan base
+        // (420 kg on 1.6 kN/mm) from the closed-form roots of det(K − ω²M) = 0 for two masses in series (Rao,
+        // Mechanical Vibrations, §5.3 [from memory]): m1·m2·ω⁴ − (m1·k2 + m2·(k1 + k2))·ω² + k1·k2 = 0.
+        double m1 = 2600, m2 = 420, k1 = 68e6, k2 = 1.6e6;
+        double a = m1 * m2, b = -(m1 * k2 + m2 * (k1 + k2)), c = k1 * k2;
+        var disc = Math.Sqrt(b * b - 4 * a * c);
+        var f2 = Math.Sqrt((-b + disc) / (2 * a)) / (2 * Math.PI);
+
+        // The failing criterion: mode 2 (the deck's own mode, near 26.1 Hz) inside the ±20 % band of order 1 at 1470 rpm (24.5 Hz).
+        var failing = sep.GetProperty("pairs").EnumerateArray().Where(p => !p.GetProperty("passes").GetBoolean()).ToList();
+        var only = Assert.Single(failing);
+        Assert.Equal(2, only.GetProperty("mode").GetInt32());
+        Assert.Equal(1.0, only.GetProperty("order").GetDouble());
+        NumericAssert.Close(24.5, only.GetProperty("excitation_hz").GetDouble(), Tolerance.Rel(1e-14), "1470 rpm");
+        NumericAssert.Close(f2, only.GetProperty("frequency_hz").GetDouble(), Tolerance.Rel(1e-9), "f_2, closed form");
+        // Reserve inside the band: −min(e₊ − f_n, f_n − e₋)/f_n with e± = (1 ± 0.2)·24.5 Hz (docs/methods.md).
+        var expected = -Math.Min(1.2 * 24.5 - f2, f2 - 0.8 * 24.5) / f2;
+        NumericAssert.Close(expected, sep.GetProperty("reserve").GetDouble(), Tolerance.Rel(1e-8), "governing reserve");
     }
 
     [Fact]

@@ -79,6 +79,24 @@ public sealed class TransientCommandTests : IDisposable
     }
 
     [Fact]
+    public void ExampleStartUp_ShortRunBeforeItsRmsWindow_ReportsRmsAsNotAvailableWithAWarning()
+    {
+        // The example's RMS window is 8 to 10 s; a 1 s run holds no step of it. RMS must be null in JSON and n/a in the
+        // table, with a warning, never 0 (common practice: an RMS of nothing is not a measurement).
+        var (code, output, _) = Run("transient", Example, "--duration", "1 s", "--format", "json");
+        Assert.Equal(ExitCodes.Success, code);
+        using var json = JsonDocument.Parse(output);
+        var root = json.RootElement;
+        Assert.All(root.GetProperty("peaks").EnumerateArray(), p => Assert.Equal(JsonValueKind.Null, p.GetProperty("rms").ValueKind));
+        Assert.Contains(root.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("holds no step", StringComparison.Ordinal));
+
+        var (tableCode, table, _) = Run("transient", Example, "--duration", "1 s");
+        Assert.Equal(ExitCodes.Success, tableCode);
+        Assert.Contains("n/a", table);
+        Assert.Contains("Warning: The RMS window 8 to 10 s holds no step", table);
+    }
+
+    [Fact]
     public void SuddenLoadOnOneMass_PeakIsTwiceTheStaticDeflection()
     {
         // Dynamic factor 2 of a suddenly applied load on an undamped mass-spring (Chopra, Dynamics of Structures, §4.3 —
@@ -103,10 +121,10 @@ public sealed class TransientCommandTests : IDisposable
     }
 
     [Theory]
-    [InlineData("--step", "-1 ms", "positive time")]
+    [InlineData("--step", "-1 ms", "must be positive (a time)")]
     [InlineData("--step", "20 s", "longer than the duration")]
     [InlineData("--step", "1 kg", "--step")]
-    [InlineData("--method", "euler", "--method is 'euler'")]
+    [InlineData("--method", "euler", "--method 'euler' is not one of newmark, hht, exact, modal")]
     [InlineData("--output", "nobody", "'nobody'")]
     public void BadOptions_ExitWithInputError(string option, string value, string message)
     {

@@ -94,7 +94,7 @@ public class TuneCommandTests
     {
         var run = CommandRun.Of("tune", CommandRun.Deck("68 kN/mm"), "--host", "deck", "--mass-ratio", "5 %", "--format", "csv");
         Assert.Equal(2, run.ExitCode);
-        Assert.Contains("not offered", run.Error);
+        Assert.Contains("--format 'csv' is not one of table, json", run.Error);
     }
 
     [Fact]

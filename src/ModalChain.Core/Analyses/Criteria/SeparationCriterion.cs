@@ -46,7 +46,31 @@ public sealed record SeparationCriterion(double Margin, ImmutableArray<double> S
 /// <param name="Passes">True when the natural frequency is outside the open band (an edge passes).</param>
 public sealed record SeparationPair(
     int ModeNumber, double NaturalFrequencyHz, double SpeedHz, double Order, double ExcitationHz,
-    double Separation, double Reserve, bool Passes);
+    double Separation, double Reserve, bool Passes)
+{
+    /// <summary>Why <see cref="Reserve"/> has no finite value (a rigid-body mode lies in no band), or null when it has one.</summary>
+    public string? ReserveNote => ReserveNotes.OfSeparation(Reserve, rigidBody: true);
+}
+
+/// <summary>The sentences printed, and written to JSON beside a null, where a reserve has no finite value.</summary>
+public static class ReserveNotes
+{
+    /// <summary>For a separation pair or check whose reserve is <paramref name="reserve"/>; null when it is finite.</summary>
+    /// <param name="reserve">The reserve (a fraction).</param>
+    /// <param name="rigidBody">True for one pair (its mode is a rigid-body mode), false for the whole check (no elastic mode at all).</param>
+    public static string? OfSeparation(double reserve, bool rigidBody) =>
+        double.IsFinite(reserve) ? null
+        : double.IsPositiveInfinity(reserve)
+            ? rigidBody ? "n/a: rigid-body mode (0 Hz), in no band" : "n/a: no mode in range, only rigid-body modes at 0 Hz"
+            : "n/a: not evaluated";
+
+    /// <summary>For a vibration limit whose response is <paramref name="value"/> and reserve <paramref name="reserve"/>; null when both are finite.</summary>
+    public static string? OfLimit(double value, double reserve) =>
+        double.IsFinite(value) && double.IsFinite(reserve) ? null
+        : double.IsPositiveInfinity(value) ? "n/a: the response is unbounded (undamped resonance at an operating speed)"
+        : double.IsNegativeInfinity(reserve) ? "n/a: not evaluated"
+        : "n/a: the response could not be computed";
+}
 
 /// <summary>The outcome of a separation check over every mode, speed and order.</summary>
 /// <param name="Criterion">The rule checked.</param>
@@ -59,4 +83,7 @@ public sealed record SeparationResult(SeparationCriterion Criterion, ImmutableAr
 
     /// <summary>The governing reserve as a fraction (+∞ when there is nothing to check).</summary>
     public double Reserve => Governing?.Reserve ?? double.PositiveInfinity;
+
+    /// <summary>Why <see cref="Reserve"/> has no finite value (no elastic mode), or null when it has one.</summary>
+    public string? ReserveNote => ReserveNotes.OfSeparation(Reserve, rigidBody: false);
 }

@@ -37,6 +37,9 @@ public sealed record LimitResult(VibrationLimit Limit, double Value, double Rese
 {
     /// <summary>True when the value does not exceed the limit.</summary>
     public bool Passes => Value <= Limit.Value;
+
+    /// <summary>Why the value or reserve has no finite value, or null when both have one.</summary>
+    public string? ReserveNote => ReserveNotes.OfLimit(Value, Reserve);
 }
 
 /// <summary>Amplitudes of a sum of harmonic components and their check against a <see cref="VibrationLimit"/>.</summary>

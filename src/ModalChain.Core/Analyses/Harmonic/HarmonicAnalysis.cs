@@ -32,12 +32,14 @@ public static class HarmonicAnalysis
         var sweep = Sweep(system, frequencies, loads, outputs, spec.Method, spec.ModeCount);
 
         var operating = ImmutableArray.CreateBuilder<OperatingPoint>();
+        var warnings = new List<string>(sweep.Warnings);
         foreach (var group in loads.Where(l => l.SpeedHz is > 0).GroupBy(l => l.SpeedHz!.Value).OrderBy(g => g.Key))
         {
             var at = Sweep(system, [group.Key], [.. group], outputs, spec.Method, spec.ModeCount);
             operating.Add(new OperatingPoint(group.Key, [.. group.Select(l => l.Name)], at));
+            warnings.AddRange(at.Warnings.Select(w => string.Create(CultureInfo.InvariantCulture, $"operating point {group.Key:G6} Hz: {w}")));
         }
-        return sweep with { OperatingPoints = operating.ToImmutable() };
+        return sweep with { OperatingPoints = operating.ToImmutable(), Warnings = [.. warnings] };
     }
 
     /// <summary>The response at exactly <paramref name="frequenciesHz"/> to <paramref name="loads"/> acting together.</summary>
@@ -151,6 +153,26 @@ public static class HarmonicAnalysis
             throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture,
                 $"the dynamic stiffness is singular at {frequenciesHz[failed]:G6} Hz ({n} DOFs): an undamped natural frequency; add damping or move the point"));
 
+        var outputSlots = outputIndex.Select(i => slot[i]).ToArray();
+        var warnings = ImmutableArray.CreateBuilder<string>();
+        if (system.LossFactor == 0 && !system.HasViscousDamping)
+            warnings.AddRange(UndampedResonanceWarnings(system, frequenciesHz, x, nk, outputSlots));
+        if (method == HarmonicMethod.Modal && used < n)
+        {
+            if (n > TruncationCheckMaxDofs)
+                notes.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"the truncation error is not estimated above {TruncationCheckMaxDofs} masses: compare with the direct method at the peaks"));
+            else
+            {
+                var (error, at, output, count) = TruncationError(system, loading, [.. observations], frequenciesHz, x, nk, outputSlots, used);
+                notes.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"truncation error against a direct solve at {count} frequencies (response peaks or operating points): up to {100 * error:G2} % of the largest output there"));
+                if (error > TruncationTolerance)
+                    warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                        $"the modal superposition of {used} of {n} modes is off by up to {100 * error:G2} % (at {at:G6} Hz, output {outputs[output]}) against a direct solve, above the {100 * TruncationTolerance:G2} % tolerance: keep more modes or use the direct method"));
+            }
+        }
+
         // Post-processing: support motions, responses, element forces and reactions.
         var u = new Complex[nf * p.SupportCount];
         var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];
@@ -221,7 +243,105 @@ public static class HarmonicAnalysis
         }
 
         return new HarmonicResult([.. frequenciesHz], method, used, [.. loads.Select(l => l.Name)], responses,
-            forces.ToImmutable(), reactions.ToImmutable(), transmissibilities.ToImmutable(), [], notes.ToImmutable());
+            forces.ToImmutable(), reactions.ToImmutable(), transmissibilities.ToImmutable(), [], notes.ToImmutable())
+        {
+            Warnings = warnings.ToImmutable(),
+        };
+    }
+
+    /// <summary>Above this relative difference from a direct solve a truncated modal sweep is warned (2 %).</summary>
+    public const double TruncationTolerance = 0.02;
+
+    /// <summary>Largest model whose truncated modal sweep is checked against a dense direct solve (O(n³) per point).</summary>
+    public const int TruncationCheckMaxDofs = 300;
+
+    /// <summary>How many frequencies of a truncated modal sweep are checked against the direct solve.</summary>
+    private const int TruncationCheckPoints = 12;
+
+    /// <summary>Relative distance from a natural frequency within which an undamped response is warned (1 %).</summary>
+    public const double UndampedResonanceBand = 0.01;
+
+    /// <summary>One warning per elastic mode whose natural frequency lies within <see cref="UndampedResonanceBand"/> of a computed point of an undamped model.</summary>
+    private static IEnumerable<string> UndampedResonanceWarnings(DampedSystem system, IReadOnlyList<double> frequenciesHz,
+        Complex[] x, int nk, int[] outputSlots)
+    {
+        foreach (var mode in system.Modes.Modes.Where(m => !m.IsRigidBody && m.NaturalFrequencyHz > 0))
+        {
+            var fn = mode.NaturalFrequencyHz;
+            var nearest = -1;
+            for (var k = 0; k < frequenciesHz.Count; k++)
+                if (nearest < 0 || Math.Abs(frequenciesHz[k] - fn) < Math.Abs(frequenciesHz[nearest] - fn)) nearest = k;
+            if (nearest < 0) yield break;
+            var distance = Math.Abs(frequenciesHz[nearest] / fn - 1);
+            if (distance > UndampedResonanceBand) continue;
+            var amplitude = outputSlots.Length == 0 ? 0 : outputSlots.Max(s => x[nearest * nk + s].Magnitude);
+            yield return string.Create(CultureInfo.InvariantCulture,
+                $"the model has no damping and {frequenciesHz[nearest]:G6} Hz lies {100 * distance:G2} % from the natural frequency of mode {mode.Number} ({fn:G6} Hz): the displacement there ({amplitude:G3} m at the largest output) is set by how close the point lies to resonance, not by the structure, and grows without bound at resonance; add damping (modal ratios, Rayleigh, a loss factor or dampers)");
+        }
+    }
+
+    /// <summary>
+    /// The largest relative difference between the modal result <paramref name="x"/> and a dense direct solve, over a
+    /// few frequencies where it matters most: the points nearest the natural frequencies of the modes left out, then the
+    /// local maxima of each output (largest first) or, for a short list such as an operating point, every frequency.
+    /// Relative to the largest output displacement at that frequency.
+    /// </summary>
+    private static (double Error, double AtHz, int Output, int Count) TruncationError(DampedSystem system, HarmonicLoading loading,
+        double[][] observations, IReadOnlyList<double> frequenciesHz, Complex[] x, int nk, int[] outputSlots, int used)
+    {
+        var nf = frequenciesHz.Count;
+        var chosen = new SortedSet<int>();
+        if (nf <= TruncationCheckPoints) chosen.UnionWith(Enumerable.Range(0, nf));
+        else
+        {
+            // A truncated mode's resonance is missing from the modal result altogether, so the points nearest the natural
+            // frequencies of the modes left out come first; then the modal result's own peaks, largest first.
+            var (lo, hi) = (frequenciesHz.Min(), frequenciesHz.Max());
+            foreach (var mode in system.Modes.Modes.Skip(used).Where(m => m.NaturalFrequencyHz >= lo && m.NaturalFrequencyHz <= hi))
+            {
+                if (chosen.Count == TruncationCheckPoints / 2) break;
+                var nearest = 0;
+                for (var k = 1; k < nf; k++)
+                    if (Math.Abs(frequenciesHz[k] - mode.NaturalFrequencyHz) < Math.Abs(frequenciesHz[nearest] - mode.NaturalFrequencyHz)) nearest = k;
+                chosen.Add(nearest);
+            }
+            var candidates = new List<(double Magnitude, int K)>();
+            foreach (var s in outputSlots)
+                for (var k = 0; k < nf; k++)
+                {
+                    var v = x[k * nk + s].Magnitude;
+                    var left = k > 0 ? x[(k - 1) * nk + s].Magnitude : double.NegativeInfinity;
+                    var right = k < nf - 1 ? x[(k + 1) * nk + s].Magnitude : double.NegativeInfinity;
+                    if (v >= left && v >= right) candidates.Add((v, k));
+                }
+            foreach (var (_, k) in candidates.OrderByDescending(c => c.Magnitude))
+            {
+                if (chosen.Count == TruncationCheckPoints) break;
+                chosen.Add(k);
+            }
+        }
+
+        var engine = new DenseEngine(system, loading, observations);
+        var workspace = engine.CreateWorkspace();
+        var coefficients = new Complex[loading.Terms.Count];
+        var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];
+        var y = new Complex[nk];
+        var worst = (Error: 0.0, AtHz: double.NaN, Output: 0, Count: chosen.Count);
+        foreach (var k in chosen)
+        {
+            var omega = 2 * Math.PI * frequenciesHz[k];
+            HarmonicLoading.Powers(omega, powers);
+            for (var r = 0; r < coefficients.Length; r++) coefficients[r] = powers[loading.Terms[r].Power - HarmonicLoading.MinPower];
+            if (!engine.Solve(omega, coefficients, y, workspace)) continue;
+            var scale = outputSlots.Max(s => y[s].Magnitude);
+            if (!(scale > 0)) continue;
+            for (var o = 0; o < outputSlots.Length; o++)
+            {
+                var error = (x[k * nk + outputSlots[o]] - y[outputSlots[o]]).Magnitude / scale;
+                if (error > worst.Error) worst = (error, frequenciesHz[k], o, chosen.Count);
+            }
+        }
+        return worst;
     }
 
     /// <summary>The largest |X| of one mass over a band, cheaply: for optimisers that call it many times.</summary>

@@ -270,3 +270,53 @@ internal sealed class ModalEngine : HarmonicEngine
         return true;
     }
 }
+
+/// <summary>A reference solve for checks: the dense complex LU of (K(1+iη) − ω²M + iωC) at each frequency.</summary>
+/// <remarks>
+/// Gaussian elimination with partial pivoting (<see cref="ComplexLu"/>) of the n×n dynamic stiffness, O(n³) per
+/// frequency: independent of the modes and of the state-space form, so it checks both other engines at a few points.
+/// </remarks>
+internal sealed class DenseEngine(DampedSystem system, HarmonicLoading loading, double[][] observations) : HarmonicEngine(observations)
+{
+    private readonly int _n = system.Partition.FreeCount;
+
+    private sealed class Workspace(int n) : EngineWorkspace
+    {
+        public readonly Complex[] Matrix = new Complex[n * n];
+        public readonly Complex[] B = new Complex[n];
+        public readonly int[] Pivots = new int[n];
+    }
+
+    public override EngineWorkspace CreateWorkspace() => new Workspace(_n);
+
+    public override bool Solve(double omega, ReadOnlySpan<Complex> coefficients, Span<Complex> x, EngineWorkspace workspace)
+    {
+        var ws = (Workspace)workspace;
+        var n = _n;
+        var p = system.Partition;
+        var c = system.Damping.FF;
+        var hysteretic = new Complex(1, system.LossFactor);
+        var z = ws.Matrix.AsSpan();
+        for (var i = 0; i < n; i++)
+            for (var j = 0; j < n; j++)
+                z[i * n + j] = hysteretic * p.StiffnessFF[i, j] - omega * omega * p.Mass[i, j] + new Complex(0, omega * c[i, j]);
+        var b = ws.B.AsSpan();
+        b.Clear();
+        for (var r = 0; r < loading.Terms.Count; r++)
+        {
+            var v = loading.Terms[r].Vector;
+            for (var i = 0; i < n; i++) b[i] += coefficients[r] * v[i];
+        }
+        if (!ComplexLu.Factor(z, n, ws.Pivots)) return false;
+        ComplexLu.Solve(z, n, ws.Pivots, b);
+        for (var k = 0; k < x.Length; k++)
+        {
+            var w = Observations[k];
+            var s = Complex.Zero;
+            for (var i = 0; i < n; i++)
+                if (w[i] != 0) s += w[i] * b[i];
+            x[k] = s;
+        }
+        return true;
+    }
+}

@@ -96,6 +96,10 @@ public sealed record HarmonicResult(
     ImmutableArray<OperatingPoint> OperatingPoints,
     ImmutableArray<string> Notes)
 {
+    /// <summary>Things the engineer must act on: an undamped model computed at resonance, a modal truncation error above tolerance.</summary>
+    /// <remarks>For <see cref="HarmonicAnalysis.Solve(Assembly.DampedSystem, HarmonicSpec)"/> it also holds the operating points' warnings.</remarks>
+    public ImmutableArray<string> Warnings { get; init; } = [];
+
     /// <summary>The response of mass <paramref name="dof"/>, or null when it is not an output.</summary>
     public DofResponse? ResponseOf(string dof) => Responses.FirstOrDefault(r => r.Dof == dof);
 

@@ -163,8 +163,11 @@ internal sealed class ResponseRecorder : IStepSink
     [
         .. _probes.Select((p, i) => new ResponseHistory(
             p.Name, p.Quantity, p.Unit, [.. _values[i]], new Peak(_peakValue[i], _peakTime[i]),
-            _rmsSamples > 0 ? Math.Sqrt(_sumSquares[i] / _rmsSamples) : 0.0)),
+            _rmsSamples > 0 ? Math.Sqrt(_sumSquares[i] / _rmsSamples) : double.NaN)),
     ];
+
+    /// <summary>Number of steps that fell inside the RMS window; 0 leaves every RMS not available (NaN).</summary>
+    public int RmsSamples => _rmsSamples;
 
     public EnergyBalance Energy => new(_initial, _work, _kinetic, _strain, _dissipated,
         _scale > 0 ? _maxResidual / _scale : 0.0);

@@ -158,7 +158,7 @@ public static class TransientAnalysis
                 consideredModes = modes.Modes[..count];
                 var shapes = Matrix<double>.Build.Dense(n, count, (i, j) => consideredModes[j].Shape[i]);
                 var omega = consideredModes.Select(m => m.AngularFrequency).ToArray();
-                var zeta = ModalDamping(settings, modalRatios, shapes, omega, matrices.Damping, warnings);
+                var zeta = ModalDamping(settings, modalRatios, shapes, omega, matrices.Damping, warnings, Topology.UnsupportedGroups(network).Length);
                 var integrator = new ModalSuperpositionIntegrator();
                 description = string.Create(CultureInfo.InvariantCulture, $"{integrator.Name}, {count} of {n} modes");
                 var twoZetaOmega = omega.Select((w, j) => 2 * zeta[j] * w).ToArray();
@@ -179,6 +179,7 @@ public static class TransientAnalysis
         }
 
         warnings.AddRange(StepWarnings(modes, consideredModes, load, matrices, settings, excitations));
+        if (RmsWindowWarning(settings, steps, recorder.RmsSamples) is { } rmsWarning) warnings.Add(rmsWarning);
         var energy = recorder.Energy;
         if (energy.MaxRelativeError > 0.01)
             warnings.Add(Invariant($"The energy balance closes only to {100 * energy.MaxRelativeError:F2} % of the largest energy: reduce the step."));
@@ -243,16 +244,16 @@ public static class TransientAnalysis
         new(probes, SymmetricSparseMatrix.From(system.Mass), SymmetricSparseMatrix.From(system.Damping),
             SymmetricSparseMatrix.From(system.Stiffness), settings.Step, steps, settings.RecordEvery, rmsFrom, rmsTo, progress);
 
-    /// <summary>ζⱼ from the settings (last repeats) or from the diagonal of ΦᵀCΦ; warns when C is far from classical.</summary>
+    /// <summary>ζⱼ from the settings (elastic modes in order, last repeats) or from the diagonal of ΦᵀCΦ; warns when C is far from classical.</summary>
     private static double[] ModalDamping(TransientSettings settings, ImmutableArray<double>? given, Matrix<double> shapes, double[] omega,
-        Matrix<double> c, List<string> warnings)
+        Matrix<double> c, List<string> warnings, int rigidBodyModes)
     {
         var count = omega.Length;
         var zeta = new double[count];
         if (!settings.ModalDampingRatios.IsEmpty)
         {
-            for (var j = 0; j < count; j++)
-                zeta[j] = settings.ModalDampingRatios[Math.Min(j, settings.ModalDampingRatios.Length - 1)];
+            for (var j = rigidBodyModes; j < count; j++)
+                zeta[j] = settings.ModalDampingRatios[Math.Min(j - rigidBodyModes, settings.ModalDampingRatios.Length - 1)];
             return zeta;
         }
         if (given is { } ratios && ratios.Length >= count)
@@ -270,6 +271,19 @@ public static class TransientAnalysis
         if (worst > 0.01)
             warnings.Add(Invariant($"The damping is not classical (coupling {worst:G3} between modes): the modal method keeps only the diagonal of ΦᵀCΦ; use newmark or exact for this model."));
         return zeta;
+    }
+
+    /// <summary>A warning when the RMS window holds no step of the run, or reaches past either end of it; null otherwise.</summary>
+    private static string? RmsWindowWarning(TransientSettings settings, int steps, int samples)
+    {
+        var end = steps * settings.Step;
+        var from = settings.RmsFrom ?? 0.0;
+        var to = settings.RmsTo ?? end;
+        if (samples == 0)
+            return Invariant($"The RMS window {from:G4} to {to:G4} s holds no step of the run (0 to {end:G4} s): every RMS is reported as not available. Run longer or move the window inside the run.");
+        if (settings.RmsTo is { } given && given > end * (1 + 1e-9))
+            return Invariant($"The RMS window ends at {given:G4} s, after the run ({end:G4} s): each RMS covers {from:G4} to {end:G4} s only.");
+        return null;
     }
 
     private static IEnumerable<string> StepWarnings(ModalResult modes, ImmutableArray<Mode> considered, LoadSet load,

@@ -36,7 +36,7 @@ public sealed record Peak(double Value, double Time);
 /// <param name="Unit">SI unit text (m, m/s, m/s^2, N).</param>
 /// <param name="Values">Values at <see cref="TransientResult.Times"/>.</param>
 /// <param name="Peak">Peak over every step of the run (not only the recorded ones).</param>
-/// <param name="Rms">Root mean square over the steps inside the RMS window.</param>
+/// <param name="Rms">Root mean square over the steps inside the RMS window; NaN (not available) when no step lies in the window.</param>
 public sealed record ResponseHistory(string Name, ResponseQuantity Quantity, string Unit, ImmutableArray<double> Values, Peak Peak, double Rms);
 
 /// <summary>The energy balance of a run, a quality figure: E₀ + W = T + V + D up to the integration error.</summary>

@@ -55,7 +55,7 @@ public sealed record TransientSettings(double Duration, double Step, TransientMe
     /// <summary>Number of lowest modes kept by <see cref="TransientMethod.Modal"/>; null keeps all.</summary>
     public int? ModeCount { get; init; }
 
-    /// <summary>Modal damping ratios for <see cref="TransientMethod.Modal"/> (mode 1 first; the last repeats); empty takes ζⱼ = φⱼᵀCφⱼ/(2ωⱼ) from C.</summary>
+    /// <summary>Modal damping ratios for <see cref="TransientMethod.Modal"/> (the lowest elastic mode first, rigid-body modes take none; the last repeats); empty takes ζⱼ = φⱼᵀCφⱼ/(2ωⱼ) from C.</summary>
     public ImmutableArray<double> ModalDampingRatios { get; init; } = [];
 
     /// <summary>Masses whose motion is recorded; empty records every mass.</summary>

@@ -29,8 +29,8 @@ public class MethodAgreementTests
     [Fact]
     public void DirectAndModal_Agree_OnRandomClassicallyDampedNetworks()
     {
-        // Issue requirement: agreement to 1e-6 relative with every mode kept on classically damped models (identity of the two
-        // formulations). Modal, Rayleigh and loss-factor damping, force and unbalance loads, 30 seeded networks.
+        // Agreement with every mode kept on classically damped models (identity of the two formulations): 1e-10 relative;
+        // these networks pass at 1e-11 and fail at 1e-13 (round-off), so 1e-10 leaves a tenfold margin. Modal, Rayleigh and loss-factor damping, force and unbalance loads, 30 seeded networks.
         for (var seed = 1; seed <= 30; seed++)
         {
             var network = HarmonicModels.Random(100 + seed, 4 + seed % 9, dampers: false);
@@ -47,7 +47,7 @@ public class MethodAgreementTests
             var names = HarmonicModels.Names(network);
             var direct = HarmonicAnalysis.Sweep(system, f, system.Model.Loads, names, HarmonicMethod.Direct);
             var modal = HarmonicAnalysis.Sweep(system, f, system.Model.Loads, names, HarmonicMethod.Modal, modeCount: network.Masses.Length);
-            AssertAgree(direct, modal, 1e-6, $"seed {seed}");
+            AssertAgree(direct, modal, 1e-10, $"seed {seed}");
         }
     }
 

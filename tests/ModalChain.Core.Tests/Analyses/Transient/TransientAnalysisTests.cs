@@ -47,6 +47,57 @@ public class TransientAnalysisTests
     }
 
     [Fact]
+    public void ModalMethodRatioList_OnAFreeFreePair_DampsTheElasticModeByTheFirstEntry()
+    {
+        // m–k–m with no support, released from ±a: the centre of mass stays put and the relative motion r = u_p − u_q is
+        // a damped single-mode free vibration at ω² = 2k/m, r = e^(−ζωt)(r0 cos ω_d t + ζω r0/ω_d sin ω_d t) (closed
+        // form, common practice). The ratio list [2 %, 5 %] gives the elastic mode 2 %: the rigid-body mode takes none.
+        // The modal method solves each mode exactly, so the tolerance is 1e-9 of a.
+        const double m = 5, k = 2e4, a = 1e-3, zeta = 0.02;
+        var network = new NetworkBuilder().AddMass("p", m).AddMass("q", m).AddSpring("k", "p", "q", k).Build();
+        var omega = Math.Sqrt(2 * k / m);
+        var wd = omega * Math.Sqrt(1 - zeta * zeta);
+        var period = 2 * Math.PI / omega;
+        var settings = new TransientSettings(5 * period, period / 100, TransientMethod.Modal) { ModalDampingRatios = [0.02, 0.05] };
+        var result = TransientAnalysis.Run(network, Assembler.Assemble(network), [],
+            [new InitialCondition("p", a, 0), new InitialCondition("q", -a, 0)], settings);
+        var u = result.Get("p", ResponseQuantity.Displacement).Values;
+        for (var s = 0; s < result.Times.Length; s += 25)
+        {
+            var t = result.Times[s];
+            var r = Math.Exp(-zeta * omega * t) * (2 * a * Math.Cos(wd * t) + zeta * omega * 2 * a / wd * Math.Sin(wd * t));
+            NumericAssert.Close(r / 2, u[s], Tolerance.Abs(1e-9 * a), $"u_p at {t:G4} s");
+        }
+    }
+
+    [Fact]
+    public void RmsWindowOutsideTheRun_IsNotAvailableAndWarned()
+    {
+        // A window that holds no step has no RMS: reporting 0 would read as "no vibration" (common practice: say n/a).
+        var network = Sdof(100, 1e5);
+        var settings = new TransientSettings(1, 1e-3, TransientMethod.Exact) { RmsFrom = 8, RmsTo = 10 };
+        var result = TransientAnalysis.Run(network, Assembler.Assemble(network), [], [new InitialCondition("deck", 1e-3, 0)], settings);
+        Assert.All(result.Responses, r => Assert.True(double.IsNaN(r.Rms), $"{r.Name} {r.Quantity}: RMS {r.Rms}"));
+        Assert.Contains(result.Warnings, w => w.Contains("RMS window 8 to 10 s holds no step", StringComparison.Ordinal));
+    }
+
+    [Fact]
+    public void RmsWindowPastTheEnd_IsWarnedAndCoversTheRunOnly()
+    {
+        // x0 cos ωt over whole periods: RMS x0/√2 (closed form); the window asks for more than the run has.
+        const double m = 100, k = 1e5, x0 = 3e-3;
+        var network = Sdof(m, k);
+        var period = 2 * Math.PI / Math.Sqrt(k / m);
+        var settings = new TransientSettings(10 * period, period / 200, TransientMethod.Exact) { RmsFrom = 0, RmsTo = 20 * period };
+        var result = TransientAnalysis.Run(network, Assembler.Assemble(network), [], [new InitialCondition("deck", x0, 0)], settings);
+        // N = 2000 steps over 10 periods, N + 1 samples with cos² = 1 at both ends: mean (N/2 + 1)/(N + 1) (closed form).
+        const int n = 2000;
+        Assert.Equal(n, result.StepCount);
+        NumericAssert.Close(x0 * Math.Sqrt((n / 2.0 + 1) / (n + 1)), result.Get("deck", ResponseQuantity.Displacement).Rms, Tolerance.Rel(1e-9), "RMS over the run");
+        Assert.Contains(result.Warnings, w => w.Contains("after the run", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void SupportAcceleration_GivesTheRelativeMotionClosedForm()
     {
         // A support accelerating by a0 from rest: the relative motion z = u − u_s obeys z̈ + ω² z = −a0, so
