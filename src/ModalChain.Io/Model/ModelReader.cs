@@ -32,8 +32,20 @@ public static partial class ModelReader
     private static LoadResult Read(byte[] bytes, string file)
     {
         var context = new ReadContext(file);
-        if (Decode(bytes, context) is not { } text) return Finish(context, null);
-        var root = YamlTree.Load(text, file, context.Diagnostics);
+        YNode? root;
+        if (bytes is [0xFF, 0xFE, ..] or [0xFE, 0xFF, ..] || !System.Text.Unicode.Utf8.IsValid(bytes))
+        {
+            if (Decode(bytes, context) is not { } text) return Finish(context, null);
+            root = YamlTree.Load(text, file, context.Diagnostics);
+        }
+        else
+        {
+            // Valid UTF-8 (the usual case) is decoded as the parser reads it, not held a second time as one string.
+            var bom = 0;
+            while (bytes.AsSpan(bom) is [0xEF, 0xBB, 0xBF, ..]) bom += 3; // as TrimStart('\uFEFF') on the decoded text
+            using var reader = new StreamReader(new MemoryStream(bytes, bom, bytes.Length - bom, writable: false), StrictUtf8, detectEncodingFromByteOrderMarks: false);
+            root = YamlTree.Load(reader, () => Decode(bytes, context) ?? "", file, context.Diagnostics);
+        }
         if (root is null || (root is YScalar s && s.IsPlainNull))
         {
             if (!context.HasErrors) context.Error(new SourcePosition(1, 1), "the model file is empty; it needs at least a 'masses' section");

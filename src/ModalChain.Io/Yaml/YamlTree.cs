@@ -46,10 +46,11 @@ internal static class YamlTree
     public const long MaximumAliasExpansion = 1_000_000; // the messages spell it out
 
     public static YNode? Load(string text, string file, List<Diagnostic> diagnostics) =>
-        Load(new StringReader(text), text, file, diagnostics);
+        Load(new StringReader(text), () => text, file, diagnostics);
 
-    /// <summary>Reads YAML from <paramref name="reader"/>; <paramref name="text"/> (the same text, when at hand) only refines some messages.</summary>
-    public static YNode? Load(TextReader reader, string? text, string file, List<Diagnostic> diagnostics)
+    /// <summary>Reads YAML from <paramref name="reader"/>; <paramref name="text"/> gives the same text as a string, asked
+    /// for only when an error message needs to look at it.</summary>
+    public static YNode? Load(TextReader reader, Func<string> text, string file, List<Diagnostic> diagnostics)
     {
         var parser = new TrackingParser(new Parser(reader));
         var tree = new TreeReader(parser, file, diagnostics);
@@ -71,7 +72,7 @@ internal static class YamlTree
         }
         catch (YamlException e)
         {
-            var (at, message) = Explain(e, text ?? "", parser.OpenFlow);
+            var (at, message) = Explain(e, text, parser.OpenFlow);
             diagnostics.Add(new Diagnostic(Severity.Error, file, at, "malformed YAML: " + message));
             return null;
         }
@@ -88,11 +89,11 @@ internal static class YamlTree
     }
 
     // YamlDotNet's messages say what the scanner saw; add the likely cause and, where its mark is unhelpful, a better place.
-    private static (SourcePosition At, string Message) Explain(YamlException e, string text, OpenCollection? open)
+    private static (SourcePosition At, string Message) Explain(YamlException e, Func<string> text, OpenCollection? open)
     {
         var raw = Tidy(e.Message).TrimEnd('.');
         var at = Pos(e.Start);
-        if (raw.Contains("tab", StringComparison.OrdinalIgnoreCase) && FirstIndentingTab(text) is { } tab)
+        if (raw.Contains("tab", StringComparison.OrdinalIgnoreCase) && FirstIndentingTab(text()) is { } tab)
             return (tab, "a tab is used for indentation; YAML indents with spaces only");
         if (open is { } o && (raw.Contains("flow sequence", StringComparison.Ordinal) || raw.Contains("flow mapping", StringComparison.Ordinal)))
         {
