@@ -25,12 +25,16 @@ public static class CliApp
     /// </remarks>
     /// <summary>Runs the program with <paramref name="args"/>, writing results to <paramref name="output"/> and problems to <paramref name="error"/>.</summary>
     /// <returns>The exit code (see <see cref="ExitCodes"/>).</returns>
-    public static int Run(string[] args, TextWriter output, TextWriter error)
+    /// <param name="args">The command line.</param>
+    /// <param name="output">Where results go.</param>
+    /// <param name="error">Where diagnostics go.</param>
+    /// <param name="rawOutput">The byte stream under <paramref name="output"/> (standard output), so JSON is streamed to it without a text detour; null to write JSON through <paramref name="output"/>.</param>
+    public static int Run(string[] args, TextWriter output, TextWriter error, Stream? rawOutput = null)
     {
         var (culture, ui) = (CultureInfo.CurrentCulture, CultureInfo.CurrentUICulture);
         CultureInfo.CurrentCulture = CultureInfo.InvariantCulture;
         CultureInfo.CurrentUICulture = CultureInfo.InvariantCulture;
-        try { return RunInvariant(args, output, error); }
+        try { return RunInvariant(args, output, error, rawOutput); }
         finally
         {
             CultureInfo.CurrentCulture = culture;
@@ -38,9 +42,9 @@ public static class CliApp
         }
     }
 
-    private static int RunInvariant(string[] args, TextWriter output, TextWriter error)
+    private static int RunInvariant(string[] args, TextWriter output, TextWriter error, Stream? rawOutput)
     {
-        var io = new Streams(output, error);
+        var io = new Streams(output, error, rawOutput);
         var root = new RootCommand(
             "ModalChain: natural frequencies, mode shapes and vibration response of lumped mass-spring-damper models " +
             "of floors, platforms, racks and shelving that carry machinery.\n\n" +
@@ -122,4 +126,50 @@ public static class CliApp
 }
 
 /// <summary>Where a command writes: results to <see cref="Output"/>, diagnostics and notes to <see cref="Error"/>.</summary>
-internal sealed record Streams(TextWriter Output, TextWriter Error);
+/// <param name="Output">Results as text.</param>
+/// <param name="Error">Diagnostics and notes.</param>
+/// <param name="RawOutput">The byte stream under <paramref name="Output"/>, when there is one (standard output).</param>
+internal sealed record Streams(TextWriter Output, TextWriter Error, Stream? RawOutput = null)
+{
+    /// <summary>Streams one UTF-8 JSON document and a closing newline to the output, never holding it whole in memory.</summary>
+    public void WriteJson(Action<Stream> write)
+    {
+        ArgumentNullException.ThrowIfNull(write);
+        Output.Flush();
+        if (RawOutput is { } raw)
+        {
+            write(raw);
+            raw.WriteByte((byte)'\n');
+            raw.Flush();
+            return;
+        }
+        using (var text = new TextWriterStream(Output)) write(text);
+        Output.WriteLine();
+    }
+}
+
+/// <summary>A write-only byte stream that decodes UTF-8 into a <see cref="TextWriter"/> as it arrives.</summary>
+internal sealed class TextWriterStream(TextWriter writer) : Stream
+{
+    private readonly System.Text.Decoder _decoder = System.Text.Encoding.UTF8.GetDecoder();
+    private char[] _chars = new char[4096];
+
+    public override bool CanRead => false;
+    public override bool CanSeek => false;
+    public override bool CanWrite => true;
+    public override long Length => throw new NotSupportedException();
+    public override long Position { get => throw new NotSupportedException(); set => throw new NotSupportedException(); }
+    public override void Flush() => writer.Flush();
+    public override int Read(byte[] buffer, int offset, int count) => throw new NotSupportedException();
+    public override long Seek(long offset, SeekOrigin origin) => throw new NotSupportedException();
+    public override void SetLength(long value) => throw new NotSupportedException();
+    public override void Write(byte[] buffer, int offset, int count) => Write(buffer.AsSpan(offset, count));
+
+    public override void Write(ReadOnlySpan<byte> buffer)
+    {
+        var needed = _decoder.GetCharCount(buffer, flush: false);
+        if (needed > _chars.Length) _chars = new char[needed];
+        var written = _decoder.GetChars(buffer, _chars, flush: false);
+        writer.Write(_chars, 0, written);
+    }
+}

@@ -4,6 +4,7 @@ using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 using ModalChain.Reports.Html;
 using ModalChain.Reports.Sections;
 using ModalChain.Reports.Units;
@@ -43,7 +44,7 @@ public static class ReportBuilder
             json.WriteString("tool_version", context.Options.ToolVersion);
             json.WriteString("generated_utc", context.Options.Generated.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture));
             json.WriteStartObject("source");
-            json.WriteString("file", Path.GetFileName(context.Document.File));
+            json.WriteString("file", MarkupText.Clean(Path.GetFileName(context.Document.File)));
             json.WriteString("sha256", context.Document.Sha256);
             json.WriteEndObject();
             json.WriteString("display_units", context.Options.Units == UnitSystem.Imperial ? "imperial" : "si");

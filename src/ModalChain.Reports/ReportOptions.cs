@@ -27,4 +27,7 @@ public sealed record ReportOptions(string ToolVersion, DateTimeOffset Generated,
 
     /// <summary>The absorber to size and show (the "Tuned vibration absorber" section), or null for none.</summary>
     public Sections.AbsorberReportRequest? Absorber { get; init; }
+
+    /// <summary>The eigen solver family used for the report's modes (Auto by default).</summary>
+    public ModalChain.Core.Solvers.SolverChoice Solver { get; init; }
 }

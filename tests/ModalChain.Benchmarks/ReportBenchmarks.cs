@@ -25,7 +25,13 @@ public class ReportBenchmarks
     {
         _modesOnly = Read(Chain(200, sweep: false));
         _withSweep = Read(Chain(200, sweep: true));
-        _directory = Path.Combine(Path.GetTempPath(), "modalchain-report-benchmark");
+        _directory = Path.Combine(Path.GetTempPath(), "modalchain-report-benchmark", Guid.NewGuid().ToString("N"));
+    }
+
+    [GlobalCleanup]
+    public void Cleanup()
+    {
+        if (Directory.Exists(_directory)) Directory.Delete(_directory, recursive: true);
     }
 
     [Benchmark]

@@ -20,12 +20,13 @@ internal static class CheckCommand
     {
         var file = CommonOptions.ModelFile();
         var format = CommonOptions.Format(OutputFormat.Table, OutputFormat.Json);
+        var solver = CommonOptions.Solver();
         var command = new Command("check",
             "Evaluate the criteria of the model's 'criteria:' section: frequency separation (no natural frequency within " +
             "±margin of any running speed × order) and vibration limits at the operating points. Each criterion prints " +
             "its reserve, how far it is from failing in %. Exit code 0 when all pass, 1 when any fails or cannot be " +
             "evaluated, 2 on input errors. Default margins are common practice, not code requirements (docs/criteria.md).")
-        { file, format };
+        { file, solver, format };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -36,12 +37,11 @@ internal static class CheckCommand
                 io.Error.WriteLine($"{path}: error: the model has no 'criteria' section, so there is nothing to check (see docs/model-format.md)");
                 return ExitCodes.InputError;
             }
-            var outcome = Evaluate(document);
+            if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
+            var outcome = Evaluate(document, choice);
             if (parse.GetValue(format) == OutputFormat.Json)
             {
-                using var stdout = new MemoryStream();
-                CheckJson.Write(stdout, document, outcome, CliApp.Version);
-                io.Output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
+                io.WriteJson(stream => CheckJson.Write(stream, document, outcome, CliApp.Version));
             }
             else Write(io.Output, document, outcome);
             return outcome.AllPass ? ExitCodes.Success : ExitCodes.CheckFailed;
@@ -50,9 +50,9 @@ internal static class CheckCommand
     }
 
     /// <summary>Evaluates every criterion of <paramref name="document"/>.</summary>
-    internal static CheckOutcome Evaluate(ModelDocument document)
+    internal static CheckOutcome Evaluate(ModelDocument document, ModalChain.Core.Solvers.SolverChoice choice = default)
     {
-        return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure), document.Criteria, OperatingLoads.Of(document));
+        return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure, new ModalOptions(Choice: choice)), document.Criteria, OperatingLoads.Of(document));
     }
 
     private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome)

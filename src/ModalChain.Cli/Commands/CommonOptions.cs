@@ -1,4 +1,5 @@
 using System.CommandLine;
+using ModalChain.Core.Solvers;
 using ModalChain.Io.Diagnostics;
 using ModalChain.Io.Model;
 
@@ -30,6 +31,33 @@ internal static class CommonOptions
         var sentence = described.Length == 1 ? described[0] : string.Join(", ", described[..^1]) + " or " + described[^1];
         // Help lists only what the command writes, in lower case; an absent --format is default(OutputFormat), Table.
         return CommandValues.Choice("--format", sentence + ".", [.. offered.Select(f => (f.ToString().ToLowerInvariant(), f))]);
+    }
+
+    /// <summary>The <c>--solver</c> option of every command that solves modes.</summary>
+    public static Option<SolverChoice> Solver()
+    {
+        var option = new Option<SolverChoice>("--solver")
+        {
+            Description = "Eigen solver: auto (the default: native LAPACK when a library such as libopenblas.so.0 is installed, " +
+                "else the embedded managed one; the sparse one for a few modes of a large model), managed, native or sparse. " +
+                "The output names the solver that ran.",
+            HelpName = "auto|managed|native|sparse",
+        };
+        option.AcceptOnlyFromAmong("auto", "managed", "native", "sparse");
+        return option;
+    }
+
+    /// <summary>The solver asked for, or null (after printing why) when it is native and no library could be loaded.</summary>
+    public static SolverChoice? SolverOf(ParseResult parse, Option<SolverChoice> option, Streams io)
+    {
+        var choice = parse.GetValue(option);
+        if (choice == SolverChoice.Native && !NativeLapack.IsAvailable)
+        {
+            io.Error.WriteLine($"modalchain: error: --solver native: no LAPACK library could be loaded (tried {string.Join(", ", NativeLapack.Candidates)}). " +
+                "On Debian or Ubuntu: apt-get install libopenblas0-pthread; or use --solver auto.");
+            return null;
+        }
+        return choice;
     }
 
     /// <summary>Loads the model, printing every diagnostic; returns null (and the caller exits 2) when it has errors.</summary>

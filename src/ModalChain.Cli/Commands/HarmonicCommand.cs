@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using ModalChain.Cli.Formatting;
 using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Units;
 using ModalChain.Io.Csv;
@@ -27,17 +28,19 @@ internal static class HarmonicCommand
         var method = CommandValues.Choice<HarmonicMethod?>("--method",
             "direct (exact, any damping) or modal (superposition with residual flexibility); default: the file's 'method', else direct.",
             ("direct", HarmonicMethod.Direct), ("modal", HarmonicMethod.Modal));
+        var solver = CommonOptions.Solver();
         var command = new Command("harmonic",
             "Steady-state response to the model's harmonic loads (forces, rotating unbalances, support motions) over a " +
             "frequency sweep: displacement, velocity and acceleration of each output mass, spring and damper forces, support " +
             "reactions and transmissibility, the peak of each over the sweep, and the response at each load's running speed. " +
             "The sweep comes from the file's 'harmonic' section; --from/--to/--points override it.")
-        { file, outputs, from, to, points, method, format };
+        { file, outputs, from, to, points, method, solver, format };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
             var model = document.Structure;
             var spec = document.Harmonic;
             var fromHz = parse.GetValue(from)?.Si;
@@ -74,17 +77,12 @@ internal static class HarmonicCommand
             }
             if (parse.GetValue(method) is { } m) spec = spec with { Method = m };
 
-            var system = DampedSystem.Build(model);
+            var system = DampedSystem.Build(model, new ModalOptions(Choice: choice));
             var result = HarmonicAnalysis.Solve(system, spec);
             switch (parse.GetValue(format))
             {
                 case OutputFormat.Json:
-                    using (var stdout = new MemoryStream())
-                    {
-                        HarmonicJson.Write(stdout, document, result, CliApp.Version);
-                        io.Output.Write(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
-                        io.Output.WriteLine();
-                    }
+                    io.WriteJson(stream => HarmonicJson.Write(stream, document, result, CliApp.Version));
                     break;
                 case OutputFormat.Csv:
                     HarmonicCsv.Write(io.Output, result);

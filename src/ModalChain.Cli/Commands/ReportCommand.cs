@@ -33,13 +33,22 @@ internal static class ReportCommand
             "network drawing, modes table, one figure per mode shape, the tuned absorber with --absorber-host and --mass-ratio, caution and traceability to the model file), each figure " +
             "as its own SVG (and PDF with --format pdf), and results.json with every number behind the report (SI).")
         { file, output, format, units, modes, absorberHost, massRatio, absorberMode, absorberMethod };
+        var solver = CommonOptions.Solver();
+        command.Add(solver);
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
             var directory = parse.GetValue(output)!;
+            if (string.IsNullOrWhiteSpace(directory) || directory.Contains('\0'))
+            {
+                io.Error.WriteLine($"modalchain: error: --output must name a folder{(directory.Contains('\0') ? " (the name given holds a NUL character)" : " (the name given is empty)")}; give the folder to write the report into.");
+                return ExitCodes.InputError;
+            }
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            var options = new ReportOptions(CliApp.Version, DateTimeOffset.UtcNow, parse.GetValue(units), parse.GetValue(modes) ?? 20);
+            if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
+            if (!Generated(io, out var generated)) return ExitCodes.InputError;
+            var options = new ReportOptions(CliApp.Version, generated, parse.GetValue(units), parse.GetValue(modes) ?? 20) { Solver = choice };
             var hostName = parse.GetValue(absorberHost);
             var ratioText = parse.GetValue(massRatio);
             if (hostName is null != ratioText is null)
@@ -49,7 +58,7 @@ internal static class ReportCommand
             }
             if (hostName is not null && ratioText is not null)
             {
-                var request = AbsorberArguments.Request(ModalAnalysis.Solve(document.Network), hostName, ratioText, parse.GetValue(absorberMode),
+                var request = AbsorberArguments.Request(ModalAnalysis.Solve(document.Network, new ModalOptions(Choice: choice)), hostName, ratioText, parse.GetValue(absorberMode),
                     OperatingLoads.AbsorberExcitations(document), AbsorberTarget.Force, io);
                 if (request is null) return ExitCodes.InputError;
                 options = options with { Absorber = new AbsorberReportRequest(request, AbsorberArguments.IsOptimal(parse.GetValue(absorberMethod))) };
@@ -68,5 +77,21 @@ internal static class ReportCommand
             return ExitCodes.Success;
         });
         return command;
+    }
+
+    /// <summary>The date printed on the report: now, or SOURCE_DATE_EPOCH (whole seconds since 1970 UTC) when set, so a report can be reproduced byte for byte.</summary>
+    private static bool Generated(Streams io, out DateTimeOffset generated)
+    {
+        generated = DateTimeOffset.UtcNow;
+        var epoch = Environment.GetEnvironmentVariable("SOURCE_DATE_EPOCH");
+        if (string.IsNullOrEmpty(epoch)) return true;
+        if (long.TryParse(epoch, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out var seconds)
+            && seconds <= DateTimeOffset.MaxValue.ToUnixTimeSeconds())
+        {
+            generated = DateTimeOffset.FromUnixTimeSeconds(seconds);
+            return true;
+        }
+        io.Error.WriteLine($"modalchain: error: SOURCE_DATE_EPOCH '{epoch}' is not a whole number of seconds since 1970-01-01 UTC; unset it or correct it.");
+        return false;
     }
 }

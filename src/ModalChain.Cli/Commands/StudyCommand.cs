@@ -86,11 +86,7 @@ internal static class StudyCommand
             switch (parse.GetValue(format))
             {
                 case OutputFormat.Json:
-                    using (var stdout = new MemoryStream())
-                    {
-                        StudyJson.Write(stdout, document, result, UnitTable.SiSymbol(parameter.Quantity), CliApp.Version);
-                        io.Output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
-                    }
+                    io.WriteJson(stream => StudyJson.Write(stream, document, result, UnitTable.SiSymbol(parameter.Quantity), CliApp.Version));
                     break;
                 case OutputFormat.Csv:
                     StudyCsv.Write(io.Output, result, UnitTable.SiSymbol(parameter.Quantity));
@@ -195,9 +191,7 @@ internal static class StudyCommand
         var chart = SpeedFrequencyChart.Build([.. modal.Modes.Select(m => (m.Number, m.NaturalFrequencyHz))], a.Si, b.Si, points, orders);
         if (format == OutputFormat.Json)
         {
-            using var stdout = new MemoryStream();
-            StudyJson.WriteChart(stdout, document, chart, CliApp.Version);
-            io.Output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
+            io.WriteJson(stream => StudyJson.WriteChart(stream, document, chart, CliApp.Version));
             return ExitCodes.Success;
         }
         if (format == OutputFormat.Csv)

@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using ModalChain.Cli.Formatting;
 using ModalChain.Core.Analyses.Transient;
+using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Units;
 using ModalChain.Io.Csv;
@@ -28,18 +29,20 @@ internal static class TransientCommand
             Description = "Record this mass (repeat for several); overrides 'outputs' of the file. Default: every mass.",
             AllowMultipleArgumentsPerToken = true,
         };
+        var solver = CommonOptions.Solver();
         var command = new Command("transient",
             "Response in time to the model's timed loads (steps, pulses, sines, recorded tables, run-ups and run-downs of a " +
             "rotating unbalance, support accelerations) from its initial conditions: displacement, velocity and acceleration " +
             "of each output mass, spring and damper forces and support reactions, with their peaks and RMS and an energy " +
             "balance. The run comes from the file's 'transient' section; the options override it. A progress bar is shown " +
             "on long runs, only on a terminal and only with the table format.")
-        { file, method, step, duration, outputs, format };
+        { file, method, step, duration, outputs, solver, format };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
             var spec = document.Transient;
             var stepValue = parse.GetValue(step);
             var durationValue = parse.GetValue(duration);
@@ -72,7 +75,9 @@ internal static class TransientCommand
 
             if (settings.Method == TransientMethod.Exact && document.Network.Masses.Length > TransientAnalysis.ExactMethodMaxDofs)
                 return Fail(io, $"the exact method is limited to {TransientAnalysis.ExactMethodMaxDofs} masses (this model has {document.Network.Masses.Length}); use --method newmark or modal");
-            var system = DampedSystem.Build(document.Structure);
+            // Only the modes the run uses: the time-step checks need the lowest few, not an all-mode solve.
+            var system = DampedSystem.Build(document.Structure,
+                new ModalOptions(TransientAnalysis.ModesNeeded(document.Network.Masses.Length, settings), Choice: choice));
             var chosenFormat = parse.GetValue(format);
             // The bar goes to a terminal only, and never with JSON or CSV (their output may be piped while stderr is not).
             using var bar = chosenFormat == OutputFormat.Table && settings.StepCount >= ProgressFromSteps && !Console.IsOutputRedirected
@@ -82,12 +87,7 @@ internal static class TransientCommand
             switch (chosenFormat)
             {
                 case OutputFormat.Json:
-                    using (var stdout = new MemoryStream())
-                    {
-                        TransientJson.Write(stdout, document, result, [.. loads.Select(l => l.Name)], CliApp.Version);
-                        io.Output.Write(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
-                        io.Output.WriteLine();
-                    }
+                    io.WriteJson(stream => TransientJson.Write(stream, document, result, [.. loads.Select(l => l.Name)], CliApp.Version));
                     break;
                 case OutputFormat.Csv:
                     TransientCsv.Write(io.Output, result);

@@ -5,6 +5,7 @@ using ModalChain.Core;
 using ModalChain.Core.Analyses.Absorbers;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Units;
+using ModalChain.Io.Files;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
 
@@ -28,17 +29,24 @@ internal static class TuneCommand
             ("force", AbsorberTarget.Force), ("base", AbsorberTarget.BaseAcceleration), ("random-force", AbsorberTarget.RandomForce));
         var method = AbsorberArguments.Method("--method");
         var format = CommonOptions.Format(OutputFormat.Table, OutputFormat.Json);
-        var write = new Option<string?>("--write") { Description = "Also write the model with the absorber added to this file, ready for every other command." };
+        var write = new Option<string?>("--write")
+        {
+            Description = "Also write the model with the absorber added to this file, ready for every other command. Written atomically " +
+                "(a failed run leaves no partial file); an existing file is replaced only with --force, and never the model that was read.",
+        };
+        var force = new Option<bool>("--force") { Description = "Let --write replace an existing file (never the model that was read)." };
         var command = new Command("tune",
             "Size a tuned vibration absorber (mass, spring, damper) for one mode, from the mode's modal mass at the host " +
             "(1/phi_host^2 with mass-normalised shapes) and the classical optimum for the target excitation. The damping " +
             "ratio printed is the absorber's own, c/(2*sqrt(k*m)).")
-        { file, host, ratio, mode, speed, target, method, format, write };
+        { file, host, ratio, mode, speed, target, method, format, write, force };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            // Checked before the work, so a refused --write costs nothing.
+            if (parse.GetValue(write) is { } destination && RefuseOutput(document.File, destination, parse.GetValue(force), io)) return ExitCodes.InputError;
             var excitations = Excitations(document, parse.GetValue(speed));
             if (excitations is null) return ExitCodes.InputError;
             var modal = ModalAnalysis.Solve(document.Network);
@@ -50,14 +58,12 @@ internal static class TuneCommand
 
             if (parse.GetValue(write) is { } output)
             {
-                var code = WriteModel(document, design, names, output, io);
+                var code = WriteModel(document, design, names, output, parse.GetValue(force), io);
                 if (code != ExitCodes.Success) return code;
             }
             if (parse.GetValue(format) == OutputFormat.Json)
             {
-                using var stdout = new MemoryStream();
-                TuneJson.Write(stdout, document, design, tuned.Method, assessment, improvement, CliApp.Version);
-                io.Output.WriteLine(System.Text.Encoding.UTF8.GetString(stdout.ToArray()));
+                io.WriteJson(stream => TuneJson.Write(stream, document, design, tuned.Method, assessment, improvement, CliApp.Version));
             }
             else WriteTable(io.Output, document, design, request, assessment, improvement);
             return ExitCodes.Success;
@@ -78,7 +84,28 @@ internal static class TuneCommand
         return OperatingLoads.AbsorberExcitations(document);
     }
 
-    private static int WriteModel(ModelDocument document, AbsorberDesign design, AbsorberNames names, string output, Streams io)
+    /// <summary>True (after printing why) when --write must not write <paramref name="output"/>: no name, a folder, the model itself, or an existing file without --force.</summary>
+    private static bool RefuseOutput(string model, string output, bool force, Streams io)
+    {
+        string? problem = null;
+        try
+        {
+            if (string.IsNullOrWhiteSpace(output) || output.Contains('\0')) problem = "--write must name a file";
+            else if (Directory.Exists(output)) problem = $"--write {output} is a folder; give a file name";
+            else if (Path.Exists(output) && FilePaths.SameFile(output, model))
+                problem = $"--write {output} is the model that was read ({model}); it is never overwritten, so choose another file name";
+            else if (Path.Exists(output) && !force) problem = $"--write {output} exists; add --force to replace it, or choose another file name";
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        {
+            problem = $"--write {output}: {e.Message}";
+        }
+        if (problem is null) return false;
+        io.Error.WriteLine($"modalchain: error: {problem}; nothing was written.");
+        return true;
+    }
+
+    private static int WriteModel(ModelDocument document, AbsorberDesign design, AbsorberNames names, string output, bool force, Streams io)
     {
         var network = AbsorberTuning.Attach(document.Network, design, names);
         string original;
@@ -94,10 +121,10 @@ internal static class TuneCommand
             string.Create(Inv, $"Absorber '{names.Mass}' on '{design.Host}' for mode {design.ModeNumber} ({design.ModeFrequencyHz:F3} Hz), mass ratio {design.Optimum.MassRatio * 100:G4} %."),
             "Comments of the original file are not carried over.",
         ]);
-        try { File.WriteAllText(output, text); }
+        try { AtomicFile.WriteAllText(output, text, overwrite: force); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
         {
-            io.Error.WriteLine($"modalchain: error: cannot write {output}: {e.Message}");
+            io.Error.WriteLine($"modalchain: error: cannot write {output}: {e.Message}; nothing was written.");
             return ExitCodes.InputError;
         }
         io.Error.WriteLine($"wrote {output}: the model with absorber mass '{names.Mass}', spring '{names.Spring}'{(design.Damping > 0 ? $" and damper '{names.Damper}'" : "")}");

@@ -2,18 +2,19 @@ using System.Collections.Immutable;
 using MathNet.Numerics.LinearAlgebra;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Model;
+using ModalChain.Core.Solvers;
 
 namespace ModalChain.Core.Assembly;
 
 /// <summary>A model assembled once for dynamic analyses: partitioned K and C, all undamped modes and their damping.</summary>
 /// <remarks>
-/// Build one with <see cref="Build"/> and reuse it for many sweeps or time histories. Damping is classical when
+/// Build one with <see cref="Build(StructuralModel)"/> and reuse it for many sweeps or time histories. Damping is classical when
 /// Φᵀ C Φ is diagonal (<see cref="NonClassicalIndex"/> below <see cref="ClassicalTolerance"/>); then modal
 /// superposition with <see cref="ModalDampingRatios"/> is exact.
 /// </remarks>
 /// <param name="Model">The model assembled.</param>
 /// <param name="Partition">K, M and discrete-damper matrices split into free and support DOFs.</param>
-/// <param name="Modes">All undamped modes of the free DOFs.</param>
+/// <param name="Modes">The undamped modes of the free DOFs: all of them unless the system was built for the lowest few.</param>
 /// <param name="Damping">The viscous damping matrix (dampers, Rayleigh, modal) in N·s/m.</param>
 /// <param name="ModalDamping">Φᵀ C_ff Φ in 1/s.</param>
 /// <param name="ModalDampingRatios">Damping ratio per mode (viscous part plus η/2); NaN for rigid-body modes.</param>
@@ -40,11 +41,32 @@ public sealed record DampedSystem(
     public bool HasViscousDamping => Damping.FF.Enumerate().Any(v => v != 0);
 
     /// <summary>Assembles <paramref name="model"/> and solves all its undamped modes.</summary>
-    public static DampedSystem Build(StructuralModel model)
+    public static DampedSystem Build(StructuralModel model) => Build(model, options: null);
+
+    /// <summary>Assembles <paramref name="model"/> and solves the undamped modes <paramref name="options"/> ask for (all when no count).</summary>
+    /// <remarks>
+    /// With a count only the lowest modes are solved, and the modal damping matrix, ratios and coupling index are
+    /// those of these modes. Modal damping ratios in the model build C from every mode, so then all are solved anyway.
+    /// </remarks>
+    public static DampedSystem Build(StructuralModel model, ModalOptions? options)
     {
         ArgumentNullException.ThrowIfNull(model);
+        options ??= new ModalOptions();
+        if (!model.Damping.ModalRatios.IsDefaultOrEmpty) options = options with { Count = null };
+        return Build(model, ModalAnalysis.Solve(model.Network, options), options.Choice);
+    }
+
+    /// <summary>Assembles <paramref name="model"/> around modes already solved, so a command solves the eigenproblem once.</summary>
+    /// <param name="model">The model.</param>
+    /// <param name="modes">Undamped modes of its network: all of them, or the lowest few when the model has no modal damping ratios.</param>
+    /// <param name="choice">The solver family used if every mode must still be solved (modal damping ratios with only some modes given).</param>
+    public static DampedSystem Build(StructuralModel model, ModalResult modes, SolverChoice choice = SolverChoice.Auto)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(modes);
         var partition = SupportPartition.Assemble(model.Network);
-        var modes = ModalAnalysis.Solve(model.Network);
+        if (!model.Damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != partition.FreeCount)
+            modes = ModalAnalysis.Solve(model.Network, new ModalOptions(Choice: choice));
         var damping = DampingAssembly.Build(model, partition, modes);
         var modal = DampingAssembly.ModalCoordinates(modes, damping.FF);
         return new DampedSystem(model, partition, modes, damping, modal,

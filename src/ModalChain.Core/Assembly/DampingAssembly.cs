@@ -34,20 +34,23 @@ public static class DampingAssembly
         var fp = partition.DamperFP.Clone();
         var pp = partition.DamperPP.Clone();
 
-        var relative = Matrix<double>.Build.Dense(partition.FreeCount, partition.FreeCount);
+        // The relative-motion part and its quasi-static influence (a dense LU of K_ff) only when there is such damping.
+        Matrix<double>? relative = null;
         if (damping.Rayleigh is { } r)
         {
             ff += r.StiffnessCoefficient * partition.StiffnessFF;
             fp += r.StiffnessCoefficient * partition.StiffnessFP;
             pp += r.StiffnessCoefficient * partition.StiffnessPP;
-            relative += r.MassCoefficient * partition.Mass;
+            if (r.MassCoefficient != 0) relative = r.MassCoefficient * partition.Mass;
         }
         if (!damping.ModalRatios.IsDefaultOrEmpty)
         {
             if (modes is null || modes.Modes.Length != partition.FreeCount)
                 throw new ArgumentException("Modal damping needs every mode of the network.", nameof(modes));
-            relative += ModalDampingMatrix(partition.Mass, modes, damping);
+            var modal = ModalDampingMatrix(partition.Mass, modes, damping);
+            relative = relative is null ? modal : relative + modal;
         }
+        if (relative is null) return new DampingMatrices(ff, fp, pp);
 
         ff += relative;
         if (partition.QuasiStaticInfluence() is { } t)
@@ -94,6 +97,9 @@ public static class DampingAssembly
     {
         ArgumentNullException.ThrowIfNull(modes);
         ArgumentNullException.ThrowIfNull(dampingFF);
+        var count = modes.Modes.Length;
+        // No viscous damping at all (the common undamped modal run): Φᵀ 0 Φ needs no O(n²m) product.
+        if (dampingFF.Enumerate(Zeros.AllowSkip).All(v => v == 0)) return Matrix<double>.Build.Sparse(count, count);
         var phi = Shapes(modes);
         return phi.TransposeThisAndMultiply(dampingFF * phi);
     }

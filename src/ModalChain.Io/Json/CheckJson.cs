@@ -3,6 +3,7 @@ using ModalChain.Core;
 using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
@@ -19,7 +20,7 @@ public static class CheckJson
     {
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
-        w.WriteString("title", document.Network.Title);
+        w.WriteString("title", MarkupText.Clean(document.Network.Title));
         w.Source(document, toolVersion);
         w.WriteBoolean("passes", outcome.AllPass);
         if (outcome.Separation is { } sep)

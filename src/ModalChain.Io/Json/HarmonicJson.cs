@@ -3,6 +3,7 @@ using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
@@ -21,7 +22,7 @@ public static class HarmonicJson
         ArgumentNullException.ThrowIfNull(result);
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
-        w.WriteString("title", document.Network.Title);
+        w.WriteString("title", MarkupText.Clean(document.Network.Title));
         w.Source(document, toolVersion);
         w.WriteString("method", result.Method == HarmonicMethod.Modal ? "modal" : "direct");
         w.WriteNumber("modes_used", result.ModesUsed);

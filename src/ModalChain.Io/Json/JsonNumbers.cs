@@ -37,4 +37,16 @@ internal static class JsonNumbers
         for (var i = 0; i < keys.Count; i++) writer.Number(keys[i], values[i]);
         writer.WriteEndObject();
     }
+
+    /// <summary>As <see cref="Keyed(Utf8JsonWriter, string, IReadOnlyList{string}, IReadOnlyList{double})"/> with the keys encoded once (large outputs).</summary>
+    public static void Keyed(this Utf8JsonWriter writer, string name, JsonEncodedText[] keys, ReadOnlySpan<double> values)
+    {
+        writer.WriteStartObject(name);
+        for (var i = 0; i < keys.Length; i++)
+        {
+            if (double.IsFinite(values[i])) writer.WriteNumber(keys[i], values[i]);
+            else writer.WriteNull(keys[i]);
+        }
+        writer.WriteEndObject();
+    }
 }

@@ -1,5 +1,6 @@
 using System.Text.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
@@ -10,7 +11,7 @@ internal static class JsonSource
     public static void Source(this Utf8JsonWriter writer, ModelDocument document, string toolVersion)
     {
         writer.WriteStartObject("source");
-        writer.WriteString("file", document.File);
+        writer.WriteString("file", MarkupText.Clean(document.File));
         writer.WriteString("sha256", document.Sha256);
         writer.WriteString("tool_version", toolVersion);
         writer.WriteEndObject();

@@ -4,6 +4,7 @@ using ModalChain.Core;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
@@ -12,7 +13,7 @@ namespace ModalChain.Io.Json;
 public static class ModesJson
 {
     /// <summary>Options shared by every JSON output of the tool: indented, non-ASCII kept readable.</summary>
-    public static readonly JsonWriterOptions WriterOptions = new() { Indented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
+    public static readonly JsonWriterOptions WriterOptions = new() { Indented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping, SkipValidation = true };
 
     /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
     /// <param name="stream">Where to write (UTF-8).</param>
@@ -37,8 +38,11 @@ public static class ModesJson
         var network = result.Network;
         var dofNames = result.Matrices.Dofs.Dofs.Select(d => d.ToString()).ToArray();
         var springNames = network.Springs.Select(s => s.Name).ToArray();
+        // Encoded once: a large model writes every name once per mode in three keyed objects.
+        var dofKeys = dofNames.Select(d => JsonEncodedText.Encode(d, WriterOptions.Encoder)).ToArray();
+        var springKeys = springNames.Select(s => JsonEncodedText.Encode(s, WriterOptions.Encoder)).ToArray();
 
-        writer.WriteString("title", network.Title);
+        writer.WriteString("title", MarkupText.Clean(network.Title));
         writer.Source(document, toolVersion);
         writer.WriteStartArray("dofs");
         foreach (var d in dofNames) writer.WriteStringValue(d);
@@ -55,18 +59,20 @@ public static class ModesJson
             writer.Number("omega_rad_s", mode.AngularFrequency);
             writer.Number("period_s", mode.PeriodSeconds);
             writer.WriteBoolean("rigid_body", mode.IsRigidBody);
-            writer.Keyed("shape", dofNames, mode.Shape);
+            writer.Keyed("shape", dofKeys, mode.Shape.AsSpan());
             writer.Number("participation", mode.ParticipationFactor);
             writer.Number("effective_mass_kg", mode.EffectiveModalMass);
             writer.Number("effective_mass_fraction", mode.EffectiveMassFraction);
             writer.Number("cumulative_mass_fraction", mode.CumulativeEffectiveMassFraction);
-            writer.Keyed("kinetic_energy_share", dofNames, mode.KineticEnergyShare);
-            writer.Keyed("strain_energy_share", springNames, mode.StrainEnergyShare);
+            writer.Keyed("kinetic_energy_share", dofKeys, mode.KineticEnergyShare.AsSpan());
+            writer.Keyed("strain_energy_share", springKeys, mode.StrainEnergyShare.AsSpan());
             writer.Number("residual", mode.Residual);
             var zeta = DampingRatioOf(damping, mode);
             writer.Number("damping_ratio", zeta);
             writer.Number("damped_frequency_hz", zeta < 1 ? mode.NaturalFrequencyHz * Math.Sqrt(1 - zeta * zeta) : double.NaN);
             writer.WriteEndObject();
+            // Hand finished modes to the stream as they are written rather than holding the whole document.
+            if (writer.BytesPending > 1 << 16) writer.Flush();
         }
         writer.WriteEndArray();
 
@@ -99,6 +105,7 @@ public static class ModesJson
         writer.WriteStartObject("quality");
         writer.Number("max_residual", result.Quality.MaxResidual);
         writer.Number("max_orthogonality_error", result.Quality.MaxOrthogonalityError);
+        writer.WriteString("solver", result.Algorithm);
         writer.WriteEndObject();
 
         writer.WriteStartArray("warnings");

@@ -3,6 +3,7 @@ using ModalChain.Core;
 using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Studies;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
@@ -14,7 +15,7 @@ public static class StudyJson
     {
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
-        w.WriteString("title", document.Network.Title);
+        w.WriteString("title", MarkupText.Clean(document.Network.Title));
         w.Source(document, toolVersion);
         w.WriteString("parameter", result.Request.Parameter.Text);
         w.WriteString("unit", unit);
@@ -85,7 +86,7 @@ public static class StudyJson
     {
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
-        w.WriteString("title", document.Network.Title);
+        w.WriteString("title", MarkupText.Clean(document.Network.Title));
         w.Source(document, toolVersion);
         w.WriteString("chart", "speed-frequency");
         w.Array("speeds_hz", chart.SpeedsHz);

@@ -2,6 +2,7 @@ using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Transient;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
@@ -22,7 +23,7 @@ public static class TransientJson
         ArgumentNullException.ThrowIfNull(loads);
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
-        w.WriteString("title", document.Network.Title);
+        w.WriteString("title", MarkupText.Clean(document.Network.Title));
         w.Source(document, toolVersion);
         w.WriteString("method", MethodName(result.Settings.Method));
         w.WriteString("method_description", result.MethodDescription);

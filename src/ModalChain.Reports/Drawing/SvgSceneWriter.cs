@@ -1,10 +1,12 @@
 using System.Globalization;
 using System.Text;
 using System.Xml;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Reports.Drawing;
 
 /// <summary>Writes a <see cref="Scene"/> as SVG 1.1 with <see cref="XmlWriter"/>, so the markup is well-formed by construction.</summary>
+/// <remarks>Every text from the scene passes through <see cref="MarkupText.Clean"/>, so no input string can make the file ill-formed.</remarks>
 public static class SvgSceneWriter
 {
     private const string SvgNamespace = "http://www.w3.org/2000/svg";
@@ -18,7 +20,7 @@ public static class SvgSceneWriter
         ArgumentNullException.ThrowIfNull(scene);
         var text = new StringBuilder();
         var settings = new XmlWriterSettings { OmitXmlDeclaration = !standalone, Indent = true, IndentChars = " ", Encoding = new UTF8Encoding(false) };
-        using (var xml = XmlWriter.Create(new StringWriter(text, CultureInfo.InvariantCulture), settings))
+        using (var xml = XmlWriter.Create(new Utf8StringWriter(text), settings))
         {
             if (standalone) xml.WriteStartDocument();
             xml.WriteStartElement("svg", SvgNamespace);
@@ -29,8 +31,8 @@ public static class SvgSceneWriter
             xml.WriteAttributeString("font-family", Scene.FontStack);
             xml.WriteAttributeString("role", "img");
             foreach (var (key, value) in scene.Data.OrderBy(p => p.Key, StringComparer.Ordinal))
-                xml.WriteAttributeString("data-" + key, value);
-            xml.WriteElementString("title", SvgNamespace, scene.Title);
+                xml.WriteAttributeString("data-" + key, MarkupText.Clean(value));
+            xml.WriteElementString("title", SvgNamespace, MarkupText.Clean(scene.Title));
             xml.WriteStartElement("rect", SvgNamespace);
             xml.WriteAttributeString("width", "100%");
             xml.WriteAttributeString("height", "100%");
@@ -93,7 +95,7 @@ public static class SvgSceneWriter
                 if (label.Anchor != TextAnchor.Start) xml.WriteAttributeString("text-anchor", label.Anchor == TextAnchor.Middle ? "middle" : "end");
                 if (label.Bold) xml.WriteAttributeString("font-weight", "bold");
                 xml.WriteAttributeString("fill", label.Color);
-                xml.WriteString(label.Text);
+                xml.WriteString(MarkupText.Clean(label.Text));
                 xml.WriteEndElement();
                 break;
             default:
@@ -103,9 +105,9 @@ public static class SvgSceneWriter
 
     private static void Common(XmlWriter xml, Shape shape)
     {
-        if (shape.Class is not null) xml.WriteAttributeString("class", shape.Class);
+        if (shape.Class is not null) xml.WriteAttributeString("class", MarkupText.Clean(shape.Class));
         foreach (var (key, value) in shape.Data.OrderBy(p => p.Key, StringComparer.Ordinal))
-            xml.WriteAttributeString("data-" + key, value);
+            xml.WriteAttributeString("data-" + key, MarkupText.Clean(value));
     }
 
     private static void Stroke(XmlWriter xml, Pen? pen)
@@ -120,6 +122,12 @@ public static class SvgSceneWriter
         xml.WriteAttributeString("stroke-linejoin", "round");
         if (pen.Dash is { } dash) xml.WriteAttributeString("stroke-dasharray", string.Join(" ", dash.Select(F)));
         if (pen.Opacity < 1) xml.WriteAttributeString("stroke-opacity", F(pen.Opacity));
+    }
+
+    /// <summary>A string writer that reports UTF-8, so the XML declaration names the encoding the file is written in (UTF-8, not UTF-16).</summary>
+    private sealed class Utf8StringWriter(StringBuilder text) : StringWriter(text, CultureInfo.InvariantCulture)
+    {
+        public override Encoding Encoding { get; } = new UTF8Encoding(false);
     }
 
     private static string PathData(IReadOnlyList<Point> points, bool closed)

@@ -2,8 +2,10 @@ using System.Globalization;
 using System.Text;
 using System.Text.RegularExpressions;
 using System.Xml.Linq;
+using ModalChain.Io.Text;
 using ModalChain.Reports.Drawing;
 using OxyPlot;
+using OxyPlot.Annotations;
 
 namespace ModalChain.Reports.Figures;
 
@@ -26,6 +28,7 @@ public sealed partial class ChartFigure : ReportFigure
         Width = width;
         Height = height;
         Charts.ApplyFont(model);
+        CleanTexts(model);
         _svg = new Lazy<string>(Export);
     }
 
@@ -85,6 +88,17 @@ public sealed partial class ChartFigure : ReportFigure
         foreach (var text in root.Descendants(svg + "text"))
             if (text.Nodes().OfType<XText>().ToArray() is [var only]) only.Value = only.Value.Trim();
         return root.ToString(SaveOptions.DisableFormatting);
+    }
+
+    /// <summary>Replaces characters XML 1.0 forbids in every text of the chart, so the exported SVG is well-formed whatever the model's title.</summary>
+    private static void CleanTexts(PlotModel model)
+    {
+        model.Title = model.Title is null ? null : MarkupText.Clean(model.Title);
+        model.Subtitle = model.Subtitle is null ? null : MarkupText.Clean(model.Subtitle);
+        foreach (var axis in model.Axes) axis.Title = axis.Title is null ? null : MarkupText.Clean(axis.Title);
+        foreach (var series in model.Series) series.Title = series.Title is null ? null : MarkupText.Clean(series.Title);
+        foreach (var annotation in model.Annotations.OfType<TextualAnnotation>())
+            annotation.Text = annotation.Text is null ? null : MarkupText.Clean(annotation.Text);
     }
 
     [GeneratedRegex(@"url\(#([^)]+)\)")]

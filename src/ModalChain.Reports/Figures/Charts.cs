@@ -1,3 +1,4 @@
+using System.Globalization;
 using ModalChain.Reports.Drawing;
 using OxyPlot;
 using OxyPlot.Axes;
@@ -8,10 +9,12 @@ namespace ModalChain.Reports.Figures;
 /// <summary>Shared look of the x-y charts: fixed font, Okabe-Ito colours with distinct dashes, axis titles with units.</summary>
 public static class Charts
 {
-    /// <summary>Sets the fixed font family and sizes on <paramref name="model"/> and its axes.</summary>
+    /// <summary>Sets the fixed font family and sizes on <paramref name="model"/> and its axes, and the invariant culture for its tick labels.</summary>
     public static void ApplyFont(PlotModel model)
     {
         ArgumentNullException.ThrowIfNull(model);
+        // OxyPlot formats tick labels in the current culture unless told otherwise: 0,0001 under a German locale.
+        model.Culture = CultureInfo.InvariantCulture;
         model.DefaultFont = Scene.FontFamily;
         model.DefaultFontSize = 11;
         model.TitleFontSize = 14;

@@ -1,5 +1,6 @@
 using System.Net;
 using System.Text;
+using ModalChain.Io.Text;
 using ModalChain.Reports.Figures;
 
 namespace ModalChain.Reports.Html;
@@ -9,8 +10,8 @@ public sealed class HtmlWriter
 {
     private readonly StringBuilder _html = new();
 
-    /// <summary>Text escaped for HTML content and attribute values.</summary>
-    public static string Encode(string text) => WebUtility.HtmlEncode(text);
+    /// <summary>Text escaped for HTML content and attribute values, with characters XML 1.0 forbids replaced (<see cref="MarkupText.Clean"/>).</summary>
+    public static string Encode(string text) => WebUtility.HtmlEncode(MarkupText.Clean(text));
 
     /// <summary>A sub-heading inside a section.</summary>
     public HtmlWriter Heading(string text)

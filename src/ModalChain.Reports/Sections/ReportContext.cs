@@ -30,7 +30,7 @@ public sealed class ReportContext
             return all.Modes.Length <= options.MaxModes ? all : all with { Modes = [.. all.Modes.Take(options.MaxModes)] };
         });
         _layout = new Lazy<NetworkLayout>(() => NetworkLayout.For(document.Network));
-        _damped = new Lazy<DampedSystem>(() => DampedSystem.Build(document.Structure));
+        _damped = new Lazy<DampedSystem>(() => DampedSystem.Build(document.Structure, new ModalOptions(Choice: options.Solver)));
         _harmonic = new Lazy<HarmonicResult?>(() =>
             document.Harmonic is { } spec && !document.Structure.Loads.IsEmpty ? HarmonicAnalysis.Solve(Damped, spec) : null);
     }

@@ -160,4 +160,86 @@ public sealed class ReportCommandTests
             if (File.Exists(Path.Combine(dir.FullName, "ModalChain.sln"))) return dir.FullName;
         throw new InvalidOperationException("ModalChain.sln not found");
     }
+
+    [Theory]
+    [InlineData("")]
+    [InlineData("   ")]
+    [InlineData("out\0put")]
+    public void EmptyOrImpossibleOutputFolder_ExitsTwoWithAMessage(string output)
+    {
+        var (code, _, stderr) = Run("report", Path.Combine(Root, "models", "chiller-deck.yaml"), "-o", output);
+        Assert.True(code == 2, stderr);
+        Assert.Contains("--output", stderr, StringComparison.Ordinal);
+        Assert.DoesNotContain("internal error", stderr, StringComparison.Ordinal);
+    }
+
+    public static TheoryData<string> HostileTitles() => ["\\x1b[31mred", "nul\\0here", "not a character \\uFFFE", "\\uFFFF \\x07 \\x08 \\v \\f", "emoji \\U0001F600 kept", "tab\\tand newline\\n"];
+
+    /// <summary>A one-mass model with a harmonic sweep (so the report has charts that carry the title) and <paramref name="escaped"/> as its title.</summary>
+    private static string HostileModel(string escaped) =>
+        $"title: \"{escaped}\"\nmasses: {{deck: 1000 kg}}\nsprings: {{k: {{between: [ground, deck], stiffness: 1 kN/mm}}}}\n" +
+        "damping: {modal: 2 %}\nloads: {f: {at: deck, kind: unbalance, mass-radius: 12000 g*mm, speed: 1480 rpm}}\n" +
+        "harmonic: {loads: [f], frequencies: {from: 1 Hz, to: 60 Hz, points: 40}}\ncriteria: {separation: {speeds: 1480 rpm}}\n";
+
+    [Theory]
+    [MemberData(nameof(HostileTitles))]
+    public void TitleWithControlCharacters_GivesAWellFormedReport(string escaped)
+    {
+        // YAML 1.2 §5.7 double-quoted escapes put the raw characters into the title. XML 1.0 §2.2 (W3C) forbids C0 controls
+        // other than tab, newline and return, and U+FFFE/U+FFFF: each must come out as U+FFFD, never as an internal error.
+        var parent = Temp();
+        var model = Path.Combine(parent, "hostile.yaml");
+        File.WriteAllText(model, HostileModel(escaped));
+        var dir = Path.Combine(parent, "out");
+        var (code, _, stderr) = Run("report", model, "-o", dir, "--format", "pdf");
+        Assert.True(code == 0, stderr);
+        foreach (var svg in Directory.GetFiles(dir, "*.svg"))
+        {
+            using var reader = System.Xml.XmlReader.Create(File.OpenRead(svg));
+            while (reader.Read()) { }
+        }
+        var html = File.ReadAllText(Path.Combine(dir, "report.html"));
+        Assert.DoesNotContain(html, c => c is < ' ' and not ('\t' or '\n' or '\r') or '\uFFFE' or '\uFFFF');
+        using var json = JsonDocument.Parse(File.ReadAllBytes(Path.Combine(dir, "results.json")));
+        var title = json.RootElement.GetProperty("modes").GetProperty("title").GetString()!;
+        Assert.DoesNotContain(title, c => c is < ' ' and not ('\t' or '\n' or '\r') or '\uFFFE' or '\uFFFF');
+        if (escaped.StartsWith("emoji", StringComparison.Ordinal)) Assert.Contains("\U0001F600", title, StringComparison.Ordinal);
+        else if (!escaped.StartsWith("tab", StringComparison.Ordinal)) Assert.Contains('\uFFFD', title);
+    }
+
+    [Theory]
+    [MemberData(nameof(HostileTitles))]
+    public void TitleWithControlCharacters_EveryJsonCommandStillWritesJson(string escaped)
+    {
+        var parent = Temp();
+        var model = Path.Combine(parent, "hostile.yaml");
+        File.WriteAllText(model, HostileModel(escaped));
+        foreach (var args in new[] { new[] { "modes" }, ["check"], ["harmonic"], ["tune", "--host", "deck", "--mass-ratio", "5 %"] })
+        {
+            var (code, stdout, stderr) = Run([.. args.Take(1), model, .. args.Skip(1), "--format", "json"]);
+            Assert.True(code is 0 or 1, $"{args[0]}: exit {code}: {stderr}");
+            using var json = JsonDocument.Parse(stdout);
+            Assert.Equal(JsonValueKind.Object, json.RootElement.ValueKind);
+        }
+    }
+
+    [Fact]
+    public void FolderHoldingOtherFiles_ExitsTwoAndKeepsThem()
+    {
+        // A report replaces its whole folder, so a folder that is not a report (no marker file) is refused, not overwritten.
+        var dir = Path.Combine(Temp(), "mine");
+        Directory.CreateDirectory(dir);
+        File.WriteAllText(Path.Combine(dir, "report.html"), "my own page");
+        var (code, _, stderr) = Run("report", Path.Combine(Root, "models", "chiller-deck.yaml"), "-o", dir);
+        Assert.Equal(2, code);
+        Assert.Contains("not a ModalChain report folder", stderr, StringComparison.Ordinal);
+        Assert.Equal("my own page", File.ReadAllText(Path.Combine(dir, "report.html")));
+        Assert.Equal(["report.html"], Directory.GetFileSystemEntries(dir).Select(Path.GetFileName));
+
+        // A folder a report was written into is replaced by the next report.
+        var again = Path.Combine(Temp(), "report");
+        Assert.Equal(0, Run("report", Path.Combine(Root, "models", "chiller-deck.yaml"), "-o", again).Code);
+        Assert.Equal(0, Run("report", Path.Combine(Root, "models", "mezzanine-absorber.yaml"), "-o", again).Code);
+        Assert.Contains("mezzanine-absorber.yaml", File.ReadAllText(Path.Combine(again, "report.html")), StringComparison.Ordinal);
+    }
 }

@@ -126,4 +126,77 @@ public class TuneCommandTests
         Assert.Equal(2, run.ExitCode);
         Assert.Contains("--mode N", run.Error);
     }
+
+    private static string[] Tune(string model, string output, params string[] extra) =>
+        ["tune", model, "--host", "deck", "--mass-ratio", "5 %", "--write", output, .. extra];
+
+    private static string TempFolder()
+    {
+        var dir = Path.Combine(Path.GetTempPath(), "modalchain-tune-tests", Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(dir);
+        return dir;
+    }
+
+    [Fact]
+    public void Write_RefusesAnExistingFileWithoutForce_AndReplacesItWithForce()
+    {
+        var dir = TempFolder();
+        var output = Path.Combine(dir, "tuned.yaml");
+        File.WriteAllText(output, "# my own notes\n");
+        var model = CommandRun.Deck("68 kN/mm");
+
+        var refused = CommandRun.Of(Tune(model, output));
+        Assert.Equal(2, refused.ExitCode);
+        Assert.Contains("--force", refused.Error);
+        Assert.Equal("# my own notes\n", File.ReadAllText(output));
+
+        var forced = CommandRun.Of(Tune(model, output, "--force"));
+        Assert.True(forced.ExitCode == 0, forced.Error);
+        Assert.Equal(3, CommandRun.Of("modes", output, "--format", "json").Json().GetProperty("modes").GetArrayLength());
+        Assert.Equal(["tuned.yaml"], Directory.GetFileSystemEntries(dir).Select(Path.GetFileName)); // no temporary file left
+    }
+
+    [Fact]
+    [System.Runtime.Versioning.UnsupportedOSPlatform("windows")]
+    public void Write_NeverOverwritesTheModelItRead_EvenThroughSymbolicLinksOrWithForce()
+    {
+        var dir = TempFolder();
+        var model = Path.Combine(dir, "deck.yaml");
+        File.Copy(CommandRun.Deck("68 kN/mm"), model);
+        var before = File.ReadAllBytes(model);
+        var fileLink = Path.Combine(dir, "link.yaml");
+        File.CreateSymbolicLink(fileLink, model);
+        var folderLink = Path.Combine(TempFolder(), "folder");
+        Directory.CreateSymbolicLink(folderLink, dir);
+
+        foreach (var output in new[] { model, Path.Combine(dir, ".", "deck.yaml"), fileLink, Path.Combine(folderLink, "deck.yaml") })
+        {
+            var run = CommandRun.Of(Tune(model, output, "--force"));
+            Assert.True(run.ExitCode == 2, $"{output}: exit {run.ExitCode}");
+            Assert.Contains("is the model that was read", run.Error);
+            Assert.Equal(before, File.ReadAllBytes(model));
+        }
+        // Read through the link, written to the real path: the same file too.
+        var viaLink = CommandRun.Of(Tune(fileLink, model, "--force"));
+        Assert.Equal(2, viaLink.ExitCode);
+        Assert.Equal(before, File.ReadAllBytes(model));
+    }
+
+    [Theory]
+    [InlineData("")]
+    [InlineData(" ")]
+    public void Write_WithoutAFileName_ExitsTwo(string output)
+    {
+        var run = CommandRun.Of(Tune(CommandRun.Deck("68 kN/mm"), output));
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("--write", run.Error);
+    }
+
+    [Fact]
+    public void Write_ToAFolder_ExitsTwo()
+    {
+        var run = CommandRun.Of(Tune(CommandRun.Deck("68 kN/mm"), TempFolder(), "--force"));
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("is a folder", run.Error);
+    }
 }

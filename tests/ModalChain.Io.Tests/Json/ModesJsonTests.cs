@@ -67,7 +67,7 @@ public class ModesJsonTests
             Assert.Equal(["m1", "m2"], Names(mode.GetProperty("shape")));
             Assert.Equal(["k1", "k2"], Names(mode.GetProperty("strain_energy_share")));
         }
-        Assert.Equal(["max_residual", "max_orthogonality_error"], Names(root.GetProperty("quality")));
+        Assert.Equal(["max_residual", "max_orthogonality_error", "solver"], Names(root.GetProperty("quality")));
         Assert.Equal(["file", "sha256", "tool_version"], Names(root.GetProperty("source")));
     }
 

@@ -18,8 +18,9 @@ public sealed class ReportWriterTests
             p => File.Exists(p) ? Convert.ToHexString(File.ReadAllBytes(p)) : "<dir>"),
         StringComparer.Ordinal);
 
+    /// <summary>Entries next to the target that a run made (staging folders, moved-aside reports, temporary files).</summary>
     private static string[] Leftovers(string parent) =>
-        [.. Directory.EnumerateDirectories(parent).Select(Path.GetFileName).Where(n => n!.Contains(".partial-", StringComparison.Ordinal))!];
+        [.. Directory.EnumerateFileSystemEntries(parent).Select(Path.GetFileName).Where(n => n!.StartsWith('.'))!];
 
     [Fact]
     public void NewFolder_ReceivesEveryFile()
@@ -27,7 +28,7 @@ public sealed class ReportWriterTests
         var parent = Repository.TempDirectory();
         var dir = Path.Combine(parent, "out");
         var files = ReportWriter.Write(SmallReport(), dir, ReportFormat.Html);
-        Assert.Equal(files.Order(StringComparer.Ordinal), Directory.EnumerateFiles(dir).Select(Path.GetFileName).Order(StringComparer.Ordinal));
+        Assert.Equal(files.Append(ReportWriter.MarkerFile).Order(StringComparer.Ordinal), Directory.EnumerateFiles(dir).Select(Path.GetFileName).Order(StringComparer.Ordinal));
         Assert.Contains("report.html", files);
         Assert.Contains("results.json", files);
         Assert.Contains("network.svg", files);
@@ -57,56 +58,125 @@ public sealed class ReportWriterTests
     }
 
     [Fact]
-    public void ExistingFolder_OldReportReplacedAndOtherFilesKept()
+    public void ExistingReport_IsReplacedWhole_NoFileOfTheEarlierReportRemains()
     {
-        var dir = Path.Combine(Repository.TempDirectory(), "out");
-        Directory.CreateDirectory(dir);
-        File.WriteAllText(Path.Combine(dir, "report.html"), "old");
-        File.WriteAllText(Path.Combine(dir, "notes.txt"), "mine");
+        // A four-mass report has mode-01..04; the two-mass report written over it must leave exactly its own files.
+        var parent = Repository.TempDirectory();
+        var dir = Path.Combine(parent, "out");
+        ReportWriter.Write(ReportBuilder.Build(Repository.UniformChain(4, 1, 100), Options), dir, ReportFormat.Pdf);
+        Assert.True(File.Exists(Path.Combine(dir, "mode-04.svg")));
         ReportWriter.Write(SmallReport(), dir, ReportFormat.Html);
-        Assert.StartsWith("<!DOCTYPE html>", File.ReadAllText(Path.Combine(dir, "report.html")), StringComparison.Ordinal);
-        Assert.Equal("mine", File.ReadAllText(Path.Combine(dir, "notes.txt")));
+
+        var fresh = Path.Combine(Repository.TempDirectory(), "fresh");
+        ReportWriter.Write(SmallReport(), fresh, ReportFormat.Html);
+        Assert.Equal(Snapshot(fresh), Snapshot(dir));
+        Assert.Empty(Leftovers(parent));
     }
 
     [Fact]
-    public void FailureWhileMovingIn_RollsBackAndLeavesFolderUnchanged()
+    public void FolderWithOtherFiles_IsRefusedAndLeftUnchanged()
     {
-        // The folder holds an earlier report plus a folder named like one of the new files, so moving that file in fails
-        // after others have already been moved: the writer must put everything back. (Works as root too, unlike chmod.)
+        // A folder that is not a report (no marker) may hold the user's own work: a report never replaces it.
         var parent = Repository.TempDirectory();
         var dir = Path.Combine(parent, "out");
         Directory.CreateDirectory(dir);
-        File.WriteAllText(Path.Combine(dir, "network.svg"), "earlier network");
-        File.WriteAllText(Path.Combine(dir, "report.html"), "earlier report");
-        Directory.CreateDirectory(Path.Combine(dir, "results.json"));
-        File.WriteAllText(Path.Combine(dir, "results.json", "keep.txt"), "blocker");
+        File.WriteAllText(Path.Combine(dir, "report.html"), "someone's own page");
+        File.WriteAllText(Path.Combine(dir, "notes.txt"), "mine");
         var before = Snapshot(dir);
 
-        Assert.Throws<ReportWriteException>(() => ReportWriter.Write(SmallReport(), dir, ReportFormat.Html));
+        var e = Assert.Throws<ReportWriteException>(() => ReportWriter.Write(SmallReport(), dir, ReportFormat.Html));
+
+        Assert.Contains("not a ModalChain report folder", e.Message, StringComparison.Ordinal);
+        Assert.Equal(before, Snapshot(dir));
+        Assert.Empty(Leftovers(parent));
+    }
+
+    [Fact]
+    public void EmptyExistingFolder_ReceivesTheReport()
+    {
+        var dir = Path.Combine(Repository.TempDirectory(), "out");
+        Directory.CreateDirectory(dir);
+        var files = ReportWriter.Write(SmallReport(), dir, ReportFormat.Html);
+        Assert.Equal(files.Append(ReportWriter.MarkerFile).Order(StringComparer.Ordinal), Directory.EnumerateFiles(dir).Select(Path.GetFileName).Order(StringComparer.Ordinal));
+    }
+
+    [Fact]
+    [System.Runtime.Versioning.UnsupportedOSPlatform("windows")]
+    public void SymbolicLinkToAReportFolder_TheFolderItNamesIsReplacedAndTheLinkKept()
+    {
+        var parent = Repository.TempDirectory();
+        var real = Path.Combine(parent, "real");
+        ReportWriter.Write(ReportBuilder.Build(Repository.UniformChain(3, 1, 100), Options), real, ReportFormat.Html);
+        var link = Path.Combine(parent, "link");
+        Directory.CreateSymbolicLink(link, real);
+
+        ReportWriter.Write(SmallReport(), link, ReportFormat.Html);
+
+        Assert.NotNull(new DirectoryInfo(link).LinkTarget);
+        Assert.False(File.Exists(Path.Combine(real, "mode-03.svg")));
+        Assert.True(File.Exists(Path.Combine(real, "mode-02.svg")));
+    }
+
+    [Theory]
+    [InlineData("create staging folder")]
+    [InlineData("write results.json")]
+    [InlineData("write " + ReportWriter.MarkerFile)]
+    [InlineData("exchange")]
+    public void IoErrorBeforeTheSwap_LeavesTheFolderUnchangedAndNoLeftovers(string failingStep)
+    {
+        // A disk error (not a kill) at a step before the swap: the run cleans up after itself.
+        var parent = Repository.TempDirectory();
+        var dir = Path.Combine(parent, "out");
+        ReportWriter.Write(ReportBuilder.Build(Repository.UniformChain(3, 1, 100), Options), dir, ReportFormat.Html);
+        var before = Snapshot(dir);
+        var control = new CommitControl(step => { if (step == failingStep) throw new IOException("disk full (injected)"); });
+
+        Assert.Throws<ReportWriteException>(() => ReportWriter.Write(SmallReport(), dir, ReportFormat.Html, control));
 
         Assert.Equal(before, Snapshot(dir));
         Assert.Empty(Leftovers(parent));
     }
 
     [Fact]
-    [System.Runtime.Versioning.UnsupportedOSPlatform("windows")]
-    public void UnwritableFolder_FailsAndLeavesFolderUnchanged()
+    public void LeftoversOfARunningProcess_AreNotTouched()
     {
+        // A concurrent run into the same folder owns its staging folder; only leftovers of ended processes are removed.
+        // Process 1 (init) runs for as long as the machine does; no process has the id int.MaxValue.
         var parent = Repository.TempDirectory();
         var dir = Path.Combine(parent, "out");
-        Directory.CreateDirectory(dir);
-        File.WriteAllText(Path.Combine(dir, "report.html"), "earlier report");
+        var live = Path.Combine(parent, ".out.partial-1-0123456789ab");
+        Directory.CreateDirectory(live);
+        var dead = Path.Combine(parent, $".out.partial-{int.MaxValue}-0123456789ab");
+        Directory.CreateDirectory(dead);
+        var earlierVersion = Path.Combine(parent, $".out.partial-{Guid.NewGuid():N}"); // named without a process id
+        Directory.CreateDirectory(earlierVersion);
+
+        ReportWriter.Write(SmallReport(), dir, ReportFormat.Html);
+
+        Assert.True(Directory.Exists(live));
+        Assert.False(Directory.Exists(dead));
+        Assert.False(Directory.Exists(earlierVersion));
+    }
+
+    [Fact]
+    [System.Runtime.Versioning.UnsupportedOSPlatform("windows")]
+    public void UnwritableParentFolder_FailsAndLeavesTheReportUnchanged()
+    {
+        // The staging folder is made next to the target, so a parent without write permission stops the run before it starts.
+        var box = Path.Combine(Repository.TempDirectory(), "box");
+        var dir = Path.Combine(box, "out");
+        ReportWriter.Write(ReportBuilder.Build(Repository.UniformChain(3, 1, 100), Options), dir, ReportFormat.Html);
         var before = Snapshot(dir);
-        File.SetUnixFileMode(dir, UnixFileMode.UserRead | UnixFileMode.UserExecute);
+        File.SetUnixFileMode(box, UnixFileMode.UserRead | UnixFileMode.UserExecute);
         try
         {
-            var probe = Path.Combine(dir, ".probe");
+            var probe = Path.Combine(box, ".probe");
             var ownerBypassesPermissions = TryCreate(probe); // root ignores directory permissions
             if (ownerBypassesPermissions)
             {
                 File.Delete(probe);
-                // Make the folder unwritable for root too: the target path is a file, not a folder.
-                var asFile = Path.Combine(parent, "out-file");
+                // Make the target unusable for root too: the path is a file, not a folder.
+                var asFile = Path.Combine(Repository.TempDirectory(), "out-file");
                 File.WriteAllText(asFile, "a file where the folder should be");
                 Assert.Throws<ReportWriteException>(() => ReportWriter.Write(SmallReport(), asFile, ReportFormat.Html));
                 Assert.Equal("a file where the folder should be", File.ReadAllText(asFile));
@@ -118,10 +188,10 @@ public sealed class ReportWriterTests
         }
         finally
         {
-            File.SetUnixFileMode(dir, UnixFileMode.UserRead | UnixFileMode.UserWrite | UnixFileMode.UserExecute);
+            File.SetUnixFileMode(box, UnixFileMode.UserRead | UnixFileMode.UserWrite | UnixFileMode.UserExecute);
         }
         Assert.Equal(before, Snapshot(dir));
-        Assert.Empty(Leftovers(parent));
+        Assert.Empty(Leftovers(box));
     }
 
     [Fact]
@@ -129,8 +199,7 @@ public sealed class ReportWriterTests
     {
         var parent = Repository.TempDirectory();
         var dir = Path.Combine(parent, "out");
-        Directory.CreateDirectory(dir);
-        File.WriteAllText(Path.Combine(dir, "report.html"), "earlier report");
+        ReportWriter.Write(ReportBuilder.Build(Repository.UniformChain(3, 1, 100), Options), dir, ReportFormat.Html);
         var before = Snapshot(dir);
         ReportSectionFactory failing = _ => throw new NumericalFailureException("injected: the eigen solver did not converge (test)");
         var document = Repository.UniformChain(2, 1, 100);
@@ -149,8 +218,7 @@ public sealed class ReportWriterTests
         // A failure while staging files (here: a figure whose PDF export throws) must not reach the target folder either.
         var parent = Repository.TempDirectory();
         var dir = Path.Combine(parent, "out");
-        Directory.CreateDirectory(dir);
-        File.WriteAllText(Path.Combine(dir, "report.html"), "earlier report");
+        ReportWriter.Write(ReportBuilder.Build(Repository.UniformChain(3, 1, 100), Options), dir, ReportFormat.Html);
         var before = Snapshot(dir);
         var report = SmallReport();
         var broken = report with { Figures = [.. report.Figures, new BrokenFigure()] };

@@ -9,7 +9,8 @@ namespace ModalChain.Core.Analyses.Modal;
 /// <summary>Options of a modal analysis.</summary>
 /// <param name="Count">How many of the lowest modes to compute; null for all.</param>
 /// <param name="Solver">A specific eigen algorithm, or null to let <see cref="GeneralizedEigen"/> choose.</param>
-public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? Solver = null);
+/// <param name="Choice">What <see cref="GeneralizedEigen"/> chooses from when <paramref name="Solver"/> is null.</param>
+public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? Solver = null, SolverChoice Choice = SolverChoice.Auto);
 
 /// <summary>Undamped natural frequencies, mode shapes and their participation, energy shares and quality figures.</summary>
 /// <remarks>
@@ -34,7 +35,7 @@ public static class ModalAnalysis
         options ??= new ModalOptions();
         if (matrices.Size == 0) throw new ArgumentException("The network has no masses.", nameof(network));
 
-        var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver);
+        var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver, options.Choice);
         var m = matrices.Mass;
         var k = matrices.Stiffness;
         var iota = matrices.Influence;
@@ -86,7 +87,7 @@ public static class ModalAnalysis
                 Residual: residual));
         }
 
-        var quality = new ModalQuality(maxResidual, OrthogonalityError(solution.Shapes, m));
+        var quality = new ModalQuality(maxResidual, ModeChecks.OrthogonalityError(solution.Shapes, m, matrices.MassIsDiagonal));
         return new ModalResult(network, matrices, modes.MoveToImmutable(), totalMass, quality, solution.Algorithm);
     }
 
@@ -115,15 +116,5 @@ public static class ModalAnalysis
         }).ToArray();
         var sum = energies.Sum();
         return [.. energies.Select(e => sum > 0 ? e / sum : 0)];
-    }
-
-    private static double OrthogonalityError(Matrix<double> shapes, Matrix<double> m)
-    {
-        var g = shapes.TransposeThisAndMultiply(m * shapes);
-        var worst = 0.0;
-        for (var i = 0; i < g.RowCount; i++)
-            for (var j = 0; j < g.ColumnCount; j++)
-                worst = Math.Max(worst, Math.Abs(g[i, j] - (i == j ? 1 : 0)));
-        return worst;
     }
 }

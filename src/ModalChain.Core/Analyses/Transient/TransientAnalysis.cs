@@ -187,14 +187,24 @@ public static class TransientAnalysis
         return new TransientResult(network, settings, description, steps, recorder.Times, recorder.Histories(), energy, [.. warnings]);
     }
 
-    /// <summary>All modes for small models; for large ones only the lowest (those the modal method keeps, or 30 for the step checks), by subspace iteration.</summary>
-    private static ModalResult Modes(Network network, StructuralMatrices matrices, TransientSettings settings)
+    /// <summary>How many of the lowest modes a run of <paramref name="settings"/> on <paramref name="size"/> DOFs uses; null for all.</summary>
+    /// <remarks>
+    /// All modes for small models and for the modal method without a mode count; otherwise the modes the modal method
+    /// keeps, or the lowest 30 for the time-step and duration checks. A caller that builds a <see cref="DampedSystem"/>
+    /// for the run solves only these.
+    /// </remarks>
+    public static int? ModesNeeded(int size, TransientSettings settings)
     {
-        if (matrices.Size <= LargeModel || (settings.Method == TransientMethod.Modal && settings.ModeCount is null))
-            return ModalAnalysis.Solve(network, matrices);
-        var count = Math.Min(matrices.Size, settings.Method == TransientMethod.Modal ? settings.ModeCount!.Value : ModesForChecks);
-        return ModalAnalysis.Solve(network, matrices, new ModalOptions(count, new SubspaceIterationEigen()));
+        ArgumentNullException.ThrowIfNull(settings);
+        if (size <= LargeModel || (settings.Method == TransientMethod.Modal && settings.ModeCount is null)) return null;
+        return Math.Min(size, settings.Method == TransientMethod.Modal ? settings.ModeCount!.Value : ModesForChecks);
     }
+
+    /// <summary>All modes for small models; for large ones only the lowest (those the modal method keeps, or 30 for the step checks), by subspace iteration.</summary>
+    private static ModalResult Modes(Network network, StructuralMatrices matrices, TransientSettings settings) =>
+        ModesNeeded(matrices.Size, settings) is { } count
+            ? ModalAnalysis.Solve(network, matrices, new ModalOptions(count, new SubspaceIterationEigen()))
+            : ModalAnalysis.Solve(network, matrices);
 
     /// <summary>
     /// All mass-normalised mode shapes Φ with the diagonals of ΦᵀCΦ (1/s) and ΦᵀKΦ = ω² (1/s²), when Newmark's
