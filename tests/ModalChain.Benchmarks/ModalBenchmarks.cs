@@ -11,6 +11,7 @@ public class ModalBenchmarks
 {
     private Network _network = null!;
     private StructuralMatrices _matrices = null!;
+    private Network _stiffNetwork = null!;
 
     [Params(50, 200, 500)]
     public int Masses { get; set; }
@@ -20,6 +21,8 @@ public class ModalBenchmarks
     {
         _network = Networks.RandomChain(Masses, seed: 7, crossSprings: Masses / 10);
         _matrices = Assembler.Assemble(_network);
+        // The same chain with its ground spring made 1e14 N/m: the low modes are re-solved from the flexibility.
+        _stiffNetwork = _network.WithSpringStiffness("s0", 1e14);
     }
 
     [Benchmark]
@@ -27,4 +30,7 @@ public class ModalBenchmarks
 
     [Benchmark]
     public ModalResult SolveAllModes() => ModalAnalysis.Solve(_network, _matrices);
+
+    [Benchmark]
+    public ModalResult SolveAllModes_StiffGroundSpring() => ModalAnalysis.Solve(_stiffNetwork);
 }

@@ -24,7 +24,7 @@ internal static class ValidateCommand
             var o = io.Output;
             o.WriteLine($"{path}: valid");
             o.WriteLine($"  title:               {n.Title}");
-            o.WriteLine(string.Create(inv, $"  degrees of freedom:  {n.Masses.Length} (one direction per mass)"));
+            o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.ForScalarNetwork(n).Count} (one direction per mass{(n.Links.IsEmpty ? "" : "; linked masses share one")})"));
             o.WriteLine(string.Create(inv, $"  total mass:          {n.TotalMass:G6} kg"));
             o.WriteLine(string.Create(inv, $"  springs, dampers:    {n.Springs.Length}, {n.Dampers.Length}"));
             var groups = Topology.UnsupportedGroups(n);

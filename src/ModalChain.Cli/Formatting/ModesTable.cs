@@ -48,13 +48,19 @@ internal static class ModesTable
             var complex = new TextTable("root", "undamped [Hz]", "damped [Hz]", "damping [%]");
             foreach (var c in complexModes)
                 complex.Add(c.Number.ToString(Inv), c.UndampedFrequencyHz.ToString("F4", Inv),
-                    c.IsOscillatory ? c.DampedFrequencyHz.ToString("F4", Inv) : "overdamped",
+                    c.Kind switch
+                    {
+                        ComplexModeKind.RigidBody => "rigid body (zero root)",
+                        ComplexModeKind.RigidBodyRelaxation => string.Create(Inv, $"rigid-body relaxation, {-c.EigenValue.Real:G4} 1/s"),
+                        _ => c.IsOscillatory ? c.DampedFrequencyHz.ToString("F4", Inv) : "overdamped",
+                    },
                     c.IsOscillatory ? (100 * c.DampingRatio).ToString("F2", Inv) : "-");
             complex.Write(o);
             o.WriteLine();
         }
         if (result.RigidBodyModeCount > 0)
             o.WriteLine($"{result.RigidBodyModeCount} rigid-body mode(s) at 0 Hz: part of the network is not held by springs.");
+        foreach (var w in result.Warnings) o.WriteLine("Warning: " + w);
         o.WriteLine(string.Create(Inv,
             $"Quality: max residual {result.Quality.MaxResidual:0.0E+00}, max M-orthogonality error {result.Quality.MaxOrthogonalityError:0.0E+00} ({result.Algorithm})."));
         o.WriteLine();

@@ -7,7 +7,8 @@ namespace ModalChain.Core.Assembly;
 /// <summary>Builds M, K and C from a network.</summary>
 /// <remarks>
 /// A two-node element of value k between DOFs a and b adds k to K[a,a] and K[b,b] and −k to K[a,b] and K[b,a];
-/// an end on a support drops its row and column (the support is fixed). Dampers build C the same way.
+/// an end on a support drops its row and column (the support is fixed). Dampers build C the same way. Masses tied by
+/// a link share one DOF, so their masses add and an element between two of them adds nothing.
 /// </remarks>
 public static class Assembler
 {
@@ -55,6 +56,7 @@ public static class Assembler
     /// <summary>Adds a two-node element of value <paramref name="value"/> between DOFs a and b (−1 = support) as coordinate entries.</summary>
     internal static void AddTwoNode(List<(int, int, double)> entries, int a, int b, double value)
     {
+        if (a == b) return; // both ends on one DOF (a link): the element carries no force
         if (a >= 0) entries.Add((a, a, value));
         if (b >= 0) entries.Add((b, b, value));
         if (a >= 0 && b >= 0)

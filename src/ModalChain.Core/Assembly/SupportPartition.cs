@@ -61,7 +61,7 @@ public sealed record SupportPartition(
         var c = Matrix<double>.Build.Dense(total, total);
         foreach (var d in network.Dampers) AddTwoNode(c, Index(d.NodeA), Index(d.NodeB), d.Coefficient);
         var m = Matrix<double>.Build.Dense(n, n);
-        foreach (var mass in network.Masses) m[free.IndexOf(mass.Name), free.IndexOf(mass.Name)] = mass.Kilograms;
+        foreach (var mass in network.Masses) m[free.IndexOf(mass.Name), free.IndexOf(mass.Name)] += mass.Kilograms;
 
         var p = supports.Length;
         return new SupportPartition(free, supports, m,
@@ -88,6 +88,7 @@ public sealed record SupportPartition(
 
     private static void AddTwoNode(Matrix<double> a, int i, int j, double value)
     {
+        if (i == j) return; // both ends on one DOF (a link): no force
         a[i, i] += value;
         a[j, j] += value;
         a[i, j] -= value;

@@ -32,6 +32,15 @@ public sealed record Spring(string Name, string NodeA, string NodeB, double Stif
 /// <param name="Coefficient">Damping coefficient in N·s/m; non-negative and finite.</param>
 public sealed record Damper(string Name, string NodeA, string NodeB, double Coefficient);
 
+/// <summary>Masses tied rigidly together: they move as one, share one degree of freedom and their masses add.</summary>
+/// <param name="Name">Unique name of the link within its network.</param>
+/// <param name="Masses">The masses tied, at least two, all different; never a support.</param>
+/// <remarks>
+/// A link is the exact form of a connection much stiffer than the rest of the network (a bolted flange, a stiff
+/// frame), which as a very stiff spring costs accuracy in the eigen solve.
+/// </remarks>
+public sealed record Link(string Name, ImmutableArray<string> Masses);
+
 /// <summary>An immutable lumped network of masses, springs and dampers moving in one direction.</summary>
 /// <remarks>
 /// Build one with <see cref="NetworkBuilder"/>, which checks the references between elements.
@@ -67,6 +76,9 @@ public sealed record Network
     /// <summary>The discrete viscous dampers, in declaration order.</summary>
     public ImmutableArray<Damper> Dampers { get; }
 
+    /// <summary>The rigid links between masses, in declaration order; linked masses share one degree of freedom.</summary>
+    public ImmutableArray<Link> Links { get; internal init; } = [];
+
     /// <summary>Sum of all masses in kg.</summary>
     public double TotalMass => Masses.Sum(m => m.Kilograms);
 
@@ -81,7 +93,7 @@ public sealed record Network
     public Network WithMassOrder(IReadOnlyList<int> order)
     {
         Guard.Permutation(order, Masses.Length, nameof(order));
-        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers);
+        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links };
     }
 }
 

@@ -9,6 +9,7 @@ public sealed class NetworkBuilder
     private readonly List<Support> _supports = [new Support(Network.Ground)];
     private readonly List<Spring> _springs = [];
     private readonly List<Damper> _dampers = [];
+    private readonly List<Link> _links = [];
     private readonly HashSet<string> _names = [Network.Ground];
     private readonly HashSet<string> _springNames = [];
     private readonly HashSet<string> _damperNames = [];
@@ -65,8 +66,27 @@ public sealed class NetworkBuilder
         return this;
     }
 
+    /// <summary>Ties existing masses rigidly together: they will share one degree of freedom and their masses add.</summary>
+    /// <param name="name">Unique link name.</param>
+    /// <param name="masses">At least two different masses (never a support).</param>
+    public NetworkBuilder AddLink(string name, params string[] masses)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(name);
+        ArgumentNullException.ThrowIfNull(masses);
+        if (_links.Any(l => l.Name == name))
+            throw new ArgumentException($"A link named '{name}' already exists.", nameof(name));
+        if (masses.Length < 2) throw new ArgumentException($"Link '{name}' needs at least two masses.", nameof(masses));
+        foreach (var m in masses)
+            if (!_masses.Any(x => x.Name == m))
+                throw new ArgumentException($"Link '{name}' refers to '{m}', which is not a mass of the network.", nameof(masses));
+        if (masses.Distinct().Count() != masses.Length)
+            throw new ArgumentException($"Link '{name}' names a mass twice.", nameof(masses));
+        _links.Add(new Link(name, [.. masses]));
+        return this;
+    }
+
     /// <summary>Produces the immutable network.</summary>
-    public Network Build() => new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]);
+    public Network Build() => new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links] };
 
     private void ClaimNodeName(string name)
     {

@@ -43,6 +43,7 @@ public static class NetworkEdits
         if (network.Supports[0].Position is { } ground) builder.PlaceGround(ground);
         foreach (var s in network.Springs.Concat(springs)) builder.AddSpring(s.Name, s.NodeA, s.NodeB, s.Stiffness);
         foreach (var d in network.Dampers.Concat(dampers)) builder.AddDamper(d.Name, d.NodeA, d.NodeB, d.Coefficient);
+        foreach (var l in network.Links) builder.AddLink(l.Name, [.. l.Masses]);
         var built = builder.Build();
         // Keep the original element records (and anything a later version adds to them) for the old part.
         return Copy(network,
@@ -53,7 +54,7 @@ public static class NetworkEdits
 
     private static Network Copy(Network n, ImmutableArray<Mass>? masses = null, ImmutableArray<Spring>? springs = null,
         ImmutableArray<Damper>? dampers = null) =>
-        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers);
+        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers) { Links = n.Links };
 
     private static int IndexOf<T>(ImmutableArray<T> items, Func<T, bool> match, string kind, string name)
     {

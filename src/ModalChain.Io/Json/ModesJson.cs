@@ -37,10 +37,12 @@ public static class ModesJson
     {
         var network = result.Network;
         var dofNames = result.Matrices.Dofs.Dofs.Select(d => d.ToString()).ToArray();
+        var massNames = network.Masses.Select(m => m.Name).ToArray();
         var springNames = network.Springs.Select(s => s.Name).ToArray();
         // Encoded once: a large model writes every name once per mode in three keyed objects.
         var dofKeys = dofNames.Select(d => JsonEncodedText.Encode(d, WriterOptions.Encoder)).ToArray();
         var springKeys = springNames.Select(s => JsonEncodedText.Encode(s, WriterOptions.Encoder)).ToArray();
+        var massKeys = massNames.Select(m => JsonEncodedText.Encode(m, WriterOptions.Encoder)).ToArray();
 
         writer.WriteString("title", MarkupText.Clean(network.Title));
         writer.Source(document, toolVersion);
@@ -59,7 +61,8 @@ public static class ModesJson
             writer.Number("omega_rad_s", mode.AngularFrequency);
             writer.Number("period_s", mode.PeriodSeconds);
             writer.WriteBoolean("rigid_body", mode.IsRigidBody);
-            writer.Keyed("shape", dofKeys, mode.Shape.AsSpan());
+            // Shapes are written per mass: a linked group's one DOF is repeated for each of its masses.
+            writer.Keyed("shape", massKeys, network.Links.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan());
             writer.Number("participation", mode.ParticipationFactor);
             writer.Number("effective_mass_kg", mode.EffectiveModalMass);
             writer.Number("effective_mass_fraction", mode.EffectiveMassFraction);
@@ -95,6 +98,7 @@ public static class ModesJson
                 writer.Number("damped_frequency_hz", c.DampedFrequencyHz);
                 writer.Number("damping_ratio", c.DampingRatio);
                 writer.WriteBoolean("oscillatory", c.IsOscillatory);
+                writer.WriteString("kind", KindName(c.Kind));
                 writer.Number("eigenvalue_real", c.EigenValue.Real);
                 writer.Number("eigenvalue_imag", c.EigenValue.Imaginary);
                 writer.WriteEndObject();
@@ -110,9 +114,18 @@ public static class ModesJson
 
         writer.WriteStartArray("warnings");
         foreach (var w in document.Warnings) writer.WriteStringValue(w.ToString());
+        foreach (var w in result.Warnings.Where(w => !document.Warnings.Any(d => d.Message == w))) writer.WriteStringValue(w);
         writer.WriteEndArray();
         writer.WriteString("caution", Cautions.Text);
     }
+
+    /// <summary>The JSON name of a complex root's kind: elastic, rigid-body (a zero root) or rigid-body-relaxation.</summary>
+    public static string KindName(ComplexModeKind kind) => kind switch
+    {
+        ComplexModeKind.RigidBody => "rigid-body",
+        ComplexModeKind.RigidBodyRelaxation => "rigid-body-relaxation",
+        _ => "elastic",
+    };
 
     /// <summary>The damping ratio of <paramref name="mode"/>: from <paramref name="damping"/>, 0 without one, NaN for a rigid-body mode.</summary>
     public static double DampingRatioOf(DampedSystem? damping, Mode mode)

@@ -77,12 +77,15 @@ public static partial class ModelReader
         var springs = ReadTwoNodeSection(top, "springs", "spring", "stiffness", Quantity.Stiffness, StiffnessRange, nodes, context);
         var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
         CheckRepeatedSprings(repeated, springs, context);
+        var links = ReadLinks(top, context, masses.Entries.Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
         if (context.HasErrors) return null;
 
         foreach (var (name, a, b, k) in springs) builder.AddSpring(name, a, b, k);
         foreach (var (name, a, b, k, _) in repeated.Springs) builder.AddSpring(name, a, b, k);
         foreach (var (name, a, b, c) in dampers) builder.AddDamper(name, a, b, c);
+        foreach (var (name, linked) in links) builder.AddLink(name, linked);
         var network = builder.Build();
+        WarnAboutLinkedElements(network, context);
         WarnAboutConnectivity(network, context);
         return network;
     }
@@ -178,6 +181,9 @@ public static partial class ModelReader
 
     private static void WarnAboutConnectivity(CoreNetwork network, ReadContext context)
     {
+        var spread = Topology.StiffnessRatioWarning(network);
+        if (spread is not null && context.Positions.TryGetValue($"springs.{Topology.StiffnessSpread(network).Stiff[0].Name}", out var at))
+            context.Warning(at, spread);
         var loose = Topology.MassesWithoutSpring(network).ToHashSet();
         foreach (var name in loose)
             context.Warning(context.Positions[$"masses.{name}"],

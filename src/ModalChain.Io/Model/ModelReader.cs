@@ -15,7 +15,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "damping", "loads", "harmonic", "transient", "criteria", "repeat"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "links", "damping", "loads", "harmonic", "transient", "criteria", "repeat"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)

@@ -59,7 +59,8 @@ public sealed class ModelSummarySection : IReportSection
         html.Facts(
         [
             ("Title", network.Title),
-            ("Degrees of freedom", network.Masses.Length.ToString(CultureInfo.InvariantCulture) + " (one direction of motion per mass)"),
+            ("Degrees of freedom", Core.Dofs.DofMap.ForScalarNetwork(network).Count.ToString(CultureInfo.InvariantCulture)
+                + (network.Links.IsEmpty ? " (one direction of motion per mass)" : " (one direction of motion per mass; masses tied by a link share one)")),
             ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass, given: true)),
             ("Masses, springs, dampers", string.Create(CultureInfo.InvariantCulture, $"{network.Masses.Length}, {network.Springs.Length}, {network.Dampers.Length}")),
             ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),

@@ -100,13 +100,20 @@ public sealed class ModesSection : IReportSection
             html.Table("Complex modes of the damped system (the damping is not classical, so the undamped shapes are coupled)",
                 ["Mode", "Undamped frequency (Hz)", "Damped frequency (Hz)", "Damping ratio (%)"],
                 _complexModes.Take(_result.Modes.Length).Select(c => (IReadOnlyList<string>)
-                    [c.Number.ToString(Inv), DisplayUnits.Number(c.UndampedFrequencyHz), c.IsOscillatory ? DisplayUnits.Number(c.DampedFrequencyHz) : "overdamped", DisplayUnits.Percent(c.DampingRatio)]),
+                    [c.Number.ToString(Inv), DisplayUnits.Number(c.UndampedFrequencyHz), c.Kind switch
+                    {
+                        ComplexModeKind.RigidBody => "rigid body (zero root)",
+                        ComplexModeKind.RigidBodyRelaxation => "rigid-body relaxation, " + DisplayUnits.Number(-c.EigenValue.Real) + " 1/s",
+                        _ => c.IsOscillatory ? DisplayUnits.Number(c.DampedFrequencyHz) : "overdamped",
+                    }, c.IsOscillatory ? DisplayUnits.Percent(c.DampingRatio) : "—"]),
                 new HashSet<int> { 0, 1, 2, 3 });
         html.Paragraph(string.Create(Inv,
             $"Quality: largest eigen residual ‖Kφ − ω²Mφ‖/‖Kφ‖ = {_result.Quality.MaxResidual:0.0e+00}; largest M-orthogonality error |ΦᵀMΦ − I| = {_result.Quality.MaxOrthogonalityError:0.0e+00}; solver: {_result.Algorithm}."),
             "quality");
         if (_result.RigidBodyModeCount > 0)
             html.Paragraph(string.Create(Inv, $"{_result.RigidBodyModeCount} rigid-body mode(s) at 0 Hz: part of the network is not held by any spring to a support."), "note");
+        foreach (var w in _result.Warnings.Where(w => !_context.Document.Warnings.Any(d => d.Message == w)))
+            html.Paragraph("Warning: " + w, "note");
         html.Figure(_massChart);
         html.Heading("Mode shapes");
         html.Paragraph("Each figure shows the undeformed network (grey, dashed) and the mode shape (blue, solid). Displacements act in the network's single direction of motion and are drawn across the chain so masses do not overlap; the numbers beside the masses are the normalised amplitudes (largest = +1). A mode has no absolute amplitude: only the ratios between masses are meaningful.");
@@ -127,7 +134,8 @@ public sealed class ModesSection : IReportSection
 
     private SchematicFigure ModeFigure(Mode mode, NetworkLayout layout, double scale, bool animate)
     {
-        var (shape, reference) = Normalised(mode);
+        // The drawing has every mass; linked masses share their DOF's value.
+        var (shape, reference) = Normalised(mode with { Shape = _result.ShapeByMass(mode) });
         var referenceName = layout.Masses[reference].Name;
         var header = new[]
         {

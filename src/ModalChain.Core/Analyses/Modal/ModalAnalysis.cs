@@ -16,13 +16,11 @@ public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? So
 /// <remarks>
 /// Solves K φ = ω² M φ. Shapes are mass-normalised (φᵀMφ = 1). Participation Γ = φᵀMι and effective modal mass
 /// M* = Γ² (Chopra, Dynamics of Structures, §13.2; the 90 % cumulative rule is in ASCE 7-16 §12.9.1.1 and
-/// EN 1998-1 §4.3.3.3.1). A mode is rigid-body when λ &lt; 1e-10 · s, with s = maxᵢ Σⱼ|Kᵢⱼ|/Mᵢᵢ, a Gershgorin
-/// bound on the largest eigenvalue.
+/// EN 1998-1 §4.3.3.3.1). Rigid-body modes are decided by the topology and low modes are resolved to relative
+/// accuracy whatever the stiffness spread (see <see cref="ModeResolution"/>).
 /// </remarks>
 public static class ModalAnalysis
 {
-    private const double RigidBodyTolerance = 1e-10;
-
     /// <summary>Assembles and solves <paramref name="network"/>.</summary>
     public static ModalResult Solve(Network network, ModalOptions? options = null) =>
         Solve(network, Assembler.Assemble(network), options);
@@ -41,19 +39,20 @@ public static class ModalAnalysis
         var iota = matrices.Influence;
         var totalMass = iota * (m * iota);
         var scale = StiffnessScale(k, m);
+        var resolved = ModeResolution.Resolve(network, matrices, solution, scale);
 
         var springEnds = network.Springs
             .Select(s => (a: matrices.Dofs.IndexOf(s.NodeA), b: matrices.Dofs.IndexOf(s.NodeB), k: s.Stiffness))
             .ToArray();
 
-        var modes = ImmutableArray.CreateBuilder<Mode>(solution.Count);
+        var modes = ImmutableArray.CreateBuilder<Mode>(resolved.EigenValues.Length);
         var cumulative = 0.0;
         var maxResidual = 0.0;
-        for (var j = 0; j < solution.Count; j++)
+        for (var j = 0; j < resolved.EigenValues.Length; j++)
         {
-            var phi = solution.Shapes.Column(j);
-            var lambda = solution.EigenValues[j];
-            var rigid = lambda < RigidBodyTolerance * scale;
+            var phi = resolved.Shapes.Column(j);
+            var lambda = resolved.EigenValues[j];
+            var rigid = resolved.IsRigidBody[j];
             var omega2 = rigid ? 0.0 : lambda;
             var omega = Math.Sqrt(omega2);
             var f = omega / (2 * Math.PI);
@@ -87,8 +86,11 @@ public static class ModalAnalysis
                 Residual: residual));
         }
 
-        var quality = new ModalQuality(maxResidual, ModeChecks.OrthogonalityError(solution.Shapes, m, matrices.MassIsDiagonal));
-        return new ModalResult(network, matrices, modes.MoveToImmutable(), totalMass, quality, solution.Algorithm);
+        var quality = new ModalQuality(maxResidual, ModeChecks.OrthogonalityError(resolved.Shapes, m, matrices.MassIsDiagonal));
+        return new ModalResult(network, matrices, modes.MoveToImmutable(), totalMass, quality, solution.Algorithm)
+        {
+            Warnings = resolved.Warnings,
+        };
     }
 
     /// <summary>maxᵢ Σⱼ |Kᵢⱼ| / Mᵢᵢ in rad²/s²: an upper bound on ω²_max for diagonal M, used to judge "zero".</summary>

@@ -59,6 +59,16 @@ public sealed record ModalResult(
     ModalQuality Quality,
     string Algorithm)
 {
+    /// <summary>What a reviewer must know about the accuracy of these modes (stiffness spread, springs involved); empty when nothing.</summary>
+    public ImmutableArray<string> Warnings { get; init; } = [];
+
+    /// <summary>The shape of <paramref name="mode"/> at every mass of the network, in declaration order (linked masses repeat their DOF's value).</summary>
+    public ImmutableArray<double> ShapeByMass(Mode mode)
+    {
+        ArgumentNullException.ThrowIfNull(mode);
+        return [.. Network.Masses.Select(m => mode.Shape[Matrices.Dofs.IndexOf(m.Name)])];
+    }
+
     /// <summary>Number of rigid-body (0 Hz) modes among <see cref="Modes"/>.</summary>
     public int RigidBodyModeCount => Modes.Count(m => m.IsRigidBody);
 }
