@@ -15,4 +15,10 @@ if (args.Length >= 1 && args[0] == "--cholesky-stages")
     SparseEigenStages.Cholesky();
     return;
 }
+// "read-model ROWS COLUMNS" times one read, check and assembly of a generated grid file with a stopwatch instead.
+if (args is ["read-model", var rows, var columns])
+{
+    ModelFiles.TimeReading(int.Parse(rows, CultureInfo.InvariantCulture), int.Parse(columns, CultureInfo.InvariantCulture), Console.Out);
+    return;
+}
 BenchmarkSwitcher.FromAssembly(typeof(Program).Assembly).Run(args);
