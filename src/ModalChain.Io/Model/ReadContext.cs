@@ -128,7 +128,9 @@ internal sealed partial class ReadContext(string file)
     {
         var magnitude = Math.Abs(value);
         var format = value == 0 || (magnitude >= 1e-3 && magnitude < 1e9) ? "0.######" : "0.###e+0";
-        return value.ToString(format, System.Globalization.CultureInfo.InvariantCulture) + " " + UnitTable.SiSymbol(quantity);
+        // A ratio's SI unit is the plain number 1, which is not written ("-2", not "-2 1").
+        var symbol = UnitTable.SiSymbol(quantity);
+        return value.ToString(format, System.Globalization.CultureInfo.InvariantCulture) + (symbol == "1" ? "" : " " + symbol);
     }
 
     private static string Example(Quantity quantity) => quantity switch
