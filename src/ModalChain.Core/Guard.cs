@@ -25,6 +25,19 @@ internal static class Guard
         if (rows != columns) throw new ArgumentException($"{name} must be square but is {rows}×{columns}.", name);
     }
 
+    /// <summary>Checks the arguments every generalized eigen solver takes and returns n: K and M square, the same size, 1 ≤ count ≤ n.</summary>
+    public static int EigenProblem(MathNet.Numerics.LinearAlgebra.Matrix<double> stiffness, MathNet.Numerics.LinearAlgebra.Matrix<double> mass, int count)
+    {
+        ArgumentNullException.ThrowIfNull(stiffness);
+        ArgumentNullException.ThrowIfNull(mass);
+        Square(stiffness.RowCount, stiffness.ColumnCount, "K");
+        Square(mass.RowCount, mass.ColumnCount, "M");
+        SameSize(stiffness.RowCount, mass.RowCount, "K", "M");
+        var n = stiffness.RowCount;
+        if (count < 1 || count > n) throw new ArgumentOutOfRangeException(nameof(count), count, $"count must be in 1..{n}.");
+        return n;
+    }
+
     public static void SameSize(int a, int b, string nameA, string nameB)
     {
         if (a != b) throw new ArgumentException($"{nameA} is {a}×{a} but {nameB} is {b}×{b}.", nameB);

@@ -19,13 +19,7 @@ public sealed class LapackEigen : IGeneralizedEigenSolver
     /// <inheritdoc />
     public EigenSolution Solve(Matrix<double> stiffness, Matrix<double> mass, int count, bool massIsDiagonal)
     {
-        ArgumentNullException.ThrowIfNull(stiffness);
-        ArgumentNullException.ThrowIfNull(mass);
-        Guard.Square(stiffness.RowCount, stiffness.ColumnCount, "K");
-        Guard.Square(mass.RowCount, mass.ColumnCount, "M");
-        Guard.SameSize(stiffness.RowCount, mass.RowCount, "K", "M");
-        var n = stiffness.RowCount;
-        if (count < 1 || count > n) throw new ArgumentOutOfRangeException(nameof(count), count, $"count must be in 1..{n}.");
+        var n = Guard.EigenProblem(stiffness, mass, count);
         if (!NativeLapack.IsAvailable) throw new InvalidOperationException("No native LAPACK library is loaded; use the managed solver.");
 
         var values = new double[n];

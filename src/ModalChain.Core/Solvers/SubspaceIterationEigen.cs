@@ -25,12 +25,7 @@ public sealed class SubspaceIterationEigen : IGeneralizedEigenSolver
     /// <inheritdoc />
     public EigenSolution Solve(Matrix<double> stiffness, Matrix<double> mass, int count, bool massIsDiagonal)
     {
-        ArgumentNullException.ThrowIfNull(stiffness);
-        ArgumentNullException.ThrowIfNull(mass);
-        Guard.Square(stiffness.RowCount, stiffness.ColumnCount, "K");
-        Guard.SameSize(stiffness.RowCount, mass.RowCount, "K", "M");
-        var n = stiffness.RowCount;
-        if (count < 1 || count > n) throw new ArgumentOutOfRangeException(nameof(count), count, $"count must be in 1..{n}.");
+        var n = Guard.EigenProblem(stiffness, mass, count);
         var q = Math.Min(n, Math.Max(2 * count, count + 8));
         if (q == n) return new DenseGeneralizedEigen().Solve(stiffness, mass, count, massIsDiagonal) with { Algorithm = Name + " (dense: subspace is the whole space)" };
 
