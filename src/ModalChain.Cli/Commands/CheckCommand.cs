@@ -24,7 +24,8 @@ internal static class CheckCommand
         var command = new Command("check",
             "Evaluate the criteria of the model's 'criteria:' section: frequency separation (no natural frequency within " +
             "±margin of any running speed × order) and vibration limits at the operating points. Each criterion prints " +
-            "its reserve, how far it is from failing in %. Exit code 0 when all pass, 1 when any fails or cannot be " +
+            "its reserve, how far it is from failing in %. Machine zones (r.m.s. velocity against zone boundaries of a machine " +
+            "class) and floor curves (one-third-octave r.m.s. velocity against a vibration criterion curve) are checked by name. Exit code 0 when all pass, 1 when any fails or cannot be " +
             "evaluated, 2 on input errors. Default margins are common practice, not code requirements (docs/criteria.md).")
         { file, solver, format };
         command.SetAction(parse =>
@@ -98,6 +99,37 @@ internal static class CheckCommand
                     Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Signed(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL");
             table.Write(o);
             o.WriteLine("  reserve = (limit - value) / limit.");
+            o.WriteLine();
+        }
+        if (outcome.Zones.Length > 0)
+        {
+            o.WriteLine("Machine vibration zones at the operating points (r.m.s. velocity of the steady state)");
+            var table = new TextTable("where", "class", "A/B-B/C-C/D [mm/s rms]", "value [mm/s rms]", "zone", "accepted", "reserve [%]", "result");
+            foreach (var z in outcome.Zones)
+            {
+                var c = z.Criterion.Class;
+                table.Add(z.At, c.Name, string.Create(Inv, $"{c.BoundaryAB * 1e3:G3}/{c.BoundaryBC * 1e3:G3}/{c.BoundaryCD * 1e3:G3}"),
+                    double.IsFinite(z.RmsVelocity) ? (z.RmsVelocity * 1e3).ToString("G4", Inv) : "unbounded", z.Zone.ToString(),
+                    "up to " + z.Criterion.AcceptedZone, Signed(z.Reserve, z.ReserveNote), z.Passes ? "pass" : "FAIL");
+            }
+            table.Write(o);
+            foreach (var source in outcome.Zones.Select(z => z.Criterion.Class).Distinct().Select(c => $"  {c.Name}: {c.Source}"))
+                o.WriteLine(source);
+            o.WriteLine("  reserve = (upper boundary of the accepted zone - value) / boundary; zone boundaries are common practice, not compliance.");
+            o.WriteLine();
+        }
+        foreach (var f in outcome.Floors)
+        {
+            o.WriteLine($"Floor curve {f.Criterion.Curve.Name} at {f.At}: one-third-octave r.m.s. velocity at the operating points");
+            var table = new TextTable("band [Hz]", "value [um/s rms]", "limit [um/s rms]", "reserve [%]", "result");
+            foreach (var b in f.Bands)
+                table.Add(b.NominalHz.ToString("G4", Inv), double.IsFinite(b.RmsVelocity) ? (b.RmsVelocity * 1e6).ToString("G4", Inv) : "unbounded",
+                    (b.Limit * 1e6).ToString("G4", Inv), Signed(b.Reserve, null), b.Passes ? "pass" : "FAIL");
+            table.Write(o);
+            o.WriteLine($"  worst band: {(f.Governing is { } g ? g.NominalHz.ToString("G4", Inv) + " Hz, reserve " + Signed(f.Reserve, f.ReserveNote) + " %" : f.ReserveNote)}; {(f.Passes ? "passes" : "FAILS")}.");
+            if (f.UncomparedHz.Length > 0)
+                o.WriteLine($"  not compared (the curve states no limit there): components at {string.Join(", ", f.UncomparedHz.Select(h => h.ToString("G4", Inv) + " Hz"))}.");
+            o.WriteLine($"  source: {f.Criterion.Curve.Source}; below 8 Hz constant acceleration [from memory, unverified].");
             o.WriteLine();
         }
         foreach (var (criterion, reason) in outcome.NotEvaluated)

@@ -24,7 +24,7 @@ internal static class HarmonicTable
         o.WriteLine();
 
         o.WriteLine("Peaks over the sweep");
-        var peaks = new TextTable("output", "displacement [mm]", "at [Hz]", "velocity [mm/s]", "at [Hz]", "acceleration [m/s^2]", "at [Hz]");
+        var peaks = new TextTable("output", "displacement [mm peak]", "at [Hz]", "velocity [mm/s peak]", "at [Hz]", "acceleration [m/s^2 peak]", "at [Hz]");
         var all = result.Peaks();
         foreach (var r in result.Responses)
         {
@@ -38,7 +38,7 @@ internal static class HarmonicTable
         if (result.Reactions.Length > 0)
         {
             o.WriteLine();
-            var reactions = new TextTable("support", "peak reaction [N]", "at [Hz]");
+            var reactions = new TextTable("support", "reaction [N peak]", "at [Hz]");
             foreach (var r in result.Reactions)
             {
                 var k = Enumerable.Range(0, f.Length).MaxBy(i => r.Force[i].Magnitude);
@@ -52,16 +52,17 @@ internal static class HarmonicTable
             var at = op.Response;
             o.WriteLine();
             o.WriteLine(string.Create(Inv, $"Operating point {op.SpeedHz:G6} Hz ({60 * op.SpeedHz:G6} rpm): {string.Join(", ", op.Loads)}"));
-            var table = new TextTable("output", "displacement [mm]", "phase [deg]", "velocity [mm/s]", "acceleration [m/s^2]");
+            var table = new TextTable("output", "displacement [mm peak]", "phase [deg]", "velocity [mm/s peak]", "velocity [mm/s rms]", "acceleration [m/s^2 peak]");
             foreach (var r in at.Responses)
             {
                 var x = r.At(0, op.SpeedHz, ResponseQuantity.Displacement);
                 table.Add(r.Dof, Num(1e3 * x.Magnitude), HarmonicJson.PhaseDegrees(x).ToString("F1", Inv),
                     Num(1e3 * r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude),
+                    Num(1e3 * r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude / Math.Sqrt(2)),
                     Num(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude));
             }
             table.Write(o);
-            var forces = new TextTable("element or support", "force [N]", "phase [deg]");
+            var forces = new TextTable("element or support", "force [N peak]", "phase [deg]");
             foreach (var e in at.ElementForces)
                 forces.Add($"{(e.Kind == ElementKind.Spring ? "spring" : "damper")} {e.Element}", Num(e.Force[0].Magnitude), HarmonicJson.PhaseDegrees(e.Force[0]).ToString("F1", Inv));
             foreach (var r in at.Reactions)

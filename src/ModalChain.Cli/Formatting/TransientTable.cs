@@ -23,7 +23,7 @@ internal static class TransientTable
         o.WriteLine();
 
         o.WriteLine($"Peaks (largest magnitude, with sign) and RMS over {window}");
-        var motion = new TextTable("output", "displacement [mm]", "at [s]", "RMS [mm]", "velocity [mm/s]", "at [s]", "acceleration [m/s^2]", "at [s]");
+        var motion = new TextTable("output", "displacement [mm peak]", "at [s]", "displacement [mm rms]", "velocity [mm/s peak]", "at [s]", "acceleration [m/s^2 peak]", "at [s]");
         foreach (var name in result.Responses.Where(r => r.Quantity == ResponseQuantity.Displacement).Select(r => r.Name))
         {
             var u = result.Get(name, ResponseQuantity.Displacement);
@@ -38,7 +38,7 @@ internal static class TransientTable
         if (forces.Length > 0)
         {
             o.WriteLine();
-            var table = new TextTable("element or support", "peak force [N]", "at [s]", "RMS [N]");
+            var table = new TextTable("element or support", "force [N peak]", "at [s]", "force [N rms]");
             foreach (var r in forces)
             {
                 var label = r.Quantity switch

@@ -11,7 +11,8 @@ namespace ModalChain.Io.Json;
 /// <remarks>
 /// Reserves are fractions: separation reserve = relative change of the natural frequency that reaches the band edge;
 /// limit reserve = (limit − value)/limit. A reserve with no finite value is null, with "reserve_note" saying why
-/// (JSON has no infinity).
+/// (JSON has no infinity). Machine zones and floor curves compare r.m.s. velocity ("measure": "rms"); a floor
+/// curve's reserve is its worst band's.
 /// </remarks>
 public static class CheckJson
 {
@@ -64,6 +65,61 @@ public static class CheckJson
             w.Number("reserve", l.Reserve);
             w.Note("reserve_note", l.ReserveNote);
             w.WriteBoolean("passes", l.Passes);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+        w.WriteStartArray("machine_zones");
+        foreach (var z in outcome.Zones)
+        {
+            w.WriteStartObject();
+            w.WriteString("at", z.At);
+            w.WriteString("class", z.Criterion.Class.Name);
+            w.WriteString("quantity", "velocity");
+            w.WriteString("measure", "rms");
+            w.WriteString("unit", "m/s");
+            w.WriteString("accepted_zone", z.Criterion.AcceptedZone.ToString());
+            w.Number("limit", z.Criterion.Limit);
+            w.Number("value", z.RmsVelocity);
+            w.WriteString("zone", z.Zone.ToString());
+            w.WriteStartObject("boundaries");
+            w.Number("a_b", z.Criterion.Class.BoundaryAB);
+            w.Number("b_c", z.Criterion.Class.BoundaryBC);
+            w.Number("c_d", z.Criterion.Class.BoundaryCD);
+            w.WriteEndObject();
+            w.WriteString("source", z.Criterion.Class.Source);
+            w.Number("reserve", z.Reserve);
+            w.Note("reserve_note", z.ReserveNote);
+            w.WriteBoolean("passes", z.Passes);
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+        w.WriteStartArray("floor_curves");
+        foreach (var f in outcome.Floors)
+        {
+            w.WriteStartObject();
+            w.WriteString("at", f.At);
+            w.WriteString("curve", f.Criterion.Curve.Name);
+            w.WriteString("quantity", "velocity");
+            w.WriteString("measure", "rms");
+            w.WriteString("unit", "m/s");
+            w.WriteString("source", f.Criterion.Curve.Source);
+            w.WriteStartArray("bands");
+            foreach (var b in f.Bands)
+            {
+                w.WriteStartObject();
+                w.Number("centre_hz", b.CentreHz);
+                w.Number("nominal_hz", b.NominalHz);
+                w.Number("value", b.RmsVelocity);
+                w.Number("limit", b.Limit);
+                w.Number("reserve", b.Reserve);
+                w.WriteBoolean("passes", b.Passes);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.Array("uncompared_hz", f.UncomparedHz);
+            w.Number("reserve", f.Reserve);
+            w.Note("reserve_note", f.ReserveNote);
+            w.WriteBoolean("passes", f.Passes);
             w.WriteEndObject();
         }
         w.WriteEndArray();

@@ -11,7 +11,8 @@ namespace ModalChain.Io.Json;
 /// <remarks>
 /// Field names are a public contract: frequencies_hz, responses (dof, quantity, unit, magnitude, phase_deg),
 /// reactions (support, magnitude, phase_deg), peaks, operating_points; further fields are additions. Phases are
-/// in degrees in (−180, 180], of Re(A e^{iωt}) relative to the loads' phase reference.
+/// in degrees in (−180, 180], of Re(A e^{iωt}) relative to the loads' phase reference. Every magnitude is the
+/// peak (zero-to-peak) amplitude of the sinusoid, said by "amplitude": "peak" beside its unit; r.m.s. is peak/√2.
 /// </remarks>
 public static class HarmonicJson
 {
@@ -40,6 +41,7 @@ public static class HarmonicJson
                 w.WriteString("dof", r.Dof);
                 w.WriteString("quantity", Name(q));
                 w.WriteString("unit", Unit(q));
+                w.WriteString("amplitude", "peak");
                 Series(w, values);
                 w.WriteEndObject();
             }
@@ -52,6 +54,7 @@ public static class HarmonicJson
             w.WriteString("element", e.Element);
             w.WriteString("kind", e.Kind == ElementKind.Spring ? "spring" : "damper");
             w.WriteString("unit", "N");
+            w.WriteString("amplitude", "peak");
             Series(w, e.Force);
             w.WriteEndObject();
         }
@@ -63,6 +66,7 @@ public static class HarmonicJson
             w.WriteStartObject();
             w.WriteString("support", r.Support);
             w.WriteString("unit", "N");
+            w.WriteString("amplitude", "peak");
             Series(w, r.Force);
             w.WriteEndObject();
         }
@@ -87,6 +91,7 @@ public static class HarmonicJson
             w.WriteString("dof", p.Dof);
             w.WriteString("quantity", Name(p.Quantity));
             w.WriteString("unit", Unit(p.Quantity));
+            w.WriteString("amplitude", "peak");
             w.Number("magnitude", p.Magnitude);
             w.Number("frequency_hz", p.FrequencyHz);
             w.WriteEndObject();
@@ -111,6 +116,7 @@ public static class HarmonicJson
                     w.WriteString("dof", r.Dof);
                     w.WriteString("quantity", Name(q));
                     w.WriteString("unit", Unit(q));
+                    w.WriteString("amplitude", "peak");
                     Point(w, r.At(0, op.SpeedHz, q));
                     w.WriteEndObject();
                 }
@@ -122,6 +128,7 @@ public static class HarmonicJson
                 w.WriteString("element", e.Element);
                 w.WriteString("kind", e.Kind == ElementKind.Spring ? "spring" : "damper");
                 w.WriteString("unit", "N");
+                w.WriteString("amplitude", "peak");
                 Point(w, e.Force[0]);
                 w.WriteEndObject();
             }
@@ -132,6 +139,7 @@ public static class HarmonicJson
                 w.WriteStartObject();
                 w.WriteString("support", r.Support);
                 w.WriteString("unit", "N");
+                w.WriteString("amplitude", "peak");
                 Point(w, r.Force[0]);
                 w.WriteEndObject();
             }

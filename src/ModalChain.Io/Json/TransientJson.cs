@@ -11,7 +11,9 @@ namespace ModalChain.Io.Json;
 /// Field names are a public contract: time_s, responses (dof, quantity, unit, values), element_forces (element, kind,
 /// unit, values), reactions (support, unit, values), peaks (name, quantity, unit, value, time_s, rms), energy, warnings;
 /// further fields are additions. Element forces are k(u_A − u_B) and c(u̇_A − u̇_B) with A and B as in 'between';
-/// a reaction is the force the support receives, positive along the direction of motion.
+/// a reaction is the force the support receives, positive along the direction of motion. "amplitude" says what a
+/// number is: "instantaneous" for a time history, "peak" for a peak's value (largest magnitude, with sign); a peak's
+/// "rms" is the r.m.s. over rms_window_s.
 /// </remarks>
 public static class TransientJson
 {
@@ -43,6 +45,7 @@ public static class TransientJson
             w.WriteString("dof", r.Name);
             w.WriteString("quantity", QuantityName(r.Quantity));
             w.WriteString("unit", r.Unit);
+            w.WriteString("amplitude", "instantaneous");
             w.Array("values", r.Values);
             w.WriteEndObject();
         }
@@ -55,6 +58,7 @@ public static class TransientJson
             w.WriteString("element", r.Name);
             w.WriteString("kind", r.Quantity == ResponseQuantity.SpringForce ? "spring" : "damper");
             w.WriteString("unit", "N");
+            w.WriteString("amplitude", "instantaneous");
             w.Array("values", r.Values);
             w.WriteEndObject();
         }
@@ -66,6 +70,7 @@ public static class TransientJson
             w.WriteStartObject();
             w.WriteString("support", r.Name);
             w.WriteString("unit", "N");
+            w.WriteString("amplitude", "instantaneous");
             w.Array("values", r.Values);
             w.WriteEndObject();
         }
@@ -82,6 +87,7 @@ public static class TransientJson
             w.WriteString("name", r.Name);
             w.WriteString("quantity", QuantityName(r.Quantity));
             w.WriteString("unit", r.Unit);
+            w.WriteString("amplitude", "peak");
             w.Number("value", r.Peak.Value);
             w.Number("time_s", r.Peak.Time);
             w.Number("rms", r.Rms);

@@ -19,7 +19,7 @@ public static partial class ModelReader
     {
         if (top["criteria"] is not { } node || node is YScalar { IsPlainNull: true }) return CriteriaSet.None;
         if (context.Mapping(node, "'criteria'") is not { } criteria) return CriteriaSet.None;
-        context.RejectUnknownKeys(criteria, "'criteria'", "separation", "limits");
+        context.RejectUnknownKeys(criteria, "'criteria'", "separation", "limits", "machine-zones", "floor-curves");
         context.Positions["criteria"] = criteria.Position;
 
         SeparationCriterion? separation = null;
@@ -51,7 +51,106 @@ public static partial class ModelReader
                         limits.Add(limit);
                     }
         }
-        return new CriteriaSet(separation, limits.ToImmutable());
+        return new CriteriaSet(separation, limits.ToImmutable())
+        {
+            Zones = ReadNamedList(criteria, "machine-zones", "{at, class, zone}", ReadMachineZone, context, network),
+            Floors = ReadNamedList(criteria, "floor-curves", "{at, curve}", ReadFloorCurve, context, network),
+        };
+    }
+
+    private static ImmutableArray<T> ReadNamedList<T>(
+        YMapping criteria, string key, string shape, Func<YMapping, string, ReadContext, CoreNetwork?, T?> read, ReadContext context, CoreNetwork? network)
+        where T : class
+    {
+        var result = ImmutableArray.CreateBuilder<T>();
+        if (criteria[key] is not { } node || node is YScalar { IsPlainNull: true }) return result.ToImmutable();
+        if (node is not YSequence list)
+        {
+            context.Error(node, $"'{key}' of 'criteria' must be a list of {shape} entries");
+            return result.ToImmutable();
+        }
+        for (var i = 0; i < list.Items.Length; i++)
+        {
+            var what = $"entry {i + 1} of '{key}'";
+            if (context.Mapping(list.Items[i], what) is not { } entry) continue;
+            if (read(entry, what, context, network) is { } item)
+            {
+                context.Positions[$"criteria.{key}[{i}]"] = entry.Position;
+                result.Add(item);
+            }
+        }
+        return result.ToImmutable();
+    }
+
+    private static MachineZoneCriterion? ReadMachineZone(YMapping entry, string what, ReadContext context, CoreNetwork? network)
+    {
+        context.RejectUnknownKeys(entry, what, "at", "class", "zone");
+        var at = ReadMasses(entry, what, "the masses whose r.m.s. velocity is classified", context, network);
+        MachineZoneClass? machineClass = null;
+        var names = PublishedLevels.MachineClasses.Select(c => c.Name).ToArray();
+        if (entry["class"] is not { } classNode)
+            context.Error(entry, $"{what} needs 'class', the machine class whose zone boundaries apply: {string.Join(", ", names)}");
+        else if (context.Text(classNode, $"'class' of {what}") is { } name)
+        {
+            machineClass = PublishedLevels.MachineClass(name);
+            if (machineClass is null)
+                context.Error(classNode, $"'class' of {what} is '{name}', which is not a known machine class{ReadContext.Suggest(name, names)}; use one of {string.Join(", ", names)}");
+        }
+        char? zone = null;
+        if (entry["zone"] is not { } zoneNode)
+            context.Error(entry, $"{what} needs 'zone', the worst zone accepted: A, B or C");
+        else if (context.Text(zoneNode, $"'zone' of {what}") is { } z)
+        {
+            if (z.Length == 1 && "ABC".Contains(char.ToUpperInvariant(z[0]), StringComparison.Ordinal)) zone = char.ToUpperInvariant(z[0]);
+            else context.Error(zoneNode, $"'zone' of {what} is '{z}'; give the worst zone accepted: A, B or C (zone D has no upper boundary)");
+        }
+        return at is { } masses && machineClass is not null && zone is { } accepted ? new MachineZoneCriterion(masses, machineClass, accepted) : null;
+    }
+
+    private static FloorCriterion? ReadFloorCurve(YMapping entry, string what, ReadContext context, CoreNetwork? network)
+    {
+        context.RejectUnknownKeys(entry, what, "at", "curve");
+        var at = ReadMasses(entry, what, "the masses whose floor vibration is checked", context, network);
+        FloorCurve? curve = null;
+        var names = PublishedLevels.FloorCurves.Select(c => c.Name).ToArray();
+        if (entry["curve"] is not { } curveNode)
+            context.Error(entry, $"{what} needs 'curve', the vibration criterion curve: {string.Join(", ", names)}");
+        else if (context.Text(curveNode, $"'curve' of {what}") is { } name)
+        {
+            curve = PublishedLevels.FloorCurve(name);
+            if (curve is null)
+                context.Error(curveNode, $"'curve' of {what} is '{name}', which is not a known curve{ReadContext.Suggest(name, names)}; use one of {string.Join(", ", names)}");
+        }
+        return at is { } masses && curve is not null ? new FloorCriterion(masses, curve) : null;
+    }
+
+    /// <summary>The 'at' of an entry: one mass name or a list of them; null when missing or any is wrong.</summary>
+    private static ImmutableArray<string>? ReadMasses(YMapping entry, string what, string purpose, ReadContext context, CoreNetwork? network)
+    {
+        if (entry["at"] is not { } atNode)
+        {
+            context.Error(entry, $"{what} needs 'at', {purpose}");
+            return null;
+        }
+        if (atNode is YSequence { Items.Length: 0 })
+        {
+            context.Error(atNode, $"'at' of {what} is empty; name at least one mass");
+            return null;
+        }
+        IEnumerable<YNode> items = atNode is YSequence seq ? seq.Items : [atNode];
+        var names = new List<string>();
+        var ok = true;
+        foreach (var item in items)
+        {
+            if (context.Text(item, $"'at' of {what}") is not { } name) { ok = false; continue; }
+            if (network is not null && !network.IsMass(name))
+            {
+                context.Error(item, $"{what} is at '{name}', which is not a mass of the model{ReadContext.Suggest(name, network.Masses.Select(m => m.Name))}");
+                ok = false;
+            }
+            else names.Add(name);
+        }
+        return ok ? [.. names] : null;
     }
 
     private static double? ReadMargin(YNode node, string what, ReadContext context)

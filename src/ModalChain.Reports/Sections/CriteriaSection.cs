@@ -82,6 +82,34 @@ public sealed class CriteriaSection : IReportSection
                 [
                     l.Limit.Describe(), Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Reserve(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL",
                 ]), new HashSet<int> { 1, 2, 3 }, "criteria-table");
+        if (_outcome.Zones.Length > 0)
+        {
+            html.Table("Machine vibration zones at the operating points (r.m.s. velocity)",
+                ["Where", "Class", "Zone boundaries A/B, B/C, C/D (mm/s r.m.s.)", "Value (mm/s r.m.s.)", "Zone", "Accepted", "Reserve (%)", "Result"],
+                _outcome.Zones.Select(z => (IReadOnlyList<string>)
+                [
+                    z.At, z.Criterion.Class.Name,
+                    $"{DisplayUnits.Number(z.Criterion.Class.BoundaryAB * 1e3)}, {DisplayUnits.Number(z.Criterion.Class.BoundaryBC * 1e3)}, {DisplayUnits.Number(z.Criterion.Class.BoundaryCD * 1e3)}",
+                    double.IsFinite(z.RmsVelocity) ? DisplayUnits.Number(z.RmsVelocity * 1e3) : "unbounded", z.Zone.ToString(),
+                    "up to " + z.Criterion.AcceptedZone, Reserve(z.Reserve, z.ReserveNote), z.Passes ? "pass" : "FAIL",
+                ]), new HashSet<int> { 3, 6 }, "criteria-table");
+            html.Paragraph("Zone boundaries: " + string.Join("; ", _outcome.Zones.Select(z => z.Criterion.Class).Distinct().Select(c => $"{c.Name}, {c.Source}")) +
+                ". They are levels used in practice, not a statement of compliance.", "note");
+        }
+        foreach (var f in _outcome.Floors)
+        {
+            html.Table($"Floor curve {f.Criterion.Curve.Name} at {f.At}: one-third-octave r.m.s. velocity",
+                ["Band (Hz)", "Value (µm/s r.m.s.)", "Limit (µm/s r.m.s.)", "Reserve (%)", "Result"],
+                f.Bands.Select(b => (IReadOnlyList<string>)
+                [
+                    DisplayUnits.Number(b.NominalHz), double.IsFinite(b.RmsVelocity) ? DisplayUnits.Number(b.RmsVelocity * 1e6) : "unbounded",
+                    DisplayUnits.Number(b.Limit * 1e6), Reserve(b.Reserve, null), b.Passes ? "pass" : "FAIL",
+                ]), new HashSet<int> { 0, 1, 2, 3 }, "criteria-table");
+            var uncompared = f.UncomparedHz.Length > 0
+                ? $" Not compared (the curve states no limit there): {string.Join(", ", f.UncomparedHz.Select(h => DisplayUnits.Number(h) + " Hz"))}."
+                : "";
+            html.Paragraph($"Worst band reserve {Reserve(f.Reserve, f.ReserveNote)} %.{uncompared} Curve: {f.Criterion.Curve.Source}; below 8 Hz constant acceleration [from memory, unverified].", "note");
+        }
         if (_outcome.NotEvaluated.Count > 0)
         {
             html.Heading("Not evaluated");

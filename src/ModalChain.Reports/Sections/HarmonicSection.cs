@@ -1,6 +1,7 @@
 using System.Collections.Immutable;
 using System.Globalization;
 using System.Text.Json;
+using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Io.Json;
 using ModalChain.Reports.Drawing;
@@ -41,7 +42,25 @@ public sealed class HarmonicSection : IReportSection
             .Take(MaxCharts)
             .OrderBy(p => p.i)
             .Select(p => p.r)];
-        _figures = [.. Charted.Select(r => ResponseChart(r, log))];
+        ChartedQuantities = QuantitiesFor(context.Document.Criteria);
+        _figures = [.. Charted.SelectMany(r => ChartedQuantities.Select(q => ResponseChart(r, q, log)))];
+    }
+
+    /// <summary>The quantities charted per output: displacement always, velocity and acceleration when the criteria use them.</summary>
+    public ImmutableArray<ResponseQuantity> ChartedQuantities { get; }
+
+    /// <summary>Displacement, plus velocity when a criterion limits velocity (limits, machine zones, floor curves), plus acceleration when one limits acceleration.</summary>
+    public static ImmutableArray<ResponseQuantity> QuantitiesFor(CriteriaSet criteria)
+    {
+        ArgumentNullException.ThrowIfNull(criteria);
+        var limits = criteria.Limits.IsDefault ? [] : criteria.Limits;
+        var velocity = limits.Any(l => l.Quantity == ResponseQuantity.Velocity) || !criteria.Zones.IsDefaultOrEmpty || !criteria.Floors.IsDefaultOrEmpty;
+        var acceleration = limits.Any(l => l.Quantity == ResponseQuantity.Acceleration);
+        var result = ImmutableArray.CreateBuilder<ResponseQuantity>();
+        result.Add(ResponseQuantity.Displacement);
+        if (velocity) result.Add(ResponseQuantity.Velocity);
+        if (acceleration) result.Add(ResponseQuantity.Acceleration);
+        return result.ToImmutable();
     }
 
     /// <summary>The factory registered in <see cref="ReportSections.Default"/>: null when the model asks for no harmonic response.</summary>
@@ -64,6 +83,18 @@ public sealed class HarmonicSection : IReportSection
     public static string FigureName(string dof) =>
         "harmonic-" + new string([.. dof.Select(c => char.IsAsciiLetterOrDigit(c) || c is '-' or '_' ? c : '-')]);
 
+    /// <summary>File stem of the chart of <paramref name="quantity"/> of mass <paramref name="dof"/>: the displacement chart keeps <see cref="FigureName(string)"/>.</summary>
+    public static string FigureName(string dof, ResponseQuantity quantity) =>
+        quantity == ResponseQuantity.Displacement ? FigureName(dof) : FigureName(dof) + "-" + quantity.ToString().ToLowerInvariant();
+
+    /// <summary>Display symbol and SI amount per display unit of <paramref name="quantity"/>.</summary>
+    private (string Symbol, double Scale) UnitOf(ResponseQuantity quantity) => quantity switch
+    {
+        ResponseQuantity.Displacement => Displacement,
+        ResponseQuantity.Velocity => Velocity,
+        _ => ("m/s²", 1.0),
+    };
+
     /// <summary>Display unit of displacement amplitude: mm (SI) or in (imperial), and metres per unit.</summary>
     private (string Symbol, double Metres) Displacement => _context.Units.System == UnitSystem.Imperial ? ("in", 0.0254) : ("mm", 1e-3);
 
@@ -85,7 +116,7 @@ public sealed class HarmonicSection : IReportSection
         var (vSym, vScale) = Velocity;
         var peaks = _result.Peaks();
         html.Table("Largest response over the sweep",
-            ["Mass", $"Displacement ({dSym})", "at (Hz)", $"Velocity ({vSym})", "at (Hz)", "Acceleration (m/s²)", "at (Hz)"],
+            ["Mass", $"Displacement ({dSym} peak)", "at (Hz)", $"Velocity ({vSym} peak)", "at (Hz)", "Acceleration (m/s² peak)", "at (Hz)"],
             _result.Responses.Select(r =>
             {
                 ResponsePeak P(ResponseQuantity q) => peaks.First(p => p.Dof == r.Dof && p.Quantity == q);
@@ -100,21 +131,23 @@ public sealed class HarmonicSection : IReportSection
         {
             var at = op.Response;
             html.Table(string.Create(Inv, $"At the running speed {DisplayUnits.Number(op.SpeedHz * 60)} rpm ({DisplayUnits.Number(op.SpeedHz)} Hz): {string.Join(", ", op.Loads)}"),
-                ["Mass", $"Displacement ({dSym})", $"Velocity ({vSym})", "Acceleration (m/s²)", "Phase of displacement (°)"],
+                ["Mass", $"Displacement ({dSym} peak)", $"Velocity ({vSym} peak)", $"Velocity ({vSym} r.m.s.)", "Acceleration (m/s² peak)", "Phase of displacement (°)"],
                 at.Responses.Select(r => (IReadOnlyList<string>)
                 [
                     r.Dof,
                     DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Displacement).Magnitude / dScale),
                     DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude / vScale),
+                    DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude / vScale / Math.Sqrt(2)),
                     DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude),
                     DisplayUnits.Number(HarmonicJson.PhaseDegrees(r.Displacement[0])),
-                ]), new HashSet<int> { 1, 2, 3, 4 });
+                ]), new HashSet<int> { 1, 2, 3, 4, 5 });
             if (at.Reactions.Length > 0)
-                html.Table("Force into each support at that speed", ["Support", "Force amplitude (N)", "Phase (°)"],
+                html.Table("Force into each support at that speed", ["Support", "Force amplitude (N peak)", "Phase (°)"],
                     at.Reactions.Select(r => (IReadOnlyList<string>)[r.Support, DisplayUnits.Number(r.Force[0].Magnitude), DisplayUnits.Number(HarmonicJson.PhaseDegrees(r.Force[0]))]),
                     new HashSet<int> { 1, 2 });
         }
-        html.Paragraph("In each chart the upper panel is the displacement amplitude on a logarithmic axis and the lower panel its phase relative to the loads; dashed grey lines mark the natural frequencies and dash-dot orange lines the running speeds.");
+        html.Paragraph("Amplitudes are peak (zero-to-peak) values of the steady sinusoid; its r.m.s. value is peak/√2. In each chart the upper panel is the amplitude on a logarithmic axis and the lower panel its phase relative to the loads; dashed grey lines mark the natural frequencies and dash-dot orange lines the running speeds." +
+            (ChartedQuantities.Length > 1 ? " Velocity" + (ChartedQuantities.Contains(ResponseQuantity.Acceleration) ? " and acceleration" : "") + " charts are drawn because the model's criteria use them." : ""));
         if (Charted.Length < _result.Responses.Length)
             html.Paragraph(string.Create(Inv, $"Charts are drawn for the {Charted.Length} of {_result.Responses.Length} outputs with the largest peak displacement; results.json holds every output."), "note");
         foreach (var figure in _figures) html.Figure(figure);
@@ -130,16 +163,18 @@ public sealed class HarmonicSection : IReportSection
         parsed.RootElement.WriteTo(json);
     }
 
-    private ChartFigure ResponseChart(DofResponse response, bool logFrequency)
+    private ChartFigure ResponseChart(DofResponse response, ResponseQuantity quantity, bool logFrequency)
     {
-        var (dSym, dScale) = Displacement;
+        var (dSym, dScale) = UnitOf(quantity);
+        var word = quantity.ToString();
         var f = _result.FrequenciesHz;
-        var model = Charts.Create($"Harmonic response of {response.Dof}", $"{_context.Document.Network.Title}: {string.Join(", ", _result.Loads)}");
+        var values = Enumerable.Range(0, f.Length).Select(k => response.At(k, f[k], quantity)).ToArray();
+        var model = Charts.Create($"Harmonic response of {response.Dof}{(quantity == ResponseQuantity.Displacement ? "" : ": " + word.ToLowerInvariant())}", $"{_context.Document.Network.Title}: {string.Join(", ", _result.Loads)}");
         Axis frequency = logFrequency ? Charts.Logarithmic(AxisPosition.Bottom, "Frequency (Hz)") : Charts.Linear(AxisPosition.Bottom, "Frequency (Hz)");
         frequency.Minimum = f.Min();
         frequency.Maximum = f.Max();
         model.Axes.Add(frequency);
-        var magnitude = Charts.Logarithmic(AxisPosition.Left, $"Displacement amplitude ({dSym})");
+        var magnitude = Charts.Logarithmic(AxisPosition.Left, $"{word} amplitude ({dSym} peak)");
         magnitude.Key = "magnitude";
         magnitude.StartPosition = 0.36;
         magnitude.EndPosition = 1;
@@ -152,7 +187,7 @@ public sealed class HarmonicSection : IReportSection
         phase.MinorStep = 45;
         model.Axes.Add(phase);
 
-        var amplitude = new LineSeries { Title = "displacement amplitude", YAxisKey = "magnitude" };
+        var amplitude = new LineSeries { Title = $"{word.ToLowerInvariant()} amplitude", YAxisKey = "magnitude" };
         Charts.Style(amplitude, 0);
         var angle = new LineSeries { Title = "phase", YAxisKey = "phase" };
         Charts.Style(angle, 0);
@@ -161,7 +196,7 @@ public sealed class HarmonicSection : IReportSection
         var smallest = double.MaxValue;
         foreach (var k in order)
         {
-            var x = response.Displacement[k];
+            var x = values[k];
             var m = x.Magnitude / dScale;
             if (m > 0) smallest = Math.Min(smallest, m);
             amplitude.Points.Add(new DataPoint(f[k], m > 0 ? m : double.NaN));
@@ -169,14 +204,15 @@ public sealed class HarmonicSection : IReportSection
         }
         model.Series.Add(amplitude);
         model.Series.Add(angle);
+        var curveTop = quantity == ResponseQuantity.Velocity ? AddFloorCurves(model, response.Dof, f.Min(), f.Max(), dScale) : 0;
 
         foreach (var mode in _context.Damped.Modes.Modes.Where(m => !m.IsRigidBody && m.NaturalFrequencyHz >= f.Min() && m.NaturalFrequencyHz <= f.Max()).Take(12))
             model.Annotations.Add(Marker(mode.NaturalFrequencyHz, string.Create(Inv, $"f{mode.Number} {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz"), Palette.Grey, LineStyle.Dash));
         foreach (var op in _result.OperatingPoints)
             model.Annotations.Add(Marker(op.SpeedHz, string.Create(Inv, $"{DisplayUnits.Number(op.SpeedHz * 60)} rpm"), Palette.Orange, LineStyle.DashDot));
 
-        var peak = order.MaxBy(k => response.Displacement[k].Magnitude);
-        var top = response.Displacement[peak].Magnitude / dScale;
+        var peak = order.MaxBy(k => values[k].Magnitude);
+        var top = Math.Max(values[peak].Magnitude / dScale, curveTop);
         if (top > 0)
         {
             // Headroom above the peak for its label; at most six decades shown below it.
@@ -186,12 +222,12 @@ public sealed class HarmonicSection : IReportSection
         model.Annotations.Add(new PointAnnotation
         {
             X = f[peak],
-            Y = response.Displacement[peak].Magnitude / dScale,
+            Y = values[peak].Magnitude / dScale,
             YAxisKey = "magnitude",
             Shape = MarkerType.Diamond,
             Size = 5,
             Fill = OxyColor.Parse(Palette.Vermillion),
-            Text = string.Create(Inv, $"peak {DisplayUnits.Number(response.Displacement[peak].Magnitude / dScale)} {dSym} at {DisplayUnits.Number(f[peak])} Hz"),
+            Text = string.Create(Inv, $"peak {DisplayUnits.Number(values[peak].Magnitude / dScale)} {dSym} at {DisplayUnits.Number(f[peak])} Hz"),
             TextColor = OxyColor.Parse(Palette.Black),
             FontSize = 10,
             TextHorizontalAlignment = HorizontalAlignment.Right,
@@ -199,8 +235,39 @@ public sealed class HarmonicSection : IReportSection
             TextMargin = 6,
         });
         var caption = string.Create(Inv,
-            $"Displacement amplitude (log scale) and phase of {response.Dof} over the sweep; natural frequencies dashed grey, running speeds dash-dot orange, the peak marked with a diamond.");
-        return new ChartFigure(FigureName(response.Dof), caption, model, height: 440);
+            $"{word} amplitude (peak, log scale) and phase of {response.Dof} over the sweep; natural frequencies dashed grey, running speeds dash-dot orange, the largest value marked with a diamond.");
+        if (curveTop > 0)
+            caption += $" Dashed steps: floor curve {string.Join(", ", _context.Document.Criteria.Floors.Where(c => c.At.Contains(response.Dof)).Select(c => c.Curve.Name))} per one-third-octave band, drawn as the peak of one sinusoid whose r.m.s. value is the band limit (√2 × limit); the check itself is made at the running speeds, band by band.";
+        return new ChartFigure(FigureName(response.Dof, quantity), caption, model, height: 440);
+    }
+
+    /// <summary>
+    /// Draws each floor criterion curve at <paramref name="dof"/> as the peak of one sinusoid whose r.m.s. value equals
+    /// the band limit (√2 × limit), band by band; returns the largest value drawn (display units), 0 when none.
+    /// </summary>
+    private double AddFloorCurves(PlotModel model, string dof, double fMin, double fMax, double scale)
+    {
+        var largest = 0.0;
+        var index = 1;
+        foreach (var floor in _context.Document.Criteria.Floors.Where(c => c.At.Contains(dof)))
+        {
+            var series = new LineSeries { Title = $"{floor.Curve.Name}: band limit as one sinusoid's peak (√2 × r.m.s.)", YAxisKey = "magnitude" };
+            Charts.Style(series, index++);
+            for (var band = ThirdOctaveBands.BandOf(fMin); band <= ThirdOctaveBands.BandOf(fMax); band++)
+            {
+                if (floor.Curve.LimitInBand(band) is not { } limit)
+                {
+                    series.Points.Add(DataPoint.Undefined);
+                    continue;
+                }
+                var peak = limit * Math.Sqrt(2) / scale;
+                largest = Math.Max(largest, peak);
+                series.Points.Add(new DataPoint(Math.Max(fMin, ThirdOctaveBands.LowerEdgeHz(band)), peak));
+                series.Points.Add(new DataPoint(Math.Min(fMax, ThirdOctaveBands.UpperEdgeHz(band)), peak));
+            }
+            model.Series.Add(series);
+        }
+        return largest;
     }
 
     private static LineAnnotation Marker(double x, string text, string colour, LineStyle style) => new()

@@ -36,7 +36,16 @@ public sealed class TransientSection : IReportSection
         _context = context;
         _result = result;
         _loads = loads;
-        _figures = [.. result.Responses.Where(r => r.Quantity == ResponseQuantity.Displacement).Take(MaxCharts).Select(HistoryChart)];
+        // Velocity and acceleration histories are drawn beside displacement when the model's criteria use them.
+        var quantities = HarmonicSection.QuantitiesFor(context.Document.Criteria).Select(q => q switch
+        {
+            Core.Analyses.Harmonic.ResponseQuantity.Velocity => ResponseQuantity.Velocity,
+            Core.Analyses.Harmonic.ResponseQuantity.Acceleration => ResponseQuantity.Acceleration,
+            _ => ResponseQuantity.Displacement,
+        }).ToArray();
+        var names = result.Responses.Where(r => r.Quantity == ResponseQuantity.Displacement).Take(MaxCharts).Select(r => r.Name).ToArray();
+        _figures = [.. names.SelectMany(n => quantities.Select(q => result.Responses.FirstOrDefault(r => r.Name == n && r.Quantity == q)))
+            .OfType<ResponseHistory>().Select(HistoryChart)];
     }
 
     /// <summary>The factory registered in <see cref="ReportSections.Default"/>: null when the model asks for no transient run.</summary>
@@ -65,6 +74,10 @@ public sealed class TransientSection : IReportSection
     /// <summary>File stem of the history chart of mass <paramref name="name"/>.</summary>
     public static string FigureName(string name) =>
         "transient-" + new string([.. name.Select(c => char.IsAsciiLetterOrDigit(c) || c is '-' or '_' ? c : '-')]);
+
+    /// <summary>File stem of the history chart of <paramref name="quantity"/> of mass <paramref name="name"/>; displacement keeps <see cref="FigureName(string)"/>.</summary>
+    public static string FigureName(string name, ResponseQuantity quantity) =>
+        quantity == ResponseQuantity.Displacement ? FigureName(name) : FigureName(name) + "-" + quantity.ToString().ToLowerInvariant();
 
     /// <inheritdoc />
     public void WriteHtml(HtmlWriter html)
@@ -121,13 +134,19 @@ public sealed class TransientSection : IReportSection
     private ChartFigure HistoryChart(ResponseHistory history)
     {
         var imperial = _context.Units.System == UnitSystem.Imperial;
-        var (symbol, scale) = imperial ? ("in", 0.0254) : ("mm", 1e-3);
-        var model = Charts.Create($"Displacement of {history.Name}", $"{_context.Document.Network.Title}: transient");
+        var (symbol, scale) = history.Quantity switch
+        {
+            ResponseQuantity.Displacement => imperial ? ("in", 0.0254) : ("mm", 1e-3),
+            ResponseQuantity.Velocity => imperial ? ("in/s", 0.0254) : ("mm/s", 1e-3),
+            _ => ("m/s²", 1.0),
+        };
+        var word = history.Quantity.ToString();
+        var model = Charts.Create($"{word} of {history.Name}", $"{_context.Document.Network.Title}: transient");
         model.Axes.Add(Charts.Linear(AxisPosition.Bottom, "Time (s)", _result.Times[0], _result.Times[^1]));
         var largest = history.Values.Max(Math.Abs) / scale;
         model.Axes.Add(largest > 0
-            ? Charts.Linear(AxisPosition.Left, $"Displacement ({symbol})", -1.35 * largest, 1.35 * largest) // room for the peak's label
-            : Charts.Linear(AxisPosition.Left, $"Displacement ({symbol})"));
+            ? Charts.Linear(AxisPosition.Left, $"{word} ({symbol}, instantaneous)", -1.35 * largest, 1.35 * largest) // room for the peak's label
+            : Charts.Linear(AxisPosition.Left, $"{word} ({symbol}, instantaneous)"));
         var line = new LineSeries { Title = history.Name };
         Charts.Style(line, 0);
         line.StrokeThickness = 1.4;
@@ -146,7 +165,7 @@ public sealed class TransientSection : IReportSection
             FontSize = 10,
             TextVerticalAlignment = history.Values[peakIndex] >= 0 ? VerticalAlignment.Bottom : VerticalAlignment.Top,
         });
-        var caption = string.Create(Inv, $"Displacement of {history.Name} against time; the largest magnitude is marked with a diamond.");
-        return new ChartFigure(FigureName(history.Name), caption, model, height: 320);
+        var caption = string.Create(Inv, $"{word} of {history.Name} against time; the largest magnitude (the peak) is marked with a diamond.");
+        return new ChartFigure(FigureName(history.Name, history.Quantity), caption, model, height: 320);
     }
 }

@@ -111,6 +111,7 @@ public static class ReportWriter
         try
         {
             if (File.Exists(Path.Combine(target, MarkerFile)) || !Directory.EnumerateFileSystemEntries(target).Any()) return;
+            if (IsEarlierReport(target)) return;
         }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         {
@@ -119,6 +120,16 @@ public static class ReportWriter
         throw new ReportWriteException(
             $"{directory} exists and is not a ModalChain report folder (it has files but no {MarkerFile} marker); a report replaces its " +
             "whole folder, so nothing was written. Choose a new or empty folder.");
+    }
+
+    /// <summary>True for a folder written by a version before the marker: report.html beside only report files, no subfolders.</summary>
+    /// <remarks>Such folders would otherwise be refused after an upgrade although they hold nothing of the user's.</remarks>
+    private static bool IsEarlierReport(string target)
+    {
+        if (!File.Exists(Path.Combine(target, "report.html")) || Directory.EnumerateDirectories(target).Any()) return false;
+        return Directory.EnumerateFiles(target).Select(Path.GetFileName).All(name =>
+            name is "report.html" or "results.json" ||
+            name!.EndsWith(".svg", StringComparison.Ordinal) || name.EndsWith(".pdf", StringComparison.Ordinal));
     }
 
     private static ImmutableArray<string> Stage(Report report, string staging, ReportFormat format, CommitControl control)

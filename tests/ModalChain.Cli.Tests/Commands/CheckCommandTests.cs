@@ -97,4 +97,38 @@ public class CheckCommandTests
         Assert.Contains("NOT EVALUATED", run.Output);
         Assert.Contains("no load with a running speed", run.Output);
     }
+
+    private static string LabFloor => Path.Combine(CommandRun.Models(), "lab-floor-analyser.yaml");
+
+    [Fact]
+    public void LabFloorExample_ShowsZonesAndBands_AsRmsVelocity_InTableAndJson()
+    {
+        var table = CommandRun.Of("check", LabFloor);
+        Assert.Equal(0, table.ExitCode);
+        Assert.Contains("value [mm/s rms]", table.Output);
+        Assert.Contains("value [um/s rms]", table.Output);
+        Assert.Contains("Floor curve VC-C at analyser-bench", table.Output);
+
+        var json = CommandRun.Of("check", LabFloor, "--format", "json").Json();
+        var zone = Assert.Single(json.GetProperty("machine_zones").EnumerateArray().ToList());
+        Assert.Equal("rms", zone.GetProperty("measure").GetString());
+        Assert.Equal("pump-skid", zone.GetProperty("at").GetString());
+        var floor = Assert.Single(json.GetProperty("floor_curves").EnumerateArray().ToList());
+        Assert.Equal("rms", floor.GetProperty("measure").GetString());
+        var bands = floor.GetProperty("bands").EnumerateArray().ToList();
+        // The fan (1450 rpm = 24.17 Hz) lies in the 25 Hz band and the pump (2960 rpm = 49.33 Hz) in the 50 Hz band
+        // (base-10 edges f_c·10^(±1/20), IEC 61260 [common practice]).
+        Assert.Equal([25.0, 50.0], bands.Select(b => b.GetProperty("nominal_hz").GetDouble()).ToArray());
+        // The curve's reserve is its worst band's.
+        NumericAssert.Close(bands.Min(b => b.GetProperty("reserve").GetDouble()), floor.GetProperty("reserve").GetDouble(), Tolerance.Rel(1e-15), "worst band");
+    }
+
+    [Fact]
+    public void StricterFloorCurve_Fails_AndExitsOne()
+    {
+        var text = File.ReadAllText(LabFloor).Replace("curve: VC-C", "curve: VC-E", StringComparison.Ordinal);
+        var run = CommandRun.Of("check", CommandRun.ModelFile(text));
+        Assert.Equal(1, run.ExitCode);
+        Assert.Contains("FAIL", run.Output);
+    }
 }

@@ -42,4 +42,35 @@ public sealed class CriteriaSectionTests
     [Fact]
     public void ModelWithoutCriteria_HasNoCriteriaSection() =>
         Assert.DoesNotContain(ReportBuilder.Build(Repository.UniformChain(2, 1, 100), Options).Sections, s => s.Key == "criteria");
+
+    [Fact]
+    public void FloorCurveAndMachineZone_AreListedWithRmsVelocityAndReserve()
+    {
+        // m = 100 kg at f_n = 10 Hz with 5 % damping, 10 N at 20 Hz: |V| = ωF/|k − mω² + icω| (REFERENCES.md §4);
+        // one component, in the 20 Hz band (17.8–22.4 Hz).
+        const string model = """
+            title: named velocity criteria
+            masses: {m: 100 kg}
+            springs: {k: {between: [ground, m], stiffness: 394784.176 N/m}}
+            damping: {modal: 5 %}
+            loads:
+              shaker: {kind: force, at: m, amplitude: 10 N, speed: 20 Hz}
+            criteria:
+              machine-zones:
+                - {at: m, class: medium-rigid, zone: A}
+              floor-curves:
+                - {at: m, curve: VC-A}
+            """;
+        var html = ReportBuilder.Build(Repository.Parse(model), Options).Html;
+        Assert.Contains("Floor curve VC-A at m: one-third-octave r.m.s. velocity", html, StringComparison.Ordinal);
+        Assert.Contains("Value (&#181;m/s r.m.s.)", html, StringComparison.Ordinal);
+        Assert.Contains("Value (mm/s r.m.s.)", html, StringComparison.Ordinal);
+        double k = 394784.176, m = 100, w = 2 * Math.PI * 20, c = 2 * 0.05 * Math.Sqrt(k * m);
+        var vRms = w * 10 / Math.Sqrt(Math.Pow(k - m * w * w, 2) + Math.Pow(c * w, 2)) / Math.Sqrt(2);
+        var reserve = (50e-6 - vRms) / 50e-6;
+        Assert.True(reserve < 0, "the hand calculation gives a failing band");
+        var row = Regex.Match(html, "<tr><td class=\"num\">20(?:\\.0*)?</td><td class=\"num\">([0-9.]+)</td>").Groups[1].Value;
+        ModalChain.TestSupport.NumericAssert.Close(vRms * 1e6, double.Parse(row, System.Globalization.CultureInfo.InvariantCulture), ModalChain.TestSupport.Tolerance.Rel(1e-3), "band level (µm/s), printed digits");
+        Assert.Contains("verdict fail", html, StringComparison.Ordinal);
+    }
 }

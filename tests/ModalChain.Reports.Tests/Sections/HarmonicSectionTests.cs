@@ -43,7 +43,7 @@ public sealed class HarmonicSectionTests
         var chart = report.Figures.Single(f => f.Name == "harmonic-m");
         var texts = SvgAssert.Texts(SvgAssert.WellFormedWithViewBox(chart.Svg(true)));
         Assert.Contains("Frequency (Hz)", texts);
-        Assert.Contains("Displacement amplitude (mm)", texts);
+        Assert.Contains("Displacement amplitude (mm peak)", texts);
         Assert.Contains("Phase (°)", texts);
         // Natural frequency and running speed are marked (SkiaSharp draws rotated labels as outlines, so read the chart model).
         var markers = ((ModalChain.Reports.Figures.ChartFigure)chart).Model.Annotations.OfType<OxyPlot.Annotations.LineAnnotation>().ToArray();
@@ -85,4 +85,32 @@ public sealed class HarmonicSectionTests
 
     [Fact]
     public void FigureName_IsAPlainFileStem() => Assert.Equal("harmonic-deck-2", HarmonicSection.FigureName("deck.2"));
+
+    [Fact]
+    public void WithAFloorCriterion_AVelocityChartIsDrawn_WithTheClosedFormVelocityPeak()
+    {
+        // Velocity resonance of a viscously damped SDOF: |V| = ωF/|k − mω² + icω| is largest at ω = ω_n, where it is F/c
+        // (REFERENCES.md §4 closed form; c = 2ζ√(km) = 628.32 N·s/m, so 1591.5 mm/s at 10 Hz).
+        var withCriterion = Sdof + "\ncriteria:\n  floor-curves:\n    - {at: m, curve: VC-A}\n";
+        var report = ReportBuilder.Build(Repository.Parse(withCriterion), Options);
+        Assert.Contains(report.Figures, f => f.Name == "harmonic-m");
+        var chart = report.Figures.Single(f => f.Name == "harmonic-m-velocity");
+        var texts = SvgAssert.Texts(SvgAssert.WellFormedWithViewBox(chart.Svg(true)));
+        Assert.Contains("Velocity amplitude (mm/s peak)", texts);
+        var match = Regex.Match(texts.Single(t => t.StartsWith("peak ", StringComparison.Ordinal)), @"^peak ([0-9.]+) mm/s at ([0-9.]+) Hz$");
+        Assert.True(match.Success);
+        var c = 2 * 0.05 * Math.Sqrt(394784.176 * 100);
+        NumericAssert.Close(1000 / c * 1e3, double.Parse(match.Groups[1].Value, CultureInfo.InvariantCulture), Tolerance.Rel(2e-3), "peak velocity (mm/s), F/c");
+        NumericAssert.Close(10, double.Parse(match.Groups[2].Value, CultureInfo.InvariantCulture), Tolerance.Rel(5e-3), "at f_n (Hz)");
+        // The curve is drawn as √2 × 50 µm/s = 0.0707 mm/s in every band from 8 to 40 Hz (REFERENCES.md §8).
+        var series = ((ModalChain.Reports.Figures.ChartFigure)chart).Model.Series.OfType<OxyPlot.Series.LineSeries>().Single(l => l.Title.StartsWith("VC-A", StringComparison.Ordinal));
+        Assert.Contains(series.Points, p => Math.Abs(p.X - 20) < 3 && Math.Abs(p.Y - 50e-3 * Math.Sqrt(2)) < 1e-12);
+    }
+
+    [Fact]
+    public void WithoutVelocityCriteria_OnlyDisplacementIsCharted()
+    {
+        var report = ReportBuilder.Build(Repository.Parse(Sdof), Options);
+        Assert.DoesNotContain(report.Figures, f => f.Name.EndsWith("-velocity", StringComparison.Ordinal));
+    }
 }

@@ -33,7 +33,7 @@ public sealed class TransientSectionTests
         var chart = report.Figures.Single(f => f.Name == "transient-m");
         var texts = SvgAssert.Texts(SvgAssert.WellFormedWithViewBox(chart.Svg(true)));
         Assert.Contains("Time (s)", texts);
-        Assert.Contains("Displacement (mm)", texts);
+        Assert.Contains("Displacement (mm, instantaneous)", texts);
         var label = Regex.Match(texts.Single(t => t.StartsWith("peak ", StringComparison.Ordinal)), @"^peak ([0-9.]+) mm at ([0-9.]+) s$");
         Assert.True(label.Success);
         // Newmark average acceleration at Δt/T = 0.005: period error ~ 2e-4 (REFERENCES.md §5) and sampling of the crest: 0.1 %.
@@ -57,4 +57,17 @@ public sealed class TransientSectionTests
     [Fact]
     public void ModelWithoutTransientSection_HasNoTransientSection() =>
         Assert.DoesNotContain(ReportBuilder.Build(Repository.UniformChain(2, 1, 100), Options).Sections, s => s.Key == "transient");
+
+    [Fact]
+    public void WithAVelocityLimit_TheVelocityHistoryIsDrawn_WithTheClosedFormPeak()
+    {
+        // v(t) = (F/k)·ω·sin ωt for the suddenly applied force: peak F/√(km) = 159.15 mm/s at T/4 = 0.025 s (same source).
+        var model = Model + "\ncriteria:\n  limits:\n    - {at: m, quantity: velocity, peak: 200 mm/s}\n";
+        var chart = ReportBuilder.Build(Repository.Parse(model), Options).Figures.Single(f => f.Name == "transient-m-velocity");
+        var texts = SvgAssert.Texts(SvgAssert.WellFormedWithViewBox(chart.Svg(true)));
+        Assert.Contains("Velocity (mm/s, instantaneous)", texts);
+        var label = Regex.Match(texts.Single(t => t.StartsWith("peak ", StringComparison.Ordinal)), @"^peak ([0-9.]+) mm/s at ([0-9.]+) s$");
+        Assert.True(label.Success);
+        NumericAssert.Close(1000 / Math.Sqrt(394784.176 * 100) * 1e3, double.Parse(label.Groups[1].Value, CultureInfo.InvariantCulture), Tolerance.Rel(1e-3), "peak velocity (mm/s)");
+    }
 }

@@ -92,6 +92,24 @@ public sealed class ReportWriterTests
     }
 
     [Fact]
+    public void ReportFolderOfAnEarlierVersion_WithoutMarker_IsReplaced()
+    {
+        // Versions before the marker wrote report.html, results.json and figures only: such a folder holds nothing of
+        // the user's, so an upgrade must not make the README's own command fail on it.
+        var parent = Repository.TempDirectory();
+        var dir = Path.Combine(parent, "out");
+        ReportWriter.Write(ReportBuilder.Build(Repository.UniformChain(3, 1, 100), Options), dir, ReportFormat.Pdf);
+        File.Delete(Path.Combine(dir, ReportWriter.MarkerFile));
+
+        ReportWriter.Write(SmallReport(), dir, ReportFormat.Html);
+
+        var fresh = Path.Combine(Repository.TempDirectory(), "fresh");
+        ReportWriter.Write(SmallReport(), fresh, ReportFormat.Html);
+        Assert.Equal(Snapshot(fresh), Snapshot(dir));
+        Assert.Empty(Leftovers(parent));
+    }
+
+    [Fact]
     public void EmptyExistingFolder_ReceivesTheReport()
     {
         var dir = Path.Combine(Repository.TempDirectory(), "out");

@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 
@@ -9,14 +10,21 @@ namespace ModalChain.Core.Analyses.Criteria;
 /// <param name="NotEvaluated">Criteria that could not be evaluated, each with the reason.</param>
 public sealed record CheckOutcome(SeparationResult? Separation, IReadOnlyList<LimitResult> Limits, IReadOnlyList<(string Criterion, string Reason)> NotEvaluated)
 {
+    /// <summary>Machine vibration zone checks, one per criterion and mass, in file order.</summary>
+    public ImmutableArray<MachineZoneResult> Zones { get; init; } = [];
+
+    /// <summary>Floor criterion checks, one per criterion and mass, in file order.</summary>
+    public ImmutableArray<FloorResult> Floors { get; init; } = [];
+
     /// <summary>True when every criterion was evaluated and passes.</summary>
-    public bool AllPass => (Separation?.Passes ?? true) && Limits.All(l => l.Passes) && NotEvaluated.Count == 0;
+    public bool AllPass => (Separation?.Passes ?? true) && Limits.All(l => l.Passes) && NotEvaluated.Count == 0
+        && Zones.All(z => z.Passes) && Floors.All(f => f.Passes);
 }
 
 /// <summary>Evaluates every criterion of a model: the one place both <c>modalchain check</c> and the report use.</summary>
 public static class CriteriaCheck
 {
-    /// <summary>Separation against the undamped natural frequencies, and vibration limits at the operating points.</summary>
+    /// <summary>Separation against the undamped natural frequencies; vibration limits, machine zones and floor curves at the operating points.</summary>
     /// <param name="system">The assembled model; its modes give the natural frequencies.</param>
     /// <param name="criteria">The criteria the model states.</param>
     /// <param name="operatingLoads">The loads whose running speeds are the operating points of the limits.</param>
@@ -31,7 +39,28 @@ public static class CriteriaCheck
         var limits = criteria.Limits.IsDefaultOrEmpty
             ? new LimitOutcome([], [])
             : OperatingPointLimits.Evaluate(system, operatingLoads, criteria.Limits);
-        return new CheckOutcome(separation, limits.Evaluated,
-            [.. limits.NotEvaluated.Select(n => ($"limit {n.Limit.Describe()}", n.Reason))]);
+        var notEvaluated = limits.NotEvaluated.Select(n => ($"limit {n.Limit.Describe()}", n.Reason)).ToList();
+
+        var zones = ImmutableArray.CreateBuilder<MachineZoneResult>();
+        var floors = ImmutableArray.CreateBuilder<FloorResult>();
+        var network = system.Model.Network;
+        var named = criteria.Zones.SelectMany(z => z.At).Concat(criteria.Floors.SelectMany(f => f.At)).ToList();
+        if (named.Count > 0)
+        {
+            var components = OperatingPointLimits.Components(system, operatingLoads, [.. named.Where(network.IsMass)]);
+            foreach (var zone in criteria.Zones)
+                foreach (var at in zone.At)
+                    if (components?.GetValueOrDefault(at) is { } parts) zones.Add(VelocityLevels.Evaluate(zone, at, parts));
+                    else notEvaluated.Add((zone.Describe(at), components is null ? OperatingPointLimits.NoOperatingPoint : $"'{at}' is not a mass of the model"));
+            foreach (var floor in criteria.Floors)
+                foreach (var at in floor.At)
+                    if (components?.GetValueOrDefault(at) is { } parts) floors.Add(VelocityLevels.Evaluate(floor, at, parts));
+                    else notEvaluated.Add((floor.Describe(at), components is null ? OperatingPointLimits.NoOperatingPoint : $"'{at}' is not a mass of the model"));
+        }
+        return new CheckOutcome(separation, limits.Evaluated, notEvaluated)
+        {
+            Zones = zones.ToImmutable(),
+            Floors = floors.ToImmutable(),
+        };
     }
 }

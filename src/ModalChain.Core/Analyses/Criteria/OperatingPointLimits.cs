@@ -25,20 +25,11 @@ public static class OperatingPointLimits
         ArgumentNullException.ThrowIfNull(loads);
         ArgumentNullException.ThrowIfNull(limits);
         if (limits.Count == 0) return new LimitOutcome([], []);
-        var groups = loads.Where(l => l.SpeedHz is > 0).GroupBy(l => l.SpeedHz!.Value).OrderBy(g => g.Key).ToList();
-        if (groups.Count == 0)
-            return new LimitOutcome([], [.. limits.Select(l => (l,
-                "the model has no load with a running speed ('speed:' of a load under 'loads:'), so it has no operating point to check"))]);
+        if (!loads.Any(l => l.SpeedHz is > 0))
+            return new LimitOutcome([], [.. limits.Select(l => (l, NoOperatingPoint))]);
 
         var network = system.Model.Network;
-        var outputs = limits.Select(l => l.At).Where(network.IsMass).Distinct().ToArray();
-        var components = outputs.ToDictionary(o => o, _ => new List<HarmonicComponent>());
-        if (outputs.Length > 0)
-            foreach (var group in groups)
-            {
-                var response = HarmonicAnalysis.Sweep(system, [group.Key], [.. group], outputs, HarmonicMethod.Direct);
-                foreach (var o in outputs) components[o].Add(new HarmonicComponent(group.Key, response.ResponseOf(o)!.Displacement[0]));
-            }
+        var components = Components(system, loads, [.. limits.Select(l => l.At).Where(network.IsMass).Distinct()])!;
         var evaluated = ImmutableArray.CreateBuilder<LimitResult>();
         var missing = ImmutableArray.CreateBuilder<(VibrationLimit, string)>();
         foreach (var limit in limits)
@@ -47,6 +38,32 @@ public static class OperatingPointLimits
             else missing.Add((limit, $"'{limit.At}' is not a mass of the model"));
         }
         return new LimitOutcome(evaluated.ToImmutable(), missing.ToImmutable());
+    }
+
+    /// <summary>The sentence given when the loads have no running speed, so there is no operating point.</summary>
+    public const string NoOperatingPoint =
+        "the model has no load with a running speed ('speed:' of a load under 'loads:'), so it has no operating point to check";
+
+    /// <summary>
+    /// The steady harmonic components of the displacement of each of <paramref name="masses"/> at the operating points,
+    /// one per running speed (ascending); null when no load has a running speed.
+    /// </summary>
+    public static IReadOnlyDictionary<string, List<HarmonicComponent>>? Components(DampedSystem system, IReadOnlyList<Load> loads, IReadOnlyList<string> masses)
+    {
+        ArgumentNullException.ThrowIfNull(system);
+        ArgumentNullException.ThrowIfNull(loads);
+        ArgumentNullException.ThrowIfNull(masses);
+        var groups = loads.Where(l => l.SpeedHz is > 0).GroupBy(l => l.SpeedHz!.Value).OrderBy(g => g.Key).ToList();
+        if (groups.Count == 0) return null;
+        var outputs = masses.Distinct().ToArray();
+        var components = outputs.ToDictionary(o => o, _ => new List<HarmonicComponent>());
+        if (outputs.Length > 0)
+            foreach (var group in groups)
+            {
+                var response = HarmonicAnalysis.Sweep(system, [group.Key], [.. group], outputs, HarmonicMethod.Direct);
+                foreach (var o in outputs) components[o].Add(new HarmonicComponent(group.Key, response.ResponseOf(o)!.Displacement[0]));
+            }
+        return components;
     }
 
     /// <summary>The smallest reserve over <paramref name="limits"/> (a fraction; −∞ when one cannot be evaluated).</summary>

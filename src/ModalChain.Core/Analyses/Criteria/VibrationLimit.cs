@@ -88,6 +88,12 @@ public sealed record CriteriaSet(SeparationCriterion? Separation, ImmutableArray
     /// <summary>No criteria at all.</summary>
     public static readonly CriteriaSet None = new(null, []);
 
+    /// <summary>Machine vibration zone criteria (r.m.s. velocity against published zone boundaries), in file order.</summary>
+    public ImmutableArray<MachineZoneCriterion> Zones { get; init; } = [];
+
+    /// <summary>Sensitive-equipment floor criteria (one-third-octave r.m.s. velocity against a criterion curve), in file order.</summary>
+    public ImmutableArray<FloorCriterion> Floors { get; init; } = [];
+
     /// <summary>True when there is nothing to check.</summary>
-    public bool IsEmpty => Separation is null && Limits.IsDefaultOrEmpty;
+    public bool IsEmpty => Separation is null && Limits.IsDefaultOrEmpty && Zones.IsDefaultOrEmpty && Floors.IsDefaultOrEmpty;
 }
