@@ -57,6 +57,7 @@ public class ModelSchemaTests
     [InlineData("an unknown load kind", "loads:\n  f: {kind: torque, at: deck, amplitude: 1 kN}\n")]
     [InlineData("a limit with both peak and rms", "criteria:\n  limits:\n    - {at: deck, quantity: velocity, peak: 4 mm/s, rms: 3 mm/s}\n")]
     [InlineData("an unknown harmonic method", "loads:\n  f: {kind: force, at: deck, amplitude: 1 kN}\nharmonic:\n  frequencies: [10 Hz]\n  method: fast\n")]
+    [InlineData("machine zone D, which has no upper boundary", "criteria:\n  machine-zones:\n    - {at: deck, class: medium-rigid, zone: D}\n")]
     public void ABadModel_FailsTheSchema_AsItFailsTheReader(string what, string extra)
     {
         var text = "masses:\n  deck: {mass: 3200 kg}\n" + extra;
