@@ -20,7 +20,12 @@ internal static class AbsorberArguments
     }
 
     public static Option<int?> Mode(string name) =>
-        CommandValues.Count(name, "Mode to control (default: the mode nearest a running speed × order of criteria.separation or a load's running speed).", 1);
+        CommandValues.Count(name, "Mode to control (default: the mode nearest a running speed × order of criteria.separation or a load's running speed; with no speed, the mode with the largest motion at the host).", 1);
+
+    public static Option<CommandValue?> SpeedTolerance(string name) =>
+        CommandValues.Quantity(name, Quantity.Ratio,
+            "For --target speed: the speed variation and mistuning the design must tolerate, ± this fraction of each running speed, e.g. '5 %' (the default) or 0 for the undamped absorber at the exact speed.",
+            ValueBound.NonNegative);
 
     public static Option<TuningMethod> Method(string name) =>
         CommandValues.Choice(name,
@@ -38,9 +43,9 @@ internal static class AbsorberArguments
 
     /// <summary>The request, or null after printing every problem (unknown host, mode out of range).</summary>
     public static AbsorberRequest? Request(ModalResult modal, string host, CommandValue ratio, int? mode, ImmutableArray<double> excitations,
-        AbsorberTarget target, Streams io)
+        AbsorberTarget target, Streams io, CommandValue? speedTolerance = null)
     {
-        var request = new AbsorberRequest(host, ratio.Si, mode, excitations, target);
+        var request = new AbsorberRequest(host, ratio.Si, mode, excitations, target, speedTolerance?.Si ?? AbsorberRequest.DefaultSpeedTolerance);
         var problems = AbsorberTuning.Problems(modal, request);
         if (problems.Length == 0) return request;
         foreach (var p in problems) io.Error.WriteLine($"modalchain: error: {p}");

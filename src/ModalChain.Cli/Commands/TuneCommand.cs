@@ -25,8 +25,10 @@ internal static class TuneCommand
         var speed = CommandValues.Quantity("--speed", Quantity.Frequency,
             "Running speed to choose the mode by, e.g. '1480 rpm' (overrides the speeds of criteria.separation).", ValueBound.Positive);
         var target = CommandValues.Choice("--target",
-            "force (harmonic force on the structure; Den Hartog; the default), base (harmonic base acceleration; Warburton 1982) or random-force (white-noise force; Warburton 1982).",
-            ("force", AbsorberTarget.Force), ("base", AbsorberTarget.BaseAcceleration), ("random-force", AbsorberTarget.RandomForce));
+            "force (harmonic force over the mode's band; Den Hartog; the default), base (harmonic base acceleration; Warburton 1982), random-force (white-noise force; Warburton 1982) " +
+            "or speed (a constant-speed machine: the least worst response at the running speeds ± --speed-tolerance).",
+            ("force", AbsorberTarget.Force), ("base", AbsorberTarget.BaseAcceleration), ("random-force", AbsorberTarget.RandomForce), ("speed", AbsorberTarget.RunningSpeed));
+        var tolerance = AbsorberArguments.SpeedTolerance("--speed-tolerance");
         var method = AbsorberArguments.Method("--method");
         var format = CommonOptions.Format(OutputFormat.Table, OutputFormat.Json);
         var write = new Option<string?>("--write")
@@ -39,7 +41,7 @@ internal static class TuneCommand
             "Size a tuned vibration absorber (mass, spring, damper) for one mode, from the mode's modal mass at the host " +
             "(1/phi_host^2 with mass-normalised shapes) and the classical optimum for the target excitation. The damping " +
             "ratio printed is the absorber's own, c/(2*sqrt(k*m)).")
-        { file, host, ratio, mode, speed, target, method, format, write, force };
+        { file, host, ratio, mode, speed, target, tolerance, method, format, write, force };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -51,7 +53,7 @@ internal static class TuneCommand
             if (excitations is null) return ExitCodes.InputError;
             var modal = ModalAnalysis.Solve(document.Network);
             var request = AbsorberArguments.Request(modal, parse.GetValue(host)!, parse.GetValue(ratio)!, parse.GetValue(mode), excitations.Value,
-                parse.GetValue(target), io);
+                parse.GetValue(target), io, parse.GetValue(tolerance));
             if (request is null) return ExitCodes.InputError;
             var tuned = AbsorberStudy.Run(document.Structure, modal, request, AbsorberArguments.IsOptimal(parse.GetValue(method)), OperatingLoads.Of(document));
             var (design, names, assessment, improvement) = (tuned.Design, tuned.Names, tuned.Assessment, tuned.Improvement);
@@ -63,16 +65,26 @@ internal static class TuneCommand
             }
             if (parse.GetValue(format) == OutputFormat.Json)
             {
-                io.WriteJson(stream => TuneJson.Write(stream, document, design, tuned.Method, assessment, improvement, CliApp.Version));
+                io.WriteJson(stream => TuneJson.Write(stream, document, tuned, CliApp.Version));
             }
-            else WriteTable(io.Output, document, design, request, assessment, improvement);
+            else WriteTable(io.Output, document, tuned, request);
             return ExitCodes.Success;
         });
         return command;
     }
 
     private static string Peak(double value) =>
-        double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
+        double.IsNaN(value) ? "none in the band" : double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
+
+    private static string EdgeNote(Core.Analyses.Harmonic.SweepEdge edge) => edge switch
+    {
+        Core.Analyses.Harmonic.SweepEdge.Start => " (the response is larger at the band's low end, rising out of the band)",
+        Core.Analyses.Harmonic.SweepEdge.End => " (the response is larger at the band's high end, rising out of the band)",
+        _ => "",
+    };
+
+    private static string Change(double value, double reference) =>
+        double.IsFinite(value) && double.IsFinite(reference) && reference > 0 ? string.Create(Inv, $"{100 * (value / reference - 1):+0.0;-0.0} %") : "-";
 
     private static ImmutableArray<double>? Excitations(ModelDocument document, CommandValue? speed)
     {
@@ -131,20 +143,23 @@ internal static class TuneCommand
         return ExitCodes.Success;
     }
 
-    private static void WriteTable(TextWriter o, ModelDocument document, AbsorberDesign d, AbsorberRequest request, AbsorberAssessment a, string? improvement)
+    private static void WriteTable(TextWriter o, ModelDocument document, TunedAbsorber tuned, AbsorberRequest request)
     {
+        var (d, a, improvement) = (tuned.Design, tuned.Assessment, tuned.Improvement);
         o.WriteLine(document.Network.Title);
         o.WriteLine();
         var targetText = d.Target switch
         {
-            AbsorberTarget.Force => "harmonic force on the structure (Den Hartog 1956, fixed points)",
-            AbsorberTarget.BaseAcceleration => "harmonic base acceleration (Warburton 1982)",
-            _ => "white-noise force (Warburton 1982)",
+            AbsorberTarget.Force => "harmonic force on the structure, over the mode's band",
+            AbsorberTarget.BaseAcceleration => "harmonic base acceleration",
+            AbsorberTarget.RunningSpeed => string.Create(Inv, $"harmonic force at the running speed(s) {string.Join(", ", d.ExcitationsHz.Select(f => f.ToString("G6", Inv)))} Hz ± {d.SpeedTolerance * 100:G3} %"),
+            _ => "white-noise force",
         };
         o.WriteLine(string.Create(Inv, $"Mode controlled:        {d.ModeNumber} at {d.ModeFrequencyHz:F4} Hz ({d.ChosenBy})"));
         o.WriteLine(string.Create(Inv, $"Host:                   {d.Host}; modal mass there 1/phi^2 = {d.ModalMass:G6} kg"));
         o.WriteLine(string.Create(Inv, $"Mass ratio:             {d.Optimum.MassRatio * 100:G4} %"));
         o.WriteLine($"Tuned for:              {targetText}");
+        o.WriteLine($"Method used:            {tuned.Method}: {tuned.MethodDescription}");
         o.WriteLine();
         o.WriteLine("Absorber");
         o.WriteLine(string.Create(Inv, $"  mass                  {d.Mass:G6} kg"));
@@ -156,23 +171,37 @@ internal static class TuneCommand
         if (d.Target == AbsorberTarget.Force)
             o.WriteLine(string.Create(Inv, $"  expected peak         {d.Optimum.PeakAmplification:F4} x static deflection at the host (fixed-point value sqrt(1+2/mu), undamped single-mode primary)"));
         o.WriteLine();
-        o.WriteLine(string.Create(Inv, $"On the full model (all modes, the model's damping), harmonic force at '{d.Host}', band {a.BandHz.Low:F2}-{a.BandHz.High:F2} Hz:"));
+        o.WriteLine(string.Create(Inv, $"On the full model (all modes, the model's damping), harmonic force at '{d.Host}', band {a.BandHz.Low:F2}-{a.BandHz.High:F2} Hz (0.5-1.5 f_p):"));
+        o.WriteLine("  each peak belongs to the mode of the model without the absorber whose shape matches best (MAC) the nearest mode with it");
         o.WriteLine("  peaks are |x_host| * K / |F| with K = modal mass * omega_p^2 (the static deflection of the mode's equivalent spring)");
-        o.WriteLine($"  peak before           {Peak(a.PeakBefore)}");
-        o.WriteLine(string.Create(Inv, $"  peak after            {Peak(a.PeakAfter)} at {a.PeakFrequencyHz:F3} Hz"));
+        o.WriteLine($"  peak before           {Peak(a.PeakBefore)}{EdgeNote(a.PeakBeforeRisingAt)}");
+        o.WriteLine(string.Create(Inv, $"  peak after            {Peak(a.PeakAfter)} at {a.PeakFrequencyHz:F3} Hz, mode {a.PeakAfterMode}'s peak{EdgeNote(a.PeakAfterRisingAt)}"));
+        foreach (var n in a.Neighbours)
+            o.WriteLine(string.Create(Inv, $"  mode {n.ModeNumber} ({n.FrequencyHz:F3} Hz)   peak {Peak(n.PeakBefore)} before, {Peak(n.PeakAfter)} after (a neighbouring mode, not controlled)"));
+        if (a.AtSpeeds.IsEmpty) o.WriteLine("  at running speeds     not computed: no running speed is given (--speed, criteria.separation.speeds or a load's speed)");
+        foreach (var sp in a.AtSpeeds)
+            o.WriteLine(string.Create(Inv, $"  at {sp.FrequencyHz,8:G6} Hz         {Peak(sp.Before)} before, {Peak(sp.After)} after (running speed x order)"));
         o.WriteLine(string.Create(Inv, $"  absorber stroke       {a.StrokePerForce * 1e6:G4} mm per kN of force at the host, at {a.PeakFrequencyHz:F3} Hz (relative to the host)"));
         o.WriteLine(double.IsFinite(a.OperatingStroke)
             ? string.Create(Inv, $"  stroke in operation   {a.OperatingStroke * 1e3:G4} mm peak under the model's loads at their running speeds")
             : "  stroke in operation   not computed: no load of the model has a running speed");
         if (improvement is not null) o.WriteLine($"  optimal tuning:       {improvement}");
         o.WriteLine("  mistuning (absorber frequency off, same mass and damping ratio):");
-        var table = new Formatting.TextTable("frequency error", "absorber [Hz]", "peak after", "vs tuned");
+        var speeds = !a.AtSpeeds.IsEmpty;
+        var table = speeds
+            ? new Formatting.TextTable("frequency error", "absorber [Hz]", "peak after", "vs tuned", "worst at speeds", "vs tuned")
+            : new Formatting.TextTable("frequency error", "absorber [Hz]", "peak after", "vs tuned");
+        var tunedAtSpeeds = speeds ? a.AtSpeeds.Max(s => s.After) : double.NaN;
         foreach (var p in a.Mistuning)
-            table.Add(string.Create(Inv, $"{p.FrequencyError * 100:+0;-0} %"), (d.FrequencyHz * (1 + p.FrequencyError)).ToString("F3", Inv), Peak(p.Peak),
-                string.Create(Inv, $"{100 * (p.Peak / a.PeakAfter - 1):+0.0;-0.0} %"));
+        {
+            string[] cells = [string.Create(Inv, $"{p.FrequencyError * 100:+0;-0} %"), (d.FrequencyHz * (1 + p.FrequencyError)).ToString("F3", Inv), Peak(p.Peak),
+                Change(p.Peak, a.PeakAfter)];
+            table.Add(speeds ? [.. cells, Peak(p.AtSpeeds), Change(p.AtSpeeds, tunedAtSpeeds)] : cells);
+        }
         var lines = new StringWriter();
         table.Write(lines);
         foreach (var line in lines.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries)) o.WriteLine("    " + line);
+        foreach (var warning in tuned.Warnings) o.WriteLine("  warning: " + warning);
         o.WriteLine("  With the absorber, two modes sit either side of the controlled frequency: judge the fix by the vibration limits, not by separation.");
         if (request.MassRatio > AbsorberTuning.LargeMassRatio)
             o.WriteLine(string.Create(Inv, $"Note: a mass ratio above {AbsorberTuning.LargeMassRatio * 100:G3} % stretches the single-mode approximation; check the result on the full model."));

@@ -35,6 +35,9 @@ internal static class HarmonicTable
                 Num(p[ResponseQuantity.Acceleration].Magnitude), p[ResponseQuantity.Acceleration].FrequencyHz.ToString("F3", Inv));
         }
         peaks.Write(o);
+        foreach (var p in all.Where(p => p.EdgeWarning is not null))
+            o.WriteLine(string.Create(Inv,
+                $"  {p.Dof} {HarmonicJson.Name(p.Quantity)}: {p.EdgeWarning} ({(p.IsInterior ? "the peak shown is the largest inside the sweep" : "no peak inside the sweep; the value shown is at its end")})"));
         if (result.Reactions.Length > 0)
         {
             o.WriteLine();

@@ -94,6 +94,10 @@ public static class HarmonicJson
             w.WriteString("amplitude", "peak");
             w.Number("magnitude", p.Magnitude);
             w.Number("frequency_hz", p.FrequencyHz);
+            w.WriteString("rising_at", TuneJson.Edge(p.RisingAt));
+            w.Number("edge_magnitude", p.EdgeMagnitude);
+            w.WriteBoolean("is_interior_peak", p.IsInterior);
+            w.Note("note", p.EdgeWarning);
             w.WriteEndObject();
         }
         w.WriteEndArray();

@@ -14,9 +14,20 @@ namespace ModalChain.Io.Json;
 /// </remarks>
 public static class TuneJson
 {
+    /// <summary>Writes the JSON object of a sized and assessed absorber to <paramref name="stream"/>.</summary>
+    public static void Write(Stream stream, ModelDocument document, TunedAbsorber tuned, string toolVersion)
+    {
+        ArgumentNullException.ThrowIfNull(tuned);
+        Write(stream, document, tuned.Design, tuned.Method, tuned.Assessment, tuned.Improvement, toolVersion, tuned);
+    }
+
     /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
     public static void Write(Stream stream, ModelDocument document, AbsorberDesign design, string method,
-        AbsorberAssessment? assessment, string? improvement, string toolVersion)
+        AbsorberAssessment? assessment, string? improvement, string toolVersion) =>
+        Write(stream, document, design, method, assessment, improvement, toolVersion, null);
+
+    private static void Write(Stream stream, ModelDocument document, AbsorberDesign design, string method,
+        AbsorberAssessment? assessment, string? improvement, string toolVersion, TunedAbsorber? tuned)
     {
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
@@ -30,6 +41,9 @@ public static class TuneJson
         w.Number("mass_ratio", design.Optimum.MassRatio);
         w.WriteString("target", Target(design.Target));
         w.WriteString("method", method);
+        if (tuned is not null) w.WriteString("method_description", tuned.MethodDescription);
+        if (design.Target == AbsorberTarget.RunningSpeed) w.Number("speed_tolerance", design.SpeedTolerance);
+        w.Array("excitations_hz", [.. design.ExcitationsHz]);
         w.WriteStartObject("absorber");
         w.Number("mass_kg", design.Mass);
         w.Number("stiffness_n_per_m", design.Stiffness);
@@ -49,6 +63,34 @@ public static class TuneJson
             w.Number("peak_after", a.PeakAfter);
             w.Note("peak_after_note", Unbounded(a.PeakAfter));
             w.Number("peak_frequency_hz", a.PeakFrequencyHz);
+            w.WriteNumber("peak_after_mode", a.PeakAfterMode);
+            w.WriteString("peak_before_rising_at", Edge(a.PeakBeforeRisingAt));
+            w.WriteString("peak_after_rising_at", Edge(a.PeakAfterRisingAt));
+            w.WriteStartArray("at_speeds");
+            foreach (var s in a.AtSpeeds)
+            {
+                w.WriteStartObject();
+                w.Number("frequency_hz", s.FrequencyHz);
+                w.Number("before", s.Before);
+                w.Note("before_note", Unbounded(s.Before));
+                w.Number("after", s.After);
+                w.Note("after_note", Unbounded(s.After));
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+            w.WriteStartArray("neighbouring_modes");
+            foreach (var n in a.Neighbours)
+            {
+                w.WriteStartObject();
+                w.WriteNumber("mode", n.ModeNumber);
+                w.Number("frequency_hz", n.FrequencyHz);
+                w.Number("peak_before", n.PeakBefore);
+                w.Note("peak_before_note", NeighbourNote(n.PeakBefore));
+                w.Number("peak_after", n.PeakAfter);
+                w.Note("peak_after_note", NeighbourNote(n.PeakAfter));
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
             w.Number("stroke_m", a.OperatingStroke);
             w.WriteString("stroke_basis", "peak relative displacement of the absorber to the host under the model's loads at their running speeds; null when no load has a speed");
             w.Number("stroke_per_force_m_per_n", a.StrokePerForce);
@@ -60,6 +102,7 @@ public static class TuneJson
                 w.Number("frequency_error", p.FrequencyError);
                 w.Number("peak", p.Peak);
                 w.Note("peak_note", Unbounded(p.Peak));
+                w.Number("at_speeds", p.AtSpeeds);
                 w.WriteEndObject();
             }
             w.WriteEndArray();
@@ -74,6 +117,12 @@ public static class TuneJson
             w.WriteEndArray();
         }
         if (improvement is not null) w.WriteString("improvement", improvement);
+        if (tuned is not null)
+        {
+            w.WriteStartArray("warnings");
+            foreach (var warning in tuned.Warnings) w.WriteStringValue(warning);
+            w.WriteEndArray();
+        }
         w.WriteString("absorber_caution", AbsorberCaution.Text);
         w.WriteString("caution", Cautions.Text);
         w.WriteEndObject();
@@ -83,8 +132,21 @@ public static class TuneJson
     {
         AbsorberTarget.Force => "force",
         AbsorberTarget.BaseAcceleration => "base",
+        AbsorberTarget.RunningSpeed => "speed",
         _ => "random-force",
     };
+
+    // "none" for a peak inside the band; "start" or "end" when the largest response is on that end of the band.
+    internal static string Edge(ModalChain.Core.Analyses.Harmonic.SweepEdge edge) => edge switch
+    {
+        ModalChain.Core.Analyses.Harmonic.SweepEdge.Start => "start",
+        ModalChain.Core.Analyses.Harmonic.SweepEdge.End => "end",
+        _ => "none",
+    };
+
+    // Beside a neighbouring mode's null peak: no peak of that mode inside the band, or an unbounded one.
+    private static string? NeighbourNote(double peak) =>
+        double.IsNaN(peak) ? "no peak of this mode inside the band" : Unbounded(peak);
 
     // Beside a null peak, why it has no finite value (JSON has no infinity); the table prints the same words.
     private static string? Unbounded(double peak) =>

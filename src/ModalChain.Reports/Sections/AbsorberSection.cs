@@ -82,6 +82,7 @@ public sealed class AbsorberSection : IReportSection
         {
             AbsorberTarget.Force => "harmonic force on the structure (Den Hartog 1956, fixed points)",
             AbsorberTarget.BaseAcceleration => "harmonic base acceleration (Warburton 1982)",
+            AbsorberTarget.RunningSpeed => "harmonic force at the running speeds",
             _ => "white-noise force (Warburton 1982)",
         };
         html.Facts(
@@ -91,7 +92,7 @@ public sealed class AbsorberSection : IReportSection
             ("Modal mass at the host (1/φ²)", $"{u.Mass(d.ModalMass)} {u.MassSymbol}"),
             ("Mass ratio μ", DisplayUnits.Percent(d.Optimum.MassRatio) + " %"),
             ("Tuned for", target),
-            ("Method", Tuned.Method),
+            ("Method used", $"{Tuned.Method}: {Tuned.MethodDescription}"),
         ]);
         html.Table("Absorber design", ["Quantity", "Value"],
         [
@@ -107,8 +108,12 @@ public sealed class AbsorberSection : IReportSection
         var rows = new List<IReadOnlyList<string>>
         {
             new[] { "Peak before", Peak(a.PeakBefore) },
-            new[] { "Peak after", string.Create(Inv, $"{Peak(a.PeakAfter)} at {DisplayUnits.Number(a.PeakFrequencyHz)} Hz") },
+            new[] { "Peak after", string.Create(Inv, $"{Peak(a.PeakAfter)} at {DisplayUnits.Number(a.PeakFrequencyHz)} Hz (mode {a.PeakAfterMode})") },
         };
+        foreach (var n in a.Neighbours)
+            rows.Add([string.Create(Inv, $"Neighbouring mode {n.ModeNumber} ({DisplayUnits.Number(n.FrequencyHz)} Hz), not controlled"), $"peak {Peak(n.PeakBefore)} before, {Peak(n.PeakAfter)} after"]);
+        foreach (var sp in a.AtSpeeds)
+            rows.Add([string.Create(Inv, $"At the excitation {DisplayUnits.Number(sp.FrequencyHz)} Hz (running speed × order)"), $"{Peak(sp.Before)} before, {Peak(sp.After)} after"]);
         if (d.Target == AbsorberTarget.Force)
             rows.Add(["Fixed-point value √(1 + 2/μ) (undamped single-mode primary)", d.Optimum.PeakAmplification.ToString("F4", Inv)]);
         rows.Add(["Absorber stroke per kN at the host, at the worst frequency", string.Create(Inv, $"{DisplayUnits.Number(a.StrokePerForce * 1e6)} mm/kN")]);
@@ -123,6 +128,7 @@ public sealed class AbsorberSection : IReportSection
                 string.Create(Inv, $"{p.FrequencyError * 100:+0;−0} %"), DisplayUnits.Number(d.FrequencyHz * (1 + p.FrequencyError)), Peak(p.Peak),
                 string.Create(Inv, $"{100 * (p.Peak / a.PeakAfter - 1):+0.0;−0.0} %"),
             ]), new HashSet<int> { 0, 1, 2, 3 }, "absorber-mistuning");
+        foreach (var warning in Tuned.Warnings) html.Paragraph("Warning: " + warning + ".", "note");
         html.Figure(_figure);
         html.Paragraph("With the absorber, two modes sit either side of the controlled frequency: judge the fix by the vibration limits, not by separation.", "note");
         if (asLarge(d)) html.Paragraph(string.Create(Inv, $"A mass ratio above {AbsorberTuning.LargeMassRatio * 100:G3} % stretches the single-mode approximation; check the result on the full model."), "note");
@@ -136,13 +142,13 @@ public sealed class AbsorberSection : IReportSection
     {
         ArgumentNullException.ThrowIfNull(json);
         using var buffer = new MemoryStream();
-        TuneJson.Write(buffer, _context.Document, Tuned.Design, Tuned.Method, Tuned.Assessment, Tuned.Improvement, _context.Options.ToolVersion);
+        TuneJson.Write(buffer, _context.Document, Tuned, _context.Options.ToolVersion);
         using var parsed = JsonDocument.Parse(buffer.ToArray());
         parsed.RootElement.WriteTo(json);
     }
 
     private static string Peak(double value) =>
-        double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
+        double.IsNaN(value) ? "none in the band" : double.IsFinite(value) ? value.ToString("F4", Inv) : "unbounded (no damping acts on that resonance)";
 
     private ChartFigure Chart()
     {

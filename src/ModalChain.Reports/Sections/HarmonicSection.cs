@@ -126,6 +126,9 @@ public sealed class HarmonicSection : IReportSection
                 return (IReadOnlyList<string>)[r.Dof, DisplayUnits.Number(d.Magnitude / dScale), DisplayUnits.Number(d.FrequencyHz),
                     DisplayUnits.Number(v.Magnitude / vScale), DisplayUnits.Number(v.FrequencyHz), DisplayUnits.Number(a.Magnitude), DisplayUnits.Number(a.FrequencyHz)];
             }), new HashSet<int> { 1, 2, 3, 4, 5, 6 });
+        foreach (var p in peaks.Where(p => p.EdgeWarning is not null))
+            html.Paragraph(string.Create(Inv,
+                $"{p.Dof}, {HarmonicJson.Name(p.Quantity)}: {p.EdgeWarning} ({(p.IsInterior ? "the peak shown is the largest inside the sweep" : "no peak inside the sweep; the value shown is at its end")})."), "note");
 
         foreach (var op in _result.OperatingPoints)
         {

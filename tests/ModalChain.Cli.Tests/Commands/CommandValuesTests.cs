@@ -48,7 +48,7 @@ public class CommandValuesTests
     [InlineData("report", "--format <html|svg|pdf>")]
     [InlineData("report", "--units <si|imperial>")]
     [InlineData("study", "--spacing <linear|geometric>")]
-    [InlineData("tune", "--target <force|base|random-force>")]
+    [InlineData("tune", "--target <force|base|random-force|speed>")]
     public void Help_OffersOnlyWhatTheCommandAccepts_InLowerCase(string command, string usage)
     {
         var text = Run(command, "--help").Stdout;

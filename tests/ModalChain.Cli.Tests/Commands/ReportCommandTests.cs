@@ -229,12 +229,13 @@ public sealed class ReportCommandTests
         // A report replaces its whole folder, so a folder that is not a report (no marker file) is refused, not overwritten.
         var dir = Path.Combine(Temp(), "mine");
         Directory.CreateDirectory(dir);
-        File.WriteAllText(Path.Combine(dir, "report.html"), "my own page");
+        // (A folder of report files only counts as a report written before the marker existed, so the file here is another.)
+        File.WriteAllText(Path.Combine(dir, "notes.txt"), "my own notes");
         var (code, _, stderr) = Run("report", Path.Combine(Root, "models", "chiller-deck.yaml"), "-o", dir);
         Assert.Equal(2, code);
         Assert.Contains("not a ModalChain report folder", stderr, StringComparison.Ordinal);
-        Assert.Equal("my own page", File.ReadAllText(Path.Combine(dir, "report.html")));
-        Assert.Equal(["report.html"], Directory.GetFileSystemEntries(dir).Select(Path.GetFileName));
+        Assert.Equal("my own notes", File.ReadAllText(Path.Combine(dir, "notes.txt")));
+        Assert.Equal(["notes.txt"], Directory.GetFileSystemEntries(dir).Select(Path.GetFileName));
 
         // A folder a report was written into is replaced by the next report.
         var again = Path.Combine(Temp(), "report");

@@ -119,12 +119,41 @@ public class TuneCommandTests
     }
 
     [Fact]
-    public void NoModeAndNoSpeedAnywhere_ExitsTwo()
+    public void SingleMassWithoutSpeed_TunesItsOnlyMode()
     {
+        // The one mode of a single mass is the only candidate: no --mode is asked for, and the choice is stated.
         var path = CommandRun.ModelFile("masses:\n  deck: 100 kg\nsprings:\n  s: {between: [ground, deck], stiffness: 1e5}\n");
         var run = CommandRun.Of("tune", path, "--host", "deck", "--mass-ratio", "5 %");
+        Assert.Equal(0, run.ExitCode);
+        Assert.Contains("largest motion at the host", run.Output);
+    }
+
+    [Fact]
+    public void SpeedTarget_WithoutASpeed_ExitsTwo()
+    {
+        var path = CommandRun.ModelFile("masses:\n  deck: 100 kg\nsprings:\n  s: {between: [ground, deck], stiffness: 1e5}\n");
+        var run = CommandRun.Of("tune", path, "--host", "deck", "--mass-ratio", "5 %", "--target", "speed");
         Assert.Equal(2, run.ExitCode);
-        Assert.Contains("--mode N", run.Error);
+        Assert.Contains("needs one", run.Error);
+    }
+
+    [Fact]
+    public void SpeedTarget_JsonReportsTheResponseAtTheSpeedBeforeAndAfter()
+    {
+        // Deck 100 kg on 1e5 N/m (f_p = 5.03 Hz) forced at 4.5 Hz; tolerance 0: the undamped absorber tuned to 4.5 Hz cancels
+        // the deck's motion there (Den Hartog 1956 §3.2 [from memory]). Before: 1/|1 − r²| (SDOF closed form).
+        var path = CommandRun.ModelFile("masses:\n  deck: 100 kg\nsprings:\n  s: {between: [ground, deck], stiffness: 1e5}\n");
+        var run = CommandRun.Of("tune", path, "--host", "deck", "--mass-ratio", "5 %", "--target", "speed", "--speed", "4.5 Hz",
+            "--speed-tolerance", "0", "--format", "json");
+        Assert.Equal(0, run.ExitCode);
+        var json = run.Json();
+        Assert.Equal("running-speed", json.GetProperty("method").GetString());
+        Assert.Equal("speed", json.GetProperty("target").GetString());
+        var at = json.GetProperty("at_speeds")[0];
+        var r = 4.5 / (Math.Sqrt(1e5 / 100) / (2 * Math.PI));
+        NumericAssert.Close(1 / Math.Abs(1 - r * r), at.GetProperty("before").GetDouble(), Tolerance.Rel(1e-9), "before");
+        NumericAssert.Small(at.GetProperty("after").GetDouble(), 1e-9, "after");
+        NumericAssert.Close(4.5, json.GetProperty("absorber").GetProperty("frequency_hz").GetDouble(), Tolerance.Rel(1e-12), "tuned to the speed");
     }
 
     private static string[] Tune(string model, string output, params string[] extra) =>

@@ -9,10 +9,15 @@ namespace ModalChain.Core.Analyses.Absorbers;
 /// <remarks>
 /// The measure is the host's dynamic amplification |x_host|·K/|F| for a harmonic force F at the host, with K = M ω_p²
 /// the modal stiffness of the controlled mode (M its modal mass at the host), so that for a one-mass primary it is
-/// the classical |X₁|k/F of Den Hartog (1956). Its worst value over the band [0.5 f_p, 1.5 f_p] is found by a
-/// refined sweep whose every local maximum is then refined by golden-section search.
-/// The optimal tuning minimises that worst peak over the absorber's frequency and damping ratio (its mass is fixed by
-/// μ), by the Nelder–Mead simplex method (Nelder &amp; Mead 1965) on (ln f_a, ln ζ_a) from the closed form.
+/// the classical |X₁|k/F of Den Hartog (1956). Peaks are searched over 0.5–1.5 f_p by a refined sweep whose every local
+/// maximum is refined by golden-section search, and each is attributed to a mode of the model without the absorber by
+/// mode shape (<see cref="Owner"/>): the peak reported is the controlled mode's, the other modes' peaks are listed apart,
+/// and an end of the band where the controlled mode's response is larger than its peak is flagged, not taken as the peak.
+/// The band-optimal tuning minimises that peak over the absorber's frequency and damping ratio (its mass is fixed by
+/// μ), by the Nelder–Mead simplex method (Nelder &amp; Mead 1965) on (ln f_a, ln ζ_a) from the closed form. The
+/// running-speed tuning minimises the worst amplification over every excitation frequency f_e ± t·f_e (t the speed
+/// tolerance; at t = 0 the values at f_e), from the undamped absorber tuned to the speed (Den Hartog 1956 §3.2), the
+/// closed form and a simplex search on (ln f_a, √ζ_a), keeping the best: never worse on that measure than the closed form.
 /// </remarks>
 public static class AbsorberPerformance
 {
@@ -20,52 +25,208 @@ public static class AbsorberPerformance
     public static readonly ImmutableArray<double> MistuningErrors = [-0.10, -0.05, 0.05, 0.10];
 
     private const int BandPoints = 240;
+    private const int SpeedBandPoints = 40;
 
-    /// <summary>The band searched for peaks around the controlled mode, Hz.</summary>
+    /// <summary>The band searched for peaks around the controlled mode, Hz: 0.5–1.5 f_p.</summary>
     public static (double Low, double High) Band(AbsorberDesign design)
     {
         ArgumentNullException.ThrowIfNull(design);
         return (0.5 * design.ModeFrequencyHz, 1.5 * design.ModeFrequencyHz);
     }
 
-    /// <summary>Worst amplification of the host over the band for <paramref name="model"/> (with or without an absorber).</summary>
-    /// <remarks>
-    /// A tuned absorber leaves two (or more) nearly equal peaks, and an optimiser will exploit any peak that is only
-    /// sampled: HarmonicAnalysis.PeakResponse refines every local maximum of its sweep and returns the largest.
-    /// </remarks>
+    /// <summary>Other modes of the model whose natural frequency lies within 0.5–1.5 f_p (distinct from f_p), by number.</summary>
+    public static ImmutableArray<int> ModesInClassicalBand(AbsorberDesign design)
+    {
+        ArgumentNullException.ThrowIfNull(design);
+        var f = design.ModelFrequenciesHz;
+        return [.. Enumerable.Range(1, f.Length).Where(n => n != design.ModeNumber && f[n - 1] > 0
+            && f[n - 1] >= 0.5 * design.ModeFrequencyHz && f[n - 1] <= 1.5 * design.ModeFrequencyHz && !Same(f[n - 1], design.ModeFrequencyHz))];
+    }
+
+    /// <summary>The mode of the model without the absorber whose natural frequency is nearest (in ratio) to <paramref name="frequencyHz"/>: where an absorber's frequency sits.</summary>
+    public static int ModeOf(AbsorberDesign design, double frequencyHz)
+    {
+        ArgumentNullException.ThrowIfNull(design);
+        var f = design.ModelFrequenciesHz;
+        if (f.IsDefaultOrEmpty || !(frequencyHz > 0)) return design.ModeNumber;
+        var best = design.ModeNumber;
+        var distance = double.PositiveInfinity;
+        for (var n = 1; n <= f.Length; n++)
+        {
+            if (!(f[n - 1] > 0)) continue;
+            var d = Math.Abs(Math.Log(frequencyHz / f[n - 1]));
+            // Modes of one frequency share a band: keep the controlled one.
+            if (d < distance - 1e-12 || (Math.Abs(d - distance) <= 1e-12 && n == design.ModeNumber)) { distance = d; best = n; }
+        }
+        return best;
+    }
+
+    /// <summary>Worst amplification of the host in the controlled mode's band for <paramref name="model"/> (with or without an absorber).</summary>
     /// <returns>The amplification and its frequency in Hz; +∞ when the response is unbounded (an undamped resonance in the band).</returns>
     public static (double Peak, double FrequencyHz) WorstPeak(StructuralModel model, AbsorberDesign design)
     {
-        ArgumentNullException.ThrowIfNull(model);
-        ArgumentNullException.ThrowIfNull(design);
-        var (lo, hi) = Band(design);
-        var system = DampedSystem.Build(model);
-        var peak = HarmonicAnalysis.PeakResponse(system, [UnitForce(design.Host)], design.Host, lo, hi, BandPoints);
-        return (peak.Magnitude * ModalStiffness(design), peak.FrequencyHz);
+        var p = BandPeak(model, design);
+        return (p.Magnitude, p.FrequencyHz);
     }
 
-    /// <summary>Peaks before and after, stroke at the worst frequency and the mistuning table of <paramref name="design"/> on <paramref name="model"/>.</summary>
+    /// <summary>The host's amplification peak belonging to the controlled mode in the band, with the edge flag (<see cref="ResponsePeak.RisingAt"/>), magnitudes scaled to the amplification measure.</summary>
+    /// <remarks>
+    /// Peaks that belong to other modes (<see cref="Owner"/>) are left out. <see cref="ResponsePeak.RisingAt"/> is set
+    /// when an end of the band that belongs to the controlled mode holds a larger value: a peak of the mode lies beyond the band.
+    /// When no peak inside the band belongs to the controlled mode, the largest value of the band is returned, flagged as for a sweep.
+    /// </remarks>
+    public static ResponsePeak BandPeak(StructuralModel model, AbsorberDesign design)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(design);
+        return Look(DampedSystem.Build(model), design).Controlled;
+    }
+
+    /// <summary>
+    /// The mode of the model without the absorber that a response at <paramref name="frequencyHz"/> of <paramref name="system"/> belongs to:
+    /// the natural frequency of <paramref name="system"/> nearest in ratio gives a mode shape, and its modal assurance criterion
+    /// (Allemang &amp; Brown 1982) over the model's own masses with each mode of the model without the absorber picks the one it matches best.
+    /// </summary>
+    /// <remarks>With the absorber, the controlled mode splits into two modes whose shapes over the model's masses both match it; a neighbouring mode keeps its own shape.</remarks>
+    public static int Owner(DampedSystem system, AbsorberDesign design, double frequencyHz)
+    {
+        ArgumentNullException.ThrowIfNull(system);
+        ArgumentNullException.ThrowIfNull(design);
+        var nearest = system.Modes.Modes.Where(m => !m.IsRigidBody && m.NaturalFrequencyHz > 0)
+            .MinBy(m => Math.Abs(Math.Log(frequencyHz / m.NaturalFrequencyHz)));
+        if (nearest is null || design.ModelShapes.IsDefaultOrEmpty) return ModeOf(design, frequencyHz);
+        var free = system.Partition.Free.Dofs;
+        var phi = design.ModelDofs.Select(d => free.IndexOf(d) is var i and >= 0 ? nearest.Shape[i] : 0).ToArray();
+        var best = design.ModeNumber;
+        var bestMac = -1.0;
+        for (var n = 1; n <= design.ModelShapes.Length; n++)
+        {
+            if (!(design.ModelFrequenciesHz[n - 1] > 0)) continue;
+            var mac = Mac(phi, design.ModelShapes[n - 1]);
+            if (mac > bestMac + 1e-12 || (Math.Abs(mac - bestMac) <= 1e-12 && n == design.ModeNumber)) { bestMac = mac; best = n; }
+        }
+        return best;
+    }
+
+    private static double Mac(IReadOnlyList<double> a, IReadOnlyList<double> b)
+    {
+        double ab = 0, aa = 0, bb = 0;
+        for (var i = 0; i < a.Count; i++) { ab += a[i] * b[i]; aa += a[i] * a[i]; bb += b[i] * b[i]; }
+        return aa > 0 && bb > 0 ? ab * ab / (aa * bb) : 0;
+    }
+
+    // The controlled mode's peak and the largest peak of every other mode in the band.
+    private static (ResponsePeak Controlled, Dictionary<int, double> Others) Look(DampedSystem system, AbsorberDesign design)
+    {
+        var (lo, hi) = Band(design);
+        var k = ModalStiffness(design);
+        ResponsePeak Scaled(ResponsePeak p) => p with { Magnitude = p.Magnitude * k, EdgeMagnitude = p.EdgeMagnitude * k };
+        var search = HarmonicAnalysis.BandPeaks(system, [UnitForce(design.Host)], design.Host, lo, hi, BandPoints);
+        var others = new Dictionary<int, double>();
+        if (search.Unbounded is { } unbounded) return (Scaled(unbounded), others);
+        ResponsePeak? controlled = null;
+        foreach (var p in search.Peaks)
+        {
+            var owner = Owner(system, design, p.FrequencyHz);
+            if (owner == design.ModeNumber) { if (controlled is null || p.Magnitude > controlled.Magnitude) controlled = p; }
+            else others[owner] = Math.Max(others.GetValueOrDefault(owner), p.Magnitude * k);
+        }
+        if (controlled is null) return (Scaled(search.Sampled), others);
+        foreach (var (edge, end) in new[] { (SweepEdge.Start, search.Start), (SweepEdge.End, search.End) })
+        {
+            var largest = controlled.RisingAt == SweepEdge.None ? controlled.Magnitude : controlled.EdgeMagnitude;
+            if (end.Magnitude > largest && Owner(system, design, end.FrequencyHz) == design.ModeNumber)
+                controlled = controlled with { RisingAt = edge, EdgeMagnitude = end.Magnitude };
+        }
+        return (Scaled(controlled), others);
+    }
+
+    /// <summary>
+    /// The value a band design is judged by: the controlled mode's peak, or the value at an end of the band that
+    /// belongs to the controlled mode when it is larger (a peak pushed out of the band counts).
+    /// </summary>
+    public static double DesignPeak(ResponsePeak bandPeak)
+    {
+        ArgumentNullException.ThrowIfNull(bandPeak);
+        return bandPeak.LargestComputed;
+    }
+
+    /// <summary>The worst host amplification over every excitation frequency f_e ± t·f_e (at f_e alone when t = 0); NaN without excitations.</summary>
+    public static double SpeedObjective(StructuralModel model, AbsorberDesign design)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(design);
+        if (design.ExcitationsHz.IsDefaultOrEmpty) return double.NaN;
+        var system = DampedSystem.Build(model);
+        var worst = 0.0;
+        foreach (var fe in design.ExcitationsHz)
+        {
+            var t = design.SpeedTolerance;
+            var value = t > 0
+                ? SafeLargest(system, design, fe * (1 - t), fe * (1 + t))
+                : AmplificationAt(system, design, fe);
+            worst = Math.Max(worst, value);
+        }
+        return worst;
+    }
+
+    /// <summary>The host amplification |x_host|·K/|F| of <paramref name="model"/> at one frequency; +∞ when the response is unbounded there.</summary>
+    public static double AmplificationAt(StructuralModel model, AbsorberDesign design, double frequencyHz)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        return AmplificationAt(DampedSystem.Build(model), design, frequencyHz);
+    }
+
+    private static double AmplificationAt(DampedSystem system, AbsorberDesign design, double frequencyHz)
+    {
+        ArgumentNullException.ThrowIfNull(design);
+        try
+        {
+            var r = HarmonicAnalysis.Sweep(system, [frequencyHz], [UnitForce(design.Host)], [design.Host], HarmonicMethod.Direct);
+            var x = r.ResponseOf(design.Host)!.Displacement[0].Magnitude;
+            return double.IsFinite(x) ? x * ModalStiffness(design) : double.PositiveInfinity;
+        }
+        catch (NumericalFailureException) { return double.PositiveInfinity; }
+    }
+
+    /// <summary>Peaks before and after, stroke at the worst frequency, the mistuning table, the response at the excitations and the neighbouring modes' peaks.</summary>
     /// <remarks>The peak before is +∞ when the controlled mode has no damping in the model (an unbounded resonance).</remarks>
     public static AbsorberAssessment Assess(StructuralModel model, AbsorberDesign design, AbsorberNames names)
     {
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(names);
+        ArgumentNullException.ThrowIfNull(design);
         var before = SafePeak(model, design);
         var withAbsorber = With(model, design, names);
-        var after = WorstPeak(withAbsorber, design);
+        var after = BandPeak(withAbsorber, design);
         var stroke = double.NaN;
-        if (double.IsFinite(after.Peak))
+        if (double.IsFinite(after.Magnitude))
         {
             var response = HarmonicAnalysis.Sweep(DampedSystem.Build(withAbsorber), [after.FrequencyHz], [UnitForce(design.Host)],
                 [design.Host, names.Mass], HarmonicMethod.Direct);
             stroke = (response.ResponseOf(names.Mass)!.Displacement[0] - response.ResponseOf(design.Host)!.Displacement[0]).Magnitude;
         }
         var mistuning = MistuningErrors.Select(e =>
-            new MistuningPoint(e, WorstPeak(With(model, design.Retuned(design.FrequencyHz * (1 + e), design.DampingRatio), names), design).Peak));
-        return new AbsorberAssessment(Band(design), before.Peak, after.Peak, after.FrequencyHz, stroke, [.. mistuning]);
+        {
+            var detuned = With(model, design.Retuned(design.FrequencyHz * (1 + e), design.DampingRatio), names);
+            return new MistuningPoint(e, BandPeak(detuned, design).Magnitude) { AtSpeeds = WorstAtSpeeds(detuned, design) };
+        });
+        var atSpeeds = design.ExcitationsHz.Select(fe => new SpeedResponse(fe, AmplificationAt(model, design, fe), AmplificationAt(withAbsorber, design, fe)));
+        var lookBefore = SafeLook(model, design);
+        var lookAfter = Look(DampedSystem.Build(withAbsorber), design);
+        var neighbours = ModesInClassicalBand(design).Select(n => new NeighbourMode(n, design.ModelFrequenciesHz[n - 1],
+            lookBefore.GetValueOrDefault(n, double.NaN), lookAfter.Others.GetValueOrDefault(n, double.NaN)));
+        return new AbsorberAssessment(Band(design), before.Magnitude, after.Magnitude, after.FrequencyHz, stroke, [.. mistuning])
+        {
+            PeakAfterMode = Owner(DampedSystem.Build(withAbsorber), design, after.FrequencyHz),
+            PeakBeforeRisingAt = before.RisingAt,
+            PeakAfterRisingAt = after.RisingAt,
+            AtSpeeds = [.. atSpeeds],
+            Neighbours = [.. neighbours],
+        };
     }
 
-    /// <summary>The absorber frequency and damping ratio that minimise the worst host peak, from <paramref name="start"/>.</summary>
+    /// <summary>The absorber frequency and damping ratio that minimise the worst host peak in the controlled mode's band, from <paramref name="start"/>.</summary>
     /// <returns>The refined design and the number of response evaluations used.</returns>
     public static (AbsorberDesign Design, int Evaluations) Optimise(StructuralModel model, AbsorberDesign start, AbsorberNames names)
     {
@@ -77,12 +238,55 @@ public static class AbsorberPerformance
         {
             evaluations++;
             var d = start.Retuned(start.FrequencyHz * Math.Exp(p[0]), start.DampingRatio * Math.Exp(p[1]));
-            var peak = WorstPeak(With(model, d, names), start).Peak;
+            var peak = DesignPeak(BandPeak(With(model, d, names), start));
             return double.IsFinite(peak) ? peak : double.MaxValue;
         }
         var best = NelderMead(Objective, [0, 0], [0.02, 0.2], relativeTolerance: 1e-9, maxEvaluations: 400);
         var design = start.Retuned(start.FrequencyHz * Math.Exp(best[0]), start.DampingRatio * Math.Exp(best[1]));
         return (design, evaluations);
+    }
+
+    /// <summary>
+    /// The absorber frequency and damping ratio that minimise <see cref="SpeedObjective"/>: the best of the undamped
+    /// absorber tuned to each excitation, <paramref name="closedForm"/>, and a simplex search from the better of them.
+    /// </summary>
+    /// <param name="model">The model without the absorber.</param>
+    /// <param name="start">A design whose mass, host, mode and excitations are kept (its tuning is replaced).</param>
+    /// <param name="closedForm">A classical design to beat (Den Hartog's); the result is never worse than it on the objective.</param>
+    /// <param name="names">The absorber's element names.</param>
+    /// <returns>The design, its objective value and the number of response evaluations used.</returns>
+    public static (AbsorberDesign Design, double Objective, int Evaluations) OptimiseForSpeed(
+        StructuralModel model, AbsorberDesign start, AbsorberDesign closedForm, AbsorberNames names)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(start);
+        ArgumentNullException.ThrowIfNull(closedForm);
+        ArgumentNullException.ThrowIfNull(names);
+        if (start.ExcitationsHz.IsDefaultOrEmpty) throw new ArgumentException("The running-speed tuning needs excitation frequencies.", nameof(start));
+        var evaluations = 0;
+        double Of(AbsorberDesign d)
+        {
+            evaluations++;
+            var v = SpeedObjective(With(model, d, names), start);
+            return double.IsFinite(v) ? v : double.MaxValue;
+        }
+        var candidates = start.ExcitationsHz.Select(fe => start.Retuned(fe, 0))
+            .Append(start.Retuned(closedForm.FrequencyHz, closedForm.DampingRatio)).ToList();
+        var scored = candidates.Select(d => (Design: d, Value: Of(d))).ToList();
+        var seed = scored.MinBy(c => c.Value);
+        // One speed and no tolerance: the undamped absorber at the speed is exact (the host does not move), nothing to search.
+        var exact = start.SpeedTolerance == 0 && start.ExcitationsHz.Length == 1;
+        if (seed.Value > 0 && !exact)
+        {
+            var f0 = seed.Design.FrequencyHz;
+            var s0 = Math.Sqrt(seed.Design.DampingRatio);
+            AbsorberDesign FromPoint(double[] p) => start.Retuned(f0 * Math.Exp(p[0]), p[1] * p[1]);
+            var best = NelderMead(p => Of(FromPoint(p)), [0, s0], [0.02, 0.1], relativeTolerance: 1e-9, maxEvaluations: 300);
+            var refined = FromPoint(best);
+            scored.Add((refined, Of(refined)));
+        }
+        var chosen = scored.MinBy(c => c.Value);
+        return (chosen.Design, chosen.Value, evaluations);
     }
 
     /// <summary>The absorber's stroke (peak relative displacement to the host, m) under the model's own loads at their running speeds.</summary>
@@ -109,15 +313,45 @@ public static class AbsorberPerformance
         return model with { Network = AbsorberTuning.Attach(model.Network, design, names) };
     }
 
-    private static (double Peak, double FrequencyHz) SafePeak(StructuralModel model, AbsorberDesign design)
+    private static ResponsePeak SafePeak(StructuralModel model, AbsorberDesign design)
     {
         // An undamped controlled mode has an unbounded resonance: say so rather than report the largest sampled value.
         var ratios = DampedSystem.Build(model).ModalDampingRatios;
         var ratio = design.ModeNumber <= ratios.Length ? ratios[design.ModeNumber - 1] : double.NaN;
-        if (!(ratio > 0)) return (double.PositiveInfinity, design.ModeFrequencyHz);
-        try { return WorstPeak(model, design); }
-        catch (NumericalFailureException) { return (double.PositiveInfinity, design.ModeFrequencyHz); }
+        var unbounded = new ResponsePeak(design.Host, ResponseQuantity.Displacement, double.PositiveInfinity, design.ModeFrequencyHz);
+        if (!(ratio > 0)) return unbounded;
+        try { return BandPeak(model, design); }
+        catch (NumericalFailureException) { return unbounded; }
     }
+
+    private static ResponsePeak PeakIn(DampedSystem system, AbsorberDesign design, double lo, double hi, int points)
+    {
+        var peak = HarmonicAnalysis.PeakResponse(system, [UnitForce(design.Host)], design.Host, lo, hi, points);
+        var k = ModalStiffness(design);
+        return peak with { Magnitude = peak.Magnitude * k, EdgeMagnitude = peak.EdgeMagnitude * k };
+    }
+
+    // The largest value over [lo, hi], its ends included (or only the peak inside when peakOnly); +∞ when unbounded.
+    private static double SafeLargest(DampedSystem system, AbsorberDesign design, double lo, double hi, bool peakOnly = false)
+    {
+        try
+        {
+            var p = PeakIn(system, design, lo, hi, SpeedBandPoints);
+            return peakOnly ? p.Magnitude : p.LargestComputed;
+        }
+        catch (NumericalFailureException) { return double.PositiveInfinity; }
+    }
+
+    private static double WorstAtSpeeds(StructuralModel withAbsorber, AbsorberDesign design) =>
+        design.ExcitationsHz.IsDefaultOrEmpty ? double.NaN : design.ExcitationsHz.Max(fe => AmplificationAt(withAbsorber, design, fe));
+
+    private static Dictionary<int, double> SafeLook(StructuralModel model, AbsorberDesign design)
+    {
+        try { return Look(DampedSystem.Build(model), design).Others; }
+        catch (NumericalFailureException) { return []; }
+    }
+
+    private static bool Same(double a, double b) => Math.Abs(a - b) <= 1e-6 * Math.Max(a, b);
 
     private static double ModalStiffness(AbsorberDesign d) => d.ModalMass * Math.Pow(2 * Math.PI * d.ModeFrequencyHz, 2);
 

@@ -8,11 +8,17 @@ namespace ModalChain.Core.Analyses.Absorbers;
 /// <summary>What to tune: where the absorber hangs, how heavy it is, which mode it controls and against what.</summary>
 /// <param name="Host">Name of the mass the absorber is attached to.</param>
 /// <param name="MassRatio">μ = absorber mass / modal mass of the controlled mode at the host, a fraction in (0, 1].</param>
-/// <param name="ModeNumber">1-based mode to control, or null to take the mode nearest an excitation frequency.</param>
-/// <param name="ExcitationsHz">Excitation frequencies in Hz (running speeds × orders) used to choose the mode when <paramref name="ModeNumber"/> is null.</param>
+/// <param name="ModeNumber">1-based mode to control, or null to take the mode nearest an excitation frequency (with none, the mode with the largest motion at the host).</param>
+/// <param name="ExcitationsHz">Excitation frequencies in Hz (running speeds × orders): they choose the mode when <paramref name="ModeNumber"/> is null, and the response is reported at them.</param>
 /// <param name="Target">The excitation the tuning is optimal for.</param>
+/// <param name="SpeedTolerance">For <see cref="AbsorberTarget.RunningSpeed"/>: the relative band ±t around each excitation over which the worst response is minimised (speed variation and mistuning together), a fraction in [0, 0.5).</param>
 public sealed record AbsorberRequest(
-    string Host, double MassRatio, int? ModeNumber, ImmutableArray<double> ExcitationsHz, AbsorberTarget Target = AbsorberTarget.Force);
+    string Host, double MassRatio, int? ModeNumber, ImmutableArray<double> ExcitationsHz, AbsorberTarget Target = AbsorberTarget.Force,
+    double SpeedTolerance = AbsorberRequest.DefaultSpeedTolerance)
+{
+    /// <summary>The default tolerance of the running-speed tuning: ±5 %.</summary>
+    public const double DefaultSpeedTolerance = 0.05;
+}
 
 /// <summary>A sized absorber: the equivalent single-mode primary it was designed for and its own mass, spring and damper.</summary>
 /// <param name="Host">Mass the absorber is attached to.</param>
@@ -25,11 +31,26 @@ public sealed record AbsorberRequest(
 /// <param name="Stiffness">Absorber spring k_a = m_a (f ω_p)² in N/m.</param>
 /// <param name="Damping">Absorber damper c_a = 2 ζ_a √(k_a m_a) in N·s/m.</param>
 /// <param name="FrequencyHz">Tuned frequency √(k_a/m_a)/2π in Hz.</param>
-/// <param name="ChosenBy">Why this mode: "--mode" or the excitation it is nearest to.</param>
+/// <param name="ChosenBy">Why this mode: "--mode", the excitation it is nearest to, or the largest motion at the host.</param>
 public sealed record AbsorberDesign(
     string Host, int ModeNumber, double ModeFrequencyHz, double ModalMass, AbsorberOptimum Optimum, AbsorberTarget Target,
     double Mass, double Stiffness, double Damping, double FrequencyHz, string ChosenBy)
 {
+    /// <summary>Natural frequencies of every mode of the model without the absorber, Hz, by mode number (index = number − 1); empty when unknown.</summary>
+    public ImmutableArray<double> ModelFrequenciesHz { get; init; } = [];
+
+    /// <summary>Mass-normalised shapes of every mode of the model without the absorber, by mode number, over <see cref="ModelDofs"/>; empty when unknown.</summary>
+    public ImmutableArray<ImmutableArray<double>> ModelShapes { get; init; } = [];
+
+    /// <summary>The degrees of freedom of <see cref="ModelShapes"/>.</summary>
+    public ImmutableArray<Dofs.Dof> ModelDofs { get; init; } = [];
+
+    /// <summary>Excitation frequencies (running speeds × orders) in Hz at which the response is reported; empty when none.</summary>
+    public ImmutableArray<double> ExcitationsHz { get; init; } = [];
+
+    /// <summary>Relative band ±t around each excitation for <see cref="AbsorberTarget.RunningSpeed"/>.</summary>
+    public double SpeedTolerance { get; init; } = AbsorberRequest.DefaultSpeedTolerance;
+
     /// <summary>ζ_a = c_a / (2√(k_a m_a)), referred to the absorber's own frequency.</summary>
     public double DampingRatio => Damping / (2 * Math.Sqrt(Stiffness * Mass));
 
@@ -88,11 +109,15 @@ public static class AbsorberTuning
             problems.Add("base-acceleration tuning needs a mass ratio below 200 %");
         if (request.ModeNumber is { } n && (n < 1 || n > modal.Modes.Length))
             problems.Add($"mode {n} does not exist; the model has {modal.Modes.Length} mode(s)");
+        if (!(request.SpeedTolerance >= 0 && request.SpeedTolerance < 0.5))
+            problems.Add(string.Create(inv, $"speed tolerance must be at least 0 and below 50 %, got {request.SpeedTolerance * 100:G4} %"));
+        if (request.Target == AbsorberTarget.RunningSpeed && request.ExcitationsHz.IsDefaultOrEmpty)
+            problems.Add("tuning for the running speed needs one: give --speed, criteria.separation.speeds or a load's speed");
         if (problems.Count > 0) return problems.ToImmutable();
 
-        var mode = request.ModeNumber is { } chosen ? modal.Modes[chosen - 1] : Nearest(modal, request, out _);
+        var mode = request.ModeNumber is { } chosen ? modal.Modes[chosen - 1] : Chosen(modal, request, host, out _);
         if (mode is null)
-            problems.Add("no mode to control: give --mode N, or state running speeds (criteria.separation.speeds, a load's speed, or --speed) so the mode nearest to them can be chosen");
+            problems.Add("no mode to control: every mode of the model is a rigid-body mode");
         else if (mode.IsRigidBody)
             problems.Add($"mode {mode.Number} is a rigid-body mode (0 Hz); an absorber cannot be tuned to it");
         else if (Math.Abs(mode.Shape[host]) < 1e-9 * mode.Shape.Max(Math.Abs))
@@ -115,19 +140,34 @@ public static class AbsorberTuning
         }
         else
         {
-            mode = Nearest(modal, request, out var excitation)!;
-            chosenBy = string.Create(inv, $"nearest to the excitation at {excitation:G6} Hz");
+            var at = modal.Matrices.Dofs.IndexOf(request.Host);
+            mode = Chosen(modal, request, at, out var excitation)!;
+            chosenBy = double.IsFinite(excitation)
+                ? string.Create(inv, $"nearest to the excitation at {excitation:G6} Hz")
+                : "no running speed given: the mode with the largest motion at the host, phi_host^2/omega^2";
         }
         var host = modal.Matrices.Dofs.IndexOf(request.Host);
         var modalMass = mode.ModalMassAt(host);
-        var optimum = ClassicalOptimum.For(request.Target, request.MassRatio);
+        var optimum = request.Target == AbsorberTarget.RunningSpeed
+            ? ClassicalOptimum.UndampedAt(request.MassRatio, NearestExcitation(request.ExcitationsHz, mode.NaturalFrequencyHz) / mode.NaturalFrequencyHz)
+            : ClassicalOptimum.For(request.Target, request.MassRatio);
         var ma = request.MassRatio * modalMass;
         var omegaA = optimum.FrequencyRatio * mode.AngularFrequency;
         var ka = ma * omegaA * omegaA;
         var ca = 2 * optimum.DampingRatio * ma * omegaA;
         return new AbsorberDesign(request.Host, mode.Number, mode.NaturalFrequencyHz, modalMass, optimum, request.Target,
-            ma, ka, ca, omegaA / (2 * Math.PI), chosenBy);
+            ma, ka, ca, omegaA / (2 * Math.PI), chosenBy)
+        {
+            ModelFrequenciesHz = [.. modal.Modes.Select(m => m.NaturalFrequencyHz)],
+            ModelShapes = [.. modal.Modes.Select(m => m.Shape)],
+            ModelDofs = modal.Matrices.Dofs.Dofs,
+            ExcitationsHz = request.ExcitationsHz.IsDefault ? [] : request.ExcitationsHz,
+            SpeedTolerance = request.SpeedTolerance,
+        };
     }
+
+    private static double NearestExcitation(ImmutableArray<double> excitationsHz, double frequencyHz) =>
+        excitationsHz.MinBy(f => Math.Abs(Math.Log(f / frequencyHz)));
 
     /// <summary>Element names for an absorber on <paramref name="host"/> that clash with nothing in <paramref name="network"/>.</summary>
     public static AbsorberNames FreeNames(Network network, string host)
@@ -158,11 +198,15 @@ public static class AbsorberTuning
             design.Damping > 0 ? [new Damper(names.Damper, design.Host, names.Mass, design.Damping)] : []);
     }
 
-    /// <summary>The non-rigid mode nearest (in ratio) to any excitation frequency, or null when there are none.</summary>
-    private static Mode? Nearest(ModalResult modal, AbsorberRequest request, out double excitationHz)
+    /// <summary>
+    /// The non-rigid mode nearest (in ratio) to any excitation frequency; with no excitation, the mode with the largest
+    /// motion at the host, φ_h²/ω² (its share of the host's static deflection under a force at the host); null when every mode is rigid.
+    /// </summary>
+    private static Mode? Chosen(ModalResult modal, AbsorberRequest request, int host, out double excitationHz)
     {
         excitationHz = double.NaN;
-        if (request.ExcitationsHz.IsDefaultOrEmpty) return null;
+        if (request.ExcitationsHz.IsDefaultOrEmpty)
+            return modal.Modes.Where(m => !m.IsRigidBody).MaxBy(m => m.Shape[host] * m.Shape[host] / (m.AngularFrequency * m.AngularFrequency));
         Mode? best = null;
         var bestDistance = double.PositiveInfinity;
         foreach (var mode in modal.Modes.Where(m => !m.IsRigidBody))

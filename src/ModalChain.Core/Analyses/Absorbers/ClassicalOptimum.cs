@@ -9,6 +9,8 @@ public enum AbsorberTarget
     BaseAcceleration,
     /// <summary>A white-noise force on the primary, minimising the variance of its displacement (Warburton 1982).</summary>
     RandomForce,
+    /// <summary>A harmonic force at the running speeds of a constant-speed machine, minimising the primary's worst displacement over the speeds ± a tolerance (Den Hartog 1956 §3.2, the undamped absorber).</summary>
+    RunningSpeed,
 }
 
 /// <summary>Closed-form optimum parameters of a viscously damped absorber on an undamped single-mode primary.</summary>
@@ -36,6 +38,7 @@ public static class ClassicalOptimum
         AbsorberTarget.Force => DenHartog(massRatio),
         AbsorberTarget.BaseAcceleration => WarburtonBaseAcceleration(massRatio),
         AbsorberTarget.RandomForce => WarburtonRandomForce(massRatio),
+        AbsorberTarget.RunningSpeed => throw new ArgumentException("The running-speed tuning depends on the speed: use UndampedAt.", nameof(target)),
         _ => throw new ArgumentOutOfRangeException(nameof(target), target, null),
     };
 
@@ -56,6 +59,17 @@ public static class ClassicalOptimum
         var f = Math.Sqrt(1 - mu / 2) / (1 + mu);
         var zeta = Math.Sqrt(3 * mu / (8 * (1 + mu) * (1 - mu / 2)));
         return new AbsorberOptimum(mu, f, zeta, f * zeta, double.NaN);
+    }
+
+    /// <summary>The classical undamped absorber for one forcing frequency: tuned to it, it cancels the primary's motion there.</summary>
+    /// <remarks>Den Hartog (1956) §3.2: with k_a/m_a = ω², X₁ = 0 at ω whatever the primary. No peak value applies (NaN).</remarks>
+    /// <param name="massRatio">μ, positive.</param>
+    /// <param name="frequencyRatio">The forcing frequency over the primary's natural frequency, positive.</param>
+    public static AbsorberOptimum UndampedAt(double massRatio, double frequencyRatio)
+    {
+        var mu = CheckedRatio(massRatio);
+        Guard.Positive(frequencyRatio, nameof(frequencyRatio));
+        return new AbsorberOptimum(mu, frequencyRatio, 0, 0, double.NaN);
     }
 
     /// <summary>Warburton's optimum for a white-noise force on the primary (displacement variance).</summary>

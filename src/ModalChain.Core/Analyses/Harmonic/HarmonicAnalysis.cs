@@ -348,7 +348,8 @@ public static class HarmonicAnalysis
     /// <remarks>
     /// Sweeps <paramref name="points"/> points (refined around the natural frequencies in the band) by the direct
     /// method at that single DOF, then narrows the bracket of every local maximum by golden-section search
-    /// (Kiefer 1953) to a relative width of 1e-7 and returns the largest. Cost: one Hessenberg reduction of the 2n state matrix plus O(n²) per point.
+    /// (Kiefer 1953) to a relative width of 1e-7 and returns the largest. When the largest sample is an end of the band
+    /// the result is flagged (<see cref="ResponsePeak.RisingAt"/>, with the end value in <see cref="ResponsePeak.EdgeMagnitude"/>). Cost: one Hessenberg reduction of the 2n state matrix plus O(n²) per point.
     /// </remarks>
     /// <param name="system">The assembled model.</param>
     /// <param name="loads">Loads acting together.</param>
@@ -358,6 +359,20 @@ public static class HarmonicAnalysis
     /// <param name="points">Coarse points in the band (at least 2).</param>
     /// <param name="quantity">Displacement, velocity or acceleration.</param>
     public static ResponsePeak PeakResponse(DampedSystem system, IReadOnlyList<Load> loads, string dof, double fromHz, double toHz,
+        int points = 200, ResponseQuantity quantity = ResponseQuantity.Displacement)
+    {
+        var band = BandPeaks(system, loads, dof, fromHz, toHz, points, quantity);
+        if (band.Unbounded is { } unbounded) return unbounded;
+        var best = band.Peaks.IsEmpty ? null : band.Peaks.MaxBy(p => p.Magnitude);
+        var sampled = band.Sampled;
+        if (best is null) return sampled;
+        if (sampled.RisingAt == SweepEdge.None || sampled.EdgeMagnitude <= best.Magnitude) return best;
+        return best with { RisingAt = sampled.RisingAt, EdgeMagnitude = sampled.EdgeMagnitude };
+    }
+
+    /// <summary>Every peak of one mass's response inside a band, refined, with the band's end values: what <see cref="PeakResponse"/> chooses from.</summary>
+    /// <returns>The refined interior peaks in ascending frequency, the peak of the samples with its edge flag, the values at both ends, and the sample where the response is unbounded (else null).</returns>
+    public static BandPeakSearch BandPeaks(DampedSystem system, IReadOnlyList<Load> loads, string dof, double fromHz, double toHz,
         int points = 200, ResponseQuantity quantity = ResponseQuantity.Displacement)
     {
         ArgumentNullException.ThrowIfNull(system);
@@ -384,18 +399,23 @@ public static class HarmonicAnalysis
         }
         var values = frequencies.Select(Magnitude).ToArray();
         var worst = Array.IndexOf(values, values.Max());
-        if (double.IsPositiveInfinity(values[worst])) return new ResponsePeak(dof, quantity, values[worst], frequencies[worst]);
+        var sampled = ResponsePeak.Of(dof, quantity, frequencies, values);
+        var start = new ResponsePeak(dof, quantity, values[0], frequencies[0]);
+        var end = new ResponsePeak(dof, quantity, values[^1], frequencies[^1]);
+        if (double.IsPositiveInfinity(values[worst]))
+            return new BandPeakSearch([], sampled, start, end, new ResponsePeak(dof, quantity, values[worst], frequencies[worst]));
 
         // A tuned absorber leaves two nearly equal peaks; refining only the highest sample would let an optimiser
-        // trade a sampled peak for an unsampled one, so every interior local maximum is refined.
-        var best = new ResponsePeak(dof, quantity, values[worst], frequencies[worst]);
+        // trade a sampled peak for an unsampled one, so every interior local maximum is refined. The ends of the band
+        // are never a peak: when the largest value sits there the result says so (ResponsePeak.RisingAt).
+        var peaks = ImmutableArray.CreateBuilder<ResponsePeak>();
         for (var i = 1; i < values.Length - 1; i++)
         {
             if (!(values[i] >= values[i - 1] && values[i] >= values[i + 1])) continue;
             var (f, v) = GoldenSectionMaximum(Magnitude, frequencies[i - 1], frequencies[i + 1]);
-            if (v > best.Magnitude) best = new ResponsePeak(dof, quantity, v, f);
+            peaks.Add(new ResponsePeak(dof, quantity, v, f));
         }
-        return best;
+        return new BandPeakSearch(peaks.ToImmutable(), sampled, start, end, null);
     }
 
     /// <summary>Maximum of a unimodal function on [lo, hi] by golden-section search (Kiefer 1953) to a relative width of 1e-7.</summary>

@@ -60,12 +60,80 @@ public sealed record SupportReaction(string Support, ImmutableArray<Complex> For
 /// <param name="Ratio">Dimensionless ratio at each frequency.</param>
 public sealed record Transmissibility(string Kind, string? Dof, string Reference, ImmutableArray<double> Ratio);
 
-/// <summary>The largest magnitude of a response over the sweep and where it occurs.</summary>
+/// <summary>Where the largest computed response of a sweep sits when it is not a peak inside the sweep.</summary>
+public enum SweepEdge
+{
+    /// <summary>The largest response is a peak inside the sweep.</summary>
+    None,
+    /// <summary>The largest response is at the sweep's lowest frequency: it rises towards lower frequencies.</summary>
+    Start,
+    /// <summary>The largest response is at the sweep's highest frequency: it rises towards higher frequencies.</summary>
+    End,
+}
+
+/// <summary>The peak of a response over a sweep and where it occurs.</summary>
+/// <remarks>
+/// A peak is a local maximum inside the sweep. When the largest computed value sits on the first or last frequency
+/// the response is still rising there and the true peak lies outside the sweep: <see cref="RisingAt"/> says which end
+/// and <see cref="EdgeMagnitude"/> holds that value, while <see cref="Magnitude"/> is the largest peak inside the sweep
+/// (or, when there is none, the edge value, a lower bound of the true peak).
+/// </remarks>
 /// <param name="Dof">Name of the mass.</param>
 /// <param name="Quantity">Displacement, velocity or acceleration.</param>
-/// <param name="Magnitude">Largest amplitude in m, m/s or m/s².</param>
-/// <param name="FrequencyHz">Frequency of the largest amplitude, in Hz.</param>
-public sealed record ResponsePeak(string Dof, ResponseQuantity Quantity, double Magnitude, double FrequencyHz);
+/// <param name="Magnitude">Amplitude of the peak in m, m/s or m/s².</param>
+/// <param name="FrequencyHz">Frequency of the peak, in Hz.</param>
+public sealed record ResponsePeak(string Dof, ResponseQuantity Quantity, double Magnitude, double FrequencyHz)
+{
+    /// <summary>The end of the sweep where the largest computed value sits; <see cref="SweepEdge.None"/> for a peak inside.</summary>
+    public SweepEdge RisingAt { get; init; } = SweepEdge.None;
+
+    /// <summary>The value at the end named by <see cref="RisingAt"/>; NaN when the largest value is a peak inside.</summary>
+    public double EdgeMagnitude { get; init; } = double.NaN;
+
+    /// <summary>True when <see cref="Magnitude"/> is a local maximum inside the sweep (not merely its end value).</summary>
+    public bool IsInterior { get; init; } = true;
+
+    /// <summary>The largest value computed over the sweep, its ends included.</summary>
+    public double LargestComputed => RisingAt == SweepEdge.None ? Magnitude : Math.Max(Magnitude, EdgeMagnitude);
+
+    /// <summary>The words a user reads when the largest response is on an end of the sweep; null otherwise.</summary>
+    public string? EdgeWarning => RisingAt switch
+    {
+        SweepEdge.Start => "rising at the start of the sweep: widen the range",
+        SweepEdge.End => "rising at the end of the sweep: widen the range",
+        _ => null,
+    };
+
+    /// <summary>The peak of <paramref name="values"/> sampled at ascending <paramref name="frequenciesHz"/>, with the edge flag.</summary>
+    /// <remarks>The largest strict-or-flat local maximum among the interior samples is the peak; the ends are flagged, never reported as the peak while an interior one exists.</remarks>
+    public static ResponsePeak Of(string dof, ResponseQuantity quantity, IReadOnlyList<double> frequenciesHz, IReadOnlyList<double> values)
+    {
+        ArgumentNullException.ThrowIfNull(frequenciesHz);
+        ArgumentNullException.ThrowIfNull(values);
+        if (values.Count == 0) throw new ArgumentException("No values.", nameof(values));
+        var n = values.Count;
+        var largest = 0;
+        for (var i = 1; i < n; i++) if (values[i] > values[largest]) largest = i;
+        var interior = -1;
+        for (var i = 1; i < n - 1; i++)
+            if (values[i] >= values[i - 1] && values[i] >= values[i + 1] && (interior < 0 || values[i] > values[interior])) interior = i;
+        var edge = n < 2 || (largest != 0 && largest != n - 1) ? SweepEdge.None : largest == 0 ? SweepEdge.Start : SweepEdge.End;
+        if (edge == SweepEdge.None) return new ResponsePeak(dof, quantity, values[largest], frequenciesHz[largest]);
+        var shown = interior >= 0 ? interior : largest;
+        return new ResponsePeak(dof, quantity, values[shown], frequenciesHz[shown])
+        {
+            RisingAt = edge, EdgeMagnitude = values[largest], IsInterior = interior >= 0,
+        };
+    }
+}
+
+/// <summary>Every refined peak of one response inside a band, with the band's ends (<see cref="HarmonicAnalysis.BandPeaks"/>).</summary>
+/// <param name="Peaks">Refined interior local maxima, in ascending frequency.</param>
+/// <param name="Sampled">The peak of the samples with its edge flag (<see cref="ResponsePeak.Of"/>).</param>
+/// <param name="Start">The value at the band's lowest frequency.</param>
+/// <param name="End">The value at the band's highest frequency.</param>
+/// <param name="Unbounded">The sample where the response is unbounded (an undamped resonance), else null.</param>
+public sealed record BandPeakSearch(ImmutableArray<ResponsePeak> Peaks, ResponsePeak Sampled, ResponsePeak Start, ResponsePeak End, ResponsePeak? Unbounded);
 
 /// <summary>The response at a machine's running speed to the loads that run at that speed.</summary>
 /// <param name="SpeedHz">Running speed in Hz.</param>
@@ -112,17 +180,18 @@ public sealed record HarmonicResult(
         return m;
     }
 
-    /// <summary>The peak of each quantity of each output over the sweep.</summary>
+    /// <summary>The peak of each quantity of each output over the sweep, flagged when the largest value is on an end of the sweep (<see cref="ResponsePeak.Of"/>).</summary>
     public ImmutableArray<ResponsePeak> Peaks()
     {
         var peaks = ImmutableArray.CreateBuilder<ResponsePeak>();
         if (FrequenciesHz.IsEmpty) return peaks.ToImmutable();
+        var order = Enumerable.Range(0, FrequenciesHz.Length).OrderBy(k => FrequenciesHz[k]).ToArray();
+        var sorted = order.Select(k => FrequenciesHz[k]).ToArray();
         foreach (var r in Responses)
             foreach (var q in Enum.GetValues<ResponseQuantity>())
             {
                 var m = Magnitudes(r, q);
-                var k = Array.IndexOf(m, m.Max());
-                peaks.Add(new ResponsePeak(r.Dof, q, m[k], FrequenciesHz[k]));
+                peaks.Add(ResponsePeak.Of(r.Dof, q, sorted, [.. order.Select(k => m[k])]));
             }
         return peaks.ToImmutable();
     }

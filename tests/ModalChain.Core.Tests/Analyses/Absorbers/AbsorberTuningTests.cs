@@ -124,10 +124,21 @@ public class AbsorberTuningTests
     }
 
     [Fact]
-    public void NoModeAndNoSpeed_AsksForOne()
+    public void NoModeAndNoSpeed_ChoosesTheModeWithTheLargestMotionAtTheHost()
     {
-        var problems = AbsorberTuning.Problems(ModalAnalysis.Solve(CaseA()), new AbsorberRequest("m1", 0.05, null, ImmutableArray<double>.Empty));
-        Assert.Contains(problems, p => p.Contains("--mode N", StringComparison.Ordinal));
+        // With no running speed the mode contributing most to the host's static deflection, φ_h²/ω², is chosen; for the
+        // single-mass model that is its only mode, and nobody is asked for --mode.
+        var single = new NetworkBuilder().AddMass("deck", 100).AddSpring("s", Network.Ground, "deck", 1e5).Build();
+        var request = new AbsorberRequest("deck", 0.05, null, ImmutableArray<double>.Empty);
+        var modal = ModalAnalysis.Solve(single);
+        Assert.Empty(AbsorberTuning.Problems(modal, request));
+        var design = AbsorberTuning.Design(modal, request);
+        Assert.Equal(1, design.ModeNumber);
+        Assert.Contains("largest motion at the host", design.ChosenBy, StringComparison.Ordinal);
+
+        var two = ModalAnalysis.Solve(CaseA());
+        var expected = two.Modes.Where(m => !m.IsRigidBody).MaxBy(m => m.Shape[0] * m.Shape[0] / (m.AngularFrequency * m.AngularFrequency))!.Number;
+        Assert.Equal(expected, AbsorberTuning.Design(two, new AbsorberRequest("m1", 0.05, null, ImmutableArray<double>.Empty)).ModeNumber);
     }
 
     [Fact]
