@@ -29,4 +29,18 @@ public static class Networks
         }
         return b.Build();
     }
+
+    /// <summary>A rows × columns lattice of equal masses (kg) and springs (N/m) to the four neighbours, fixed at every edge; masses "r-c".</summary>
+    public static Network FixedEdgeGrid(int rows, int columns, double mass = 45, double stiffness = 1.2e7)
+    {
+        var b = new NetworkBuilder { Title = $"benchmark grid {rows} × {columns}" };
+        string Name(int r, int c) => r < 1 || r > rows || c < 1 || c > columns ? Network.Ground : $"{r}-{c}";
+        for (var r = 1; r <= rows; r++)
+            for (var c = 1; c <= columns; c++) b.AddMass(Name(r, c), mass);
+        for (var r = 1; r <= rows; r++)
+            for (var c = 0; c <= columns; c++) b.AddSpring($"h{r}-{c}", Name(r, c), Name(r, c + 1), stiffness);
+        for (var c = 1; c <= columns; c++)
+            for (var r = 0; r <= rows; r++) b.AddSpring($"v{r}-{c}", Name(r, c), Name(r + 1, c), stiffness);
+        return b.Build();
+    }
 }

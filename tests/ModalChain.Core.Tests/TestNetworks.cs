@@ -39,6 +39,24 @@ public static class TestNetworks
     }
 
     /// <summary>
+    /// A rows × columns lattice of equal masses m (kg), each joined by springs k (N/m) to its four neighbours; a mass on
+    /// an edge has a spring k to ground in place of each missing neighbour (fixed edges). Masses are named "r-c", 1-based.
+    /// </summary>
+    public static Network FixedEdgeGrid(int rows, int columns, double m, double k)
+    {
+        var b = new NetworkBuilder { Title = $"{rows} × {columns} grid, fixed edges" };
+        string Name(int r, int c) => r < 1 || r > rows || c < 1 || c > columns ? Network.Ground : $"{r}-{c}";
+        for (var r = 1; r <= rows; r++)
+            for (var c = 1; c <= columns; c++) b.AddMass(Name(r, c), m);
+        for (var r = 1; r <= rows; r++)
+            for (var c = 0; c <= columns; c++)
+                b.AddSpring($"h{r}-{c}", Name(r, c), Name(r, c + 1), k);
+        for (var c = 1; c <= columns; c++)
+            for (var r = 0; r <= rows; r++) b.AddSpring($"v{r}-{c}", Name(r, c), Name(r + 1, c), k);
+        return b.Build();
+    }
+
+    /// <summary>
     /// A seeded random network of <paramref name="size"/> masses (1–100 kg): each mass belongs to one of one to three
     /// groups, each group is a random tree of springs (10 kN/m – 1 MN/m) with a few cross springs and parallel springs,
     /// and most groups (not all) are held by springs to ground or to a second support. Some dampers are added too.

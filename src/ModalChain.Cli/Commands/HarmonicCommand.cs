@@ -7,12 +7,18 @@ using ModalChain.Core.Assembly;
 using ModalChain.Core.Units;
 using ModalChain.Io.Csv;
 using ModalChain.Io.Json;
+using ModalChain.Io.Model;
 
 namespace ModalChain.Cli.Commands;
 
 /// <summary><c>modalchain harmonic FILE</c>: steady-state response to the model's harmonic loads over a frequency sweep.</summary>
 internal static class HarmonicCommand
 {
+    // The same limits as the 'frequencies' range of a model file (docs/model-format.md): a sweep of a million points
+    // took over 40 s, and --points 2147483647 failed to allocate its arrays (an internal error).
+    private const int MaxPoints = ModelReader.MaxSweepPoints;
+    private const double MaxFrequencyHz = 1e5;
+
     public static Command Create(Streams io)
     {
         var file = CommonOptions.ModelFile();
@@ -63,8 +69,11 @@ internal static class HarmonicCommand
                 if (!(f0 > 0) || !double.IsFinite(f0.Value)) return Fail(io, "--from must be a positive frequency in Hz");
                 if (!(f1 > f0) || !double.IsFinite(f1.Value))
                     return Fail(io, string.Create(CultureInfo.InvariantCulture, $"--to ({f1} Hz) must be above --from ({f0} Hz)"));
+                if (f1 > MaxFrequencyHz)
+                    return Fail(io, string.Create(CultureInfo.InvariantCulture, $"--to ({f1} Hz) is above {MaxFrequencyHz} Hz, the highest frequency a model's sweep accepts"));
                 var n = pointCount ?? range?.Points ?? 400;
                 if (n < 2) return Fail(io, "--points must be at least 2");
+                if (n > MaxPoints) return Fail(io, string.Create(CultureInfo.InvariantCulture, $"--points {n} is more than {MaxPoints}, the most a sweep accepts"));
                 spec = spec with { Frequencies = new FrequencyRange(f0.Value, f1.Value, n, range?.Spacing ?? FrequencySpacing.Linear) };
             }
             var chosen = parse.GetValue(outputs);

@@ -19,6 +19,13 @@ internal static class StudyCommand
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
+    // The same limit as a parameter study's steps (StudyRequest.Problems): the chart is drawn from these points, and
+    // --steps 100000000 ran for minutes.
+    private const int MaxSpeedSteps = 100_000;
+
+    // The highest running speed a model file accepts (6,000,000 rpm); --to 1e308 Hz printed Infinity for the crossings.
+    private const double MaxSpeedHz = 1e5;
+
     public static Command Create(Streams io)
     {
         var file = CommonOptions.ModelFile();
@@ -162,9 +169,14 @@ internal static class StudyCommand
         var a = Value(fromText, Quantity.Frequency, "--from", "speed", ValueBound.NonNegative, io);
         var b = Value(toText, Quantity.Frequency, "--to", "speed", ValueBound.NonNegative, io);
         if (a is null || b is null) return ExitCodes.InputError;
-        if (!(b.Si > a.Si))
+        if (!(b.Si > a.Si) || b.Si > MaxSpeedHz)
         {
-            io.Error.WriteLine("modalchain: error: the speed range needs 0 <= --from < --to");
+            io.Error.WriteLine(string.Create(Inv, $"modalchain: error: the speed range needs 0 <= --from < --to <= {MaxSpeedHz} Hz"));
+            return ExitCodes.InputError;
+        }
+        if (points > MaxSpeedSteps)
+        {
+            io.Error.WriteLine(string.Create(Inv, $"modalchain: error: --steps must be from 2 to {MaxSpeedSteps} (got {points})"));
             return ExitCodes.InputError;
         }
         var orders = new List<double>();

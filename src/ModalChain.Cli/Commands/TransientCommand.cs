@@ -55,8 +55,8 @@ internal static class TransientCommand
             if (stepValue is not null) settings = settings with { Step = stepValue.Si };
             if (settings.Step > settings.Duration)
                 return Fail(io, string.Create(CultureInfo.InvariantCulture, $"the step ({settings.Step:G4} s) is longer than the duration ({settings.Duration:G4} s)"));
-            if (settings.Duration / settings.Step > 5e7)
-                return Fail(io, string.Create(CultureInfo.InvariantCulture, $"{settings.Duration / settings.Step:G3} steps is more than 5e7; lengthen the step or shorten the run"));
+            if (settings.Duration / settings.Step > TransientSettings.MaxSteps)
+                return Fail(io, string.Create(CultureInfo.InvariantCulture, $"{settings.Duration / settings.Step:G3} steps is more than {TransientSettings.MaxSteps:G2}; lengthen the step or shorten the run"));
             if (parse.GetValue(method) is { } chosen) settings = settings with { Method = chosen };
             var chosenOutputs = parse.GetValue(outputs);
             if (chosenOutputs is { Length: > 0 })

@@ -3,6 +3,7 @@ using ModalChain.Core;
 using System.Collections.Immutable;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
+using ModalChain.Core.Model;
 
 namespace ModalChain.Cli.Formatting;
 
@@ -17,7 +18,7 @@ internal static class ModesTable
         o.WriteLine(n.Title);
         o.WriteLine(string.Create(Inv, $"{result.Matrices.Size} degrees of freedom, total mass {result.TotalMass:G6} kg, {result.Modes.Length} mode{(result.Modes.Length == 1 ? "" : "s")}"));
         o.WriteLine();
-        var table = new TextTable("mode", "frequency [Hz]", "omega [rad/s]", "period [s]", "damping [%]", "eff. mass [%]", "cumulative [%]", "where it moves (kinetic energy share)");
+        var table = new TextTable("mode", "frequency [Hz]", "omega [rad/s]", "period [s]", "damping [%]", "eff. mass [%]", "cumulative [%]", "most strained spring", "where it moves (kinetic energy share)");
         foreach (var m in result.Modes)
         {
             table.Add(
@@ -28,6 +29,7 @@ internal static class ModesTable
                 m.IsRigidBody ? "-" : (100 * Io.Json.ModesJson.DampingRatioOf(damping, m)).ToString("F2", Inv),
                 (100 * m.EffectiveMassFraction).ToString("F1", Inv),
                 (100 * m.CumulativeEffectiveMassFraction).ToString("F1", Inv),
+                MostStrained(n, m),
                 Dominant(result, m));
         }
         table.Write(o, lastColumnLeftAligned: true);
@@ -65,6 +67,14 @@ internal static class ModesTable
             $"Quality: max residual {result.Quality.MaxResidual:0.0E+00}, max M-orthogonality error {result.Quality.MaxOrthogonalityError:0.0E+00} ({result.Algorithm})."));
         o.WriteLine();
         o.WriteLine("Caution: " + Cautions.Text);
+    }
+
+    /// <summary>The spring with the largest share of the mode's strain energy (the one whose stiffness moves the mode most), with that share.</summary>
+    private static string MostStrained(Network network, Mode mode)
+    {
+        if (mode.IsRigidBody || network.Springs.Length == 0) return "-";
+        var i = Enumerable.Range(0, network.Springs.Length).MaxBy(k => mode.StrainEnergyShare[k]);
+        return string.Create(Inv, $"{network.Springs[i].Name} {100 * mode.StrainEnergyShare[i]:F0}%");
     }
 
     private static string Dominant(ModalResult result, Mode mode)

@@ -83,10 +83,10 @@ public sealed record Network
     public double TotalMass => Masses.Sum(m => m.Kilograms);
 
     /// <summary>True when <paramref name="node"/> names a support (including ground).</summary>
-    public bool IsSupport(string node) => Supports.Any(s => s.Name == node);
+    public bool IsSupport(string node) => NodeNames.Of(this).Supports.Contains(node);
 
     /// <summary>True when <paramref name="node"/> names a mass.</summary>
-    public bool IsMass(string node) => Masses.Any(m => m.Name == node);
+    public bool IsMass(string node) => NodeNames.Of(this).Masses.Contains(node);
 
     /// <summary>Returns a copy with the masses in another order (same elements otherwise).</summary>
     /// <param name="order">A permutation of 0..n−1: entry i is the old index of the new i-th mass.</param>
@@ -95,4 +95,23 @@ public sealed record Network
         Guard.Permutation(order, Masses.Length, nameof(order));
         return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links };
     }
+}
+
+/// <summary>The node names of a network as hash sets, built once per network on first use, so look-ups cost O(1).</summary>
+/// <remarks>Kept outside the record (in a weak table) so that record equality and <c>with</c> copies are unchanged.</remarks>
+internal sealed class NodeNames
+{
+    private static readonly System.Runtime.CompilerServices.ConditionalWeakTable<Network, NodeNames> Table = new();
+
+    private NodeNames(Network network)
+    {
+        Masses = network.Masses.Select(m => m.Name).ToHashSet(StringComparer.Ordinal);
+        Supports = network.Supports.Select(s => s.Name).ToHashSet(StringComparer.Ordinal);
+    }
+
+    public HashSet<string> Masses { get; }
+
+    public HashSet<string> Supports { get; }
+
+    public static NodeNames Of(Network network) => Table.GetValue(network, n => new NodeNames(n));
 }

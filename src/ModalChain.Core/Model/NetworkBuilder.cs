@@ -11,6 +11,8 @@ public sealed class NetworkBuilder
     private readonly List<Damper> _dampers = [];
     private readonly List<Link> _links = [];
     private readonly HashSet<string> _names = [Network.Ground];
+    private readonly HashSet<string> _springNames = [];
+    private readonly HashSet<string> _damperNames = [];
 
     /// <summary>Title of the network being built.</summary>
     public string Title { get; set; } = "Untitled network";
@@ -47,7 +49,7 @@ public sealed class NetworkBuilder
     {
         Guard.NonNegative(stiffness, nameof(stiffness));
         CheckEnds(name, nodeA, nodeB);
-        if (_springs.Any(s => s.Name == name))
+        if (!_springNames.Add(name))
             throw new ArgumentException($"A spring named '{name}' already exists.", nameof(name));
         _springs.Add(new Spring(name, nodeA, nodeB, stiffness));
         return this;
@@ -58,7 +60,7 @@ public sealed class NetworkBuilder
     {
         Guard.NonNegative(coefficient, nameof(coefficient));
         CheckEnds(name, nodeA, nodeB);
-        if (_dampers.Any(d => d.Name == name))
+        if (!_damperNames.Add(name))
             throw new ArgumentException($"A damper named '{name}' already exists.", nameof(name));
         _dampers.Add(new Damper(name, nodeA, nodeB, coefficient));
         return this;

@@ -3,15 +3,14 @@ using System.Runtime.InteropServices;
 
 namespace ModalChain.Core.Solvers;
 
-/// <summary>Sparse Cholesky factorisation P A Pᵀ = L Lᵀ of a symmetric positive definite matrix, ordered by minimum degree.</summary>
+/// <summary>Sparse Cholesky factorisation P A Pᵀ = L Lᵀ of a symmetric positive definite matrix, ordered by approximate minimum degree.</summary>
 /// <remarks>
-/// Ordering and symbolic factorisation come from one pass of the elimination game on the graph of A: at each step
-/// the uneliminated node of least degree is eliminated and its neighbours are joined into a clique (the minimum
-/// degree rule of Tinney &amp; Walker, 1967; George &amp; Liu, Computer Solution of Large Sparse Positive Definite
-/// Systems, 1981, ch. 5). The neighbours at elimination are exactly the sparsity pattern of that column of L.
-/// The numeric factorisation is left-looking by columns (George &amp; Liu, ch. 2). A solve is a permuted forward and
-/// back substitution, O(nnz(L)), in a scratch buffer owned by the factor: one factor must not be used by two threads
-/// at once. A non-positive pivot throws <see cref="NumericalFailureException"/> (the matrix is not positive definite).
+/// Ordering and the pattern of L come from <see cref="SparseLdltPattern"/> (approximate minimum degree, Amestoy,
+/// Davis &amp; Duff, 1996, and the elimination tree; George &amp; Liu, Computer Solution of Large Sparse Positive
+/// Definite Systems, 1981, ch. 5). The numeric factorisation is left-looking by columns (George &amp; Liu, ch. 2).
+/// A solve is a permuted forward and back substitution, O(nnz(L)), in a scratch buffer owned by the factor: one
+/// factor must not be used by two threads at once. A non-positive pivot throws <see cref="NumericalFailureException"/>
+/// (the matrix is not positive definite).
 /// </remarks>
 public sealed class SparseCholesky
 {
@@ -41,33 +40,14 @@ public sealed class SparseCholesky
     {
         ArgumentNullException.ThrowIfNull(matrix);
         var n = matrix.Size;
-        var (permutation, inverse, pattern) = MinimumDegreePattern(matrix);
-
-        // CSC layout of L: column k holds its diagonal, then its off-diagonal rows ascending.
-        var columnStart = new int[n + 1];
-        for (var k = 0; k < n; k++) columnStart[k + 1] = columnStart[k] + 1 + pattern[k].Length;
-        var rows = new int[columnStart[n]];
-        for (var k = 0; k < n; k++)
-        {
-            rows[columnStart[k]] = k;
-            pattern[k].CopyTo(rows, columnStart[k] + 1);
-        }
-
-        // For each row j, the columns k < j with L[j,k] ≠ 0 and the position of that entry in column k.
-        var rowCount = new int[n + 1];
-        for (var k = 0; k < n; k++)
-            for (var p = columnStart[k] + 1; p < columnStart[k + 1]; p++) rowCount[rows[p] + 1]++;
-        for (var j = 0; j < n; j++) rowCount[j + 1] += rowCount[j];
-        var rowColumns = new int[rowCount[n]];
-        var rowPositions = new int[rowCount[n]];
-        var fillPointer = (int[])rowCount.Clone();
-        for (var k = 0; k < n; k++)
-            for (var p = columnStart[k] + 1; p < columnStart[k + 1]; p++)
-            {
-                var slot = fillPointer[rows[p]]++;
-                rowColumns[slot] = k;
-                rowPositions[slot] = p;
-            }
+        var pattern = SparseLdltPattern.Analyse(matrix);
+        var permutation = pattern.Permutation;
+        var inverse = pattern.Inverse;
+        var columnStart = pattern.ColumnStart;
+        var rows = pattern.Rows;
+        var rowCount = pattern.RowStart;
+        var rowColumns = pattern.RowColumns;
+        var rowPositions = pattern.RowPositions;
 
         var values = new double[rows.Length];
         var work = new double[n];
@@ -136,57 +116,5 @@ public sealed class SparseCholesky
             Unsafe.Add(ref y, j) = sum / Unsafe.Add(ref values, first);
         }
         for (var k = 0; k < n; k++) x[Unsafe.Add(ref perm, k)] = Unsafe.Add(ref y, k);
-    }
-
-    /// <summary>The elimination game with the minimum degree rule: ordering, its inverse and the pattern of each column of L.</summary>
-    private static (int[] Permutation, int[] Inverse, int[][] Pattern) MinimumDegreePattern(SymmetricSparseMatrix matrix)
-    {
-        var n = matrix.Size;
-        var adjacency = new HashSet<int>[n];
-        for (var i = 0; i < n; i++)
-        {
-            adjacency[i] = [];
-            foreach (var c in matrix.Row(i).Columns.Span)
-                if (c != i) adjacency[i].Add(c);
-        }
-
-        // Ties broken by the original index, so the ordering is deterministic.
-        var queue = new SortedSet<(int Degree, int Node)>();
-        for (var i = 0; i < n; i++) queue.Add((adjacency[i].Count, i));
-
-        var permutation = new int[n];
-        var inverse = new int[n];
-        var neighboursAtElimination = new int[n][];
-        for (var k = 0; k < n; k++)
-        {
-            var (_, v) = queue.Min;
-            queue.Remove(queue.Min);
-            permutation[k] = v;
-            inverse[v] = k;
-            var neighbours = adjacency[v].ToArray();
-            neighboursAtElimination[v] = neighbours;
-            foreach (var a in neighbours)
-            {
-                queue.Remove((adjacency[a].Count, a));
-                adjacency[a].Remove(v);
-            }
-            for (var x = 0; x < neighbours.Length; x++)
-                for (var y = x + 1; y < neighbours.Length; y++)
-                {
-                    adjacency[neighbours[x]].Add(neighbours[y]);
-                    adjacency[neighbours[y]].Add(neighbours[x]);
-                }
-            foreach (var a in neighbours) queue.Add((adjacency[a].Count, a));
-            adjacency[v] = [];
-        }
-
-        var pattern = new int[n][];
-        for (var k = 0; k < n; k++)
-        {
-            var column = neighboursAtElimination[permutation[k]].Select(o => inverse[o]).ToArray();
-            Array.Sort(column);
-            pattern[k] = column;
-        }
-        return (permutation, inverse, pattern);
     }
 }

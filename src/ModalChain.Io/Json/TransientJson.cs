@@ -1,3 +1,4 @@
+using System.Collections.Immutable;
 using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Transient;
@@ -18,11 +19,16 @@ namespace ModalChain.Io.Json;
 public static class TransientJson
 {
     /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
-    public static void Write(Stream stream, ModelDocument document, TransientResult result, IReadOnlyList<string> loads, string toolVersion)
+    /// <remarks>The last argument chooses the recorded samples to write (ascending indices into <see cref="TransientResult.Times"/>), for
+    /// example from <see cref="ThinnedSamples"/>; null writes every recorded sample. Peaks and RMS are always those of the
+    /// whole run.</remarks>
+    public static void Write(Stream stream, ModelDocument document, TransientResult result, IReadOnlyList<string> loads, string toolVersion,
+        IReadOnlyList<int>? samples = null)
     {
         ArgumentNullException.ThrowIfNull(document);
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(loads);
+        IEnumerable<double> Pick(ImmutableArray<double> values) => samples is null ? values : samples.Select(i => values[i]);
         using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
         w.WriteStartObject();
         w.WriteString("title", MarkupText.Clean(document.Network.Title));
@@ -36,7 +42,17 @@ public static class TransientJson
         w.WriteStartArray("loads");
         foreach (var l in loads) w.WriteStringValue(l);
         w.WriteEndArray();
-        w.Array("time_s", result.Times);
+        if (samples is not null)
+        {
+            w.WriteStartObject("history_samples");
+            w.WriteNumber("recorded", result.Times.Length);
+            w.WriteNumber("written", samples.Count);
+            w.WriteString("rule", samples.Count == result.Times.Length
+                ? "every recorded sample"
+                : "thinned: the first and last sample and, for every history, its smallest and largest value in each of equal time buckets, so every local extreme at that resolution and every history's largest value survive");
+            w.WriteEndObject();
+        }
+        w.Array("time_s", Pick(result.Times));
 
         w.WriteStartArray("responses");
         foreach (var r in result.Responses.Where(r => IsMotion(r.Quantity)))
@@ -46,7 +62,7 @@ public static class TransientJson
             w.WriteString("quantity", QuantityName(r.Quantity));
             w.WriteString("unit", r.Unit);
             w.WriteString("amplitude", "instantaneous");
-            w.Array("values", r.Values);
+            w.Array("values", Pick(r.Values));
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -59,7 +75,7 @@ public static class TransientJson
             w.WriteString("kind", r.Quantity == ResponseQuantity.SpringForce ? "spring" : "damper");
             w.WriteString("unit", "N");
             w.WriteString("amplitude", "instantaneous");
-            w.Array("values", r.Values);
+            w.Array("values", Pick(r.Values));
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -71,7 +87,7 @@ public static class TransientJson
             w.WriteString("support", r.Name);
             w.WriteString("unit", "N");
             w.WriteString("amplitude", "instantaneous");
-            w.Array("values", r.Values);
+            w.Array("values", Pick(r.Values));
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -111,6 +127,40 @@ public static class TransientJson
         w.WriteEndArray();
         w.WriteString("caution", Cautions.Text);
         w.WriteEndObject();
+    }
+
+    /// <summary>
+    /// At most <paramref name="maxSamples"/> recorded samples (or 2 + 2 per history when that is more) that keep the shape of every history: the first and the
+    /// last, and for each history the smallest and the largest value in each of equal buckets of samples (so every
+    /// history's largest and smallest recorded value is kept exactly). Every sample when the run recorded no more.
+    /// </summary>
+    public static ImmutableArray<int> ThinnedSamples(TransientResult result, int maxSamples)
+    {
+        ArgumentNullException.ThrowIfNull(result);
+        ArgumentOutOfRangeException.ThrowIfLessThan(maxSamples, 4);
+        var n = result.Times.Length;
+        if (n <= maxSamples) return [.. Enumerable.Range(0, n)];
+        var histories = Math.Max(1, result.Responses.Length);
+        var buckets = Math.Max(1, (maxSamples - 2) / (2 * histories));
+        var picked = new SortedSet<int> { 0, n - 1 };
+        foreach (var r in result.Responses)
+        {
+            var v = r.Values;
+            for (var b = 0; b < buckets; b++)
+            {
+                var from = (int)((long)b * n / buckets);
+                var to = (int)((long)(b + 1) * n / buckets);
+                int lo = from, hi = from;
+                for (var k = from + 1; k < to; k++)
+                {
+                    if (v[k] < v[lo]) lo = k;
+                    if (v[k] > v[hi]) hi = k;
+                }
+                picked.Add(lo);
+                picked.Add(hi);
+            }
+        }
+        return [.. picked];
     }
 
     /// <summary>The method's name as written in model files and on the command line.</summary>

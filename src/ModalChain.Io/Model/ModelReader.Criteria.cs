@@ -10,7 +10,8 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     private static readonly Range MarginRange = new(0, 0.95, MinimumInclusive: false);
-    private static readonly Range SeparationSpeedRange = new(0, 1e5, MinimumInclusive: false);      // Hz
+    // Hz; 0.001 Hz (0.06 rpm) is slower than any machine, and a speed of 1e-320 rpm printed an infinite separation.
+    private static readonly Range SeparationSpeedRange = new(1e-3, 1e5);
     private static readonly Range OrderRange = new(0, 1000, MinimumInclusive: false);
     private static readonly Range LimitRange = new(0, 1e6, MinimumInclusive: false);
 

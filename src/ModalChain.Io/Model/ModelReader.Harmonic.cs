@@ -10,7 +10,8 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     private static readonly Range SweepFrequencyRange = new(0, 1e5, MinimumInclusive: false); // Hz
-    private const int MaxSweepPoints = 1_000_000;
+    /// <summary>The most points a sweep may have (a million points of JSON output took over 40 s).</summary>
+    public const int MaxSweepPoints = 100_000;
 
     /// <summary>Reads 'harmonic': the loads, frequencies, outputs and method of a steady-state sweep.</summary>
     private static HarmonicSpec? ReadHarmonic(YMapping top, ImmutableHashSet<string> masses, ImmutableArray<Load> loads, ReadContext context)

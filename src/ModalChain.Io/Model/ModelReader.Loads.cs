@@ -10,7 +10,7 @@ public static partial class ModelReader
 {
     private static readonly Range ForceRange = new(0, 1e10);              // N
     private static readonly Range MassRadiusRange = new(0, 1e4);          // kg·m
-    private static readonly Range SpeedRange = new(0, 1e5, MinimumInclusive: false); // Hz
+    private static readonly Range SpeedRange = new(1e-3, 1e5); // Hz; as the separation criterion's speeds
     private static readonly Range PhaseRange = new(-100, 100);            // rad, about ±16 turns
     private static readonly Range MotionRange = new(0, 1e6);              // m, m/s or m/s²
 

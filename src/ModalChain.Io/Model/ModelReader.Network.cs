@@ -18,12 +18,15 @@ public static partial class ModelReader
     [GeneratedRegex(@"^[\p{L}\p{N}_][\p{L}\p{N}_.\-]*$")]
     private static partial Regex NamePattern();
 
-    private static CoreNetwork? ReadNetwork(YMapping top, ReadContext context, string defaultTitle)
+    private static CoreNetwork? ReadNetwork(YMapping top, ReadContext context, string defaultTitle, Repeated repeated)
     {
         var builder = new NetworkBuilder { Title = defaultTitle };
         if (top["title"] is { } titleNode && context.Text(titleNode, "'title'") is { } title) builder.Title = title;
 
         var massesNode = top["masses"];
+        var nodes = new HashSet<string> { CoreNetwork.Ground };
+        if (massesNode is null or YScalar { IsPlainNull: true } && top["repeat"] is not null)
+            massesNode = new YMapping(top.Position, []); // every mass is generated
         if (massesNode is null)
         {
             context.Error(top, "the model has no 'masses' section; a network needs at least one mass");
@@ -35,15 +38,14 @@ public static partial class ModelReader
             return null;
         }
         if (context.Mapping(massesNode, "'masses'") is not { } masses) return null;
-        if (masses.Entries.Length == 0)
+        if (masses.Entries.Length == 0 && repeated.Masses.Count == 0)
         {
             // Its only entries were already reported (e.g. a key that is a list): "empty" would be a second, wrong error.
-            if (masses.DroppedKeys) return null;
+            if (masses.DroppedKeys || (top["repeat"] is not null && context.HasErrors)) return null;
             context.Error(massesNode, "'masses' is empty; a network needs at least one mass, e.g. 'deck: 3200 kg'");
             return null;
         }
 
-        var nodes = new HashSet<string> { CoreNetwork.Ground };
         foreach (var (key, value) in masses.Entries)
         {
             if (!CheckName(key, context, "mass")) continue;
@@ -70,13 +72,16 @@ public static partial class ModelReader
             if (kg is { } m && !context.HasErrors) builder.AddMass(key.Value, m, at);
         }
 
+        AddRepeatedMasses(repeated, builder, nodes, context);
         ReadSupports(top, context, builder, nodes);
         var springs = ReadTwoNodeSection(top, "springs", "spring", "stiffness", Quantity.Stiffness, StiffnessRange, nodes, context);
         var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
-        var links = ReadLinks(top, context, masses.Entries.Select(e => e.Key.Value).ToHashSet(), nodes);
+        CheckRepeatedSprings(repeated, springs, context);
+        var links = ReadLinks(top, context, masses.Entries.Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
         if (context.HasErrors) return null;
 
         foreach (var (name, a, b, k) in springs) builder.AddSpring(name, a, b, k);
+        foreach (var (name, a, b, k, _) in repeated.Springs) builder.AddSpring(name, a, b, k);
         foreach (var (name, a, b, c) in dampers) builder.AddDamper(name, a, b, c);
         foreach (var (name, linked) in links) builder.AddLink(name, linked);
         var network = builder.Build();

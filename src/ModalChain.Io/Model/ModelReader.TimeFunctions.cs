@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using ModalChain.Core.Model;
 using ModalChain.Core.Units;
 using ModalChain.Io.Csv;
+using ModalChain.Io.Files;
 using ModalChain.Io.Yaml;
 
 namespace ModalChain.Io.Model;
@@ -138,15 +139,16 @@ public static partial class ModelReader
         }
         var directory = Path.GetDirectoryName(context.File);
         var path = Path.IsPathRooted(name) || string.IsNullOrEmpty(directory) ? name : Path.Combine(directory, name);
-        string text;
-        try { text = File.ReadAllText(path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
+        if (InputFile.ReadAllBytes(path, InputFile.MaximumTableBytes, "time table", out var error) is not { } bytes)
         {
-            context.Error(fileNode, e is FileNotFoundException or DirectoryNotFoundException
+            context.Error(fileNode, error == "file not found"
                 ? $"{what}: table file '{path}' not found (it is looked for next to the model file)"
-                : $"{what}: cannot read table file '{path}': {e.Message}");
+                : $"{what}: cannot read table file '{path}': {error}");
             return null;
         }
+        // As File.ReadAllText: UTF-8 unless a byte-order mark says otherwise.
+        string text;
+        using (var reader = new StreamReader(new MemoryStream(bytes), System.Text.Encoding.UTF8, detectEncodingFromByteOrderMarks: true)) text = reader.ReadToEnd();
         var table = TimeTableCsv.Parse(text, path, context.Diagnostics);
         if (table is null) return null;
         return new TableFunction([.. table.Value.Times.Select(t => t * timeScale)], [.. table.Value.Values.Select(v => v * valueScale)]);

@@ -11,7 +11,7 @@ public static partial class ModelReader
     private static readonly Range InitialDisplacementRange = new(-100, 100);   // m
     private static readonly Range InitialVelocityRange = new(-1e3, 1e3);      // m/s
     private static readonly Range StepRange = new(0, 1e4, MinimumInclusive: false); // s
-    private const double MaxSteps = 5e7;
+    private const double MaxSteps = TransientSettings.MaxSteps;
 
     private static readonly string[] TimedLoadKinds = ["force", "unbalance", "base-motion"];
     private static readonly string[] TransientMethods = ["newmark", "hht", "exact", "modal"];

@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using System.Security.Cryptography;
 using System.Text;
 using ModalChain.Io.Diagnostics;
+using ModalChain.Io.Files;
 using ModalChain.Io.Yaml;
 
 namespace ModalChain.Io.Model;
@@ -14,19 +15,14 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "links", "damping", "loads", "harmonic", "transient", "criteria"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "links", "damping", "loads", "harmonic", "transient", "criteria", "repeat"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
     {
         ArgumentNullException.ThrowIfNull(path);
-        byte[] bytes;
-        try { bytes = File.ReadAllBytes(path); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
-        {
-            var reason = e is FileNotFoundException or DirectoryNotFoundException ? "file not found" : "cannot read the file: " + e.Message;
-            return new LoadResult(null, [new Diagnostic(Severity.Error, path, new SourcePosition(1, 1), reason)]);
-        }
+        if (InputFile.ReadAllBytes(path, InputFile.MaximumModelBytes, "model file", out var error) is not { } bytes)
+            return new LoadResult(null, [new Diagnostic(Severity.Error, path, new SourcePosition(1, 1), error!)]);
         return Read(bytes, path);
     }
 
@@ -36,8 +32,20 @@ public static partial class ModelReader
     private static LoadResult Read(byte[] bytes, string file)
     {
         var context = new ReadContext(file);
-        if (Decode(bytes, context) is not { } text) return Finish(context, null);
-        var root = YamlTree.Load(text, file, context.Diagnostics);
+        YNode? root;
+        if (bytes is [0xFF, 0xFE, ..] or [0xFE, 0xFF, ..] || !System.Text.Unicode.Utf8.IsValid(bytes))
+        {
+            if (Decode(bytes, context) is not { } text) return Finish(context, null);
+            root = YamlTree.Load(text, file, context.Diagnostics);
+        }
+        else
+        {
+            // Valid UTF-8 (the usual case) is decoded as the parser reads it, not held a second time as one string.
+            var bom = 0;
+            while (bytes.AsSpan(bom) is [0xEF, 0xBB, 0xBF, ..]) bom += 3; // as TrimStart('\uFEFF') on the decoded text
+            using var reader = new StreamReader(new MemoryStream(bytes, bom, bytes.Length - bom, writable: false), StrictUtf8, detectEncodingFromByteOrderMarks: false);
+            root = YamlTree.Load(reader, () => Decode(bytes, context) ?? "", file, context.Diagnostics);
+        }
         if (root is null || (root is YScalar s && s.IsPlainNull))
         {
             if (!context.HasErrors) context.Error(new SourcePosition(1, 1), "the model file is empty; it needs at least a 'masses' section");
@@ -46,8 +54,9 @@ public static partial class ModelReader
         if (context.Mapping(root, "the model file") is not { } top) return Finish(context, null);
 
         context.RejectUnknownKeys(top, "the model file", TopLevelKeys);
-        var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file));
-        var massNames = DeclaredNames(top, "masses");
+        var repeated = ReadRepeat(top, context);
+        var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file), repeated);
+        var massNames = DeclaredNames(top, "masses").Union(repeated.MassNames);
         var supportNames = DeclaredNames(top, "supports");
         var damping = ReadDamping(top, context);
         var loads = ReadLoads(top, massNames, supportNames, context);
@@ -79,6 +88,8 @@ public static partial class ModelReader
     {
         if (bytes is [0xFF, 0xFE, ..]) return Encoding.Unicode.GetString(bytes, 2, bytes.Length - 2);
         if (bytes is [0xFE, 0xFF, ..]) return Encoding.BigEndianUnicode.GetString(bytes, 2, bytes.Length - 2);
+        try { return StrictUtf8.GetString(bytes).TrimStart('\uFEFF'); }
+        catch (DecoderFallbackException) { } // found again below, with its line and column
         var chars = new char[bytes.Length];
         var status = System.Text.Unicode.Utf8.ToUtf16(bytes, chars, out var read, out var written, replaceInvalidSequences: false);
         if (status == System.Buffers.OperationStatus.Done) return new string(chars, 0, written).TrimStart('\uFEFF');
@@ -90,6 +101,8 @@ public static partial class ModelReader
             $"the file is not UTF-8 text (byte 0x{bytes[read]:X2} here); save it with UTF-8 encoding");
         return null;
     }
+
+    private static readonly UTF8Encoding StrictUtf8 = new(encoderShouldEmitUTF8Identifier: false, throwOnInvalidBytes: true);
 
     private static LoadResult Finish(ReadContext context, ModelDocument? model) =>
         new(model, [.. context.Diagnostics.OrderBy(d => d.Position.Line).ThenBy(d => d.Position.Column)]);

@@ -14,8 +14,14 @@ internal readonly record struct Range(double Minimum, double Maximum, bool Minim
 }
 
 /// <summary>State shared by the section readers of one file: the file name and the diagnostics found so far.</summary>
-internal sealed partial class ReadContext(string file)
+internal sealed partial class ReadContext
 {
+    public ReadContext(string file)
+    {
+        File = file;
+        t_suggestionWork = 0;
+    }
+
     // "3,5 kg": a decimal comma, as written in much of Europe; model files use the invariant decimal point.
     [System.Text.RegularExpressions.GeneratedRegex(@"^\s*([+-]?\d+),(\d+)")]
     private static partial System.Text.RegularExpressions.Regex DecimalComma();
@@ -24,10 +30,23 @@ internal sealed partial class ReadContext(string file)
     [System.Text.RegularExpressions.GeneratedRegex(@"^(\s*[+-]?\d{1,3}) (\d{3}\b)")]
     private static partial System.Text.RegularExpressions.Regex GroupedDigits();
 
-    public string File { get; } = file;
+    public string File { get; }
     public List<Diagnostic> Diagnostics { get; } = [];
     public Dictionary<string, SourcePosition> Positions { get; } = [];
-    public bool HasErrors => Diagnostics.Any(d => d.Severity == Severity.Error);
+
+    // Section readers ask HasErrors once per element; scanning the whole list each time made a file with many
+    // warnings or errors quadratic. Diagnostics are only ever appended, so only the new ones are looked at.
+    private int _scanned;
+    private bool _hasErrors;
+
+    public bool HasErrors
+    {
+        get
+        {
+            for (; !_hasErrors && _scanned < Diagnostics.Count; _scanned++) _hasErrors = Diagnostics[_scanned].Severity == Severity.Error;
+            return _hasErrors;
+        }
+    }
 
     public void Error(YNode node, string message) => Error(node.Position, message);
     public void Error(SourcePosition at, string message) => Diagnostics.Add(new Diagnostic(Severity.Error, File, at, message));
@@ -74,30 +93,42 @@ internal sealed partial class ReadContext(string file)
             Error(node, $"{what} must be a {UnitTable.Describe(quantity)} value such as '{Example(quantity)}'");
             return null;
         }
+        if (!_parsed.TryGetValue((scalar.Value, quantity), out var v))
+        {
+            if (Parse(scalar, quantity, what) is not { } parsed) return null;
+            _parsed[(scalar.Value, quantity)] = v = parsed;
+        }
+        var belowMinimum = range.MinimumInclusive ? v < range.Minimum : v <= range.Minimum;
+        if (belowMinimum || v > range.Maximum)
+        {
+            Error(scalar, $"{what} is {Si(v, quantity)}, {RangeText(range, quantity, v)}");
+            return null;
+        }
+        return v;
+    }
+
+    // Large models repeat a few values ("40 kg", "5 MN/m") many thousands of times; each text is parsed once.
+    private readonly Dictionary<(string Text, Quantity Quantity), double> _parsed = [];
+
+    private double? Parse(YScalar scalar, Quantity quantity, string what)
+    {
         if (DecimalComma().IsMatch(scalar.Value))
         {
-            Error(node, $"{what}: '{scalar.Value}' uses a decimal comma; write the decimal point, e.g. '{DecimalComma().Replace(scalar.Value, "$1.$2")}'");
+            Error(scalar, $"{what}: '{scalar.Value}' uses a decimal comma; write the decimal point, e.g. '{DecimalComma().Replace(scalar.Value, "$1.$2")}'");
             return null;
         }
         if (GroupedDigits().IsMatch(scalar.Value))
         {
-            Error(node, $"{what}: '{scalar.Value}' groups digits with spaces; write the number without separators, e.g. '{GroupedDigits().Replace(scalar.Value, "$1$2")}'");
+            Error(scalar, $"{what}: '{scalar.Value}' groups digits with spaces; write the number without separators, e.g. '{GroupedDigits().Replace(scalar.Value, "$1$2")}'");
             return null;
         }
         var parsed = QuantityParser.Parse(scalar.Value, quantity);
         if (!parsed.Succeeded)
         {
-            Error(node, $"{what}: {parsed.Error}");
+            Error(scalar, $"{what}: {parsed.Error}");
             return null;
         }
-        var v = parsed.Value;
-        var belowMinimum = range.MinimumInclusive ? v < range.Minimum : v <= range.Minimum;
-        if (belowMinimum || v > range.Maximum)
-        {
-            Error(node, $"{what} is {Si(v, quantity)}, {RangeText(range, quantity, v)}");
-            return null;
-        }
-        return v;
+        return parsed.Value;
     }
 
     /// <summary>Reads a scalar string; null with an error when the node is not a non-empty scalar.</summary>
@@ -128,7 +159,9 @@ internal sealed partial class ReadContext(string file)
     {
         var magnitude = Math.Abs(value);
         var format = value == 0 || (magnitude >= 1e-3 && magnitude < 1e9) ? "0.######" : "0.###e+0";
-        return value.ToString(format, System.Globalization.CultureInfo.InvariantCulture) + " " + UnitTable.SiSymbol(quantity);
+        // A ratio's SI unit is the plain number 1, which is not written ("-2", not "-2 1").
+        var symbol = UnitTable.SiSymbol(quantity);
+        return value.ToString(format, System.Globalization.CultureInfo.InvariantCulture) + (symbol == "1" ? "" : " " + symbol);
     }
 
     private static string Example(Quantity quantity) => quantity switch
@@ -137,21 +170,48 @@ internal sealed partial class ReadContext(string file)
         _ => "12 " + UnitTable.Symbols(quantity)[0],
     };
 
-    /// <summary>" (did you mean 'x'?)" for the closest allowed word within two edits, or empty.</summary>
+    /// <summary>" (did you mean 'x'?)" for the closest allowed word within two edits (the first such in order), or empty.</summary>
+    /// <remarks>
+    /// A file with thousands of wrong names in a model of thousands of nodes would cost their product in comparisons,
+    /// so the comparisons of one read (one thread) share a budget; past it, suggestions are left out.
+    /// </remarks>
     public static string Suggest(string word, IEnumerable<string> allowed)
     {
-        var best = allowed.Select(a => (a, d: EditDistance(word.ToLowerInvariant(), a.ToLowerInvariant()))).OrderBy(p => p.d).FirstOrDefault();
-        return best.a is not null && best.d <= 2 ? $" (did you mean '{best.a}'?)" : "";
+        var lower = word.ToLowerInvariant();
+        string? best = null;
+        var bestDistance = 3;
+        foreach (var a in allowed)
+        {
+            if (++t_suggestionWork > SuggestionBudget) return "";
+            if (Math.Abs(a.Length - lower.Length) >= bestDistance) continue; // the distance is at least the length difference
+            t_suggestionWork += (long)a.Length * lower.Length;
+            var d = EditDistance(lower, a.ToLowerInvariant());
+            if (d < bestDistance)
+            {
+                (best, bestDistance) = (a, d);
+                if (d == 0) break;
+            }
+        }
+        return best is not null ? $" (did you mean '{best}'?)" : "";
     }
+
+    // Reset by each ReadContext: enough for every suggestion of an ordinary file, and for the first few thousand
+    // misspelt names of a 100,000-node model.
+    [ThreadStatic] private static long t_suggestionWork;
+    private const long SuggestionBudget = 200_000_000;
 
     private static int EditDistance(string a, string b)
     {
-        var d = new int[a.Length + 1, b.Length + 1];
-        for (var i = 0; i <= a.Length; i++) d[i, 0] = i;
-        for (var j = 0; j <= b.Length; j++) d[0, j] = j;
+        var previous = new int[b.Length + 1];
+        var current = new int[b.Length + 1];
+        for (var j = 0; j <= b.Length; j++) previous[j] = j;
         for (var i = 1; i <= a.Length; i++)
+        {
+            current[0] = i;
             for (var j = 1; j <= b.Length; j++)
-                d[i, j] = Math.Min(Math.Min(d[i - 1, j] + 1, d[i, j - 1] + 1), d[i - 1, j - 1] + (a[i - 1] == b[j - 1] ? 0 : 1));
-        return d[a.Length, b.Length];
+                current[j] = Math.Min(Math.Min(previous[j] + 1, current[j - 1] + 1), previous[j - 1] + (a[i - 1] == b[j - 1] ? 0 : 1));
+            (previous, current) = (current, previous);
+        }
+        return previous[b.Length];
     }
 }

@@ -29,23 +29,46 @@ internal sealed record YMapping(SourcePosition Position, ImmutableArray<KeyValue
 /// <remarks>
 /// The event-level parser of YamlDotNet is used rather than its object model so that every node keeps its mark and
 /// duplicate keys (which YAML forbids) are reported with their position instead of silently overwriting.
+/// <para>
+/// Two limits keep hostile files from exhausting the machine: collections nest at most <see cref="MaximumDepth"/>
+/// levels (a model needs four), checked as each '[' or '{' or block collection opens, before the scanner reads
+/// further; and aliases may add at most <see cref="MaximumAliasExpansion"/> nodes to the tree as a reader that
+/// follows them sees it (a file of nested aliases, "billion laughs", would otherwise stand for 10⁹ nodes), nor make
+/// it deeper than the same depth limit.
+/// </para>
 /// </remarks>
 internal static class YamlTree
 {
-    public static YNode? Load(string text, string file, List<Diagnostic> diagnostics)
+    /// <summary>The deepest nesting of lists and mappings accepted, counting the top-level mapping as 1.</summary>
+    public const int MaximumDepth = 32;
+
+    /// <summary>The most nodes that aliases may add to the tree, counted as if every alias were replaced by a copy of its anchor.</summary>
+    public const long MaximumAliasExpansion = 1_000_000; // the messages spell it out
+
+    public static YNode? Load(string text, string file, List<Diagnostic> diagnostics) =>
+        Load(new StringReader(text), () => text, file, diagnostics);
+
+    /// <summary>Reads YAML from <paramref name="reader"/>; <paramref name="text"/> gives the same text as a string, asked
+    /// for only when an error message needs to look at it.</summary>
+    public static YNode? Load(TextReader reader, Func<string> text, string file, List<Diagnostic> diagnostics)
     {
-        var anchors = new Dictionary<string, YNode>();
-        var parser = new TrackingParser(new Parser(new StringReader(text)));
+        var parser = new TrackingParser(new Parser(reader));
+        var tree = new TreeReader(parser, file, diagnostics);
         try
         {
             parser.Consume<StreamStart>();
             if (parser.Accept<StreamEnd>(out _)) return null;
             parser.Consume<DocumentStart>();
-            var root = ReadNode(parser, file, diagnostics, anchors);
+            var root = tree.ReadNode(depth: 0).Node;
             parser.Consume<DocumentEnd>();
             if (parser.Accept<DocumentStart>(out var second))
                 diagnostics.Add(new Diagnostic(Severity.Error, file, Pos(second.Start), "a model file holds one YAML document; remove the second '---'"));
             return root;
+        }
+        catch (LimitExceeded e)
+        {
+            diagnostics.Add(new Diagnostic(Severity.Error, file, e.At, e.Message));
+            return null;
         }
         catch (YamlException e)
         {
@@ -66,11 +89,11 @@ internal static class YamlTree
     }
 
     // YamlDotNet's messages say what the scanner saw; add the likely cause and, where its mark is unhelpful, a better place.
-    private static (SourcePosition At, string Message) Explain(YamlException e, string text, OpenCollection? open)
+    private static (SourcePosition At, string Message) Explain(YamlException e, Func<string> text, OpenCollection? open)
     {
         var raw = Tidy(e.Message).TrimEnd('.');
         var at = Pos(e.Start);
-        if (raw.Contains("tab", StringComparison.OrdinalIgnoreCase) && FirstIndentingTab(text) is { } tab)
+        if (raw.Contains("tab", StringComparison.OrdinalIgnoreCase) && FirstIndentingTab(text()) is { } tab)
             return (tab, "a tab is used for indentation; YAML indents with spaces only");
         if (open is { } o && (raw.Contains("flow sequence", StringComparison.Ordinal) || raw.Contains("flow mapping", StringComparison.Ordinal)))
         {
@@ -105,7 +128,17 @@ internal static class YamlTree
 
     private readonly record struct OpenCollection(Mark Start, char Bracket);
 
+    /// <summary>A limit of the reader was reached; <see cref="At"/> is where, the message says which and what to do.</summary>
+    private sealed class LimitExceeded(SourcePosition at, string message) : Exception(message)
+    {
+        public SourcePosition At { get; } = at;
+    }
+
+    /// <summary>A node read, with its height (levels of collections, 0 for a scalar) and its size (nodes, aliases counted as copies).</summary>
+    private readonly record struct Anchored(YNode Node, int Height, long Size);
+
     /// <summary>Remembers where the last event started and which flow collections are open, to place errors the scanner cannot.</summary>
+    /// <remarks>Also refuses nesting deeper than <see cref="MaximumDepth"/> as soon as the opening event arrives.</remarks>
     private sealed class TrackingParser(IParser inner) : IParser
     {
         private readonly Stack<OpenCollection?> _open = new();
@@ -128,68 +161,137 @@ internal static class YamlTree
                 case SequenceStart q: _open.Push(q.Style == SequenceStyle.Flow ? new OpenCollection(q.Start, '[') : null); break;
                 case MappingEnd or SequenceEnd when _open.Count > 0: _open.Pop(); break;
             }
+            if (_open.Count > MaximumDepth)
+                throw new LimitExceeded(Pos(e.Start),
+                    $"lists and mappings are nested more than {MaximumDepth} levels deep here; a model needs a handful of levels (see docs/model-format.md)");
             return moved;
         }
     }
 
-    private static YNode ReadNode(IParser parser, string file, List<Diagnostic> diagnostics, Dictionary<string, YNode> anchors)
+    /// <summary>Builds the tree from the parser's events, one node per call of <see cref="ReadNode"/>.</summary>
+    private sealed class TreeReader(IParser parser, string file, List<Diagnostic> diagnostics)
     {
-        if (parser.TryConsume<AnchorAlias>(out var alias))
-        {
-            if (anchors.TryGetValue(alias.Value.Value, out var target)) return target;
-            throw new YamlException(alias.Start, alias.End, $"unknown alias '*{alias.Value.Value}'");
-        }
+        private readonly Dictionary<string, Anchored> _anchors = [];
+        private long _aliasExpansion;
 
-        YNode node;
-        string? anchor;
-        if (parser.TryConsume<Scalar>(out var scalar))
+        // Large models repeat the same few keys and values ("mass", "between", "40 kg") hundreds of thousands of
+        // times: one string each keeps the tree small. Collections are gathered in one reusable list per depth
+        // (the depth is bounded), so a node costs one exact array instead of a builder and its copies.
+        private readonly Dictionary<string, string> _strings = new(StringComparer.Ordinal);
+        private readonly List<YNode>[] _items = new List<YNode>[MaximumDepth + 1];
+        private readonly List<KeyValuePair<YScalar, YNode>>[] _entries = new List<KeyValuePair<YScalar, YNode>>[MaximumDepth + 1];
+
+        /// <param name="depth">How many collections enclose the node.</param>
+        public Anchored ReadNode(int depth)
         {
-            node = new YScalar(Pos(scalar.Start), scalar.Value, scalar.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted);
-            anchor = scalar.Anchor.IsEmpty ? null : scalar.Anchor.Value;
-        }
-        else if (parser.TryConsume<SequenceStart>(out var seq))
-        {
-            var items = ImmutableArray.CreateBuilder<YNode>();
-            while (!parser.TryConsume<SequenceEnd>(out _)) items.Add(ReadNode(parser, file, diagnostics, anchors));
-            node = new YSequence(Pos(seq.Start), items.ToImmutable());
-            anchor = seq.Anchor.IsEmpty ? null : seq.Anchor.Value;
-        }
-        else if (parser.TryConsume<MappingStart>(out var map))
-        {
-            var entries = ImmutableArray.CreateBuilder<KeyValuePair<YScalar, YNode>>();
-            var seen = new Dictionary<string, SourcePosition>();
-            var dropped = false;
-            while (!parser.TryConsume<MappingEnd>(out _))
+            if (parser.TryConsume<AnchorAlias>(out var alias))
             {
-                var keyNode = ReadNode(parser, file, diagnostics, anchors);
-                var value = ReadNode(parser, file, diagnostics, anchors);
-                if (keyNode is not YScalar key)
-                {
-                    diagnostics.Add(new Diagnostic(Severity.Error, file, keyNode.Position, "a key must be a plain name, not a list or mapping"));
-                    dropped = true;
-                    continue;
-                }
-                if (seen.TryGetValue(key.Value, out var first))
-                {
-                    diagnostics.Add(new Diagnostic(Severity.Error, file, key.Position,
-                        $"duplicate key '{key.Value}' (first defined at line {first.Line}); names must be unique"));
-                    dropped = true;
-                    continue;
-                }
-                seen[key.Value] = key.Position;
-                entries.Add(new(key, value));
+                if (!_anchors.TryGetValue(alias.Value.Value, out var target))
+                    throw new YamlException(alias.Start, alias.End, $"unknown alias '*{alias.Value.Value}'");
+                // The tree shares the anchored node, but whoever walks it meets a copy at every alias.
+                _aliasExpansion += target.Size;
+                if (_aliasExpansion > MaximumAliasExpansion)
+                    throw new LimitExceeded(Pos(alias.Start),
+                        $"the aliases of this file expand to more than 1,000,000 nodes (here '*{alias.Value.Value}'); write the values out or use fewer nested aliases");
+                // Aliases can make the tree deeper than the text (each anchor one level around the previous alias);
+                // the readers and the writer walk the tree, so its depth is held to the same limit as the text's.
+                if (depth + target.Height > MaximumDepth)
+                    throw new LimitExceeded(Pos(alias.Start),
+                        $"'*{alias.Value.Value}' here nests lists and mappings more than {MaximumDepth} levels deep; a model needs a handful of levels (see docs/model-format.md)");
+                return target;
             }
-            node = new YMapping(Pos(map.Start), entries.ToImmutable(), dropped);
-            anchor = map.Anchor.IsEmpty ? null : map.Anchor.Value;
-        }
-        else
-        {
-            var current = parser.Current!;
-            throw new YamlException(current.Start, current.End, $"unexpected {current.GetType().Name}");
+
+            YNode node;
+            string? anchor;
+            var height = 0; // levels of collections, counted as the text's depth is: 0 for a scalar
+            var size = 1L;
+            if (parser.TryConsume<Scalar>(out var scalar))
+            {
+                node = new YScalar(Pos(scalar.Start), Intern(scalar.Value), scalar.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted);
+                anchor = scalar.Anchor.IsEmpty ? null : scalar.Anchor.Value;
+            }
+            else if (parser.TryConsume<SequenceStart>(out var seq))
+            {
+                var items = _items[depth] ??= [];
+                items.Clear();
+                height = 1;
+                while (!parser.TryConsume<SequenceEnd>(out _))
+                {
+                    var item = ReadNode(depth + 1);
+                    items.Add(item.Node);
+                    (height, size) = (Math.Max(height, item.Height + 1), size + item.Size);
+                }
+                node = new YSequence(Pos(seq.Start), [.. items]);
+                anchor = seq.Anchor.IsEmpty ? null : seq.Anchor.Value;
+            }
+            else if (parser.TryConsume<MappingStart>(out var map))
+            {
+                var entries = _entries[depth] ??= [];
+                entries.Clear();
+                Dictionary<string, SourcePosition>? seen = null; // only for mappings too long to search
+                var dropped = false;
+                height = 1;
+                while (!parser.TryConsume<MappingEnd>(out _))
+                {
+                    var keyRead = ReadNode(depth + 1);
+                    var valueRead = ReadNode(depth + 1);
+                    (height, size) = (Math.Max(height, Math.Max(keyRead.Height, valueRead.Height) + 1), size + keyRead.Size + valueRead.Size);
+                    var (keyNode, value) = (keyRead.Node, valueRead.Node);
+                    if (keyNode is not YScalar key)
+                    {
+                        diagnostics.Add(new Diagnostic(Severity.Error, file, keyNode.Position, "a key must be a plain name, not a list or mapping"));
+                        dropped = true;
+                        continue;
+                    }
+                    if (FirstDefinition(entries, ref seen, key) is { } first)
+                    {
+                        diagnostics.Add(new Diagnostic(Severity.Error, file, key.Position,
+                            $"duplicate key '{key.Value}' (first defined at line {first.Line}); names must be unique"));
+                        dropped = true;
+                        continue;
+                    }
+                    entries.Add(new(key, value));
+                    seen?.Add(key.Value, key.Position);
+                }
+                node = new YMapping(Pos(map.Start), [.. entries], dropped);
+                anchor = map.Anchor.IsEmpty ? null : map.Anchor.Value;
+            }
+            else
+            {
+                var current = parser.Current!;
+                throw new YamlException(current.Start, current.End, $"unexpected {current.GetType().Name}");
+            }
+
+            var read = new Anchored(node, height, size);
+            if (anchor is not null) _anchors[anchor] = read;
+            return read;
         }
 
-        if (anchor is not null) anchors[anchor] = node;
-        return node;
+        /// <summary>Where <paramref name="key"/> was first defined among the entries so far, or null when it is new.</summary>
+        private static SourcePosition? FirstDefinition(List<KeyValuePair<YScalar, YNode>> entries, ref Dictionary<string, SourcePosition>? seen, YScalar key)
+        {
+            const int searched = 16;
+            if (seen is null && entries.Count < searched)
+            {
+                foreach (var (k, _) in entries)
+                    if (k.Value == key.Value) return k.Position;
+                return null;
+            }
+            if (seen is null)
+            {
+                seen = new Dictionary<string, SourcePosition>(StringComparer.Ordinal);
+                foreach (var (k, _) in entries) seen.Add(k.Value, k.Position);
+            }
+            return seen.TryGetValue(key.Value, out var first) ? first : null;
+        }
+
+        private string Intern(string value)
+        {
+            if (value.Length > 32) return value;
+            if (_strings.TryGetValue(value, out var known)) return known;
+            _strings.Add(value, value);
+            return value;
+        }
     }
 
     internal static SourcePosition Pos(Mark mark) => new(checked((int)mark.Line), checked((int)mark.Column));

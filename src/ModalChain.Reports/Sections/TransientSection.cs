@@ -23,6 +23,10 @@ public sealed class TransientSection : IReportSection
     /// <summary>Most points drawn per history; longer runs are reduced to the minimum and maximum of each bucket, so peaks survive.</summary>
     public const int MaxPlotPoints = 4000;
 
+    /// <summary>Most samples of the histories written to results.json (every output is there, thinned so the file stays
+    /// proportionate; peaks and RMS are those of the whole run; <c>modalchain transient --format json</c> writes every sample).</summary>
+    public const int MaxJsonSamples = 2000;
+
     /// <summary>Most history charts drawn (results.json holds every output).</summary>
     public const int MaxCharts = 8;
 
@@ -103,7 +107,8 @@ public sealed class TransientSection : IReportSection
     {
         ArgumentNullException.ThrowIfNull(json);
         using var buffer = new MemoryStream();
-        TransientJson.Write(buffer, _context.Document, _result, _loads, _context.Options.ToolVersion);
+        TransientJson.Write(buffer, _context.Document, _result, _loads, _context.Options.ToolVersion,
+            TransientJson.ThinnedSamples(_result, MaxJsonSamples));
         using var parsed = JsonDocument.Parse(buffer.ToArray());
         parsed.RootElement.WriteTo(json);
     }

@@ -71,4 +71,34 @@ public class ModesCommandTests
         for (var i = 0; i < 2; i++)
             NumericAssert.Close(omega[i], modes[i].GetProperty("omega_rad_s").GetDouble(), Tolerance.Rel(1e-10), $"ω{i + 1}");
     }
+
+    [Theory]
+    [InlineData("20 Hz", 1)]
+    [InlineData("1200 rpm", 1)]
+    [InlineData("40 Hz", 2)]
+    [InlineData("5 Hz", 0)]
+    public void Below_ReportsExactlyTheModesUnderTheFrequency(string below, int expected)
+    {
+        // The chiller deck's modes are at 14.91 and 29.09 Hz (the two-mass frequency equation above); 1200 rpm = 20 Hz.
+        var o = Run("modes", ModelPath("chiller-deck.yaml"), "--below", below, "--format", "json");
+        Assert.True(o.ExitCode == 0, o.ToString());
+        using var json = JsonDocument.Parse(o.Stdout);
+        var modes = json.RootElement.GetProperty("modes");
+        Assert.Equal(expected, modes.GetArrayLength());
+        using var all = JsonDocument.Parse(Run("modes", ModelPath("chiller-deck.yaml"), "--format", "json").Stdout);
+        for (var i = 0; i < expected; i++)
+            NumericAssert.Close(all.RootElement.GetProperty("modes")[i].GetProperty("omega_rad_s").GetDouble(),
+                modes[i].GetProperty("omega_rad_s").GetDouble(), Tolerance.Rel(1e-12), $"ω{i + 1}");
+    }
+
+    [Theory]
+    [InlineData("fast")]
+    [InlineData("-3 Hz")]
+    [InlineData("0 Hz")]
+    public void Below_WithoutAPositiveFrequency_IsAnInputError(string below)
+    {
+        var o = Run("modes", ModelPath("chiller-deck.yaml"), "--below", below);
+        Assert.Equal(2, o.ExitCode);
+        Assert.Contains("--below", o.Stderr, StringComparison.Ordinal);
+    }
 }

@@ -55,6 +55,55 @@ public sealed class TransientSectionTests
     }
 
     [Fact]
+    public void ResultsJson_ThinsLongHistoriesToABoundedSize_AndKeepsEveryHistorysLargestValue()
+    {
+        // Three masses in a chain, 10 s at 0.5 ms: 20001 recorded samples of 9 motions, 3 spring forces and a reaction.
+        // The peaks block is over every step and the run records every step, so the largest |value| of each written
+        // history must equal its peak exactly (an identity of the thinning rule: each bucket keeps its min and max).
+        const string chain = """
+            title: long run on a three-mass chain
+            masses: {a: 100 kg, b: 50 kg, c: 20 kg}
+            springs:
+              ka: {between: [ground, a], stiffness: 400 kN/m}
+              kb: {between: [a, b], stiffness: 150 kN/m}
+              kc: {between: [b, c], stiffness: 60 kN/m}
+            loads:
+              drop: {kind: force, at: c, time: {kind: step, value: 1 kN, at: 0 s}}
+            transient:
+              duration: 10 s
+              step: 0.5 ms
+              method: newmark
+            """;
+        var report = ReportBuilder.Build(Repository.Parse(chain), Options);
+        using var json = JsonDocument.Parse(report.Json.ToArray());
+        var t = json.RootElement.GetProperty("transient");
+        Assert.Equal(1, t.GetProperty("record_every").GetInt32());
+        var samples = t.GetProperty("history_samples");
+        Assert.Equal(20001, samples.GetProperty("recorded").GetInt32());
+        var written = samples.GetProperty("written").GetInt32();
+        Assert.InRange(written, 100, TransientSection.MaxJsonSamples);
+        Assert.Equal(written, t.GetProperty("time_s").GetArrayLength());
+        // Each written history, keyed as the peaks block names it (name, quantity).
+        var histories = new Dictionary<string, JsonElement>(StringComparer.Ordinal);
+        foreach (var h in t.GetProperty("responses").EnumerateArray())
+            histories.Add(h.GetProperty("dof").GetString() + "/" + h.GetProperty("quantity").GetString(), h);
+        foreach (var h in t.GetProperty("element_forces").EnumerateArray())
+            histories.Add(h.GetProperty("element").GetString() + "/" + h.GetProperty("kind").GetString() + "_force", h);
+        foreach (var h in t.GetProperty("reactions").EnumerateArray())
+            histories.Add(h.GetProperty("support").GetString() + "/reaction", h);
+        Assert.Equal(t.GetProperty("peaks").GetArrayLength(), histories.Count);
+        foreach (var peak in t.GetProperty("peaks").EnumerateArray())
+        {
+            var history = histories[peak.GetProperty("name").GetString() + "/" + peak.GetProperty("quantity").GetString()];
+            var values = history.GetProperty("values").EnumerateArray().Select(v => v.GetDouble()).ToArray();
+            Assert.Equal(written, values.Length);
+            Assert.Equal(Math.Abs(peak.GetProperty("value").GetDouble()), values.Max(Math.Abs));
+        }
+        // Size bound: 13 histories of at most MaxJsonSamples numbers of about 25 characters, plus the rest of the report.
+        Assert.True(report.Json.Length < 1_500_000, $"results.json is {report.Json.Length} bytes");
+    }
+
+    [Fact]
     public void ModelWithoutTransientSection_HasNoTransientSection() =>
         Assert.DoesNotContain(ReportBuilder.Build(Repository.UniformChain(2, 1, 100), Options).Sections, s => s.Key == "transient");
 

@@ -86,6 +86,12 @@ public static class AbsorberTuning
     /// <summary>The largest mass ratio accepted: an absorber heavier than the modal mass it controls is not a tuned absorber.</summary>
     public const double MaximumMassRatio = 1.0;
 
+    /// <summary>
+    /// The smallest mass ratio accepted (0.01 %): a lighter absorber has no effect worth designing, and at ratios near the
+    /// smallest doubles (1e-320) the absorber's stiffness and damping underflow and its damping ratio becomes NaN.
+    /// </summary>
+    public const double MinimumMassRatio = 1e-4;
+
     /// <summary>Above this mass ratio the single-mode approximation and the classical formulas are stretched; the tool says so.</summary>
     public const double LargeMassRatio = 0.25;
 
@@ -103,6 +109,8 @@ public static class AbsorberTuning
                 : $"host '{request.Host}' is not a mass of the model; masses: {string.Join(", ", modal.Network.Masses.Select(m => m.Name))}");
         if (!(request.MassRatio > 0) || !double.IsFinite(request.MassRatio))
             problems.Add(string.Create(inv, $"mass ratio must be positive, got {request.MassRatio * 100:G4} %"));
+        else if (request.MassRatio < MinimumMassRatio)
+            problems.Add(string.Create(inv, $"mass ratio {request.MassRatio * 100:G4} % is below {MinimumMassRatio * 100:G3} %: so light an absorber has no effect (typical ratios are 1-25 %)"));
         else if (request.MassRatio > MaximumMassRatio)
             problems.Add(string.Create(inv, $"mass ratio {request.MassRatio * 100:G4} % is beyond {MaximumMassRatio * 100:G3} %: an absorber heavier than the modal mass it controls is not a tuned absorber (typical ratios are 1-25 %)"));
         else if (request.Target == AbsorberTarget.BaseAcceleration && request.MassRatio >= 2)
@@ -122,6 +130,10 @@ public static class AbsorberTuning
             problems.Add($"mode {mode.Number} is a rigid-body mode (0 Hz); an absorber cannot be tuned to it");
         else if (Math.Abs(mode.Shape[host]) < 1e-9 * mode.Shape.Max(Math.Abs))
             problems.Add($"'{request.Host}' does not move in mode {mode.Number} (it sits at a node of the mode shape); hang the absorber where the mode moves");
+        else if (request.MassRatio * mode.ModalMassAt(host) is var absorberMass && absorberMass > modal.Network.TotalMass)
+            // Near a node the modal mass at the host (1/φ²) grows without bound; such an absorber outweighs the whole
+            // structure, and tune --write wrote a model that no longer read (a 2e14 kg absorber).
+            problems.Add(string.Create(inv, $"'{request.Host}' hardly moves in mode {mode.Number}: its modal mass there is {mode.ModalMassAt(host):G4} kg, so the absorber would weigh {absorberMass:G4} kg, more than the whole model ({modal.Network.TotalMass:G4} kg); hang the absorber where the mode moves"));
         return problems.ToImmutable();
     }
 

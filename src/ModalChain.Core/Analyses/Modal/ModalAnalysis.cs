@@ -10,7 +10,9 @@ namespace ModalChain.Core.Analyses.Modal;
 /// <param name="Count">How many of the lowest modes to compute; null for all.</param>
 /// <param name="Solver">A specific eigen algorithm, or null to let <see cref="GeneralizedEigen"/> choose.</param>
 /// <param name="Choice">What <see cref="GeneralizedEigen"/> chooses from when <paramref name="Solver"/> is null.</param>
-public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? Solver = null, SolverChoice Choice = SolverChoice.Auto);
+/// <param name="BelowFrequencyHz">Only the modes with natural frequency below this (Hz), all of them (up to <paramref name="Count"/>); null for no limit.</param>
+public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? Solver = null, SolverChoice Choice = SolverChoice.Auto,
+    double? BelowFrequencyHz = null);
 
 /// <summary>Undamped natural frequencies, mode shapes and their participation, energy shares and quality figures.</summary>
 /// <remarks>
@@ -31,9 +33,11 @@ public static class ModalAnalysis
         ArgumentNullException.ThrowIfNull(network);
         ArgumentNullException.ThrowIfNull(matrices);
         options ??= new ModalOptions();
+        if (options.BelowFrequencyHz is { } belowHz) Guard.Positive(belowHz, nameof(options.BelowFrequencyHz));
         if (matrices.Size == 0) throw new ArgumentException("The network has no masses.", nameof(network));
 
-        var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver, options.Choice);
+        double? limit = options.BelowFrequencyHz is { } below ? Math.Pow(2 * Math.PI * below, 2) : null;
+        var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver, options.Choice, limit);
         var m = matrices.Mass;
         var k = matrices.Stiffness;
         var iota = matrices.Influence;

@@ -63,7 +63,17 @@ public sealed record ParameterPath(ParameterKind Kind, string Element)
     };
 
     /// <summary>Whether <paramref name="value"/> (SI) is a value the field can take: positive for a mass, non-negative otherwise.</summary>
-    public bool Admits(double value) => double.IsFinite(value) && (Kind == ParameterKind.Mass ? value > 0 : value >= 0);
+    /// <remarks>
+    /// The plausible ranges of the model format (docs/model-format.md): mass 1 mg to 1,000,000 t, stiffness 0 to
+    /// 1e14 N/m, damping 0 to 1e13 N·s/m. Outside them the eigen solve overflows (a study from 1e308 N/m crashed).
+    /// </remarks>
+    public bool Admits(double value) => double.IsFinite(value) && value >= Minimum && value <= Maximum;
+
+    /// <summary>The smallest value admitted, SI.</summary>
+    public double Minimum => Kind == ParameterKind.Mass ? 1e-6 : 0;
+
+    /// <summary>The largest value admitted, SI.</summary>
+    public double Maximum => Kind switch { ParameterKind.Mass => 1e9, ParameterKind.Stiffness => 1e14, _ => 1e13 };
 
     /// <summary>Reads <paramref name="text"/> against <paramref name="network"/>; on failure <paramref name="error"/> says what is wrong and what exists.</summary>
     public static ParameterPath? Resolve(string text, Network network, out string? error)

@@ -15,7 +15,7 @@ namespace ModalChain.Core.Analyses.Transient;
 /// it loads the free DOFs by −K_fp u_s − C_fp u̇_s (for a spring k from the support to mass i, f_i += k u_s). Warnings follow common practice: at least ~10 steps per period of the
 /// highest mode that takes a significant share (≥ 1 %) of the effective mass or of a load, and a duration of at
 /// least a few periods of the lowest mode. Models of more than 300 DOFs get only their lowest modes (30, or those the
-/// modal method keeps) by subspace iteration unless a complete modal result is passed in, so the step check then
+/// modal method keeps) by shift-invert Lanczos unless a complete modal result is passed in, so the step check then
 /// looks at those modes only.
 /// </remarks>
 public static class TransientAnalysis
@@ -200,10 +200,10 @@ public static class TransientAnalysis
         return Math.Min(size, settings.Method == TransientMethod.Modal ? settings.ModeCount!.Value : ModesForChecks);
     }
 
-    /// <summary>All modes for small models; for large ones only the lowest (those the modal method keeps, or 30 for the step checks), by subspace iteration.</summary>
+    /// <summary>All modes for small models; for large ones only the lowest (those the modal method keeps, or 30 for the step checks), by shift-invert Lanczos (Sturm-checked).</summary>
     private static ModalResult Modes(Network network, StructuralMatrices matrices, TransientSettings settings) =>
         ModesNeeded(matrices.Size, settings) is { } count
-            ? ModalAnalysis.Solve(network, matrices, new ModalOptions(count, new SubspaceIterationEigen()))
+            ? ModalAnalysis.Solve(network, matrices, new ModalOptions(count, new ShiftInvertLanczos()))
             : ModalAnalysis.Solve(network, matrices);
 
     /// <summary>

@@ -49,6 +49,12 @@ public sealed record InitialCondition(string Mass, double Displacement, double V
 /// <param name="Method">Integration method.</param>
 public sealed record TransientSettings(double Duration, double Step, TransientMethod Method = TransientMethod.Newmark)
 {
+    /// <summary>
+    /// The most time steps (duration / step) a run may ask for: 10⁷ steps of a small model take seconds and keep the
+    /// histories within a few hundred MB; 5·10⁷ took over 30 s and a GB for one mass.
+    /// </summary>
+    public const double MaxSteps = 1e7;
+
     /// <summary>Hilber-Hughes-Taylor α in [−⅓, 0], used by <see cref="TransientMethod.Hht"/>; −0.05 by default.</summary>
     public double HhtAlpha { get; init; } = -0.05;
 
