@@ -106,7 +106,7 @@ public class OutputSchemaTests
             "harmonic" => ["harmonic", path, "--format", "json"],
             "transient" => ["transient", path, "--duration", "1 s", "--format", "json"],
             "check" => ["check", path, "--format", "json"],
-            "tune" => ["tune", path, "--host", first.Name, "--mass-ratio", "5 %", "--mode", "1", "--format", "json"],
+            "tune" => ["tune", path, "--host", first.Name, "--mass-ratio", "5 %", "--format", "json"],
             "study" => ["study", path, "--vary", $"masses.{first.Name}.mass", "--from", F(0.8 * first.Kilograms), "--to", F(1.2 * first.Kilograms), "--steps", "3", "--format", "json"],
             "study-speed" => ["study", path, "--vary", "speed", "--from", "0", "--to", "1500 rpm", "--steps", "3", "--format", "json"],
             "report" => [],
