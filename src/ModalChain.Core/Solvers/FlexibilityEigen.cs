@@ -78,7 +78,17 @@ internal static class FlexibilityEigen
 
         var root = mass.Select(Math.Sqrt).ToArray();
         var s2 = Matrix<double>.Build.Dense(n, n, (i, j) => root[i] * flexibility[i][j] * root[j]);
+        // A vanishingly soft spring (1e-294 N/m) gives flexibilities near the top of the double range, which the
+        // eigen solve would square into infinity: solve the scaled matrix (only its eigenvectors are used below).
+        var largest = s2.Enumerate().Select(Math.Abs).DefaultIfEmpty(0).Max();
+        if (!double.IsFinite(largest))
+            throw new NumericalFailureException("The flexibility of the spring network overflows: a spring is too soft for its flexibility to be represented.");
+        // Entries below 1e-200 of the largest cannot change an eigenvector at working precision, but as subnormal
+        // numbers they break the managed reduction: flush them.
+        if (largest > 0) s2.MapInplace(v => Math.Abs(v) < 1e-200 * largest ? 0 : v / largest);
         var evd = s2.Evd(MathNet.Numerics.LinearAlgebra.Symmetricity.Symmetric);
+        if (evd.EigenVectors.Enumerate().Any(v => !double.IsFinite(v)))
+            throw new NumericalFailureException("The eigenvectors of the flexibility are not finite.");
 
         // The free groups' translations are null vectors of F: leave out the vectors nearest to them.
         var rigidShare = new double[n];

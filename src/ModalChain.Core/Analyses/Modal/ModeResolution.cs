@@ -83,9 +83,11 @@ internal static class ModeResolution
             var spread = lowest > 0 ? stiffnessScale / lowest : double.PositiveInfinity;
             if (spread > SpreadNeedingFlexibility)
             {
-                if (n <= MaxFlexibilitySize) RefineLowModes(mass, springs, groups, values, shapes, rigidCount, flexibleCount, stiffnessScale);
-                else warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                if (n > MaxFlexibilitySize) warnings.Add(string.Create(CultureInfo.InvariantCulture,
                     $"The stiffness spread λ_max/ω²_min ≈ {spread:0.#e+0} leaves the lowest frequencies with a relative error up to about {2.2e-16 * spread:0.#e+0}; the model has {n} DOFs, more than the {MaxFlexibilitySize} the flexibility solve takes."));
+                else if (!RefineLowModes(mass, springs, groups, values, shapes, rigidCount, flexibleCount, stiffnessScale))
+                    warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                        $"The stiffness spread λ_max/ω²_min ≈ {spread:0.#e+0} is beyond what the flexibility solve can represent (a spring is vanishingly soft); the lowest frequencies keep an absolute error of about {2.2e-16 * stiffnessScale:0.#e+0} rad²/s² in ω² and may read as 0 Hz."));
             }
         }
         // Only possible without the flexibility solve (too large a model): round-off below zero is no frequency.
@@ -97,17 +99,29 @@ internal static class ModeResolution
         return new ResolvedModes(values, shapes, rigid, warnings.ToImmutable());
     }
 
-    private static void RefineLowModes(double[] mass, SpringEdge[] springs, int[][] groups, double[] values, Matrix<double> shapes,
+    /// <summary>Replaces the low flexible pairs by those of the flexibility solve.</summary>
+    /// <returns>False when the flexibility cannot be represented (the direct solve's pairs are then kept as they are).</returns>
+    private static bool RefineLowModes(double[] mass, SpringEdge[] springs, int[][] groups, double[] values, Matrix<double> shapes,
         int rigidCount, int flexibleCount, double stiffnessScale)
     {
-        var (accurate, accurateShapes) = FlexibilityEigen.Solve(mass, springs, groups);
-        if (accurate.Length == 0) return;
+        double[] accurate;
+        Matrix<double> accurateShapes;
+        try
+        {
+            (accurate, accurateShapes) = FlexibilityEigen.Solve(mass, springs, groups);
+        }
+        catch (NumericalFailureException)
+        {
+            return false;
+        }
+        if (accurate.Length == 0) return true;
         var split = Math.Sqrt(accurate[0] * Math.Max(stiffnessScale, accurate[^1]));
         for (var j = 0; j < Math.Min(flexibleCount, accurate.Length) && accurate[j] <= split; j++)
         {
             values[rigidCount + j] = accurate[j];
             shapes.SetColumn(rigidCount + j, accurateShapes.Column(j));
         }
+        return true;
     }
 
     /// <summary>Σ_g (ι_gᵀ M φ)² / m_g: the share of the M-normalised φ that is rigid translation of the free groups.</summary>

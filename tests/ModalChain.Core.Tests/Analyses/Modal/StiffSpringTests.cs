@@ -40,6 +40,26 @@ public class StiffSpringTests
         Assert.True(double.IsFinite(result.Modes[0].PeriodSeconds));
     }
 
+    [Fact]
+    public void VanishinglySoftSpring_GivesTheDecoupledClosedForms_NotACrash()
+    {
+        // ground –2e6 N/m– m0 (100 kg) –1e-294 N/m– m1 (50 kg) –1e6 N/m– m2 (80 kg): found by the corruption guard
+        // (a stiffness of 1e-300 kN/mm ended in an internal error). The soft spring decouples the parts, so the closed
+        // forms are those of each part (common practice): m0 alone ω² = k0/m0 = 20,000; the pair ω² = k(1/m1 + 1/m2) =
+        // 32,500; and a mode of the pair on the soft spring with ω² ≈ 1e-294/130, below any frequency worth printing.
+        var network = new NetworkBuilder()
+            .AddMass("m0", 100).AddMass("m1", 50).AddMass("m2", 80)
+            .AddSpring("k0", Network.Ground, "m0", 2e6)
+            .AddSpring("k1", "m0", "m1", 1e-294)
+            .AddSpring("k2", "m1", "m2", 1e6)
+            .Build();
+        var result = ModalAnalysis.Solve(network);
+        Assert.All(result.Modes, m => Assert.True(double.IsFinite(m.EigenValue) && m.EigenValue >= 0, $"mode {m.Number}: ω² = {m.EigenValue}"));
+        Assert.True(result.Modes[0].EigenValue < 1e-200, $"ω1² = {result.Modes[0].EigenValue}");
+        NumericAssert.Close(20_000, result.Modes[1].EigenValue, Tolerance.Rel(1e-10), "ω2² (m0 on k0)");
+        NumericAssert.Close(32_500, result.Modes[2].EigenValue, Tolerance.Rel(1e-10), "ω3² (the pair on k2)");
+    }
+
     [Theory]
     [InlineData(true)]
     [InlineData(false)]
