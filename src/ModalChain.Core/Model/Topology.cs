@@ -73,8 +73,10 @@ public static class Topology
         if (stiff.IsEmpty || softest is null) return null;
         var stiffest = stiff[0];
         var names = string.Join(", ", stiff.Select(s => $"'{s.Name}'"));
-        var digits = Math.Log10(Math.Sqrt(ratio));
+        // A subnormal stiffness makes the ratio overflow: say so in words, never "Infinity".
+        var span = double.IsFinite(ratio) ? string.Create(CultureInfo.InvariantCulture, $"{ratio:0.###e+0}") : "beyond 1e+308";
+        var lost = double.IsFinite(ratio) ? string.Create(CultureInfo.InvariantCulture, $"about {Math.Log10(Math.Sqrt(ratio)):0} digits") : "every digit";
         return string.Create(CultureInfo.InvariantCulture,
-            $"spring stiffnesses span a ratio of {ratio:0.###e+0} ('{stiffest.Name}' {stiffest.Stiffness:G4} N/m against '{softest.Name}' {softest.Stiffness:G4} N/m): the low modes are solved from the flexibility to keep their relative accuracy, but intermediate modes and residuals lose about {digits:0} digits; a spring that stiff usually stands for a rigid connection: consider tying its masses with 'links:' (or, for a spring to a support, declaring the mass a support) instead of {names}");
+            $"spring stiffnesses span a ratio of {span} ('{stiffest.Name}' {stiffest.Stiffness:G4} N/m against '{softest.Name}' {softest.Stiffness:G4} N/m): the low modes are solved from the flexibility to keep their relative accuracy, but intermediate modes and residuals lose {lost}; a spring that stiff usually stands for a rigid connection: consider tying its masses with 'links:' (or, for a spring to a support, declaring the mass a support) instead of {names}");
     }
 }

@@ -51,6 +51,30 @@ public class ModelWriterTests
     }
 
     [Fact]
+    public void ModelWithARepeatSection_IsWrittenWithoutItsGeneratedElements_AndReadsBack()
+    {
+        // The corruption guard found `tune --write` copying the masses a 'repeat' section generates into 'masses',
+        // so the written file clashed with itself. Only the absorber may be added.
+        const string withRepeat = """
+            title: Rack with a fan on level 3
+            repeat:
+              rack: {kind: chain, count: 4, mass: 120 kg, stiffness: 2.5 kN/mm, from: ground, prefix: level}
+            """;
+        var before = ModelReader.Read(withRepeat, "in.yaml").Model!;
+        var design = AbsorberTuning.Design(ModalAnalysis.Solve(before.Network), new AbsorberRequest("level-3", 0.05, 1, []));
+        var expected = AbsorberTuning.Attach(before.Network, design, AbsorberTuning.FreeNames(before.Network, "level-3"));
+
+        var text = ModelWriter.WithAdditions(withRepeat, "in.yaml", expected, ["written by a test"]);
+        var read = ModelReader.Read(text, "out.yaml");
+
+        Assert.True(read.Succeeded, string.Join("\n", read.Diagnostics) + "\n" + text);
+        Assert.DoesNotContain("level-1:", text, StringComparison.Ordinal);
+        Assert.Equal(expected.Masses.OrderBy(m => m.Name, StringComparer.Ordinal), read.Model!.Network.Masses.OrderBy(m => m.Name, StringComparer.Ordinal));
+        Assert.Equal(expected.Springs.OrderBy(x => x.Name, StringComparer.Ordinal), read.Model.Network.Springs.OrderBy(x => x.Name, StringComparer.Ordinal));
+        Assert.Equal(expected.Dampers.ToArray(), read.Model.Network.Dampers.ToArray());
+    }
+
+    [Fact]
     public void ModelWithoutDampers_GainsADampersSection()
     {
         var (_, expected, after, text) = RoundTrip(Original);

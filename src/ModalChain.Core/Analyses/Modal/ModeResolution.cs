@@ -87,7 +87,7 @@ internal static class ModeResolution
                     $"The stiffness spread λ_max/ω²_min ≈ {spread:0.#e+0} leaves the lowest frequencies with a relative error up to about {2.2e-16 * spread:0.#e+0}; the model has {n} DOFs, more than the {MaxFlexibilitySize} the flexibility solve takes."));
                 else if (!RefineLowModes(mass, springs, groups, values, shapes, rigidCount, flexibleCount, stiffnessScale))
                     warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                        $"The stiffness spread λ_max/ω²_min ≈ {spread:0.#e+0} is beyond what the flexibility solve can represent (a spring is vanishingly soft); the lowest frequencies keep an absolute error of about {2.2e-16 * stiffnessScale:0.#e+0} rad²/s² in ω² and may read as 0 Hz."));
+                        $"The stiffness spread λ_max/ω²_min is beyond what the flexibility solve can represent (a spring is vanishingly soft); the lowest frequencies keep an absolute error of about {2.2e-16 * stiffnessScale:0.#e+0} rad²/s² in ω² and may read as 0 Hz."));
             }
         }
         // Only possible without the flexibility solve (too large a model): round-off below zero is no frequency.

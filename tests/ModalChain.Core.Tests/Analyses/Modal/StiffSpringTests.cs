@@ -128,6 +128,17 @@ public class StiffSpringTests
     }
 
     [Fact]
+    public void StiffnessRatioBeyondTheDoubleRange_IsWarnedInWords_NeverAsInfinity()
+    {
+        // A subnormal stiffness (4.9e-318 N/m, found by the corruption guard) makes the ratio overflow.
+        var result = ModalAnalysis.Solve(TestNetworks.TwoMassThreeSpring(1, 1, 1e8, 4.9e-318, 0));
+        var warning = Assert.Single(result.Warnings, w => w.Contains("span a ratio", StringComparison.Ordinal));
+        Assert.Contains("beyond 1e+308", warning, StringComparison.Ordinal);
+        Assert.DoesNotContain("Infinity", warning, StringComparison.Ordinal);
+        Assert.DoesNotContain("∞", warning, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void ManyMassesWithStiffAndSoftSprings_MatchTheirCondensedCounterpartOnSeededNetworks()
     {
         // A chain whose every other spring is 1e15 N/m behaves, to first order in k_soft/k_stiff, as the chain of the
