@@ -40,6 +40,7 @@ public static class ReportBuilder
         using (var json = new Utf8JsonWriter(buffer, ModesJson.WriterOptions))
         {
             json.WriteStartObject();
+            json.WriteString("format_version", JsonFormat.Version);
             json.WriteStartObject("report");
             json.WriteString("tool_version", context.Options.ToolVersion);
             json.WriteString("generated_utc", context.Options.Generated.ToUniversalTime().ToString("yyyy-MM-dd'T'HH:mm:ss'Z'", CultureInfo.InvariantCulture));

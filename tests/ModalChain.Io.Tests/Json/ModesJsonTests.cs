@@ -54,7 +54,7 @@ public class ModesJsonTests
         string[] required = ["title", "dofs", "total_mass_kg", "modes", "quality"];
         string[] requiredMode = ["number", "frequency_hz", "omega_rad_s", "period_s", "shape", "participation", "effective_mass_kg", "effective_mass_fraction"];
         Assert.Subset(Names(root).ToHashSet(), required.ToHashSet());
-        Assert.Equal(["title", "source", "dofs", "total_mass_kg", "algorithm", "modes", "damping", "quality", "warnings", "caution"], Names(root));
+        Assert.Equal(["title", "format_version", "source", "dofs", "total_mass_kg", "algorithm", "modes", "damping", "quality", "warnings", "caution"], Names(root));
 
         foreach (var mode in root.GetProperty("modes").EnumerateArray())
         {

@@ -1,0 +1,12 @@
+namespace ModalChain.Io.Json;
+
+/// <summary>The version of every JSON output's layout, written as <c>format_version</c> at the top of each object.</summary>
+/// <remarks>
+/// The layouts are published as JSON Schemas in docs/schema/ (one per command). Adding a field keeps the version and
+/// goes into the schema in the same commit; renaming or removing one would need a new version, and is not done.
+/// </remarks>
+public static class JsonFormat
+{
+    /// <summary>The current layout version, a string so that it can never be read as a quantity.</summary>
+    public const string Version = "1";
+}
