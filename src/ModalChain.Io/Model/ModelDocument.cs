@@ -18,7 +18,7 @@ public sealed record ModelDocument(
     string Sha256,
     Network Network,
     ImmutableArray<Diagnostic> Warnings,
-    ImmutableDictionary<string, SourcePosition> Positions)
+    IReadOnlyDictionary<string, SourcePosition> Positions)
 {
     /// <summary>The network with its distributed damping and its loads (SI); a model without them has none.</summary>
     public StructuralModel Structure { get; init; } = StructuralModel.Of(Network);
