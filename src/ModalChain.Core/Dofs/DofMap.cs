@@ -4,11 +4,26 @@ using ModalChain.Core.Model;
 namespace ModalChain.Core.Dofs;
 
 /// <summary>A direction in which a node may move.</summary>
-/// <remarks>Scalar networks move in one direction only; further directions (and rotations of rigid bodies) extend this enum.</remarks>
+/// <remarks>
+/// Line models move in <see cref="Along"/> only; plane and 3d models use the global translations x, y, z (z vertical,
+/// up) and rotations rx, ry, rz about those axes (right-hand rule). See <see cref="Model.Directions"/>.
+/// </remarks>
 public enum Direction
 {
-    /// <summary>The single direction of motion of a scalar network (vertical for floors, horizontal for rack sway).</summary>
+    /// <summary>The single direction of motion of a line model (vertical for floors, horizontal for rack sway).</summary>
     Along,
+    /// <summary>Translation along global x, in m.</summary>
+    X,
+    /// <summary>Translation along global y, in m.</summary>
+    Y,
+    /// <summary>Translation along global z (vertical, up), in m.</summary>
+    Z,
+    /// <summary>Rotation about global x, in rad.</summary>
+    Rx,
+    /// <summary>Rotation about global y, in rad.</summary>
+    Ry,
+    /// <summary>Rotation about global z, in rad.</summary>
+    Rz,
 }
 
 /// <summary>One degree of freedom: a node moving in a direction.</summary>
@@ -17,7 +32,7 @@ public enum Direction
 public readonly record struct Dof(string Node, Direction Direction)
 {
     /// <inheritdoc />
-    public override string ToString() => Direction == Direction.Along ? Node : $"{Node}.{Direction}";
+    public override string ToString() => Direction == Direction.Along ? Node : $"{Node}.{Model.Directions.Label(Direction)}";
 }
 
 /// <summary>Numbers the free degrees of freedom of a network; supports are not numbered (they are fixed or prescribed).</summary>
