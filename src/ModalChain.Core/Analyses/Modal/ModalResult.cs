@@ -11,7 +11,10 @@ namespace ModalChain.Core.Analyses.Modal;
 /// <param name="AngularFrequency">ω in rad/s.</param>
 /// <param name="NaturalFrequencyHz">f = ω/2π in Hz.</param>
 /// <param name="PeriodSeconds">T = 1/f in s; +∞ for a rigid-body mode.</param>
-/// <param name="IsRigidBody">True when the mode moves a part of the network that no spring holds (ω taken as 0).</param>
+/// <param name="IsRigidBody">
+/// True when the mode moves a part of the network that no spring holds (ω taken as 0); in plane and 3d models, a
+/// mode in the null space of K (ω² at most 1e-10 of the stiffness scale).
+/// </param>
 /// <param name="Shape">Mass-normalised shape φ (φᵀMφ = 1, unit 1/√kg), one entry per DOF; largest-magnitude entry positive.</param>
 /// <param name="ParticipationFactor">Γ = φᵀ M ι in √kg, for unit motion ι of every mass in the network's direction (vertical, z, in plane and 3d models).</param>
 /// <param name="EffectiveModalMass">M* = Γ² / (φᵀMφ) in kg.</param>
