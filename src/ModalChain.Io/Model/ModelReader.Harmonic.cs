@@ -19,7 +19,7 @@ public static partial class ModelReader
         if (top["harmonic"] is not { } node || node is YScalar { IsPlainNull: true }) return null;
         if (context.Mapping(node, "'harmonic'") is not { } h) return null;
         const string what = "'harmonic'";
-        context.RejectUnknownKeys(h, what, "loads", "cases", "combine", "frequencies", "refine", "outputs", "method", "modes");
+        context.RejectUnknownKeys(h, what, "loads", "frequencies", "refine", "outputs", "method", "modes", "cases", "combine");
         context.Positions["harmonic"] = h.Position;
         var declaredLoads = (top["loads"] as YMapping)?.Entries.Select(e => e.Key.Value).ToImmutableHashSet() ?? [];
 
