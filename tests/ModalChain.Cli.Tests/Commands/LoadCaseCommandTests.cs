@@ -140,6 +140,19 @@ public sealed class LoadCaseCommandTests : IDisposable
     }
 
     [Fact]
+    public void Study_FollowsALimitOnTheCombination_AsCheckEvaluatesIt()
+    {
+        // Identity: at the model's own stiffness the study's reserve is check's (the sum rule on an r.m.s. limit,
+        // Σ a_k/√2, differs from the root sum of squares a model without cases uses); 1e-9 rel.
+        var path = Model("cases.yaml", Network + Cases + "harmonic:\n  combine: sum\n" + Sweep +
+            "criteria:\n  limits:\n    - {at: skid, quantity: velocity, rms: 2 mm/s}\n");
+        using var check = Json("check", path);
+        using var study = Json("study", path, "--vary", "springs.mounts.stiffness", "--from", "8.4 kN/mm", "--to", "9 kN/mm", "--steps", "2");
+        var limit = study.RootElement.GetProperty("criteria").EnumerateArray().Single(c => c.GetProperty("name").GetString()!.StartsWith("limit", StringComparison.Ordinal));
+        NumericAssert.Close(check.RootElement.GetProperty("limits")[0].GetProperty("reserve").GetDouble(), limit.GetProperty("reserve")[0].GetDouble(), Tolerance.Rel(1e-9), "reserve at 8.4 kN/mm");
+    }
+
+    [Fact]
     public void LoadsOption_RunsTheChosenTimedLoadsOnly_AsTheFilesLoadsWould()
     {
         // Identity: --loads start-up gives exactly the run of a file whose transient section lists [start-up].
