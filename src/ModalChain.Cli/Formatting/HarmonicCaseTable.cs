@@ -3,6 +3,7 @@ using ModalChain.Core;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Assembly;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Formatting;
 
@@ -13,7 +14,7 @@ internal static class HarmonicCaseTable
 
     public static void Write(TextWriter o, ModelDocument document, DampedSystem system, LoadCaseResult result)
     {
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine(string.Create(Inv, $"Harmonic response by load case: {result.Cases.Length} case{(result.Cases.Length == 1 ? "" : "s")}, each swept on its own, combined at the running speeds by the {LoadCaseSelection.Name(result.Rule)} rule"));
         foreach (var c in result.Cases)
             o.WriteLine($"  {c.Case.Name}: {string.Join("; ", c.Case.Loads.Select(n => HarmonicTable.Describe(system.Model.FindLoad(n)!)))}");

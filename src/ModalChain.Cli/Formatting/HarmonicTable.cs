@@ -5,6 +5,7 @@ using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Formatting;
 
@@ -19,7 +20,7 @@ internal static class HarmonicTable
     internal static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result, string? caseName)
     {
         var f = result.FrequenciesHz;
-        o.WriteLine(caseName is null ? document.Network.Title : $"Load case {caseName}");
+        o.WriteLine(caseName is null ? TerminalText.Line(document.Network.Title) : $"Load case {caseName}");
         o.WriteLine(string.Create(Inv,
             $"Harmonic response, {(result.Method == HarmonicMethod.Modal ? "modal superposition" : "direct solve")}, {f.Length} frequencies from {f.Min():G4} to {f.Max():G4} Hz"));
         o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!))));
