@@ -88,6 +88,30 @@ public class SpatialModelReaderTests
     }
 
     [Fact]
+    public void InstrumentCabinet_AssemblesIntoTheStiffnessOfAHandCalculation()
+    {
+        // Hand calculation from the file's values (own computation): points in global axes, arms r = p − c from the
+        // centre of mass (0, 0.95); a side-view body point moves as u_x + θ r_z, u_z − θ r_x.
+        // K_xx = 2·0.35e6 + 0.12e6 (pads in shear, the horizontal tie) = 8.2e5 N/m; K_zz = 2·1.8e6 = 3.6e6 N/m;
+        // K_θθ = 2·1.8e6·0.3² + 2·0.35e6·0.95² + 0.12e6·0.95² = 1.06405e6 N·m/rad;
+        // K_xθ = 2·0.35e6·(−0.95) + 0.12e6·0.95 = −5.51e5 N; K_zθ = 1.8e6·(−0.3) + 1.8e6·0.3 = 0 (pads symmetric).
+        var model = ReadFixture("instrument-cabinet-sway.yaml");
+        var matrices = Core.Assembly.Assembler.Assemble(model.Network, model.ReferencePoint);
+        var k = matrices.DenseStiffness();
+        var (x, z, ry) = (matrices.Dofs.IndexOf("cabinet", Direction.X), matrices.Dofs.IndexOf("cabinet", Direction.Z), matrices.Dofs.IndexOf("cabinet", Direction.Ry));
+        var tol = Tolerance.Rel(1e-12);
+        NumericAssert.Close(8.2e5, k[x, x], tol, "K_xx");
+        NumericAssert.Close(3.6e6, k[z, z], tol, "K_zz");
+        NumericAssert.Close(1.06405e6, k[ry, ry], tol, "K_θθ");
+        NumericAssert.Close(-5.51e5, k[x, ry], tol, "K_xθ");
+        NumericAssert.Close(0, k[z, ry], Tolerance.Abs(1e-6), "K_zθ");
+        NumericAssert.Close(0, k[x, z], Tolerance.Abs(1e-6), "K_xz");
+        var m = matrices.DenseMass();
+        NumericAssert.Close(420, m[x, x], Tolerance.Rel(1e-15), "M_xx");
+        NumericAssert.Close(160, m[ry, ry], Tolerance.Rel(1e-15), "M_θθ");
+    }
+
+    [Fact]
     public void LineModels_KeepTheirSpaceAndReadAsBefore()
     {
         var result = Read("masses:", "  deck: {mass: 3200 kg, at: [0, 0]}", "springs:", "  c: {between: [ground, deck], stiffness: 95 kN/mm}",
