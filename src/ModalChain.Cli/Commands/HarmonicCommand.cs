@@ -35,12 +35,13 @@ internal static class HarmonicCommand
             "direct (exact, any damping) or modal (superposition with residual flexibility); default: the file's 'method', else direct.",
             ("direct", HarmonicMethod.Direct), ("modal", HarmonicMethod.Modal));
         var solver = CommonOptions.Solver();
+        var units = CommonOptions.Units();
         var command = new Command("harmonic",
             "Steady-state response to the model's harmonic loads (forces, rotating unbalances, support motions) over a " +
             "frequency sweep: displacement, velocity and acceleration of each output mass, spring and damper forces, support " +
             "reactions and transmissibility, the peak of each over the sweep, and the response at each load's running speed. " +
             "The sweep comes from the file's 'harmonic' section; --from/--to/--points override it.")
-        { file, outputs, from, to, points, method, solver, format };
+        { file, outputs, from, to, points, method, solver, format, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -97,7 +98,7 @@ internal static class HarmonicCommand
                     HarmonicCsv.Write(io.Output, result);
                     break;
                 default:
-                    HarmonicTable.Write(io.Output, document, system, result);
+                    HarmonicTable.Write(io.Output, document, system, result, CommonOptions.UnitsOf(parse, units, document));
                     break;
             }
             return ExitCodes.Success;

@@ -34,6 +34,11 @@ public sealed record ModelDocument(
 
     /// <summary>The transient run the file asks for in its 'transient' section, or null when it has none.</summary>
     public TransientSpec? Transient { get; init; }
+
+    /// <summary>For mass, stiffness and damping coefficient, the one unit symbol (the unit table's spelling, e.g. "kN/mm") in which the
+    /// file writes every value of that kind; a kind written in several units, or not at all, is absent. Display layers show
+    /// values in these units so a model written in kN/mm reads back in kN/mm; the values themselves stay SI.</summary>
+    public IReadOnlyDictionary<Core.Units.Quantity, string> WrittenUnits { get; init; } = new Dictionary<Core.Units.Quantity, string>();
 }
 
 /// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>

@@ -80,6 +80,7 @@ public static partial class ModelReader
             TimedLoads = timedLoads,
             Transient = transient,
             Criteria = criteria,
+            WrittenUnits = context.WrittenUnits(),
         };
         return Finish(context, document);
     }
