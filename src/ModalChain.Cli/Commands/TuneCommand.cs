@@ -132,7 +132,6 @@ internal static class TuneCommand
         [
             $"Written by modalchain tune from {Path.GetFileName(document.File)} (sha256 {document.Sha256[..12]}).",
             string.Create(Inv, $"Absorber '{names.Mass}' on '{design.Host}' for mode {design.ModeNumber} ({design.ModeFrequencyHz:F3} Hz), mass ratio {design.Optimum.MassRatio * 100:G4} %."),
-            "Comments of the original file are not carried over.",
         ]);
         try { AtomicFile.WriteAllText(output, text, overwrite: force); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
