@@ -84,12 +84,14 @@ internal static class CheckCommand
                     Signed(worst.Reserve, worst.ReserveNote),
                     worst.Passes ? "pass" : "FAIL");
             }
-            table.Write(o);
+            if (!sep.Pairs.IsEmpty) table.Write(o);
             o.WriteLine(sep.ReserveNote is { } note
                 ? $"  {(sep.Passes ? "passes" : "FAILS")}; reserve {note}."
                 : sep.Passes
                 ? string.Create(Inv, $"  passes; the governing mode may shift {100 * sep.Reserve:F1} % before it enters a band.")
                 : string.Create(Inv, $"  FAILS; the governing mode must shift {-100 * sep.Reserve:F1} % to leave its band."));
+            foreach (var x in sep.Exempted)
+                o.WriteLine(string.Create(Inv, $"  mode {x.ModeNumber} ({x.NaturalFrequencyHz:F3} Hz) not checked: {x.Reason}."));
             o.WriteLine("  reserve = relative change of the natural frequency that puts it on the nearest band edge (positive: clear).");
             o.WriteLine();
         }

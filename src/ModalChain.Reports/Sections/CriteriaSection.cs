@@ -71,9 +71,14 @@ public sealed class CriteriaSection : IReportSection
                     DisplayUnits.Percent(worst.Separation), Reserve(worst.Reserve, worst.ReserveNote), worst.Passes ? "pass" : "FAIL",
                 ]);
             }
-            html.Table(string.Create(Inv, $"Frequency separation: no natural frequency within ±{DisplayUnits.Given(100 * c.Margin)} % of running speed × order"),
-                ["Speed (rpm)", "Order", "Excitation (Hz)", "Band (Hz)", "Nearest mode", "f (Hz)", "Separation (%)", "Reserve (%)", "Result"],
-                rows, new HashSet<int> { 0, 1, 2, 4, 5, 6, 7 }, "criteria-table");
+            var heading = string.Create(Inv, $"Frequency separation: no natural frequency within ±{DisplayUnits.Given(100 * c.Margin)} % of running speed × order");
+            if (rows.Count > 0)
+                html.Table(heading,
+                    ["Speed (rpm)", "Order", "Excitation (Hz)", "Band (Hz)", "Nearest mode", "f (Hz)", "Separation (%)", "Reserve (%)", "Result"],
+                    rows, new HashSet<int> { 0, 1, 2, 4, 5, 6, 7 }, "criteria-table");
+            else html.Paragraph($"{heading}: no mode left to check ({sep.ReserveNote}).");
+            if (!sep.Exempted.IsEmpty)
+                html.List(sep.Exempted.Select(x => $"Mode {x.ModeNumber} ({DisplayUnits.Number(x.NaturalFrequencyHz)} Hz) is not checked: {x.Reason}."), "notes");
         }
         if (_outcome.Limits.Count > 0)
             html.Table("Vibration limits at the operating points",
