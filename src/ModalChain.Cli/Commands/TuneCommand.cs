@@ -8,6 +8,7 @@ using ModalChain.Core.Units;
 using ModalChain.Io.Files;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Commands;
 
@@ -147,7 +148,7 @@ internal static class TuneCommand
     {
         var (mass, stiffness, damping) = (units.MassUnit, units.StiffnessUnit, units.DampingUnit);
         var (d, a, improvement) = (tuned.Design, tuned.Assessment, tuned.Improvement);
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine();
         var targetText = d.Target switch
         {

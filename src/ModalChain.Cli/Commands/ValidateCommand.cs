@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using ModalChain.Core.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Commands;
 
@@ -24,7 +25,7 @@ internal static class ValidateCommand
             var inv = CultureInfo.InvariantCulture;
             var o = io.Output;
             o.WriteLine($"{path}: valid");
-            o.WriteLine($"  title:               {n.Title}");
+            o.WriteLine($"  title:               {TerminalText.Line(n.Title)}");
             o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.ForScalarNetwork(n).Count} (one direction per mass{(n.Links.IsEmpty ? "" : "; linked masses share one")})"));
             var mass = CommonOptions.UnitsOf(parse, units, document).MassUnit;
             o.WriteLine(string.Create(inv, $"  total mass:          {mass.From(n.TotalMass):G6} {mass.Plain}"));

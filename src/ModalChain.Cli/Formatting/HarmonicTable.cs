@@ -5,6 +5,7 @@ using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 using ModalChain.Reports.Units;
 
 namespace ModalChain.Cli.Formatting;
@@ -18,7 +19,7 @@ internal static class HarmonicTable
     {
         var (du, vu, au, fu) = (units.Displacement, units.Velocity, units.Acceleration, units.Force);
         var f = result.FrequenciesHz;
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine(string.Create(Inv,
             $"Harmonic response, {(result.Method == HarmonicMethod.Modal ? "modal superposition" : "direct solve")}, {f.Length} frequencies from {f.Min():G4} to {f.Max():G4} Hz"));
         o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!, units))));
