@@ -15,11 +15,12 @@ internal static class HarmonicTable
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    public static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result, DisplayUnits units)
+    /// <summary>The report of one sweep in <paramref name="units"/>; for a load case (<paramref name="caseName"/> not null) headed by the case, without the caution (the caller writes it once).</summary>
+    public static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result, DisplayUnits units, string? caseName = null)
     {
         var (du, vu, au, fu) = (units.Displacement, units.Velocity, units.Acceleration, units.Force);
         var f = result.FrequenciesHz;
-        o.WriteLine(TerminalText.Line(document.Network.Title));
+        o.WriteLine(caseName is null ? TerminalText.Line(document.Network.Title) : $"Load case {caseName}");
         o.WriteLine(string.Create(Inv,
             $"Harmonic response, {(result.Method == HarmonicMethod.Modal ? "modal superposition" : "direct solve")}, {f.Length} frequencies from {f.Min():G4} to {f.Max():G4} Hz"));
         o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!, units))));
@@ -89,13 +90,14 @@ internal static class HarmonicTable
         foreach (var n in result.Notes) o.WriteLine("Note: " + n + ".");
         foreach (var w in result.Warnings) o.WriteLine("Warning: " + w + ".");
         o.WriteLine("Phases are relative to the loads' phase reference; velocity = iωX, acceleration = −ω²X; reactions are the force each support receives.");
+        if (caseName is not null) return;
         o.WriteLine();
         o.WriteLine("Caution: " + Cautions.Text);
     }
 
-    private static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
+    internal static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
 
-    private static string Describe(Load load, DisplayUnits units) => load switch
+    internal static string Describe(Load load, DisplayUnits units) => load switch
     {
         ForceLoad f => string.Create(Inv, $"{f.Name} (force {units.Force.From(f.Amplitude):G4} {units.Force.Plain} at {f.At}{Speed(f.SpeedHz)})"),
         UnbalanceLoad u => string.Create(Inv, $"{u.Name} (unbalance {units.MassRadius.From(u.MassRadius):G4} {units.MassRadius.Plain} at {u.At}{Speed(u.SpeedHz)})"),
