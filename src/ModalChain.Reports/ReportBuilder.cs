@@ -48,7 +48,7 @@ public static class ReportBuilder
             json.WriteString("file", MarkupText.Clean(Path.GetFileName(context.Document.File)));
             json.WriteString("sha256", context.Document.Sha256);
             json.WriteEndObject();
-            json.WriteString("display_units", context.Options.Units == UnitSystem.Imperial ? "imperial" : "si");
+            json.WriteString("display_units", context.Units.System == UnitSystem.Imperial ? "imperial" : "si");
             json.WriteString("units", "SI throughout this file (kg, N/m, N*s/m, m, s, Hz)");
             json.WriteStartArray("sections");
             foreach (var s in sections) json.WriteStringValue(s.Key);

@@ -18,9 +18,9 @@ public enum ReportFormat
 /// <summary>Options of a report run.</summary>
 /// <param name="ToolVersion">Version of the tool, printed on the report for traceability.</param>
 /// <param name="Generated">When the report was made (printed in UTC).</param>
-/// <param name="Units">Display units of the HTML and figures; results.json is always SI.</param>
+/// <param name="Units">Display units of the HTML and figures, or null for the system the model is written in (<see cref="DisplayUnits.SystemOf"/>); results.json is always SI.</param>
 /// <param name="MaxModes">Largest number of modes tabulated and drawn (the lowest ones).</param>
-public sealed record ReportOptions(string ToolVersion, DateTimeOffset Generated, UnitSystem Units = UnitSystem.Si, int MaxModes = 20)
+public sealed record ReportOptions(string ToolVersion, DateTimeOffset Generated, UnitSystem? Units = null, int MaxModes = 20)
 {
     /// <summary>Networks up to this many masses get an animated mode view in the HTML (larger ones would bloat the file).</summary>
     public int MaxAnimatedMasses { get; init; } = 40;

@@ -9,6 +9,7 @@ using ModalChain.Core.Assembly;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
+using ModalChain.Reports.Units;
 
 namespace ModalChain.Cli.Commands;
 
@@ -22,13 +23,14 @@ internal static class CheckCommand
         var file = CommonOptions.ModelFile();
         var format = CommonOptions.Format(OutputFormat.Table, OutputFormat.Json);
         var solver = CommonOptions.Solver();
+        var units = CommonOptions.Units();
         var command = new Command("check",
             "Evaluate the criteria of the model's 'criteria:' section: frequency separation (no natural frequency within " +
             "±margin of any running speed × order) and vibration limits at the operating points. Each criterion prints " +
             "its reserve, how far it is from failing in %. Machine zones (r.m.s. velocity against zone boundaries of a machine " +
             "class) and floor curves (one-third-octave r.m.s. velocity against a vibration criterion curve) are checked by name. Exit code 0 when all pass, 1 when any fails or cannot be " +
             "evaluated, 2 on input errors. Default margins are common practice, not code requirements (docs/criteria.md).")
-        { file, solver, format };
+        { file, solver, format, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -45,7 +47,7 @@ internal static class CheckCommand
             {
                 io.WriteJson(stream => CheckJson.Write(stream, document, outcome, CliApp.Version));
             }
-            else Write(io.Output, document, outcome);
+            else Write(io.Output, document, outcome, CommonOptions.UnitsOf(parse, units, document));
             return outcome.AllPass ? ExitCodes.Success : ExitCodes.CheckFailed;
         });
         return command;
@@ -57,8 +59,9 @@ internal static class CheckCommand
         return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure, new ModalOptions(Choice: choice)), document.Criteria, OperatingLoads.Of(document), document.Cases);
     }
 
-    private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome)
+    private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome, DisplayUnits units)
     {
+        var (velocity, floor) = (units.Velocity, units.FloorVelocity);
         o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine();
         if (outcome.Separation is { } sep)
@@ -82,12 +85,14 @@ internal static class CheckCommand
                     Signed(worst.Reserve, worst.ReserveNote),
                     worst.Passes ? "pass" : "FAIL");
             }
-            table.Write(o);
+            if (!sep.Pairs.IsEmpty) table.Write(o);
             o.WriteLine(sep.ReserveNote is { } note
                 ? $"  {(sep.Passes ? "passes" : "FAILS")}; reserve {note}."
                 : sep.Passes
                 ? string.Create(Inv, $"  passes; the governing mode may shift {100 * sep.Reserve:F1} % before it enters a band.")
                 : string.Create(Inv, $"  FAILS; the governing mode must shift {-100 * sep.Reserve:F1} % to leave its band."));
+            foreach (var x in sep.Exempted)
+                o.WriteLine(string.Create(Inv, $"  mode {x.ModeNumber} ({x.NaturalFrequencyHz:F3} Hz) not checked: {x.Reason}."));
             o.WriteLine("  reserve = relative change of the natural frequency that puts it on the nearest band edge (positive: clear).");
             o.WriteLine();
         }
@@ -97,7 +102,7 @@ internal static class CheckCommand
             var table = new TextTable("where", "quantity", "measure", "value", "limit", "reserve [%]", "result");
             foreach (var l in outcome.Limits)
                 table.Add(l.Limit.At, l.Limit.Quantity.ToString().ToLowerInvariant(), l.Limit.Measure == AmplitudeMeasure.Peak ? "peak" : "rms",
-                    Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Signed(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL");
+                    Show(l.Value, l.Limit.Quantity, units), Show(l.Limit.Value, l.Limit.Quantity, units), Signed(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL");
             table.Write(o);
             o.WriteLine("  reserve = (limit - value) / limit.");
             if (outcome.Combination is { } rule)
@@ -107,12 +112,12 @@ internal static class CheckCommand
         if (outcome.Zones.Length > 0)
         {
             o.WriteLine("Machine vibration zones at the operating points (r.m.s. velocity of the steady state)");
-            var table = new TextTable("where", "class", "A/B-B/C-C/D [mm/s rms]", "value [mm/s rms]", "zone", "accepted", "reserve [%]", "result");
+            var table = new TextTable("where", "class", $"A/B-B/C-C/D [{velocity.Plain} rms]", $"value [{velocity.Plain} rms]", "zone", "accepted", "reserve [%]", "result");
             foreach (var z in outcome.Zones)
             {
                 var c = z.Criterion.Class;
-                table.Add(z.At, c.Name, string.Create(Inv, $"{c.BoundaryAB * 1e3:G3}/{c.BoundaryBC * 1e3:G3}/{c.BoundaryCD * 1e3:G3}"),
-                    double.IsFinite(z.RmsVelocity) ? (z.RmsVelocity * 1e3).ToString("G4", Inv) : "unbounded", z.Zone.ToString(),
+                table.Add(z.At, c.Name, string.Create(Inv, $"{velocity.From(c.BoundaryAB):G3}/{velocity.From(c.BoundaryBC):G3}/{velocity.From(c.BoundaryCD):G3}"),
+                    double.IsFinite(z.RmsVelocity) ? velocity.From(z.RmsVelocity).ToString("G4", Inv) : "unbounded", z.Zone.ToString(),
                     "up to " + z.Criterion.AcceptedZone, Signed(z.Reserve, z.ReserveNote), z.Passes ? "pass" : "FAIL");
             }
             table.Write(o);
@@ -124,10 +129,10 @@ internal static class CheckCommand
         foreach (var f in outcome.Floors)
         {
             o.WriteLine($"Floor curve {f.Criterion.Curve.Name} at {f.At}: one-third-octave r.m.s. velocity at the operating points");
-            var table = new TextTable("band [Hz]", "value [um/s rms]", "limit [um/s rms]", "reserve [%]", "result");
+            var table = new TextTable("band [Hz]", $"value [{floor.Plain} rms]", $"limit [{floor.Plain} rms]", "reserve [%]", "result");
             foreach (var b in f.Bands)
-                table.Add(b.NominalHz.ToString("G4", Inv), double.IsFinite(b.RmsVelocity) ? (b.RmsVelocity * 1e6).ToString("G4", Inv) : "unbounded",
-                    (b.Limit * 1e6).ToString("G4", Inv), Signed(b.Reserve, null), b.Passes ? "pass" : "FAIL");
+                table.Add(b.NominalHz.ToString("G4", Inv), double.IsFinite(b.RmsVelocity) ? floor.From(b.RmsVelocity).ToString("G4", Inv) : "unbounded",
+                    floor.From(b.Limit).ToString("G4", Inv), Signed(b.Reserve, null), b.Passes ? "pass" : "FAIL");
             table.Write(o);
             o.WriteLine($"  worst band: {(f.Governing is { } g ? g.NominalHz.ToString("G4", Inv) + " Hz, reserve " + Signed(f.Reserve, f.ReserveNote) + " %" : f.ReserveNote)}; {(f.Passes ? "passes" : "FAILS")}.");
             if (f.UncomparedHz.Length > 0)
@@ -148,10 +153,6 @@ internal static class CheckCommand
     internal static string Signed(double fraction, string? note) =>
         double.IsFinite(fraction) ? (100 * fraction).ToString("+0.0;-0.0;0.0", Inv) : note ?? "n/a";
 
-    internal static string Show(double si, ResponseQuantity q) => !double.IsFinite(si) ? (double.IsPositiveInfinity(si) ? "unbounded" : "n/a") : q switch
-    {
-        ResponseQuantity.Displacement => (si * 1e3).ToString("G4", Inv) + " mm",
-        ResponseQuantity.Velocity => (si * 1e3).ToString("G4", Inv) + " mm/s",
-        _ => si.ToString("G4", Inv) + " m/s^2",
-    };
+    internal static string Show(double si, ResponseQuantity q, DisplayUnits units) =>
+        !double.IsFinite(si) ? (double.IsPositiveInfinity(si) ? "unbounded" : "n/a") : units.Of(q).From(si).ToString("G4", Inv) + " " + units.Of(q).Plain;
 }

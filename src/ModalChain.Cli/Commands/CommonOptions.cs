@@ -3,6 +3,7 @@ using ModalChain.Core.Solvers;
 using ModalChain.Io.Diagnostics;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
+using ModalChain.Reports.Units;
 
 namespace ModalChain.Cli.Commands;
 
@@ -33,6 +34,19 @@ internal static class CommonOptions
         // Help lists only what the command writes, in lower case; an absent --format is default(OutputFormat), Table.
         return CommandValues.Choice("--format", sentence + ".", [.. offered.Select(f => (f.ToString().ToLowerInvariant(), f))]);
     }
+
+    /// <summary>The <c>--units</c> option of every command that prints tables for people.</summary>
+    public static Option<UnitSystem?> Units() =>
+        CommandValues.Choice<UnitSystem?>("--units",
+            "Units of the tables and charts: si (kg, kN/m, mm, mm/s, m/s^2, N) or imperial (lb, lbf/in, in, in/s, in/s^2, lbf). Default: " +
+            "imperial when every mass, stiffness and damping value of the model is in US customary units, else si. Mass, stiffness " +
+            "and damping are shown in the unit the model writes them in when that unit belongs to the system (kN/mm stays kN/mm). " +
+            "JSON and CSV are always SI.",
+            ("si", UnitSystem.Si), ("imperial", UnitSystem.Imperial));
+
+    /// <summary>The display units asked for with <c>--units</c>, or those the model is written in.</summary>
+    public static DisplayUnits UnitsOf(ParseResult parse, Option<UnitSystem?> option, ModelDocument document) =>
+        new(parse.GetValue(option) ?? DisplayUnits.SystemOf(document.WrittenUnits), document.WrittenUnits);
 
     /// <summary>The <c>--solver</c> option of every command that solves modes.</summary>
     public static Option<SolverChoice> Solver()

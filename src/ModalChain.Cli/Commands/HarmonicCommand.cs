@@ -37,13 +37,14 @@ internal static class HarmonicCommand
         var casesOption = CommonOptions.NameList("--cases",
             "Sweep these load cases only, e.g. --cases exhaust-fan,supply-fan (names joined by commas, or the option repeated); overrides 'cases' of the file's 'harmonic' section.");
         var solver = CommonOptions.Solver();
+        var units = CommonOptions.Units();
         var command = new Command("harmonic",
             "Steady-state response to the model's harmonic loads (forces, rotating unbalances, support motions) over a " +
             "frequency sweep: displacement, velocity and acceleration of each output mass, spring and damper forces, support " +
             "reactions and transmissibility, the peak of each over the sweep, and the response at each load's running speed. " +
             "A model with 'load-cases' is swept case by case and the cases are combined at their running speeds by the stated rule. " +
             "The sweep comes from the file's 'harmonic' section; --from/--to/--points override it.")
-        { file, outputs, from, to, points, method, casesOption, solver, format };
+        { file, outputs, from, to, points, method, casesOption, solver, format, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -111,7 +112,7 @@ internal static class HarmonicCommand
                         HarmonicCsv.Write(io.Output, byCase);
                         break;
                     default:
-                        HarmonicCaseTable.Write(io.Output, document, system, byCase);
+                        HarmonicCaseTable.Write(io.Output, document, system, byCase, CommonOptions.UnitsOf(parse, units, document));
                         break;
                 }
                 return ExitCodes.Success;
@@ -126,7 +127,7 @@ internal static class HarmonicCommand
                     HarmonicCsv.Write(io.Output, result);
                     break;
                 default:
-                    HarmonicTable.Write(io.Output, document, system, result);
+                    HarmonicTable.Write(io.Output, document, system, result, CommonOptions.UnitsOf(parse, units, document));
                     break;
             }
             return ExitCodes.Success;

@@ -21,10 +21,11 @@ internal static class ModesCommand
             "lowest N of them); large sparse models are solved for these modes only, with a count proving none was missed.",
             ValueBound.Positive);
         var solver = CommonOptions.Solver();
+        var units = CommonOptions.Units();
         var command = new Command("modes",
             "Natural frequencies, periods, mass-normalised mode shapes, participation factors and effective modal masses " +
             "of the undamped network, with quality figures (eigen residual, M-orthogonality).")
-        { file, count, below, solver, format };
+        { file, count, below, solver, format, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -58,7 +59,7 @@ internal static class ModesCommand
                     ModesCsv.Write(io.Output, result);
                     break;
                 default:
-                    ModesTable.Write(io.Output, result, damped, complexModes);
+                    ModesTable.Write(io.Output, result, CommonOptions.UnitsOf(parse, units, document), damped, complexModes);
                     break;
             }
             stages?.Mark("write");

@@ -19,9 +19,7 @@ internal static class ReportCommand
         var format = CommandValues.Choice("--format",
             "html: report.html + SVG figures + results.json (the default); svg: the SVG figures and results.json only; pdf: as html, plus each figure as PDF.",
             ("html", ReportFormat.Html), ("svg", ReportFormat.Svg), ("pdf", ReportFormat.Pdf));
-        var units = CommandValues.Choice("--units",
-            "Units shown in the report: si (the default) or imperial (lb, lbf/in, lbf·s/in, in). results.json is always SI.",
-            ("si", UnitSystem.Si), ("imperial", UnitSystem.Imperial));
+        var units = CommonOptions.Units();
         var modes = CommandValues.Count("--modes", "Largest number of modes tabulated and drawn (the lowest ones; default 20).", 1);
         var absorberHost = AbsorberArguments.Host("--absorber-host", required: false);
         absorberHost.Description = "Add a tuned-absorber section: the mass the absorber hangs on (with --mass-ratio; as modalchain tune --host).";

@@ -46,11 +46,12 @@ internal static class StudyCommand
             ("linear", StudySpacing.Linear), ("geometric", StudySpacing.Geometric));
         var orders = new Option<string?>("--orders") { Description = "Orders for the speed-frequency chart, comma-separated (default: criteria.separation.orders, else 1,2)." };
         var format = CommonOptions.Format();
+        var units = CommonOptions.Units();
         var command = new Command("study",
             "Vary one numeric field of the model over a range, re-solve the modes at each value (in parallel), follow each " +
             "mode by its shape (modal assurance criterion) so identities survive frequency crossings, and find " +
             "the values at which each criterion of the model starts or stops passing, by a bracketed root search.")
-        { file, vary, from, to, steps, spacing, orders, format };
+        { file, vary, from, to, steps, spacing, orders, format, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -100,7 +101,7 @@ internal static class StudyCommand
                     StudyCsv.Write(io.Output, result, UnitTable.SiSymbol(parameter.Quantity));
                     break;
                 default:
-                    WriteTable(io.Output, document, result, a);
+                    WriteTable(io.Output, document, result, a, CommonOptions.UnitsOf(parse, units, document));
                     break;
             }
             return ExitCodes.Success;
@@ -121,7 +122,7 @@ internal static class StudyCommand
         return value;
     }
 
-    private static void WriteTable(TextWriter o, ModelDocument document, StudyResult result, CommandValue unit)
+    private static void WriteTable(TextWriter o, ModelDocument document, StudyResult result, CommandValue unit, Reports.Units.DisplayUnits units)
     {
         var req = result.Request;
         o.WriteLine(TerminalText.Line(document.Network.Title));
@@ -137,7 +138,7 @@ internal static class StudyCommand
             var row = new List<string> { (s.Value / unit.Factor).ToString("G6", Inv) };
             row.AddRange(result.Modes.Select(m => m.FrequenciesHz[s.Index].ToString("F3", Inv)));
             row.AddRange(s.Reserves.Select((r, c) => (r >= 0 ? "pass " : "FAIL ") + (double.IsFinite(r)
-                ? CheckCommand.Signed(r, null) + " %" + (req.Criteria[c].Limit is { } limit ? $" ({CheckCommand.Show(limit.Value * (1 - r), limit.Quantity)})" : "")
+                ? CheckCommand.Signed(r, null) + " %" + (req.Criteria[c].Limit is { } limit ? $" ({CheckCommand.Show(limit.Value * (1 - r), limit.Quantity, units)})" : "")
                 : req.Criteria[c].Limit is null ? ReserveNotes.OfSeparation(r, rigidBody: false) : ReserveNotes.OfLimit(0, r))));
             table.Add([.. row]);
         }

@@ -32,13 +32,14 @@ internal static class TransientCommand
         var loadsOption = CommonOptions.NameList("--loads",
             "Run with these timed loads only, e.g. --loads fan-start,door-slam (names joined by commas, or the option repeated); overrides 'loads' of the file's 'transient' section.");
         var solver = CommonOptions.Solver();
+        var units = CommonOptions.Units();
         var command = new Command("transient",
             "Response in time to the model's timed loads (steps, pulses, sines, recorded tables, run-ups and run-downs of a " +
             "rotating unbalance, support accelerations) from its initial conditions: displacement, velocity and acceleration " +
             "of each output mass, spring and damper forces and support reactions, with their peaks and RMS and an energy " +
             "balance. The run comes from the file's 'transient' section; the options override it. A progress bar is shown " +
             "on long runs, only on a terminal and only with the table format.")
-        { file, method, step, duration, outputs, loadsOption, solver, format };
+        { file, method, step, duration, outputs, loadsOption, solver, format, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -107,7 +108,7 @@ internal static class TransientCommand
                     TransientCsv.Write(io.Output, result);
                     break;
                 default:
-                    TransientTable.Write(io.Output, document, system, result, loads);
+                    TransientTable.Write(io.Output, document, system, result, loads, CommonOptions.UnitsOf(parse, units, document));
                     break;
             }
             return ExitCodes.Success;

@@ -32,6 +32,7 @@ internal static class TuneCommand
         var tolerance = AbsorberArguments.SpeedTolerance("--speed-tolerance");
         var method = AbsorberArguments.Method("--method");
         var format = CommonOptions.Format(OutputFormat.Table, OutputFormat.Json);
+        var units = CommonOptions.Units();
         var write = new Option<string?>("--write")
         {
             Description = "Also write the model with the absorber added to this file, ready for every other command. Written atomically " +
@@ -42,7 +43,7 @@ internal static class TuneCommand
             "Size a tuned vibration absorber (mass, spring, damper) for one mode, from the mode's modal mass at the host " +
             "(1/phi_host^2 with mass-normalised shapes) and the classical optimum for the target excitation. The damping " +
             "ratio printed is the absorber's own, c/(2*sqrt(k*m)).")
-        { file, host, ratio, mode, speed, target, tolerance, method, format, write, force };
+        { file, host, ratio, mode, speed, target, tolerance, method, format, units, write, force };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -68,7 +69,7 @@ internal static class TuneCommand
             {
                 io.WriteJson(stream => TuneJson.Write(stream, document, tuned, CliApp.Version));
             }
-            else WriteTable(io.Output, document, tuned, request);
+            else WriteTable(io.Output, document, tuned, request, CommonOptions.UnitsOf(parse, units, document));
             return ExitCodes.Success;
         });
         return command;
@@ -132,7 +133,6 @@ internal static class TuneCommand
         [
             $"Written by modalchain tune from {Path.GetFileName(document.File)} (sha256 {document.Sha256[..12]}).",
             string.Create(Inv, $"Absorber '{names.Mass}' on '{design.Host}' for mode {design.ModeNumber} ({design.ModeFrequencyHz:F3} Hz), mass ratio {design.Optimum.MassRatio * 100:G4} %."),
-            "Comments of the original file are not carried over.",
         ]);
         try { AtomicFile.WriteAllText(output, text, overwrite: force); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException or ArgumentException or NotSupportedException)
@@ -144,8 +144,9 @@ internal static class TuneCommand
         return ExitCodes.Success;
     }
 
-    private static void WriteTable(TextWriter o, ModelDocument document, TunedAbsorber tuned, AbsorberRequest request)
+    private static void WriteTable(TextWriter o, ModelDocument document, TunedAbsorber tuned, AbsorberRequest request, Reports.Units.DisplayUnits units)
     {
+        var (mass, stiffness, damping) = (units.MassUnit, units.StiffnessUnit, units.DampingUnit);
         var (d, a, improvement) = (tuned.Design, tuned.Assessment, tuned.Improvement);
         o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine();
@@ -157,15 +158,15 @@ internal static class TuneCommand
             _ => "white-noise force",
         };
         o.WriteLine(string.Create(Inv, $"Mode controlled:        {d.ModeNumber} at {d.ModeFrequencyHz:F4} Hz ({d.ChosenBy})"));
-        o.WriteLine(string.Create(Inv, $"Host:                   {d.Host}; modal mass there 1/phi^2 = {d.ModalMass:G6} kg"));
+        o.WriteLine(string.Create(Inv, $"Host:                   {d.Host}; modal mass there 1/phi^2 = {mass.From(d.ModalMass):G6} {mass.Plain}"));
         o.WriteLine(string.Create(Inv, $"Mass ratio:             {d.Optimum.MassRatio * 100:G4} %"));
         o.WriteLine($"Tuned for:              {targetText}");
         o.WriteLine($"Method used:            {tuned.Method}: {tuned.MethodDescription}");
         o.WriteLine();
         o.WriteLine("Absorber");
-        o.WriteLine(string.Create(Inv, $"  mass                  {d.Mass:G6} kg"));
-        o.WriteLine(string.Create(Inv, $"  stiffness             {d.Stiffness:G6} N/m ({d.Stiffness / 1e6:G5} kN/mm)"));
-        o.WriteLine(string.Create(Inv, $"  damping coefficient   {d.Damping:G6} N*s/m"));
+        o.WriteLine(string.Create(Inv, $"  mass                  {mass.From(d.Mass):G6} {mass.Plain}"));
+        o.WriteLine(string.Create(Inv, $"  stiffness             {stiffness.From(d.Stiffness):G6} {stiffness.Plain}"));
+        o.WriteLine(string.Create(Inv, $"  damping coefficient   {damping.From(d.Damping):G6} {damping.Plain}"));
         o.WriteLine(string.Create(Inv, $"  tuned frequency       {d.FrequencyHz:F4} Hz (ratio to the mode {d.FrequencyHz / d.ModeFrequencyHz:F6})"));
         o.WriteLine(string.Create(Inv, $"  damping ratio         {d.DampingRatio:F6}  (absorber's own: c/(2*sqrt(k*m)))"));
         o.WriteLine(string.Create(Inv, $"                        {d.DampingRatioPrimaryReferenced:F6}  (the same damper referred to the mode's frequency: c/(2*m*omega_p))"));
@@ -182,9 +183,9 @@ internal static class TuneCommand
         if (a.AtSpeeds.IsEmpty) o.WriteLine("  at running speeds     not computed: no running speed is given (--speed, criteria.separation.speeds or a load's speed)");
         foreach (var sp in a.AtSpeeds)
             o.WriteLine(string.Create(Inv, $"  at {sp.FrequencyHz,8:G6} Hz         {Peak(sp.Before)} before, {Peak(sp.After)} after (running speed x order)"));
-        o.WriteLine(string.Create(Inv, $"  absorber stroke       {a.StrokePerForce * 1e6:G4} mm per kN of force at the host, at {a.PeakFrequencyHz:F3} Hz (relative to the host)"));
+        o.WriteLine(string.Create(Inv, $"  absorber stroke       {units.Compliance.From(a.StrokePerForce):G4} {units.Compliance.Plain} (stroke per force at the host), at {a.PeakFrequencyHz:F3} Hz (relative to the host)"));
         o.WriteLine(double.IsFinite(a.OperatingStroke)
-            ? string.Create(Inv, $"  stroke in operation   {a.OperatingStroke * 1e3:G4} mm peak under the model's loads at their running speeds")
+            ? string.Create(Inv, $"  stroke in operation   {units.Displacement.From(a.OperatingStroke):G4} {units.Displacement.Plain} peak under the model's loads at their running speeds")
             : "  stroke in operation   not computed: no load of the model has a running speed");
         if (improvement is not null) o.WriteLine($"  optimal tuning:       {improvement}");
         o.WriteLine("  mistuning (absorber frequency off, same mass and damping ratio):");

@@ -11,10 +11,11 @@ internal static class ValidateCommand
     public static Command Create(Streams io)
     {
         var file = CommonOptions.ModelFile();
+        var units = CommonOptions.Units();
         var command = new Command("validate",
             "Check a model file and summarise it (degrees of freedom, total mass, warnings). " +
             "Every problem is reported as FILE:LINE:COL. Exit code 2 when the file has errors.")
-        { file };
+        { file, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -26,7 +27,8 @@ internal static class ValidateCommand
             o.WriteLine($"{path}: valid");
             o.WriteLine($"  title:               {TerminalText.Line(n.Title)}");
             o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.ForScalarNetwork(n).Count} (one direction per mass{(n.Links.IsEmpty ? "" : "; linked masses share one")})"));
-            o.WriteLine(string.Create(inv, $"  total mass:          {n.TotalMass:G6} kg"));
+            var mass = CommonOptions.UnitsOf(parse, units, document).MassUnit;
+            o.WriteLine(string.Create(inv, $"  total mass:          {mass.From(n.TotalMass):G6} {mass.Plain}"));
             o.WriteLine(string.Create(inv, $"  springs, dampers:    {n.Springs.Length}, {n.Dampers.Length}"));
             var groups = Topology.UnsupportedGroups(n);
             o.WriteLine(string.Create(inv, $"  unsupported groups:  {groups.Length}{(groups.Length > 0 ? " (rigid-body modes expected)" : "")}"));

@@ -6,6 +6,7 @@ using ModalChain.Core.Model;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
+using ModalChain.Reports.Units;
 
 namespace ModalChain.Cli.Formatting;
 
@@ -14,29 +15,28 @@ internal static class HarmonicTable
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    public static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result) => Write(o, document, system, result, null);
-
-    /// <summary>The report of one sweep; for a load case (<paramref name="caseName"/> not null) headed by the case, without the caution (the caller writes it once).</summary>
-    internal static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result, string? caseName)
+    /// <summary>The report of one sweep in <paramref name="units"/>; for a load case (<paramref name="caseName"/> not null) headed by the case, without the caution (the caller writes it once).</summary>
+    public static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result, DisplayUnits units, string? caseName = null)
     {
+        var (du, vu, au, fu) = (units.Displacement, units.Velocity, units.Acceleration, units.Force);
         var f = result.FrequenciesHz;
         o.WriteLine(caseName is null ? TerminalText.Line(document.Network.Title) : $"Load case {caseName}");
         o.WriteLine(string.Create(Inv,
             $"Harmonic response, {(result.Method == HarmonicMethod.Modal ? "modal superposition" : "direct solve")}, {f.Length} frequencies from {f.Min():G4} to {f.Max():G4} Hz"));
-        o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!))));
+        o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!, units))));
         o.WriteLine("Damping: " + DescribeDamping(system));
         o.WriteLine();
 
         o.WriteLine("Peaks over the sweep");
-        var peaks = new TextTable("output", "displacement [mm peak]", "at [Hz]", "velocity [mm/s peak]", "at [Hz]", "acceleration [m/s^2 peak]", "at [Hz]");
+        var peaks = new TextTable("output", $"displacement [{du.Plain} peak]", "at [Hz]", $"velocity [{vu.Plain} peak]", "at [Hz]", $"acceleration [{au.Plain} peak]", "at [Hz]");
         var all = result.Peaks();
         foreach (var r in result.Responses)
         {
             var p = all.Where(x => x.Dof == r.Dof).ToDictionary(x => x.Quantity);
             peaks.Add(r.Dof,
-                Num(1e3 * p[ResponseQuantity.Displacement].Magnitude), p[ResponseQuantity.Displacement].FrequencyHz.ToString("F3", Inv),
-                Num(1e3 * p[ResponseQuantity.Velocity].Magnitude), p[ResponseQuantity.Velocity].FrequencyHz.ToString("F3", Inv),
-                Num(p[ResponseQuantity.Acceleration].Magnitude), p[ResponseQuantity.Acceleration].FrequencyHz.ToString("F3", Inv));
+                Num(du.From(p[ResponseQuantity.Displacement].Magnitude)), p[ResponseQuantity.Displacement].FrequencyHz.ToString("F3", Inv),
+                Num(vu.From(p[ResponseQuantity.Velocity].Magnitude)), p[ResponseQuantity.Velocity].FrequencyHz.ToString("F3", Inv),
+                Num(au.From(p[ResponseQuantity.Acceleration].Magnitude)), p[ResponseQuantity.Acceleration].FrequencyHz.ToString("F3", Inv));
         }
         peaks.Write(o);
         foreach (var p in all.Where(p => p.EdgeWarning is not null))
@@ -45,11 +45,11 @@ internal static class HarmonicTable
         if (result.Reactions.Length > 0)
         {
             o.WriteLine();
-            var reactions = new TextTable("support", "reaction [N peak]", "at [Hz]");
+            var reactions = new TextTable("support", $"reaction [{fu.Plain} peak]", "at [Hz]");
             foreach (var r in result.Reactions)
             {
                 var k = Enumerable.Range(0, f.Length).MaxBy(i => r.Force[i].Magnitude);
-                reactions.Add(r.Support, Num(r.Force[k].Magnitude), f[k].ToString("F3", Inv));
+                reactions.Add(r.Support, Num(fu.From(r.Force[k].Magnitude)), f[k].ToString("F3", Inv));
             }
             reactions.Write(o);
         }
@@ -59,21 +59,21 @@ internal static class HarmonicTable
             var at = op.Response;
             o.WriteLine();
             o.WriteLine(string.Create(Inv, $"Operating point {op.SpeedHz:G6} Hz ({60 * op.SpeedHz:G6} rpm): {string.Join(", ", op.Loads)}"));
-            var table = new TextTable("output", "displacement [mm peak]", "phase [deg]", "velocity [mm/s peak]", "velocity [mm/s rms]", "acceleration [m/s^2 peak]");
+            var table = new TextTable("output", $"displacement [{du.Plain} peak]", "phase [deg]", $"velocity [{vu.Plain} peak]", $"velocity [{vu.Plain} rms]", $"acceleration [{au.Plain} peak]");
             foreach (var r in at.Responses)
             {
                 var x = r.At(0, op.SpeedHz, ResponseQuantity.Displacement);
-                table.Add(r.Dof, Num(1e3 * x.Magnitude), HarmonicJson.PhaseDegrees(x).ToString("F1", Inv),
-                    Num(1e3 * r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude),
-                    Num(1e3 * r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude / Math.Sqrt(2)),
-                    Num(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude));
+                table.Add(r.Dof, Num(du.From(x.Magnitude)), HarmonicJson.PhaseDegrees(x).ToString("F1", Inv),
+                    Num(vu.From(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude)),
+                    Num(vu.From(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude) / Math.Sqrt(2)),
+                    Num(au.From(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude)));
             }
             table.Write(o);
-            var forces = new TextTable("element or support", "force [N peak]", "phase [deg]");
+            var forces = new TextTable("element or support", $"force [{fu.Plain} peak]", "phase [deg]");
             foreach (var e in at.ElementForces)
-                forces.Add($"{(e.Kind == ElementKind.Spring ? "spring" : "damper")} {e.Element}", Num(e.Force[0].Magnitude), HarmonicJson.PhaseDegrees(e.Force[0]).ToString("F1", Inv));
+                forces.Add($"{(e.Kind == ElementKind.Spring ? "spring" : "damper")} {e.Element}", Num(fu.From(e.Force[0].Magnitude)), HarmonicJson.PhaseDegrees(e.Force[0]).ToString("F1", Inv));
             foreach (var r in at.Reactions)
-                forces.Add($"reaction at {r.Support}", Num(r.Force[0].Magnitude), HarmonicJson.PhaseDegrees(r.Force[0]).ToString("F1", Inv));
+                forces.Add($"reaction at {r.Support}", Num(fu.From(r.Force[0].Magnitude)), HarmonicJson.PhaseDegrees(r.Force[0]).ToString("F1", Inv));
             o.WriteLine();
             forces.Write(o);
             var nearest = system.Modes.Modes.Where(m => !m.IsRigidBody).MinBy(m => Math.Abs(m.NaturalFrequencyHz / op.SpeedHz - 1));
@@ -97,14 +97,21 @@ internal static class HarmonicTable
 
     internal static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
 
-    internal static string Describe(Load load) => load switch
+    internal static string Describe(Load load, DisplayUnits units) => load switch
     {
-        ForceLoad f => string.Create(Inv, $"{f.Name} (force {f.Amplitude:G4} N at {f.At}{Speed(f.SpeedHz)})"),
-        UnbalanceLoad u => string.Create(Inv, $"{u.Name} (unbalance {u.MassRadius:G4} kg*m at {u.At}{Speed(u.SpeedHz)})"),
-        BaseMotionLoad b => string.Create(Inv,
-            $"{b.Name} ({b.Kind.ToString().ToLowerInvariant()} {b.Amplitude:G4} {(b.Kind == BaseMotionKind.Displacement ? "m" : b.Kind == BaseMotionKind.Velocity ? "m/s" : "m/s^2")} of {b.Support}{Speed(b.SpeedHz)})"),
+        ForceLoad f => string.Create(Inv, $"{f.Name} (force {units.Force.From(f.Amplitude):G4} {units.Force.Plain} at {f.At}{Speed(f.SpeedHz)})"),
+        UnbalanceLoad u => string.Create(Inv, $"{u.Name} (unbalance {units.MassRadius.From(u.MassRadius):G4} {units.MassRadius.Plain} at {u.At}{Speed(u.SpeedHz)})"),
+        BaseMotionLoad b => BaseMotion(b, b.Kind switch
+        {
+            BaseMotionKind.Displacement => units.Displacement,
+            BaseMotionKind.Velocity => units.Velocity,
+            _ => units.Acceleration,
+        }),
         _ => load.Name,
     };
+
+    private static string BaseMotion(BaseMotionLoad b, DisplayUnit unit) => string.Create(Inv,
+        $"{b.Name} ({b.Kind.ToString().ToLowerInvariant()} {unit.From(b.Amplitude):G4} {unit.Plain} of {b.Support}{Speed(b.SpeedHz)})");
 
     private static string Speed(double? hz) => hz is { } s ? string.Create(Inv, $", {60 * s:G6} rpm") : "";
 

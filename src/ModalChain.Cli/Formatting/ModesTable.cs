@@ -5,6 +5,7 @@ using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 using ModalChain.Io.Text;
+using ModalChain.Reports.Units;
 
 namespace ModalChain.Cli.Formatting;
 
@@ -13,11 +14,11 @@ internal static class ModesTable
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    public static void Write(TextWriter o, ModalResult result, DampedSystem? damping = null, ImmutableArray<ComplexMode> complexModes = default)
+    public static void Write(TextWriter o, ModalResult result, DisplayUnits units, DampedSystem? damping = null, ImmutableArray<ComplexMode> complexModes = default)
     {
         var n = result.Network;
         o.WriteLine(TerminalText.Line(n.Title));
-        o.WriteLine(string.Create(Inv, $"{result.Matrices.Size} degrees of freedom, total mass {result.TotalMass:G6} kg, {result.Modes.Length} mode{(result.Modes.Length == 1 ? "" : "s")}"));
+        o.WriteLine(string.Create(Inv, $"{result.Matrices.Size} degrees of freedom, total mass {units.MassUnit.From(result.TotalMass):G6} {units.MassUnit.Plain}, {result.Modes.Length} mode{(result.Modes.Length == 1 ? "" : "s")}"));
         o.WriteLine();
         var table = new TextTable("mode", "frequency [Hz]", "omega [rad/s]", "period [s]", "damping [%]", "eff. mass [%]", "cumulative [%]", "most strained spring", "where it moves (kinetic energy share)");
         foreach (var m in result.Modes)

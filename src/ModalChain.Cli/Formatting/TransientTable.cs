@@ -5,6 +5,7 @@ using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
+using ModalChain.Reports.Units;
 
 namespace ModalChain.Cli.Formatting;
 
@@ -13,25 +14,26 @@ internal static class TransientTable
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    public static void Write(TextWriter o, ModelDocument document, DampedSystem system, TransientResult result, IReadOnlyList<TransientExcitation> loads)
+    public static void Write(TextWriter o, ModelDocument document, DampedSystem system, TransientResult result, IReadOnlyList<TransientExcitation> loads, DisplayUnits units)
     {
+        var (du, vu, au, fu, ju) = (units.Displacement, units.Velocity, units.Acceleration, units.Force, units.Energy);
         var s = result.Settings;
         o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine(string.Create(Inv, $"Transient response, {result.MethodDescription}: {result.StepCount} steps of {s.Step:G4} s over {result.StepCount * s.Step:G6} s"));
-        o.WriteLine("Loads acting together: " + (loads.Count == 0 ? "none (free vibration from the initial state)" : string.Join("; ", loads.Select(Describe))));
+        o.WriteLine("Loads acting together: " + (loads.Count == 0 ? "none (free vibration from the initial state)" : string.Join("; ", loads.Select(l => Describe(l, units)))));
         o.WriteLine("Damping: " + DescribeDamping(system));
         var window = string.Create(Inv, $"{s.RmsFrom ?? 0:G4} to {s.RmsTo ?? result.StepCount * s.Step:G4} s");
         o.WriteLine();
 
         o.WriteLine($"Peaks (largest magnitude, with sign) and RMS over {window}");
-        var motion = new TextTable("output", "displacement [mm peak]", "at [s]", "displacement [mm rms]", "velocity [mm/s peak]", "at [s]", "acceleration [m/s^2 peak]", "at [s]");
+        var motion = new TextTable("output", $"displacement [{du.Plain} peak]", "at [s]", $"displacement [{du.Plain} rms]", $"velocity [{vu.Plain} peak]", "at [s]", $"acceleration [{au.Plain} peak]", "at [s]");
         foreach (var name in result.Responses.Where(r => r.Quantity == ResponseQuantity.Displacement).Select(r => r.Name))
         {
             var u = result.Get(name, ResponseQuantity.Displacement);
             var v = result.Get(name, ResponseQuantity.Velocity);
             var a = result.Get(name, ResponseQuantity.Acceleration);
-            motion.Add(name, Num(1e3 * u.Peak.Value), Time(u.Peak.Time), Rms(1e3 * u.Rms), Num(1e3 * v.Peak.Value), Time(v.Peak.Time),
-                Num(a.Peak.Value), Time(a.Peak.Time));
+            motion.Add(name, Num(du.From(u.Peak.Value)), Time(u.Peak.Time), Rms(du.From(u.Rms)), Num(vu.From(v.Peak.Value)), Time(v.Peak.Time),
+                Num(au.From(a.Peak.Value)), Time(a.Peak.Time));
         }
         motion.Write(o);
 
@@ -39,7 +41,7 @@ internal static class TransientTable
         if (forces.Length > 0)
         {
             o.WriteLine();
-            var table = new TextTable("element or support", "force [N peak]", "at [s]", "force [N rms]");
+            var table = new TextTable("element or support", $"force [{fu.Plain} peak]", "at [s]", $"force [{fu.Plain} rms]");
             foreach (var r in forces)
             {
                 var label = r.Quantity switch
@@ -48,7 +50,7 @@ internal static class TransientTable
                     ResponseQuantity.DamperForce => "damper " + r.Name,
                     _ => "reaction at " + r.Name,
                 };
-                table.Add(label, Num(r.Peak.Value), Time(r.Peak.Time), Rms(r.Rms));
+                table.Add(label, Num(fu.From(r.Peak.Value)), Time(r.Peak.Time), Rms(fu.From(r.Rms)));
             }
             table.Write(o);
         }
@@ -56,7 +58,7 @@ internal static class TransientTable
         var e = result.Energy;
         o.WriteLine();
         o.WriteLine(string.Create(Inv,
-            $"Energy balance: initial {e.InitialEnergy:G4} J + input work {e.InputWork:G4} J = kinetic {e.FinalKineticEnergy:G4} J + strain {e.FinalStrainEnergy:G4} J + dissipated {e.Dissipated:G4} J; closes to {100 * e.MaxRelativeError:G3} % of the largest energy."));
+            $"Energy balance: initial {ju.From(e.InitialEnergy):G4} {ju.Plain} + input work {ju.From(e.InputWork):G4} {ju.Plain} = kinetic {ju.From(e.FinalKineticEnergy):G4} {ju.Plain} + strain {ju.From(e.FinalStrainEnergy):G4} {ju.Plain} + dissipated {ju.From(e.Dissipated):G4} {ju.Plain}; closes to {100 * e.MaxRelativeError:G3} % of the largest energy."));
         foreach (var w in result.Warnings) o.WriteLine("Warning: " + w);
         o.WriteLine("Element forces are k(u_A − u_B) and c(u̇_A − u̇_B) with A and B as in 'between'; reactions are the force each support receives.");
         o.WriteLine();
@@ -70,22 +72,23 @@ internal static class TransientTable
 
     private static string Time(double t) => t.ToString("F4", Inv);
 
-    private static string Describe(TransientExcitation load) => load switch
+    private static string Describe(TransientExcitation load, DisplayUnits units) => load switch
     {
         ForceHistory { Time: UnbalanceSpeedRamp r } f => string.Create(Inv,
-            $"{f.Name} (unbalance {f.Scale:G4} kg*m at {f.Mass}, {60 * r.FromRadPerSecond / (2 * Math.PI):G5} to {60 * r.ToRadPerSecond / (2 * Math.PI):G5} rpm over {r.Over:G4} s from {r.Start:G4} s)"),
-        ForceHistory f => $"{f.Name} ({Shape(f.Time)} force at {f.Mass})",
-        SupportAccelerationHistory b => $"{b.Name} ({Shape(b.Acceleration)} acceleration of {b.Support})",
+            $"{f.Name} (unbalance {units.MassRadius.From(f.Scale):G4} {units.MassRadius.Plain} at {f.Mass}, {60 * r.FromRadPerSecond / (2 * Math.PI):G5} to {60 * r.ToRadPerSecond / (2 * Math.PI):G5} rpm over {r.Over:G4} s from {r.Start:G4} s)"),
+        ForceHistory f => $"{f.Name} ({Shape(f.Time, units.Force)} force at {f.Mass})",
+        SupportAccelerationHistory b => $"{b.Name} ({Shape(b.Acceleration, units.Acceleration)} acceleration of {b.Support})",
         _ => load.Name,
     };
 
-    private static string Shape(TimeFunction f) => f switch
+    /// <summary>A time function whose values are in <paramref name="unit"/>'s SI quantity (N for a force, m/s² for an acceleration).</summary>
+    private static string Shape(TimeFunction f, DisplayUnit unit) => f switch
     {
-        StepFunction s => string.Create(Inv, $"step {s.Value:G4} at {s.At:G4} s"),
-        RampFunction r => string.Create(Inv, $"ramp {r.From:G4} to {r.To:G4} over {r.Over:G4} s"),
-        RectangularPulse p => string.Create(Inv, $"rectangular pulse {p.Amplitude:G4} for {p.Duration:G4} s"),
-        HalfSinePulse p => string.Create(Inv, $"half-sine pulse {p.Amplitude:G4} for {p.Duration:G4} s"),
-        SineFunction s => string.Create(Inv, $"sine {s.Amplitude:G4} at {s.FrequencyHz:G4} Hz"),
+        StepFunction s => string.Create(Inv, $"step {unit.From(s.Value):G4} {unit.Plain} at {s.At:G4} s"),
+        RampFunction r => string.Create(Inv, $"ramp {unit.From(r.From):G4} to {unit.From(r.To):G4} {unit.Plain} over {r.Over:G4} s"),
+        RectangularPulse p => string.Create(Inv, $"rectangular pulse {unit.From(p.Amplitude):G4} {unit.Plain} for {p.Duration:G4} s"),
+        HalfSinePulse p => string.Create(Inv, $"half-sine pulse {unit.From(p.Amplitude):G4} {unit.Plain} for {p.Duration:G4} s"),
+        SineFunction s => string.Create(Inv, $"sine {unit.From(s.Amplitude):G4} {unit.Plain} at {s.FrequencyHz:G4} Hz"),
         TableFunction t => string.Create(Inv, $"table of {t.Times.Length} samples to {t.Times[^1]:G4} s"),
         _ => "timed",
     };

@@ -5,7 +5,8 @@ namespace ModalChain.Core.Units;
 /// <summary>Outcome of reading one value with its unit: the SI value, or a sentence saying what is wrong.</summary>
 /// <param name="Value">The value in SI units when <see cref="Error"/> is null.</param>
 /// <param name="Error">A message a user can act on, or null on success.</param>
-public readonly record struct ParsedQuantity(double Value, string? Error)
+/// <param name="Unit">The unit written, in the unit table's spelling ("kN/mm", "N*s/m"), or null for a bare number (read in SI) or a failure.</param>
+public readonly record struct ParsedQuantity(double Value, string? Error, string? Unit = null)
 {
     /// <summary>True when the text was read.</summary>
     public bool Succeeded => Error is null;
@@ -40,7 +41,7 @@ public static class QuantityParser
         if (factor is { } f)
         {
             var si = number * f;
-            return double.IsFinite(si) ? new ParsedQuantity(si, null) : Fail($"'{trimmed}' is too large to represent");
+            return double.IsFinite(si) ? new ParsedQuantity(si, null, UnitTable.Canonical(quantity, unitText)) : Fail($"'{trimmed}' is too large to represent");
         }
 
         var others = UnitTable.QuantitiesOf(unitText);

@@ -83,6 +83,15 @@ public static class UnitTable
         return null;
     }
 
+    /// <summary>The table's spelling of <paramref name="symbol"/> as a unit of <paramref name="quantity"/> ("kN s/m" gives "kN*s/m"), or null when it is not one.</summary>
+    public static string? Canonical(Quantity quantity, string symbol)
+    {
+        var s = Normalise(symbol);
+        foreach (var (sym, _) in Table[quantity])
+            if (sym == s) return sym;
+        return null;
+    }
+
     /// <summary>The quantities for which <paramref name="symbol"/> is a unit (used to say "kg is a unit of mass").</summary>
     public static IReadOnlyList<Quantity> QuantitiesOf(string symbol)
     {

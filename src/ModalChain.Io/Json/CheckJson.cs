@@ -49,6 +49,20 @@ public static class CheckJson
                 w.WriteEndObject();
             }
             w.WriteEndArray();
+            w.WriteStartArray("exempt");
+            foreach (var name in sep.Criterion.Exempt) w.WriteStringValue(MarkupText.Clean(name));
+            w.WriteEndArray();
+            w.WriteStartArray("exempt_modes");
+            foreach (var x in sep.Exempted)
+            {
+                w.WriteStartObject();
+                w.WriteNumber("mode", x.ModeNumber);
+                w.Number("frequency_hz", x.NaturalFrequencyHz);
+                w.Number("kinetic_energy_share", x.KineticEnergyShare);
+                w.WriteString("reason", MarkupText.Clean(x.Reason));
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
             w.WriteEndObject();
         }
         else w.WriteNull("separation");

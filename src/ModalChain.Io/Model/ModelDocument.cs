@@ -46,6 +46,10 @@ public sealed record ModelDocument(
     /// <c>reference-point</c> (plane and 3d models); null when the file states none (the model's centre of mass is then used).
     /// </summary>
     public Point3? ReferencePoint { get; init; }
+    /// <summary>For mass, stiffness and damping coefficient, the one unit symbol (the unit table's spelling, e.g. "kN/mm") in which the
+    /// file writes every value of that kind; a kind written in several units, or not at all, is absent. Display layers show
+    /// values in these units so a model written in kN/mm reads back in kN/mm; the values themselves stay SI.</summary>
+    public IReadOnlyDictionary<Core.Units.Quantity, string> WrittenUnits { get; init; } = new Dictionary<Core.Units.Quantity, string>();
 }
 
 /// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>

@@ -28,7 +28,7 @@ public static partial class ModelReader
         {
             context.Positions["criteria.separation"] = sep.Position;
             const string what = "the separation criterion";
-            context.RejectUnknownKeys(sep, what, "margin", "speeds", "orders");
+            context.RejectUnknownKeys(sep, what, "margin", "speeds", "orders", "exempt");
             var margin = sep["margin"] is { } marginNode ? ReadMargin(marginNode, what, context) : SeparationCriterion.DefaultMargin;
             var speeds = sep["speeds"] is { } speedsNode
                 ? ReadList(speedsNode, Quantity.Frequency, SeparationSpeedRange, $"'speeds' of {what}", context)
@@ -36,7 +36,11 @@ public static partial class ModelReader
             var orders = sep["orders"] is { } ordersNode
                 ? ReadList(ordersNode, Quantity.Ratio, OrderRange, $"'orders' of {what}", context)
                 : [1.0];
-            if (margin is { } m && speeds is { } s && orders is { } o) separation = new SeparationCriterion(m, s, o);
+            var exempt = sep["exempt"] is { } exemptNode && !(exemptNode is YScalar { IsPlainNull: true })
+                ? ReadExempt(exemptNode, $"'exempt' of {what}", context, network)
+                : [];
+            if (margin is { } m && speeds is { } s && orders is { } o && exempt is { } x)
+                separation = new SeparationCriterion(m, s, o) { Exempt = x };
         }
 
         var limits = ImmutableArray.CreateBuilder<VibrationLimit>();
@@ -147,6 +151,36 @@ public static partial class ModelReader
             if (network is not null && !network.IsMass(name))
             {
                 context.Error(item, $"{what} is at '{name}', which is not a mass of the model{ReadContext.Suggest(name, network.Masses.Select(m => m.Name))}");
+                ok = false;
+            }
+            else names.Add(name);
+        }
+        return ok ? [.. names] : null;
+    }
+
+    /// <summary>The masses whose modes the separation rule exempts: a name or a list of names, each a mass of the model, none twice.</summary>
+    private static ImmutableArray<string>? ReadExempt(YNode node, string what, ReadContext context, CoreNetwork? network)
+    {
+        if (node is YMapping)
+        {
+            context.Error(node, $"{what} must be a list of mass names, e.g. [absorber]");
+            return null;
+        }
+        IEnumerable<YNode> items = node is YSequence seq ? seq.Items : [node];
+        var names = new List<string>();
+        var ok = true;
+        foreach (var item in items)
+        {
+            if (context.Text(item, what) is not { } name) { ok = false; continue; }
+            if (network is not null && !network.IsMass(name))
+            {
+                context.Error(item, $"{what} names '{name}', which is not a mass of the model{ReadContext.Suggest(name, network.Masses.Select(m => m.Name))}; " +
+                                    "name the absorber masses whose own modes are not to be checked");
+                ok = false;
+            }
+            else if (names.Contains(name))
+            {
+                context.Error(item, $"{what} names '{name}' twice");
                 ok = false;
             }
             else names.Add(name);

@@ -90,6 +90,7 @@ public static partial class ModelReader
             Transient = transient,
             Criteria = criteria,
             ReferencePoint = referencePoint,
+            WrittenUnits = context.WrittenUnits(),
         };
         return Finish(context, document);
     }

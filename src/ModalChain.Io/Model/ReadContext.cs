@@ -110,6 +110,17 @@ internal sealed partial class ReadContext
     // Large models repeat a few values ("40 kg", "5 MN/m") many thousands of times; each text is parsed once.
     private readonly Dictionary<(string Text, Quantity Quantity), double> _parsed = [];
 
+    // The units each kind of element property is written in (a bare number counts as its SI unit): one text is
+    // parsed once, so this costs one set lookup per distinct value text.
+    private readonly Dictionary<Quantity, HashSet<string>> _written = [];
+
+    /// <summary>The kinds of element property the reader notes the written units of: mass, stiffness, damping coefficient.</summary>
+    private static bool IsElementProperty(Quantity quantity) => quantity is Quantity.Mass or Quantity.Stiffness or Quantity.Damping;
+
+    /// <summary>For each of mass, stiffness and damping coefficient, the one unit every value of that kind in the file is written in (absent when the file mixes units or has no such value).</summary>
+    public IReadOnlyDictionary<Quantity, string> WrittenUnits() =>
+        _written.Where(kv => kv.Value.Count == 1).ToDictionary(kv => kv.Key, kv => kv.Value.First());
+
     private double? Parse(YScalar scalar, Quantity quantity, string what)
     {
         if (DecimalComma().IsMatch(scalar.Value))
@@ -127,6 +138,11 @@ internal sealed partial class ReadContext
         {
             Error(scalar, $"{what}: {parsed.Error}");
             return null;
+        }
+        if (IsElementProperty(quantity))
+        {
+            if (!_written.TryGetValue(quantity, out var units)) _written[quantity] = units = [];
+            units.Add(parsed.Unit ?? UnitTable.SiSymbol(quantity));
         }
         return parsed.Value;
     }

@@ -24,6 +24,20 @@ internal static class YamlTreeWriter
         return text.ToString();
     }
 
+    /// <summary>One node on one line in flow style ("{mass: 12 kg, at: [0, 1]}", a plain or quoted scalar), for inserting into existing text.</summary>
+    public static string WriteFlow(YNode node)
+    {
+        var text = new StringWriter();
+        var emitter = new Emitter(text, new EmitterSettings(bestIndent: 2, bestWidth: int.MaxValue, isCanonical: false, maxSimpleKeyLength: 1024));
+        emitter.Emit(new StreamStart());
+        emitter.Emit(new DocumentStart(null, null, isImplicit: true));
+        Emit(emitter, node, depth: 2);
+        emitter.Emit(new DocumentEnd(isImplicit: true));
+        emitter.Emit(new StreamEnd());
+        var line = text.ToString().Replace("\r\n", "\n").Split('\n')[0];
+        return line.TrimEnd();
+    }
+
     private static void Emit(IEmitter emitter, YNode node, int depth)
     {
         switch (node)

@@ -31,7 +31,7 @@ internal static class HtmlReport
             ("SHA-256 of the model file", document.Sha256),
             ("Tool", "ModalChain " + context.Options.ToolVersion),
             ("Generated", generated),
-            ("Units shown", context.Options.Units == UnitSystem.Imperial ? "US customary (lb, lbf/in, lbf·s/in, in); results.json in SI" : "SI (kg, kN/m, N·s/m, m)"),
+            ("Units shown", UnitsShown(context.Units)),
         ], "facts trace");
         html.Append(trace).Append("</header>\n");
         html.Append($"<aside class=\"caution\" role=\"note\"><strong>Caution.</strong> {e(Cautions.Text)}</aside>\n");
@@ -116,4 +116,9 @@ internal static class HtmlReport
         }
 
         """;
+
+    private static string UnitsShown(DisplayUnits u) =>
+        (u.System == UnitSystem.Imperial ? "US customary" : "SI") +
+        $" (mass {u.MassSymbol}, stiffness {u.StiffnessSymbol}, damping {u.DampingSymbol}, displacement {u.Displacement.Symbol}, velocity {u.Velocity.Symbol}, " +
+        $"acceleration {u.Acceleration.Symbol}, force {u.Force.Symbol}); results.json in SI";
 }

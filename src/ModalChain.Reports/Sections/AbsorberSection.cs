@@ -116,9 +116,9 @@ public sealed class AbsorberSection : IReportSection
             rows.Add([string.Create(Inv, $"At the excitation {DisplayUnits.Number(sp.FrequencyHz)} Hz (running speed × order)"), $"{Peak(sp.Before)} before, {Peak(sp.After)} after"]);
         if (d.Target == AbsorberTarget.Force)
             rows.Add(["Fixed-point value √(1 + 2/μ) (undamped single-mode primary)", d.Optimum.PeakAmplification.ToString("F4", Inv)]);
-        rows.Add(["Absorber stroke per kN at the host, at the worst frequency", string.Create(Inv, $"{DisplayUnits.Number(a.StrokePerForce * 1e6)} mm/kN")]);
+        rows.Add([$"Absorber stroke per unit force at the host ({u.Compliance.Symbol}), at the worst frequency", $"{u.Compliance.Format(a.StrokePerForce)} {u.Compliance.Symbol}"]);
         rows.Add(["Absorber stroke in operation", double.IsFinite(a.OperatingStroke)
-            ? $"{u.Length(a.OperatingStroke)} {u.LengthSymbol} peak under the model's loads at their running speeds"
+            ? $"{u.Displacement.Format(a.OperatingStroke)} {u.Displacement.Symbol} peak under the model's loads at their running speeds"
             : "not computed: no load of the model has a running speed"]);
         if (Tuned.Improvement is { } improvement) rows.Add(["Optimal tuning", improvement]);
         html.Table("Effect on the host", ["Quantity", "Value"], rows, new HashSet<int>(), "absorber-effect");

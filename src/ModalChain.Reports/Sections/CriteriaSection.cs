@@ -71,28 +71,35 @@ public sealed class CriteriaSection : IReportSection
                     DisplayUnits.Percent(worst.Separation), Reserve(worst.Reserve, worst.ReserveNote), worst.Passes ? "pass" : "FAIL",
                 ]);
             }
-            html.Table(string.Create(Inv, $"Frequency separation: no natural frequency within ±{DisplayUnits.Given(100 * c.Margin)} % of running speed × order"),
-                ["Speed (rpm)", "Order", "Excitation (Hz)", "Band (Hz)", "Nearest mode", "f (Hz)", "Separation (%)", "Reserve (%)", "Result"],
-                rows, new HashSet<int> { 0, 1, 2, 4, 5, 6, 7 }, "criteria-table");
+            var heading = string.Create(Inv, $"Frequency separation: no natural frequency within ±{DisplayUnits.Given(100 * c.Margin)} % of running speed × order");
+            if (rows.Count > 0)
+                html.Table(heading,
+                    ["Speed (rpm)", "Order", "Excitation (Hz)", "Band (Hz)", "Nearest mode", "f (Hz)", "Separation (%)", "Reserve (%)", "Result"],
+                    rows, new HashSet<int> { 0, 1, 2, 4, 5, 6, 7 }, "criteria-table");
+            else html.Paragraph($"{heading}: no mode left to check ({sep.ReserveNote}).");
+            if (!sep.Exempted.IsEmpty)
+                html.List(sep.Exempted.Select(x => $"Mode {x.ModeNumber} ({DisplayUnits.Number(x.NaturalFrequencyHz)} Hz) is not checked: {x.Reason}."), "notes");
         }
         if (_outcome.Limits.Count > 0)
             html.Table("Vibration limits at the operating points",
                 ["Criterion", "Value", "Limit", "Reserve (%)", "Result"],
                 _outcome.Limits.Select(l => (IReadOnlyList<string>)
                 [
-                    l.Limit.Describe(), Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Reserve(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL",
+                    l.Limit.Describe(), Show(l.Value, l.Limit.Quantity, _context.Units), Show(l.Limit.Value, l.Limit.Quantity, _context.Units), Reserve(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL",
                 ]), new HashSet<int> { 1, 2, 3 }, "criteria-table");
         if (_outcome.Limits.Count > 0 && _outcome.Combination is { } rule)
             html.Paragraph($"The limits' values are the load cases combined at their running speeds by the rule {LoadCaseSelection.Describe(rule)}.", "note");
+        var v = _context.Units.Velocity;
+        var floor = _context.Units.FloorVelocity;
         if (_outcome.Zones.Length > 0)
         {
             html.Table("Machine vibration zones at the operating points (r.m.s. velocity)",
-                ["Where", "Class", "Zone boundaries A/B, B/C, C/D (mm/s r.m.s.)", "Value (mm/s r.m.s.)", "Zone", "Accepted", "Reserve (%)", "Result"],
+                ["Where", "Class", $"Zone boundaries A/B, B/C, C/D ({v.Symbol} r.m.s.)", $"Value ({v.Symbol} r.m.s.)", "Zone", "Accepted", "Reserve (%)", "Result"],
                 _outcome.Zones.Select(z => (IReadOnlyList<string>)
                 [
                     z.At, z.Criterion.Class.Name,
-                    $"{DisplayUnits.Number(z.Criterion.Class.BoundaryAB * 1e3)}, {DisplayUnits.Number(z.Criterion.Class.BoundaryBC * 1e3)}, {DisplayUnits.Number(z.Criterion.Class.BoundaryCD * 1e3)}",
-                    double.IsFinite(z.RmsVelocity) ? DisplayUnits.Number(z.RmsVelocity * 1e3) : "unbounded", z.Zone.ToString(),
+                    $"{v.Format(z.Criterion.Class.BoundaryAB)}, {v.Format(z.Criterion.Class.BoundaryBC)}, {v.Format(z.Criterion.Class.BoundaryCD)}",
+                    double.IsFinite(z.RmsVelocity) ? v.Format(z.RmsVelocity) : "unbounded", z.Zone.ToString(),
                     "up to " + z.Criterion.AcceptedZone, Reserve(z.Reserve, z.ReserveNote), z.Passes ? "pass" : "FAIL",
                 ]), new HashSet<int> { 3, 6 }, "criteria-table");
             html.Paragraph("Zone boundaries: " + string.Join("; ", _outcome.Zones.Select(z => z.Criterion.Class).Distinct().Select(c => $"{c.Name}, {c.Source}")) +
@@ -101,11 +108,11 @@ public sealed class CriteriaSection : IReportSection
         foreach (var f in _outcome.Floors)
         {
             html.Table($"Floor curve {f.Criterion.Curve.Name} at {f.At}: one-third-octave r.m.s. velocity",
-                ["Band (Hz)", "Value (µm/s r.m.s.)", "Limit (µm/s r.m.s.)", "Reserve (%)", "Result"],
+                ["Band (Hz)", $"Value ({floor.Symbol} r.m.s.)", $"Limit ({floor.Symbol} r.m.s.)", "Reserve (%)", "Result"],
                 f.Bands.Select(b => (IReadOnlyList<string>)
                 [
-                    DisplayUnits.Number(b.NominalHz), double.IsFinite(b.RmsVelocity) ? DisplayUnits.Number(b.RmsVelocity * 1e6) : "unbounded",
-                    DisplayUnits.Number(b.Limit * 1e6), Reserve(b.Reserve, null), b.Passes ? "pass" : "FAIL",
+                    DisplayUnits.Number(b.NominalHz), double.IsFinite(b.RmsVelocity) ? floor.Format(b.RmsVelocity) : "unbounded",
+                    floor.Format(b.Limit), Reserve(b.Reserve, null), b.Passes ? "pass" : "FAIL",
                 ]), new HashSet<int> { 0, 1, 2, 3 }, "criteria-table");
             var uncompared = f.UncomparedHz.Length > 0
                 ? $" Not compared (the curve states no limit there): {string.Join(", ", f.UncomparedHz.Select(h => DisplayUnits.Number(h) + " Hz"))}."
@@ -132,10 +139,6 @@ public sealed class CriteriaSection : IReportSection
     private static string Reserve(double fraction, string? note) =>
         double.IsFinite(fraction) ? (100 * fraction).ToString("+0.0;−0.0;0.0", Inv) : note ?? "n/a";
 
-    private static string Show(double si, ResponseQuantity q) => q switch
-    {
-        ResponseQuantity.Displacement => DisplayUnits.Number(si * 1e3) + " mm",
-        ResponseQuantity.Velocity => DisplayUnits.Number(si * 1e3) + " mm/s",
-        _ => DisplayUnits.Number(si) + " m/s²",
-    };
+    private static string Show(double si, ResponseQuantity q, DisplayUnits units) =>
+        !double.IsFinite(si) ? (double.IsPositiveInfinity(si) ? "unbounded" : "n/a") : units.Of(q).Format(si) + " " + units.Of(q).Symbol;
 }

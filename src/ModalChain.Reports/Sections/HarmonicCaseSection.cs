@@ -34,9 +34,11 @@ public sealed class HarmonicCaseSection : IReportSection
     /// <inheritdoc />
     public IReadOnlyList<ReportFigure> Figures => [.. _cases.SelectMany(c => c.Figures)];
 
-    private (string Symbol, double Metres) Displacement => _context.Units.System == UnitSystem.Imperial ? ("in", 0.0254) : ("mm", 1e-3);
+    private (string Symbol, double Metres) Displacement => (_context.Units.Displacement.Symbol, _context.Units.Displacement.Factor);
 
-    private (string Symbol, double MetresPerSecond) Velocity => _context.Units.System == UnitSystem.Imperial ? ("in/s", 0.0254) : ("mm/s", 1e-3);
+    private (string Symbol, double MetresPerSecond) Velocity => (_context.Units.Velocity.Symbol, _context.Units.Velocity.Factor);
+
+    private (string Symbol, double MetresPerSecondSquared) Acceleration => (_context.Units.Acceleration.Symbol, _context.Units.Acceleration.Factor);
 
     /// <inheritdoc />
     public void WriteHtml(HtmlWriter html)
@@ -53,25 +55,26 @@ public sealed class HarmonicCaseSection : IReportSection
         html.Heading($"Load cases combined at their running speeds ({rule} rule)");
         var (dSym, dScale) = Displacement;
         var (vSym, vScale) = Velocity;
+        var (aSym, aScale) = Acceleration;
         html.Table($"Combined response, rule: {rule}",
-            ["Mass", $"Displacement ({dSym} peak)", $"Velocity ({vSym} peak)", $"Velocity ({vSym} r.m.s.)", "Acceleration (m/s² peak)", "Components"],
+            ["Mass", $"Displacement ({dSym} peak)", $"Velocity ({vSym} peak)", $"Velocity ({vSym} r.m.s.)", $"Acceleration ({aSym} peak)", "Components"],
             _result.Combined.Select(r => (IReadOnlyList<string>)
             [
                 r.Dof,
                 DisplayUnits.Number(r.Peak(ResponseQuantity.Displacement, _result.Rule) / dScale),
                 DisplayUnits.Number(r.Peak(ResponseQuantity.Velocity, _result.Rule) / vScale),
                 DisplayUnits.Number(r.Rms(ResponseQuantity.Velocity, _result.Rule) / vScale),
-                DisplayUnits.Number(r.Peak(ResponseQuantity.Acceleration, _result.Rule)),
+                DisplayUnits.Number(r.Peak(ResponseQuantity.Acceleration, _result.Rule) / aScale),
                 string.Join(", ", r.Components.Select(c => $"{c.Case} at {DisplayUnits.Number(c.SpeedHz * 60)} rpm")),
             ]), new HashSet<int> { 1, 2, 3, 4 });
         html.Table("Components: each case at each of its running speeds",
-            ["Mass", "Case", "Speed (rpm)", $"Displacement ({dSym} peak)", $"Velocity ({vSym} r.m.s.)", "Acceleration (m/s² peak)"],
+            ["Mass", "Case", "Speed (rpm)", $"Displacement ({dSym} peak)", $"Velocity ({vSym} r.m.s.)", $"Acceleration ({aSym} peak)"],
             _result.Combined.SelectMany(r => r.Components.Select(c => (IReadOnlyList<string>)
             [
                 r.Dof, c.Case, DisplayUnits.Number(c.SpeedHz * 60),
                 DisplayUnits.Number(c.Peak(ResponseQuantity.Displacement) / dScale),
                 DisplayUnits.Number(c.Peak(ResponseQuantity.Velocity) / Math.Sqrt(2) / vScale),
-                DisplayUnits.Number(c.Peak(ResponseQuantity.Acceleration)),
+                DisplayUnits.Number(c.Peak(ResponseQuantity.Acceleration) / aScale),
             ])), new HashSet<int> { 2, 3, 4, 5 });
         html.Paragraph("Rule " + LoadCaseSelection.Describe(_result.Rule) + ".", "note");
         foreach (var note in _result.Notes) html.Paragraph(note, "note");

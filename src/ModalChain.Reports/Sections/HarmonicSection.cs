@@ -94,17 +94,14 @@ public sealed class HarmonicSection : IReportSection
         quantity == ResponseQuantity.Displacement ? FigureName(dof) : FigureName(dof) + "-" + quantity.ToString().ToLowerInvariant();
 
     /// <summary>Display symbol and SI amount per display unit of <paramref name="quantity"/>.</summary>
-    private (string Symbol, double Scale) UnitOf(ResponseQuantity quantity) => quantity switch
-    {
-        ResponseQuantity.Displacement => Displacement,
-        ResponseQuantity.Velocity => Velocity,
-        _ => ("m/s²", 1.0),
-    };
+    private (string Symbol, double Scale) UnitOf(ResponseQuantity quantity) => (_context.Units.Of(quantity).Symbol, _context.Units.Of(quantity).Factor);
 
     /// <summary>Display unit of displacement amplitude: mm (SI) or in (imperial), and metres per unit.</summary>
-    private (string Symbol, double Metres) Displacement => _context.Units.System == UnitSystem.Imperial ? ("in", 0.0254) : ("mm", 1e-3);
+    private (string Symbol, double Metres) Displacement => UnitOf(ResponseQuantity.Displacement);
 
-    private (string Symbol, double MetresPerSecond) Velocity => _context.Units.System == UnitSystem.Imperial ? ("in/s", 0.0254) : ("mm/s", 1e-3);
+    private (string Symbol, double MetresPerSecond) Velocity => UnitOf(ResponseQuantity.Velocity);
+
+    private (string Symbol, double MetresPerSecondSquared) Acceleration => UnitOf(ResponseQuantity.Acceleration);
 
     /// <inheritdoc />
     public void WriteHtml(HtmlWriter html)
@@ -120,9 +117,11 @@ public sealed class HarmonicSection : IReportSection
 
         var (dSym, dScale) = Displacement;
         var (vSym, vScale) = Velocity;
+        var (aSym, aScale) = Acceleration;
+        var force = _context.Units.Force;
         var peaks = _result.Peaks();
         html.Table("Largest response over the sweep",
-            ["Mass", $"Displacement ({dSym} peak)", "at (Hz)", $"Velocity ({vSym} peak)", "at (Hz)", "Acceleration (m/s² peak)", "at (Hz)"],
+            ["Mass", $"Displacement ({dSym} peak)", "at (Hz)", $"Velocity ({vSym} peak)", "at (Hz)", $"Acceleration ({aSym} peak)", "at (Hz)"],
             _result.Responses.Select(r =>
             {
                 ResponsePeak P(ResponseQuantity q) => peaks.First(p => p.Dof == r.Dof && p.Quantity == q);
@@ -130,7 +129,7 @@ public sealed class HarmonicSection : IReportSection
                 var v = P(ResponseQuantity.Velocity);
                 var a = P(ResponseQuantity.Acceleration);
                 return (IReadOnlyList<string>)[r.Dof, DisplayUnits.Number(d.Magnitude / dScale), DisplayUnits.Number(d.FrequencyHz),
-                    DisplayUnits.Number(v.Magnitude / vScale), DisplayUnits.Number(v.FrequencyHz), DisplayUnits.Number(a.Magnitude), DisplayUnits.Number(a.FrequencyHz)];
+                    DisplayUnits.Number(v.Magnitude / vScale), DisplayUnits.Number(v.FrequencyHz), DisplayUnits.Number(a.Magnitude / aScale), DisplayUnits.Number(a.FrequencyHz)];
             }), new HashSet<int> { 1, 2, 3, 4, 5, 6 });
         foreach (var p in peaks.Where(p => p.EdgeWarning is not null))
             html.Paragraph(string.Create(Inv,
@@ -140,19 +139,19 @@ public sealed class HarmonicSection : IReportSection
         {
             var at = op.Response;
             html.Table(string.Create(Inv, $"At the running speed {DisplayUnits.Number(op.SpeedHz * 60)} rpm ({DisplayUnits.Number(op.SpeedHz)} Hz): {string.Join(", ", op.Loads)}"),
-                ["Mass", $"Displacement ({dSym} peak)", $"Velocity ({vSym} peak)", $"Velocity ({vSym} r.m.s.)", "Acceleration (m/s² peak)", "Phase of displacement (°)"],
+                ["Mass", $"Displacement ({dSym} peak)", $"Velocity ({vSym} peak)", $"Velocity ({vSym} r.m.s.)", $"Acceleration ({aSym} peak)", "Phase of displacement (°)"],
                 at.Responses.Select(r => (IReadOnlyList<string>)
                 [
                     r.Dof,
                     DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Displacement).Magnitude / dScale),
                     DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude / vScale),
                     DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude / vScale / Math.Sqrt(2)),
-                    DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude),
+                    DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude / aScale),
                     DisplayUnits.Number(HarmonicJson.PhaseDegrees(r.Displacement[0])),
                 ]), new HashSet<int> { 1, 2, 3, 4, 5 });
             if (at.Reactions.Length > 0)
-                html.Table("Force into each support at that speed", ["Support", "Force amplitude (N peak)", "Phase (°)"],
-                    at.Reactions.Select(r => (IReadOnlyList<string>)[r.Support, DisplayUnits.Number(r.Force[0].Magnitude), DisplayUnits.Number(HarmonicJson.PhaseDegrees(r.Force[0]))]),
+                html.Table("Force into each support at that speed", ["Support", $"Force amplitude ({force.Symbol} peak)", "Phase (°)"],
+                    at.Reactions.Select(r => (IReadOnlyList<string>)[r.Support, force.Format(r.Force[0].Magnitude), DisplayUnits.Number(HarmonicJson.PhaseDegrees(r.Force[0]))]),
                     new HashSet<int> { 1, 2 });
         }
         html.Paragraph("Amplitudes are peak (zero-to-peak) values of the steady sinusoid; its r.m.s. value is peak/√2. In each chart the upper panel is the amplitude on a logarithmic axis and the lower panel its phase relative to the loads; dashed grey lines mark the natural frequencies and dash-dot orange lines the running speeds." +

@@ -23,7 +23,7 @@ public sealed class ReportContext
         ArgumentNullException.ThrowIfNull(options);
         Document = document;
         Options = options;
-        Units = new DisplayUnits(options.Units);
+        Units = new DisplayUnits(options.Units ?? DisplayUnits.SystemOf(document.WrittenUnits), document.WrittenUnits);
         // The damped system already holds every undamped mode: the report's modes are its lowest ones, not a second solve.
         _modal = new Lazy<ModalResult>(() =>
         {

@@ -91,14 +91,17 @@ public sealed class TransientSection : IReportSection
         html.Paragraph(string.Create(Inv,
             $"Time history over {DisplayUnits.Number(s.Duration)} s in {_result.StepCount} steps of {DisplayUnits.Number(s.Step)} s ({_result.MethodDescription}); loads: {(_loads.IsEmpty ? "none (initial conditions only)" : string.Join(", ", _loads))}."));
         foreach (var w in _result.Warnings) html.Paragraph(w, "note");
+        var u = _context.Units;
         html.Table("Peaks and RMS of each recorded response",
             ["Response", "Quantity", "Unit", "Peak (largest magnitude, signed)", "at (s)", "RMS"],
             _result.Responses.Select(r => (IReadOnlyList<string>)
-                [r.Name, TransientJson.QuantityName(r.Quantity), r.Unit, DisplayUnits.Number(r.Peak.Value), DisplayUnits.Number(r.Peak.Time), double.IsNaN(r.Rms) ? "n/a" : DisplayUnits.Number(r.Rms)]),
+                [r.Name, DisplayUnits.Words(r.Quantity), u.Of(r.Quantity).Symbol, u.Of(r.Quantity).Format(r.Peak.Value), DisplayUnits.Number(r.Peak.Time),
+                    double.IsNaN(r.Rms) ? "n/a" : u.Of(r.Quantity).Format(r.Rms)]),
             new HashSet<int> { 3, 4, 5 });
         var e = _result.Energy;
+        var j = u.Energy;
         html.Paragraph(string.Create(Inv,
-            $"Energy balance (quality figure): initial {DisplayUnits.Number(e.InitialEnergy)} J + input work {DisplayUnits.Number(e.InputWork)} J = kinetic {DisplayUnits.Number(e.FinalKineticEnergy)} J + strain {DisplayUnits.Number(e.FinalStrainEnergy)} J + dissipated {DisplayUnits.Number(e.Dissipated)} J, largest relative error {e.MaxRelativeError:0.0e+00}."), "quality");
+            $"Energy balance (quality figure): initial {j.Format(e.InitialEnergy)} {j.Symbol} + input work {j.Format(e.InputWork)} {j.Symbol} = kinetic {j.Format(e.FinalKineticEnergy)} {j.Symbol} + strain {j.Format(e.FinalStrainEnergy)} {j.Symbol} + dissipated {j.Format(e.Dissipated)} {j.Symbol}, largest relative error {e.MaxRelativeError:0.0e+00}."), "quality");
         foreach (var figure in _figures) html.Figure(figure);
     }
 
@@ -138,13 +141,7 @@ public sealed class TransientSection : IReportSection
 
     private ChartFigure HistoryChart(ResponseHistory history)
     {
-        var imperial = _context.Units.System == UnitSystem.Imperial;
-        var (symbol, scale) = history.Quantity switch
-        {
-            ResponseQuantity.Displacement => imperial ? ("in", 0.0254) : ("mm", 1e-3),
-            ResponseQuantity.Velocity => imperial ? ("in/s", 0.0254) : ("mm/s", 1e-3),
-            _ => ("m/s²", 1.0),
-        };
+        var (symbol, scale) = (_context.Units.Of(history.Quantity).Symbol, _context.Units.Of(history.Quantity).Factor);
         var word = history.Quantity.ToString();
         var model = Charts.Create($"{word} of {history.Name}", $"{_context.Document.Network.Title}: transient");
         model.Axes.Add(Charts.Linear(AxisPosition.Bottom, "Time (s)", _result.Times[0], _result.Times[^1]));

@@ -119,4 +119,24 @@ public class CriteriaReaderTests
         var result = Read("criteria:\n  separation: {margin: 0 %, speeds: [1480 kg]}\n  limits:\n    - {at: nowhere, quantity: speed, peak: 4 mm/s}\n");
         Assert.True(result.Errors.Count() >= 4, string.Join("\n", result.Diagnostics));
     }
+
+    [Fact]
+    public void SeparationExempt_ReadsOneNameOrAList()
+    {
+        var one = Read("criteria:\n  separation: {speeds: [1480 rpm], exempt: skid}\n");
+        Assert.True(one.Succeeded, string.Join("\n", one.Diagnostics));
+        Assert.Equal(["skid"], one.Model!.Criteria.Separation!.Exempt.ToArray());
+        var list = Read("criteria:\n  separation: {speeds: [1480 rpm], exempt: [skid, deck]}\n");
+        Assert.Equal(["skid", "deck"], list.Model!.Criteria.Separation!.Exempt.ToArray());
+        Assert.Empty(Read("criteria:\n  separation: {speeds: [1480 rpm]}\n").Model!.Criteria.Separation!.Exempt);
+    }
+
+    [Fact]
+    public void SeparationExempt_ReportsUnknownAndRepeatedNamesWhereTheyStand()
+    {
+        // Line 8 is the separation line (the network above takes 7 lines and a blank one).
+        AssertError(Read("criteria:\n  separation: {speeds: [1480 rpm], exempt: [skid, skd]}\n"), 8, 51, "names 'skd', which is not a mass of the model (did you mean 'skid'?)");
+        AssertError(Read("criteria:\n  separation: {speeds: [1480 rpm], exempt: [skid, skid]}\n"), 8, 51, "names 'skid' twice");
+        AssertError(Read("criteria:\n  separation: {speeds: [1480 rpm], exempt: {skid: 1}}\n"), 8, 44, "must be a list of mass names");
+    }
 }

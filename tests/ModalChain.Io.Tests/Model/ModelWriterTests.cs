@@ -8,7 +8,7 @@ namespace ModalChain.Io.Tests.Model;
 public class ModelWriterTests
 {
     private const string Original = """
-        # A comment that is not carried over.
+        # A comment that is carried over.
         title: "Fan deck: bay 3"
         masses:
           deck: {mass: 2600 kg, at: [0, 0]}
@@ -160,5 +160,121 @@ public class ModelWriterTests
         var damper = after.Dampers.Single(d => d.Name == "absorber-damper");
         Assert.Equal(dampers[0].Components.ToArray(), damper.Components.ToArray());
         Assert.Equal(before.Bodies.Single().Inertia, after.Bodies.Single().Inertia);
+    }
+}
+
+/// <summary>The writer edits the file in place: comments, blank lines and layout of the original survive.</summary>
+public class ModelWriterInPlaceTests
+{
+    private static string Root()
+    {
+        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
+            if (File.Exists(Path.Combine(dir.FullName, "ModalChain.sln"))) return dir.FullName;
+        throw new InvalidOperationException("ModalChain.sln not found");
+    }
+
+    public static TheoryData<string> ExampleModels() =>
+        [.. Directory.GetFiles(Path.Combine(Root(), "models"), "*.yaml").Select(f => Path.GetFileName(f)).Order(StringComparer.Ordinal)];
+
+    /// <summary>Adds an absorber on the heaviest mass of <paramref name="original"/> and writes the file; returns the expected network and the text.</summary>
+    private static (Network Expected, string Text) WithAbsorber(string original, string file = "in.yaml")
+    {
+        var read = ModelReader.Read(original, file);
+        Assert.True(read.Succeeded, string.Join("\n", read.Diagnostics));
+        var before = read.Model!.Network;
+        var host = before.Masses.MaxBy(m => m.Kilograms)!.Name;
+        var design = AbsorberTuning.Design(ModalAnalysis.Solve(before), new AbsorberRequest(host, 0.05, null, []));
+        var expected = AbsorberTuning.Attach(before, design, AbsorberTuning.FreeNames(before, host));
+        return (expected, ModelWriter.WithAdditions(original, file, expected, ["written by a test"]));
+    }
+
+    private static void AssertReadsBackAs(Network expected, string text, string file = "out.yaml")
+    {
+        var read = ModelReader.Read(text, file);
+        Assert.True(read.Succeeded, string.Join("\n", read.Diagnostics) + "\n" + text);
+        var n = read.Model!.Network;
+        Assert.Equal(expected.Masses.OrderBy(m => m.Name, StringComparer.Ordinal), n.Masses.OrderBy(m => m.Name, StringComparer.Ordinal));
+        Assert.Equal(expected.Springs.OrderBy(s => s.Name, StringComparer.Ordinal), n.Springs.OrderBy(s => s.Name, StringComparer.Ordinal));
+        Assert.Equal(expected.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal), n.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal));
+    }
+
+    [Theory]
+    [MemberData(nameof(ExampleModels))]
+    public void EveryLineOfAnExampleModel_SurvivesInOrder_AndTheFileReadsBack(string model)
+    {
+        var path = Path.Combine(Root(), "models", model);
+        var original = File.ReadAllText(path);
+        var (expected, text) = WithAbsorber(original, path);
+        AssertReadsBackAs(expected, text, path);
+        Assert.DoesNotContain(ModelWriter.CommentsLostNote, text, StringComparison.Ordinal);
+        // The original's lines (comments, blank lines, entries) are a subsequence of the written file's lines.
+        var written = text.Split('\n');
+        var k = 0;
+        foreach (var line in original.Split('\n'))
+        {
+            while (k < written.Length && written[k] != line) k++;
+            Assert.True(k < written.Length, $"{model}: the line '{line}' is missing or out of order in\n{text}");
+            k++;
+        }
+        var comments = original.Split('\n').Count(l => l.TrimStart().StartsWith('#'));
+        Assert.True(comments > 0, $"{model} has no comment line to keep");
+    }
+
+    [Fact]
+    public void FlowStyleSections_GainTheirEntriesInsideTheBraces()
+    {
+        const string flow = """
+            # deck and skid, written compactly
+            masses: {deck: 3200 kg, skid: {mass: 850 kg}}   # two masses
+            springs: {columns: {between: [ground, deck], stiffness: 95 kN/mm}, mounts: {between: [deck, skid], stiffness: 8.4 kN/mm}}
+            dampers: {}
+            """;
+        var (expected, text) = WithAbsorber(flow);
+        AssertReadsBackAs(expected, text);
+        Assert.Contains("# deck and skid, written compactly", text, StringComparison.Ordinal);
+        Assert.Contains("}}   # two masses", text, StringComparison.Ordinal);
+        Assert.DoesNotContain(ModelWriter.CommentsLostNote, text, StringComparison.Ordinal);
+    }
+
+    [Theory]
+    [InlineData("dampers:\n")]
+    [InlineData("dampers: ~\n")]
+    [InlineData("")]
+    public void EmptyOrMissingDampers_AreFilledWhereTheyStand(string dampers)
+    {
+        var original = "masses:\n  deck: 3200 kg   # the deck\nsprings:\n  columns: {between: [ground, deck], stiffness: 95 kN/mm}\n" + dampers + "# last words\n";
+        var (expected, text) = WithAbsorber(original);
+        AssertReadsBackAs(expected, text);
+        Assert.Contains("  deck: 3200 kg   # the deck\n", text, StringComparison.Ordinal);
+        Assert.EndsWith("# last words\n", text, StringComparison.Ordinal);
+        Assert.DoesNotContain(ModelWriter.CommentsLostNote, text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void WindowsLineEnds_AndAMissingFinalNewline_AreKept()
+    {
+        const string original = "# CRLF file\r\nmasses:\r\n  deck: 3200 kg\r\nsprings:\r\n  columns: {between: [ground, deck], stiffness: 95 kN/mm}";
+        var (expected, text) = WithAbsorber(original);
+        AssertReadsBackAs(expected, text);
+        Assert.DoesNotContain("\r\r", text, StringComparison.Ordinal);
+        Assert.Equal(text.Split('\n').Length - 1, text.Split("\r\n").Length - 1); // every line ends in CRLF
+        Assert.Contains("# CRLF file\r\n", text, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void AFileWithAnchors_IsReEmitted_AndSaysItsCommentsWereLost()
+    {
+        const string anchored = """
+            # shared mount stiffness
+            masses:
+              deck: 3200 kg
+              skid: 850 kg
+            springs:
+              columns: {between: [ground, deck], stiffness: &k 95 kN/mm}
+              mounts: {between: [deck, skid], stiffness: *k}
+            """;
+        var (expected, text) = WithAbsorber(anchored);
+        AssertReadsBackAs(expected, text);
+        Assert.Contains(ModelWriter.CommentsLostNote, text, StringComparison.Ordinal);
     }
 }

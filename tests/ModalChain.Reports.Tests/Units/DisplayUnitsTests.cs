@@ -35,4 +35,32 @@ public sealed class DisplayUnitsTests
     [InlineData(0, "0")]
     [InlineData(double.PositiveInfinity, "∞")]
     public void Number_HasFourSignificantDigits(double value, string expected) => Assert.Equal(expected, DisplayUnits.Number(value));
+
+    [Fact]
+    public void ImperialResponseUnits_FollowTheExactDefinitions()
+    {
+        // 1 in = 0.0254 m, 1 lbf = 4.4482216152605 N (NIST SP 811, 2008, App. B); 1 in·lbf = 0.0254 × 4.4482216152605 J.
+        var u = new DisplayUnits(UnitSystem.Imperial);
+        ModalChain.TestSupport.NumericAssert.Close(1, u.Displacement.From(0.0254), ModalChain.TestSupport.Tolerance.Rel(1e-15), "in");
+        ModalChain.TestSupport.NumericAssert.Close(1, u.Velocity.From(0.0254), ModalChain.TestSupport.Tolerance.Rel(1e-15), "in/s");
+        ModalChain.TestSupport.NumericAssert.Close(1, u.Acceleration.From(0.0254), ModalChain.TestSupport.Tolerance.Rel(1e-15), "in/s²");
+        ModalChain.TestSupport.NumericAssert.Close(1, u.Force.From(4.4482216152605), ModalChain.TestSupport.Tolerance.Rel(1e-15), "lbf");
+        ModalChain.TestSupport.NumericAssert.Close(1, u.Energy.From(0.0254 * 4.4482216152605), ModalChain.TestSupport.Tolerance.Rel(1e-15), "in·lbf");
+        ModalChain.TestSupport.NumericAssert.Close(1, u.FloorVelocity.From(0.0254e-6), ModalChain.TestSupport.Tolerance.Rel(1e-12), "µin/s");
+        // 1 in/kip = 0.0254 m / 4448.2216152605 N.
+        ModalChain.TestSupport.NumericAssert.Close(1, u.Compliance.From(0.0254 / 4448.2216152605), ModalChain.TestSupport.Tolerance.Rel(1e-12), "in/kip");
+    }
+
+    [Fact]
+    public void WrittenUnits_AreUsedOnlyWithinTheirSystem()
+    {
+        var written = new Dictionary<ModalChain.Core.Units.Quantity, string> { [ModalChain.Core.Units.Quantity.Stiffness] = "kN/mm", [ModalChain.Core.Units.Quantity.Mass] = "t" };
+        var si = new DisplayUnits(UnitSystem.Si, written);
+        Assert.Equal("kN/mm", si.StiffnessSymbol);
+        Assert.Equal("95", si.Stiffness(95e6, given: true));
+        Assert.Equal("t", si.MassSymbol);
+        Assert.Equal("lbf/in", new DisplayUnits(UnitSystem.Imperial, written).StiffnessSymbol);
+        Assert.Equal(UnitSystem.Si, DisplayUnits.SystemOf(written));
+        Assert.Equal(UnitSystem.Imperial, DisplayUnits.SystemOf(new Dictionary<ModalChain.Core.Units.Quantity, string> { [ModalChain.Core.Units.Quantity.Mass] = "lb" }));
+    }
 }

@@ -156,7 +156,7 @@ public static class AbsorberTuning
             mode = Chosen(modal, request, at, out var excitation)!;
             chosenBy = double.IsFinite(excitation)
                 ? string.Create(inv, $"nearest to the excitation at {excitation:G6} Hz")
-                : "no running speed given: the mode with the largest motion at the host, phi_host^2/omega^2";
+                : "no running speed given: the mode with the largest motion at the host, (phi at the host)^2/omega^2";
         }
         var host = modal.Matrices.Dofs.IndexOf(request.Host);
         var modalMass = mode.ModalMassAt(host);

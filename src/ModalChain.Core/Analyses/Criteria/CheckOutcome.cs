@@ -39,7 +39,7 @@ public static class CriteriaCheck
         ArgumentNullException.ThrowIfNull(criteria);
         ArgumentNullException.ThrowIfNull(operatingLoads);
         var separation = criteria.Separation is { } s
-            ? SeparationCheck.Evaluate([.. system.Modes.Modes.Select(m => m.NaturalFrequencyHz)], s)
+            ? SeparationCheck.Evaluate([.. system.Modes.Modes.Select(m => m.NaturalFrequencyHz)], s, SeparationCheck.ExemptShares(system.Modes, s.Exempt))
             : null;
         var limits = criteria.Limits.IsDefaultOrEmpty
             ? new LimitOutcome([], [])

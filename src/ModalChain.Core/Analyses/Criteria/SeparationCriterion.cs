@@ -16,6 +16,24 @@ public sealed record SeparationCriterion(double Margin, ImmutableArray<double> S
     /// <summary>The margin used when a model does not state one: ±20 % (common practice).</summary>
     public const double DefaultMargin = 0.20;
 
+    /// <summary>The share of a mode's kinetic energy above which the <see cref="Exempt"/> masses make it an exempt mode: 0.2.</summary>
+    /// <remarks>
+    /// Not a majority: an absorber splits the mode it controls into two, and with the classical tuning
+    /// f_a/f_p = 1/(1 + μ) the absorber carries a share μr²/(1 + μr²), r = 1/(1 − ω²/ω_a²), of each one's kinetic energy:
+    /// 0.57/0.43 at μ = 1 %, 0.66/0.34 at 5 %, 0.72/0.28 at 10 %, 0.79/0.21 at 20 % (lower/upper mode). A majority rule
+    /// would exempt only the lower mode. A structural mode away from the absorber's frequency moves the absorber with
+    /// its host, a share of about its mass fraction, well below 0.2.
+    /// </remarks>
+    public const double ExemptShare = 0.2;
+
+    /// <summary>
+    /// Names of masses (typically absorber masses) whose own modes are exempt from the rule: a mode in which these
+    /// masses together carry more than <see cref="ExemptShare"/> (20 %) of the kinetic energy (Σ m_k φ_k² over them, divided by
+    /// Σ m φ² over every mass) is not checked. An absorber splits the mode it controls into two modes either side of
+    /// the running speed by design; judging those by separation would fail every working absorber.
+    /// </summary>
+    public ImmutableArray<string> Exempt { get; init; } = [];
+
     /// <summary>Checks the fields; throws for a caller bug (the reader reports input problems itself).</summary>
     public SeparationCriterion Validated()
     {
@@ -72,18 +90,35 @@ public static class ReserveNotes
         : "n/a: the response could not be computed";
 }
 
+/// <summary>A mode left out of the separation check because the criterion's exempt masses carry most of its kinetic energy.</summary>
+/// <param name="ModeNumber">1-based number of the mode.</param>
+/// <param name="NaturalFrequencyHz">Its natural frequency in Hz.</param>
+/// <param name="KineticEnergyShare">The share of the mode's kinetic energy carried by the exempt masses (a fraction above <see cref="SeparationCriterion.ExemptShare"/>).</param>
+/// <param name="Masses">The exempt masses, as the criterion names them.</param>
+public sealed record ExemptMode(int ModeNumber, double NaturalFrequencyHz, double KineticEnergyShare, ImmutableArray<string> Masses)
+{
+    /// <summary>Why the mode is not checked, as a sentence a reviewer can act on.</summary>
+    public string Reason => string.Create(System.Globalization.CultureInfo.InvariantCulture,
+        $"{string.Join(", ", Masses.Select(m => $"'{m}'"))} {(Masses.Length == 1 ? "carries" : "carry")} {100 * KineticEnergyShare:F1} % of its kinetic energy " +
+        $"(more than {100 * SeparationCriterion.ExemptShare:G3} %), so it is exempt by criteria.separation.exempt");
+}
+
 /// <summary>The outcome of a separation check over every mode, speed and order.</summary>
 /// <param name="Criterion">The rule checked.</param>
-/// <param name="Pairs">One entry per (mode, speed, order), modes outer.</param>
+/// <param name="Pairs">One entry per (mode, speed, order) of the modes checked (exempt modes have none), modes outer.</param>
 /// <param name="Governing">The pair with the smallest reserve (the one nearest to failing, or failing most); null with no modes.</param>
 public sealed record SeparationResult(SeparationCriterion Criterion, ImmutableArray<SeparationPair> Pairs, SeparationPair? Governing)
 {
+    /// <summary>The modes left out because the exempt masses carry most of their kinetic energy, in mode order.</summary>
+    public ImmutableArray<ExemptMode> Exempted { get; init; } = [];
+
     /// <summary>True when every pair passes.</summary>
     public bool Passes => Pairs.All(p => p.Passes);
 
     /// <summary>The governing reserve as a fraction (+∞ when there is nothing to check).</summary>
     public double Reserve => Governing?.Reserve ?? double.PositiveInfinity;
 
-    /// <summary>Why <see cref="Reserve"/> has no finite value (no elastic mode), or null when it has one.</summary>
-    public string? ReserveNote => ReserveNotes.OfSeparation(Reserve, rigidBody: false);
+    /// <summary>Why <see cref="Reserve"/> has no finite value (no elastic mode, or every mode exempt), or null when it has one.</summary>
+    public string? ReserveNote =>
+        Governing is null && !Exempted.IsEmpty ? "n/a: every mode is exempt (criteria.separation.exempt)" : ReserveNotes.OfSeparation(Reserve, rigidBody: false);
 }

@@ -30,7 +30,7 @@ public sealed record StudyCriterion(string Name, Func<Network, ModalResult, doub
         criterion.Validated();
         var name = string.Create(CultureInfo.InvariantCulture, $"separation ±{criterion.Margin * 100:G4} %");
         return new StudyCriterion(name, (_, modal) =>
-            SeparationCheck.GoverningReserve([.. modal.Modes.Select(m => m.NaturalFrequencyHz)], criterion));
+            SeparationCheck.GoverningReserve([.. modal.Modes.Select(m => m.NaturalFrequencyHz)], criterion, SeparationCheck.ExemptShares(modal, criterion.Exempt)));
     }
 }
 
