@@ -1,4 +1,3 @@
-using ModalChain.Core.Assembly;
 using System.CommandLine;
 using System.Globalization;
 using ModalChain.Cli.Formatting;
@@ -6,8 +5,10 @@ using ModalChain.Core;
 using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Commands;
 
@@ -53,12 +54,12 @@ internal static class CheckCommand
     /// <summary>Evaluates every criterion of <paramref name="document"/>.</summary>
     internal static CheckOutcome Evaluate(ModelDocument document, ModalChain.Core.Solvers.SolverChoice choice = default)
     {
-        return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure, new ModalOptions(Choice: choice)), document.Criteria, OperatingLoads.Of(document));
+        return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure, new ModalOptions(Choice: choice)), document.Criteria, OperatingLoads.Of(document), document.Cases);
     }
 
     private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome)
     {
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine();
         if (outcome.Separation is { } sep)
         {
@@ -99,6 +100,8 @@ internal static class CheckCommand
                     Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Signed(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL");
             table.Write(o);
             o.WriteLine("  reserve = (limit - value) / limit.");
+            if (outcome.Combination is { } rule)
+                o.WriteLine($"  values are the load cases combined at their running speeds by the rule {LoadCaseSelection.Describe(rule)}.");
             o.WriteLine();
         }
         if (outcome.Zones.Length > 0)
