@@ -67,12 +67,46 @@ public static class Assembler
     }
 
     /// <summary>A sparse n×n matrix whose entries are the sums of the coordinate entries (several elements share a DOF).</summary>
+    /// <remarks>
+    /// Built directly in compressed-row form in linear time: the entries are bucketed by row in their given order,
+    /// each row (a handful of entries) is ordered by column with a stable insertion sort, and equal positions are
+    /// added in the order given. A sum that is exactly zero is not stored.
+    /// </remarks>
     internal static Matrix<double> Summed(int n, List<(int Row, int Column, double Value)> entries)
     {
-        var sums = new Dictionary<(int, int), double>(entries.Count);
+        var rowStart = new int[n + 1];
+        foreach (var (r, _, _) in entries) rowStart[r + 1]++;
+        for (var i = 0; i < n; i++) rowStart[i + 1] += rowStart[i];
+        var columns = new int[entries.Count];
+        var values = new double[entries.Count];
+        var next = (int[])rowStart.Clone();
         foreach (var (r, c, v) in entries)
-            sums[(r, c)] = sums.GetValueOrDefault((r, c)) + v;
-        return Matrix<double>.Build.SparseOfIndexed(n, n, sums.Select(kv => (kv.Key.Item1, kv.Key.Item2, kv.Value)));
+        {
+            var k = next[r]++;
+            (columns[k], values[k]) = (c, v);
+        }
+
+        var rowPointers = new int[n + 1];
+        var count = 0;
+        for (var i = 0; i < n; i++)
+        {
+            var (start, end) = (rowStart[i], rowStart[i + 1]);
+            for (var k = start + 1; k < end; k++)
+            {
+                var (c, v) = (columns[k], values[k]);
+                var j = k - 1;
+                for (; j >= start && columns[j] > c; j--) (columns[j + 1], values[j + 1]) = (columns[j], values[j]);
+                (columns[j + 1], values[j + 1]) = (c, v);
+            }
+            for (var k = start; k < end;)
+            {
+                var (c, sum) = (columns[k], values[k]);
+                for (k++; k < end && columns[k] == c; k++) sum += values[k];
+                if (sum != 0) (columns[count], values[count++]) = (c, sum);
+            }
+            rowPointers[i + 1] = count;
+        }
+        return Matrix<double>.Build.SparseFromCompressedSparseRowFormat(n, n, count, rowPointers, columns, values);
     }
 
     /// <summary>Adds a two-node element of value <paramref name="value"/> between DOFs a and b (−1 = support) as coordinate entries.</summary>

@@ -17,27 +17,34 @@ public static class Topology
     {
         ArgumentNullException.ThrowIfNull(network);
         if (network.Space != ModelSpace.Line) return SpatialUnsupportedGroups(network);
-        var parent = new Dictionary<string, string>();
-        string Find(string x)
-        {
-            while (parent[x] != x) x = parent[x] = parent[parent[x]];
-            return x;
-        }
-        foreach (var m in network.Masses) parent[m.Name] = m.Name;
-        foreach (var s in network.Supports) parent[s.Name] = s.Name;
+        var nodes = new NodeIndex(network);
+        var sets = new DisjointSets(nodes.Count);
         // All supports form one component: anything connected to any of them is held.
-        foreach (var s in network.Supports.Skip(1)) parent[Find(s.Name)] = Find(Network.Ground);
-        foreach (var spring in network.Springs.Where(s => s.Stiffness > 0))
-            parent[Find(spring.NodeA)] = Find(spring.NodeB);
+        var ground = nodes.Of(Network.Ground);
+        for (var s = 1; s < network.Supports.Length; s++) sets.Join(nodes.Of(network.Supports[s].Name), ground);
+        foreach (var spring in network.Springs)
+            if (spring.Stiffness > 0) sets.Join(nodes.Of(spring.NodeA), nodes.Of(spring.NodeB));
         foreach (var link in network.Links)
-            foreach (var m in link.Masses.Skip(1))
-                parent[Find(m)] = Find(link.Masses[0]);
+            for (var i = 1; i < link.Masses.Length; i++) sets.Join(nodes.Of(link.Masses[i]), nodes.Of(link.Masses[0]));
 
-        var held = Find(Network.Ground);
-        return [.. network.Masses
-            .Where(m => Find(m.Name) != held)
-            .GroupBy(m => Find(m.Name))
-            .Select(g => g.Select(m => m.Name).ToImmutableArray())];
+        // Groups in the order of their first mass, each in mass order.
+        var held = sets.Find(ground);
+        var groupOfRoot = new Dictionary<int, int>();
+        var groups = new List<ImmutableArray<string>.Builder>();
+        for (var m = 0; m < network.Masses.Length; m++)
+        {
+            var root = sets.Find(m);
+            if (root == held) continue;
+            if (!groupOfRoot.TryGetValue(root, out var g))
+            {
+                groupOfRoot.Add(root, g = groups.Count);
+                groups.Add(ImmutableArray.CreateBuilder<string>());
+            }
+            groups[g].Add(network.Masses[m].Name);
+        }
+        var result = ImmutableArray.CreateBuilder<ImmutableArray<string>>(groups.Count);
+        foreach (var g in groups) result.Add(g.ToImmutable());
+        return result.MoveToImmutable();
     }
 
     /// <summary>Masses (and, in plane and 3d models, bodies) that no spring of positive stiffness touches, neither directly nor through a link.</summary>
@@ -49,24 +56,35 @@ public static class Topology
             var reached = network.Springs.Where(HasStiffness).SelectMany(s => new[] { NodeOf(network, s.NodeA), NodeOf(network, s.NodeB) }).ToHashSet();
             return [.. network.Masses.Select(m => m.Name).Concat(network.Bodies.Select(b => b.Name)).Where(n => !reached.Contains(n))];
         }
-        var touched = network.Springs.Where(s => s.Stiffness > 0).SelectMany(s => new[] { s.NodeA, s.NodeB }).ToHashSet();
+        var nodes = new NodeIndex(network);
+        var touched = new bool[nodes.Count];
+        foreach (var s in network.Springs)
+            if (s.Stiffness > 0) touched[nodes.Of(s.NodeA)] = touched[nodes.Of(s.NodeB)] = true;
+        // A link whose masses are partly touched makes them all touched, which may complete another link: repeat to the end.
         for (var grew = true; grew;)
         {
             grew = false;
-            foreach (var link in network.Links.Where(l => l.Masses.Any(touched.Contains) && !l.Masses.All(touched.Contains)))
+            foreach (var link in network.Links)
             {
-                touched.UnionWith(link.Masses);
+                var (any, all) = (false, true);
+                foreach (var m in link.Masses) (any, all) = (any || touched[nodes.Of(m)], all && touched[nodes.Of(m)]);
+                if (!any || all) continue;
+                foreach (var m in link.Masses) touched[nodes.Of(m)] = true;
                 grew = true;
             }
         }
-        return [.. network.Masses.Where(m => !touched.Contains(m.Name)).Select(m => m.Name)];
+        var result = ImmutableArray.CreateBuilder<string>();
+        for (var m = 0; m < network.Masses.Length; m++)
+            if (!touched[m]) result.Add(network.Masses[m].Name);
+        return result.ToImmutable();
     }
 
     /// <summary>Above this ratio of the stiffest to the softest spring a model carries a warning.</summary>
     public const double WarnedStiffnessRatio = 1e8;
 
     /// <summary>The springs stiffer than <see cref="WarnedStiffnessRatio"/> times the softest one, with that ratio; empty when none.</summary>
-    /// <remarks>In plane and 3d models each spring's scale is <see cref="Spring.Stiffness"/> (its largest translational component or its axial value); springs with rotational components only do not count.</remarks>
+    /// <remarks>Springs between two supports, or between two masses of one link, carry no force and are left out.
+    /// In plane and 3d models each spring's scale is <see cref="Spring.Stiffness"/> (its largest translational component or its axial value); springs with rotational components only do not count.</remarks>
     public static (double Ratio, Spring? Softest, ImmutableArray<Spring> Stiff) StiffnessSpread(Network network)
     {
         ArgumentNullException.ThrowIfNull(network);
@@ -77,10 +95,21 @@ public static class Topology
                 && NodeOf(network, s.NodeA) != NodeOf(network, s.NodeB)).ToArray();
             return Spread(counted);
         }
-        var dofs = Dofs.DofMap.ForScalarNetwork(network);
-        var positive = network.Springs.Where(s => s.Stiffness > 0 && !(network.IsSupport(s.NodeA) && network.IsSupport(s.NodeB))
-            && (dofs.IndexOf(s.NodeA) < 0 || dofs.IndexOf(s.NodeA) != dofs.IndexOf(s.NodeB))).ToArray();
-        return Spread(positive);
+        var nodes = new NodeIndex(network);
+        var linked = new DisjointSets(nodes.Count);
+        foreach (var link in network.Links)
+            for (var i = 1; i < link.Masses.Length; i++) linked.Join(nodes.Of(link.Masses[i]), nodes.Of(link.Masses[0]));
+        var positive = new List<Spring>(network.Springs.Length);
+        foreach (var s in network.Springs)
+        {
+            if (!(s.Stiffness > 0)) continue;
+            var (a, b) = (nodes.Of(s.NodeA), nodes.Of(s.NodeB));
+            var (aIsSupport, bIsSupport) = (nodes.IsSupport(a), nodes.IsSupport(b));
+            if (aIsSupport && bIsSupport) continue;
+            if (!aIsSupport && !bIsSupport && linked.Find(a) == linked.Find(b)) continue;
+            positive.Add(s);
+        }
+        return Spread([.. positive]);
     }
 
     private static (double Ratio, Spring? Softest, ImmutableArray<Spring> Stiff) Spread(Spring[] positive)
@@ -125,5 +154,46 @@ public static class Topology
         var lost = double.IsFinite(ratio) ? string.Create(CultureInfo.InvariantCulture, $"about {Math.Log10(Math.Sqrt(ratio)):0} digits") : "every digit";
         return string.Create(CultureInfo.InvariantCulture,
             $"spring stiffnesses span a ratio of {span} ('{stiffest.Name}' {stiffest.Stiffness:G4} N/m against '{softest.Name}' {softest.Stiffness:G4} N/m): the low modes are solved from the flexibility to keep their relative accuracy, but intermediate modes and residuals lose {lost}; a spring that stiff usually stands for a rigid connection: consider tying its masses with 'links:' (or, for a spring to a support, declaring the mass a support) instead of {names}");
+    }
+
+    /// <summary>Masses numbered 0..n−1 in network order, then supports (ground first).</summary>
+    private sealed class NodeIndex
+    {
+        private readonly Dictionary<string, int> _index;
+        private readonly int _masses;
+
+        public NodeIndex(Network network)
+        {
+            _masses = network.Masses.Length;
+            _index = new Dictionary<string, int>(_masses + network.Supports.Length, StringComparer.Ordinal);
+            foreach (var m in network.Masses) _index.Add(m.Name, _index.Count);
+            foreach (var s in network.Supports) _index.Add(s.Name, _index.Count);
+        }
+
+        public int Count => _index.Count;
+
+        public int Of(string node) => _index[node];
+
+        public bool IsSupport(int node) => node >= _masses;
+    }
+
+    /// <summary>Union–find with path halving: which nodes a chain of joins connects.</summary>
+    private sealed class DisjointSets
+    {
+        private readonly int[] _parent;
+
+        public DisjointSets(int count)
+        {
+            _parent = new int[count];
+            for (var i = 0; i < count; i++) _parent[i] = i;
+        }
+
+        public int Find(int x)
+        {
+            while (_parent[x] != x) x = _parent[x] = _parent[_parent[x]];
+            return x;
+        }
+
+        public void Join(int a, int b) => _parent[Find(a)] = Find(b);
     }
 }

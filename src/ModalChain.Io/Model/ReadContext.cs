@@ -64,7 +64,7 @@ internal sealed partial class ReadContext
     public void RejectUnknownKeys(YMapping mapping, string what, params string[] allowed)
     {
         foreach (var (key, _) in mapping.Entries)
-            if (!allowed.Contains(key.Value))
+            if (Array.IndexOf(allowed, key.Value) < 0)
                 Error(key, $"unknown key '{key.Value}' in {what}{Suggest(key.Value, allowed)}; accepted keys: {string.Join(", ", allowed)}");
     }
 
@@ -78,34 +78,40 @@ internal sealed partial class ReadContext
             Error(owner ?? mapping.Position, $"{what} needs '{key}', e.g. '{key}: {Example(quantity)}'");
             return null;
         }
-        return Value(node, quantity, range, $"'{key}' of {what}");
+        return Value(node, quantity, range, key, what);
     }
 
     /// <summary>Reads an optional value; null when absent.</summary>
     public double? Optional(YMapping mapping, string key, Quantity quantity, Range range, string what) =>
-        mapping[key] is { } node ? Value(node, quantity, range, $"'{key}' of {what}") : null;
+        mapping[key] is { } node ? Value(node, quantity, range, key, what) : null;
 
     /// <summary>Reads one scalar as <paramref name="quantity"/>, checking it lies in <paramref name="range"/>.</summary>
-    public double? Value(YNode node, Quantity quantity, Range range, string what)
+    public double? Value(YNode node, Quantity quantity, Range range, string what) => Value(node, quantity, range, null, what);
+
+    // The description "'key' of what" is composed only when there is an error to describe: a large model reads
+    // hundreds of thousands of values, nearly all of them right.
+    private double? Value(YNode node, Quantity quantity, Range range, string? key, string what)
     {
         if (node is not YScalar scalar || scalar.IsPlainNull)
         {
-            Error(node, $"{what} must be a {UnitTable.Describe(quantity)} value such as '{Example(quantity)}'");
+            Error(node, $"{Of(key, what)} must be a {UnitTable.Describe(quantity)} value such as '{Example(quantity)}'");
             return null;
         }
         if (!_parsed.TryGetValue((scalar.Value, quantity), out var v))
         {
-            if (Parse(scalar, quantity, what) is not { } parsed) return null;
+            if (Parse(scalar, quantity, Of(key, what)) is not { } parsed) return null;
             _parsed[(scalar.Value, quantity)] = v = parsed;
         }
         var belowMinimum = range.MinimumInclusive ? v < range.Minimum : v <= range.Minimum;
         if (belowMinimum || v > range.Maximum)
         {
-            Error(scalar, $"{what} is {Si(v, quantity)}, {RangeText(range, quantity, v)}");
+            Error(scalar, $"{Of(key, what)} is {Si(v, quantity)}, {RangeText(range, quantity, v)}");
             return null;
         }
         return v;
     }
+
+    private static string Of(string? key, string what) => key is null ? what : $"'{key}' of {what}";
 
     // Large models repeat a few values ("40 kg", "5 MN/m") many thousands of times; each text is parsed once.
     private readonly Dictionary<(string Text, Quantity Quantity), double> _parsed = [];

@@ -14,15 +14,55 @@ internal sealed record YScalar(SourcePosition Position, string Value, bool Quote
     public bool IsPlainNull => !Quoted && (Value.Length == 0 || Value is "~" or "null" or "Null" or "NULL");
 }
 
-internal sealed record YSequence(SourcePosition Position, ImmutableArray<YNode> Items) : YNode(Position);
+/// <summary>A list of nodes, in document order.</summary>
+/// <remarks>A sequence read from a file gives its items from the compact <see cref="NodeStore"/> when asked, so the
+/// many small collections of a large model never all exist as objects at once.</remarks>
+internal sealed record YSequence : YNode
+{
+    private readonly ImmutableArray<YNode> _items;
+    private readonly NodeStore? _store;
+    private readonly int _slot;
+
+    public YSequence(SourcePosition position, ImmutableArray<YNode> items) : base(position) => _items = items;
+
+    internal YSequence(SourcePosition position, NodeStore store, int slot) : base(position) => (_store, _slot) = (store, slot);
+
+    public ImmutableArray<YNode> Items => _store is null ? _items : _store.Items(_slot);
+}
 
 /// <summary>A mapping whose keys are scalars, in document order, duplicates already rejected.</summary>
-/// <param name="Position">Where the mapping starts.</param>
-/// <param name="Entries">The entries kept, in document order.</param>
-/// <param name="DroppedKeys">True when an entry was left out because its key was already reported (duplicate, or not a scalar).</param>
-internal sealed record YMapping(SourcePosition Position, ImmutableArray<KeyValuePair<YScalar, YNode>> Entries, bool DroppedKeys = false) : YNode(Position)
+/// <remarks>A mapping read from a file gives its entries from the compact <see cref="NodeStore"/> when asked.</remarks>
+internal sealed record YMapping : YNode
 {
-    public YNode? this[string key] => Entries.FirstOrDefault(e => e.Key.Value == key).Value;
+    private readonly ImmutableArray<KeyValuePair<YScalar, YNode>> _entries;
+    private readonly NodeStore? _store;
+    private readonly int _slot;
+
+    /// <param name="position">Where the mapping starts.</param>
+    /// <param name="entries">The entries kept, in document order.</param>
+    /// <param name="droppedKeys">True when an entry was left out because its key was already reported (duplicate, or not a scalar).</param>
+    public YMapping(SourcePosition position, ImmutableArray<KeyValuePair<YScalar, YNode>> entries, bool droppedKeys = false) : base(position) =>
+        (_entries, DroppedKeys) = (entries, droppedKeys);
+
+    internal YMapping(SourcePosition position, NodeStore store, int slot, bool droppedKeys) : base(position) =>
+        (_store, _slot, DroppedKeys) = (store, slot, droppedKeys);
+
+    /// <summary>The entries kept, in document order.</summary>
+    public ImmutableArray<KeyValuePair<YScalar, YNode>> Entries => _store is null ? _entries : _store.Entries(_slot);
+
+    /// <summary>True when an entry was left out because its key was already reported (duplicate, or not a scalar).</summary>
+    public bool DroppedKeys { get; }
+
+    /// <summary>The value of <paramref name="key"/>, or null when the mapping has no such key.</summary>
+    public YNode? this[string key]
+    {
+        get
+        {
+            foreach (var (k, v) in Entries)
+                if (k.Value == key) return v;
+            return null;
+        }
+    }
 }
 
 /// <summary>Reads YAML text into a small tree that keeps positions, reporting malformed text and duplicate keys.</summary>
@@ -50,16 +90,24 @@ internal static class YamlTree
 
     /// <summary>Reads YAML from <paramref name="reader"/>; <paramref name="text"/> gives the same text as a string, asked
     /// for only when an error message needs to look at it.</summary>
-    public static YNode? Load(TextReader reader, Func<string> text, string file, List<Diagnostic> diagnostics)
+    /// <param name="reader">The YAML text.</param>
+    /// <param name="text">The same text as one string, for error messages.</param>
+    /// <param name="file">The file name diagnostics give.</param>
+    /// <param name="diagnostics">Where errors are added.</param>
+    /// <param name="readAhead">Run the scanner and parser on a second thread (<see cref="ReadAheadParser"/>), worth it
+    /// for large texts on a machine with more than one processor; the result is the same either way.</param>
+    public static YNode? Load(TextReader reader, Func<string> text, string file, List<Diagnostic> diagnostics, bool readAhead = false)
     {
-        var parser = new TrackingParser(new Parser(reader));
-        var tree = new TreeReader(parser, file, diagnostics);
+        using var ahead = readAhead ? new ReadAheadParser(new Parser(reader)) : null;
+        var parser = new TrackingParser(ahead ?? (IParser)new Parser(reader));
+        var store = new NodeStore();
+        var tree = new TreeReader(parser, store, file, diagnostics);
         try
         {
             parser.Consume<StreamStart>();
             if (parser.Accept<StreamEnd>(out _)) return null;
             parser.Consume<DocumentStart>();
-            var root = tree.ReadNode(depth: 0).Node;
+            var root = store.Node(tree.ReadNode(depth: 0).Slot);
             parser.Consume<DocumentEnd>();
             if (parser.Accept<DocumentStart>(out var second))
                 diagnostics.Add(new Diagnostic(Severity.Error, file, Pos(second.Start), "a model file holds one YAML document; remove the second '---'"));
@@ -134,8 +182,9 @@ internal static class YamlTree
         public SourcePosition At { get; } = at;
     }
 
-    /// <summary>A node read, with its height (levels of collections, 0 for a scalar) and its size (nodes, aliases counted as copies).</summary>
-    private readonly record struct Anchored(YNode Node, int Height, long Size);
+    /// <summary>A node read, with its slot in the store, its height (levels of collections, 0 for a scalar) and its
+    /// size (nodes, aliases counted as copies).</summary>
+    private readonly record struct Anchored(int Slot, int Height, long Size);
 
     /// <summary>Remembers where the last event started and which flow collections are open, to place errors the scanner cannot.</summary>
     /// <remarks>Also refuses nesting deeper than <see cref="MaximumDepth"/> as soon as the opening event arrives.</remarks>
@@ -168,18 +217,17 @@ internal static class YamlTree
         }
     }
 
-    /// <summary>Builds the tree from the parser's events, one node per call of <see cref="ReadNode"/>.</summary>
-    private sealed class TreeReader(IParser parser, string file, List<Diagnostic> diagnostics)
+    /// <summary>Writes the parser's events into a <see cref="NodeStore"/>, one node per call of <see cref="ReadNode"/>.</summary>
+    private sealed class TreeReader(IParser parser, NodeStore store, string file, List<Diagnostic> diagnostics)
     {
         private readonly Dictionary<string, Anchored> _anchors = [];
         private long _aliasExpansion;
 
         // Large models repeat the same few keys and values ("mass", "between", "40 kg") hundreds of thousands of
-        // times: one string each keeps the tree small. Collections are gathered in one reusable list per depth
-        // (the depth is bounded), so a node costs one exact array instead of a builder and its copies.
+        // times: one string each keeps the store small. The keys of the mapping open at each depth are gathered in
+        // one reusable list per depth (the depth is bounded) to find duplicates.
         private readonly Dictionary<string, string> _strings = new(StringComparer.Ordinal);
-        private readonly List<YNode>[] _items = new List<YNode>[MaximumDepth + 1];
-        private readonly List<KeyValuePair<YScalar, YNode>>[] _entries = new List<KeyValuePair<YScalar, YNode>>[MaximumDepth + 1];
+        private readonly List<(string Key, SourcePosition At)>[] _keys = new List<(string, SourcePosition)>[MaximumDepth + 1];
 
         /// <param name="depth">How many collections enclose the node.</param>
         public Anchored ReadNode(int depth)
@@ -188,7 +236,8 @@ internal static class YamlTree
             {
                 if (!_anchors.TryGetValue(alias.Value.Value, out var target))
                     throw new YamlException(alias.Start, alias.End, $"unknown alias '*{alias.Value.Value}'");
-                // The tree shares the anchored node, but whoever walks it meets a copy at every alias.
+                // The store keeps the alias as a reference to the anchored node, but whoever walks the tree meets a
+                // copy at every alias.
                 _aliasExpansion += target.Size;
                 if (_aliasExpansion > MaximumAliasExpansion)
                     throw new LimitExceeded(Pos(alias.Start),
@@ -198,36 +247,37 @@ internal static class YamlTree
                 if (depth + target.Height > MaximumDepth)
                     throw new LimitExceeded(Pos(alias.Start),
                         $"'*{alias.Value.Value}' here nests lists and mappings more than {MaximumDepth} levels deep; a model needs a handful of levels (see docs/model-format.md)");
-                return target;
+                return target with { Slot = store.AddAlias(target.Slot) };
             }
 
-            YNode node;
+            int slot;
             string? anchor;
             var height = 0; // levels of collections, counted as the text's depth is: 0 for a scalar
             var size = 1L;
             if (parser.TryConsume<Scalar>(out var scalar))
             {
-                node = new YScalar(Pos(scalar.Start), Intern(scalar.Value), scalar.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted);
+                slot = store.AddScalar(Pos(scalar.Start), Intern(scalar.Value), scalar.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted);
                 anchor = scalar.Anchor.IsEmpty ? null : scalar.Anchor.Value;
             }
             else if (parser.TryConsume<SequenceStart>(out var seq))
             {
-                var items = _items[depth] ??= [];
-                items.Clear();
+                slot = store.OpenCollection(Pos(seq.Start), NodeStore.Kind.Sequence);
+                var count = 0;
                 height = 1;
                 while (!parser.TryConsume<SequenceEnd>(out _))
                 {
                     var item = ReadNode(depth + 1);
-                    items.Add(item.Node);
+                    count++;
                     (height, size) = (Math.Max(height, item.Height + 1), size + item.Size);
                 }
-                node = new YSequence(Pos(seq.Start), [.. items]);
+                store.CloseCollection(slot, count, dropped: false);
                 anchor = seq.Anchor.IsEmpty ? null : seq.Anchor.Value;
             }
             else if (parser.TryConsume<MappingStart>(out var map))
             {
-                var entries = _entries[depth] ??= [];
-                entries.Clear();
+                slot = store.OpenCollection(Pos(map.Start), NodeStore.Kind.Mapping);
+                var keys = _keys[depth] ??= [];
+                keys.Clear();
                 Dictionary<string, SourcePosition>? seen = null; // only for mappings too long to search
                 var dropped = false;
                 height = 1;
@@ -236,24 +286,25 @@ internal static class YamlTree
                     var keyRead = ReadNode(depth + 1);
                     var valueRead = ReadNode(depth + 1);
                     (height, size) = (Math.Max(height, Math.Max(keyRead.Height, valueRead.Height) + 1), size + keyRead.Size + valueRead.Size);
-                    var (keyNode, value) = (keyRead.Node, valueRead.Node);
-                    if (keyNode is not YScalar key)
+                    if (store.ScalarOf(keyRead.Slot) is not var (key, at))
                     {
-                        diagnostics.Add(new Diagnostic(Severity.Error, file, keyNode.Position, "a key must be a plain name, not a list or mapping"));
+                        diagnostics.Add(new Diagnostic(Severity.Error, file, store.PositionOf(keyRead.Slot), "a key must be a plain name, not a list or mapping"));
+                        store.DropEntry(keyRead.Slot);
                         dropped = true;
                         continue;
                     }
-                    if (FirstDefinition(entries, ref seen, key) is { } first)
+                    if (FirstDefinition(keys, ref seen, key) is { } first)
                     {
-                        diagnostics.Add(new Diagnostic(Severity.Error, file, key.Position,
-                            $"duplicate key '{key.Value}' (first defined at line {first.Line}); names must be unique"));
+                        diagnostics.Add(new Diagnostic(Severity.Error, file, at,
+                            $"duplicate key '{key}' (first defined at line {first.Line}); names must be unique"));
+                        store.DropEntry(keyRead.Slot);
                         dropped = true;
                         continue;
                     }
-                    entries.Add(new(key, value));
-                    seen?.Add(key.Value, key.Position);
+                    keys.Add((key, at));
+                    seen?.Add(key, at);
                 }
-                node = new YMapping(Pos(map.Start), [.. entries], dropped);
+                store.CloseCollection(slot, keys.Count, dropped);
                 anchor = map.Anchor.IsEmpty ? null : map.Anchor.Value;
             }
             else
@@ -262,27 +313,27 @@ internal static class YamlTree
                 throw new YamlException(current.Start, current.End, $"unexpected {current.GetType().Name}");
             }
 
-            var read = new Anchored(node, height, size);
+            var read = new Anchored(slot, height, size);
             if (anchor is not null) _anchors[anchor] = read;
             return read;
         }
 
-        /// <summary>Where <paramref name="key"/> was first defined among the entries so far, or null when it is new.</summary>
-        private static SourcePosition? FirstDefinition(List<KeyValuePair<YScalar, YNode>> entries, ref Dictionary<string, SourcePosition>? seen, YScalar key)
+        /// <summary>Where <paramref name="key"/> was first defined among the keys so far, or null when it is new.</summary>
+        private static SourcePosition? FirstDefinition(List<(string Key, SourcePosition At)> keys, ref Dictionary<string, SourcePosition>? seen, string key)
         {
             const int searched = 16;
-            if (seen is null && entries.Count < searched)
+            if (seen is null && keys.Count < searched)
             {
-                foreach (var (k, _) in entries)
-                    if (k.Value == key.Value) return k.Position;
+                foreach (var (k, at) in keys)
+                    if (k == key) return at;
                 return null;
             }
             if (seen is null)
             {
                 seen = new Dictionary<string, SourcePosition>(StringComparer.Ordinal);
-                foreach (var (k, _) in entries) seen.Add(k.Value, k.Position);
+                foreach (var (k, at) in keys) seen.Add(k, at);
             }
-            return seen.TryGetValue(key.Value, out var first) ? first : null;
+            return seen.TryGetValue(key, out var first) ? first : null;
         }
 
         private string Intern(string value)

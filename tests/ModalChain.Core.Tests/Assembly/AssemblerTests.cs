@@ -118,4 +118,37 @@ public class AssemblerTests
         NumericAssert.Close(expected, renumbered.DenseStiffness(), Tolerance.Abs(0), "K after renumbering");
         NumericAssert.Close(new[] { 30.0, 10, 40, 20 }, renumbered.Mass.Diagonal().ToArray(), Tolerance.Abs(0), "diag M after renumbering");
     }
+
+    [Fact]
+    public void SummedEntries_EqualTheirDenseSum_InTheOrderGiven_WithoutStoredZeros()
+    {
+        // Seeded coordinate entries with many repeats of each position, some of which cancel exactly: the sparse
+        // matrix holds, at each position, the sum taken in the order given, and no entry that sums to zero
+        // [identity: a dense array summed entry by entry].
+        var random = new Random(20261202);
+        const int n = 40;
+        var entries = new List<(int Row, int Column, double Value)>();
+        var dense = new double[n, n];
+        for (var e = 0; e < 2_000; e++)
+        {
+            var (r, c, v) = (random.Next(n), random.Next(n), random.NextDouble() * 2 - 1);
+            entries.Add((r, c, v));
+            dense[r, c] += v;
+            if (e % 5 == 0)
+            {
+                (r, c) = (random.Next(n), random.Next(n));
+                entries.Add((r, c, 1.5));
+                entries.Add((r, c, -1.5)); // a pair that cancels on a fresh position when nothing else lands there
+                dense[r, c] += 1.5;
+                dense[r, c] += -1.5;
+            }
+        }
+        var summed = Assembler.Summed(n, entries);
+        NumericAssert.Close(Matrix<double>.Build.DenseOfArray(dense), summed, Tolerance.Abs(0), "summed entries");
+        var stored = summed.Storage.EnumerateNonZeroIndexed().Count();
+        var nonZero = Enumerable.Range(0, n * n).Count(i => dense[i / n, i % n] != 0);
+        Assert.Equal(nonZero, stored);
+        var csr = (MathNet.Numerics.LinearAlgebra.Storage.SparseCompressedRowMatrixStorage<double>)summed.Storage;
+        Assert.Equal(nonZero, csr.ValueCount); // no explicit zero kept either
+    }
 }

@@ -1,0 +1,172 @@
+using System.Collections.Immutable;
+using System.Runtime.InteropServices;
+using ModalChain.Io.Diagnostics;
+
+namespace ModalChain.Io.Yaml;
+
+/// <summary>The nodes of one YAML document in document order, as compact slots, from which <see cref="YNode"/>s are made when asked.</summary>
+/// <remarks>
+/// A model written out in full has millions of nodes (100,000 masses are 800,000, their springs 1.6 million more).
+/// Held as objects they all outlive several garbage collections and are copied at each, which cost more than
+/// reading the text. Here a node is one slot of a few numbers in large chunks the collector never moves; the objects a
+/// section reader walks are made from the slots on demand and are garbage as soon as it moves on.
+/// <para>
+/// Slots are in pre-order: a collection's slot is followed by its children's, and it records how many slots its whole
+/// subtree spans, so a parent steps from one child to the next. An alias is a slot that names the anchored node's
+/// slot; walking it gives a node equal to the anchored one. A mapping entry dropped while reading (its key was
+/// duplicate or not a scalar, already reported) stays in the slots, marked, and is skipped.
+/// </para>
+/// <para>
+/// The children of the few collections asked for last are kept in a small cache, so a reader that looks at one entry
+/// several times (its keys, then each value) makes its objects once. A cache line is replaced whole, so a tree may
+/// be read from several threads.
+/// </para>
+/// </remarks>
+internal sealed class NodeStore
+{
+    internal enum Kind : byte { Scalar, Sequence, Mapping, Alias }
+
+    [Flags]
+    private enum Marks : byte { None = 0, Quoted = 1, DroppedKeys = 2, DroppedEntry = 4 }
+
+    // Text for a scalar; Data is the number of children of a collection (entries of a mapping) or the anchored slot
+    // of an alias; Span is the number of slots of the subtree, the node's own included.
+    [StructLayout(LayoutKind.Auto)]
+    private struct Slot
+    {
+        public string? Text;
+        public int Line;
+        public int Column;
+        public int Span;
+        public int Data;
+        public Kind Kind;
+        public Marks Marks;
+    }
+
+    private const int ChunkBits = 15;
+    private const int ChunkSize = 1 << ChunkBits;
+    private Slot[][] _chunks = new Slot[4][];
+    private int _count;
+
+    private ref Slot At(int slot) => ref _chunks[slot >> ChunkBits][slot & (ChunkSize - 1)];
+
+    private int Add(Kind kind, SourcePosition position)
+    {
+        var chunk = _count >> ChunkBits;
+        if (chunk == _chunks.Length) Array.Resize(ref _chunks, 2 * _chunks.Length);
+        _chunks[chunk] ??= new Slot[ChunkSize];
+        ref var s = ref At(_count);
+        s = new Slot { Kind = kind, Line = position.Line, Column = position.Column, Span = 1 };
+        return _count++;
+    }
+
+    public int AddScalar(SourcePosition position, string text, bool quoted)
+    {
+        var slot = Add(Kind.Scalar, position);
+        ref var s = ref At(slot);
+        s.Text = text;
+        if (quoted) s.Marks = Marks.Quoted;
+        return slot;
+    }
+
+    /// <summary>Adds an alias of the node at <paramref name="target"/>, which is never itself an alias.</summary>
+    public int AddAlias(int target)
+    {
+        ref var t = ref At(target);
+        var slot = Add(Kind.Alias, new SourcePosition(t.Line, t.Column));
+        At(slot).Data = Resolve(target);
+        return slot;
+    }
+
+    /// <summary>Adds a sequence or mapping whose children follow; <see cref="CloseCollection"/> ends it.</summary>
+    public int OpenCollection(SourcePosition position, Kind kind) => Add(kind, position);
+
+    public void CloseCollection(int slot, int children, bool dropped)
+    {
+        ref var s = ref At(slot);
+        s.Span = _count - slot;
+        s.Data = children;
+        if (dropped) s.Marks |= Marks.DroppedKeys;
+    }
+
+    /// <summary>Marks the mapping entry whose key is at <paramref name="keySlot"/> as left out.</summary>
+    public void DropEntry(int keySlot) => At(keySlot).Marks |= Marks.DroppedEntry;
+
+    /// <summary>The text and position of the scalar at <paramref name="slot"/> (through an alias), or null for a collection.</summary>
+    public (string Text, SourcePosition At)? ScalarOf(int slot)
+    {
+        ref var s = ref At(Resolve(slot));
+        return s.Kind == Kind.Scalar ? (s.Text!, new SourcePosition(s.Line, s.Column)) : null;
+    }
+
+    public SourcePosition PositionOf(int slot)
+    {
+        ref var s = ref At(Resolve(slot));
+        return new SourcePosition(s.Line, s.Column);
+    }
+
+    private int Resolve(int slot)
+    {
+        ref var s = ref At(slot);
+        return s.Kind == Kind.Alias ? s.Data : slot;
+    }
+
+    /// <summary>The node at <paramref name="slot"/>; an alias gives the anchored node.</summary>
+    public YNode Node(int slot)
+    {
+        slot = Resolve(slot);
+        ref var s = ref At(slot);
+        var position = new SourcePosition(s.Line, s.Column);
+        return s.Kind switch
+        {
+            Kind.Scalar => new YScalar(position, s.Text!, (s.Marks & Marks.Quoted) != 0),
+            Kind.Sequence => new YSequence(position, this, slot),
+            _ => new YMapping(position, this, slot, (s.Marks & Marks.DroppedKeys) != 0),
+        };
+    }
+
+    public ImmutableArray<YNode> Items(int slot)
+    {
+        if (Cached(slot) is ImmutableArray<YNode> known) return known;
+        ref var s = ref At(slot);
+        var items = new YNode[s.Data];
+        var (child, k) = (slot + 1, 0);
+        for (; k < items.Length; child += At(child).Span) items[k++] = Node(child);
+        var result = ImmutableCollectionsMarshal.AsImmutableArray(items);
+        Remember(slot, result);
+        return result;
+    }
+
+    public ImmutableArray<KeyValuePair<YScalar, YNode>> Entries(int slot)
+    {
+        if (Cached(slot) is ImmutableArray<KeyValuePair<YScalar, YNode>> known) return known;
+        ref var s = ref At(slot);
+        var entries = new KeyValuePair<YScalar, YNode>[s.Data];
+        var (key, end, k) = (slot + 1, slot + s.Span, 0);
+        while (key < end)
+        {
+            var value = key + At(key).Span;
+            var next = value + At(value).Span;
+            if ((At(key).Marks & Marks.DroppedEntry) == 0) entries[k++] = new((YScalar)Node(key), Node(value));
+            key = next;
+        }
+        var result = ImmutableCollectionsMarshal.AsImmutableArray(entries);
+        Remember(slot, result);
+        return result;
+    }
+
+    private sealed class CacheLine(int slot, object children)
+    {
+        public int Slot { get; } = slot;
+        public object Children { get; } = children;
+    }
+
+    private readonly CacheLine?[] _cache = new CacheLine?[64];
+
+    // Neighbouring collections are a few slots apart: a multiplicative hash spreads them over the lines.
+    private static int LineOf(int slot) => (int)(((uint)slot * 2654435769u) >> 26);
+
+    private object? Cached(int slot) => _cache[LineOf(slot)] is { } line && line.Slot == slot ? line.Children : null;
+
+    private void Remember(int slot, object children) => _cache[LineOf(slot)] = new CacheLine(slot, children);
+}
