@@ -18,10 +18,13 @@ public static class Topology
         }
         foreach (var m in network.Masses) parent[m.Name] = m.Name;
         foreach (var s in network.Supports) parent[s.Name] = s.Name;
+        foreach (var b in network.Bodies) parent[b.Name] = b.Name;
         // All supports form one component: anything connected to any of them is held.
         foreach (var s in network.Supports.Skip(1)) parent[Find(s.Name)] = Find(Network.Ground);
+        // An end written 'body.point' belongs to its body.
+        string Node(string end) => network.Bodies.IsDefaultOrEmpty ? end : network.Resolve(end)?.Node ?? end;
         foreach (var spring in network.Springs.Where(s => s.Stiffness > 0))
-            parent[Find(spring.NodeA)] = Find(spring.NodeB);
+            parent[Find(Node(spring.NodeA))] = Find(Node(spring.NodeB));
         foreach (var link in network.Links)
             foreach (var m in link.Masses.Skip(1))
                 parent[Find(m)] = Find(link.Masses[0]);
