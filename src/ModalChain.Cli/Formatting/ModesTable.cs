@@ -37,7 +37,7 @@ internal static class ModesTable
         o.WriteLine();
 
         var fundamental = result.Modes.FirstOrDefault(m => !m.IsRigidBody);
-        if (fundamental is not null && n.Springs.Length > 0)
+        if (fundamental is not null && n.Springs.Length > 0 && fundamental.StrainEnergyShare.Any(e => e > 0))
         {
             var i = Enumerable.Range(0, n.Springs.Length).MaxBy(k => fundamental.StrainEnergyShare[k]);
             o.WriteLine(string.Create(Inv,
@@ -73,7 +73,7 @@ internal static class ModesTable
     /// <summary>The spring with the largest share of the mode's strain energy (the one whose stiffness moves the mode most), with that share.</summary>
     private static string MostStrained(Network network, Mode mode)
     {
-        if (mode.IsRigidBody || network.Springs.Length == 0) return "-";
+        if (mode.IsRigidBody || network.Springs.Length == 0 || !mode.StrainEnergyShare.Any(e => e > 0)) return "-";
         var i = Enumerable.Range(0, network.Springs.Length).MaxBy(k => mode.StrainEnergyShare[k]);
         return string.Create(Inv, $"{network.Springs[i].Name} {100 * mode.StrainEnergyShare[i]:F0}%");
     }

@@ -35,7 +35,7 @@ internal static class TransientTable
         }
         motion.Write(o);
 
-        var forces = result.Responses.Where(r => !Io.Json.TransientJson.IsMotion(r.Quantity)).ToArray();
+        var forces = result.Responses.Where(r => !Io.Json.TransientJson.IsMotion(r.Quantity) && r.Direction is null).ToArray();
         if (forces.Length > 0)
         {
             o.WriteLine();
@@ -50,6 +50,17 @@ internal static class TransientTable
                 };
                 table.Add(label, Num(r.Peak.Value), Time(r.Peak.Time), Rms(r.Rms));
             }
+            table.Write(o);
+        }
+
+        var mounts = result.Responses.Where(r => r.Direction is not null).ToArray();
+        if (mounts.Length > 0)
+        {
+            o.WriteLine();
+            o.WriteLine("Mount forces: peak (largest magnitude, with sign) of the force (moment) each spring and damper passes to its second end");
+            var table = new TextTable("element", "direction", "peak", "unit", "at [s]", "rms");
+            foreach (var r in mounts)
+                table.Add($"{(r.Quantity == ResponseQuantity.SpringForce ? "spring" : "damper")} {r.Name}", r.Direction!, Num(r.Peak.Value), r.Unit, Time(r.Peak.Time), Rms(r.Rms));
             table.Write(o);
         }
 

@@ -169,6 +169,19 @@ public sealed class DofMap
 
     private Dictionary<string, int>? _labels;
 
+    /// <summary>
+    /// The DOF labels an output name stands for: itself when it is a label (or, in a line model, a mass); in plane and
+    /// 3d models the name of a mass or body stands for every DOF of that node (<c>skid</c> → <c>skid.x</c> … <c>skid.rz</c>).
+    /// Empty when the name matches nothing.
+    /// </summary>
+    public ImmutableArray<string> OutputLabels(string name)
+    {
+        ArgumentNullException.ThrowIfNull(name);
+        if (IndexOfLabel(name) >= 0) return [name];
+        if (Space == ModelSpace.Line) return [];
+        return [.. Enumerable.Range(0, Count).Where(i => Dofs[i].Node == name).Select(Label)];
+    }
+
     private static string SpaceName(ModelSpace space) => space == ModelSpace.Plane ? "plane" : "3d";
 
     private sealed class FrozenIndex(ImmutableArray<Dof> dofs, ImmutableArray<ImmutableArray<string>> nodes)

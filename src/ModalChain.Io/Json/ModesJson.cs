@@ -3,6 +3,7 @@ using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
+using ModalChain.Core.Model;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
 
@@ -61,8 +62,10 @@ public static class ModesJson
             writer.Number("omega_rad_s", mode.AngularFrequency);
             writer.Number("period_s", mode.PeriodSeconds);
             writer.WriteBoolean("rigid_body", mode.IsRigidBody);
-            // Shapes are written per mass: a linked group's one DOF is repeated for each of its masses.
-            writer.Keyed("shape", massKeys, network.Links.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan());
+            // Shapes are written per mass: a linked group's one DOF is repeated for each of its masses. Plane and 3d
+            // models write them per DOF label (skid.z, skid.ry), the masses' and bodies' several directions each.
+            if (network.Space != ModelSpace.Line) writer.Keyed("shape", dofKeys, mode.Shape.AsSpan());
+            else writer.Keyed("shape", massKeys, network.Links.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan());
             writer.Number("participation", mode.ParticipationFactor);
             writer.Number("effective_mass_kg", mode.EffectiveModalMass);
             writer.Number("effective_mass_fraction", mode.EffectiveMassFraction);

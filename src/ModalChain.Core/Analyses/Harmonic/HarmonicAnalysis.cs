@@ -62,6 +62,8 @@ public static class HarmonicAnalysis
         var n = p.FreeCount;
         var loading = HarmonicLoading.Compile(system, loads);
         var spatial = network.Space != ModelSpace.Line;
+        // A mass or body named as an output of a plane or 3d model stands for each of its DOFs.
+        if (spatial) outputs = [.. outputs.SelectMany(o => p.Free.OutputLabels(o) is { IsEmpty: false } labels ? labels : [o]).Distinct()];
         var outputIndex = outputs.Select(o =>
         {
             var i = spatial ? p.Free.IndexOfLabel(o) : p.Free.IndexOf(o);

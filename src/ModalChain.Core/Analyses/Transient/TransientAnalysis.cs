@@ -426,7 +426,8 @@ public static class TransientAnalysis
         Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
     {
         var spatial = network.Space != ModelSpace.Line;
-        var outputs = !settings.Outputs.IsEmpty ? settings.Outputs
+        var outputs = !settings.Outputs.IsEmpty
+            ? spatial ? [.. settings.Outputs.SelectMany(o => dofs.OutputLabels(o) is { IsEmpty: false } labels ? labels : [o]).Distinct()] : settings.Outputs
             : spatial ? [.. Enumerable.Range(0, dofs.Count).Select(dofs.Label)] : [.. network.Masses.Select(m => m.Name)];
         var probes = new List<Probe>();
         foreach (var name in outputs)
