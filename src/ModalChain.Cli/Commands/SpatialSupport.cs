@@ -41,6 +41,11 @@ internal static class SpatialSupport
         return [.. names.Where(o => dofs.OutputLabels(o).IsEmpty)];
     }
 
+    /// <summary>"is not a mass" (line models) or "is not a DOF label (skid.z), mass or body" (plane and 3d), plural for several.</summary>
+    public static string NotOutputs(Network network, int count) => network.Space == ModelSpace.Line
+        ? count == 1 ? "is not a mass" : "are not masses"
+        : count == 1 ? "is not a DOF label (such as 'mass.z'), mass or body" : "are not DOF labels (such as 'mass.z'), masses or bodies";
+
     private static bool Undirected(TransientExcitation load) => load switch
     {
         ForceHistory f => f.Direction == Direction.Along,

@@ -68,7 +68,7 @@ internal static class TransientCommand
             {
                 var unknown = SpatialSupport.UnknownOutputs(document.Network, chosenOutputs);
                 if (unknown.Length > 0)
-                    return Fail(io, $"--output names {string.Join(", ", unknown.Select(u => $"'{u}'"))}, which {(unknown.Length == 1 ? "is not a mass" : "are not masses")} of the model");
+                    return Fail(io, $"--output names {string.Join(", ", unknown.Select(u => $"'{u}'"))}, which {SpatialSupport.NotOutputs(document.Network, unknown.Length)} of the model");
                 settings = settings with { Outputs = [.. chosenOutputs.Distinct()] };
             }
 
