@@ -14,10 +14,13 @@ internal static class HarmonicTable
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    public static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result)
+    public static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result) => Write(o, document, system, result, null);
+
+    /// <summary>The report of one sweep; for a load case (<paramref name="caseName"/> not null) headed by the case, without the caution (the caller writes it once).</summary>
+    internal static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result, string? caseName)
     {
         var f = result.FrequenciesHz;
-        o.WriteLine(TerminalText.Line(document.Network.Title));
+        o.WriteLine(caseName is null ? TerminalText.Line(document.Network.Title) : $"Load case {caseName}");
         o.WriteLine(string.Create(Inv,
             $"Harmonic response, {(result.Method == HarmonicMethod.Modal ? "modal superposition" : "direct solve")}, {f.Length} frequencies from {f.Min():G4} to {f.Max():G4} Hz"));
         o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!))));
@@ -107,15 +110,16 @@ internal static class HarmonicTable
         o.WriteLine("Phases are relative to the loads' phase reference; velocity = iωX, acceleration = −ω²X; reactions are the force each support receives.");
         if (!result.MountForces.IsEmpty)
             o.WriteLine("Mount forces are k_d(1+iη)Δ_d and iωc_dΔ_d with Δ_d = u_A − u_B of the element's ends in direction d (A and B as in 'between'); 'axial' is along the line from A to B, also given in x, y, z.");
+        if (caseName is not null) return;
         o.WriteLine();
         o.WriteLine("Caution: " + Cautions.Text);
     }
 
     private static string Kind(ElementKind kind) => kind == ElementKind.Spring ? "spring" : "damper";
 
-    private static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
+    internal static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
 
-    private static string Describe(Load load) => load switch
+    internal static string Describe(Load load) => load switch
     {
         ForceLoad { Direction: var d } f when d.IsRotation() => string.Create(Inv, $"{f.Name} (moment {f.Amplitude:G4} N*m about {d.Label()} on {f.At}{Speed(f.SpeedHz)})"),
         ForceLoad f => string.Create(Inv, $"{f.Name} (force {f.Amplitude:G4} N{In(f.Direction)} at {f.At}{Speed(f.SpeedHz)})"),
