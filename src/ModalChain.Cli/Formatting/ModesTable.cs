@@ -35,6 +35,7 @@ internal static class ModesTable
         }
         table.Write(o, lastColumnLeftAligned: true);
         o.WriteLine();
+        if (n.Space != ModelSpace.Line) WriteDirections(o, result);
 
         var fundamental = result.Modes.FirstOrDefault(m => !m.IsRigidBody);
         if (fundamental is not null && n.Springs.Length > 0 && fundamental.StrainEnergyShare.Any(e => e > 0))
@@ -68,6 +69,34 @@ internal static class ModesTable
             $"Quality: max residual {result.Quality.MaxResidual:0.0E+00}, max M-orthogonality error {result.Quality.MaxOrthogonalityError:0.0E+00} ({result.Algorithm})."));
         o.WriteLine();
         o.WriteLine("Caution: " + Cautions.Text);
+    }
+
+    /// <summary>
+    /// Plane and 3d models: each mode's motion name, decoupling and kinetic-energy share per direction, then the effective
+    /// mass per direction with its cumulative fraction (rotations about the reference point).
+    /// </summary>
+    private static void WriteDirections(TextWriter o, ModalResult result)
+    {
+        var directions = result.TotalByDirection.Select(t => t.Direction).ToArray();
+        o.WriteLine("Motion of each mode (kinetic energy share per direction; decoupling = the largest share, 1 for a pure motion)");
+        var motion = new TextTable(["mode", "motion", "decoupling", .. directions.Select(d => $"KE {d.Label()} [%]")]);
+        foreach (var m in result.Modes)
+        {
+            var shares = directions.Select(d => m.KineticEnergyByDirection.FirstOrDefault(k => k.Direction == d)?.Value ?? 0);
+            motion.Add([m.Number.ToString(Inv), m.Motion ?? "-", m.Decoupling.ToString("F3", Inv), .. shares.Select(v => (100 * v).ToString("F1", Inv))]);
+        }
+        motion.Write(o);
+        o.WriteLine();
+        var about = result.ReferencePoint is { } p ? string.Create(Inv, $" about ({p.X:G4}, {p.Y:G4}, {p.Z:G4}) m") : "";
+        o.WriteLine($"Effective mass per direction, % of the total in that direction (cumulative); rotations{about}");
+        var effective = new TextTable(["mode", .. directions.Select(d => $"{d.Label()} [%]")]);
+        foreach (var m in result.Modes)
+            effective.Add([m.Number.ToString(Inv), .. directions.Select(d => m.Participation.FirstOrDefault(x => x.Direction == d) is { } x
+                ? string.Create(Inv, $"{100 * x.Fraction:F1} ({100 * x.CumulativeFraction:F1})") : "-")]);
+        effective.Write(o);
+        o.WriteLine(string.Join(", ", result.TotalByDirection.Select(t =>
+            string.Create(Inv, $"total {t.Direction.Label()}: {t.Value:G5} {(t.Direction.IsRotation() ? "kg*m^2" : "kg")}"))));
+        o.WriteLine();
     }
 
     /// <summary>The spring with the largest share of the mode's strain energy (the one whose stiffness moves the mode most), with that share.</summary>

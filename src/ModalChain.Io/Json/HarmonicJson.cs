@@ -172,7 +172,7 @@ public static class HarmonicJson
         w.WriteEndArray();
 
         // Plane and 3d models only (line models keep their output unchanged): what each mount transmits per direction.
-        if (document.Network.Space != ModelSpace.Line)
+        if (!result.MountForces.IsEmpty)
         {
             w.WriteStartArray("mount_forces");
             foreach (var (m, peak, at) in result.MountForcePeaks())
@@ -263,7 +263,7 @@ public static class HarmonicJson
                 w.WriteEndObject();
             }
             w.WriteEndArray();
-            if (document.Network.Space != ModelSpace.Line)
+            if (!at.MountForces.IsEmpty)
             {
                 w.WriteStartArray("mount_forces");
                 foreach (var m in at.MountForces)

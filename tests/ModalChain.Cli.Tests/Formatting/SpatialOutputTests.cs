@@ -119,9 +119,17 @@ public class SpatialOutputTests
         var csv = new StringWriter();
         ModesCsv.Write(csv, result);
         Assert.Contains("shape skid.ry [kg^-0.5]", csv.ToString(), StringComparison.Ordinal);
+        var mode = parsed.RootElement.GetProperty("modes")[0];
+        Assert.Equal(["x", "z", "ry"], mode.GetProperty("kinetic_energy_by_direction").EnumerateObject().Select(p => p.Name));
+        Assert.Equal(["kg", "kg", "kg*m^2"], mode.GetProperty("effective_mass_by_direction").EnumerateArray().Select(e => e.GetProperty("unit").GetString()!));
+        Assert.False(string.IsNullOrEmpty(mode.GetProperty("motion").GetString()));
         var table = new StringWriter();
         ModesTable.Write(table, result);
-        Assert.Contains("skid.", table.ToString(), StringComparison.Ordinal);
+        var text = table.ToString();
+        Assert.Contains("skid.", text, StringComparison.Ordinal);
+        Assert.Contains("Motion of each mode", text, StringComparison.Ordinal);
+        Assert.Contains("Effective mass per direction", text, StringComparison.Ordinal);
+        foreach (var m in result.Modes) Assert.Contains(m.Motion!, text, StringComparison.Ordinal);
     }
 
     [Fact]
