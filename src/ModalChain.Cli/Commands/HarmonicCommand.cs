@@ -83,9 +83,9 @@ internal static class HarmonicCommand
             var chosen = parse.GetValue(outputs);
             if (chosen is { Length: > 0 })
             {
-                var unknown = chosen.Where(o => !model.Network.IsMass(o)).ToArray();
+                var unknown = SpatialSupport.UnknownOutputs(model.Network, chosen);
                 if (unknown.Length > 0)
-                    return Fail(io, $"--output names {string.Join(", ", unknown.Select(u => $"'{u}'"))}, which {(unknown.Length == 1 ? "is not a mass" : "are not masses")} of the model");
+                    return Fail(io, $"--output names {string.Join(", ", unknown.Select(u => $"'{u}'"))}, which {SpatialSupport.NotOutputs(model.Network, unknown.Length)} of the model");
                 spec = spec with { Outputs = [.. chosen.Distinct()] };
             }
             if (parse.GetValue(method) is { } m) spec = spec with { Method = m };

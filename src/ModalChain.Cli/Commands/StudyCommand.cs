@@ -57,6 +57,11 @@ internal static class StudyCommand
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (SpatialSupport.Refusal(document, "study") is { } refusal)
+            {
+                io.Error.WriteLine($"modalchain: error: {refusal}");
+                return ExitCodes.InputError;
+            }
             var varied = parse.GetValue(vary)!;
             if (varied == "speed")
                 return SpeedChart(document, parse.GetValue(from)!, parse.GetValue(to)!, parse.GetValue(steps) ?? DefaultSteps, parse.GetValue(orders), parse.GetValue(format), io);

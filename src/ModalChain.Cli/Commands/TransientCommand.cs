@@ -45,6 +45,11 @@ internal static class TransientCommand
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (SpatialSupport.Refusal(document, "transient") is { } refusal)
+            {
+                io.Error.WriteLine($"modalchain: error: {refusal}");
+                return ExitCodes.InputError;
+            }
             if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
             var spec = document.Transient;
             var stepValue = parse.GetValue(step);
@@ -64,9 +69,9 @@ internal static class TransientCommand
             var chosenOutputs = parse.GetValue(outputs);
             if (chosenOutputs is { Length: > 0 })
             {
-                var unknown = chosenOutputs.Where(o => !document.Network.IsMass(o)).ToArray();
+                var unknown = SpatialSupport.UnknownOutputs(document.Network, chosenOutputs);
                 if (unknown.Length > 0)
-                    return Fail(io, $"--output names {string.Join(", ", unknown.Select(u => $"'{u}'"))}, which {(unknown.Length == 1 ? "is not a mass" : "are not masses")} of the model");
+                    return Fail(io, $"--output names {string.Join(", ", unknown.Select(u => $"'{u}'"))}, which {SpatialSupport.NotOutputs(document.Network, unknown.Length)} of the model");
                 settings = settings with { Outputs = [.. chosenOutputs.Distinct()] };
             }
 

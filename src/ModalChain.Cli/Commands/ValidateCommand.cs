@@ -26,7 +26,10 @@ internal static class ValidateCommand
             var o = io.Output;
             o.WriteLine($"{path}: valid");
             o.WriteLine($"  title:               {TerminalText.Line(n.Title)}");
-            o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.ForScalarNetwork(n).Count} (one direction per mass{(n.Links.IsEmpty ? "" : "; linked masses share one")})"));
+            if (n.Space == Core.Model.ModelSpace.Line)
+                o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.ForScalarNetwork(n).Count} (one direction per mass{(n.Links.IsEmpty ? "" : "; linked masses share one")})"));
+            else
+                o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.For(n).Count} ({(n.Space == Core.Model.ModelSpace.Plane ? "plane" : "3d")} model: the translations of each mass, every direction of each rigid body)"));
             var mass = CommonOptions.UnitsOf(parse, units, document).MassUnit;
             o.WriteLine(string.Create(inv, $"  total mass:          {mass.From(n.TotalMass):G6} {mass.Plain}"));
             o.WriteLine(string.Create(inv, $"  springs, dampers:    {n.Springs.Length}, {n.Dampers.Length}"));

@@ -53,6 +53,15 @@ internal static class HarmonicTable
             }
             reactions.Write(o);
         }
+        if (!result.MountForces.IsEmpty)
+        {
+            o.WriteLine();
+            o.WriteLine("Mount forces: largest amplitude over the sweep of the force (moment) each spring and damper passes to its second end");
+            var mounts = new TextTable("element", "direction", "amplitude [peak]", "unit", "at [Hz]");
+            foreach (var (m, peak, at) in result.MountForcePeaks())
+                mounts.Add($"{Kind(m.Kind)} {m.Element}", m.Direction, Num(peak), m.Unit, at.ToString("F3", Inv));
+            mounts.Write(o);
+        }
 
         foreach (var op in result.OperatingPoints)
         {
@@ -76,6 +85,15 @@ internal static class HarmonicTable
                 forces.Add($"reaction at {r.Support}", Num(fu.From(r.Force[0].Magnitude)), HarmonicJson.PhaseDegrees(r.Force[0]).ToString("F1", Inv));
             o.WriteLine();
             forces.Write(o);
+            if (!at.MountForces.IsEmpty)
+            {
+                o.WriteLine();
+                o.WriteLine(string.Create(Inv, $"Mount forces at {op.SpeedHz:G6} Hz"));
+                var mounts = new TextTable("element", "direction", "amplitude [peak]", "unit", "phase [deg]");
+                foreach (var m in at.MountForces)
+                    mounts.Add($"{Kind(m.Kind)} {m.Element}", m.Direction, Num(m.Force[0].Magnitude), m.Unit, HarmonicJson.PhaseDegrees(m.Force[0]).ToString("F1", Inv));
+                mounts.Write(o);
+            }
             var nearest = system.Modes.Modes.Where(m => !m.IsRigidBody).MinBy(m => Math.Abs(m.NaturalFrequencyHz / op.SpeedHz - 1));
             if (nearest is not null)
             {
@@ -90,17 +108,22 @@ internal static class HarmonicTable
         foreach (var n in result.Notes) o.WriteLine("Note: " + n + ".");
         foreach (var w in result.Warnings) o.WriteLine("Warning: " + w + ".");
         o.WriteLine("Phases are relative to the loads' phase reference; velocity = iωX, acceleration = −ω²X; reactions are the force each support receives.");
+        if (!result.MountForces.IsEmpty)
+            o.WriteLine("Mount forces are k_d(1+iη)Δ_d and iωc_dΔ_d with Δ_d = u_A − u_B of the element's ends in direction d (A and B as in 'between'); 'axial' is along the line from A to B, also given in x, y, z.");
         if (caseName is not null) return;
         o.WriteLine();
         o.WriteLine("Caution: " + Cautions.Text);
     }
 
+    private static string Kind(ElementKind kind) => kind == ElementKind.Spring ? "spring" : "damper";
+
     internal static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
 
     internal static string Describe(Load load, DisplayUnits units) => load switch
     {
-        ForceLoad f => string.Create(Inv, $"{f.Name} (force {units.Force.From(f.Amplitude):G4} {units.Force.Plain} at {f.At}{Speed(f.SpeedHz)})"),
-        UnbalanceLoad u => string.Create(Inv, $"{u.Name} (unbalance {units.MassRadius.From(u.MassRadius):G4} {units.MassRadius.Plain} at {u.At}{Speed(u.SpeedHz)})"),
+        ForceLoad { Direction: var d } f when d.IsRotation() => string.Create(Inv, $"{f.Name} (moment {f.Amplitude:G4} N*m about {d.Label()} on {f.At}{Speed(f.SpeedHz)})"),
+        ForceLoad f => string.Create(Inv, $"{f.Name} (force {units.Force.From(f.Amplitude):G4} {units.Force.Plain}{In(f.Direction)} at {f.At}{Speed(f.SpeedHz)})"),
+        UnbalanceLoad u => string.Create(Inv, $"{u.Name} (unbalance {units.MassRadius.From(u.MassRadius):G4} {units.MassRadius.Plain} at {u.At}{(u.Plane.IsDefaultOrEmpty ? "" : $" turning in {string.Concat(u.Plane.Select(p => p.Label()))}")}{Speed(u.SpeedHz)})"),
         BaseMotionLoad b => BaseMotion(b, b.Kind switch
         {
             BaseMotionKind.Displacement => units.Displacement,
@@ -111,7 +134,10 @@ internal static class HarmonicTable
     };
 
     private static string BaseMotion(BaseMotionLoad b, DisplayUnit unit) => string.Create(Inv,
-        $"{b.Name} ({b.Kind.ToString().ToLowerInvariant()} {unit.From(b.Amplitude):G4} {unit.Plain} of {b.Support}{Speed(b.SpeedHz)})");
+        $"{b.Name} ({b.Kind.ToString().ToLowerInvariant()} {unit.From(b.Amplitude):G4} {unit.Plain}{In(b.Direction)} of {b.Support}{Speed(b.SpeedHz)})");
+
+    /// <summary>" in z" for a direction of a plane or 3d model; nothing in line models.</summary>
+    private static string In(Core.Dofs.Direction d) => d == Core.Dofs.Direction.Along ? "" : " in " + d.Label();
 
     private static string Speed(double? hz) => hz is { } s ? string.Create(Inv, $", {60 * s:G6} rpm") : "";
 

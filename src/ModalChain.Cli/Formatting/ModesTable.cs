@@ -36,9 +36,10 @@ internal static class ModesTable
         }
         table.Write(o, lastColumnLeftAligned: true);
         o.WriteLine();
+        if (n.Space != ModelSpace.Line) WriteDirections(o, result);
 
         var fundamental = result.Modes.FirstOrDefault(m => !m.IsRigidBody);
-        if (fundamental is not null && n.Springs.Length > 0)
+        if (fundamental is not null && n.Springs.Length > 0 && fundamental.StrainEnergyShare.Any(e => e > 0))
         {
             var i = Enumerable.Range(0, n.Springs.Length).MaxBy(k => fundamental.StrainEnergyShare[k]);
             o.WriteLine(string.Create(Inv,
@@ -71,10 +72,38 @@ internal static class ModesTable
         o.WriteLine("Caution: " + Cautions.Text);
     }
 
+    /// <summary>
+    /// Plane and 3d models: each mode's motion name, decoupling and kinetic-energy share per direction, then the effective
+    /// mass per direction with its cumulative fraction (rotations about the reference point).
+    /// </summary>
+    private static void WriteDirections(TextWriter o, ModalResult result)
+    {
+        var directions = result.TotalByDirection.Select(t => t.Direction).ToArray();
+        o.WriteLine("Motion of each mode (kinetic energy share per direction; decoupling = the largest share, 1 for a pure motion)");
+        var motion = new TextTable(["mode", "motion", "decoupling", .. directions.Select(d => $"KE {d.Label()} [%]")]);
+        foreach (var m in result.Modes)
+        {
+            var shares = directions.Select(d => m.KineticEnergyByDirection.FirstOrDefault(k => k.Direction == d)?.Value ?? 0);
+            motion.Add([m.Number.ToString(Inv), m.Motion ?? "-", m.Decoupling.ToString("F3", Inv), .. shares.Select(v => (100 * v).ToString("F1", Inv))]);
+        }
+        motion.Write(o);
+        o.WriteLine();
+        var about = result.ReferencePoint is { } p ? string.Create(Inv, $" about ({p.X:G4}, {p.Y:G4}, {p.Z:G4}) m") : "";
+        o.WriteLine($"Effective mass per direction, % of the total in that direction (cumulative); rotations{about}");
+        var effective = new TextTable(["mode", .. directions.Select(d => $"{d.Label()} [%]")]);
+        foreach (var m in result.Modes)
+            effective.Add([m.Number.ToString(Inv), .. directions.Select(d => m.Participation.FirstOrDefault(x => x.Direction == d) is { } x
+                ? string.Create(Inv, $"{100 * x.Fraction:F1} ({100 * x.CumulativeFraction:F1})") : "-")]);
+        effective.Write(o);
+        o.WriteLine(string.Join(", ", result.TotalByDirection.Select(t =>
+            string.Create(Inv, $"total {t.Direction.Label()}: {t.Value:G5} {(t.Direction.IsRotation() ? "kg*m^2" : "kg")}"))));
+        o.WriteLine();
+    }
+
     /// <summary>The spring with the largest share of the mode's strain energy (the one whose stiffness moves the mode most), with that share.</summary>
     private static string MostStrained(Network network, Mode mode)
     {
-        if (mode.IsRigidBody || network.Springs.Length == 0) return "-";
+        if (mode.IsRigidBody || network.Springs.Length == 0 || !mode.StrainEnergyShare.Any(e => e > 0)) return "-";
         var i = Enumerable.Range(0, network.Springs.Length).MaxBy(k => mode.StrainEnergyShare[k]);
         return string.Create(Inv, $"{network.Springs[i].Name} {100 * mode.StrainEnergyShare[i]:F0}%");
     }

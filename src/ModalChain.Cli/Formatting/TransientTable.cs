@@ -37,7 +37,7 @@ internal static class TransientTable
         }
         motion.Write(o);
 
-        var forces = result.Responses.Where(r => !Io.Json.TransientJson.IsMotion(r.Quantity)).ToArray();
+        var forces = result.Responses.Where(r => !Io.Json.TransientJson.IsMotion(r.Quantity) && r.Direction is null).ToArray();
         if (forces.Length > 0)
         {
             o.WriteLine();
@@ -52,6 +52,17 @@ internal static class TransientTable
                 };
                 table.Add(label, Num(fu.From(r.Peak.Value)), Time(r.Peak.Time), Rms(fu.From(r.Rms)));
             }
+            table.Write(o);
+        }
+
+        var mounts = result.Responses.Where(r => r.Direction is not null).ToArray();
+        if (mounts.Length > 0)
+        {
+            o.WriteLine();
+            o.WriteLine("Mount forces: peak (largest magnitude, with sign) of the force (moment) each spring and damper passes to its second end");
+            var table = new TextTable("element", "direction", "peak", "unit", "at [s]", "rms");
+            foreach (var r in mounts)
+                table.Add($"{(r.Quantity == ResponseQuantity.SpringForce ? "spring" : "damper")} {r.Name}", r.Direction!, Num(r.Peak.Value), r.Unit, Time(r.Peak.Time), Rms(r.Rms));
             table.Write(o);
         }
 

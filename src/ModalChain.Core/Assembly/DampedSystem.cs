@@ -64,7 +64,7 @@ public sealed record DampedSystem(
     {
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(modes);
-        var partition = SupportPartition.Assemble(model.Network);
+        var partition = model.Network.Space == ModelSpace.Line ? SupportPartition.Assemble(model.Network) : SpatialAssembly.Partition(model.Network);
         if (!model.Damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != partition.FreeCount)
             modes = ModalAnalysis.Solve(model.Network, new ModalOptions(Choice: choice));
         var damping = DampingAssembly.Build(model, partition, modes);

@@ -154,6 +154,34 @@ public sealed class DofMap
     public int IndexOf(string node, Direction direction = Direction.Along) =>
         _index.TryGet(new Dof(node, direction), out var i) ? i : -1;
 
+    /// <summary>
+    /// The matrix index of the DOF an output names: its label as outputs print it (<c>deck</c>, <c>skid.rz</c>), or in a
+    /// line model the name of any mass (a linked mass answers for its shared DOF); −1 when nothing matches.
+    /// </summary>
+    public int IndexOfLabel(string label)
+    {
+        ArgumentNullException.ThrowIfNull(label);
+        var i = IndexOf(label);
+        if (i >= 0) return i;
+        _labels ??= Enumerable.Range(0, Count).GroupBy(Label, StringComparer.Ordinal).ToDictionary(g => g.Key, g => g.First(), StringComparer.Ordinal);
+        return _labels.TryGetValue(label, out var j) ? j : -1;
+    }
+
+    private Dictionary<string, int>? _labels;
+
+    /// <summary>
+    /// The DOF labels an output name stands for: itself when it is a label (or, in a line model, a mass); in plane and
+    /// 3d models the name of a mass or body stands for every DOF of that node (<c>skid</c> → <c>skid.x</c> … <c>skid.rz</c>).
+    /// Empty when the name matches nothing.
+    /// </summary>
+    public ImmutableArray<string> OutputLabels(string name)
+    {
+        ArgumentNullException.ThrowIfNull(name);
+        if (IndexOfLabel(name) >= 0) return [name];
+        if (Space == ModelSpace.Line) return [];
+        return [.. Enumerable.Range(0, Count).Where(i => Dofs[i].Node == name).Select(Label)];
+    }
+
     private static string SpaceName(ModelSpace space) => space == ModelSpace.Plane ? "plane" : "3d";
 
     private sealed class FrozenIndex(ImmutableArray<Dof> dofs, ImmutableArray<ImmutableArray<string>> nodes)

@@ -40,6 +40,14 @@ public static class HarmonicCsv
             var force = e;
             columns.Add(k => force.Force[k]);
         }
+        foreach (var m in result.MountForces)
+        {
+            var kind = m.Kind == ElementKind.Spring ? "spring" : "damper";
+            header.Add($"{m.Element} {kind} {m.Direction} magnitude [{m.Unit}]");
+            header.Add($"{m.Element} {kind} {m.Direction} phase [deg]");
+            var mount = m;
+            columns.Add(k => mount.Force[k]);
+        }
         foreach (var s in result.Reactions)
         {
             header.Add($"reaction {s.Support} magnitude [N]");

@@ -15,7 +15,9 @@ public static class TransientCsv
         foreach (var r in result.Responses)
             header.Add(r.Quantity == ResponseQuantity.Reaction
                 ? $"reaction {r.Name} [{r.Unit}]"
-                : $"{r.Name} {TransientJson.QuantityName(r.Quantity).Replace('_', ' ')} [{r.Unit}]");
+                : r.Direction is { } d
+                    ? $"{r.Name} {TransientJson.QuantityName(r.Quantity).Replace('_', ' ')} {d} [{r.Unit}]"
+                    : $"{r.Name} {TransientJson.QuantityName(r.Quantity).Replace('_', ' ')} [{r.Unit}]");
         writer.Write(CsvText.Row(header));
         writer.Write('\n');
         var fields = new string[result.Responses.Length + 1];

@@ -2,6 +2,7 @@ using System.Numerics;
 using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Model;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
 
@@ -12,7 +13,9 @@ namespace ModalChain.Io.Json;
 /// Field names are a public contract: frequencies_hz, responses (dof, quantity, unit, magnitude, phase_deg),
 /// reactions (support, magnitude, phase_deg), peaks, operating_points; further fields are additions (cases and
 /// combination for a model with load cases). Phases are
-/// in degrees in (−180, 180], of Re(A e^{iωt}) relative to the loads' phase reference. Every magnitude is the
+/// in degrees in (−180, 180], of Re(A e^{iωt}) relative to the loads' phase reference. Plane and 3d models add
+/// mount_forces (element, kind, direction, unit, magnitude, phase_deg, and over the sweep peak_magnitude and
+/// peak_frequency_hz): the force (N) or moment (N*m) each spring and damper applies to its second end per direction. Every magnitude is the
 /// peak (zero-to-peak) amplitude of the sinusoid, said by "amplitude": "peak" beside its unit; r.m.s. is peak/√2.
 /// </remarks>
 public static class HarmonicJson
@@ -168,6 +171,22 @@ public static class HarmonicJson
         }
         w.WriteEndArray();
 
+        // Plane and 3d models only (line models keep their output unchanged): what each mount transmits per direction.
+        if (!result.MountForces.IsEmpty)
+        {
+            w.WriteStartArray("mount_forces");
+            foreach (var (m, peak, at) in result.MountForcePeaks())
+            {
+                w.WriteStartObject();
+                MountHeader(w, m);
+                Series(w, m.Force);
+                w.Number("peak_magnitude", peak);
+                w.Number("peak_frequency_hz", at);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+        }
+
         w.WriteStartArray("transmissibility");
         foreach (var t in result.Transmissibilities)
         {
@@ -244,6 +263,18 @@ public static class HarmonicJson
                 w.WriteEndObject();
             }
             w.WriteEndArray();
+            if (!at.MountForces.IsEmpty)
+            {
+                w.WriteStartArray("mount_forces");
+                foreach (var m in at.MountForces)
+                {
+                    w.WriteStartObject();
+                    MountHeader(w, m);
+                    Point(w, m.Force[0]);
+                    w.WriteEndObject();
+                }
+                w.WriteEndArray();
+            }
             w.WriteEndObject();
         }
         w.WriteEndArray();
@@ -266,6 +297,16 @@ public static class HarmonicJson
 
     /// <summary>Phase of <paramref name="z"/> in degrees.</summary>
     public static double PhaseDegrees(Complex z) => z == Complex.Zero ? 0 : z.Phase * 180 / Math.PI;
+
+    /// <summary>element, kind, direction, unit and amplitude of a mount force.</summary>
+    private static void MountHeader(Utf8JsonWriter w, MountForce m)
+    {
+        w.WriteString("element", m.Element);
+        w.WriteString("kind", m.Kind == ElementKind.Spring ? "spring" : "damper");
+        w.WriteString("direction", m.Direction);
+        w.WriteString("unit", m.Unit);
+        w.WriteString("amplitude", "peak");
+    }
 
     private static void Series(Utf8JsonWriter w, IReadOnlyList<Complex> values)
     {

@@ -3,6 +3,7 @@ using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
+using ModalChain.Core.Model;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
 
@@ -50,6 +51,14 @@ public static class ModesJson
         foreach (var d in dofNames) writer.WriteStringValue(d);
         writer.WriteEndArray();
         writer.Number("total_mass_kg", result.TotalMass);
+        if (network.Space != ModelSpace.Line)
+        {
+            // Plane and 3d models: what each direction's effective masses sum to, and the point rotations are taken about.
+            if (result.ReferencePoint is { } o) writer.Array("reference_point_m", [o.X, o.Y, o.Z]);
+            writer.WriteStartObject("total_by_direction");
+            foreach (var t in result.TotalByDirection) writer.Number(t.Direction.Label(), t.Value);
+            writer.WriteEndObject();
+        }
         writer.WriteString("algorithm", result.Algorithm);
 
         writer.WriteStartArray("modes");
@@ -61,8 +70,10 @@ public static class ModesJson
             writer.Number("omega_rad_s", mode.AngularFrequency);
             writer.Number("period_s", mode.PeriodSeconds);
             writer.WriteBoolean("rigid_body", mode.IsRigidBody);
-            // Shapes are written per mass: a linked group's one DOF is repeated for each of its masses.
-            writer.Keyed("shape", massKeys, network.Links.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan());
+            // Shapes are written per mass: a linked group's one DOF is repeated for each of its masses. Plane and 3d
+            // models write them per DOF label (skid.z, skid.ry), the masses' and bodies' several directions each.
+            if (network.Space != ModelSpace.Line) writer.Keyed("shape", dofKeys, mode.Shape.AsSpan());
+            else writer.Keyed("shape", massKeys, network.Links.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan());
             writer.Number("participation", mode.ParticipationFactor);
             writer.Number("effective_mass_kg", mode.EffectiveModalMass);
             writer.Number("effective_mass_fraction", mode.EffectiveMassFraction);
@@ -70,6 +81,7 @@ public static class ModesJson
             writer.Keyed("kinetic_energy_share", dofKeys, mode.KineticEnergyShare.AsSpan());
             writer.Keyed("strain_energy_share", springKeys, mode.StrainEnergyShare.AsSpan());
             writer.Number("residual", mode.Residual);
+            if (network.Space != ModelSpace.Line) WriteDirections(writer, mode);
             var zeta = DampingRatioOf(damping, mode);
             writer.Number("damping_ratio", zeta);
             writer.Number("damped_frequency_hz", zeta < 1 ? mode.NaturalFrequencyHz * Math.Sqrt(1 - zeta * zeta) : double.NaN);
@@ -117,6 +129,29 @@ public static class ModesJson
         foreach (var w in result.Warnings.Where(w => !document.Warnings.Any(d => d.Message == w))) writer.WriteStringValue(w);
         writer.WriteEndArray();
         writer.WriteString("caution", Cautions.Text);
+    }
+
+    /// <summary>A plane or 3d mode's motion name, decoupling figure, kinetic-energy share per direction and effective mass per direction.</summary>
+    private static void WriteDirections(Utf8JsonWriter writer, Mode mode)
+    {
+        if (mode.Motion is null) writer.WriteNull("motion"); else writer.WriteString("motion", mode.Motion);
+        writer.Number("decoupling", mode.Decoupling);
+        writer.WriteStartObject("kinetic_energy_by_direction");
+        foreach (var k in mode.KineticEnergyByDirection) writer.Number(k.Direction.Label(), k.Value);
+        writer.WriteEndObject();
+        writer.WriteStartArray("effective_mass_by_direction");
+        foreach (var p in mode.Participation)
+        {
+            writer.WriteStartObject();
+            writer.WriteString("direction", p.Direction.Label());
+            writer.WriteString("unit", p.Direction.IsRotation() ? "kg*m^2" : "kg");
+            writer.Number("participation", p.ParticipationFactor);
+            writer.Number("effective_mass", p.EffectiveMass);
+            writer.Number("fraction", p.Fraction);
+            writer.Number("cumulative_fraction", p.CumulativeFraction);
+            writer.WriteEndObject();
+        }
+        writer.WriteEndArray();
     }
 
     /// <summary>The JSON name of a complex root's kind: elastic, rigid-body (a zero root) or rigid-body-relaxation.</summary>

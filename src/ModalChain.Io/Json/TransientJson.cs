@@ -14,7 +14,9 @@ namespace ModalChain.Io.Json;
 /// further fields are additions. Element forces are k(u_A − u_B) and c(u̇_A − u̇_B) with A and B as in 'between';
 /// a reaction is the force the support receives, positive along the direction of motion. "amplitude" says what a
 /// number is: "instantaneous" for a time history, "peak" for a peak's value (largest magnitude, with sign); a peak's
-/// "rms" is the r.m.s. over rms_window_s.
+/// "rms" is the r.m.s. over rms_window_s. Plane and 3d models add mount_forces (element, kind, direction, unit, values,
+/// peak_abs, peak_value, peak_time_s, rms): the force or moment each spring and damper applies to its second end per
+/// direction; those histories are not repeated in element_forces or peaks.
 /// </remarks>
 public static class TransientJson
 {
@@ -68,7 +70,7 @@ public static class TransientJson
         w.WriteEndArray();
 
         w.WriteStartArray("element_forces");
-        foreach (var r in result.Responses.Where(r => r.Quantity is ResponseQuantity.SpringForce or ResponseQuantity.DamperForce))
+        foreach (var r in result.Responses.Where(r => r.Quantity is ResponseQuantity.SpringForce or ResponseQuantity.DamperForce && r.Direction is null))
         {
             w.WriteStartObject();
             w.WriteString("element", r.Name);
@@ -79,6 +81,28 @@ public static class TransientJson
             w.WriteEndObject();
         }
         w.WriteEndArray();
+
+        // Plane and 3d models only: each spring's and damper's force (N) or moment (N*m) per direction, with its peak.
+        if (result.Network.Space != Core.Model.ModelSpace.Line)
+        {
+            w.WriteStartArray("mount_forces");
+            foreach (var r in result.Responses.Where(r => r.Direction is not null))
+            {
+                w.WriteStartObject();
+                w.WriteString("element", r.Name);
+                w.WriteString("kind", r.Quantity == ResponseQuantity.SpringForce ? "spring" : "damper");
+                w.WriteString("direction", r.Direction);
+                w.WriteString("unit", r.Unit);
+                w.WriteString("amplitude", "instantaneous");
+                w.Array("values", Pick(r.Values));
+                w.Number("peak_abs", Math.Abs(r.Peak.Value));
+                w.Number("peak_value", r.Peak.Value);
+                w.Number("peak_time_s", r.Peak.Time);
+                w.Number("rms", r.Rms);
+                w.WriteEndObject();
+            }
+            w.WriteEndArray();
+        }
 
         w.WriteStartArray("reactions");
         foreach (var r in result.Responses.Where(r => r.Quantity == ResponseQuantity.Reaction))
@@ -97,7 +121,7 @@ public static class TransientJson
         w.Number("to", result.Settings.RmsTo ?? result.StepCount * result.Settings.Step);
         w.WriteEndObject();
         w.WriteStartArray("peaks");
-        foreach (var r in result.Responses)
+        foreach (var r in result.Responses.Where(r => r.Direction is null))
         {
             w.WriteStartObject();
             w.WriteString("name", r.Name);

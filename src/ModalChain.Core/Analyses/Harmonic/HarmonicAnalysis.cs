@@ -25,7 +25,7 @@ public static class HarmonicAnalysis
         ArgumentNullException.ThrowIfNull(system);
         ArgumentNullException.ThrowIfNull(spec);
         var loads = ResolveLoads(system.Model, spec.Loads);
-        var outputs = spec.Outputs.IsDefaultOrEmpty ? [.. system.Model.Network.Masses.Select(m => m.Name)] : spec.Outputs;
+        var outputs = spec.Outputs.IsDefaultOrEmpty ? DefaultOutputs(system) : spec.Outputs;
         var modes = system.Modes.Modes;
         var frequencies = FrequencyGrid.Build(spec.Frequencies, spec.Refine,
             [.. modes.Select(m => m.NaturalFrequencyHz)], system.ModalDampingRatios);
@@ -61,15 +61,22 @@ public static class HarmonicAnalysis
         var p = system.Partition;
         var n = p.FreeCount;
         var loading = HarmonicLoading.Compile(system, loads);
+        var spatial = network.Space != ModelSpace.Line;
+        // A mass or body named as an output of a plane or 3d model stands for each of its DOFs.
+        if (spatial) outputs = [.. outputs.SelectMany(o => p.Free.OutputLabels(o) is { IsEmpty: false } labels ? labels : [o]).Distinct()];
         var outputIndex = outputs.Select(o =>
         {
-            var i = p.Free.IndexOf(o);
-            return i >= 0 ? i : throw new ArgumentException($"Output '{o}' is not a mass of the network.", nameof(outputs));
+            var i = spatial ? p.Free.IndexOfLabel(o) : p.Free.IndexOf(o);
+            return i >= 0 ? i : throw new ArgumentException(spatial
+                ? $"Output '{o}' is not a degree of freedom of the network (outputs are labelled like '{p.Free.Label(0)}')."
+                : $"Output '{o}' is not a mass of the network.", nameof(outputs));
         }).ToArray();
         var outputSet = outputs.ToHashSet();
 
-        var springs = network.Springs.Where(s => outputSet.Contains(s.NodeA) || outputSet.Contains(s.NodeB)).ToArray();
-        var dampers = network.Dampers.Where(d => outputSet.Contains(d.NodeA) || outputSet.Contains(d.NodeB)).ToArray();
+        // Plane and 3d models report every spring and damper per direction (mount forces) instead of the line model's element forces.
+        var springs = spatial ? [] : network.Springs.Where(s => outputSet.Contains(s.NodeA) || outputSet.Contains(s.NodeB)).ToArray();
+        var dampers = spatial ? [] : network.Dampers.Where(d => outputSet.Contains(d.NodeA) || outputSet.Contains(d.NodeB)).ToArray();
+        var mountRows = spatial ? SpatialLoads.MountRows(network, p) : [];
         var neededSet = new SortedSet<int>(outputIndex);
         foreach (var e in springs.Select(s => (s.NodeA, s.NodeB)).Concat(dampers.Select(d => (d.NodeA, d.NodeB))))
         {
@@ -86,6 +93,17 @@ public static class HarmonicAnalysis
             var unit = new double[n];
             unit[i] = 1;
             observations.Add(unit);
+        }
+        // Mount rows: the free part of each element row's relative motion Δ = (t_A − t_B)·[x; u].
+        var mountObservation = new int[mountRows.Length];
+        for (var r = 0; r < mountRows.Length; r++)
+        {
+            mountObservation[r] = -1;
+            if (mountRows[r].Free.Length == 0) continue;
+            var w = new double[n];
+            foreach (var (i, c) in mountRows[r].Free) w[i] += c;
+            mountObservation[r] = observations.Count;
+            observations.Add(w);
         }
         var stiffnessRow = new int[p.SupportCount];
         var dampingRow = new int[p.SupportCount];
@@ -198,6 +216,8 @@ public static class HarmonicAnalysis
             forces.Add(new ElementForce(d.Name, ElementKind.Damper,
                 [.. Enumerable.Range(0, nf).Select(k => new Complex(0, 2 * Math.PI * frequenciesHz[k] * d.Coefficient) * (At(k, d.NodeA) - At(k, d.NodeB)))]));
 
+        var mountForces = MountForces(network.Space, mountRows, mountObservation, frequenciesHz, x, nk, u, p.SupportCount, hysteretic);
+
         var reactions = ImmutableArray.CreateBuilder<SupportReaction>();
         var total = new Complex[nf];
         for (var s = 0; s < p.SupportCount; s++)
@@ -222,7 +242,8 @@ public static class HarmonicAnalysis
 
         var transmissibilities = ImmutableArray.CreateBuilder<Transmissibility>();
         var moving = loading.SupportMotion.Select(m => m.Support).Distinct().ToArray();
-        if (moving.Length == 0 && loading.AppliedForces.Count > 0)
+        // Reactions of a plane or 3d model lie in several directions: their sum is no transmissibility.
+        if (moving.Length == 0 && loading.AppliedForces.Count > 0 && !spatial)
         {
             var ratio = new double[nf];
             for (var k = 0; k < nf; k++)
@@ -246,7 +267,45 @@ public static class HarmonicAnalysis
             forces.ToImmutable(), reactions.ToImmutable(), transmissibilities.ToImmutable(), [], notes.ToImmutable())
         {
             Warnings = warnings.ToImmutable(),
+            MountForces = mountForces,
         };
+    }
+
+    /// <summary>The outputs when none are named: every mass (line models) or every DOF label (plane and 3d models).</summary>
+    private static ImmutableArray<string> DefaultOutputs(DampedSystem system)
+    {
+        var network = system.Model.Network;
+        if (network.Space == ModelSpace.Line) return [.. network.Masses.Select(m => m.Name)];
+        var free = system.Partition.Free;
+        return [.. Enumerable.Range(0, free.Count).Select(free.Label)];
+    }
+
+    /// <summary>
+    /// Per element row of a plane or 3d model, the force it applies to its end B: k(1+iη)Δ or iωcΔ, with
+    /// Δ = (observed free part) + Σ c·u over the moving supports' columns; an axial row also resolved into x, y, z.
+    /// </summary>
+    private static ImmutableArray<MountForce> MountForces(ModelSpace space, ImmutableArray<MountRow> rows, int[] observation,
+        IReadOnlyList<double> frequenciesHz, Complex[] x, int nk, Complex[] u, int supportCount, Complex hysteretic)
+    {
+        var result = ImmutableArray.CreateBuilder<MountForce>();
+        var nf = frequenciesHz.Count;
+        for (var r = 0; r < rows.Length; r++)
+        {
+            var row = rows[r];
+            var force = new Complex[nf];
+            for (var k = 0; k < nf; k++)
+            {
+                var delta = observation[r] >= 0 ? x[k * nk + observation[r]] : Complex.Zero;
+                foreach (var (c, w) in row.Prescribed) delta += w * u[k * supportCount + c];
+                force[k] = row.IsDamper
+                    ? new Complex(0, 2 * Math.PI * frequenciesHz[k] * row.Value) * delta
+                    : row.Value * hysteretic * delta;
+            }
+            var kind = row.IsDamper ? ElementKind.Damper : ElementKind.Spring;
+            foreach (var (label, factor) in SpatialLoads.Resolved(row, space))
+                result.Add(new MountForce(row.Element, kind, label, row.IsMoment ? "N*m" : "N", [.. force.Select(f => factor * f)]));
+        }
+        return result.ToImmutable();
     }
 
     /// <summary>Above this relative difference from a direct solve a truncated modal sweep is warned (2 %).</summary>
@@ -377,7 +436,7 @@ public static class HarmonicAnalysis
     {
         ArgumentNullException.ThrowIfNull(system);
         ArgumentNullException.ThrowIfNull(loads);
-        var index = system.Partition.Free.IndexOf(dof);
+        var index = system.Model.Network.Space == ModelSpace.Line ? system.Partition.Free.IndexOf(dof) : system.Partition.Free.IndexOfLabel(dof);
         if (index < 0) throw new ArgumentException($"'{dof}' is not a mass of the network.", nameof(dof));
         var frequencies = FrequencyGrid.Build(new FrequencyRange(fromHz, toHz, points, FrequencySpacing.Linear), true,
             [.. system.Modes.Modes.Select(m => m.NaturalFrequencyHz)], system.ModalDampingRatios);

@@ -63,14 +63,33 @@ internal sealed class DirectEngine : HarmonicEngine
         var k = new Complex(1, system.LossFactor);
 
         var a = new Complex[order * order];
-        for (var i = 0; i < n; i++)
+        // A rigid body's inertia matrix off its principal axes couples its rotations in M: then M⁻¹ is formed densely.
+        var massInverse = FullMassInverse(p.Mass);
+        if (massInverse is null)
         {
-            a[i * order + n + i] = w0;
-            var inv = 1 / p.Mass[i, i];
-            for (var j = 0; j < n; j++)
+            for (var i = 0; i < n; i++)
             {
-                a[(n + i) * order + j] = -k * (p.StiffnessFF[i, j] * inv / w0);
-                a[(n + i) * order + n + j] = -system.Damping.FF[i, j] * inv;
+                a[i * order + n + i] = w0;
+                var inv = 1 / p.Mass[i, i];
+                for (var j = 0; j < n; j++)
+                {
+                    a[(n + i) * order + j] = -k * (p.StiffnessFF[i, j] * inv / w0);
+                    a[(n + i) * order + n + j] = -system.Damping.FF[i, j] * inv;
+                }
+            }
+        }
+        else
+        {
+            var mk = massInverse * p.StiffnessFF;
+            var mc = massInverse * system.Damping.FF;
+            for (var i = 0; i < n; i++)
+            {
+                a[i * order + n + i] = w0;
+                for (var j = 0; j < n; j++)
+                {
+                    a[(n + i) * order + j] = -k * (mk[i, j] / w0);
+                    a[(n + i) * order + n + j] = -mc[i, j];
+                }
             }
         }
         _hessenberg = ComplexHessenberg.Reduce(a, order);
@@ -80,11 +99,11 @@ internal sealed class DirectEngine : HarmonicEngine
         _g = new Complex[_terms * order];
         for (var r = 0; r < _terms; r++)
         {
-            var b = loading.Terms[r].Vector;
+            var b = massInverse is null ? loading.Terms[r].Vector : SolveMass(massInverse, loading.Terms[r].Vector);
             for (var i = 0; i < n; i++)
             {
                 if (b[i] == Complex.Zero) continue;
-                var bi = b[i] / p.Mass[i, i];
+                var bi = massInverse is null ? b[i] / p.Mass[i, i] : b[i];
                 var row = q.AsSpan((n + i) * order, order);
                 var g = _g.AsSpan(r * order, order);
                 for (var j = 0; j < order; j++) g[j] += Complex.Conjugate(row[j]) * bi;
@@ -103,6 +122,25 @@ internal sealed class DirectEngine : HarmonicEngine
                 for (var j = 0; j < order; j++) row[j] += f * qi[j];
             }
         }
+    }
+
+    /// <summary>M⁻¹ (dense) when M has an off-diagonal entry (a rigid body's products of inertia); null for a diagonal M.</summary>
+    private static MathNet.Numerics.LinearAlgebra.Matrix<double>? FullMassInverse(MathNet.Numerics.LinearAlgebra.Matrix<double> mass)
+    {
+        foreach (var (i, j, v) in mass.EnumerateIndexed(MathNet.Numerics.LinearAlgebra.Zeros.AllowSkip))
+            if (i != j && v != 0) return MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.DenseOfMatrix(mass).Inverse();
+        return null;
+    }
+
+    /// <summary>M⁻¹ b for a complex load vector b.</summary>
+    private static Complex[] SolveMass(MathNet.Numerics.LinearAlgebra.Matrix<double> massInverse, Complex[] b)
+    {
+        var n = b.Length;
+        var x = new Complex[n];
+        for (var i = 0; i < n; i++)
+            for (var j = 0; j < n; j++)
+                if (b[j] != Complex.Zero) x[i] += massInverse[i, j] * b[j];
+        return x;
     }
 
     private sealed class Workspace(int order) : EngineWorkspace

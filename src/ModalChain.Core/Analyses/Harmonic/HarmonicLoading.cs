@@ -1,5 +1,6 @@
 using System.Numerics;
 using ModalChain.Core.Assembly;
+using ModalChain.Core.Dofs;
 using ModalChain.Core.Model;
 
 namespace ModalChain.Core.Analyses.Harmonic;
@@ -9,6 +10,10 @@ namespace ModalChain.Core.Analyses.Harmonic;
 /// The free right-hand side is b(ω) = Σ_r (iω)^{p_r} b_r and each support moves as u_s(ω) = Σ (iω)^{q} U. A force
 /// contributes F e^{iφ} with p = 0; an unbalance m·e·ω² = −m·e·(iω)², p = 2; a prescribed support motion U moves the
 /// free DOFs through −(K(1+iη)_fp + iω C_fp) U (Chopra, Dynamics of Structures, §9.6 on multi-support excitation).
+/// In plane and 3d models a load enters through its attachment map as Tᵀ e_d F (<see cref="SpatialLoads"/>): a
+/// force at a body point also gives its moment about the centre of mass, an unbalance in the plane (d₁, d₂) has
+/// amplitudes A along d₁ and −iA along d₂ (cos and sin, 90° apart), and a support motion in direction d moves the
+/// prescribed column (support, d) of the partition.
 /// </remarks>
 internal sealed class HarmonicLoading
 {
@@ -28,11 +33,32 @@ internal sealed class HarmonicLoading
         var p = system.Partition;
         var n = p.FreeCount;
         var eta = system.LossFactor;
+        var network = system.Model.Network;
+        var spatial = network.Space != ModelSpace.Line;
         var loading = new HarmonicLoading();
         foreach (var load in loads)
         {
             switch (load)
             {
+                case ForceLoad f when spatial:
+                {
+                    var a = Complex.FromPolarCoordinates(f.Amplitude, f.Phase);
+                    loading.Terms.Add((Spread(n, SpatialLoads.UnitLoad(network, p.Free, f.At, f.Direction, f.Name), a), 0));
+                    loading.AppliedForces.Add((a, 0));
+                    break;
+                }
+                case UnbalanceLoad u when spatial:
+                {
+                    // m·e·ω² cos(ωt + φ) along the first direction and sin(ωt + φ) along the second: amplitudes A and −iA.
+                    if (u.Plane.Length != 2 || u.Plane[0] == u.Plane[1])
+                        throw new ArgumentException($"Unbalance '{u.Name}' needs a plane of two different translations in a plane or 3d model.", nameof(loads));
+                    var a = -Complex.FromPolarCoordinates(u.MassRadius, u.Phase);
+                    var v = Spread(n, SpatialLoads.UnitLoad(network, p.Free, u.At, u.Plane[0], u.Name), a);
+                    foreach (var (i, w) in SpatialLoads.UnitLoad(network, p.Free, u.At, u.Plane[1], u.Name)) v[i] += -Complex.ImaginaryOne * a * w;
+                    loading.Terms.Add((v, 2));
+                    loading.AppliedForces.Add((a, 2));
+                    break;
+                }
                 case ForceLoad f:
                 {
                     var a = Complex.FromPolarCoordinates(f.Amplitude, f.Phase);
@@ -49,9 +75,11 @@ internal sealed class HarmonicLoading
                 }
                 case BaseMotionLoad b:
                 {
-                    var s = p.SupportIndex(b.Support);
-                    if (s < 0) throw new ArgumentException($"Load '{b.Name}' moves unknown support '{b.Support}'.", nameof(loads));
                     if (b.Support == Network.Ground) throw new ArgumentException($"Load '{b.Name}' moves ground, which is fixed.", nameof(loads));
+                    var s = spatial || b.Direction != Direction.Along
+                        ? SpatialLoads.SupportColumn(p, network.Space, b.Support, b.Direction, b.Name)
+                        : p.SupportIndex(b.Support);
+                    if (s < 0) throw new ArgumentException($"Load '{b.Name}' moves unknown support '{b.Support}'.", nameof(loads));
                     var q = b.Kind switch { BaseMotionKind.Displacement => 0, BaseMotionKind.Velocity => -1, _ => -2 };
                     var amplitude = Complex.FromPolarCoordinates(b.Amplitude, b.Phase);
                     loading.SupportMotion.Add((s, amplitude, q));
@@ -88,6 +116,14 @@ internal sealed class HarmonicLoading
         var i = p.Free.IndexOf(mass);
         if (i < 0) throw new ArgumentException($"Load '{load}' acts at '{mass}', which is not a mass of the network.", nameof(mass));
         return i;
+    }
+
+    /// <summary>The vector a·w over <paramref name="n"/> DOFs from a distribution w (Tᵀ e_d of a spatial load).</summary>
+    private static Complex[] Spread(int n, (int Dof, double Weight)[] distribution, Complex a)
+    {
+        var v = new Complex[n];
+        foreach (var (i, w) in distribution) v[i] += a * w;
+        return v;
     }
 
     private static Complex[] Unit(int n, int i, Complex a)

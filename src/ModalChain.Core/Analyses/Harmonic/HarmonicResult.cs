@@ -48,6 +48,20 @@ public sealed record DofResponse(string Dof, ImmutableArray<Complex> Displacemen
 /// <param name="Force">Complex force amplitude in N at each frequency: k(1+iη)(X_A − X_B) or iωc(X_A − X_B), A and B as in 'between'.</param>
 public sealed record ElementForce(string Element, ElementKind Kind, ImmutableArray<Complex> Force);
 
+/// <summary>The force (or moment) one spring or damper of a plane or 3d model transmits in one direction, over the sweep: what a mount is selected on.</summary>
+/// <param name="Element">Name of the spring or damper.</param>
+/// <param name="Kind">Spring or damper.</param>
+/// <param name="Direction">
+/// The global direction (<c>x</c> … <c>rz</c>) of a component; for an axial element <c>axial</c> (along the line from end A
+/// to end B) and its resolution into the translations.
+/// </param>
+/// <param name="Unit">"N" for a force, "N*m" for a moment (rotational component).</param>
+/// <param name="Force">
+/// Complex amplitude at each frequency of the force the element applies to its second end B in that direction:
+/// k_d(1+iη)Δ_d or iωc_dΔ_d with Δ_d = u_A,d − u_B,d the relative motion of its ends (through the attachment maps).
+/// </param>
+public sealed record MountForce(string Element, ElementKind Kind, string Direction, string Unit, ImmutableArray<Complex> Force);
+
 /// <summary>The force a support receives from the network over the sweep, positive in the direction of motion.</summary>
 /// <param name="Support">Name of the support.</param>
 /// <param name="Force">Complex force amplitude in N at each frequency.</param>
@@ -146,7 +160,7 @@ public sealed record OperatingPoint(double SpeedHz, ImmutableArray<string> Loads
 /// <param name="Method">Direct or modal.</param>
 /// <param name="ModesUsed">For the modal method, the number of modes superposed; otherwise 0.</param>
 /// <param name="Loads">Names of the loads that acted together.</param>
-/// <param name="Responses">Per output mass, its displacement amplitudes.</param>
+/// <param name="Responses">Per output mass (per output DOF label such as <c>skid.z</c> in plane and 3d models), its displacement amplitudes.</param>
 /// <param name="ElementForces">Per spring and damper touching an output mass, its force amplitudes.</param>
 /// <param name="Reactions">Per support, the force it receives.</param>
 /// <param name="Transmissibilities">Force and motion transmissibilities where they are defined.</param>
@@ -167,6 +181,21 @@ public sealed record HarmonicResult(
     /// <summary>Things the engineer must act on: an undamped model computed at resonance, a modal truncation error above tolerance.</summary>
     /// <remarks>For <see cref="HarmonicAnalysis.Solve(Assembly.DampedSystem, HarmonicSpec)"/> it also holds the operating points' warnings.</remarks>
     public ImmutableArray<string> Warnings { get; init; } = [];
+
+    /// <summary>
+    /// Plane and 3d models: per spring and damper and per direction it acts in, the force (or moment) it transmits
+    /// (<see cref="MountForce"/>); empty in line models, whose element forces are <see cref="ElementForces"/>.
+    /// </summary>
+    public ImmutableArray<MountForce> MountForces { get; init; } = [];
+
+    /// <summary>The largest amplitude of each mount force over the sweep and the frequency where it occurs (the first such frequency).</summary>
+    public ImmutableArray<(MountForce Force, double Magnitude, double FrequencyHz)> MountForcePeaks() =>
+        [.. MountForces.Select(m =>
+        {
+            var k = 0;
+            for (var i = 1; i < m.Force.Length; i++) if (m.Force[i].Magnitude > m.Force[k].Magnitude) k = i;
+            return m.Force.IsEmpty ? (m, double.NaN, double.NaN) : (m, m.Force[k].Magnitude, FrequenciesHz[k]);
+        })];
 
     /// <summary>The response of mass <paramref name="dof"/>, or null when it is not an output.</summary>
     public DofResponse? ResponseOf(string dof) => Responses.FirstOrDefault(r => r.Dof == dof);

@@ -24,8 +24,12 @@ internal sealed record Probe(
         ResponseQuantity.Displacement => "m",
         ResponseQuantity.Velocity => "m/s",
         ResponseQuantity.Acceleration => "m/s^2",
+        _ when Direction is "rx" or "ry" or "rz" => "N*m",
         _ => "N",
     };
+
+    /// <summary>Plane and 3d models: the direction label of a spring or damper force (<c>x</c> … <c>rz</c>, <c>axial</c>); null otherwise.</summary>
+    public string? Direction { get; init; }
 
     public double Evaluate(double time, ReadOnlySpan<double> u, ReadOnlySpan<double> v, ReadOnlySpan<double> a)
     {
@@ -163,7 +167,7 @@ internal sealed class ResponseRecorder : IStepSink
     [
         .. _probes.Select((p, i) => new ResponseHistory(
             p.Name, p.Quantity, p.Unit, [.. _values[i]], new Peak(_peakValue[i], _peakTime[i]),
-            _rmsSamples > 0 ? Math.Sqrt(_sumSquares[i] / _rmsSamples) : double.NaN)),
+            _rmsSamples > 0 ? Math.Sqrt(_sumSquares[i] / _rmsSamples) : double.NaN) { Direction = p.Direction }),
     ];
 
     /// <summary>Number of steps that fell inside the RMS window; 0 leaves every RMS not available (NaN).</summary>

@@ -42,8 +42,10 @@ public static class TransientAnalysis
     {
         ArgumentNullException.ThrowIfNull(network);
         ArgumentNullException.ThrowIfNull(matrices);
-        return Run(network, matrices, SupportCoupling.FromElements(network, matrices.Dofs), null, excitations, initial, settings,
-            modes, progress, []);
+        var coupling = network.Space == ModelSpace.Line
+            ? SupportCoupling.FromElements(network, matrices.Dofs)
+            : SupportCoupling.FromPartition(SpatialAssembly.Partition(network), DampingMatrices: null);
+        return Run(network, matrices, coupling, null, excitations, initial, settings, modes, progress, []);
     }
 
     /// <summary>Runs <paramref name="settings"/> on an assembled model with its full damping model (dampers, Rayleigh, modal).</summary>
@@ -60,8 +62,8 @@ public static class TransientAnalysis
         var network = system.Model.Network;
         var p = system.Partition;
         var matrices = new StructuralMatrices(p.Free, p.Mass, p.StiffnessFF, system.Damping.FF,
-            Vector<double>.Build.Dense(p.FreeCount, 1.0), MassIsDiagonal: true);
-        var coupling = new SupportCoupling(p.Supports, p.StiffnessFP, system.Damping.FP, p.StiffnessPP, system.Damping.PP);
+            Vector<double>.Build.Dense(p.FreeCount, 1.0), MassIsDiagonal: network.Space == ModelSpace.Line || IsDiagonal(p.Mass));
+        var coupling = SupportCoupling.FromPartition(p, system.Damping);
         var notes = new List<string>();
         if (system.LossFactor > 0)
             notes.Add(Invariant($"The loss factor η = {system.LossFactor:G3} is a frequency-domain model and is left out of this time history; give modal or Rayleigh damping (ζ ≈ η/2 at resonance) for transient runs."));
@@ -87,14 +89,14 @@ public static class TransientAnalysis
                 $"The exact method forms a dense exponential of order 4n = {4 * n}; it is limited to {ExactMethodMaxDofs} DOFs. Use newmark or modal.");
 
         var supportMotion = SupportMotion(network, excitations, h, steps);
-        var load = BuildLoad(dofs, excitations, coupling, supportMotion);
+        var load = BuildLoad(network, dofs, excitations, coupling, supportMotion);
         var probes = BuildProbes(network, dofs, settings, coupling, supportMotion);
 
         var u0 = new double[n];
         var v0 = new double[n];
         foreach (var ic in initial)
         {
-            var i = dofs.IndexOf(ic.Mass);
+            var i = network.Space == ModelSpace.Line ? dofs.IndexOf(ic.Mass) : dofs.IndexOfLabel(ic.Mass);
             if (i < 0) throw new ArgumentException($"Initial condition for unknown mass '{ic.Mass}'.", nameof(initial));
             Guard.Finite(ic.Displacement, nameof(initial));
             Guard.Finite(ic.Velocity, nameof(initial));
@@ -355,12 +357,23 @@ public static class TransientAnalysis
         Network network, IReadOnlyList<TransientExcitation> excitations, double h, int steps)
     {
         var motion = new Dictionary<string, (TimeFunction, TimeFunction)>();
-        foreach (var group in excitations.OfType<SupportAccelerationHistory>().GroupBy(e => e.Support))
+        // Keyed by the support's prescribed column: its name in line models, 'support.z' in plane and 3d models.
+        string Column(SupportAccelerationHistory e)
         {
-            if (group.Key == Network.Ground)
+            if (network.Space == ModelSpace.Line)
+                return e.Direction == Dofs.Direction.Along ? e.Support
+                    : throw new ArgumentException($"Support motion '{e.Name}' has direction '{e.Direction.Label()}', but a line model moves along its one line only.", nameof(excitations));
+            if (!Directions.Translations(network.Space).Contains(e.Direction))
+                throw new ArgumentException($"Support motion '{e.Name}' needs a translation of the model's space ({string.Join(", ", Directions.Translations(network.Space).Select(d => d.Label()))}) as its direction.", nameof(excitations));
+            return $"{e.Support}.{e.Direction.Label()}";
+        }
+        foreach (var group in excitations.OfType<SupportAccelerationHistory>().GroupBy(Column))
+        {
+            var support = group.First().Support;
+            if (support == Network.Ground)
                 throw new ArgumentException("Ground is fixed; prescribe motion at another support.", nameof(excitations));
-            if (!network.IsSupport(group.Key))
-                throw new ArgumentException($"Support motion '{group.First().Name}' refers to unknown support '{group.Key}'.", nameof(excitations));
+            if (!network.IsSupport(support))
+                throw new ArgumentException($"Support motion '{group.First().Name}' refers to unknown support '{support}'.", nameof(excitations));
             var d = new double[steps + 1];
             var v = new double[steps + 1];
             var aOld = group.Sum(e => e.Acceleration.ValueAt(0));
@@ -376,12 +389,19 @@ public static class TransientAnalysis
         return motion;
     }
 
-    private static LoadSet BuildLoad(Dofs.DofMap dofs, IReadOnlyList<TransientExcitation> excitations, SupportCoupling coupling,
+    private static LoadSet BuildLoad(Network network, Dofs.DofMap dofs, IReadOnlyList<TransientExcitation> excitations, SupportCoupling coupling,
         Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
     {
         var terms = new List<LoadTerm>();
         foreach (var e in excitations.OfType<ForceHistory>())
         {
+            if (network.Space != ModelSpace.Line)
+            {
+                // f_q = Tᵀ e_d F(t): a force at a body point also gives its moment about the centre of mass.
+                Guard.Finite(e.Scale, nameof(excitations));
+                terms.Add(new LoadTerm([.. SpatialLoads.UnitLoad(network, dofs, e.Mass, e.Direction, e.Name).Select(t => (t.Dof, e.Scale * t.Weight))], e.Time));
+                continue;
+            }
             var i = dofs.IndexOf(e.Mass);
             if (i < 0) throw new ArgumentException($"Load '{e.Name}' acts at unknown mass '{e.Mass}'.", nameof(excitations));
             Guard.Finite(e.Scale, nameof(excitations));
@@ -405,11 +425,14 @@ public static class TransientAnalysis
     private static List<Probe> BuildProbes(Network network, Dofs.DofMap dofs, TransientSettings settings, SupportCoupling coupling,
         Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
     {
-        var outputs = settings.Outputs.IsEmpty ? [.. network.Masses.Select(m => m.Name)] : settings.Outputs;
+        var spatial = network.Space != ModelSpace.Line;
+        var outputs = !settings.Outputs.IsEmpty
+            ? spatial ? [.. settings.Outputs.SelectMany(o => dofs.OutputLabels(o) is { IsEmpty: false } labels ? labels : [o]).Distinct()] : settings.Outputs
+            : spatial ? [.. Enumerable.Range(0, dofs.Count).Select(dofs.Label)] : [.. network.Masses.Select(m => m.Name)];
         var probes = new List<Probe>();
         foreach (var name in outputs)
         {
-            var i = dofs.IndexOf(name);
+            var i = spatial ? dofs.IndexOfLabel(name) : dofs.IndexOf(name);
             if (i < 0) throw new ArgumentException($"Output '{name}' is not a mass.", nameof(settings));
             probes.Add(new Probe(name, ResponseQuantity.Displacement, [(i, 1.0)], [], [], []));
             probes.Add(new Probe(name, ResponseQuantity.Velocity, [], [(i, 1.0)], [], []));
@@ -433,12 +456,13 @@ public static class TransientAnalysis
             return (state, known);
         }
 
-        foreach (var s in network.Springs.Where(s => Recorded(s.NodeA, s.NodeB)))
+        if (spatial) probes.AddRange(MountProbes(network, dofs, coupling, supportMotion));
+        foreach (var s in network.Springs.Where(s => !spatial && Recorded(s.NodeA, s.NodeB)))
         {
             var (state, known) = Difference(s.NodeA, s.NodeB, s.Stiffness, velocity: false);
             probes.Add(new Probe(s.Name, ResponseQuantity.SpringForce, [.. state], [], [], [.. known]));
         }
-        foreach (var d in network.Dampers.Where(d => Recorded(d.NodeA, d.NodeB)))
+        foreach (var d in network.Dampers.Where(d => !spatial && Recorded(d.NodeA, d.NodeB)))
         {
             var (state, known) = Difference(d.NodeA, d.NodeB, d.Coefficient, velocity: true);
             probes.Add(new Probe(d.Name, ResponseQuantity.DamperForce, [], [.. state], [], [.. known]));
@@ -465,6 +489,38 @@ public static class TransientAnalysis
         return probes;
     }
 
+    /// <summary>
+    /// Plane and 3d models: the force of every spring and damper in each direction it acts in (a mount force), k_d·Δ_d or
+    /// c_d·Δ̇_d on its end B, Δ through the attachment maps; a moving support's column adds its prescribed motion.
+    /// </summary>
+    private static IEnumerable<Probe> MountProbes(Network network, Dofs.DofMap dofs, SupportCoupling coupling,
+        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
+    {
+        foreach (var row in SpatialLoads.MountRows(network, dofs, coupling.Supports))
+        {
+            var state = row.Free.Select(t => (t.Index, row.Value * t.Coefficient)).ToArray();
+            var known = new List<(double, TimeFunction)>();
+            foreach (var (column, c) in row.Prescribed)
+                if (supportMotion.TryGetValue(coupling.Supports[column], out var m))
+                    known.Add((row.Value * c, row.IsDamper ? m.Velocity : m.Displacement));
+            foreach (var (label, factor) in SpatialLoads.Resolved(row, network.Space))
+            {
+                var weights = state.Select(t => (t.Index, factor * t.Item2)).ToArray();
+                var prescribed = known.Select(k => (factor * k.Item1, k.Item2)).ToArray();
+                yield return row.IsDamper
+                    ? new Probe(row.Element, ResponseQuantity.DamperForce, [], weights, [], prescribed) { Direction = label }
+                    : new Probe(row.Element, ResponseQuantity.SpringForce, weights, [], [], prescribed) { Direction = label };
+            }
+        }
+    }
+
+    private static bool IsDiagonal(Matrix<double> m)
+    {
+        foreach (var (i, j, v) in m.EnumerateIndexed(Zeros.AllowSkip))
+            if (i != j && v != 0) return false;
+        return true;
+    }
+
     private static string Invariant(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 
     /// <summary>A history known on the step grid, linear between grid points and held after the last one.</summary>
@@ -485,6 +541,10 @@ public static class TransientAnalysis
     private sealed record SupportCoupling(ImmutableArray<string> Supports, Matrix<double> StiffnessFP, Matrix<double> DampingFP,
         Matrix<double> StiffnessPP, Matrix<double> DampingPP)
     {
+        /// <summary>The coupling of a partition (its stiffness blocks) with the damping blocks given, or the partition's dampers when none.</summary>
+        public static SupportCoupling FromPartition(SupportPartition p, DampingMatrices? DampingMatrices) =>
+            new(p.Supports, p.StiffnessFP, DampingMatrices?.FP ?? p.DamperFP, p.StiffnessPP, DampingMatrices?.PP ?? p.DamperPP);
+
         /// <summary>The coupling of the discrete springs and dampers, assembled the same way as K and C.</summary>
         public static SupportCoupling FromElements(Network network, Dofs.DofMap dofs)
         {

@@ -37,7 +37,15 @@ public sealed record Peak(double Value, double Time);
 /// <param name="Values">Values at <see cref="TransientResult.Times"/>.</param>
 /// <param name="Peak">Peak over every step of the run (not only the recorded ones).</param>
 /// <param name="Rms">Root mean square over the steps inside the RMS window; NaN (not available) when no step lies in the window.</param>
-public sealed record ResponseHistory(string Name, ResponseQuantity Quantity, string Unit, ImmutableArray<double> Values, Peak Peak, double Rms);
+public sealed record ResponseHistory(string Name, ResponseQuantity Quantity, string Unit, ImmutableArray<double> Values, Peak Peak, double Rms)
+{
+    /// <summary>
+    /// Plane and 3d models: the direction of a spring or damper force (a mount force), <c>x</c> … <c>rz</c> for a
+    /// component (a moment in N·m for a rotation) or <c>axial</c> and its x, y, z resolution for an axial element; null
+    /// for line models and for the other quantities.
+    /// </summary>
+    public string? Direction { get; init; }
+}
 
 /// <summary>The energy balance of a run, a quality figure: E₀ + W = T + V + D up to the integration error.</summary>
 /// <remarks>

@@ -28,14 +28,27 @@ public abstract record TransientExcitation(string Name);
 /// <param name="Mass">Name of the loaded mass.</param>
 /// <param name="Scale">1 for a force whose time function is in N; m·e in kg·m for an unbalance whose time function is a <see cref="UnbalanceSpeedRamp"/>.</param>
 /// <param name="Time">How the force varies in time.</param>
-public sealed record ForceHistory(string Name, string Mass, double Scale, TimeFunction Time) : TransientExcitation(Name);
+public sealed record ForceHistory(string Name, string Mass, double Scale, TimeFunction Time) : TransientExcitation(Name)
+{
+    /// <summary>
+    /// The direction: <see cref="Dofs.Direction.Along"/> in line models; in plane and 3d models a global translation, or a
+    /// rotation for a moment in N·m on a rigid body. <see cref="Mass"/> may then name a body or <c>body.point</c>. A timed
+    /// unbalance in a plane (d₁, d₂) is two histories: the ramp along d₁ and the same ramp with its phase 90° earlier
+    /// (θ(0) − π/2, which gives ω² sin θ − α cos θ) along d₂.
+    /// </summary>
+    public Dofs.Direction Direction { get; init; } = Dofs.Direction.Along;
+}
 
 /// <summary>A prescribed acceleration history of a support (not <see cref="Network.Ground"/>), in m/s².</summary>
 /// <remarks>The support starts at rest at zero displacement; its velocity and displacement are integrated from the acceleration.</remarks>
 /// <param name="Name">Load name.</param>
 /// <param name="Support">Name of the moving support.</param>
 /// <param name="Acceleration">The support's acceleration in m/s².</param>
-public sealed record SupportAccelerationHistory(string Name, string Support, TimeFunction Acceleration) : TransientExcitation(Name);
+public sealed record SupportAccelerationHistory(string Name, string Support, TimeFunction Acceleration) : TransientExcitation(Name)
+{
+    /// <summary>The translation the support moves in: <see cref="Dofs.Direction.Along"/> in line models, x, y or z in plane and 3d models.</summary>
+    public Dofs.Direction Direction { get; init; } = Dofs.Direction.Along;
+}
 
 /// <summary>Initial displacement and velocity of one mass; masses not listed start at rest at zero.</summary>
 /// <param name="Mass">Mass name.</param>
