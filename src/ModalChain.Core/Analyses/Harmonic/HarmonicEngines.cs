@@ -63,16 +63,17 @@ internal sealed class DirectEngine : HarmonicEngine
         var k = new Complex(1, system.LossFactor);
 
         var a = new Complex[order * order];
+        var inverseMass = new double[n];
         for (var i = 0; i < n; i++)
         {
             a[i * order + n + i] = w0;
-            var inv = 1 / p.Mass[i, i];
-            for (var j = 0; j < n; j++)
-            {
-                a[(n + i) * order + j] = -k * (p.StiffnessFF[i, j] * inv / w0);
-                a[(n + i) * order + n + j] = -system.Damping.FF[i, j] * inv;
-            }
+            inverseMass[i] = 1 / p.Mass[i, i];
         }
+        // Only the stored entries of K and C (both may be sparse): the rest of the state matrix stays zero.
+        foreach (var (i, j, v) in p.StiffnessFF.EnumerateIndexed(MathNet.Numerics.LinearAlgebra.Zeros.AllowSkip))
+            a[(n + i) * order + j] = -k * (v * inverseMass[i] / w0);
+        foreach (var (i, j, v) in system.Damping.FF.EnumerateIndexed(MathNet.Numerics.LinearAlgebra.Zeros.AllowSkip))
+            a[(n + i) * order + n + j] = -v * inverseMass[i];
         _hessenberg = ComplexHessenberg.Reduce(a, order);
         var q = _hessenberg.Q;
 
@@ -197,13 +198,22 @@ internal sealed class ModalEngine : HarmonicEngine
 
         if (residualFlexibility && _m < n)
         {
-            var lu = system.Partition.StiffnessFF.LU();
+            // K_ff is sparse: one LDLᵀ (approximate minimum degree ordering) serves every load term, so the residual
+            // flexibility of a 100,000-mass model costs a sparse factor, not a dense n×n LU.
+            var factor = SparseLdlt.Factor(SymmetricSparseMatrix.From(system.Partition.StiffnessFF));
             _residual = new Complex[no * _terms];
+            var re = new double[n];
+            var im = new double[n];
             for (var r = 0; r < _terms; r++)
             {
                 var b = loading.Terms[r].Vector;
-                var re = lu.Solve(MathNet.Numerics.LinearAlgebra.Vector<double>.Build.Dense(n, i => b[i].Real));
-                var im = lu.Solve(MathNet.Numerics.LinearAlgebra.Vector<double>.Build.Dense(n, i => b[i].Imaginary));
+                for (var i = 0; i < n; i++)
+                {
+                    re[i] = b[i].Real;
+                    im[i] = b[i].Imaginary;
+                }
+                factor.Solve(re, re);
+                factor.Solve(im, im);
                 for (var k = 0; k < no; k++)
                 {
                     var s = Dot(observations[k], i => new Complex(re[i], im[i]));
@@ -279,6 +289,18 @@ internal sealed class ModalEngine : HarmonicEngine
 internal sealed class DenseEngine(DampedSystem system, HarmonicLoading loading, double[][] observations) : HarmonicEngine(observations)
 {
     private readonly int _n = system.Partition.FreeCount;
+    private readonly double[] _k = Dense(system.Partition.StiffnessFF);
+    private readonly double[] _m = Dense(system.Partition.Mass);
+    private readonly double[] _c = Dense(system.Damping.FF);
+
+    /// <summary>Row-major copy (the engine is used on small models only, so a dense copy is cheap).</summary>
+    private static double[] Dense(MathNet.Numerics.LinearAlgebra.Matrix<double> a)
+    {
+        var n = a.ColumnCount;
+        var d = new double[a.RowCount * n];
+        foreach (var (i, j, v) in a.EnumerateIndexed(MathNet.Numerics.LinearAlgebra.Zeros.AllowSkip)) d[i * n + j] = v;
+        return d;
+    }
 
     private sealed class Workspace(int n) : EngineWorkspace
     {
@@ -293,13 +315,10 @@ internal sealed class DenseEngine(DampedSystem system, HarmonicLoading loading, 
     {
         var ws = (Workspace)workspace;
         var n = _n;
-        var p = system.Partition;
-        var c = system.Damping.FF;
         var hysteretic = new Complex(1, system.LossFactor);
         var z = ws.Matrix.AsSpan();
-        for (var i = 0; i < n; i++)
-            for (var j = 0; j < n; j++)
-                z[i * n + j] = hysteretic * p.StiffnessFF[i, j] - omega * omega * p.Mass[i, j] + new Complex(0, omega * c[i, j]);
+        for (var i = 0; i < n * n; i++)
+            z[i] = hysteretic * _k[i] - omega * omega * _m[i] + new Complex(0, omega * _c[i]);
         var b = ws.B.AsSpan();
         b.Clear();
         for (var r = 0; r < loading.Terms.Count; r++)
