@@ -34,13 +34,16 @@ internal static class HarmonicCommand
         var method = CommandValues.Choice<HarmonicMethod?>("--method",
             "direct (exact, any damping) or modal (superposition with residual flexibility); default: the file's 'method', else direct.",
             ("direct", HarmonicMethod.Direct), ("modal", HarmonicMethod.Modal));
+        var count = CommandValues.Count("--count",
+            "Modal method: superpose the lowest N modes (overrides the file's 'modes'; default: every mode below twice the " +
+            "highest frequency). Models of more than 300 masses solve only these modes.", 1);
         var solver = CommonOptions.Solver();
         var command = new Command("harmonic",
             "Steady-state response to the model's harmonic loads (forces, rotating unbalances, support motions) over a " +
             "frequency sweep: displacement, velocity and acceleration of each output mass, spring and damper forces, support " +
             "reactions and transmissibility, the peak of each over the sweep, and the response at each load's running speed. " +
             "The sweep comes from the file's 'harmonic' section; --from/--to/--points override it.")
-        { file, outputs, from, to, points, method, solver, format };
+        { file, outputs, from, to, points, method, count, solver, format };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -85,8 +88,9 @@ internal static class HarmonicCommand
                 spec = spec with { Outputs = [.. chosen.Distinct()] };
             }
             if (parse.GetValue(method) is { } m) spec = spec with { Method = m };
+            if (parse.GetValue(count) is { } modeCount) spec = spec with { ModeCount = modeCount };
 
-            var system = DampedSystem.Build(model, new ModalOptions(Choice: choice));
+            var system = HarmonicAnalysis.Assemble(model, spec, choice);
             var result = HarmonicAnalysis.Solve(system, spec);
             switch (parse.GetValue(format))
             {

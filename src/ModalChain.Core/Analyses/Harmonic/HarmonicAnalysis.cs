@@ -1,8 +1,10 @@
 using System.Collections.Immutable;
 using System.Globalization;
 using System.Numerics;
+using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
+using ModalChain.Core.Solvers;
 
 namespace ModalChain.Core.Analyses.Harmonic;
 
@@ -17,7 +19,44 @@ namespace ModalChain.Core.Analyses.Harmonic;
 public static class HarmonicAnalysis
 {
     /// <summary>Assembles <paramref name="model"/> and runs the sweep of <paramref name="spec"/>, with operating points.</summary>
-    public static HarmonicResult Solve(StructuralModel model, HarmonicSpec spec) => Solve(DampedSystem.Build(model), spec);
+    public static HarmonicResult Solve(StructuralModel model, HarmonicSpec spec) => Solve(Assemble(model, spec), spec);
+
+    /// <summary>Above this many DOFs a modal sweep solves only the modes it superposes, not every mode.</summary>
+    public const int LowestModesFromDofs = TruncationCheckMaxDofs;
+
+    /// <summary>Assembles <paramref name="model"/> with the undamped modes the sweep of <paramref name="spec"/> needs.</summary>
+    /// <remarks>
+    /// Every mode for the direct method and for models of up to <see cref="LowestModesFromDofs"/> DOFs (so their results do
+    /// not depend on this choice). A modal sweep of a larger model solves only the modes it superposes: the spec's
+    /// <see cref="HarmonicSpec.ModeCount"/> lowest, or else every mode below twice the highest frequency it is asked
+    /// for (the sweep's and the running speeds of the model's loads), at least one; with a sparse model the lowest
+    /// modes come from the sparse solver, so the sweep never forms a dense n×n matrix. Modal damping ratios in the
+    /// model still need every mode (they define C from all of them).
+    /// </remarks>
+    public static DampedSystem Assemble(StructuralModel model, HarmonicSpec spec, SolverChoice choice = SolverChoice.Auto)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(spec);
+        var size = model.Network.Masses.Length;
+        if (spec.Method != HarmonicMethod.Modal || size <= LowestModesFromDofs) return DampedSystem.Build(model, new ModalOptions(Choice: choice));
+        double? below = spec.ModeCount is null ? 2 * HighestFrequencyHz(model, spec) : null;
+        var modes = ModalAnalysis.Solve(model.Network, new ModalOptions(spec.ModeCount, Choice: choice, BelowFrequencyHz: below));
+        if (modes.Modes.IsEmpty) modes = ModalAnalysis.Solve(model.Network, new ModalOptions(1, Choice: choice));
+        return DampedSystem.Build(model, modes, choice);
+    }
+
+    /// <summary>The highest frequency in Hz a sweep of <paramref name="spec"/> computes: its own and its loads' running speeds.</summary>
+    private static double HighestFrequencyHz(StructuralModel model, HarmonicSpec spec)
+    {
+        var sweep = spec.Frequencies switch
+        {
+            FrequencyRange r => Math.Max(r.FromHz, r.ToHz),
+            FrequencyList l when !l.FrequenciesHz.IsDefaultOrEmpty => l.FrequenciesHz.Max(),
+            _ => 0.0,
+        };
+        var speeds = ResolveLoads(model, spec.Loads).Select(l => l.SpeedHz ?? 0).DefaultIfEmpty(0).Max();
+        return Math.Max(sweep, speeds);
+    }
 
     /// <summary>Runs the sweep of <paramref name="spec"/> on an assembled system, with operating points at the loads' speeds.</summary>
     public static HarmonicResult Solve(DampedSystem system, HarmonicSpec spec)
@@ -110,12 +149,16 @@ public static class HarmonicAnalysis
         if (method == HarmonicMethod.Modal)
         {
             var fmax = frequenciesHz.Count > 0 ? frequenciesHz.Max() : 0;
-            used = modeCount is { } c ? Math.Clamp(c, 1, n)
-                : Math.Max(1, system.Modes.Modes.Count(m => m.NaturalFrequencyHz <= 2 * fmax));
+            var solved = system.Modes.Modes.Length;
+            used = Math.Min(solved, modeCount is { } c ? Math.Clamp(c, 1, n)
+                : Math.Max(1, system.Modes.Modes.Count(m => m.NaturalFrequencyHz <= 2 * fmax)));
             var rigid = system.Modes.RigidBodyModeCount > 0;
             engine = new ModalEngine(system, loading, [.. observations], used, residualFlexibility: !rigid);
             notes.Add(string.Create(CultureInfo.InvariantCulture, $"modal superposition of {used} of {n} modes") +
                 (used < n ? (rigid ? "; residual flexibility left out (the network has rigid-body modes)" : ", residual flexibility for the rest") : ""));
+            if (solved < n)
+                notes.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"only the lowest {solved} of {n} modes were solved (up to {system.Modes.Modes[^1].NaturalFrequencyHz:G4} Hz{(modeCount is null ? "; every mode below twice the highest frequency" : "")})"));
             if (!system.IsClassical)
                 notes.Add(string.Create(CultureInfo.InvariantCulture,
                     $"damping is not classical (coupling index {system.NonClassicalIndex:G3}): the kept modal equations are solved coupled"));
