@@ -26,21 +26,24 @@ public static class HarmonicAnalysis
 
     /// <summary>Assembles <paramref name="model"/> with the undamped modes the sweep of <paramref name="spec"/> needs.</summary>
     /// <remarks>
-    /// Every mode for the direct method and for models of up to <see cref="LowestModesFromDofs"/> DOFs (so their results do
-    /// not depend on this choice). A modal sweep of a larger model solves only the modes it superposes: the spec's
+    /// Every mode for models of up to <see cref="LowestModesFromDofs"/> DOFs (so their results do not depend on this
+    /// choice). A modal sweep of a larger model solves only the modes it superposes: the spec's
     /// <see cref="HarmonicSpec.ModeCount"/> lowest, or else every mode below twice the highest frequency it is asked
-    /// for (the sweep's and the running speeds of the model's loads), at least one; with a sparse model the lowest
-    /// modes come from the sparse solver, so the sweep never forms a dense n×n matrix. Modal damping ratios in the
-    /// model still need every mode (they define C from all of them).
+    /// for (the sweep's and the running speeds of the model's loads), at least one. A direct sweep of a larger model
+    /// solves the modes below twice the highest frequency too: it uses them only to refine the grid around natural
+    /// frequencies and to warn of undamped resonances. With a sparse model the lowest modes come from the sparse solver,
+    /// so neither method forms a dense n×n matrix. Modal damping ratios in the model still need every mode (they define
+    /// C from all of them).
     /// </remarks>
     public static DampedSystem Assemble(StructuralModel model, HarmonicSpec spec, SolverChoice choice = SolverChoice.Auto)
     {
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(spec);
         var size = model.Network.Masses.Length;
-        if (spec.Method != HarmonicMethod.Modal || size <= LowestModesFromDofs) return DampedSystem.Build(model, new ModalOptions(Choice: choice));
-        double? below = spec.ModeCount is null ? 2 * HighestFrequencyHz(model, spec) : null;
-        var modes = ModalAnalysis.Solve(model.Network, new ModalOptions(spec.ModeCount, Choice: choice, BelowFrequencyHz: below));
+        if (size <= LowestModesFromDofs) return DampedSystem.Build(model, new ModalOptions(Choice: choice));
+        var count = spec.Method == HarmonicMethod.Modal ? spec.ModeCount : null;
+        double? below = count is null ? 2 * HighestFrequencyHz(model, spec) : null;
+        var modes = ModalAnalysis.Solve(model.Network, new ModalOptions(count, Choice: choice, BelowFrequencyHz: below));
         if (modes.Modes.IsEmpty) modes = ModalAnalysis.Solve(model.Network, new ModalOptions(1, Choice: choice));
         return DampedSystem.Build(model, modes, choice);
     }
@@ -166,8 +169,10 @@ public static class HarmonicAnalysis
         else
         {
             used = 0;
-            engine = new DirectEngine(system, loading, [.. observations]);
-            notes.Add("direct solve (Hessenberg form of the state matrix, exact for any damping)");
+            engine = DirectEngines.Create(system, loading, [.. observations]);
+            notes.Add(engine is SparseDirectEngine
+                ? "direct solve (sparse complex LDLᵀ of the dynamic stiffness at each frequency on one ordering, exact for any damping)"
+                : "direct solve (Hessenberg form of the state matrix, exact for any damping)");
         }
         if (system.Model.Damping.IsNone && !system.HasViscousDamping)
             notes.Add("the model has no damping: responses at natural frequencies are unbounded");
@@ -392,7 +397,7 @@ public static class HarmonicAnalysis
     /// Sweeps <paramref name="points"/> points (refined around the natural frequencies in the band) by the direct
     /// method at that single DOF, then narrows the bracket of every local maximum by golden-section search
     /// (Kiefer 1953) to a relative width of 1e-7 and returns the largest. When the largest sample is an end of the band
-    /// the result is flagged (<see cref="ResponsePeak.RisingAt"/>, with the end value in <see cref="ResponsePeak.EdgeMagnitude"/>). Cost: one Hessenberg reduction of the 2n state matrix plus O(n²) per point.
+    /// the result is flagged (<see cref="ResponsePeak.RisingAt"/>, with the end value in <see cref="ResponsePeak.EdgeMagnitude"/>). Cost: one Hessenberg reduction of the 2n state matrix plus O(n²) per point; above 300 DOFs with sparse C, one sparse complex LDLᵀ per point on one ordering.
     /// </remarks>
     /// <param name="system">The assembled model.</param>
     /// <param name="loads">Loads acting together.</param>
@@ -427,7 +432,7 @@ public static class HarmonicAnalysis
         var loading = HarmonicLoading.Compile(system, loads);
         var unitRow = new double[system.Partition.FreeCount];
         unitRow[index] = 1;
-        var engine = new DirectEngine(system, loading, [unitRow]);
+        var engine = DirectEngines.Create(system, loading, [unitRow]);
         var ws = engine.CreateWorkspace();
         var coefficients = new Complex[loading.Terms.Count];
         var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];

@@ -36,6 +36,84 @@ internal abstract class HarmonicEngine(double[][] observations)
     public abstract bool Solve(double omega, ReadOnlySpan<Complex> coefficients, Span<Complex> x, EngineWorkspace workspace);
 }
 
+/// <summary>Chooses the engine of the direct method by the size and storage of the model.</summary>
+internal static class DirectEngines
+{
+    /// <summary>Above this many DOFs a model with sparse C is solved by <see cref="SparseDirectEngine"/>.</summary>
+    public const int SparseFromDofs = 300;
+
+    /// <summary>The sparse engine above <see cref="SparseFromDofs"/> DOFs when C is stored sparse; the Hessenberg engine otherwise.</summary>
+    public static HarmonicEngine Create(DampedSystem system, HarmonicLoading loading, double[][] observations) =>
+        UsesSparse(system) ? new SparseDirectEngine(system, loading, observations) : new DirectEngine(system, loading, observations);
+
+    /// <summary>True when the direct method runs on the sparse engine.</summary>
+    public static bool UsesSparse(DampedSystem system) =>
+        system.Partition.FreeCount > SparseFromDofs
+        && system.Damping.FF.Storage is MathNet.Numerics.LinearAlgebra.Storage.SparseCompressedRowMatrixStorage<double>;
+}
+
+/// <summary>The direct method on a sparse model: a complex symmetric LDLᵀ of (K(1+iη) − ω²M + iωC) at each frequency.</summary>
+/// <remarks>
+/// The ordering and the pattern of L are found once for the union of the patterns of K, M and C
+/// (<see cref="SparseLdltPattern"/>); each frequency refactorises numerically on that pattern
+/// (<see cref="ComplexSymmetricLdlt"/>) and solves once for the combined right-hand side. Memory is one complex factor
+/// per thread, O(nnz(L)), instead of the Hessenberg engine's dense (2n)² state matrix, and no O(n³) reduction. Exact for
+/// any damping, like the Hessenberg engine; the two agree to round-off.
+/// </remarks>
+internal sealed class SparseDirectEngine : HarmonicEngine
+{
+    private readonly SymmetricSparseMatrix _k;
+    private readonly SymmetricSparseMatrix _m;
+    private readonly SymmetricSparseMatrix _c;
+    private readonly SparseLdltPattern _pattern;
+    private readonly Complex _hysteretic;
+    private readonly HarmonicLoading _loading;
+    private readonly (int Index, double Weight)[][] _rows;
+
+    public SparseDirectEngine(DampedSystem system, HarmonicLoading loading, double[][] observations) : base(observations)
+    {
+        var p = system.Partition;
+        _k = SymmetricSparseMatrix.From(p.StiffnessFF);
+        _m = SymmetricSparseMatrix.From(p.Mass);
+        _c = SymmetricSparseMatrix.From(system.Damping.FF);
+        _pattern = SparseLdltPattern.Analyse(_k, _m, _c);
+        _hysteretic = new Complex(1, system.LossFactor);
+        _loading = loading;
+        _rows = [.. observations.Select(w => w.Select((v, i) => (i, v)).Where(e => e.v != 0).ToArray())];
+    }
+
+    private sealed class Workspace(SparseLdltPattern pattern) : EngineWorkspace
+    {
+        public readonly ComplexSymmetricLdlt Factor = new(pattern);
+        public readonly Complex[] B = new Complex[pattern.Size];
+    }
+
+    public override EngineWorkspace CreateWorkspace() => new Workspace(_pattern);
+
+    public override bool Solve(double omega, ReadOnlySpan<Complex> coefficients, Span<Complex> x, EngineWorkspace workspace)
+    {
+        var ws = (Workspace)workspace;
+        if (!ws.Factor.Factor([(_hysteretic, _k), (-omega * omega, _m), (new Complex(0, omega), _c)])) return false;
+        var b = ws.B.AsSpan();
+        b.Clear();
+        for (var r = 0; r < _loading.Terms.Count; r++)
+        {
+            var c = coefficients[r];
+            if (c == Complex.Zero) continue;
+            var v = _loading.Terms[r].Vector;
+            for (var i = 0; i < b.Length; i++) b[i] += c * v[i];
+        }
+        ws.Factor.Solve(b);
+        for (var k = 0; k < x.Length; k++)
+        {
+            var s = Complex.Zero;
+            foreach (var (i, w) in _rows[k]) s += w * b[i];
+            x[k] = s;
+        }
+        return true;
+    }
+}
+
 /// <summary>The direct method: the exact solve of (K(1+iη) − ω²M + iωC) x = b through a Hessenberg form of the state matrix.</summary>
 /// <remarks>
 /// With z = [ω0·x; ẋ], the equations become (iωI − A) z = [0; M⁻¹b], A = [[0, ω0 I], [−M⁻¹K(1+iη)/ω0, −M⁻¹C]];
