@@ -1,4 +1,3 @@
-using ModalChain.Core.Assembly;
 using System.CommandLine;
 using System.Globalization;
 using ModalChain.Cli.Formatting;
@@ -6,8 +5,10 @@ using ModalChain.Core;
 using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Commands;
 
@@ -54,12 +55,12 @@ internal static class CheckCommand
     internal static CheckOutcome Evaluate(ModelDocument document, ModalChain.Core.Solvers.SolverChoice choice = default)
     {
         var loads = OperatingLoads.Of(document);
-        return CriteriaCheck.Evaluate(CriteriaCheck.Assemble(document.Structure, document.Criteria, loads, choice), document.Criteria, loads);
+        return CriteriaCheck.Evaluate(CriteriaCheck.Assemble(document.Structure, document.Criteria, loads, choice), document.Criteria, loads, document.Cases);
     }
 
     private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome)
     {
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine();
         if (outcome.Separation is { } sep)
         {
@@ -100,6 +101,8 @@ internal static class CheckCommand
                     Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Signed(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL");
             table.Write(o);
             o.WriteLine("  reserve = (limit - value) / limit.");
+            if (outcome.Combination is { } rule)
+                o.WriteLine($"  values are the load cases combined at their running speeds by the rule {LoadCaseSelection.Describe(rule)}.");
             o.WriteLine();
         }
         if (outcome.Zones.Length > 0)

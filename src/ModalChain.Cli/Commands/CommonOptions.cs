@@ -2,6 +2,7 @@ using System.CommandLine;
 using ModalChain.Core.Solvers;
 using ModalChain.Io.Diagnostics;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Commands;
 
@@ -64,7 +65,7 @@ internal static class CommonOptions
     public static ModelDocument? Load(string file, Streams io)
     {
         var result = ModelReader.ReadFile(file);
-        foreach (var d in result.Diagnostics) io.Error.WriteLine(d.ToString());
+        foreach (var d in result.Diagnostics) io.Error.WriteLine(TerminalText.Line(d.ToString()));
         if (result.Model is null)
         {
             var count = result.Errors.Count();
@@ -74,4 +75,16 @@ internal static class CommonOptions
     }
 
     public static int WarningCount(ModelDocument document) => document.Warnings.Count(w => w.Severity == Severity.Warning);
+
+    /// <summary>An option naming elements of the model: names joined by commas, or the option repeated.</summary>
+    public static Option<string[]> NameList(string name, string description) => new(name)
+    {
+        Description = description,
+        AllowMultipleArgumentsPerToken = true,
+        HelpName = "NAME[,NAME...]",
+    };
+
+    /// <summary>The names given to a <see cref="NameList"/> option, split at commas, blanks dropped, duplicates removed, in order.</summary>
+    public static string[] Names(string[]? values) =>
+        values is null ? [] : [.. values.SelectMany(v => v.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries)).Distinct(StringComparer.Ordinal)];
 }

@@ -1,3 +1,5 @@
+using System.Collections.Immutable;
+
 namespace ModalChain.Core.Model;
 
 /// <summary>A named harmonic excitation of a network; its complex amplitude at each frequency is fixed by its kind.</summary>
@@ -22,6 +24,12 @@ public sealed record ForceLoad(string Name, string At, double Amplitude, double 
 {
     /// <inheritdoc />
     public override double? SpeedHz { get; init; } = SpeedHz;
+
+    /// <summary>
+    /// The direction the force acts in: <see cref="Dofs.Direction.Along"/> in line models; a global translation in plane and
+    /// 3d models, or a rotation for a moment (amplitude in N·m) on a rigid body. <see cref="At"/> may be <c>body.point</c>.
+    /// </summary>
+    public Dofs.Direction Direction { get; init; } = Dofs.Direction.Along;
 }
 
 /// <summary>A rotating unbalance at a mass: the force amplitude m·e·ω² grows with the square of the speed.</summary>
@@ -34,6 +42,13 @@ public sealed record UnbalanceLoad(string Name, string At, double MassRadius, do
 {
     /// <inheritdoc />
     public override double? SpeedHz { get; init; } = SpeedHz;
+
+    /// <summary>
+    /// In plane and 3d models, the two global translations spanning the plane the unbalance rotates in: the force is
+    /// m·e·ω²·cos(ωt + φ) along the first and m·e·ω²·sin(ωt + φ) along the second. Empty in line models (the force acts
+    /// along the line of motion).
+    /// </summary>
+    public ImmutableArray<Dofs.Direction> Plane { get; init; } = [];
 }
 
 /// <summary>Which derivative of the support's motion a <see cref="BaseMotionLoad"/> prescribes.</summary>
@@ -62,4 +77,7 @@ public sealed record BaseMotionLoad(string Name, string Support, BaseMotionKind 
 {
     /// <inheritdoc />
     public override double? SpeedHz { get; init; } = SpeedHz;
+
+    /// <summary>The direction the support moves in: <see cref="Dofs.Direction.Along"/> in line models, a global translation otherwise.</summary>
+    public Dofs.Direction Direction { get; init; } = Dofs.Direction.Along;
 }

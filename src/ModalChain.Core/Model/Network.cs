@@ -7,30 +7,72 @@ namespace ModalChain.Core.Model;
 /// <param name="Y">Vertical drawing coordinate in m.</param>
 public readonly record struct DrawingPosition(double X, double Y);
 
+/// <summary>Where an element end or a load attaches.</summary>
+/// <param name="Node">The mass, support or body it belongs to.</param>
+/// <param name="Point">The body's point name; null for a mass, a support or a body's centre of mass.</param>
+/// <param name="Location">The body point's (or centre of mass's) location in m; null for masses and supports (see their own locations).</param>
+public sealed record Attachment(string Node, string? Point, Point3? Location);
+
 /// <summary>A lumped mass that moves in the network's direction of motion.</summary>
 /// <param name="Name">Unique name of the mass within its network.</param>
 /// <param name="Kilograms">Mass in kg; positive and finite.</param>
 /// <param name="Position">Optional drawing position in m.</param>
-public sealed record Mass(string Name, double Kilograms, DrawingPosition? Position = null);
+public sealed record Mass(string Name, double Kilograms, DrawingPosition? Position = null)
+{
+    /// <summary>Location in global axes, m: mechanical data in plane and 3d models (null in line models).</summary>
+    public Point3? Location { get; init; }
+
+    /// <summary>
+    /// The translations this mass moves in (plane and 3d models); empty means every translation of the model's space.
+    /// Never a rotation: a point mass has no rotary inertia (use a rigid body).
+    /// </summary>
+    public ImmutableArray<Dofs.Direction> Moves { get; init; } = [];
+}
 
 /// <summary>A fixed or prescribed-motion point of the network; <see cref="Network.Ground"/> always exists.</summary>
 /// <param name="Name">Unique name of the support.</param>
 /// <param name="Position">Optional drawing position in m.</param>
-public sealed record Support(string Name, DrawingPosition? Position = null);
+public sealed record Support(string Name, DrawingPosition? Position = null)
+{
+    /// <summary>Location in global axes, m: mechanical data in plane and 3d models (null in line models).</summary>
+    public Point3? Location { get; init; }
+}
 
 /// <summary>A linear spring between two nodes (masses or supports).</summary>
 /// <param name="Name">Unique name of the spring within its network.</param>
 /// <param name="NodeA">First end: a mass or support name.</param>
 /// <param name="NodeB">Second end: a mass or support name, different from <paramref name="NodeA"/>.</param>
 /// <param name="Stiffness">Stiffness in N/m; non-negative and finite.</param>
-public sealed record Spring(string Name, string NodeA, string NodeB, double Stiffness);
+/// <remarks>
+/// Ends are node names, or <c>body.point</c> for a point of a rigid body. In a line model <paramref name="Stiffness"/>
+/// acts along the line of motion. In plane and 3d models the spring acts either along the line between its ends
+/// (<see cref="Axial"/>, stiffness <paramref name="Stiffness"/>) or per global direction (<see cref="Components"/>,
+/// translations in N/m and rotations in N·m/rad), and <paramref name="Stiffness"/> is then the largest translational
+/// component, kept as the spring's scale for warnings and tables.
+/// </remarks>
+public sealed record Spring(string Name, string NodeA, string NodeB, double Stiffness)
+{
+    /// <summary>Stiffness per global direction in plane and 3d models; empty in line models and for axial springs.</summary>
+    public ImmutableArray<DirectionalValue> Components { get; init; } = [];
+
+    /// <summary>True when <see cref="Spring.Stiffness"/> acts along the line between the ends' locations (plane and 3d models).</summary>
+    public bool Axial { get; init; }
+}
 
 /// <summary>A linear viscous damper between two nodes (masses or supports).</summary>
 /// <param name="Name">Unique name of the damper within its network.</param>
 /// <param name="NodeA">First end: a mass or support name.</param>
 /// <param name="NodeB">Second end: a mass or support name, different from <paramref name="NodeA"/>.</param>
 /// <param name="Coefficient">Damping coefficient in N·s/m; non-negative and finite.</param>
-public sealed record Damper(string Name, string NodeA, string NodeB, double Coefficient);
+/// <remarks>Directions work as for <see cref="Spring"/>: <see cref="Components"/> in N·s/m and N·m·s/rad, or <see cref="Axial"/>.</remarks>
+public sealed record Damper(string Name, string NodeA, string NodeB, double Coefficient)
+{
+    /// <summary>Damping coefficient per global direction in plane and 3d models; empty in line models and for axial dampers.</summary>
+    public ImmutableArray<DirectionalValue> Components { get; init; } = [];
+
+    /// <summary>True when <see cref="Damper.Coefficient"/> acts along the line between the ends' locations.</summary>
+    public bool Axial { get; init; }
+}
 
 /// <summary>Masses tied rigidly together: they move as one, share one degree of freedom and their masses add.</summary>
 /// <param name="Name">Unique name of the link within its network.</param>
@@ -79,8 +121,33 @@ public sealed record Network
     /// <summary>The rigid links between masses, in declaration order; linked masses share one degree of freedom.</summary>
     public ImmutableArray<Link> Links { get; internal init; } = [];
 
-    /// <summary>Sum of all masses in kg.</summary>
-    public double TotalMass => Masses.Sum(m => m.Kilograms);
+    /// <summary>The space the nodes move in; <see cref="ModelSpace.Line"/> unless the model declares another.</summary>
+    public ModelSpace Space { get; internal init; } = ModelSpace.Line;
+
+    /// <summary>The rigid bodies (plane and 3d models only), in declaration order, numbered after the masses.</summary>
+    public ImmutableArray<RigidBody> Bodies { get; internal init; } = [];
+
+    /// <summary>Sum of all masses and bodies in kg.</summary>
+    public double TotalMass => Masses.Sum(m => m.Kilograms) + Bodies.Sum(b => b.Kilograms);
+
+    /// <summary>True when <paramref name="node"/> names a rigid body.</summary>
+    public bool IsBody(string node) => NodeNames.Of(this).Bodies.ContainsKey(node);
+
+    /// <summary>
+    /// Where an element end or load attaches: a mass or support by name, a body's centre of mass by the body's name,
+    /// or a body's point as <c>body.point</c>. Returns null when <paramref name="reference"/> names nothing.
+    /// </summary>
+    public Attachment? Resolve(string reference)
+    {
+        var names = NodeNames.Of(this);
+        if (names.Masses.Contains(reference)) return new Attachment(reference, null, null);
+        if (names.Supports.Contains(reference)) return new Attachment(reference, null, null);
+        if (names.Bodies.TryGetValue(reference, out var body)) return new Attachment(body.Name, null, body.CentreOfMass);
+        var dot = reference.LastIndexOf('.');
+        if (dot > 0 && names.Bodies.TryGetValue(reference[..dot], out body) && body.FindPoint(reference[(dot + 1)..]) is { } point)
+            return new Attachment(body.Name, point.Name, point.Location);
+        return null;
+    }
 
     /// <summary>True when <paramref name="node"/> names a support (including ground).</summary>
     public bool IsSupport(string node) => NodeNames.Of(this).Supports.Contains(node);
@@ -93,7 +160,7 @@ public sealed record Network
     public Network WithMassOrder(IReadOnlyList<int> order)
     {
         Guard.Permutation(order, Masses.Length, nameof(order));
-        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links };
+        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links, Space = Space, Bodies = Bodies };
     }
 }
 
@@ -107,7 +174,10 @@ internal sealed class NodeNames
     {
         Masses = network.Masses.Select(m => m.Name).ToHashSet(StringComparer.Ordinal);
         Supports = network.Supports.Select(s => s.Name).ToHashSet(StringComparer.Ordinal);
+        Bodies = network.Bodies.ToDictionary(b => b.Name, StringComparer.Ordinal);
     }
+
+    public Dictionary<string, RigidBody> Bodies { get; }
 
     public HashSet<string> Masses { get; }
 

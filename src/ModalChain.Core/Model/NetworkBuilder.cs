@@ -10,12 +10,88 @@ public sealed class NetworkBuilder
     private readonly List<Spring> _springs = [];
     private readonly List<Damper> _dampers = [];
     private readonly List<Link> _links = [];
+    private readonly List<RigidBody> _bodies = [];
+    private readonly Dictionary<string, RigidBody> _bodyByName = new(StringComparer.Ordinal);
     private readonly HashSet<string> _names = [Network.Ground];
     private readonly HashSet<string> _springNames = [];
     private readonly HashSet<string> _damperNames = [];
 
     /// <summary>Title of the network being built.</summary>
     public string Title { get; set; } = "Untitled network";
+
+    /// <summary>The space the nodes move in; <see cref="ModelSpace.Line"/> by default.</summary>
+    public ModelSpace Space { get; set; } = ModelSpace.Line;
+
+    /// <summary>Adds a mass given as a record (location and directions included).</summary>
+    public NetworkBuilder AddMass(Mass mass)
+    {
+        ArgumentNullException.ThrowIfNull(mass);
+        Guard.Positive(mass.Kilograms, nameof(mass));
+        foreach (var d in mass.Moves)
+            if (d.IsRotation() || d == Dofs.Direction.Along)
+                throw new ArgumentException($"Mass '{mass.Name}' may move only in translations of the model's space, not '{d}'.", nameof(mass));
+        ClaimNodeName(mass.Name);
+        _masses.Add(mass);
+        return this;
+    }
+
+    /// <summary>Adds a support given as a record (location included).</summary>
+    public NetworkBuilder AddSupport(Support support)
+    {
+        ArgumentNullException.ThrowIfNull(support);
+        ClaimNodeName(support.Name);
+        _supports.Add(support);
+        return this;
+    }
+
+    /// <summary>Replaces ground's record (its drawing position and location); the name must stay <see cref="Network.Ground"/>.</summary>
+    public NetworkBuilder PlaceGround(Support ground)
+    {
+        ArgumentNullException.ThrowIfNull(ground);
+        if (ground.Name != Network.Ground) throw new ArgumentException("Ground keeps its name.", nameof(ground));
+        _supports[0] = ground;
+        return this;
+    }
+
+    /// <summary>Adds a rigid body (plane and 3d models); its points become attachable as <c>body.point</c>.</summary>
+    public NetworkBuilder AddBody(RigidBody body)
+    {
+        ArgumentNullException.ThrowIfNull(body);
+        Guard.Positive(body.Kilograms, nameof(body));
+        if (Space == ModelSpace.Line) throw new ArgumentException($"Rigid body '{body.Name}' needs a plane or 3d model.", nameof(body));
+        if (body.Points.Select(p => p.Name).Distinct(StringComparer.Ordinal).Count() != body.Points.Length)
+            throw new ArgumentException($"Rigid body '{body.Name}' names a point twice.", nameof(body));
+        ClaimNodeName(body.Name);
+        _bodies.Add(body);
+        _bodyByName[body.Name] = body;
+        return this;
+    }
+
+    /// <summary>Adds a spring given as a record (directional components or axial included).</summary>
+    public NetworkBuilder AddSpring(Spring spring)
+    {
+        ArgumentNullException.ThrowIfNull(spring);
+        Guard.NonNegative(spring.Stiffness, nameof(spring));
+        foreach (var c in spring.Components) Guard.NonNegative(c.Value, nameof(spring));
+        CheckEnds(spring.Name, spring.NodeA, spring.NodeB);
+        if (!_springNames.Add(spring.Name))
+            throw new ArgumentException($"A spring named '{spring.Name}' already exists.", nameof(spring));
+        _springs.Add(spring);
+        return this;
+    }
+
+    /// <summary>Adds a damper given as a record (directional components or axial included).</summary>
+    public NetworkBuilder AddDamper(Damper damper)
+    {
+        ArgumentNullException.ThrowIfNull(damper);
+        Guard.NonNegative(damper.Coefficient, nameof(damper));
+        foreach (var c in damper.Components) Guard.NonNegative(c.Value, nameof(damper));
+        CheckEnds(damper.Name, damper.NodeA, damper.NodeB);
+        if (!_damperNames.Add(damper.Name))
+            throw new ArgumentException($"A damper named '{damper.Name}' already exists.", nameof(damper));
+        _dampers.Add(damper);
+        return this;
+    }
 
     /// <summary>Adds a mass.</summary>
     /// <param name="name">Unique name.</param>
@@ -86,7 +162,8 @@ public sealed class NetworkBuilder
     }
 
     /// <summary>Produces the immutable network.</summary>
-    public Network Build() => new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links] };
+    public Network Build() =>
+        new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies] };
 
     private void ClaimNodeName(string name)
     {
@@ -98,8 +175,16 @@ public sealed class NetworkBuilder
     private void CheckEnds(string element, string nodeA, string nodeB)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(element);
-        if (!_names.Contains(nodeA)) throw new ArgumentException($"'{element}' refers to unknown node '{nodeA}'.", nameof(nodeA));
-        if (!_names.Contains(nodeB)) throw new ArgumentException($"'{element}' refers to unknown node '{nodeB}'.", nameof(nodeB));
+        if (!Known(nodeA)) throw new ArgumentException($"'{element}' refers to unknown node '{nodeA}'.", nameof(nodeA));
+        if (!Known(nodeB)) throw new ArgumentException($"'{element}' refers to unknown node '{nodeB}'.", nameof(nodeB));
         if (nodeA == nodeB) throw new ArgumentException($"'{element}' connects '{nodeA}' to itself.", nameof(nodeB));
+    }
+
+    /// <summary>A node name, or <c>body.point</c> of a body already added.</summary>
+    private bool Known(string reference)
+    {
+        if (_names.Contains(reference)) return true;
+        var dot = reference.LastIndexOf('.');
+        return dot > 0 && _bodyByName.TryGetValue(reference[..dot], out var body) && body.FindPoint(reference[(dot + 1)..]) is not null;
     }
 }

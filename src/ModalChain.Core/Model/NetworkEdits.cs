@@ -37,12 +37,13 @@ public static class NetworkEdits
     public static Network WithAdded(this Network network, IEnumerable<Mass> masses, IEnumerable<Spring> springs, IEnumerable<Damper> dampers)
     {
         ArgumentNullException.ThrowIfNull(network);
-        var builder = new NetworkBuilder { Title = network.Title };
-        foreach (var m in network.Masses.Concat(masses)) builder.AddMass(m.Name, m.Kilograms, m.Position);
-        foreach (var s in network.Supports.Skip(1)) builder.AddSupport(s.Name, s.Position);
-        if (network.Supports[0].Position is { } ground) builder.PlaceGround(ground);
-        foreach (var s in network.Springs.Concat(springs)) builder.AddSpring(s.Name, s.NodeA, s.NodeB, s.Stiffness);
-        foreach (var d in network.Dampers.Concat(dampers)) builder.AddDamper(d.Name, d.NodeA, d.NodeB, d.Coefficient);
+        var builder = new NetworkBuilder { Title = network.Title, Space = network.Space };
+        foreach (var m in network.Masses.Concat(masses)) builder.AddMass(m);
+        foreach (var s in network.Supports.Skip(1)) builder.AddSupport(s);
+        builder.PlaceGround(network.Supports[0]);
+        foreach (var b in network.Bodies) builder.AddBody(b);
+        foreach (var s in network.Springs.Concat(springs)) builder.AddSpring(s);
+        foreach (var d in network.Dampers.Concat(dampers)) builder.AddDamper(d);
         foreach (var l in network.Links) builder.AddLink(l.Name, [.. l.Masses]);
         var built = builder.Build();
         // Keep the original element records (and anything a later version adds to them) for the old part.
@@ -54,7 +55,7 @@ public static class NetworkEdits
 
     private static Network Copy(Network n, ImmutableArray<Mass>? masses = null, ImmutableArray<Spring>? springs = null,
         ImmutableArray<Damper>? dampers = null) =>
-        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers) { Links = n.Links };
+        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers) { Links = n.Links, Space = n.Space, Bodies = n.Bodies };
 
     private static int IndexOf<T>(ImmutableArray<T> items, Func<T, bool> match, string kind, string name)
     {
