@@ -61,7 +61,8 @@ internal static class CheckCommand
     /// <summary>Evaluates every criterion of <paramref name="document"/>.</summary>
     internal static CheckOutcome Evaluate(ModelDocument document, ModalChain.Core.Solvers.SolverChoice choice = default)
     {
-        return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure, new ModalOptions(Choice: choice)), document.Criteria, OperatingLoads.Of(document), document.Cases);
+        var loads = OperatingLoads.Of(document);
+        return CriteriaCheck.Evaluate(CriteriaCheck.Assemble(document.Structure, document.Criteria, loads, choice), document.Criteria, loads, document.Cases);
     }
 
     private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome, DisplayUnits units)

@@ -34,6 +34,9 @@ internal static class HarmonicCommand
         var method = CommandValues.Choice<HarmonicMethod?>("--method",
             "direct (exact, any damping) or modal (superposition with residual flexibility); default: the file's 'method', else direct.",
             ("direct", HarmonicMethod.Direct), ("modal", HarmonicMethod.Modal));
+        var count = CommandValues.Count("--count",
+            "Modal method: superpose the lowest N modes (overrides the file's 'modes'; default: every mode below twice the " +
+            "highest frequency). Models of more than 300 masses solve only these modes.", 1);
         var casesOption = CommonOptions.NameList("--cases",
             "Sweep these load cases only, e.g. --cases exhaust-fan,supply-fan (names joined by commas, or the option repeated); overrides 'cases' of the file's 'harmonic' section.");
         var solver = CommonOptions.Solver();
@@ -44,7 +47,7 @@ internal static class HarmonicCommand
             "reactions and transmissibility, the peak of each over the sweep, and the response at each load's running speed. " +
             "A model with 'load-cases' is swept case by case and the cases are combined at their running speeds by the stated rule. " +
             "The sweep comes from the file's 'harmonic' section; --from/--to/--points override it.")
-        { file, outputs, from, to, points, method, casesOption, solver, format, units };
+        { file, outputs, from, to, points, method, count, casesOption, solver, format, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -89,6 +92,7 @@ internal static class HarmonicCommand
                 spec = spec with { Outputs = [.. chosen.Distinct()] };
             }
             if (parse.GetValue(method) is { } m) spec = spec with { Method = m };
+            if (parse.GetValue(count) is { } modeCount) spec = spec with { ModeCount = modeCount };
 
             var selection = document.Cases;
             if (CommonOptions.Names(parse.GetValue(casesOption)) is { Length: > 0 } chosenCases)
@@ -99,7 +103,7 @@ internal static class HarmonicCommand
                     return Fail(io, $"--cases names '{name}', which is not a load case of the model; the load cases are: {string.Join(", ", document.LoadCases.Select(c => c.Name))}");
                 selection = new LoadCaseSelection([.. chosenCases.Select(n => document.LoadCases.First(c => c.Name == n))], selection?.Rule ?? CaseCombination.Sum);
             }
-            var system = DampedSystem.Build(model, new ModalOptions(Choice: choice));
+            var system = HarmonicAnalysis.Assemble(model, spec, choice);
             if (selection is { } cases)
             {
                 var byCase = LoadCaseAnalysis.Solve(system, spec, cases);

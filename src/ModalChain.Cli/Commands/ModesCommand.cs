@@ -11,6 +11,9 @@ namespace ModalChain.Cli.Commands;
 /// <summary><c>modalchain modes FILE</c>: natural frequencies, mode shapes and effective masses.</summary>
 internal static class ModesCommand
 {
+    /// <summary>Largest model whose complex modes are computed (a dense state-space eigenproblem of order 2n).</summary>
+    internal const int ComplexModesMaxDofs = 2000;
+
     public static Command Create(Streams io)
     {
         var file = CommonOptions.ModelFile();
@@ -48,7 +51,8 @@ internal static class ModesCommand
             var result = ModalAnalysis.Solve(document.Network, new ModalOptions(parse.GetValue(count), Choice: choice, BelowFrequencyHz: belowHz));
             stages?.Mark("assemble, solve and post-process modes");
             var damped = DampedSystem.Build(document.Structure, result, choice);
-            var complexModes = damped.IsClassical ? [] : ComplexModes.Solve(damped);
+            // The complex modes are a dense eigenproblem of order 2n: only for models that a dense solve suits.
+            var complexModes = damped.IsClassical || damped.Partition.FreeCount > ComplexModesMaxDofs ? [] : ComplexModes.Solve(damped);
             stages?.Mark("damping");
             switch (parse.GetValue(format))
             {

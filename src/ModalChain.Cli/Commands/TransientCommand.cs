@@ -29,6 +29,8 @@ internal static class TransientCommand
             Description = "Record this mass (repeat for several); overrides 'outputs' of the file. Default: every mass.",
             AllowMultipleArgumentsPerToken = true,
         };
+        var count = CommandValues.Count("--count",
+            "Modal method: keep the lowest N modes (overrides the file's 'modes'; default: all, or the lowest 30 above 300 masses).", 1);
         var loadsOption = CommonOptions.NameList("--loads",
             "Run with these timed loads only, e.g. --loads fan-start,door-slam (names joined by commas, or the option repeated); overrides 'loads' of the file's 'transient' section.");
         var solver = CommonOptions.Solver();
@@ -39,7 +41,7 @@ internal static class TransientCommand
             "of each output mass, spring and damper forces and support reactions, with their peaks and RMS and an energy " +
             "balance. The run comes from the file's 'transient' section; the options override it. A progress bar is shown " +
             "on long runs, only on a terminal and only with the table format.")
-        { file, method, step, duration, outputs, loadsOption, solver, format, units };
+        { file, method, step, duration, outputs, count, loadsOption, solver, format, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -66,6 +68,7 @@ internal static class TransientCommand
             if (settings.Duration / settings.Step > TransientSettings.MaxSteps)
                 return Fail(io, string.Create(CultureInfo.InvariantCulture, $"{settings.Duration / settings.Step:G3} steps is more than {TransientSettings.MaxSteps:G2}; lengthen the step or shorten the run"));
             if (parse.GetValue(method) is { } chosen) settings = settings with { Method = chosen };
+            if (parse.GetValue(count) is { } modeCount) settings = settings with { ModeCount = modeCount };
             var chosenOutputs = parse.GetValue(outputs);
             if (chosenOutputs is { Length: > 0 })
             {

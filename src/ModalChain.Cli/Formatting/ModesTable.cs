@@ -45,6 +45,12 @@ internal static class ModesTable
             o.WriteLine(string.Create(Inv,
                 $"Mode {fundamental.Number} stores {100 * fundamental.StrainEnergyShare[i]:F0} % of its strain energy in spring '{n.Springs[i].Name}': stiffening it raises that mode most."));
         }
+        if (damping is { IsClassical: false } && complexModes.IsDefaultOrEmpty && damping.Partition.FreeCount > Commands.ModesCommand.ComplexModesMaxDofs)
+        {
+            o.WriteLine();
+            o.WriteLine(string.Create(Inv,
+                $"The damping is not classical (it couples the modes above, whose damping is then an estimate); complex modes are not computed above {Commands.ModesCommand.ComplexModesMaxDofs} masses."));
+        }
         if (!complexModes.IsDefaultOrEmpty)
         {
             o.WriteLine();

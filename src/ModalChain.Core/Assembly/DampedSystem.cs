@@ -10,7 +10,9 @@ namespace ModalChain.Core.Assembly;
 /// <remarks>
 /// Build one with <see cref="Build(StructuralModel)"/> and reuse it for many sweeps or time histories. Damping is classical when
 /// Φᵀ C Φ is diagonal (<see cref="NonClassicalIndex"/> below <see cref="ClassicalTolerance"/>); then modal
-/// superposition with <see cref="ModalDampingRatios"/> is exact.
+/// superposition with <see cref="ModalDampingRatios"/> is exact. Every matrix over the free DOFs is sparse unless
+/// modal damping ratios fill C (C_m = MΦ diag(2ζω) ΦᵀM is dense and needs every mode); a model with no viscous damping
+/// at all skips the damping stage, and the modal damping, ratios and coupling index cover the modes solved only.
 /// </remarks>
 /// <param name="Model">The model assembled.</param>
 /// <param name="Partition">K, M and discrete-damper matrices split into free and support DOFs.</param>
@@ -38,7 +40,7 @@ public sealed record DampedSystem(
     public bool IsClassical => NonClassicalIndex < ClassicalTolerance;
 
     /// <summary>True when the model has any viscous damping at all.</summary>
-    public bool HasViscousDamping => Damping.FF.Enumerate().Any(v => v != 0);
+    public bool HasViscousDamping => Damping.FF.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0);
 
     /// <summary>Assembles <paramref name="model"/> and solves all its undamped modes.</summary>
     public static DampedSystem Build(StructuralModel model) => Build(model, options: null);
@@ -65,12 +67,23 @@ public sealed record DampedSystem(
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(modes);
         var partition = model.Network.Space == ModelSpace.Line ? SupportPartition.Assemble(model.Network) : SpatialAssembly.Partition(model.Network);
-        if (!model.Damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != partition.FreeCount)
+        var damping = model.Damping;
+        if (damping.ModalRatios.IsDefaultOrEmpty && damping.Rayleigh is null && !partition.HasDampers)
+        {
+            // No viscous damping at all: C is the partition's empty damper blocks and Φᵀ C Φ = 0, so nothing is
+            // multiplied or factorised; each reported mode gets η/2 (the loss factor's share), rigid-body modes NaN.
+            var count = modes.Modes.Length;
+            var none = Matrix<double>.Build.Sparse(count, count);
+            return new DampedSystem(model, partition, modes,
+                new DampingMatrices(partition.DamperFF, partition.DamperFP, partition.DamperPP), none,
+                DampingAssembly.ModalRatios(modes, none, damping.LossFactor), 0);
+        }
+        if (!damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != partition.FreeCount)
             modes = ModalAnalysis.Solve(model.Network, new ModalOptions(Choice: choice));
-        var damping = DampingAssembly.Build(model, partition, modes);
-        var modal = DampingAssembly.ModalCoordinates(modes, damping.FF);
-        return new DampedSystem(model, partition, modes, damping, modal,
-            DampingAssembly.ModalRatios(modes, modal, model.Damping.LossFactor),
+        var matrices = DampingAssembly.Build(model, partition, modes);
+        var modal = DampingAssembly.ModalCoordinates(modes, matrices.FF);
+        return new DampedSystem(model, partition, modes, matrices, modal,
+            DampingAssembly.ModalRatios(modes, modal, damping.LossFactor),
             DampingAssembly.NonClassicalIndex(modal));
     }
 }

@@ -2,6 +2,7 @@ using System.Collections.Immutable;
 using MathNet.Numerics.LinearAlgebra;
 using ModalChain.Core.Dofs;
 using ModalChain.Core.Model;
+using ModalChain.Core.Solvers;
 
 namespace ModalChain.Core.Assembly;
 
@@ -10,7 +11,8 @@ namespace ModalChain.Core.Assembly;
 /// Every support, ground included, is one prescribed DOF p; the equations of motion of the free DOFs f are
 /// M ẍ_f + C_ff ẋ_f + K_ff x_f = F − C_fp u̇_p − K_fp u_p, and the force the supports must supply is
 /// r_p = C_pf ẋ_f + K_pf x_f + C_pp u̇_p + K_pp u_p. Ground has u = 0; a support carrying a base-motion load has its
-/// prescribed motion. Matrices are dense (this partition is meant for models up to a few thousand DOFs).
+/// prescribed motion. Every block is stored sparse (compressed rows), so the partition costs memory in proportion to
+/// the springs and dampers, not to n²: a 100,000-mass grid is partitioned in a few tens of megabytes.
 /// Reusable by every analysis that moves supports (harmonic, time stepping).
 /// </remarks>
 /// <param name="Free">Numbering of the free DOFs (one per mass in a line model; see <see cref="DofMap.For"/>).</param>
@@ -42,6 +44,11 @@ public sealed record SupportPartition(
     /// <summary>Column of <paramref name="support"/> in the prescribed partition, or −1.</summary>
     public int SupportIndex(string support) => Supports.IndexOf(support);
 
+    /// <summary>True when the network has a discrete damper that acts (both ends on different DOFs).</summary>
+    public bool HasDampers => DamperFF.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0)
+        || DamperFP.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0)
+        || DamperPP.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0);
+
     /// <summary>
     /// Column of <paramref name="support"/>'s prescribed translation <paramref name="direction"/> (plane and 3d models,
     /// whose prescribed columns are labelled <c>support.x</c> …), or −1; in a line model the direction must be Along.
@@ -57,50 +64,101 @@ public sealed record SupportPartition(
         if (network.Space != ModelSpace.Line) return SpatialAssembly.Partition(network);
         var free = DofMap.ForScalarNetwork(network);
         var supports = network.Supports.Select(s => s.Name).ToImmutableArray();
+        var supportIndex = new Dictionary<string, int>(supports.Length);
+        for (var s = 0; s < supports.Length; s++) supportIndex.TryAdd(supports[s], s);
         var n = free.Count;
-        var total = n + supports.Length;
+        var p = supports.Length;
+        // A node's place in the whole (free, then prescribed) numbering: free DOFs 0..n−1, supports n..n+p−1.
         int Index(string node)
         {
             var i = free.IndexOf(node);
-            return i >= 0 ? i : n + supports.IndexOf(node);
+            return i >= 0 ? i : n + supportIndex[node];
         }
 
-        var k = Matrix<double>.Build.Dense(total, total);
-        foreach (var s in network.Springs) AddTwoNode(k, Index(s.NodeA), Index(s.NodeB), s.Stiffness);
-        var c = Matrix<double>.Build.Dense(total, total);
-        foreach (var d in network.Dampers) AddTwoNode(c, Index(d.NodeA), Index(d.NodeB), d.Coefficient);
-        var m = Matrix<double>.Build.Dense(n, n);
-        foreach (var mass in network.Masses) m[free.IndexOf(mass.Name), free.IndexOf(mass.Name)] += mass.Kilograms;
+        var k = new Blocks(n);
+        foreach (var s in network.Springs) k.AddTwoNode(Index(s.NodeA), Index(s.NodeB), s.Stiffness);
+        var c = new Blocks(n);
+        foreach (var d in network.Dampers) c.AddTwoNode(Index(d.NodeA), Index(d.NodeB), d.Coefficient);
+        var m = new List<(int, int, double)>(network.Masses.Length);
+        foreach (var mass in network.Masses)
+        {
+            var i = free.IndexOf(mass.Name);
+            m.Add((i, i, mass.Kilograms));
+        }
 
-        var p = supports.Length;
-        return new SupportPartition(free, supports, m,
-            k.SubMatrix(0, n, 0, n), k.SubMatrix(0, n, n, p), k.SubMatrix(n, p, n, p),
-            c.SubMatrix(0, n, 0, n), c.SubMatrix(0, n, n, p), c.SubMatrix(n, p, n, p));
+        return new SupportPartition(free, supports, Assembler.Summed(n, m),
+            Summed(n, n, k.FF), Summed(n, p, k.FP), Summed(p, p, k.PP),
+            Summed(n, n, c.FF), Summed(n, p, c.FP), Summed(p, p, c.PP));
     }
 
     /// <summary>The quasi-static influence matrix T = −K_ff⁻¹ K_fp (free displacement per unit support displacement), or null when K_ff is singular.</summary>
     /// <remarks>
     /// x_s = T u is the displacement the free DOFs take when the supports move slowly (Chopra, Dynamics of Structures,
     /// §9.6 and §13.5 on multi-support excitation). For a single support holding the whole network T is a column of ones.
-    /// Null when part of the network is not held by springs (rigid-body modes).
+    /// Null when part of the network is not held by springs (rigid-body modes). K_ff is factorised sparse (LDLᵀ with the
+    /// approximate minimum degree ordering), so T costs one factor and one solve per support column; T itself is dense
+    /// n × p, small because supports are few.
     /// </remarks>
     public Matrix<double>? QuasiStaticInfluence()
     {
         if (FreeCount == 0) return Matrix<double>.Build.Dense(0, SupportCount);
-        var lu = StiffnessFF.LU();
-        var diagonalScale = Enumerable.Range(0, FreeCount).Max(i => Math.Abs(StiffnessFF[i, i]));
-        var u = lu.U;
-        for (var i = 0; i < FreeCount; i++)
-            if (!(Math.Abs(u[i, i]) > 1e-12 * diagonalScale)) return null;
-        return -lu.Solve(StiffnessFP);
+        var n = FreeCount;
+        var diagonalScale = 0.0;
+        for (var i = 0; i < n; i++) diagonalScale = Math.Max(diagonalScale, Math.Abs(StiffnessFF[i, i]));
+        if (!(diagonalScale > 0)) return null;
+        SparseLdlt factor;
+        try { factor = SparseLdlt.Factor(SymmetricSparseMatrix.From(StiffnessFF)); }
+        catch (NumericalFailureException) { return null; }
+        // K_ff of springs is positive semi-definite: a negative or tiny pivot means a part not held by any spring.
+        if (factor.NegativePivots > 0 || factor.SmallestPivotMagnitude() <= 1e-12 * diagonalScale) return null;
+
+        var t = Matrix<double>.Build.Dense(n, SupportCount);
+        var column = new double[n];
+        for (var s = 0; s < SupportCount; s++)
+        {
+            Array.Clear(column);
+            var any = false;
+            foreach (var (i, v) in StiffnessFP.Column(s).EnumerateIndexed(Zeros.AllowSkip))
+            {
+                column[i] = -v;
+                any |= v != 0;
+            }
+            if (!any) continue;
+            factor.Solve(column, column);
+            for (var i = 0; i < n; i++) t[i, s] = column[i];
+        }
+        return t;
     }
 
-    private static void AddTwoNode(Matrix<double> a, int i, int j, double value)
+    private static Matrix<double> Summed(int rows, int columns, List<(int Row, int Column, double Value)> entries)
     {
-        if (i == j) return; // both ends on one DOF (a link): no force
-        a[i, i] += value;
-        a[j, j] += value;
-        a[i, j] -= value;
-        a[j, i] -= value;
+        var sums = new Dictionary<(int, int), double>(entries.Count);
+        foreach (var (r, c, v) in entries) sums[(r, c)] = sums.GetValueOrDefault((r, c)) + v;
+        return Matrix<double>.Build.SparseOfIndexed(rows, columns, sums.Select(kv => (kv.Key.Item1, kv.Key.Item2, kv.Value)));
+    }
+
+    /// <summary>Coordinate entries of the three blocks of a two-node element matrix over the whole numbering.</summary>
+    private sealed class Blocks(int freeCount)
+    {
+        public List<(int, int, double)> FF { get; } = [];
+        public List<(int, int, double)> FP { get; } = [];
+        public List<(int, int, double)> PP { get; } = [];
+
+        public void AddTwoNode(int i, int j, double value)
+        {
+            if (i == j) return; // both ends on one DOF (a link): no force
+            Add(i, i, value);
+            Add(j, j, value);
+            Add(i, j, -value);
+            Add(j, i, -value);
+        }
+
+        // K_pf = K_fpᵀ is not stored: only free rows with support columns go to FP.
+        private void Add(int row, int column, double value)
+        {
+            if (row < freeCount && column < freeCount) FF.Add((row, column, value));
+            else if (row < freeCount) FP.Add((row, column - freeCount, value));
+            else if (column >= freeCount) PP.Add((row - freeCount, column - freeCount, value));
+        }
     }
 }

@@ -159,6 +159,15 @@ public sealed class SparseLdlt
     /// <summary>Entries of L including its diagonal.</summary>
     public long FactorNonZeros => _pattern.FactorNonZeros;
 
+    /// <summary>The smallest |D_jj|: near zero when the matrix factorised is (near-)singular.</summary>
+    public double SmallestPivotMagnitude()
+    {
+        var smallest = double.PositiveInfinity;
+        var start = _pattern.ColumnStart;
+        for (var j = 0; j < Size; j++) smallest = Math.Min(smallest, Math.Abs(_values[start[j]]));
+        return smallest;
+    }
+
     /// <summary>Factorises <paramref name="matrix"/> with its own ordering.</summary>
     public static SparseLdlt Factor(SymmetricSparseMatrix matrix)
     {

@@ -26,7 +26,13 @@ internal static class JsonNumbers
     public static void Array(this Utf8JsonWriter writer, string name, IEnumerable<double> values)
     {
         writer.WriteStartArray(name);
-        foreach (var v in values) writer.Number(v);
+        foreach (var v in values)
+        {
+            writer.Number(v);
+            // Long arrays (time histories, sweeps) go to the stream as they are written: without this the writer keeps
+            // the whole document in its buffer, several times the recorded data at peak while the buffer doubles.
+            if (writer.BytesPending > 1 << 16) writer.Flush();
+        }
         writer.WriteEndArray();
     }
 

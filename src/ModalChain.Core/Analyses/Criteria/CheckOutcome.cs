@@ -1,7 +1,9 @@
 using System.Collections.Immutable;
+using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
+using ModalChain.Core.Solvers;
 
 namespace ModalChain.Core.Analyses.Criteria;
 
@@ -28,6 +30,31 @@ public sealed record CheckOutcome(SeparationResult? Separation, IReadOnlyList<Li
 /// <summary>Evaluates every criterion of a model: the one place both <c>modalchain check</c> and the report use.</summary>
 public static class CriteriaCheck
 {
+    /// <summary>Above this many DOFs a check solves only the modes below twice the highest frequency it looks at.</summary>
+    public const int LowestModesFromDofs = 300;
+
+    /// <summary>Assembles <paramref name="model"/> with the undamped modes a check of <paramref name="criteria"/> needs.</summary>
+    /// <remarks>
+    /// Every mode up to <see cref="LowestModesFromDofs"/> DOFs. Above, the modes below twice the highest frequency the
+    /// check looks at: the upper band edges (1 + m)·f_e of the separation criterion and the running speeds of the
+    /// operating loads (at least one mode). A mode above that is more than 50 % clear of every band, so it can govern
+    /// only when every mode solved is clearer still; the limits are direct solves at the operating points and need no
+    /// mode. With a sparse model the modes come from the sparse solver, so no dense n×n matrix is formed.
+    /// </remarks>
+    public static DampedSystem Assemble(StructuralModel model, CriteriaSet criteria, IReadOnlyList<Load> operatingLoads,
+        SolverChoice choice = SolverChoice.Auto)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(criteria);
+        ArgumentNullException.ThrowIfNull(operatingLoads);
+        if (model.Network.Masses.Length <= LowestModesFromDofs) return DampedSystem.Build(model, new ModalOptions(Choice: choice));
+        var bands = criteria.Separation is { } s ? s.Excitations().Select(e => (1 + s.Margin) * e.FrequencyHz) : [];
+        var top = bands.Concat(operatingLoads.Select(l => l.SpeedHz ?? 0)).DefaultIfEmpty(0).Max();
+        var modes = top > 0 ? ModalAnalysis.Solve(model.Network, new ModalOptions(Choice: choice, BelowFrequencyHz: 2 * top)) : null;
+        if (modes is null || modes.Modes.IsEmpty) modes = ModalAnalysis.Solve(model.Network, new ModalOptions(1, Choice: choice));
+        return DampedSystem.Build(model, modes, choice);
+    }
+
     /// <summary>Separation against the undamped natural frequencies; vibration limits, machine zones and floor curves at the operating points.</summary>
     /// <param name="system">The assembled model; its modes give the natural frequencies.</param>
     /// <param name="criteria">The criteria the model states.</param>

@@ -1,8 +1,10 @@
 using System.Collections.Immutable;
 using System.Globalization;
 using System.Numerics;
+using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
+using ModalChain.Core.Solvers;
 
 namespace ModalChain.Core.Analyses.Harmonic;
 
@@ -17,7 +19,47 @@ namespace ModalChain.Core.Analyses.Harmonic;
 public static class HarmonicAnalysis
 {
     /// <summary>Assembles <paramref name="model"/> and runs the sweep of <paramref name="spec"/>, with operating points.</summary>
-    public static HarmonicResult Solve(StructuralModel model, HarmonicSpec spec) => Solve(DampedSystem.Build(model), spec);
+    public static HarmonicResult Solve(StructuralModel model, HarmonicSpec spec) => Solve(Assemble(model, spec), spec);
+
+    /// <summary>Above this many DOFs a modal sweep solves only the modes it superposes, not every mode.</summary>
+    public const int LowestModesFromDofs = TruncationCheckMaxDofs;
+
+    /// <summary>Assembles <paramref name="model"/> with the undamped modes the sweep of <paramref name="spec"/> needs.</summary>
+    /// <remarks>
+    /// Every mode for models of up to <see cref="LowestModesFromDofs"/> DOFs (so their results do not depend on this
+    /// choice). A modal sweep of a larger model solves only the modes it superposes: the spec's
+    /// <see cref="HarmonicSpec.ModeCount"/> lowest, or else every mode below twice the highest frequency it is asked
+    /// for (the sweep's and the running speeds of the model's loads), at least one. A direct sweep of a larger model
+    /// solves the modes below twice the highest frequency too: it uses them only to refine the grid around natural
+    /// frequencies and to warn of undamped resonances. With a sparse model the lowest modes come from the sparse solver,
+    /// so neither method forms a dense n×n matrix. Modal damping ratios in the model still need every mode (they define
+    /// C from all of them).
+    /// </remarks>
+    public static DampedSystem Assemble(StructuralModel model, HarmonicSpec spec, SolverChoice choice = SolverChoice.Auto)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(spec);
+        var size = model.Network.Masses.Length;
+        if (size <= LowestModesFromDofs) return DampedSystem.Build(model, new ModalOptions(Choice: choice));
+        var count = spec.Method == HarmonicMethod.Modal ? spec.ModeCount : null;
+        double? below = count is null ? 2 * HighestFrequencyHz(model, spec) : null;
+        var modes = ModalAnalysis.Solve(model.Network, new ModalOptions(count, Choice: choice, BelowFrequencyHz: below));
+        if (modes.Modes.IsEmpty) modes = ModalAnalysis.Solve(model.Network, new ModalOptions(1, Choice: choice));
+        return DampedSystem.Build(model, modes, choice);
+    }
+
+    /// <summary>The highest frequency in Hz a sweep of <paramref name="spec"/> computes: its own and its loads' running speeds.</summary>
+    private static double HighestFrequencyHz(StructuralModel model, HarmonicSpec spec)
+    {
+        var sweep = spec.Frequencies switch
+        {
+            FrequencyRange r => Math.Max(r.FromHz, r.ToHz),
+            FrequencyList l when !l.FrequenciesHz.IsDefaultOrEmpty => l.FrequenciesHz.Max(),
+            _ => 0.0,
+        };
+        var speeds = ResolveLoads(model, spec.Loads).Select(l => l.SpeedHz ?? 0).DefaultIfEmpty(0).Max();
+        return Math.Max(sweep, speeds);
+    }
 
     /// <summary>Runs the sweep of <paramref name="spec"/> on an assembled system, with operating points at the loads' speeds.</summary>
     public static HarmonicResult Solve(DampedSystem system, HarmonicSpec spec)
@@ -128,12 +170,16 @@ public static class HarmonicAnalysis
         if (method == HarmonicMethod.Modal)
         {
             var fmax = frequenciesHz.Count > 0 ? frequenciesHz.Max() : 0;
-            used = modeCount is { } c ? Math.Clamp(c, 1, n)
-                : Math.Max(1, system.Modes.Modes.Count(m => m.NaturalFrequencyHz <= 2 * fmax));
+            var solved = system.Modes.Modes.Length;
+            used = Math.Min(solved, modeCount is { } c ? Math.Clamp(c, 1, n)
+                : Math.Max(1, system.Modes.Modes.Count(m => m.NaturalFrequencyHz <= 2 * fmax)));
             var rigid = system.Modes.RigidBodyModeCount > 0;
             engine = new ModalEngine(system, loading, [.. observations], used, residualFlexibility: !rigid);
             notes.Add(string.Create(CultureInfo.InvariantCulture, $"modal superposition of {used} of {n} modes") +
                 (used < n ? (rigid ? "; residual flexibility left out (the network has rigid-body modes)" : ", residual flexibility for the rest") : ""));
+            if (solved < n)
+                notes.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"only the lowest {solved} of {n} modes were solved (up to {system.Modes.Modes[^1].NaturalFrequencyHz:G4} Hz{(modeCount is null ? "; every mode below twice the highest frequency" : "")})"));
             if (!system.IsClassical)
                 notes.Add(string.Create(CultureInfo.InvariantCulture,
                     $"damping is not classical (coupling index {system.NonClassicalIndex:G3}): the kept modal equations are solved coupled"));
@@ -141,8 +187,10 @@ public static class HarmonicAnalysis
         else
         {
             used = 0;
-            engine = new DirectEngine(system, loading, [.. observations]);
-            notes.Add("direct solve (Hessenberg form of the state matrix, exact for any damping)");
+            engine = DirectEngines.Create(system, loading, [.. observations]);
+            notes.Add(engine is SparseDirectEngine
+                ? "direct solve (sparse complex LDLᵀ of the dynamic stiffness at each frequency on one ordering, exact for any damping)"
+                : "direct solve (Hessenberg form of the state matrix, exact for any damping)");
         }
         if (system.Model.Damping.IsNone && !system.HasViscousDamping)
             notes.Add("the model has no damping: responses at natural frequencies are unbounded");
@@ -408,7 +456,7 @@ public static class HarmonicAnalysis
     /// Sweeps <paramref name="points"/> points (refined around the natural frequencies in the band) by the direct
     /// method at that single DOF, then narrows the bracket of every local maximum by golden-section search
     /// (Kiefer 1953) to a relative width of 1e-7 and returns the largest. When the largest sample is an end of the band
-    /// the result is flagged (<see cref="ResponsePeak.RisingAt"/>, with the end value in <see cref="ResponsePeak.EdgeMagnitude"/>). Cost: one Hessenberg reduction of the 2n state matrix plus O(n²) per point.
+    /// the result is flagged (<see cref="ResponsePeak.RisingAt"/>, with the end value in <see cref="ResponsePeak.EdgeMagnitude"/>). Cost: one Hessenberg reduction of the 2n state matrix plus O(n²) per point; above 300 DOFs with sparse C, one sparse complex LDLᵀ per point on one ordering.
     /// </remarks>
     /// <param name="system">The assembled model.</param>
     /// <param name="loads">Loads acting together.</param>
@@ -443,7 +491,7 @@ public static class HarmonicAnalysis
         var loading = HarmonicLoading.Compile(system, loads);
         var unitRow = new double[system.Partition.FreeCount];
         unitRow[index] = 1;
-        var engine = new DirectEngine(system, loading, [unitRow]);
+        var engine = DirectEngines.Create(system, loading, [unitRow]);
         var ws = engine.CreateWorkspace();
         var coefficients = new Complex[loading.Terms.Count];
         var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Runtime.InteropServices;
 using ModalChain.Core.Model;
 using ModalChain.Core.Solvers;
 
@@ -70,8 +71,9 @@ internal sealed class ResponseRecorder : IStepSink
     private readonly int _stepCount;
     private readonly IProgress<double>? _progress;
     private readonly int _progressEvery;
-    private readonly List<double> _times;
-    private readonly List<double>[] _values;
+    private readonly double[] _times;
+    private readonly double[][] _values;
+    private int _recorded;
     private readonly double[] _peakValue;
     private readonly double[] _peakTime;
     private readonly double[] _sumSquares;
@@ -99,9 +101,11 @@ internal sealed class ResponseRecorder : IStepSink
         _rmsTo = rmsTo;
         _progress = progress;
         _progressEvery = Math.Max(1, stepCount / 200);
+        // Exactly the samples that will be recorded, allocated once and handed to the result without a copy, so the
+        // recorder's memory is the recorded histories themselves (probes × samples), whatever the number of DOFs.
         var records = stepCount / recordEvery + 1;
-        _times = new List<double>(records);
-        _values = [.. _probes.Select(_ => new List<double>(records))];
+        _times = new double[records];
+        _values = [.. _probes.Select(_ => new double[records])];
         _peakValue = new double[_probes.Length];
         _peakTime = new double[_probes.Length];
         _sumSquares = new double[_probes.Length];
@@ -115,11 +119,11 @@ internal sealed class ResponseRecorder : IStepSink
     {
         var record = step % _recordEvery == 0;
         var inWindow = time >= _rmsFrom - 1e-12 * _step && time <= _rmsTo + 1e-9 * _step;
-        if (record) _times.Add(time);
+        if (record) _times[_recorded] = time;
         for (var p = 0; p < _probes.Length; p++)
         {
             var value = _probes[p].Evaluate(time, displacement, velocity, acceleration);
-            if (record) _values[p].Add(value);
+            if (record) _values[p][_recorded] = value;
             if (Math.Abs(value) > Math.Abs(_peakValue[p]) || step == 0)
             {
                 _peakValue[p] = value;
@@ -128,6 +132,7 @@ internal sealed class ResponseRecorder : IStepSink
             if (inWindow) _sumSquares[p] += value * value;
         }
         if (inWindow) _rmsSamples++;
+        if (record) _recorded++;
 
         AccountEnergy(step, displacement, velocity, force);
         displacement.CopyTo(_uOld);
@@ -161,14 +166,19 @@ internal sealed class ResponseRecorder : IStepSink
         _maxResidual = Math.Max(_maxResidual, Math.Abs(residual));
     }
 
-    public ImmutableArray<double> Times => [.. _times];
+    /// <summary>The recorded times in s; the recorder's own array when the run is complete (no copy).</summary>
+    public ImmutableArray<double> Times => Recorded(_times);
 
+    /// <summary>The recorded histories with peaks and RMS; each wraps the recorder's array when the run is complete (no copy).</summary>
     public ImmutableArray<ResponseHistory> Histories() =>
     [
         .. _probes.Select((p, i) => new ResponseHistory(
-            p.Name, p.Quantity, p.Unit, [.. _values[i]], new Peak(_peakValue[i], _peakTime[i]),
+            p.Name, p.Quantity, p.Unit, Recorded(_values[i]), new Peak(_peakValue[i], _peakTime[i]),
             _rmsSamples > 0 ? Math.Sqrt(_sumSquares[i] / _rmsSamples) : double.NaN) { Direction = p.Direction }),
     ];
+
+    private ImmutableArray<double> Recorded(double[] values) =>
+        _recorded == values.Length ? ImmutableCollectionsMarshal.AsImmutableArray(values) : [.. values.AsSpan(0, _recorded)];
 
     /// <summary>Number of steps that fell inside the RMS window; 0 leaves every RMS not available (NaN).</summary>
     public int RmsSamples => _rmsSamples;

@@ -157,6 +157,8 @@ public static class TransientAnalysis
             case TransientMethod.Modal:
             {
                 var count = Math.Min(settings.ModeCount ?? modes.Modes.Length, modes.Modes.Length);
+                if (settings.ModeCount is null && count < n)
+                    warnings.Add(Invariant($"The modal method kept the lowest {count} of {n} modes, chosen automatically for a model of more than {LargeModel} masses (up to {modes.Modes[count - 1].NaturalFrequencyHz:G4} Hz): give 'modes' under 'transient' or --count for more."));
                 consideredModes = modes.Modes[..count];
                 var shapes = Matrix<double>.Build.Dense(n, count, (i, j) => consideredModes[j].Shape[i]);
                 var omega = consideredModes.Select(m => m.AngularFrequency).ToArray();
@@ -191,16 +193,19 @@ public static class TransientAnalysis
 
     /// <summary>How many of the lowest modes a run of <paramref name="settings"/> on <paramref name="size"/> DOFs uses; null for all.</summary>
     /// <remarks>
-    /// All modes for small models and for the modal method without a mode count; otherwise the modes the modal method
-    /// keeps, or the lowest 30 for the time-step and duration checks. A caller that builds a <see cref="DampedSystem"/>
+    /// All modes for models of up to 300 DOFs; above, the modes the modal method keeps (its count, or the lowest 30
+    /// when none is given: an automatic choice the result states) or the lowest 30 for the time-step and duration checks. A caller that builds a <see cref="DampedSystem"/>
     /// for the run solves only these.
     /// </remarks>
     public static int? ModesNeeded(int size, TransientSettings settings)
     {
         ArgumentNullException.ThrowIfNull(settings);
-        if (size <= LargeModel || (settings.Method == TransientMethod.Modal && settings.ModeCount is null)) return null;
-        return Math.Min(size, settings.Method == TransientMethod.Modal ? settings.ModeCount!.Value : ModesForChecks);
+        if (size <= LargeModel) return null;
+        return Math.Min(size, settings.Method == TransientMethod.Modal && settings.ModeCount is { } count ? count : AutomaticModeCount);
     }
+
+    /// <summary>Modes kept by the modal method on a model of more than 300 DOFs when no count is given (also the modes of the step checks).</summary>
+    public const int AutomaticModeCount = ModesForChecks;
 
     /// <summary>All modes for small models; for large ones only the lowest (those the modal method keeps, or 30 for the step checks), by shift-invert Lanczos (Sturm-checked).</summary>
     private static ModalResult Modes(Network network, StructuralMatrices matrices, TransientSettings settings) =>

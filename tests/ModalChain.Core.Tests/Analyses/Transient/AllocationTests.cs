@@ -53,4 +53,28 @@ public class AllocationTests
         var bound = 6L * extraSteps;
         Assert.True(longRun - shortRun < bound, $"{method}: {extraSteps:N0} extra steps allocated {longRun - shortRun} bytes (bound {bound:N0})");
     }
+
+    [Theory]
+    [InlineData(TransientMethod.Newmark)]
+    [InlineData(TransientMethod.Modal)]
+    public void AWholeRun_AllocatesTheRecordedHistoriesOnceAndNotPerDof(TransientMethod method)
+    {
+        // Peak memory follows what is recorded: the extra steps of a longer run on 320 DOFs cost the extra recorded
+        // samples once (8 bytes per probe and sample), with no copy of the histories and nothing per DOF and step.
+        // Bound: 1.25 × 8 bytes per extra recorded value plus the runtime's one-off 100 kB (see above).
+        var network = ModalChain.Core.Tests.Analyses.Harmonic.HarmonicModels.Random(5, 320, dampers: false);
+        var model = new StructuralModel(network, new DampingModel([], RayleighDamping.FromTargets(0.02, 1, 10), 0), []);
+        var system = ModalChain.Core.Assembly.DampedSystem.Build(model, new ModalChain.Core.Analyses.Modal.ModalOptions(Count: 30));
+        var load = new ForceHistory("tap", "m7", 1, new HalfSinePulse(50, 0.05));
+        TransientResult Run(double duration) => TransientAnalysis.Run(system, [load], [],
+            new TransientSettings(duration, 1e-3, method) { Outputs = ["m7", "m300"] });
+        var shortRun = Run(0.5);
+        const int extraSteps = 5_000;
+        var samples = (long)shortRun.Responses.Length + 1;   // every history and the times
+        var shortBytes = Allocated(() => Run(0.5));
+        var longBytes = Allocated(() => Run(0.5 + extraSteps * 1e-3));
+        var bound = (long)(1.25 * 8 * samples * extraSteps) + 100_000;
+        Assert.True(longBytes - shortBytes < bound,
+            $"{method}: {extraSteps:N0} extra steps of {samples} recorded values allocated {longBytes - shortBytes:N0} bytes (bound {bound:N0})");
+    }
 }
