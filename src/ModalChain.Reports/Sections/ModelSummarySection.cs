@@ -17,8 +17,13 @@ public sealed class ModelSummarySection : IReportSection
     {
         _context = context;
         var network = context.Document.Network;
-        var layout = context.Layout;
         var units = context.Units;
+        if (context.Geometry is { } geometry)
+        {
+            _drawing = SpatialDrawing(network, geometry, units);
+            return;
+        }
+        var layout = context.Layout;
         var header = new[]
         {
             "Network: " + network.Title,
@@ -29,6 +34,25 @@ public sealed class ModelSummarySection : IReportSection
         var scene = NetworkFigure.Network(layout, header, footer, units, network.Masses.ToDictionary(m => m.Name, m => m.Kilograms));
         _drawing = new SchematicFigure("network", "The network as modelled: masses (blocks), springs (zigzags), dampers (dashpots) and supports (hatched). "
             + PositionNote(layout), "network", scene, animated: false);
+    }
+
+    private static SchematicFigure SpatialDrawing(Network network, SpatialGeometry geometry, Units.DisplayUnits units)
+    {
+        var header = new[]
+        {
+            "Network: " + network.Title,
+            string.Create(CultureInfo.InvariantCulture,
+                $"{Count(network.Bodies.Length, "body", "bodies")}, {Count(network.Masses.Length, "mass", "masses")}, {Count(network.Springs.Length, "spring", "springs")}, {Count(network.Dampers.Length, "damper", "dampers")}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
+        };
+        var boxes = ModesSection.BoxNote(geometry);
+        var placed = geometry.Elements.Any(e => e.A.Placed || e.B.Placed)
+            ? " Mounts to a support without a location are drawn down to an anchor below their other end."
+            : "";
+        var note = "Locations from the model, to scale." + (boxes.Length > 0 ? " " + boxes : "") + placed;
+        var scene = SpatialFigure.Network(geometry, header, [note], units);
+        var views = geometry.Space == ModelSpace.ThreeD ? "in a side view (x–z) and a plan view (x–y)" : "in a side view (x–z)";
+        return new SchematicFigure("network", $"The model as built, {views}: bodies (boxes, centre of mass marked), point masses (squares), springs (zigzags), dampers (dashpots) between their attachment points, and supports (hatched). " + note,
+            "network", scene, animated: false);
     }
 
     /// <summary>The factory registered in <see cref="ReportSections.Default"/>; every model has this section.</summary>
@@ -106,6 +130,14 @@ public sealed class ModelSummarySection : IReportSection
                 json.WriteNumberValue(p.Y);
                 json.WriteEndArray();
             }
+            else if (m.Location is { } l)
+            {
+                json.WriteStartArray("at_m");
+                json.WriteNumberValue(l.X);
+                json.WriteNumberValue(l.Y);
+                json.WriteNumberValue(l.Z);
+                json.WriteEndArray();
+            }
             else json.WriteNull("at_m");
             json.WriteEndObject();
         }
@@ -116,6 +148,25 @@ public sealed class ModelSummarySection : IReportSection
         foreach (var s in network.Supports) json.WriteStringValue(s.Name);
         json.WriteEndArray();
         json.WriteStartObject("drawing");
+        if (_context.Geometry is { } geometry)
+        {
+            // Plane and 3d models are drawn from their locations: [x, y, z] of each mass and body centre of mass.
+            json.WriteBoolean("automatic_layout", false);
+            json.WriteString("axis", geometry.Space == ModelSpace.ThreeD ? "side and plan views" : "side view");
+            json.WriteStartObject("positions_m");
+            foreach (var n in geometry.Nodes.Where(n => n.Kind != SpatialNodeKind.Support))
+            {
+                json.WriteStartArray(n.Name);
+                json.WriteNumberValue(n.Location.X);
+                json.WriteNumberValue(n.Location.Y);
+                json.WriteNumberValue(n.Location.Z);
+                json.WriteEndArray();
+            }
+            json.WriteEndObject();
+            json.WriteEndObject();
+            json.WriteEndObject();
+            return;
+        }
         json.WriteBoolean("automatic_layout", _context.Layout.Automatic);
         json.WriteString("axis", _context.Layout.Axis == ChainAxis.Vertical ? "vertical" : "horizontal");
         json.WriteStartObject("positions_m");
