@@ -1,4 +1,3 @@
-using ModalChain.Core.Assembly;
 using System.CommandLine;
 using System.Globalization;
 using ModalChain.Cli.Formatting;
@@ -6,8 +5,10 @@ using ModalChain.Core;
 using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
 using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Commands;
 
@@ -58,7 +59,7 @@ internal static class CheckCommand
 
     private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome)
     {
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine();
         if (outcome.Separation is { } sep)
         {

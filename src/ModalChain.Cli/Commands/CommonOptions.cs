@@ -2,6 +2,7 @@ using System.CommandLine;
 using ModalChain.Core.Solvers;
 using ModalChain.Io.Diagnostics;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Commands;
 
@@ -64,7 +65,7 @@ internal static class CommonOptions
     public static ModelDocument? Load(string file, Streams io)
     {
         var result = ModelReader.ReadFile(file);
-        foreach (var d in result.Diagnostics) io.Error.WriteLine(d.ToString());
+        foreach (var d in result.Diagnostics) io.Error.WriteLine(TerminalText.Line(d.ToString()));
         if (result.Model is null)
         {
             var count = result.Errors.Count();

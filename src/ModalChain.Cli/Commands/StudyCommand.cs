@@ -11,6 +11,7 @@ using ModalChain.Core.Units;
 using ModalChain.Io.Csv;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Commands;
 
@@ -123,7 +124,7 @@ internal static class StudyCommand
     private static void WriteTable(TextWriter o, ModelDocument document, StudyResult result, CommandValue unit)
     {
         var req = result.Request;
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine($"Study of {req.Parameter.Text} from {unit.Show(req.From)} to {unit.Show(req.To)}, {req.Steps} values ({req.Spacing.ToString().ToLowerInvariant()})");
         o.WriteLine("Modes are followed by shape (modal assurance criterion); 'mode k' is the mode numbered k at the first value.");
         o.WriteLine();
@@ -216,7 +217,7 @@ internal static class StudyCommand
             return ExitCodes.Success;
         }
         var o = io.Output;
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine($"Speed-frequency chart from {a.Show(a.Si)} to {b.Show(b.Si)}: orders {string.Join(", ", chart.Orders.Select(h => h.ToString("G4", Inv) + "x"))}");
         o.WriteLine("Natural frequencies of this structure do not depend on the machine's speed; an order line h x speed meets mode n at speed = f_n / h.");
         o.WriteLine();

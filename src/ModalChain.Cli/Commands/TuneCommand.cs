@@ -8,6 +8,7 @@ using ModalChain.Core.Units;
 using ModalChain.Io.Files;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Commands;
 
@@ -146,7 +147,7 @@ internal static class TuneCommand
     private static void WriteTable(TextWriter o, ModelDocument document, TunedAbsorber tuned, AbsorberRequest request)
     {
         var (d, a, improvement) = (tuned.Design, tuned.Assessment, tuned.Improvement);
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine();
         var targetText = d.Target switch
         {

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using System.Globalization;
 using ModalChain.Core.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Commands;
 
@@ -23,7 +24,7 @@ internal static class ValidateCommand
             var inv = CultureInfo.InvariantCulture;
             var o = io.Output;
             o.WriteLine($"{path}: valid");
-            o.WriteLine($"  title:               {n.Title}");
+            o.WriteLine($"  title:               {TerminalText.Line(n.Title)}");
             o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.ForScalarNetwork(n).Count} (one direction per mass{(n.Links.IsEmpty ? "" : "; linked masses share one")})"));
             o.WriteLine(string.Create(inv, $"  total mass:          {n.TotalMass:G6} kg"));
             o.WriteLine(string.Create(inv, $"  springs, dampers:    {n.Springs.Length}, {n.Dampers.Length}"));

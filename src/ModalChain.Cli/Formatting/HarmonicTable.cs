@@ -5,6 +5,7 @@ using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Formatting;
 
@@ -16,7 +17,7 @@ internal static class HarmonicTable
     public static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result)
     {
         var f = result.FrequenciesHz;
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine(string.Create(Inv,
             $"Harmonic response, {(result.Method == HarmonicMethod.Modal ? "modal superposition" : "direct solve")}, {f.Length} frequencies from {f.Min():G4} to {f.Max():G4} Hz"));
         o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!))));

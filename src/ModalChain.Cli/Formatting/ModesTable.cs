@@ -1,9 +1,10 @@
+using System.Collections.Immutable;
 using System.Globalization;
 using ModalChain.Core;
-using System.Collections.Immutable;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Formatting;
 
@@ -15,7 +16,7 @@ internal static class ModesTable
     public static void Write(TextWriter o, ModalResult result, DampedSystem? damping = null, ImmutableArray<ComplexMode> complexModes = default)
     {
         var n = result.Network;
-        o.WriteLine(n.Title);
+        o.WriteLine(TerminalText.Line(n.Title));
         o.WriteLine(string.Create(Inv, $"{result.Matrices.Size} degrees of freedom, total mass {result.TotalMass:G6} kg, {result.Modes.Length} mode{(result.Modes.Length == 1 ? "" : "s")}"));
         o.WriteLine();
         var table = new TextTable("mode", "frequency [Hz]", "omega [rad/s]", "period [s]", "damping [%]", "eff. mass [%]", "cumulative [%]", "most strained spring", "where it moves (kinetic energy share)");

@@ -4,6 +4,7 @@ using ModalChain.Core.Analyses.Transient;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 using ModalChain.Io.Model;
+using ModalChain.Io.Text;
 
 namespace ModalChain.Cli.Formatting;
 
@@ -15,7 +16,7 @@ internal static class TransientTable
     public static void Write(TextWriter o, ModelDocument document, DampedSystem system, TransientResult result, IReadOnlyList<TransientExcitation> loads)
     {
         var s = result.Settings;
-        o.WriteLine(document.Network.Title);
+        o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine(string.Create(Inv, $"Transient response, {result.MethodDescription}: {result.StepCount} steps of {s.Step:G4} s over {result.StepCount * s.Step:G6} s"));
         o.WriteLine("Loads acting together: " + (loads.Count == 0 ? "none (free vibration from the initial state)" : string.Join("; ", loads.Select(Describe))));
         o.WriteLine("Damping: " + DescribeDamping(system));

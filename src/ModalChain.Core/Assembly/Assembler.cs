@@ -8,18 +8,40 @@ namespace ModalChain.Core.Assembly;
 /// <remarks>
 /// A two-node element of value k between DOFs a and b adds k to K[a,a] and K[b,b] and −k to K[a,b] and K[b,a];
 /// an end on a support drops its row and column (the support is fixed). Dampers build C the same way. Masses tied by
-/// a link share one DOF, so their masses add and an element between two of them adds nothing.
+/// a link share one DOF, so their masses add and an element between two of them adds nothing. Plane and 3d models
+/// (several directions per node, rigid bodies, directional and axial elements) go through the attachment maps of
+/// <see cref="SpatialAssembly"/>: each element end's motion is a linear map T of the DOFs and an element adds Tᵀ k T.
 /// </remarks>
 public static class Assembler
 {
-    /// <summary>Assembles the matrices of <paramref name="network"/> with one DOF per mass.</summary>
-    public static StructuralMatrices Assemble(Network network) => Assemble(network, DofMap.ForScalarNetwork(network));
+    /// <summary>Assembles the matrices of <paramref name="network"/> over <see cref="DofMap.For"/> (one DOF per mass in a line model).</summary>
+    public static StructuralMatrices Assemble(Network network)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        return Assemble(network, DofMap.For(network));
+    }
+
+    /// <summary>
+    /// Assembles a plane or 3d <paramref name="network"/> with the rotational influence vectors about
+    /// <paramref name="referencePoint"/> (m; the model's centre of mass when null). A line model ignores the point.
+    /// </summary>
+    /// <exception cref="ArgumentException">
+    /// Bad spatial input the reader should have caught: a rotational component at a point-mass end, a zero-length
+    /// axial element, an inertia matrix that is not positive definite, a mass without a location, links.
+    /// </exception>
+    public static StructuralMatrices Assemble(Network network, Point3? referencePoint)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        var dofs = DofMap.For(network);
+        return network.Space == ModelSpace.Line ? Assemble(network, dofs) : SpatialAssembly.Assemble(network, dofs, referencePoint);
+    }
 
     /// <summary>Assembles the matrices of <paramref name="network"/> over the DOFs of <paramref name="dofs"/>.</summary>
     public static StructuralMatrices Assemble(Network network, DofMap dofs)
     {
         ArgumentNullException.ThrowIfNull(network);
         ArgumentNullException.ThrowIfNull(dofs);
+        if (network.Space != ModelSpace.Line) return SpatialAssembly.Assemble(network, dofs, referencePoint: null);
         var n = dofs.Count;
 
         var mass = new List<(int, int, double)>(n);

@@ -27,12 +27,25 @@ public enum Direction
 }
 
 /// <summary>One degree of freedom: a node moving in a direction.</summary>
-/// <param name="Node">Name of the mass.</param>
+/// <param name="Node">Name of the mass or rigid body.</param>
 /// <param name="Direction">Direction of motion.</param>
+/// <remarks>Two DOFs are equal when node and direction are; the label is presentation only.</remarks>
 public readonly record struct Dof(string Node, Direction Direction)
 {
+    /// <summary>
+    /// The label outputs print: the node's name where it has one DOF, <c>name.z</c>, <c>name.rx</c> where it has
+    /// more (set by <see cref="DofMap"/>); null for a DOF made outside a map.
+    /// </summary>
+    public string? Label { get; init; }
+
     /// <inheritdoc />
-    public override string ToString() => Direction == Direction.Along ? Node : $"{Node}.{Model.Directions.Label(Direction)}";
+    public bool Equals(Dof other) => string.Equals(Node, other.Node, StringComparison.Ordinal) && Direction == other.Direction;
+
+    /// <inheritdoc />
+    public override int GetHashCode() => HashCode.Combine(Node, Direction);
+
+    /// <inheritdoc />
+    public override string ToString() => Label ?? (Direction == Direction.Along ? Node : $"{Node}.{Model.Directions.Label(Direction)}");
 }
 
 /// <summary>Numbers the free degrees of freedom of a network; supports are not numbered (they are fixed or prescribed).</summary>
@@ -40,6 +53,9 @@ public readonly record struct Dof(string Node, Direction Direction)
 /// Assembly and analyses address matrix rows only through this map, so adding directions per node
 /// changes the map, not the assembly loops. Masses tied by a <see cref="Link"/> map to one shared index; that DOF's
 /// label joins their names with '+', and <see cref="IndexOf"/> answers for each of them.
+/// Plane and 3d models (<see cref="For"/>): the masses in declaration order, each with its translations in the order
+/// x, y, z; then the rigid bodies in declaration order, each with every direction of the space
+/// (<see cref="Directions.All"/>) at its centre of mass.
 /// </remarks>
 public sealed class DofMap
 {
@@ -58,6 +74,46 @@ public sealed class DofMap
 
     /// <summary>Number of free degrees of freedom.</summary>
     public int Count => Dofs.Length;
+
+    /// <summary>The space the numbered network moves in.</summary>
+    public ModelSpace Space { get; private init; } = ModelSpace.Line;
+
+    /// <summary>The label of DOF <paramref name="index"/> as outputs print it (<c>deck</c>, <c>skid.rz</c>).</summary>
+    public string Label(int index) => Dofs[index].ToString();
+
+    /// <summary>
+    /// The DOF map of <paramref name="network"/>: <see cref="ForScalarNetwork"/> for a line model; for plane and 3d
+    /// models each mass's translations (x, y, z order) in declaration order, then every body's directions.
+    /// </summary>
+    /// <exception cref="ArgumentException">A plane or 3d model has links, or a mass moves in a direction its space lacks.</exception>
+    public static DofMap For(Network network)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        if (network.Space == ModelSpace.Line) return ForScalarNetwork(network);
+        if (!network.Links.IsDefaultOrEmpty)
+            throw new ArgumentException($"Links are not supported in {SpaceName(network.Space)} models (use a rigid body); found '{network.Links[0].Name}'.", nameof(network));
+        var translations = Model.Directions.Translations(network.Space);
+        var dofs = ImmutableArray.CreateBuilder<Dof>();
+        var nodes = ImmutableArray.CreateBuilder<ImmutableArray<string>>();
+        void Add(string node, IReadOnlyList<Direction> directions)
+        {
+            foreach (var d in directions)
+            {
+                dofs.Add(new Dof(node, d) { Label = directions.Count == 1 ? node : $"{node}.{Model.Directions.Label(d)}" });
+                nodes.Add([node]);
+            }
+        }
+        foreach (var mass in network.Masses)
+        {
+            if (!mass.Moves.IsDefaultOrEmpty)
+                foreach (var d in mass.Moves)
+                    if (!translations.Contains(d))
+                        throw new ArgumentException($"Mass '{mass.Name}' moves in '{d}', which is not a translation of a {SpaceName(network.Space)} model.", nameof(network));
+            Add(mass.Name, mass.Moves.IsDefaultOrEmpty ? translations : [.. translations.Where(mass.Moves.Contains)]);
+        }
+        foreach (var body in network.Bodies) Add(body.Name, Model.Directions.All(network.Space));
+        return new DofMap(dofs.ToImmutable(), nodes.ToImmutable()) { Space = network.Space };
+    }
 
     /// <summary>
     /// One degree of freedom per mass in the network's direction, in the order the masses were declared; masses tied
@@ -90,9 +146,15 @@ public sealed class DofMap
     /// <summary>The nodes (masses) that move with degree of freedom <paramref name="index"/>: one, or all the masses of a link.</summary>
     public ImmutableArray<string> NodesAt(int index) => _nodes[index];
 
-    /// <summary>The matrix index of <paramref name="node"/> in <paramref name="direction"/>, or −1 when the node is a support.</summary>
+    /// <summary>
+    /// The matrix index of <paramref name="node"/> in <paramref name="direction"/>, or −1 when the node is a support,
+    /// is not in the network or does not move in that direction (in plane and 3d models a node never moves
+    /// <see cref="Direction.Along"/>).
+    /// </summary>
     public int IndexOf(string node, Direction direction = Direction.Along) =>
         _index.TryGet(new Dof(node, direction), out var i) ? i : -1;
+
+    private static string SpaceName(ModelSpace space) => space == ModelSpace.Plane ? "plane" : "3d";
 
     private sealed class FrozenIndex(ImmutableArray<Dof> dofs, ImmutableArray<ImmutableArray<string>> nodes)
     {
