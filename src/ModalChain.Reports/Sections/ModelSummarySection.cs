@@ -1,9 +1,11 @@
+using System.Collections.Immutable;
 using System.Globalization;
 using System.Text.Json;
 using ModalChain.Core.Model;
 using ModalChain.Reports.Drawing;
 using ModalChain.Reports.Figures;
 using ModalChain.Reports.Html;
+using ModalChain.Reports.Units;
 
 namespace ModalChain.Reports.Sections;
 
@@ -79,6 +81,11 @@ public sealed class ModelSummarySection : IReportSection
     {
         var network = _context.Document.Network;
         var u = _context.Units;
+        if (network.Space != ModelSpace.Line)
+        {
+            WriteSpatialHtml(html, network, u);
+            return;
+        }
         var groups = Topology.UnsupportedGroups(network);
         html.Facts(
         [
@@ -102,6 +109,57 @@ public sealed class ModelSummarySection : IReportSection
             html.Table("Dampers", ["Name", "Between", $"Coefficient ({u.DampingSymbol})"],
                 network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}", u.Damping(d.Coefficient, given: true)]),
                 new HashSet<int> { 2 });
+        if (_context.Document.Warnings.Length > 0)
+        {
+            html.Heading("Warnings from reading the model");
+            html.List(_context.Document.Warnings.Select(w => w.ToString()), "warnings");
+        }
+        html.Figure(_drawing);
+    }
+
+    /// <summary>The facts and tables of a plane or 3d model: locations, bodies, and each element's values per direction.</summary>
+    private void WriteSpatialHtml(HtmlWriter html, Network network, Units.DisplayUnits u)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        string At(Point3 p) => $"({u.Length(p.X, given: true)}, {u.Length(p.Y, given: true)}, {u.Length(p.Z, given: true)})";
+        string Rotational(double value) => DisplayUnits.Number(value);
+        string Values(ImmutableArray<DirectionalValue> components, bool axial, double scale, Func<double, string> translation, string translationSymbol, string rotationSymbol) =>
+            axial
+                ? "axial " + translation(scale) + " " + translationSymbol
+                : string.Join(", ", components.Select(c => c.Direction.Label() + " " + (c.Direction.IsRotation()
+                    ? Rotational(c.Value) + " " + rotationSymbol
+                    : translation(c.Value) + " " + translationSymbol)));
+        var dofs = Core.Dofs.DofMap.For(network);
+        html.Facts(
+        [
+            ("Title", network.Title),
+            ("Space", network.Space == ModelSpace.ThreeD ? "3d: x, y, z and rotations rx, ry, rz (z up)" : "plane: x, z and rotation ry (a side view, z up)"),
+            ("Degrees of freedom", dofs.Count.ToString(inv) + " (each point mass its translations, each body every direction of the space at its centre of mass)"),
+            ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass, given: true)),
+            ("Bodies, masses, springs, dampers", string.Create(inv, $"{network.Bodies.Length}, {network.Masses.Length}, {network.Springs.Length}, {network.Dampers.Length}")),
+            ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
+        ]);
+        if (network.Bodies.Length > 0)
+            html.Table("Rigid bodies", ["Name", $"Mass ({u.MassSymbol})", $"Centre of mass ({u.LengthSymbol})", "Inertia J_xx, J_yy, J_zz (kg·m²)", "Points"],
+                network.Bodies.Select(b => (IReadOnlyList<string>)[b.Name, u.Mass(b.Kilograms, given: true), At(b.CentreOfMass),
+                    $"{DisplayUnits.Number(b.Inertia.Xx)}, {DisplayUnits.Number(b.Inertia.Yy)}, {DisplayUnits.Number(b.Inertia.Zz)}"
+                        + (b.Inertia.Xy != 0 || b.Inertia.Yz != 0 || b.Inertia.Xz != 0 ? " (with off-diagonal terms)" : ""),
+                    b.Points.IsEmpty ? "—" : string.Join(", ", b.Points.Select(p => p.Name + " " + At(p.Location)))]),
+                new HashSet<int> { 1 });
+        if (network.Masses.Length > 0)
+            html.Table("Point masses", ["Name", $"Mass ({u.MassSymbol})", $"Location ({u.LengthSymbol})", "Moves in"],
+                network.Masses.Select(m => (IReadOnlyList<string>)[m.Name, u.Mass(m.Kilograms, given: true),
+                    m.Location is { } l ? At(l) : "—",
+                    string.Join(", ", (m.Moves.IsEmpty ? Directions.Translations(network.Space) : m.Moves).Select(d => d.Label()))]),
+                new HashSet<int> { 1 });
+        if (network.Springs.Length > 0)
+            html.Table("Springs", ["Name", "Between", "Stiffness"],
+                network.Springs.Select(s => (IReadOnlyList<string>)[s.Name, $"{s.NodeA} – {s.NodeB}",
+                    Values(s.Components, s.Axial, s.Stiffness, v => u.Stiffness(v, given: true), u.StiffnessSymbol, "N·m/rad")]));
+        if (network.Dampers.Length > 0)
+            html.Table("Dampers", ["Name", "Between", "Coefficient"],
+                network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}",
+                    Values(d.Components, d.Axial, d.Coefficient, v => u.Damping(v, given: true), u.DampingSymbol, "N·m·s/rad")]));
         if (_context.Document.Warnings.Length > 0)
         {
             html.Heading("Warnings from reading the model");
