@@ -42,6 +42,9 @@ public sealed class ModesSection : IReportSection
         _modeFigures = [.. _result.Modes.Select(mode => ModeFigure(mode, layout, scale, animate))];
     }
 
+    /// <summary>The modes the section shows (the lowest <see cref="ReportOptions.MaxModes"/>).</summary>
+    public ModalResult Result => _result;
+
     /// <summary>The factory registered in <see cref="ReportSections.Default"/>; every model has this section.</summary>
     public static IReportSection? Create(ReportContext context) => new ModesSection(context);
 
@@ -188,6 +191,7 @@ public sealed class ModesSection : IReportSection
             .. BoxNote(geometry) is { Length: > 0 } note ? [note] : Array.Empty<string>(),
         ];
         var scene = SpatialFigure.Mode(geometry, new SpatialOverlay(motion, fraction, animate ? 25 : 1), header, footer);
+        scene = scene with { Data = scene.Data.Add("mode", mode.Number.ToString(Inv)).Add("omega-rad-s", mode.AngularFrequency.ToString("R", Inv)) };
         var caption = string.Create(Inv,
             $"Mode {mode.Number} at {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz ({(mode.IsRigidBody ? "rigid-body mode" : "period " + DisplayUnits.Number(mode.PeriodSeconds) + " s")}), side{(geometry.Space == Core.Model.ModelSpace.ThreeD ? " and plan views" : " view")}, magnified so the largest motion is {fraction * 100:0} % of the model's size.");
         return new SchematicFigure(FigureName(mode.Number), caption, "mode", scene, animate);
