@@ -50,6 +50,7 @@ public static class SpatialFigure
     private const double HeaderLine = 18;
     private const double FooterLine = 16;
     private const double LabelSize = 10;
+    private const double FooterSize = 10.5;
     private const double MassHalf = 5;
     private const double EndOnPixels = 8;
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
@@ -88,6 +89,8 @@ public static class SpatialFigure
         ArgumentNullException.ThrowIfNull(header);
         ArgumentNullException.ThrowIfNull(footer);
         ArgumentNullException.ThrowIfNull(units);
+        footer = Wrap(footer);
+        // One spare footer line for the note on labels left out, if any.
         var layout = Layout.For(geometry, header.Count, footer.Count + 1, null, 0);
         var shapes = ImmutableArray.CreateBuilder<Shape>();
         Headers(shapes, header);
@@ -137,6 +140,8 @@ public static class SpatialFigure
         var scale = Scale(geometry, overlay.Motion, overlay.Fraction);
         var frameCount = Math.Max(1, overlay.Frames);
         var phases = Enumerable.Range(0, frameCount).Select(k => frameCount == 1 ? 1.0 : Math.Cos(2 * Math.PI * k / (frameCount - 1))).ToImmutableArray();
+        footer = Wrap(footer);
+        // The legend's line and one spare line for the note on labels left out, if any.
         var layout = Layout.For(geometry, header.Count, footer.Count + 2, overlay.Motion, scale.Factor);
         var shapes = ImmutableArray.CreateBuilder<Shape>();
         Headers(shapes, header);
@@ -180,6 +185,29 @@ public static class SpatialFigure
         ? footer
         : [.. footer, string.Create(Inv, $"{omitted} label{(omitted == 1 ? " was" : "s were")} left out where {(omitted == 1 ? "it" : "they")} would overlap others; the tables list every name.")];
 
+    /// <summary>The footer notes broken at spaces into lines that fit the figure's width.</summary>
+    private static List<string> Wrap(IReadOnlyList<string> lines)
+    {
+        var width = Width - 32;
+        var wrapped = new List<string>();
+        foreach (var line in lines)
+        {
+            var current = "";
+            foreach (var word in line.Split(' '))
+            {
+                var candidate = current.Length == 0 ? word : current + " " + word;
+                if (current.Length > 0 && TextMetrics.Width(candidate, FooterSize) > width)
+                {
+                    wrapped.Add(current);
+                    current = word;
+                }
+                else current = candidate;
+            }
+            wrapped.Add(current);
+        }
+        return wrapped;
+    }
+
     private static IEnumerable<Point3> DrawnPoints(SpatialNode n)
     {
         yield return n.Location;
@@ -213,7 +241,7 @@ public static class SpatialFigure
             shapes.Add(new TextShape(new Point(166, ly), "mode shape", 10.5) { Class = "legend" });
         }
         for (var i = 0; i < footer.Count; i++)
-            shapes.Add(new TextShape(new Point(16, y + i * FooterLine), footer[i], 10.5, TextAnchor.Start, false, "#333333") { Class = "figure-note" });
+            shapes.Add(new TextShape(new Point(16, y + i * FooterLine), footer[i], FooterSize, TextAnchor.Start, false, "#333333") { Class = "figure-note" });
     }
 
     /// <summary>Hatched anchors where elements meet supports (they never move), and at located supports nothing meets.</summary>

@@ -90,7 +90,7 @@ public sealed class LabelPlacementTests
         });
         var scenes = new[]
         {
-            SpatialFigure.Network(geometry, ["Network: crowded", "13 nodes"], ["Locations from the model, to scale."], new DisplayUnits(UnitSystem.Si)),
+            SpatialFigure.Network(geometry, ["Network: crowded", "13 nodes"], ["Locations from the model, to scale. Bodies are drawn as the homogeneous box with their mass and inertia. Mounts to a support without a location are drawn down to an anchor below their other end."], new DisplayUnits(UnitSystem.Si)),
             SpatialFigure.Mode(geometry, new SpatialOverlay(rock), ["Mode 3: 12.5 Hz", "coupled sway + roll"], ["The largest motion is drawn as 12 % of the model's size."]),
         };
         foreach (var scene in scenes)
