@@ -54,7 +54,7 @@ internal static class CheckCommand
     /// <summary>Evaluates every criterion of <paramref name="document"/>.</summary>
     internal static CheckOutcome Evaluate(ModelDocument document, ModalChain.Core.Solvers.SolverChoice choice = default)
     {
-        return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure, new ModalOptions(Choice: choice)), document.Criteria, OperatingLoads.Of(document));
+        return CriteriaCheck.Evaluate(DampedSystem.Build(document.Structure, new ModalOptions(Choice: choice)), document.Criteria, OperatingLoads.Of(document), document.Cases);
     }
 
     private static void Write(TextWriter o, ModelDocument document, CheckOutcome outcome)
@@ -100,6 +100,8 @@ internal static class CheckCommand
                     Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Signed(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL");
             table.Write(o);
             o.WriteLine("  reserve = (limit - value) / limit.");
+            if (outcome.Combination is { } rule)
+                o.WriteLine($"  values are the load cases combined at their running speeds by the rule {LoadCaseSelection.Describe(rule)}.");
             o.WriteLine();
         }
         if (outcome.Zones.Length > 0)

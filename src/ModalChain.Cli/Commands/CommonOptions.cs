@@ -75,4 +75,16 @@ internal static class CommonOptions
     }
 
     public static int WarningCount(ModelDocument document) => document.Warnings.Count(w => w.Severity == Severity.Warning);
+
+    /// <summary>An option naming elements of the model: names joined by commas, or the option repeated.</summary>
+    public static Option<string[]> NameList(string name, string description) => new(name)
+    {
+        Description = description,
+        AllowMultipleArgumentsPerToken = true,
+        HelpName = "NAME[,NAME...]",
+    };
+
+    /// <summary>The names given to a <see cref="NameList"/> option, split at commas, blanks dropped, duplicates removed, in order.</summary>
+    public static string[] Names(string[]? values) =>
+        values is null ? [] : [.. values.SelectMany(v => v.Split(',', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries)).Distinct(StringComparer.Ordinal)];
 }

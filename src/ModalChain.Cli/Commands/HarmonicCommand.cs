@@ -34,13 +34,16 @@ internal static class HarmonicCommand
         var method = CommandValues.Choice<HarmonicMethod?>("--method",
             "direct (exact, any damping) or modal (superposition with residual flexibility); default: the file's 'method', else direct.",
             ("direct", HarmonicMethod.Direct), ("modal", HarmonicMethod.Modal));
+        var casesOption = CommonOptions.NameList("--cases",
+            "Sweep these load cases only, e.g. --cases exhaust-fan,supply-fan (names joined by commas, or the option repeated); overrides 'cases' of the file's 'harmonic' section.");
         var solver = CommonOptions.Solver();
         var command = new Command("harmonic",
             "Steady-state response to the model's harmonic loads (forces, rotating unbalances, support motions) over a " +
             "frequency sweep: displacement, velocity and acceleration of each output mass, spring and damper forces, support " +
             "reactions and transmissibility, the peak of each over the sweep, and the response at each load's running speed. " +
+            "A model with 'load-cases' is swept case by case and the cases are combined at their running speeds by the stated rule. " +
             "The sweep comes from the file's 'harmonic' section; --from/--to/--points override it.")
-        { file, outputs, from, to, points, method, solver, format };
+        { file, outputs, from, to, points, method, casesOption, solver, format };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -86,7 +89,33 @@ internal static class HarmonicCommand
             }
             if (parse.GetValue(method) is { } m) spec = spec with { Method = m };
 
+            var selection = document.Cases;
+            if (CommonOptions.Names(parse.GetValue(casesOption)) is { Length: > 0 } chosenCases)
+            {
+                if (document.LoadCases.IsEmpty)
+                    return Fail(io, $"--cases names load cases, but {path} has no 'load-cases' section (see docs/model-format.md)");
+                foreach (var name in chosenCases.Where(n => document.LoadCases.All(c => c.Name != n)))
+                    return Fail(io, $"--cases names '{name}', which is not a load case of the model; the load cases are: {string.Join(", ", document.LoadCases.Select(c => c.Name))}");
+                selection = new LoadCaseSelection([.. chosenCases.Select(n => document.LoadCases.First(c => c.Name == n))], selection?.Rule ?? CaseCombination.Sum);
+            }
             var system = DampedSystem.Build(model, new ModalOptions(Choice: choice));
+            if (selection is { } cases)
+            {
+                var byCase = LoadCaseAnalysis.Solve(system, spec, cases);
+                switch (parse.GetValue(format))
+                {
+                    case OutputFormat.Json:
+                        io.WriteJson(stream => HarmonicJson.Write(stream, document, byCase, CliApp.Version));
+                        break;
+                    case OutputFormat.Csv:
+                        HarmonicCsv.Write(io.Output, byCase);
+                        break;
+                    default:
+                        HarmonicCaseTable.Write(io.Output, document, system, byCase);
+                        break;
+                }
+                return ExitCodes.Success;
+            }
             var result = HarmonicAnalysis.Solve(system, spec);
             switch (parse.GetValue(format))
             {

@@ -78,7 +78,7 @@ internal static class StudyCommand
                     io.Error.WriteLine("note: the model's vibration limits are not followed: no load has a running speed, so there is no operating point.");
                 else
                     foreach (var limit in document.Criteria.Limits)
-                        criteria.Add(OperatingPointCriteria.Limit(limit, document.Structure, operatingLoads));
+                        criteria.Add(OperatingPointCriteria.Limit(limit, document.Structure, operatingLoads, document.Cases));
             }
             var request = new StudyRequest(parameter, a.Si, b.Si, parse.GetValue(steps) ?? DefaultSteps, parse.GetValue(spacing), criteria.ToImmutable());
             var problems = request.Problems();

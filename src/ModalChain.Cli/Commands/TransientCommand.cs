@@ -29,6 +29,8 @@ internal static class TransientCommand
             Description = "Record this mass (repeat for several); overrides 'outputs' of the file. Default: every mass.",
             AllowMultipleArgumentsPerToken = true,
         };
+        var loadsOption = CommonOptions.NameList("--loads",
+            "Run with these timed loads only, e.g. --loads fan-start,door-slam (names joined by commas, or the option repeated); overrides 'loads' of the file's 'transient' section.");
         var solver = CommonOptions.Solver();
         var command = new Command("transient",
             "Response in time to the model's timed loads (steps, pulses, sines, recorded tables, run-ups and run-downs of a " +
@@ -36,7 +38,7 @@ internal static class TransientCommand
             "of each output mass, spring and damper forces and support reactions, with their peaks and RMS and an energy " +
             "balance. The run comes from the file's 'transient' section; the options override it. A progress bar is shown " +
             "on long runs, only on a terminal and only with the table format.")
-        { file, method, step, duration, outputs, solver, format };
+        { file, method, step, duration, outputs, loadsOption, solver, format };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -67,9 +69,21 @@ internal static class TransientCommand
                 settings = settings with { Outputs = [.. chosenOutputs.Distinct()] };
             }
 
-            var loads = spec.Loads.IsEmpty
+            var loadNames = spec.Loads;
+            if (CommonOptions.Names(parse.GetValue(loadsOption)) is { Length: > 0 } chosenLoads)
+            {
+                var timed = document.TimedLoads.Select(l => l.Name).ToArray();
+                foreach (var name in chosenLoads.Where(n => !timed.Contains(n)))
+                {
+                    var harmonic = document.Structure.FindLoad(name) is not null;
+                    return Fail(io, $"--loads names '{name}', which is {(harmonic ? "a harmonic load (it has no 'time' function)" : "not a load of the model")}; " +
+                        (timed.Length == 0 ? "the model has no load with a 'time' function" : $"the timed loads are: {string.Join(", ", timed)}"));
+                }
+                loadNames = [.. chosenLoads];
+            }
+            var loads = loadNames.IsEmpty
                 ? document.TimedLoads.ToList()
-                : spec.Loads.Select(n => document.TimedLoads.First(l => l.Name == n)).ToList();
+                : loadNames.Select(n => document.TimedLoads.First(l => l.Name == n)).ToList();
             if (loads.Count == 0 && spec.Initial.IsEmpty)
                 return Fail(io, $"{path}: nothing to respond to; give loads a 'time' function (see docs/model-format.md) or 'initial' conditions under 'transient'");
 

@@ -14,10 +14,13 @@ internal static class HarmonicTable
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
 
-    public static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result)
+    public static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result) => Write(o, document, system, result, null);
+
+    /// <summary>The report of one sweep; for a load case (<paramref name="caseName"/> not null) headed by the case, without the caution (the caller writes it once).</summary>
+    internal static void Write(TextWriter o, ModelDocument document, DampedSystem system, HarmonicResult result, string? caseName)
     {
         var f = result.FrequenciesHz;
-        o.WriteLine(TerminalText.Line(document.Network.Title));
+        o.WriteLine(caseName is null ? TerminalText.Line(document.Network.Title) : $"Load case {caseName}");
         o.WriteLine(string.Create(Inv,
             $"Harmonic response, {(result.Method == HarmonicMethod.Modal ? "modal superposition" : "direct solve")}, {f.Length} frequencies from {f.Min():G4} to {f.Max():G4} Hz"));
         o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!))));
@@ -87,13 +90,14 @@ internal static class HarmonicTable
         foreach (var n in result.Notes) o.WriteLine("Note: " + n + ".");
         foreach (var w in result.Warnings) o.WriteLine("Warning: " + w + ".");
         o.WriteLine("Phases are relative to the loads' phase reference; velocity = iωX, acceleration = −ω²X; reactions are the force each support receives.");
+        if (caseName is not null) return;
         o.WriteLine();
         o.WriteLine("Caution: " + Cautions.Text);
     }
 
-    private static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
+    internal static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
 
-    private static string Describe(Load load) => load switch
+    internal static string Describe(Load load) => load switch
     {
         ForceLoad f => string.Create(Inv, $"{f.Name} (force {f.Amplitude:G4} N at {f.At}{Speed(f.SpeedHz)})"),
         UnbalanceLoad u => string.Create(Inv, $"{u.Name} (unbalance {u.MassRadius:G4} kg*m at {u.At}{Speed(u.SpeedHz)})"),

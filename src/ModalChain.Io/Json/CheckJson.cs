@@ -52,6 +52,8 @@ public static class CheckJson
             w.WriteEndObject();
         }
         else w.WriteNull("separation");
+        if (outcome.Combination is { } rule) w.WriteString("load_case_combination", LoadCaseSelection.Name(rule));
+        else w.WriteNull("load_case_combination");
         w.WriteStartArray("limits");
         foreach (var l in outcome.Limits)
         {

@@ -10,7 +10,8 @@ namespace ModalChain.Io.Json;
 /// <summary>Writes a harmonic result as the JSON object of <c>modalchain harmonic --format json</c> (SI units).</summary>
 /// <remarks>
 /// Field names are a public contract: frequencies_hz, responses (dof, quantity, unit, magnitude, phase_deg),
-/// reactions (support, magnitude, phase_deg), peaks, operating_points; further fields are additions. Phases are
+/// reactions (support, magnitude, phase_deg), peaks, operating_points; further fields are additions (cases and
+/// combination for a model with load cases). Phases are
 /// in degrees in (−180, 180], of Re(A e^{iωt}) relative to the loads' phase reference. Every magnitude is the
 /// peak (zero-to-peak) amplitude of the sinusoid, said by "amplitude": "peak" beside its unit; r.m.s. is peak/√2.
 /// </remarks>
@@ -25,6 +26,101 @@ public static class HarmonicJson
         w.WriteStartObject();
         w.WriteString("title", MarkupText.Clean(document.Network.Title));
         w.Source(document, toolVersion);
+        WriteSweep(w, result);
+        w.WriteStartArray("cases");
+        w.WriteEndArray();
+        w.WriteNull("combination");
+        w.WriteStartArray("warnings");
+        foreach (var d in document.Warnings) w.WriteStringValue(d.ToString());
+        foreach (var warning in result.Warnings) w.WriteStringValue(warning);
+        w.WriteEndArray();
+        w.WriteString("caution", Cautions.Text);
+        w.WriteEndObject();
+    }
+
+    /// <summary>Writes the result of a model with load cases: the top-level sweep fields stay empty (no sweep applies every load at once); each case's sweep is under "cases" and their combination under "combination".</summary>
+    public static void Write(Stream stream, ModelDocument document, LoadCaseResult result, string toolVersion)
+    {
+        ArgumentNullException.ThrowIfNull(document);
+        ArgumentNullException.ThrowIfNull(result);
+        using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
+        w.WriteStartObject();
+        w.WriteString("title", MarkupText.Clean(document.Network.Title));
+        w.Source(document, toolVersion);
+        var first = result.Cases[0].Result;
+        w.WriteString("method", first.Method == HarmonicMethod.Modal ? "modal" : "direct");
+        w.WriteNumber("modes_used", first.ModesUsed);
+        w.WriteStartArray("loads");
+        foreach (var l in result.Cases.SelectMany(c => c.Case.Loads).Distinct()) w.WriteStringValue(l);
+        w.WriteEndArray();
+        foreach (var empty in new[] { "frequencies_hz", "responses", "element_forces", "reactions", "transmissibility", "peaks", "operating_points" })
+        {
+            w.WriteStartArray(empty);
+            w.WriteEndArray();
+        }
+        w.WriteStartArray("notes");
+        w.WriteStringValue("the model has load cases: each case is swept on its own under 'cases', and the cases are combined at their running speeds under 'combination'");
+        w.WriteEndArray();
+
+        w.WriteStartArray("cases");
+        foreach (var c in result.Cases)
+        {
+            w.WriteStartObject();
+            w.WriteString("name", c.Case.Name);
+            WriteSweep(w, c.Result);
+            w.WriteStartArray("warnings");
+            foreach (var warning in c.Result.Warnings) w.WriteStringValue(warning);
+            w.WriteEndArray();
+            w.WriteEndObject();
+        }
+        w.WriteEndArray();
+
+        w.WriteStartObject("combination");
+        w.WriteString("rule", LoadCaseSelection.Name(result.Rule));
+        w.WriteString("rule_description", LoadCaseSelection.Describe(result.Rule));
+        w.WriteStartArray("responses");
+        foreach (var r in result.Combined)
+            foreach (var q in Enum.GetValues<ResponseQuantity>())
+                foreach (var rms in new[] { false, true })
+                {
+                    var scale = rms ? 1 / Math.Sqrt(2) : 1;
+                    w.WriteStartObject();
+                    w.WriteString("dof", r.Dof);
+                    w.WriteString("quantity", Name(q));
+                    w.WriteString("unit", Unit(q));
+                    w.WriteString("amplitude", rms ? "rms" : "peak");
+                    w.Number("magnitude", rms ? r.Rms(q, result.Rule) : r.Peak(q, result.Rule));
+                    w.WriteStartArray("components");
+                    foreach (var c in r.Components)
+                    {
+                        w.WriteStartObject();
+                        w.WriteString("case", c.Case);
+                        w.Number("speed_hz", c.SpeedHz);
+                        w.Number("speed_rpm", 60 * c.SpeedHz);
+                        w.Number("magnitude", scale * c.Peak(q));
+                        w.WriteEndObject();
+                    }
+                    w.WriteEndArray();
+                    w.WriteEndObject();
+                }
+        w.WriteEndArray();
+        w.WriteStartArray("notes");
+        foreach (var n in result.Notes) w.WriteStringValue(n);
+        w.WriteEndArray();
+        w.WriteEndObject();
+
+        w.WriteStartArray("warnings");
+        foreach (var d in document.Warnings) w.WriteStringValue(d.ToString());
+        foreach (var c in result.Cases)
+            foreach (var warning in c.Result.Warnings) w.WriteStringValue($"load case '{c.Case.Name}': {warning}");
+        w.WriteEndArray();
+        w.WriteString("caution", Cautions.Text);
+        w.WriteEndObject();
+    }
+
+    /// <summary>The fields of one sweep, from "method" to "notes".</summary>
+    private static void WriteSweep(Utf8JsonWriter w, HarmonicResult result)
+    {
         w.WriteString("method", result.Method == HarmonicMethod.Modal ? "modal" : "direct");
         w.WriteNumber("modes_used", result.ModesUsed);
         w.WriteStartArray("loads");
@@ -155,12 +251,6 @@ public static class HarmonicJson
         w.WriteStartArray("notes");
         foreach (var n in result.Notes) w.WriteStringValue(n);
         w.WriteEndArray();
-        w.WriteStartArray("warnings");
-        foreach (var d in document.Warnings) w.WriteStringValue(d.ToString());
-        foreach (var warning in result.Warnings) w.WriteStringValue(warning);
-        w.WriteEndArray();
-        w.WriteString("caution", Cautions.Text);
-        w.WriteEndObject();
     }
 
     /// <summary>The JSON name of a quantity: "displacement", "velocity", "acceleration".</summary>

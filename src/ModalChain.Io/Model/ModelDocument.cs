@@ -26,6 +26,12 @@ public sealed record ModelDocument(
     /// <summary>The harmonic sweep the file asks for in its 'harmonic' section, or null when it has none.</summary>
     public HarmonicSpec? Harmonic { get; init; }
 
+    /// <summary>Every load case of the file's 'load-cases' section, in the order written (empty when it has none).</summary>
+    public ImmutableArray<LoadCase> LoadCases { get; init; } = [];
+
+    /// <summary>The load cases a harmonic run sweeps and the rule that combines them ('cases' and 'combine' of 'harmonic'; every case by the sum rule when not given); null when the model has no 'load-cases'.</summary>
+    public LoadCaseSelection? Cases { get; init; }
+
     /// <summary>The criteria of the file's <c>criteria:</c> section (empty when it has none).</summary>
     public CriteriaSet Criteria { get; init; } = CriteriaSet.None;
 

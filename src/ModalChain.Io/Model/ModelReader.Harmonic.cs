@@ -19,7 +19,7 @@ public static partial class ModelReader
         if (top["harmonic"] is not { } node || node is YScalar { IsPlainNull: true }) return null;
         if (context.Mapping(node, "'harmonic'") is not { } h) return null;
         const string what = "'harmonic'";
-        context.RejectUnknownKeys(h, what, "loads", "frequencies", "refine", "outputs", "method", "modes");
+        context.RejectUnknownKeys(h, what, "loads", "frequencies", "refine", "outputs", "method", "modes", "cases", "combine");
         context.Positions["harmonic"] = h.Position;
         var declaredLoads = (top["loads"] as YMapping)?.Entries.Select(e => e.Key.Value).ToImmutableHashSet() ?? [];
 
@@ -28,7 +28,7 @@ public static partial class ModelReader
             foreach (var item in named.Items)
                 if (item is YScalar { Value: var loadName } && (top["loads"] as YMapping)?[loadName] is YMapping timed && timed["time"] is not null)
                     context.Error(item, $"'loads' of 'harmonic' names '{loadName}', which has a 'time' function: it acts in transient runs only; give a load without 'time' for the sweep");
-        if (h["loads"] is null && declaredLoads.IsEmpty)
+        if (h["loads"] is null && h["cases"] is null && declaredLoads.IsEmpty)
             context.Error(h, "'harmonic' needs loads to act, but the model has no 'loads' section");
         var outputs = NameList(h, "outputs", masses, "mass", "'masses'", context);
 

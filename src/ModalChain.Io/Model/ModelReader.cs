@@ -15,7 +15,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "links", "damping", "loads", "harmonic", "transient", "criteria", "repeat"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -60,7 +60,9 @@ public static partial class ModelReader
         var supportNames = DeclaredNames(top, "supports");
         var damping = ReadDamping(top, context);
         var loads = ReadLoads(top, massNames, supportNames, context);
+        var loadCases = ReadLoadCases(top, loads, context);
         var harmonic = ReadHarmonic(top, massNames, loads, context);
+        var caseSelection = ReadCaseSelection(top, loadCases, context);
         var timedLoads = ReadTimedLoads(top, massNames, supportNames, context);
         var transient = ReadTransient(top, massNames, timedLoads, context);
         var criteria = ReadCriteria(top, context, network);
@@ -77,6 +79,8 @@ public static partial class ModelReader
         {
             Structure = new Core.Model.StructuralModel(network, damping, loads),
             Harmonic = harmonic,
+            LoadCases = loadCases,
+            Cases = caseSelection,
             TimedLoads = timedLoads,
             Transient = transient,
             Criteria = criteria,

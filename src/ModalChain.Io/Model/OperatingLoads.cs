@@ -6,11 +6,16 @@ namespace ModalChain.Io.Model;
 /// <summary>The model's operating points as the commands and the report read them from a document.</summary>
 public static class OperatingLoads
 {
-    /// <summary>The loads whose running speeds are the operating points: those the 'harmonic' section selects, else all of them.</summary>
+    /// <summary>The loads whose running speeds are the operating points: those of the load cases swept, else those the 'harmonic' section selects, else all of them.</summary>
     public static IReadOnlyList<Load> Of(ModelDocument document)
     {
         ArgumentNullException.ThrowIfNull(document);
         var all = document.Structure.Loads;
+        if (document.Cases is { } cases)
+        {
+            var inCases = cases.Cases.SelectMany(c => c.Loads).ToHashSet();
+            return [.. all.Where(l => inCases.Contains(l.Name))];
+        }
         var selected = document.Harmonic?.Loads;
         return selected is { IsDefaultOrEmpty: false } names ? [.. all.Where(l => names.Contains(l.Name))] : all;
     }

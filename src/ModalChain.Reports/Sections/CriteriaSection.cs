@@ -31,7 +31,7 @@ public sealed class CriteriaSection : IReportSection
         ArgumentNullException.ThrowIfNull(context);
         var criteria = context.Document.Criteria;
         if (criteria.IsEmpty) return null;
-        return new CriteriaSection(context, CriteriaCheck.Evaluate(context.Damped, criteria, OperatingLoads.Of(context.Document)));
+        return new CriteriaSection(context, CriteriaCheck.Evaluate(context.Damped, criteria, OperatingLoads.Of(context.Document), context.Document.Cases));
     }
 
     /// <inheritdoc />
@@ -82,6 +82,8 @@ public sealed class CriteriaSection : IReportSection
                 [
                     l.Limit.Describe(), Show(l.Value, l.Limit.Quantity), Show(l.Limit.Value, l.Limit.Quantity), Reserve(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL",
                 ]), new HashSet<int> { 1, 2, 3 }, "criteria-table");
+        if (_outcome.Limits.Count > 0 && _outcome.Combination is { } rule)
+            html.Paragraph($"The limits' values are the load cases combined at their running speeds by the rule {LoadCaseSelection.Describe(rule)}.", "note");
         if (_outcome.Zones.Length > 0)
         {
             html.Table("Machine vibration zones at the operating points (r.m.s. velocity)",

@@ -23,6 +23,7 @@ public sealed class HarmonicSection : IReportSection
     private readonly ReportContext _context;
     private readonly HarmonicResult _result;
     private readonly ImmutableArray<ChartFigure> _figures;
+    private readonly string? _case;
 
     /// <summary>Most response charts the section draws; results.json always holds every output.</summary>
     public const int MaxCharts = 8;
@@ -30,10 +31,11 @@ public sealed class HarmonicSection : IReportSection
     /// <summary>The outputs that have a chart, in output order.</summary>
     public ImmutableArray<DofResponse> Charted { get; }
 
-    private HarmonicSection(ReportContext context, HarmonicResult result)
+    private HarmonicSection(ReportContext context, HarmonicResult result, string? caseName = null)
     {
         _context = context;
         _result = result;
+        _case = caseName;
         var log = context.Document.Harmonic?.Frequencies is FrequencyRange { Spacing: FrequencySpacing.Logarithmic };
         // A chart per output up to a readable number; beyond it, the outputs with the largest peak displacement.
         Charted = [.. result.Responses
@@ -67,8 +69,12 @@ public sealed class HarmonicSection : IReportSection
     public static IReportSection? Create(ReportContext context)
     {
         ArgumentNullException.ThrowIfNull(context);
+        if (context.LoadCases is { } cases) return new HarmonicCaseSection(context, cases, [.. cases.Cases.Select(c => new HarmonicSection(context, c.Result, c.Case.Name))]);
         return context.Harmonic is { } result ? new HarmonicSection(context, result) : null;
     }
+
+    /// <summary>File stem of the chart of <paramref name="quantity"/> of mass <paramref name="dof"/> in load case <paramref name="caseName"/>: "harmonic-CASE-MASS...".</summary>
+    public static string FigureName(string caseName, string dof, ResponseQuantity quantity) => FigureName(caseName + "-" + dof, quantity);
 
     /// <inheritdoc />
     public string Key => "harmonic";
@@ -104,8 +110,8 @@ public sealed class HarmonicSection : IReportSection
     public void WriteHtml(HtmlWriter html)
     {
         var f = _result.FrequenciesHz;
-        html.Paragraph(string.Create(Inv,
-            $"Steady-state response to {string.Join(", ", _result.Loads)} acting together, {f.Length} frequencies from {DisplayUnits.Number(f.Min())} to {DisplayUnits.Number(f.Max())} Hz, ") +
+        html.Paragraph((_case is null ? "" : $"Load case {_case}: s") + string.Create(Inv,
+            $"{(_case is null ? "S" : "")}teady-state response to {string.Join(", ", _result.Loads)} acting together, {f.Length} frequencies from {DisplayUnits.Number(f.Min())} to {DisplayUnits.Number(f.Max())} Hz, ") +
             (_result.Method == HarmonicMethod.Modal
                 ? string.Create(Inv, $"by modal superposition of {_result.ModesUsed} modes with residual flexibility.")
                 : "by the direct complex solve (K(1 + iη) − ω²M + iωC) X = F at each frequency."));
@@ -172,7 +178,8 @@ public sealed class HarmonicSection : IReportSection
         var word = quantity.ToString();
         var f = _result.FrequenciesHz;
         var values = Enumerable.Range(0, f.Length).Select(k => response.At(k, f[k], quantity)).ToArray();
-        var model = Charts.Create($"Harmonic response of {response.Dof}{(quantity == ResponseQuantity.Displacement ? "" : ": " + word.ToLowerInvariant())}", $"{_context.Document.Network.Title}: {string.Join(", ", _result.Loads)}");
+        var model = Charts.Create($"Harmonic response of {response.Dof}{(quantity == ResponseQuantity.Displacement ? "" : ": " + word.ToLowerInvariant())}",
+            $"{_context.Document.Network.Title}: {(_case is null ? "" : $"load case {_case}, ")}{string.Join(", ", _result.Loads)}");
         Axis frequency = logFrequency ? Charts.Logarithmic(AxisPosition.Bottom, "Frequency (Hz)") : Charts.Linear(AxisPosition.Bottom, "Frequency (Hz)");
         frequency.Minimum = f.Min();
         frequency.Maximum = f.Max();
@@ -241,7 +248,8 @@ public sealed class HarmonicSection : IReportSection
             $"{word} amplitude (peak, log scale) and phase of {response.Dof} over the sweep; natural frequencies dashed grey, running speeds dash-dot orange, the largest value marked with a diamond.");
         if (curveTop > 0)
             caption += $" Dashed steps: floor curve {string.Join(", ", _context.Document.Criteria.Floors.Where(c => c.At.Contains(response.Dof)).Select(c => c.Curve.Name))} per one-third-octave band, drawn as the peak of one sinusoid whose r.m.s. value is the band limit (√2 × limit); the check itself is made at the running speeds, band by band.";
-        return new ChartFigure(FigureName(response.Dof, quantity), caption, model, height: 440);
+        if (_case is not null) caption = $"Load case {_case}: " + caption;
+        return new ChartFigure(_case is null ? FigureName(response.Dof, quantity) : FigureName(_case, response.Dof, quantity), caption, model, height: 440);
     }
 
     /// <summary>

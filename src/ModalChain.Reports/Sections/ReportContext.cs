@@ -15,6 +15,7 @@ public sealed class ReportContext
     private readonly Lazy<SpatialGeometry?> _geometry;
     private readonly Lazy<DampedSystem> _damped;
     private readonly Lazy<HarmonicResult?> _harmonic;
+    private readonly Lazy<LoadCaseResult?> _loadCases;
 
     /// <summary>Creates the context of one report run.</summary>
     public ReportContext(ModelDocument document, ReportOptions options)
@@ -34,7 +35,9 @@ public sealed class ReportContext
         _geometry = new Lazy<SpatialGeometry?>(() => document.Network.Space == Core.Model.ModelSpace.Line ? null : SpatialGeometry.For(document.Network));
         _damped = new Lazy<DampedSystem>(() => DampedSystem.Build(document.Structure, new ModalOptions(Choice: options.Solver)));
         _harmonic = new Lazy<HarmonicResult?>(() =>
-            document.Harmonic is { } spec && !document.Structure.Loads.IsEmpty ? HarmonicAnalysis.Solve(Damped, spec) : null);
+            document.Harmonic is { } spec && !document.Structure.Loads.IsEmpty && document.Cases is null ? HarmonicAnalysis.Solve(Damped, spec) : null);
+        _loadCases = new Lazy<LoadCaseResult?>(() =>
+            document.Harmonic is { } spec && document.Cases is { } cases ? LoadCaseAnalysis.Solve(Damped, spec, cases) : null);
     }
 
     /// <summary>The model as read.</summary>
@@ -52,8 +55,11 @@ public sealed class ReportContext
     /// <summary>The model with its damping assembled and every undamped mode solved (shared by the damped analyses).</summary>
     public DampedSystem Damped => _damped.Value;
 
-    /// <summary>The harmonic sweep the model asks for, or null when it has no 'harmonic' section or no loads.</summary>
+    /// <summary>The harmonic sweep the model asks for, or null when it has no 'harmonic' section, no loads, or load cases.</summary>
     public HarmonicResult? Harmonic => _harmonic.Value;
+
+    /// <summary>The sweep of each load case and their combination, or null when the model has no 'harmonic' section or no 'load-cases'.</summary>
+    public LoadCaseResult? LoadCases => _loadCases.Value;
 
     /// <summary>The drawing layout of a line model's network (laid out on first use); plane and 3d models are drawn from <see cref="Geometry"/>.</summary>
     public NetworkLayout Layout => _layout.Value;

@@ -251,14 +251,23 @@ public static class ParameterStudy
 public static class OperatingPointCriteria
 {
     /// <summary>A vibration limit as a study criterion: the structure's damping and loads stay, its network follows the study.</summary>
-    public static StudyCriterion Limit(ModalChain.Core.Analyses.Criteria.VibrationLimit limit, StructuralModel structure, IReadOnlyList<Load> loads)
+    /// <param name="limit">The limit.</param>
+    /// <param name="structure">The model whose network the study varies.</param>
+    /// <param name="loads">The loads whose running speeds are the operating points (models without load cases).</param>
+    /// <param name="cases">The load cases, when the model has them: the limit is then followed on their combination by its rule, as <c>check</c> evaluates it.</param>
+    public static StudyCriterion Limit(ModalChain.Core.Analyses.Criteria.VibrationLimit limit, StructuralModel structure, IReadOnlyList<Load> loads,
+        ModalChain.Core.Analyses.Harmonic.LoadCaseSelection? cases = null)
     {
         ArgumentNullException.ThrowIfNull(limit);
         ArgumentNullException.ThrowIfNull(structure);
         ArgumentNullException.ThrowIfNull(loads);
         return new StudyCriterion("limit " + limit.Describe(), (network, _) =>
-            ModalChain.Core.Analyses.Criteria.OperatingPointLimits.WorstReserve(
-                ModalChain.Core.Assembly.DampedSystem.Build(structure with { Network = network }), loads, [limit]))
+        {
+            var system = ModalChain.Core.Assembly.DampedSystem.Build(structure with { Network = network });
+            if (cases is null) return ModalChain.Core.Analyses.Criteria.OperatingPointLimits.WorstReserve(system, loads, [limit]);
+            var outcome = ModalChain.Core.Analyses.Criteria.LoadCaseLimits.Evaluate(system, cases, [limit]);
+            return outcome.NotEvaluated.IsEmpty ? outcome.Evaluated.Single().Reserve : double.NegativeInfinity;
+        })
         { Limit = limit };
     }
 }
