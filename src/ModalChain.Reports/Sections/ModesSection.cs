@@ -181,7 +181,8 @@ public sealed class ModesSection : IReportSection
         var header = new[]
         {
             ModeTitle(mode),
-            string.Create(Inv, $"Period {(mode.IsRigidBody ? "none (rigid-body mode)" : DisplayUnits.Number(mode.PeriodSeconds) + " s")}  ·  ω = {DisplayUnits.Number(mode.AngularFrequency)} rad/s"),
+            (mode.Motion is { } motionName ? Capitalised(motionName) + string.Create(Inv, $" (decoupling {mode.Decoupling:0.00})  ·  ") : "")
+                + string.Create(Inv, $"Period {(mode.IsRigidBody ? "none (rigid-body mode)" : DisplayUnits.Number(mode.PeriodSeconds) + " s")}  ·  ω = {DisplayUnits.Number(mode.AngularFrequency)} rad/s"),
         };
         string[] footer =
         [
@@ -196,6 +197,8 @@ public sealed class ModesSection : IReportSection
             $"Mode {mode.Number} at {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz ({(mode.IsRigidBody ? "rigid-body mode" : "period " + DisplayUnits.Number(mode.PeriodSeconds) + " s")}), side{(geometry.Space == Core.Model.ModelSpace.ThreeD ? " and plan views" : " view")}, magnified so the largest motion is {fraction * 100:0} % of the model's size.");
         return new SchematicFigure(FigureName(mode.Number), caption, "mode", scene, animate);
     }
+
+    private static string Capitalised(string text) => text.Length == 0 ? text : char.ToUpperInvariant(text[0]) + text[1..];
 
     /// <summary>How the figures size the bodies' boxes, or an empty string when the model has no body.</summary>
     public static string BoxNote(SpatialGeometry geometry)
