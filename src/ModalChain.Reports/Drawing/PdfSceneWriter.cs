@@ -57,6 +57,15 @@ public static class PdfSceneWriter
                     TextAlign = t.Anchor switch { TextAnchor.Middle => SKTextAlign.Center, TextAnchor.End => SKTextAlign.Right, _ => SKTextAlign.Left },
                 })
                 {
+                    if (t.Halo)
+                        using (var halo = paint.Clone())
+                        {
+                            halo.Color = SKColors.White;
+                            halo.Style = SKPaintStyle.Stroke;
+                            halo.StrokeWidth = 3;
+                            halo.StrokeJoin = SKStrokeJoin.Round;
+                            canvas.DrawText(t.Text, (float)t.At.X, (float)t.At.Y, halo);
+                        }
                     canvas.DrawText(t.Text, (float)t.At.X, (float)t.At.Y, paint);
                 }
                 break;

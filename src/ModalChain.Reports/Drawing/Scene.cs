@@ -49,7 +49,11 @@ public sealed record PathShape(ImmutableArray<ImmutableArray<Point>> Frames, Pen
 public sealed record CircleShape(Point Center, double Radius, Pen? Stroke, string? Fill) : Shape;
 
 /// <summary>A single-line text label; <paramref name="Size"/> is the font size in user units.</summary>
-public sealed record TextShape(Point At, string Text, double Size, TextAnchor Anchor = TextAnchor.Start, bool Bold = false, string Color = "#000000") : Shape;
+public sealed record TextShape(Point At, string Text, double Size, TextAnchor Anchor = TextAnchor.Start, bool Bold = false, string Color = "#000000") : Shape
+{
+    /// <summary>True to draw a white outline under the glyphs, so a label stays readable where it crosses a line.</summary>
+    public bool Halo { get; init; }
+}
 
 /// <summary>A group of shapes sharing a class and data attributes.</summary>
 public sealed record GroupShape(ImmutableArray<Shape> Children) : Shape;

@@ -95,6 +95,13 @@ public static class SvgSceneWriter
                 if (label.Anchor != TextAnchor.Start) xml.WriteAttributeString("text-anchor", label.Anchor == TextAnchor.Middle ? "middle" : "end");
                 if (label.Bold) xml.WriteAttributeString("font-weight", "bold");
                 xml.WriteAttributeString("fill", label.Color);
+                if (label.Halo)
+                {
+                    xml.WriteAttributeString("stroke", "#ffffff");
+                    xml.WriteAttributeString("stroke-width", "3");
+                    xml.WriteAttributeString("stroke-linejoin", "round");
+                    xml.WriteAttributeString("paint-order", "stroke");
+                }
                 xml.WriteString(MarkupText.Clean(label.Text));
                 xml.WriteEndElement();
                 break;

@@ -1,9 +1,11 @@
+using System.Collections.Immutable;
 using System.Globalization;
 using System.Text.Json;
 using ModalChain.Core.Model;
 using ModalChain.Reports.Drawing;
 using ModalChain.Reports.Figures;
 using ModalChain.Reports.Html;
+using ModalChain.Reports.Units;
 
 namespace ModalChain.Reports.Sections;
 
@@ -17,8 +19,13 @@ public sealed class ModelSummarySection : IReportSection
     {
         _context = context;
         var network = context.Document.Network;
-        var layout = context.Layout;
         var units = context.Units;
+        if (context.Geometry is { } geometry)
+        {
+            _drawing = SpatialDrawing(network, geometry, units);
+            return;
+        }
+        var layout = context.Layout;
         var header = new[]
         {
             "Network: " + network.Title,
@@ -29,6 +36,25 @@ public sealed class ModelSummarySection : IReportSection
         var scene = NetworkFigure.Network(layout, header, footer, units, network.Masses.ToDictionary(m => m.Name, m => m.Kilograms));
         _drawing = new SchematicFigure("network", "The network as modelled: masses (blocks), springs (zigzags), dampers (dashpots) and supports (hatched). "
             + PositionNote(layout), "network", scene, animated: false);
+    }
+
+    private static SchematicFigure SpatialDrawing(Network network, SpatialGeometry geometry, Units.DisplayUnits units)
+    {
+        var header = new[]
+        {
+            "Network: " + network.Title,
+            string.Create(CultureInfo.InvariantCulture,
+                $"{Count(network.Bodies.Length, "body", "bodies")}, {Count(network.Masses.Length, "mass", "masses")}, {Count(network.Springs.Length, "spring", "springs")}, {Count(network.Dampers.Length, "damper", "dampers")}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
+        };
+        var boxes = ModesSection.BoxNote(geometry);
+        var placed = geometry.Elements.Any(e => e.A.Placed || e.B.Placed)
+            ? " Mounts to a support without a location are drawn down to an anchor below their other end."
+            : "";
+        var note = "Locations from the model, to scale." + (boxes.Length > 0 ? " " + boxes : "") + placed;
+        var scene = SpatialFigure.Network(geometry, header, [note], units);
+        var views = geometry.Space == ModelSpace.ThreeD ? "in a side view (x–z) and a plan view (x–y)" : "in a side view (x–z)";
+        return new SchematicFigure("network", $"The model as built, {views}: bodies (boxes, centre of mass marked), point masses (squares), springs (zigzags), dampers (dashpots) between their attachment points, and supports (hatched). " + note,
+            "network", scene, animated: false);
     }
 
     /// <summary>The factory registered in <see cref="ReportSections.Default"/>; every model has this section.</summary>
@@ -55,6 +81,11 @@ public sealed class ModelSummarySection : IReportSection
     {
         var network = _context.Document.Network;
         var u = _context.Units;
+        if (network.Space != ModelSpace.Line)
+        {
+            WriteSpatialHtml(html, network, u);
+            return;
+        }
         var groups = Topology.UnsupportedGroups(network);
         html.Facts(
         [
@@ -86,6 +117,57 @@ public sealed class ModelSummarySection : IReportSection
         html.Figure(_drawing);
     }
 
+    /// <summary>The facts and tables of a plane or 3d model: locations, bodies, and each element's values per direction.</summary>
+    private void WriteSpatialHtml(HtmlWriter html, Network network, Units.DisplayUnits u)
+    {
+        var inv = CultureInfo.InvariantCulture;
+        string At(Point3 p) => $"({u.Length(p.X, given: true)}, {u.Length(p.Y, given: true)}, {u.Length(p.Z, given: true)})";
+        string Rotational(double value) => DisplayUnits.Number(value);
+        string Values(ImmutableArray<DirectionalValue> components, bool axial, double scale, Func<double, string> translation, string translationSymbol, string rotationSymbol) =>
+            axial
+                ? "axial " + translation(scale) + " " + translationSymbol
+                : string.Join(", ", components.Select(c => c.Direction.Label() + " " + (c.Direction.IsRotation()
+                    ? Rotational(c.Value) + " " + rotationSymbol
+                    : translation(c.Value) + " " + translationSymbol)));
+        var dofs = Core.Dofs.DofMap.For(network);
+        html.Facts(
+        [
+            ("Title", network.Title),
+            ("Space", network.Space == ModelSpace.ThreeD ? "3d: x, y, z and rotations rx, ry, rz (z up)" : "plane: x, z and rotation ry (a side view, z up)"),
+            ("Degrees of freedom", dofs.Count.ToString(inv) + " (each point mass its translations, each body every direction of the space at its centre of mass)"),
+            ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass, given: true)),
+            ("Bodies, masses, springs, dampers", string.Create(inv, $"{network.Bodies.Length}, {network.Masses.Length}, {network.Springs.Length}, {network.Dampers.Length}")),
+            ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
+        ]);
+        if (network.Bodies.Length > 0)
+            html.Table("Rigid bodies", ["Name", $"Mass ({u.MassSymbol})", $"Centre of mass ({u.LengthSymbol})", "Inertia J_xx, J_yy, J_zz (kg·m²)", "Points"],
+                network.Bodies.Select(b => (IReadOnlyList<string>)[b.Name, u.Mass(b.Kilograms, given: true), At(b.CentreOfMass),
+                    $"{DisplayUnits.Number(b.Inertia.Xx)}, {DisplayUnits.Number(b.Inertia.Yy)}, {DisplayUnits.Number(b.Inertia.Zz)}"
+                        + (b.Inertia.Xy != 0 || b.Inertia.Yz != 0 || b.Inertia.Xz != 0 ? " (with off-diagonal terms)" : ""),
+                    b.Points.IsEmpty ? "—" : string.Join(", ", b.Points.Select(p => p.Name + " " + At(p.Location)))]),
+                new HashSet<int> { 1 });
+        if (network.Masses.Length > 0)
+            html.Table("Point masses", ["Name", $"Mass ({u.MassSymbol})", $"Location ({u.LengthSymbol})", "Moves in"],
+                network.Masses.Select(m => (IReadOnlyList<string>)[m.Name, u.Mass(m.Kilograms, given: true),
+                    m.Location is { } l ? At(l) : "—",
+                    string.Join(", ", (m.Moves.IsEmpty ? Directions.Translations(network.Space) : m.Moves).Select(d => d.Label()))]),
+                new HashSet<int> { 1 });
+        if (network.Springs.Length > 0)
+            html.Table("Springs", ["Name", "Between", "Stiffness"],
+                network.Springs.Select(s => (IReadOnlyList<string>)[s.Name, $"{s.NodeA} – {s.NodeB}",
+                    Values(s.Components, s.Axial, s.Stiffness, v => u.Stiffness(v, given: true), u.StiffnessSymbol, "N·m/rad")]));
+        if (network.Dampers.Length > 0)
+            html.Table("Dampers", ["Name", "Between", "Coefficient"],
+                network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}",
+                    Values(d.Components, d.Axial, d.Coefficient, v => u.Damping(v, given: true), u.DampingSymbol, "N·m·s/rad")]));
+        if (_context.Document.Warnings.Length > 0)
+        {
+            html.Heading("Warnings from reading the model");
+            html.List(_context.Document.Warnings.Select(w => w.ToString()), "warnings");
+        }
+        html.Figure(_drawing);
+    }
+
     /// <inheritdoc />
     public void WriteJson(Utf8JsonWriter json)
     {
@@ -106,6 +188,14 @@ public sealed class ModelSummarySection : IReportSection
                 json.WriteNumberValue(p.Y);
                 json.WriteEndArray();
             }
+            else if (m.Location is { } l)
+            {
+                json.WriteStartArray("at_m");
+                json.WriteNumberValue(l.X);
+                json.WriteNumberValue(l.Y);
+                json.WriteNumberValue(l.Z);
+                json.WriteEndArray();
+            }
             else json.WriteNull("at_m");
             json.WriteEndObject();
         }
@@ -116,6 +206,25 @@ public sealed class ModelSummarySection : IReportSection
         foreach (var s in network.Supports) json.WriteStringValue(s.Name);
         json.WriteEndArray();
         json.WriteStartObject("drawing");
+        if (_context.Geometry is { } geometry)
+        {
+            // Plane and 3d models are drawn from their locations: [x, y, z] of each mass and body centre of mass.
+            json.WriteBoolean("automatic_layout", false);
+            json.WriteString("axis", geometry.Space == ModelSpace.ThreeD ? "side and plan views" : "side view");
+            json.WriteStartObject("positions_m");
+            foreach (var n in geometry.Nodes.Where(n => n.Kind != SpatialNodeKind.Support))
+            {
+                json.WriteStartArray(n.Name);
+                json.WriteNumberValue(n.Location.X);
+                json.WriteNumberValue(n.Location.Y);
+                json.WriteNumberValue(n.Location.Z);
+                json.WriteEndArray();
+            }
+            json.WriteEndObject();
+            json.WriteEndObject();
+            json.WriteEndObject();
+            return;
+        }
         json.WriteBoolean("automatic_layout", _context.Layout.Automatic);
         json.WriteString("axis", _context.Layout.Axis == ChainAxis.Vertical ? "vertical" : "horizontal");
         json.WriteStartObject("positions_m");

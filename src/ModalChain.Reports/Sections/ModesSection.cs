@@ -30,11 +30,20 @@ public sealed class ModesSection : IReportSection
         _result = context.Modal;
         _complexModes = context.Damped.IsClassical ? [] : ComplexModes.Solve(context.Damped);
         _massChart = MassChart(_result);
+        if (context.Geometry is { } geometry)
+        {
+            var animateSpatial = geometry.Nodes.Length <= context.Options.MaxAnimatedMasses;
+            _modeFigures = [.. _result.Modes.Select(mode => SpatialModeFigure(mode, geometry, animateSpatial))];
+            return;
+        }
         var layout = context.Layout;
         var scale = NetworkFigure.NiceShapeScale(layout);
         var animate = layout.Masses.Length <= context.Options.MaxAnimatedMasses;
         _modeFigures = [.. _result.Modes.Select(mode => ModeFigure(mode, layout, scale, animate))];
     }
+
+    /// <summary>The modes the section shows (the lowest <see cref="ReportOptions.MaxModes"/>).</summary>
+    public ModalResult Result => _result;
 
     /// <summary>The factory registered in <see cref="ReportSections.Default"/>; every model has this section.</summary>
     public static IReportSection? Create(ReportContext context) => new ModesSection(context);
@@ -73,7 +82,7 @@ public sealed class ModesSection : IReportSection
         var network = _result.Network;
         var dofs = _result.Matrices.Dofs.Dofs.Select(d => d.ToString()).ToArray();
         var shown = _result.Modes.Length;
-        var total = network.Masses.Length;
+        var total = _context.Geometry is null ? network.Masses.Length : _result.Matrices.Dofs.Count;
         var limit = shown < total ? string.Create(Inv, $" (the report shows at most the lowest {_context.Options.MaxModes})") : "";
         html.Paragraph(string.Create(Inv, $"The undamped natural modes (K φ = ω² M φ), lowest first: {shown} of {total} mode{(total == 1 ? "" : "s")}{limit}. ") +
             "f is the undamped natural frequency, T = 1/f the period, ω = 2πf, ζ the modal damping ratio. Shapes are mass-normalised (φᵀMφ = 1); M* is the effective modal mass, " +
@@ -116,7 +125,9 @@ public sealed class ModesSection : IReportSection
             html.Paragraph("Warning: " + w, "note");
         html.Figure(_massChart);
         html.Heading("Mode shapes");
-        html.Paragraph("Each figure shows the undeformed network (grey, dashed) and the mode shape (blue, solid). Displacements act in the network's single direction of motion and are drawn across the chain so masses do not overlap; the numbers beside the masses are the normalised amplitudes (largest = +1). A mode has no absolute amplitude: only the ratios between masses are meaningful.");
+        html.Paragraph(_context.Geometry is null
+            ? "Each figure shows the undeformed network (grey, dashed) and the mode shape (blue, solid). Displacements act in the network's single direction of motion and are drawn across the chain so masses do not overlap; the numbers beside the masses are the normalised amplitudes (largest = +1). A mode has no absolute amplitude: only the ratios between masses are meaningful."
+            : SpatialModesNote);
         foreach (var figure in _modeFigures) html.Figure(figure);
     }
 
@@ -153,6 +164,54 @@ public sealed class ModesSection : IReportSection
         var caption = string.Create(Inv,
             $"Mode {mode.Number} at {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz ({(mode.IsRigidBody ? "rigid-body mode" : "period " + DisplayUnits.Number(mode.PeriodSeconds) + " s")}), effective mass {DisplayUnits.Percent(mode.EffectiveMassFraction)} %. Shape normalised to +1 at {referenceName}.");
         return new SchematicFigure(FigureName(mode.Number), caption, "mode", scene, animate);
+    }
+
+    /// <summary>What the mode figures of a plane or 3d model show, said once above them.</summary>
+    public const string SpatialModesNote =
+        "Each figure shows the model to scale from its locations, undeformed (grey, dashed) and in the mode shape (blue, solid), in a side view (x to the right, z up) and, for 3d models, a plan view (x to the right, y up the page) on the same scale. " +
+        "Bodies are drawn as boxes that move rigidly (each corner by u = u_c + θ × (p − c)), point masses as squares, mounts between their attachment points and supports as hatched anchors. " +
+        "The motion is magnified so that the point that moves most is displaced by a stated fraction of the model's size; a mode has no absolute amplitude.";
+
+    private SchematicFigure SpatialModeFigure(Mode mode, SpatialGeometry geometry, bool animate)
+    {
+        var dofs = _result.Matrices.Dofs;
+        var motion = new ShapeMotion(mode.Shape, (node, direction) => dofs.IndexOf(node, direction));
+        const double fraction = 0.12;
+        var scale = SpatialFigure.Scale(geometry, motion, fraction);
+        var header = new[]
+        {
+            ModeTitle(mode),
+            (mode.Motion is { } motionName ? Capitalised(motionName) + string.Create(Inv, $" (decoupling {mode.Decoupling:0.00})  ·  ") : "")
+                + string.Create(Inv, $"Period {(mode.IsRigidBody ? "none (rigid-body mode)" : DisplayUnits.Number(mode.PeriodSeconds) + " s")}  ·  ω = {DisplayUnits.Number(mode.AngularFrequency)} rad/s"),
+        };
+        string[] footer =
+        [
+            scale.Factor > 0
+                ? string.Create(Inv, $"Magnified: the largest motion (at {scale.At}) is drawn as {DisplayUnits.Number(fraction * geometry.Size)} m, {fraction * 100:0} % of the model's size ({DisplayUnits.Number(geometry.Size)} m).")
+                : "No drawn point moves in this mode.",
+            .. BoxNote(geometry) is { Length: > 0 } note ? [note] : Array.Empty<string>(),
+        ];
+        var scene = SpatialFigure.Mode(geometry, new SpatialOverlay(motion, fraction, animate ? 25 : 1), header, footer);
+        scene = scene with { Data = scene.Data.Add("mode", mode.Number.ToString(Inv)).Add("omega-rad-s", mode.AngularFrequency.ToString("R", Inv)) };
+        var caption = string.Create(Inv,
+            $"Mode {mode.Number} at {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz ({(mode.IsRigidBody ? "rigid-body mode" : "period " + DisplayUnits.Number(mode.PeriodSeconds) + " s")}), side{(geometry.Space == Core.Model.ModelSpace.ThreeD ? " and plan views" : " view")}, magnified so the largest motion is {fraction * 100:0} % of the model's size.");
+        return new SchematicFigure(FigureName(mode.Number), caption, "mode", scene, animate);
+    }
+
+    private static string Capitalised(string text) => text.Length == 0 ? text : char.ToUpperInvariant(text[0]) + text[1..];
+
+    /// <summary>How the figures size the bodies' boxes, or an empty string when the model has no body.</summary>
+    public static string BoxNote(SpatialGeometry geometry)
+    {
+        ArgumentNullException.ThrowIfNull(geometry);
+        var boxes = geometry.Nodes.Where(n => n.Box is not null).Select(n => n.Box!.Source).Distinct().ToList();
+        return boxes.Count switch
+        {
+            0 => "",
+            _ when boxes.All(b => b == BoxSource.Inertia) => "Bodies are drawn as the homogeneous box with their mass and inertia.",
+            _ when boxes.All(b => b == BoxSource.Points) => "Bodies are drawn as the box around the centre of mass that reaches their farthest points.",
+            _ => "Bodies are drawn as the homogeneous box with their mass and inertia where the inertia is diagonal, otherwise as the box reaching their farthest points.",
+        };
     }
 
     /// <summary>The shape scale as the figure states it (shortest round-trip form, e.g. "2.5").</summary>

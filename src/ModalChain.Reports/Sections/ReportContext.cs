@@ -12,6 +12,7 @@ public sealed class ReportContext
 {
     private readonly Lazy<ModalResult> _modal;
     private readonly Lazy<NetworkLayout> _layout;
+    private readonly Lazy<SpatialGeometry?> _geometry;
     private readonly Lazy<DampedSystem> _damped;
     private readonly Lazy<HarmonicResult?> _harmonic;
     private readonly Lazy<LoadCaseResult?> _loadCases;
@@ -31,6 +32,7 @@ public sealed class ReportContext
             return all.Modes.Length <= options.MaxModes ? all : all with { Modes = [.. all.Modes.Take(options.MaxModes)] };
         });
         _layout = new Lazy<NetworkLayout>(() => NetworkLayout.For(document.Network));
+        _geometry = new Lazy<SpatialGeometry?>(() => document.Network.Space == Core.Model.ModelSpace.Line ? null : SpatialGeometry.For(document.Network));
         _damped = new Lazy<DampedSystem>(() => DampedSystem.Build(document.Structure, new ModalOptions(Choice: options.Solver)));
         _harmonic = new Lazy<HarmonicResult?>(() =>
             document.Harmonic is { } spec && !document.Structure.Loads.IsEmpty && document.Cases is null ? HarmonicAnalysis.Solve(Damped, spec) : null);
@@ -59,6 +61,9 @@ public sealed class ReportContext
     /// <summary>The sweep of each load case and their combination, or null when the model has no 'harmonic' section or no 'load-cases'.</summary>
     public LoadCaseResult? LoadCases => _loadCases.Value;
 
-    /// <summary>The drawing layout of the network (laid out on first use).</summary>
+    /// <summary>The drawing layout of a line model's network (laid out on first use); plane and 3d models are drawn from <see cref="Geometry"/>.</summary>
     public NetworkLayout Layout => _layout.Value;
+
+    /// <summary>The mechanical geometry of a plane or 3d model as its figures draw it; null for a line model.</summary>
+    public SpatialGeometry? Geometry => _geometry.Value;
 }
