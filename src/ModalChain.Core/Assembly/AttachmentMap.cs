@@ -1,4 +1,3 @@
-using System.Collections.Immutable;
 using ModalChain.Core.Dofs;
 using ModalChain.Core.Model;
 
@@ -29,7 +28,6 @@ internal enum AttachmentKind
 /// </remarks>
 internal sealed class AttachmentMap
 {
-    private static readonly Direction[] Order = [Direction.X, Direction.Y, Direction.Z, Direction.Rx, Direction.Ry, Direction.Rz];
     private readonly (int Dof, double Coefficient)[][] _rows;
 
     private AttachmentMap(string reference, string node, AttachmentKind kind, Point3? location, (int, double)[][] rows)
@@ -125,7 +123,4 @@ internal sealed class AttachmentMap
         private static (int, double)[] Terms(params (int Dof, double Coefficient)[] terms) =>
             [.. terms.Where(t => t.Dof >= 0 && t.Coefficient != 0)];
     }
-
-    /// <summary>The global directions in row order.</summary>
-    public static ImmutableArray<Direction> RowDirections => [.. Order];
 }

@@ -75,7 +75,10 @@ public static class DampingAssembly
         ArgumentNullException.ThrowIfNull(modes);
         ArgumentNullException.ThrowIfNull(damping);
         var n = mass.RowCount;
-        var rigidBodyModes = Topology.UnsupportedGroups(modes.Network).Length;
+        // Plane and 3d models count rigid-body modes from the null space of K (topology cannot), and a body's inertia may couple M.
+        var spatial = modes.Network.Space != ModelSpace.Line;
+        var rigidBodyModes = spatial ? modes.Modes.Count(m => m.IsRigidBody) : Topology.UnsupportedGroups(modes.Network).Length;
+        var fullProduct = spatial ? mass * Shapes(modes) : null;
         var mPhi = Matrix<double>.Build.Dense(n, modes.Modes.Length);
         var scaled = Matrix<double>.Build.Dense(n, modes.Modes.Length);
         for (var j = 0; j < modes.Modes.Length; j++)
@@ -84,7 +87,7 @@ public static class DampingAssembly
             var c = j < rigidBodyModes || mode.IsRigidBody ? 0 : 2 * damping.ModalRatioOf(j - rigidBodyModes + 1) * mode.AngularFrequency;
             for (var i = 0; i < n; i++)
             {
-                var v = mass[i, i] * mode.Shape[i];
+                var v = fullProduct?[i, j] ?? mass[i, i] * mode.Shape[i];
                 mPhi[i, j] = v;
                 scaled[i, j] = c * v;
             }

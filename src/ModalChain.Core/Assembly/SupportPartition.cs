@@ -13,9 +13,9 @@ namespace ModalChain.Core.Assembly;
 /// prescribed motion. Matrices are dense (this partition is meant for models up to a few thousand DOFs).
 /// Reusable by every analysis that moves supports (harmonic, time stepping).
 /// </remarks>
-/// <param name="Free">Numbering of the free DOFs (one per mass).</param>
-/// <param name="Supports">Names of the prescribed DOFs, ground first, in the network's support order.</param>
-/// <param name="Mass">M over the free DOFs in kg (diagonal).</param>
+/// <param name="Free">Numbering of the free DOFs (one per mass in a line model; see <see cref="DofMap.For"/>).</param>
+/// <param name="Supports">Names of the prescribed DOFs, ground first, in the network's support order (plane and 3d models: <c>support.x</c>, <c>support.z</c>, … per translation).</param>
+/// <param name="Mass">M over the free DOFs in kg (diagonal in line models; a body's inertia may couple its rotations).</param>
 /// <param name="StiffnessFF">K_ff in N/m.</param>
 /// <param name="StiffnessFP">K_fp in N/m (free rows, support columns).</param>
 /// <param name="StiffnessPP">K_pp in N/m.</param>
@@ -42,10 +42,19 @@ public sealed record SupportPartition(
     /// <summary>Column of <paramref name="support"/> in the prescribed partition, or −1.</summary>
     public int SupportIndex(string support) => Supports.IndexOf(support);
 
+    /// <summary>
+    /// Column of <paramref name="support"/>'s prescribed translation <paramref name="direction"/> (plane and 3d models,
+    /// whose prescribed columns are labelled <c>support.x</c> …), or −1; in a line model the direction must be Along.
+    /// </summary>
+    public int SupportIndex(string support, Direction direction) =>
+        direction == Direction.Along ? SupportIndex(support) : Supports.IndexOf($"{support}.{direction.Label()}");
+
     /// <summary>Assembles the partition of <paramref name="network"/>.</summary>
+    /// <remarks>Plane and 3d models: one prescribed column per support and translation of the space (<see cref="SpatialAssembly.Partition"/>).</remarks>
     public static SupportPartition Assemble(Network network)
     {
         ArgumentNullException.ThrowIfNull(network);
+        if (network.Space != ModelSpace.Line) return SpatialAssembly.Partition(network);
         var free = DofMap.ForScalarNetwork(network);
         var supports = network.Supports.Select(s => s.Name).ToImmutableArray();
         var n = free.Count;

@@ -63,6 +63,8 @@ public static class ComplexModes
     {
         ArgumentNullException.ThrowIfNull(system);
         var free = system.Partition.Free;
+        // Plane and 3d models: no topological groups (rigid-body roots are recognised by size), M may be full.
+        if (system.Model.Network.Space != ModelSpace.Line) return Solve(system.Partition.Mass, system.Partition.StiffnessFF, system.Damping.FF);
         var groups = Topology.UnsupportedGroups(system.Model.Network)
             .Select(g => g.Select(name => free.IndexOf(name)).Where(i => i >= 0).Distinct().ToArray())
             .Where(g => g.Length > 0)
@@ -70,7 +72,7 @@ public static class ComplexModes
         return Solve(system.Partition.Mass, system.Partition.StiffnessFF, system.Damping.FF, groups);
     }
 
-    /// <summary>The complex modes of M ẍ + C ẋ + K x = 0 with diagonal M in kg, K in N/m and C in N·s/m.</summary>
+    /// <summary>The complex modes of M ẍ + C ẋ + K x = 0 with M in kg (diagonal, or symmetric positive definite), K in N/m and C in N·s/m.</summary>
     /// <remarks>Without the topology, zero roots are recognised only by their size (below 1e-9 of the largest |λ|) and left out.</remarks>
     public static ImmutableArray<ComplexMode> Solve(Matrix<double> mass, Matrix<double> stiffness, Matrix<double> damping)
     {
@@ -79,14 +81,37 @@ public static class ComplexModes
         ArgumentNullException.ThrowIfNull(damping);
         var n = mass.RowCount;
         var a = Matrix<double>.Build.Dense(2 * n, 2 * n);
-        for (var i = 0; i < n; i++)
+        var diagonal = true;
+        for (var i = 0; i < n && diagonal; i++)
+            for (var j = 0; j < n && diagonal; j++)
+                diagonal = i == j || mass[i, j] == 0;
+        if (diagonal)
         {
-            a[i, n + i] = 1;
-            var inv = 1 / mass[i, i];
-            for (var j = 0; j < n; j++)
+            for (var i = 0; i < n; i++)
             {
-                a[n + i, j] = -inv * stiffness[i, j];
-                a[n + i, n + j] = -inv * damping[i, j];
+                a[i, n + i] = 1;
+                var inv = 1 / mass[i, i];
+                for (var j = 0; j < n; j++)
+                {
+                    a[n + i, j] = -inv * stiffness[i, j];
+                    a[n + i, n + j] = -inv * damping[i, j];
+                }
+            }
+        }
+        else
+        {
+            // A body's inertia couples its rotations: M⁻¹K and M⁻¹C through a Cholesky solve.
+            var cholesky = Matrix<double>.Build.DenseOfMatrix(mass).Cholesky();
+            var mk = cholesky.Solve(Matrix<double>.Build.DenseOfMatrix(stiffness));
+            var mc = cholesky.Solve(Matrix<double>.Build.DenseOfMatrix(damping));
+            for (var i = 0; i < n; i++)
+            {
+                a[i, n + i] = 1;
+                for (var j = 0; j < n; j++)
+                {
+                    a[n + i, j] = -mk[i, j];
+                    a[n + i, n + j] = -mc[i, j];
+                }
             }
         }
         var values = a.Evd().EigenValues;

@@ -19,7 +19,9 @@ public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? So
 /// Solves K φ = ω² M φ. Shapes are mass-normalised (φᵀMφ = 1). Participation Γ = φᵀMι and effective modal mass
 /// M* = Γ² (Chopra, Dynamics of Structures, §13.2; the 90 % cumulative rule is in ASCE 7-16 §12.9.1.1 and
 /// EN 1998-1 §4.3.3.3.1). Rigid-body modes are decided by the topology and low modes are resolved to relative
-/// accuracy whatever the stiffness spread (see <see cref="ModeResolution"/>).
+/// accuracy whatever the stiffness spread (see <see cref="ModeResolution"/>). Plane and 3d models take another
+/// path (<see cref="SpatialModes"/>): rigid-body modes from the null space of K, participation per direction about a
+/// reference point, kinetic-energy shares per direction and a motion name per mode.
 /// </remarks>
 public static class ModalAnalysis
 {
@@ -38,6 +40,7 @@ public static class ModalAnalysis
 
         double? limit = options.BelowFrequencyHz is { } below ? Math.Pow(2 * Math.PI * below, 2) : null;
         var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver, options.Choice, limit);
+        if (network.Space != ModelSpace.Line) return SpatialModes.Build(network, matrices, solution);
         var m = matrices.Mass;
         var k = matrices.Stiffness;
         var iota = matrices.Influence;
@@ -87,13 +90,18 @@ public static class ModalAnalysis
                 CumulativeEffectiveMassFraction: cumulative,
                 KineticEnergyShare: KineticShares(phi, mPhi),
                 StrainEnergyShare: rigid ? [.. new double[springEnds.Length]] : StrainShares(phi, springEnds),
-                Residual: residual));
+                Residual: residual)
+            {
+                Participation = [new DirectionalParticipation(Dofs.Direction.Along, gamma, effective, fraction, cumulative)],
+                KineticEnergyByDirection = [new DirectionalFigure(Dofs.Direction.Along, 1)],
+            });
         }
 
         var quality = new ModalQuality(maxResidual, ModeChecks.OrthogonalityError(resolved.Shapes, m, matrices.MassIsDiagonal));
         return new ModalResult(network, matrices, modes.MoveToImmutable(), totalMass, quality, solution.Algorithm)
         {
             Warnings = resolved.Warnings,
+            TotalByDirection = [new DirectionalFigure(Dofs.Direction.Along, totalMass)],
         };
     }
 
