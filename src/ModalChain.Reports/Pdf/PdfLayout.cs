@@ -115,10 +115,9 @@ public sealed class PdfLayout : IDisposable
                 }
                 if (line.Length > 0) lines.Add(line);
                 line = word;
-                while (Measure(line, size, bold) > width && line.Length > 1)
+                while (line.Length > 1 && Measure(line, size, bold) > width)
                 {
-                    var fit = 1;
-                    while (fit < line.Length && Measure(line[..(fit + 1)], size, bold) <= width) fit++;
+                    var fit = LongestPrefix(line, width, size, bold);
                     lines.Add(line[..fit]);
                     line = line[fit..];
                 }
@@ -446,8 +445,23 @@ public sealed class PdfLayout : IDisposable
     internal string Fit(string text, float width, float size, bool bold = false)
     {
         if (Measure(text, size, bold) <= width) return text;
-        var n = text.Length;
-        while (n > 0 && Measure(text[..n] + "…", size, bold) > width) n--;
+        var n = LongestPrefix(text, width - Measure("…", size, bold), size, bold);
         return text[..n] + "…";
+    }
+
+    /// <summary>Length of the longest prefix of <paramref name="text"/> (at least 1) no wider than <paramref name="width"/>, by bisection.</summary>
+    /// <remarks>Only a prefix a line could hold is ever measured (a glyph is at least a tenth of the font size wide), so a
+    /// hostile title of a million characters without a space costs a few short measurements per line.</remarks>
+    private int LongestPrefix(string text, float width, float size, bool bold)
+    {
+        var low = 1;
+        var high = (int)Math.Min(text.Length, Math.Max(1, 10 * width / size) + 1);
+        while (low < high)
+        {
+            var mid = (low + high + 1) / 2;
+            if (Measure(text[..mid], size, bold) <= width) low = mid;
+            else high = mid - 1;
+        }
+        return low;
     }
 }
