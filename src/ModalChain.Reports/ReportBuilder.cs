@@ -29,9 +29,9 @@ public static class ReportBuilder
         var duplicate = figures.GroupBy(f => f.Name).FirstOrDefault(g => g.Count() > 1);
         if (duplicate is not null) throw new InvalidOperationException($"Two figures are named '{duplicate.Key}'; figure names must be unique in a report.");
 
-        var html = HtmlReport.Render(context, present);
+        var html = HtmlReport.Render(context, present, out var blocks);
         var json = Json(context, present, figures.Select(f => f.Name));
-        return new Report(html, json, present, figures);
+        return new Report(html, json, present, figures) { Document = blocks };
     }
 
     private static ImmutableArray<byte> Json(ReportContext context, ImmutableArray<IReportSection> sections, IEnumerable<string> figures)

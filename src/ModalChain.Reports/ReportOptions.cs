@@ -11,7 +11,7 @@ public enum ReportFormat
     /// <summary>Every figure as SVG, no HTML.</summary>
     Svg,
 
-    /// <summary>report.html and every figure as SVG and as PDF.</summary>
+    /// <summary>report.pdf (the whole report as one PDF) beside report.html, every figure as SVG and each figure also as its own PDF.</summary>
     Pdf,
 }
 

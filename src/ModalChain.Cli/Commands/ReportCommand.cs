@@ -9,7 +9,7 @@ using ModalChain.Reports.Writing;
 
 namespace ModalChain.Cli.Commands;
 
-/// <summary><c>modalchain report FILE -o DIR</c>: the self-contained HTML report, every figure as its own file and results.json.</summary>
+/// <summary><c>modalchain report FILE -o DIR</c>: the self-contained HTML report (and report.pdf with --format pdf), every figure as its own file and results.json.</summary>
 internal static class ReportCommand
 {
     public static Command Create(Streams io)
@@ -17,7 +17,7 @@ internal static class ReportCommand
         var file = CommonOptions.ModelFile();
         var output = new Option<string>("--output", "-o") { Description = "Folder to write into (created when missing). Written atomically: a failed run leaves it as it was.", Required = true };
         var format = CommandValues.Choice("--format",
-            "html: report.html + SVG figures + results.json (the default); svg: the SVG figures and results.json only; pdf: as html, plus each figure as PDF.",
+            "html: report.html + SVG figures + results.json (the default); svg: the SVG figures and results.json only; pdf: as html, plus report.pdf, the whole report as one A4 PDF (and each figure as its own PDF).",
             ("html", ReportFormat.Html), ("svg", ReportFormat.Svg), ("pdf", ReportFormat.Pdf));
         var units = CommonOptions.Units();
         var modes = CommandValues.Count("--modes", "Largest number of modes tabulated and drawn (the lowest ones; default 20).", 1);
@@ -29,7 +29,7 @@ internal static class ReportCommand
         var command = new Command("report",
             "Write a reviewer's report of the model into a folder: report.html (one self-contained file: model summary, " +
             "network drawing, modes table, one figure per mode shape, the tuned absorber with --absorber-host and --mass-ratio, caution and traceability to the model file), each figure " +
-            "as its own SVG (and PDF with --format pdf), and results.json with every number behind the report (SI).")
+            "as its own SVG, results.json with every number behind the report (SI), and with --format pdf the whole report as one A4 PDF, report.pdf.")
         { file, output, format, units, modes, absorberHost, massRatio, absorberMode, absorberMethod };
         var solver = CommonOptions.Solver();
         command.Add(solver);

@@ -2,7 +2,7 @@ using SkiaSharp;
 
 namespace ModalChain.Reports.Drawing;
 
-/// <summary>Renders a <see cref="Scene"/> as a one-page PDF with SkiaSharp (vector output, fonts embedded).</summary>
+/// <summary>Renders a <see cref="Scene"/> as a one-page PDF with SkiaSharp (vector output, fonts embedded), or onto a page of a longer PDF.</summary>
 public static class PdfSceneWriter
 {
     /// <summary>Writes <paramref name="scene"/> to <paramref name="stream"/>; the page is the scene's size at 72 points per 96 user units.</summary>
@@ -14,11 +14,19 @@ public static class PdfSceneWriter
         using var document = SKDocument.CreatePdf(stream);
         using var canvas = document.BeginPage((float)scene.Width * pointsPerUnit, (float)scene.Height * pointsPerUnit);
         canvas.Scale(pointsPerUnit);
+        Draw(canvas, scene);
+        document.EndPage();
+        document.Close();
+    }
+
+    /// <summary>Paints <paramref name="scene"/> onto <paramref name="canvas"/> in user units, its top-left corner at the canvas origin (a page of report.pdf or a page of its own).</summary>
+    public static void Draw(SKCanvas canvas, Scene scene)
+    {
+        ArgumentNullException.ThrowIfNull(canvas);
+        ArgumentNullException.ThrowIfNull(scene);
         using var typeface = SKTypeface.FromFamilyName(Scene.FontFamily) ?? SKTypeface.Default;
         using var bold = SKTypeface.FromFamilyName(Scene.FontFamily, SKFontStyle.Bold) ?? typeface;
         foreach (var shape in scene.Shapes) Draw(canvas, shape, typeface, bold);
-        document.EndPage();
-        document.Close();
     }
 
     private static void Draw(SKCanvas canvas, Shape shape, SKTypeface typeface, SKTypeface bold)

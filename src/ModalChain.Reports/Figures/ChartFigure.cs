@@ -53,6 +53,25 @@ public sealed partial class ChartFigure : ReportFigure
         lock (Model.SyncRoot) exporter.Export(Model, stream);
     }
 
+    /// <inheritdoc />
+    public override (double Width, double Height)? Size => (Width, Height);
+
+    /// <inheritdoc />
+    public override void Draw(SkiaSharp.SKCanvas canvas)
+    {
+        ArgumentNullException.ThrowIfNull(canvas);
+        // The same render context the PDF exporter uses, on a canvas the caller placed; DpiScale 1 keeps user units.
+        using var context = new OxyPlot.SkiaSharp.SkiaRenderContext
+        {
+            RenderTarget = OxyPlot.SkiaSharp.RenderTarget.VectorGraphic, SkCanvas = canvas, UseTextShaping = false, DpiScale = 1,
+        };
+        lock (Model.SyncRoot)
+        {
+            ((IPlotModel)Model).Update(true);
+            ((IPlotModel)Model).Render(context, new OxyRect(0, 0, Width, Height));
+        }
+    }
+
     private string Export()
     {
         using var buffer = new MemoryStream();

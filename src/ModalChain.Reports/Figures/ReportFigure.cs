@@ -31,4 +31,12 @@ public abstract class ReportFigure
 
     /// <summary>Writes the figure as a one-page vector PDF.</summary>
     public abstract void WritePdf(Stream stream);
+
+    /// <summary>Width and height in user units (1/96 in) of what <see cref="Draw"/> paints; null when the figure cannot be drawn onto a page.</summary>
+    public virtual (double Width, double Height)? Size => null;
+
+    /// <summary>Paints the figure as vectors onto <paramref name="canvas"/>, its top-left corner at the origin, in user units (the caller scales).</summary>
+    /// <remarks>Used by report.pdf to place every figure on its page; a figure without a <see cref="Size"/> is not drawn.</remarks>
+    public virtual void Draw(SkiaSharp.SKCanvas canvas) =>
+        throw new NotSupportedException($"Figure '{Name}' cannot be drawn onto a page.");
 }

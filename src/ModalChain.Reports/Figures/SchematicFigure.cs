@@ -21,4 +21,10 @@ public sealed class SchematicFigure(string name, string caption, string kind, Sc
 
     /// <inheritdoc />
     public override void WritePdf(Stream stream) => PdfSceneWriter.Write(Scene, stream);
+
+    /// <inheritdoc />
+    public override (double Width, double Height)? Size => (Scene.Width, Scene.Height);
+
+    /// <inheritdoc />
+    public override void Draw(SkiaSharp.SKCanvas canvas) => PdfSceneWriter.Draw(canvas, Scene);
 }

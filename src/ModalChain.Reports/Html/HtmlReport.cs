@@ -1,6 +1,9 @@
+using System.Collections.Immutable;
 using System.Globalization;
 using System.Text;
 using ModalChain.Core;
+using ModalChain.Io.Text;
+using ModalChain.Reports.Pdf;
 using ModalChain.Reports.Sections;
 using ModalChain.Reports.Units;
 
@@ -10,11 +13,14 @@ namespace ModalChain.Reports.Html;
 /// <remarks>No script, no external resource: the file opens offline and prints the same anywhere.</remarks>
 internal static class HtmlReport
 {
-    public static string Render(ReportContext context, IReadOnlyList<IReportSection> sections)
+    public static string Render(ReportContext context, IReadOnlyList<IReportSection> sections) => Render(context, sections, out _);
+
+    /// <summary>Renders report.html and returns the same content as blocks in <paramref name="blocks"/> (for report.pdf), each section written once.</summary>
+    public static string Render(ReportContext context, IReadOnlyList<IReportSection> sections, out ReportDocument blocks)
     {
         var document = context.Document;
         var title = document.Network.Title;
-        var generated = context.Options.Generated.ToUniversalTime().ToString("yyyy-MM-dd HH:mm 'UTC'", CultureInfo.InvariantCulture);
+        var generated = Generated(context);
         var e = (Func<string, string>)HtmlWriter.Encode;
         var html = new StringBuilder();
         html.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n");
@@ -25,14 +31,8 @@ internal static class HtmlReport
 
         html.Append("<header class=\"report-header\">\n<div class=\"kicker\">ModalChain vibration report</div>\n");
         html.Append($"<h1>{e(title)}</h1>\n");
-        var trace = new HtmlWriter().Facts(
-        [
-            ("Model file", Path.GetFileName(document.File)),
-            ("SHA-256 of the model file", document.Sha256),
-            ("Tool", "ModalChain " + context.Options.ToolVersion),
-            ("Generated", generated),
-            ("Units shown", UnitsShown(context.Units)),
-        ], "facts trace");
+        var traceFacts = Trace(context);
+        var trace = new HtmlWriter().Facts(traceFacts, "facts trace");
         html.Append(trace).Append("</header>\n");
         html.Append($"<aside class=\"caution\" role=\"note\"><strong>Caution.</strong> {e(Cautions.Text)}</aside>\n");
 
@@ -41,6 +41,7 @@ internal static class HtmlReport
         html.Append("</ol></nav>\n");
 
         var number = 0;
+        var bodies = ImmutableArray.CreateBuilder<DocumentSection>();
         foreach (var s in sections)
         {
             number++;
@@ -48,14 +49,30 @@ internal static class HtmlReport
             s.WriteHtml(body);
             html.Append($"<section id=\"{e(s.Key)}\" class=\"report-section\">\n<h2><span class=\"number\">{number}</span> {e(s.Title)}</h2>\n");
             html.Append(body).Append("</section>\n");
+            bodies.Add(new DocumentSection(number, s.Key, MarkupText.Clean(s.Title), body.Blocks));
         }
 
         html.Append("<footer class=\"report-footer\">\n");
         html.Append($"<p><strong>Caution.</strong> {e(Cautions.Text)}</p>\n");
+        var traceLine = $"{Path.GetFileName(document.File)} · SHA-256 {document.Sha256} · ModalChain {context.Options.ToolVersion} · {generated}";
         html.Append($"<p class=\"trace-line\">{e(Path.GetFileName(document.File))} · SHA-256 {e(document.Sha256)} · ModalChain {e(context.Options.ToolVersion)} · {e(generated)}</p>\n");
         html.Append("</footer>\n</body>\n</html>\n");
+        blocks = new ReportDocument(MarkupText.Clean(title), [.. traceFacts.Select(f => (MarkupText.Clean(f.Key), MarkupText.Clean(f.Value)))], bodies.ToImmutable(), MarkupText.Clean(traceLine));
         return html.ToString();
     }
+
+    private static string Generated(ReportContext context) =>
+        context.Options.Generated.ToUniversalTime().ToString("yyyy-MM-dd HH:mm 'UTC'", CultureInfo.InvariantCulture);
+
+    /// <summary>The traceability facts under the title: model file, its SHA-256, tool, date and the units shown.</summary>
+    private static (string Key, string Value)[] Trace(ReportContext context) =>
+    [
+        ("Model file", Path.GetFileName(context.Document.File)),
+        ("SHA-256 of the model file", context.Document.Sha256),
+        ("Tool", "ModalChain " + context.Options.ToolVersion),
+        ("Generated", Generated(context)),
+        ("Units shown", UnitsShown(context.Units)),
+    ];
 
     // Print layout: the page box is left to the print dialogue (A4 or Letter) and content is sized for the smaller of the
     // two printable areas (A4 width 210 mm, Letter height 279 mm, minus the margins below), so either paper works.

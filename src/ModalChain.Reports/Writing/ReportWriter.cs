@@ -24,6 +24,9 @@ public static class ReportWriter
     /// <summary>File name of the HTML report.</summary>
     public const string HtmlFile = "report.html";
 
+    /// <summary>File name of the whole report as one PDF (with <see cref="ReportFormat.Pdf"/>).</summary>
+    public const string PdfFile = Pdf.PdfReport.FileName;
+
     /// <summary>File name of the numbers behind the report.</summary>
     public const string JsonFile = "results.json";
 
@@ -128,7 +131,7 @@ public static class ReportWriter
     {
         if (!File.Exists(Path.Combine(target, "report.html")) || Directory.EnumerateDirectories(target).Any()) return false;
         return Directory.EnumerateFiles(target).Select(Path.GetFileName).All(name =>
-            name is "report.html" or "results.json" ||
+            name is "report.html" or "results.json" or "report.pdf" ||
             name!.EndsWith(".svg", StringComparison.Ordinal) || name.EndsWith(".pdf", StringComparison.Ordinal));
     }
 
@@ -150,6 +153,7 @@ public static class ReportWriter
         }
         Add(JsonFile, s => s.Write(report.Json.AsSpan()));
         if (format != ReportFormat.Svg) Add(HtmlFile, s => Utf8(s, report.Html));
+        if (format == ReportFormat.Pdf && report.Document is { } document) Add(PdfFile, s => Pdf.PdfReport.Write(document, s));
         // The marker goes last: a staging folder with the marker holds a complete report.
         control.Step("write " + MarkerFile);
         AtomicFile.WriteStaged(Path.Combine(staging, MarkerFile), s => Utf8(s, MarkerText));

@@ -41,12 +41,13 @@ public sealed class ReportCommandTests
     }
 
     [Fact]
-    public void FormatPdf_AddsPdfFigures()
+    public void FormatPdf_AddsTheWholeReportAsOnePdfAndPdfFigures()
     {
         var dir = Path.Combine(Temp(), "out");
         var (code, _, stderr) = Run("report", Path.Combine(Root, "models", "chiller-deck.yaml"), "-o", dir, "--format", "pdf", "--units", "imperial");
         Assert.True(code == 0, stderr);
         Assert.True(File.Exists(Path.Combine(dir, "mode-01.pdf")));
+        Assert.Equal("%PDF-", System.Text.Encoding.ASCII.GetString(File.ReadAllBytes(Path.Combine(dir, "report.pdf")), 0, 5));
         Assert.Contains("Mass (lb)", File.ReadAllText(Path.Combine(dir, "report.html")), StringComparison.Ordinal);
     }
 

@@ -40,7 +40,8 @@ public sealed class ReportWriterTests
     {
         var dir = Path.Combine(Repository.TempDirectory(), "out");
         var files = ReportWriter.Write(SmallReport(), dir, ReportFormat.Pdf);
-        foreach (var svg in files.Where(f => f.EndsWith(".svg", StringComparison.Ordinal)))
+        Assert.Contains(ReportWriter.PdfFile, files);
+        foreach (var svg in files.Where(f => f.EndsWith(".svg", StringComparison.Ordinal)).Append(ReportWriter.PdfFile))
         {
             var pdf = File.ReadAllBytes(Path.Combine(dir, Path.ChangeExtension(svg, ".pdf")));
             Assert.True(pdf.Length > 100 && System.Text.Encoding.ASCII.GetString(pdf, 0, 5) == "%PDF-", $"{svg}: PDF missing or not a PDF");
@@ -65,7 +66,9 @@ public sealed class ReportWriterTests
         var dir = Path.Combine(parent, "out");
         ReportWriter.Write(ReportBuilder.Build(Repository.UniformChain(4, 1, 100), Options), dir, ReportFormat.Pdf);
         Assert.True(File.Exists(Path.Combine(dir, "mode-04.svg")));
+        Assert.True(File.Exists(Path.Combine(dir, ReportWriter.PdfFile)));
         ReportWriter.Write(SmallReport(), dir, ReportFormat.Html);
+        Assert.False(File.Exists(Path.Combine(dir, ReportWriter.PdfFile)));
 
         var fresh = Path.Combine(Repository.TempDirectory(), "fresh");
         ReportWriter.Write(SmallReport(), fresh, ReportFormat.Html);
