@@ -28,6 +28,7 @@ internal static class ValidateCommand
             o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.ForScalarNetwork(n).Count} (one direction per mass{(n.Links.IsEmpty ? "" : "; linked masses share one")})"));
             o.WriteLine(string.Create(inv, $"  total mass:          {n.TotalMass:G6} kg"));
             o.WriteLine(string.Create(inv, $"  springs, dampers:    {n.Springs.Length}, {n.Dampers.Length}"));
+            if (n.Inerters.Length > 0) o.WriteLine(string.Create(inv, $"  inerters:            {n.Inerters.Length}"));
             var groups = Topology.UnsupportedGroups(n);
             o.WriteLine(string.Create(inv, $"  unsupported groups:  {groups.Length}{(groups.Length > 0 ? " (rigid-body modes expected)" : "")}"));
             o.WriteLine(string.Create(inv, $"  warnings:            {CommonOptions.WarningCount(document)}"));

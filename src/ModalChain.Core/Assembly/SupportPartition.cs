@@ -15,7 +15,7 @@ namespace ModalChain.Core.Assembly;
 /// </remarks>
 /// <param name="Free">Numbering of the free DOFs (one per mass in a line model; see <see cref="DofMap.For"/>).</param>
 /// <param name="Supports">Names of the prescribed DOFs, ground first, in the network's support order (plane and 3d models: <c>support.x</c>, <c>support.z</c>, … per translation).</param>
-/// <param name="Mass">M over the free DOFs in kg (diagonal in line models; a body's inertia may couple its rotations).</param>
+/// <param name="Mass">M over the free DOFs in kg, inerters included (diagonal in line models without an inerter between two masses; a body's inertia may couple its rotations).</param>
 /// <param name="StiffnessFF">K_ff in N/m.</param>
 /// <param name="StiffnessFP">K_fp in N/m (free rows, support columns).</param>
 /// <param name="StiffnessPP">K_pp in N/m.</param>
@@ -71,6 +71,9 @@ public sealed record SupportPartition(
         foreach (var d in network.Dampers) AddTwoNode(c, Index(d.NodeA), Index(d.NodeB), d.Coefficient);
         var m = Matrix<double>.Build.Dense(n, n);
         foreach (var mass in network.Masses) m[free.IndexOf(mass.Name), free.IndexOf(mass.Name)] += mass.Kilograms;
+        var inertance = Matrix<double>.Build.Dense(total, total);
+        foreach (var b in network.Inerters) AddTwoNode(inertance, Index(b.NodeA), Index(b.NodeB), b.Inertance);
+        m += inertance.SubMatrix(0, n, 0, n);
 
         var p = supports.Length;
         return new SupportPartition(free, supports, m,

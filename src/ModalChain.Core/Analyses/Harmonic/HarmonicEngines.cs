@@ -39,7 +39,7 @@ internal abstract class HarmonicEngine(double[][] observations)
 /// <summary>The direct method: the exact solve of (K(1+iη) − ω²M + iωC) x = b through a Hessenberg form of the state matrix.</summary>
 /// <remarks>
 /// With z = [ω0·x; ẋ], the equations become (iωI − A) z = [0; M⁻¹b], A = [[0, ω0 I], [−M⁻¹K(1+iη)/ω0, −M⁻¹C]];
-/// ω0 = √(mean K_ii/M_ii) balances the two blocks. A = Q H Qᴴ is computed once (Householder), so each frequency
+/// ω0 = √(mean K_ii/M_ii) balances the two blocks; M⁻¹ is dense when an inerter couples two masses. A = Q H Qᴴ is computed once (Householder), so each frequency
 /// costs one O((2n)²) Hessenberg solve instead of an O(n³) factorisation (Laub 1981). This is exact for any
 /// damping (no modal truncation or classical-damping assumption).
 /// </remarks>
@@ -62,15 +62,20 @@ internal sealed class DirectEngine : HarmonicEngine
         var w0 = stiffnessScale > 0 ? Math.Sqrt(stiffnessScale / n) : 1.0;
         var k = new Complex(1, system.LossFactor);
 
+        // Lumped masses give a diagonal M; an inerter between two masses couples it, and M⁻¹ is then formed densely.
+        var massIsDiagonal = Assembler.IsDiagonal(p.Mass);
+        var inverse = massIsDiagonal ? null : p.Mass.Inverse();
+        var stiffness = massIsDiagonal ? p.StiffnessFF : inverse! * p.StiffnessFF;
+        var damping = massIsDiagonal ? system.Damping.FF : inverse! * system.Damping.FF;
         var a = new Complex[order * order];
         for (var i = 0; i < n; i++)
         {
             a[i * order + n + i] = w0;
-            var inv = 1 / p.Mass[i, i];
+            var inv = massIsDiagonal ? 1 / p.Mass[i, i] : 1.0;
             for (var j = 0; j < n; j++)
             {
-                a[(n + i) * order + j] = -k * (p.StiffnessFF[i, j] * inv / w0);
-                a[(n + i) * order + n + j] = -system.Damping.FF[i, j] * inv;
+                a[(n + i) * order + j] = -k * (stiffness[i, j] * inv / w0);
+                a[(n + i) * order + n + j] = -damping[i, j] * inv;
             }
         }
         _hessenberg = ComplexHessenberg.Reduce(a, order);
@@ -81,10 +86,11 @@ internal sealed class DirectEngine : HarmonicEngine
         for (var r = 0; r < _terms; r++)
         {
             var b = loading.Terms[r].Vector;
+            var mb = inverse is null ? null : Enumerable.Range(0, n).Select(i => Enumerable.Range(0, n).Aggregate(Complex.Zero, (s, j) => s + inverse[i, j] * b[j])).ToArray();
             for (var i = 0; i < n; i++)
             {
-                if (b[i] == Complex.Zero) continue;
-                var bi = b[i] / p.Mass[i, i];
+                var bi = mb is null ? b[i] / p.Mass[i, i] : mb[i];
+                if (bi == Complex.Zero) continue;
                 var row = q.AsSpan((n + i) * order, order);
                 var g = _g.AsSpan(r * order, order);
                 for (var j = 0; j < order; j++) g[j] += Complex.Conjugate(row[j]) * bi;

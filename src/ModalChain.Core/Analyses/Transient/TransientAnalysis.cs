@@ -60,7 +60,7 @@ public static class TransientAnalysis
         var network = system.Model.Network;
         var p = system.Partition;
         var matrices = new StructuralMatrices(p.Free, p.Mass, p.StiffnessFF, system.Damping.FF,
-            Vector<double>.Build.Dense(p.FreeCount, 1.0), MassIsDiagonal: true);
+            Vector<double>.Build.Dense(p.FreeCount, 1.0), MassIsDiagonal: Assembler.IsDiagonal(p.Mass));
         var coupling = new SupportCoupling(p.Supports, p.StiffnessFP, system.Damping.FP, p.StiffnessPP, system.Damping.PP);
         var notes = new List<string>();
         if (system.LossFactor > 0)
