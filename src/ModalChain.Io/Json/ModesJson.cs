@@ -50,6 +50,8 @@ public static class ModesJson
         foreach (var d in dofNames) writer.WriteStringValue(d);
         writer.WriteEndArray();
         writer.Number("total_mass_kg", result.TotalMass);
+        // ιᵀMι above counts the inerters' grounded terminals; this is the masses alone (equal without inerters).
+        if (result.Network.Inerters.Length > 0) writer.Number("physical_mass_kg", result.Network.TotalMass);
         writer.WriteString("algorithm", result.Algorithm);
 
         writer.WriteStartArray("modes");
