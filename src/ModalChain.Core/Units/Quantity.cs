@@ -27,4 +27,12 @@ public enum Quantity
     Acceleration,
     /// <summary>Mass-radius product of a rotating unbalance, SI unit kg·m.</summary>
     MassRadius,
+    /// <summary>Rotational stiffness (moment per rotation), SI unit N·m/rad.</summary>
+    RotationalStiffness,
+    /// <summary>Rotational viscous damping coefficient (moment per angular velocity), SI unit N·m·s/rad.</summary>
+    RotationalDamping,
+    /// <summary>Moment of inertia (an entry of a rigid body's inertia matrix), SI unit kg·m².</summary>
+    MomentOfInertia,
+    /// <summary>Moment of a force (a torque), SI unit N·m.</summary>
+    Moment,
 }

@@ -32,6 +32,10 @@ public static class UnitTable
             [Quantity.Velocity] = [("m/s", 1), ("mm/s", 1e-3), ("um/s", 1e-6), ("µm/s", 1e-6), ("in/s", Inch)],
             [Quantity.Acceleration] = [("m/s^2", 1), ("mm/s^2", 1e-3), ("g", StandardGravity), ("in/s^2", Inch)],
             [Quantity.MassRadius] = [("kg*m", 1), ("g*mm", 1e-6), ("g*m", 1e-3), ("g*cm", 1e-5), ("kg*mm", 1e-3), ("oz*in", Pound / 16 * Inch)],
+            [Quantity.RotationalStiffness] = [("N*m/rad", 1), ("Nm/rad", 1), ("kN*m/rad", 1e3), ("kNm/rad", 1e3), ("MN*m/rad", 1e6), ("N*mm/rad", 1e-3), ("lbf*in/rad", PoundForce * Inch)],
+            [Quantity.RotationalDamping] = [("N*m*s/rad", 1), ("Nms/rad", 1), ("kN*m*s/rad", 1e3), ("N*mm*s/rad", 1e-3), ("lbf*in*s/rad", PoundForce * Inch)],
+            [Quantity.MomentOfInertia] = [("kg*m^2", 1), ("t*m^2", 1e3), ("kg*cm^2", 1e-4), ("kg*mm^2", 1e-6), ("lb*in^2", Pound * Inch * Inch)],
+            [Quantity.Moment] = [("N*m", 1), ("Nm", 1), ("kN*m", 1e3), ("kNm", 1e3), ("N*mm", 1e-3), ("lbf*in", PoundForce * Inch), ("lbf*ft", PoundForce * 12 * Inch)],
         }.ToFrozenDictionary();
 
     /// <summary>The SI unit symbol of <paramref name="quantity"/> as the tool prints it.</summary>
@@ -49,6 +53,10 @@ public static class UnitTable
         Quantity.Velocity => "m/s",
         Quantity.Acceleration => "m/s^2",
         Quantity.MassRadius => "kg*m",
+        Quantity.RotationalStiffness => "N*m/rad",
+        Quantity.RotationalDamping => "N*m*s/rad",
+        Quantity.MomentOfInertia => "kg*m^2",
+        Quantity.Moment => "N*m",
         _ => throw new ArgumentOutOfRangeException(nameof(quantity), quantity, null),
     };
 
@@ -57,6 +65,9 @@ public static class UnitTable
     {
         Quantity.MassRadius => "mass-radius",
         Quantity.Damping => "damping coefficient",
+        Quantity.RotationalStiffness => "rotational stiffness",
+        Quantity.RotationalDamping => "rotational damping coefficient",
+        Quantity.MomentOfInertia => "moment of inertia",
         _ => quantity.ToString().ToLowerInvariant(),
     };
 

@@ -40,6 +40,12 @@ public sealed record ModelDocument(
 
     /// <summary>The transient run the file asks for in its 'transient' section, or null when it has none.</summary>
     public TransientSpec? Transient { get; init; }
+
+    /// <summary>
+    /// The point (global axes, m) about which rotational effective masses are taken, from the file's
+    /// <c>reference-point</c> (plane and 3d models); null when the file states none (the model's centre of mass is then used).
+    /// </summary>
+    public Point3? ReferencePoint { get; init; }
 }
 
 /// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>

@@ -17,7 +17,9 @@ public static partial class ModelReader
     private static readonly string[] LoadKinds = ["force", "unbalance", "base-motion"];
 
     /// <summary>Reads 'loads': named harmonic forces, rotating unbalances and support motions.</summary>
-    private static ImmutableArray<Load> ReadLoads(YMapping top, ImmutableHashSet<string> masses, ImmutableHashSet<string> supports, ReadContext context)
+    /// <remarks>In plane and 3d models (<paramref name="spatial"/> given) loads act at masses, bodies or body points, in a stated direction.</remarks>
+    private static ImmutableArray<Load> ReadLoads(YMapping top, ImmutableHashSet<string> masses, ImmutableHashSet<string> supports, ReadContext context,
+        SpatialNodes? spatial = null)
     {
         if (top["loads"] is not { } node || node is YScalar { IsPlainNull: true }) return [];
         if (context.Mapping(node, "'loads'") is not { } loads) return [];
@@ -48,24 +50,31 @@ public static partial class ModelReader
             {
                 case "force":
                 {
-                    context.RejectUnknownKeys(entry, what, "kind", "at", "amplitude", "phase", "speed");
-                    var at = LoadMass(entry, masses, what, context);
-                    var amplitude = context.Required(entry, "amplitude", Quantity.Force, ForceRange, what);
-                    if (at is not null && amplitude is { } f) result.Add(new ForceLoad(key.Value, at, f, phase, speed));
+                    context.RejectUnknownKeys(entry, what, "kind", "at", "amplitude", "direction", "phase", "speed");
+                    var at = LoadTarget(entry, masses, spatial, what, context);
+                    var direction = LoadDirection(entry, at, spatial, supportMotion: false, what, context);
+                    // A moment's amplitude is in N·m, even when its direction was refused (one error, not two).
+                    var moment = entry["direction"] is YScalar { Value: "rx" or "ry" or "rz" };
+                    var amplitude = context.Required(entry, "amplitude", moment ? Quantity.Moment : Quantity.Force, moment ? MomentRange : ForceRange, what);
+                    if (at is { } target && direction is { } d && amplitude is { } f)
+                        result.Add(new ForceLoad(key.Value, target.Reference, f, phase, speed) { Direction = d });
                     break;
                 }
                 case "unbalance":
                 {
-                    context.RejectUnknownKeys(entry, what, "kind", "at", "mass-radius", "phase", "speed");
-                    var at = LoadMass(entry, masses, what, context);
+                    context.RejectUnknownKeys(entry, what, "kind", "at", "mass-radius", "plane", "phase", "speed");
+                    var at = LoadTarget(entry, masses, spatial, what, context);
+                    var plane = UnbalancePlane(entry, at, spatial, what, context);
                     var me = context.Required(entry, "mass-radius", Quantity.MassRadius, MassRadiusRange, what);
-                    if (at is not null && me is { } u) result.Add(new UnbalanceLoad(key.Value, at, u, speed, phase));
+                    if (at is { } target && plane is { } p && me is { } u)
+                        result.Add(new UnbalanceLoad(key.Value, target.Reference, u, speed, phase) { Plane = p });
                     break;
                 }
                 default:
                 {
-                    context.RejectUnknownKeys(entry, what, "kind", "support", "displacement", "velocity", "acceleration", "phase", "speed");
+                    context.RejectUnknownKeys(entry, what, "kind", "support", "direction", "displacement", "velocity", "acceleration", "phase", "speed");
                     var support = LoadSupport(entry, supports, what, context);
+                    var direction = LoadDirection(entry, null, spatial, supportMotion: true, what, context);
                     var given = new[] { ("displacement", BaseMotionKind.Displacement, Quantity.Length), ("velocity", BaseMotionKind.Velocity, Quantity.Velocity),
                         ("acceleration", BaseMotionKind.Acceleration, Quantity.Acceleration) }.Where(g => entry[g.Item1] is not null).ToArray();
                     if (given.Length != 1)
@@ -75,7 +84,8 @@ public static partial class ModelReader
                     }
                     var (motionKey, motionKind, quantity) = given[0];
                     var amplitude = context.Value(entry[motionKey]!, quantity, MotionRange, $"'{motionKey}' of {what}");
-                    if (support is not null && amplitude is { } a) result.Add(new BaseMotionLoad(key.Value, support, motionKind, a, phase, speed));
+                    if (support is not null && direction is { } d && amplitude is { } a)
+                        result.Add(new BaseMotionLoad(key.Value, support, motionKind, a, phase, speed) { Direction = d });
                     break;
                 }
             }

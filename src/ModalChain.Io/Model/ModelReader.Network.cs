@@ -19,15 +19,17 @@ public static partial class ModelReader
     [GeneratedRegex(@"^[\p{L}\p{N}_][\p{L}\p{N}_.\-]*$")]
     private static partial Regex NamePattern();
 
-    private static CoreNetwork? ReadNetwork(YMapping top, ReadContext context, string defaultTitle, Repeated repeated)
+    private static CoreNetwork? ReadNetwork(YMapping top, ReadContext context, string defaultTitle, Repeated repeated, SpatialNodes? spatial)
     {
-        var builder = new NetworkBuilder { Title = defaultTitle };
+        var builder = new NetworkBuilder { Title = defaultTitle, Space = spatial?.Space ?? ModelSpace.Line };
         if (top["title"] is { } titleNode && context.Text(titleNode, "'title'") is { } title) builder.Title = title;
 
         var massesNode = top["masses"];
         var nodes = new HashSet<string> { CoreNetwork.Ground };
-        if (massesNode is null or YScalar { IsPlainNull: true } && top["repeat"] is not null)
-            massesNode = new YMapping(top.Position, []); // every mass is generated
+        // A plane or 3d model may consist of bodies alone.
+        var bodiesGiven = spatial is not null && top["bodies"] is YMapping { Entries.Length: > 0 };
+        if (massesNode is null or YScalar { IsPlainNull: true } && (top["repeat"] is not null || bodiesGiven))
+            massesNode = new YMapping(top.Position, []); // every mass is generated, or there are bodies only
         if (massesNode is null)
         {
             context.Error(top, "the model has no 'masses' section; a network needs at least one mass");
@@ -39,7 +41,7 @@ public static partial class ModelReader
             return null;
         }
         if (context.Mapping(massesNode, "'masses'") is not { } masses) return null;
-        if (masses.Entries.Length == 0 && repeated.Masses.Count == 0)
+        if (masses.Entries.Length == 0 && repeated.Masses.Count == 0 && !bodiesGiven)
         {
             // Its only entries were already reported (e.g. a key that is a list): "empty" would be a second, wrong error.
             if (masses.DroppedKeys || (top["repeat"] is not null && context.HasErrors)) return null;
@@ -54,6 +56,11 @@ public static partial class ModelReader
             context.Positions[$"masses.{key.Value}"] = key.Position;
             // Known as a node even when its value is wrong, so springs that name it do not add a second error.
             nodes.Add(key.Value);
+            if (spatial is not null)
+            {
+                ReadSpatialMass(key, value, builder, spatial, context);
+                continue;
+            }
             double? kg;
             DrawingPosition? at = null;
             if (value is YScalar)
@@ -65,7 +72,8 @@ public static partial class ModelReader
             }
             else if (context.Mapping(value, what) is { } entry)
             {
-                context.RejectUnknownKeys(entry, what, "mass", "at");
+                context.RejectUnknownKeys(entry, what, "mass", "at", "directions");
+                RefuseInLine(entry, "directions", what, context);
                 kg = context.Required(entry, "mass", Quantity.Mass, MassRange, what, key.Position);
                 if (entry["at"] is { } atNode) at = ReadPosition(atNode, context, what);
             }
@@ -74,7 +82,8 @@ public static partial class ModelReader
         }
 
         AddRepeatedMasses(repeated, builder, nodes, context);
-        ReadSupports(top, context, builder, nodes);
+        ReadSupports(top, context, builder, nodes, spatial);
+        if (spatial is not null) return ReadSpatialNetwork(top, builder, spatial, nodes, context);
         var springs = ReadTwoNodeSection(top, "springs", "spring", "stiffness", Quantity.Stiffness, StiffnessRange, nodes, context);
         var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
         var inerters = ReadTwoNodeSection(top, "inerters", "inerter", "inertance", Quantity.Mass, InertanceRange, nodes, context);
@@ -113,7 +122,18 @@ public static partial class ModelReader
                 context.Error(value, $"{what} must be a mapping such as '{{between: [ground, deck], {valueKey}: {example}}}'");
                 continue;
             }
-            context.RejectUnknownKeys(entry, what, "between", valueKey);
+            context.RejectUnknownKeys(entry, what, "between", valueKey, "axial", $"rotational-{valueKey}");
+            if (entry["axial"] is not null || entry[$"rotational-{valueKey}"] is not null)
+            {
+                RefuseInLine(entry, "axial", what, context);
+                RefuseInLine(entry, $"rotational-{valueKey}", what, context);
+                continue;
+            }
+            if (entry[valueKey] is YMapping perDirection && perDirection.Entries.Any(e => Directions.Parse(e.Key.Value) is not null))
+            {
+                context.Error(perDirection, $"'{valueKey}' of {what} is given per direction, which needs 'space: plane' or 'space: 3d' at the top of the file; a line model moves every mass along one line");
+                continue;
+            }
             var ends = ReadBetween(entry, key.Position, nodes, context, what);
             var v = context.Required(entry, valueKey, quantity, range, what, key.Position);
             if (ends is { } e && v is { } x) result.Add((key.Value, e.A, e.B, x));
@@ -159,12 +179,27 @@ public static partial class ModelReader
     {
         if (node is not YSequence { Items.Length: 2 } seq)
         {
-            context.Error(node, $"'at' of {what} must be a drawing position [x, y] in m");
+            context.Error(node, $"'at' of {what} must be a drawing position [x, y] in m" +
+                (node is YSequence { Items.Length: 3 } ? " (a location [x, y, z] needs 'space: 3d' at the top of the file)" : ""));
             return null;
         }
         var x = context.Value(seq.Items[0], Quantity.Length, DrawingRange, $"'at' of {what}");
         var y = context.Value(seq.Items[1], Quantity.Length, DrawingRange, $"'at' of {what}");
         return x is { } xv && y is { } yv ? new DrawingPosition(xv, yv) : null;
+    }
+
+    /// <summary>The rest of a plane or 3d model's network, after its masses and supports: bodies, springs and dampers.</summary>
+    private static CoreNetwork? ReadSpatialNetwork(YMapping top, NetworkBuilder builder, SpatialNodes spatial, HashSet<string> nodes, ReadContext context)
+    {
+        ReadBodies(top, builder, spatial, nodes, context);
+        var springs = ReadSpatialElements(top, "springs", spatial, context);
+        var dampers = ReadSpatialElements(top, "dampers", spatial, context);
+        if (context.HasErrors) return null;
+        foreach (var s in springs) builder.AddSpring(new Spring(s.Name, s.A, s.B, s.Scale) { Components = s.Components, Axial = s.Axial });
+        foreach (var d in dampers) builder.AddDamper(new Damper(d.Name, d.A, d.B, d.Scale) { Components = d.Components, Axial = d.Axial });
+        var network = builder.Build();
+        WarnAboutSpatialConnectivity(network, context);
+        return network;
     }
 
     private static bool CheckName(YScalar key, ReadContext context, string element)

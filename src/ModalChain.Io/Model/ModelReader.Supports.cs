@@ -11,7 +11,7 @@ public static partial class ModelReader
     /// <c>supports: {plinth: {at: [0, -0.5]}, roof-beam: }</c>. Ground always exists and is not declared. A support
     /// is fixed unless a base-motion load moves it.
     /// </remarks>
-    private static void ReadSupports(YMapping top, ReadContext context, NetworkBuilder builder, HashSet<string> nodes)
+    private static void ReadSupports(YMapping top, ReadContext context, NetworkBuilder builder, HashSet<string> nodes, SpatialNodes? spatial)
     {
         if (top["supports"] is not { } node || node is YScalar { IsPlainNull: true }) return;
         if (context.Mapping(node, "'supports'") is not { } supports) return;
@@ -25,6 +25,16 @@ public static partial class ModelReader
                 continue;
             }
             context.Positions[$"supports.{key.Value}"] = key.Position;
+            if (spatial is not null)
+            {
+                // Known as a node even when its location is wrong, so elements that name it add no second error.
+                nodes.Add(key.Value);
+                var location = ReadSupportLocation(key, value, spatial.Space, context);
+                spatial.Supports[key.Value] = location;
+                if (location is { } p && !context.HasErrors)
+                    builder.AddSupport(new Support(key.Value, new DrawingPosition(p.X, p.Z)) { Location = p });
+                continue;
+            }
             DrawingPosition? at = null;
             if (value is not YScalar { IsPlainNull: true })
             {

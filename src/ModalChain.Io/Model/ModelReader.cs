@@ -15,7 +15,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -54,16 +54,21 @@ public static partial class ModelReader
         if (context.Mapping(root, "the model file") is not { } top) return Finish(context, null);
 
         context.RejectUnknownKeys(top, "the model file", TopLevelKeys);
-        var repeated = ReadRepeat(top, context);
-        var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file), repeated);
+        // The space decides how masses, supports, springs and loads read: after a wrong one nothing else can be read sensibly.
+        if (ReadSpace(top, context) is not { } space) return Finish(context, null);
+        var spatial = space == Core.Model.ModelSpace.Line ? null : new SpatialNodes(space);
+        CheckSectionsForSpace(top, space, context);
+        var referencePoint = ReadReferencePoint(top, space, context);
+        var repeated = spatial is null ? ReadRepeat(top, context) : new Repeated();
+        var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file), repeated, spatial);
         var massNames = DeclaredNames(top, "masses").Union(repeated.MassNames);
         var supportNames = DeclaredNames(top, "supports");
         var damping = ReadDamping(top, context);
-        var loads = ReadLoads(top, massNames, supportNames, context);
+        var loads = ReadLoads(top, massNames, supportNames, context, spatial);
         var loadCases = ReadLoadCases(top, loads, context);
         var harmonic = ReadHarmonic(top, massNames, loads, context);
         var caseSelection = ReadCaseSelection(top, loadCases, context);
-        var timedLoads = ReadTimedLoads(top, massNames, supportNames, context);
+        var timedLoads = spatial is null ? ReadTimedLoads(top, massNames, supportNames, context) : [];
         var transient = ReadTransient(top, massNames, timedLoads, context);
         var criteria = ReadCriteria(top, context, network);
         if (network is not null) RefuseMovingInerterSupports(network, loads, timedLoads, context);
@@ -85,6 +90,7 @@ public static partial class ModelReader
             TimedLoads = timedLoads,
             Transient = transient,
             Criteria = criteria,
+            ReferencePoint = referencePoint,
         };
         return Finish(context, document);
     }

@@ -40,9 +40,14 @@ public static class ModelWriter
 
         var origin = new SourcePosition(0, 0);
         var entries = top.Entries.ToList();
-        Extend(entries, "masses", network.Masses.Where(m => !known.Contains(m.Name)).Select(m => (m.Name, MassNode(m, origin))), origin);
-        Extend(entries, "springs", network.Springs.Where(s => !known.Contains(s.Name)).Select(s => (s.Name, TwoNode(s.NodeA, s.NodeB, "stiffness", s.Stiffness, Quantity.Stiffness, origin))), origin);
-        Extend(entries, "dampers", network.Dampers.Where(d => !known.Contains(d.Name)).Select(d => (d.Name, TwoNode(d.NodeA, d.NodeB, "coefficient", d.Coefficient, Quantity.Damping, origin))), origin);
+        var space = network.Space;
+        Extend(entries, "masses", network.Masses.Where(m => !known.Contains(m.Name)).Select(m => (m.Name, MassNode(m, space, origin))), origin);
+        Extend(entries, "springs", network.Springs.Where(s => !known.Contains(s.Name)).Select(s => (s.Name, space == ModelSpace.Line
+            ? TwoNode(s.NodeA, s.NodeB, "stiffness", s.Stiffness, Quantity.Stiffness, origin)
+            : SpatialTwoNode(s.NodeA, s.NodeB, s.Axial, s.Stiffness, s.Components, "stiffness", Quantity.Stiffness, Quantity.RotationalStiffness, origin))), origin);
+        Extend(entries, "dampers", network.Dampers.Where(d => !known.Contains(d.Name)).Select(d => (d.Name, space == ModelSpace.Line
+            ? TwoNode(d.NodeA, d.NodeB, "coefficient", d.Coefficient, Quantity.Damping, origin)
+            : SpatialTwoNode(d.NodeA, d.NodeB, d.Axial, d.Coefficient, d.Components, "coefficient", Quantity.Damping, Quantity.RotationalDamping, origin))), origin);
 
         var text = new StringBuilder();
         foreach (var line in headerLines) text.Append("# ").Append(line).Append('\n');
@@ -69,11 +74,20 @@ public static class ModelWriter
         }
     }
 
-    private static YNode MassNode(Mass m, SourcePosition origin)
+    private static YNode MassNode(Mass m, ModelSpace space, SourcePosition origin)
     {
         var entries = ImmutableArray.CreateBuilder<KeyValuePair<YScalar, YNode>>();
         entries.Add(new(Plain("mass", origin), Plain(Si(m.Kilograms, Quantity.Mass), origin)));
-        if (m.Position is { } p)
+        if (space != ModelSpace.Line)
+        {
+            // In plane and 3d models the location is mechanical data (and required), written in m: [x, z] or [x, y, z].
+            var l = m.Location ?? throw new ArgumentException($"Mass '{m.Name}' of a {space} model has no location.", nameof(m));
+            double[] xyz = space == ModelSpace.Plane ? [l.X, l.Z] : [l.X, l.Y, l.Z];
+            entries.Add(new(Plain("at", origin), new YSequence(origin, [.. xyz.Select(v => (YNode)Plain(Number(v), origin))])));
+            if (!m.Moves.IsEmpty)
+                entries.Add(new(Plain("directions", origin), new YSequence(origin, [.. m.Moves.Select(d => (YNode)Plain(d.Label(), origin))])));
+        }
+        else if (m.Position is { } p)
             entries.Add(new(Plain("at", origin), new YSequence(origin, [Plain(Number(p.X), origin), Plain(Number(p.Y), origin)])));
         return new YMapping(origin, entries.ToImmutable());
     }
@@ -83,6 +97,22 @@ public static class ModelWriter
             new(Plain("between", origin), new YSequence(origin, [Plain(a, origin), Plain(b, origin)])),
             new(Plain(key, origin), Plain(Si(value, quantity), origin)),
         ]);
+
+    /// <summary>A spring or damper of a plane or 3d model: axial, or its translational and rotational components.</summary>
+    private static YNode SpatialTwoNode(string a, string b, bool axial, double value, ImmutableArray<DirectionalValue> components, string key,
+        Quantity quantity, Quantity rotational, SourcePosition origin)
+    {
+        var entries = ImmutableArray.CreateBuilder<KeyValuePair<YScalar, YNode>>();
+        entries.Add(new(Plain("between", origin), new YSequence(origin, [Plain(a, origin), Plain(b, origin)])));
+        if (axial) entries.Add(new(Plain("axial", origin), Plain(Si(value, quantity), origin)));
+        YMapping Map(IEnumerable<DirectionalValue> values, Quantity q) =>
+            new(origin, [.. values.Select(c => new KeyValuePair<YScalar, YNode>(Plain(c.Direction.Label(), origin), Plain(Si(c.Value, q), origin)))]);
+        var translations = components.Where(c => !c.Direction.IsRotation()).ToArray();
+        var rotations = components.Where(c => c.Direction.IsRotation()).ToArray();
+        if (!axial && translations.Length > 0) entries.Add(new(Plain(key, origin), Map(translations, quantity)));
+        if (!axial && rotations.Length > 0) entries.Add(new(Plain($"rotational-{key}", origin), Map(rotations, rotational)));
+        return new YMapping(origin, entries.ToImmutable());
+    }
 
     private static YScalar Plain(string text, SourcePosition origin) => new(origin, text, Quoted: false);
 

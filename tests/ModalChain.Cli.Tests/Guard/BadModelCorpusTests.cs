@@ -43,7 +43,7 @@ public sealed partial class BadModelCorpusTests
         Assert.True(names.Length >= 50, $"only {names.Length} bad files");
         // One file at least per family the model format documents (docs/model-format.md).
         foreach (var family in new[] { "syntax-", "unknown-", "type-", "missing-", "unit-", "value-", "ref-", "dup-", "self-", "time-", "table-",
-                     "criteria-", "harmonic-", "transient-", "damping-", "load-", "cli-", "bom-crlf-" })
+                     "criteria-", "harmonic-", "transient-", "damping-", "load-", "space-", "cli-", "bom-crlf-" })
             Assert.Contains(names, n => n.StartsWith(family, StringComparison.Ordinal));
     }
 

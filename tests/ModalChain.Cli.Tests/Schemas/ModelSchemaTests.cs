@@ -19,6 +19,19 @@ public class ModelSchemaTests
         Assert.True(problems is null, $"{model} does not match {Schema}:\n{problems}");
     }
 
+    // The plane and 3d example models wait under tests/ModalChain.Io.Tests until their assembly is on main.
+    public static TheoryData<string> SpatialFixtures() =>
+        [.. Directory.GetFiles(Path.Combine(RepositoryRoot, "tests", "ModalChain.Io.Tests", "Model", "Spatial"), "*.yaml").Order(StringComparer.Ordinal)];
+
+    [Theory]
+    [MemberData(nameof(SpatialFixtures))]
+    public void EverySpatialFixture_IsValidAgainstTheModelSchema_AndForTheReader(string path)
+    {
+        Assert.True(ModelReader.ReadFile(path).Succeeded, path);
+        var problems = SchemaFiles.Problems(Schema, SchemaFiles.YamlToJson(File.ReadAllText(path)));
+        Assert.True(problems is null, $"{path} does not match {Schema}:\n{problems}");
+    }
+
     [Fact]
     public void TheSchemasTopLevelKeys_AreTheReadersTopLevelKeys()
     {
@@ -58,6 +71,10 @@ public class ModelSchemaTests
     [InlineData("a limit with both peak and rms", "criteria:\n  limits:\n    - {at: deck, quantity: velocity, peak: 4 mm/s, rms: 3 mm/s}\n")]
     [InlineData("an unknown harmonic method", "loads:\n  f: {kind: force, at: deck, amplitude: 1 kN}\nharmonic:\n  frequencies: [10 Hz]\n  method: fast\n")]
     [InlineData("machine zone D, which has no upper boundary", "criteria:\n  machine-zones:\n    - {at: deck, class: medium-rigid, zone: D}\n")]
+    [InlineData("an unknown space", "space: 4d\n")]
+    [InlineData("a body without a centre of mass", "space: 3d\nbodies:\n  skid: {mass: 1 kg, box: [1, 1, 1]}\n")]
+    [InlineData("a body with two inertia forms", "space: 3d\nbodies:\n  skid: {mass: 1 kg, centre-of-mass: [0, 0, 0], box: [1, 1, 1], inertia: {xx: 1, yy: 1, zz: 1}}\n")]
+    [InlineData("an unknown direction of a stiffness", "space: 3d\nsprings:\n  a: {between: [ground, deck], stiffness: {w: 1 kN/mm}}\n")]
     public void ABadModel_FailsTheSchema_AsItFailsTheReader(string what, string extra)
     {
         var text = "masses:\n  deck: {mass: 3200 kg}\n" + extra;

@@ -128,4 +128,37 @@ public class ModelWriterTests
         Assert.Equal(before.Harmonic!.Outputs.ToArray(), after.Harmonic!.Outputs.ToArray());
         Assert.Equal(before.Harmonic.Frequencies, after.Harmonic.Frequencies);
     }
+
+    [Fact]
+    public void ElementsAddedToA3dModel_AreWrittenWithLocationsAndDirections_AndReadBack()
+    {
+        var original = File.ReadAllText(Path.Combine(AppContext.BaseDirectory, "Model", "Spatial", "compressor-skid-deck.yaml"));
+        var before = ModelReader.Read(original, "in.yaml").Model!.Network;
+        var absorber = new Mass("absorber", 92.5, null) { Location = new Point3(0.35, 0.2, 1.05), Moves = [Core.Dofs.Direction.Z] };
+        var springs = new[]
+        {
+            new Spring("absorber-spring", "skid.crank", "absorber", 1.25e5) { Components = [new(Core.Dofs.Direction.Z, 1.25e5)] },
+            new Spring("absorber-tie", "skid", "absorber", 3e4) { Axial = true },
+            new Spring("skid-torsion", "skid", "ground", 0) { Components = [new(Core.Dofs.Direction.Rz, 4.5e3)] },
+        };
+        var dampers = new[] { new Damper("absorber-damper", "skid.crank", "absorber", 310) { Components = [new(Core.Dofs.Direction.Z, 310)] } };
+        var expected = before.WithAdded([absorber], springs, dampers);
+        var text = ModelWriter.WithAdditions(original, "in.yaml", expected, ["written by a test"]);
+        var read = ModelReader.Read(text, "out.yaml");
+        Assert.True(read.Succeeded, string.Join("\n", read.Diagnostics) + "\n" + text);
+        var after = read.Model!.Network;
+        Assert.Equal(ModelSpace.ThreeD, after.Space);
+        var mass = after.Masses.Single(m => m.Name == "absorber");
+        Assert.Equal((92.5, absorber.Location), (mass.Kilograms, mass.Location));
+        Assert.Equal(absorber.Moves.ToArray(), mass.Moves.ToArray());
+        foreach (var s in springs)
+        {
+            var back = after.Springs.Single(x => x.Name == s.Name);
+            Assert.Equal((s.NodeA, s.NodeB, s.Axial, s.Stiffness), (back.NodeA, back.NodeB, back.Axial, back.Stiffness));
+            Assert.Equal(s.Components.ToArray(), back.Components.ToArray());
+        }
+        var damper = after.Dampers.Single(d => d.Name == "absorber-damper");
+        Assert.Equal(dampers[0].Components.ToArray(), damper.Components.ToArray());
+        Assert.Equal(before.Bodies.Single().Inertia, after.Bodies.Single().Inertia);
+    }
 }
