@@ -33,6 +33,7 @@ internal static class ValidateCommand
             var mass = CommonOptions.UnitsOf(parse, units, document).MassUnit;
             o.WriteLine(string.Create(inv, $"  total mass:          {mass.From(n.TotalMass):G6} {mass.Plain}"));
             o.WriteLine(string.Create(inv, $"  springs, dampers:    {n.Springs.Length}, {n.Dampers.Length}"));
+            if (n.Inerters.Length > 0) o.WriteLine(string.Create(inv, $"  inerters:            {n.Inerters.Length}"));
             var groups = Topology.UnsupportedGroups(n);
             o.WriteLine(string.Create(inv, $"  unsupported groups:  {groups.Length}{(groups.Length > 0 ? " (rigid-body modes expected)" : "")}"));
             o.WriteLine(string.Create(inv, $"  warnings:            {CommonOptions.WarningCount(document)}"));

@@ -19,6 +19,8 @@ internal static class ModesTable
         var n = result.Network;
         o.WriteLine(TerminalText.Line(n.Title));
         o.WriteLine(string.Create(Inv, $"{result.Matrices.Size} degrees of freedom, total mass {units.MassUnit.From(result.TotalMass):G6} {units.MassUnit.Plain}, {result.Modes.Length} mode{(result.Modes.Length == 1 ? "" : "s")}"));
+        if (result.Network.Inerters.Length > 0)
+            o.WriteLine(string.Create(Inv, $"Total mass is ιᵀMι, inerters included (their grounded terminals add apparent mass); the physical mass of the masses is {units.MassUnit.From(result.Network.TotalMass):G6} {units.MassUnit.Plain}."));
         o.WriteLine();
         var table = new TextTable("mode", "frequency [Hz]", "omega [rad/s]", "period [s]", "damping [%]", "eff. mass [%]", "cumulative [%]", "most strained spring", "where it moves (kinetic energy share)");
         foreach (var m in result.Modes)

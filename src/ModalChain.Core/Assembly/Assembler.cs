@@ -7,7 +7,8 @@ namespace ModalChain.Core.Assembly;
 /// <summary>Builds M, K and C from a network.</summary>
 /// <remarks>
 /// A two-node element of value k between DOFs a and b adds k to K[a,a] and K[b,b] and −k to K[a,b] and K[b,a];
-/// an end on a support drops its row and column (the support is fixed). Dampers build C the same way. Masses tied by
+/// an end on a support drops its row and column (the support is fixed). Dampers build C the same way, and inerters
+/// (inertance b) build their part of M the same way, so an inerter between two masses makes M non-diagonal. Masses tied by
 /// a link share one DOF, so their masses add and an element between two of them adds nothing. Plane and 3d models
 /// (several directions per node, rigid bodies, directional and axial elements) go through the attachment maps of
 /// <see cref="SpatialAssembly"/>: each element end's motion is a linear map T of the DOFs and an element adds Tᵀ k T.
@@ -50,6 +51,13 @@ public static class Assembler
             var i = dofs.IndexOf(m.Name);
             mass.Add((i, i, m.Kilograms));
         }
+        var coupled = false;
+        foreach (var b in network.Inerters)
+        {
+            int ia = dofs.IndexOf(b.NodeA), ib = dofs.IndexOf(b.NodeB);
+            AddTwoNode(mass, ia, ib, b.Inertance);
+            coupled |= ia >= 0 && ib >= 0 && ia != ib && b.Inertance > 0;
+        }
 
         var stiffness = new List<(int, int, double)>(4 * network.Springs.Length);
         foreach (var s in network.Springs) AddTwoNode(stiffness, dofs.IndexOf(s.NodeA), dofs.IndexOf(s.NodeB), s.Stiffness);
@@ -63,7 +71,15 @@ public static class Assembler
             Summed(n, stiffness),
             Summed(n, damping),
             Vector<double>.Build.Dense(n, 1.0),
-            MassIsDiagonal: true);
+            MassIsDiagonal: !coupled);
+    }
+
+    /// <summary>True when <paramref name="m"/> has no non-zero entry off its diagonal (lumped masses; no inerter between two masses).</summary>
+    internal static bool IsDiagonal(Matrix<double> m)
+    {
+        foreach (var (i, j, v) in m.EnumerateIndexed(Zeros.AllowSkip))
+            if (i != j && v != 0) return false;
+        return true;
     }
 
     /// <summary>A sparse n×n matrix whose entries are the sums of the coordinate entries (several elements share a DOF).</summary>

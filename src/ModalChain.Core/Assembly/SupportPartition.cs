@@ -17,7 +17,7 @@ namespace ModalChain.Core.Assembly;
 /// </remarks>
 /// <param name="Free">Numbering of the free DOFs (one per mass in a line model; see <see cref="DofMap.For"/>).</param>
 /// <param name="Supports">Names of the prescribed DOFs, ground first, in the network's support order (plane and 3d models: <c>support.x</c>, <c>support.z</c>, … per translation).</param>
-/// <param name="Mass">M over the free DOFs in kg (diagonal in line models; a body's inertia may couple its rotations).</param>
+/// <param name="Mass">M over the free DOFs in kg, inerters included (diagonal in line models without an inerter between two masses; a body's inertia may couple its rotations).</param>
 /// <param name="StiffnessFF">K_ff in N/m.</param>
 /// <param name="StiffnessFP">K_fp in N/m (free rows, support columns).</param>
 /// <param name="StiffnessPP">K_pp in N/m.</param>
@@ -84,6 +84,20 @@ public sealed record SupportPartition(
         {
             var i = free.IndexOf(mass.Name);
             m.Add((i, i, mass.Kilograms));
+        }
+        // An inerter adds its inertance to M as a spring adds its stiffness to K; an end on a support drops out (base
+        // motion of a support that carries an inerter is refused by the reader).
+        foreach (var b in network.Inerters)
+        {
+            var (ia, ib) = (Index(b.NodeA), Index(b.NodeB));
+            if (ia == ib) continue;
+            if (ia >= 0 && ia < n) m.Add((ia, ia, b.Inertance));
+            if (ib >= 0 && ib < n) m.Add((ib, ib, b.Inertance));
+            if (ia >= 0 && ia < n && ib >= 0 && ib < n)
+            {
+                m.Add((ia, ib, -b.Inertance));
+                m.Add((ib, ia, -b.Inertance));
+            }
         }
 
         return new SupportPartition(free, supports, Assembler.Summed(n, m),

@@ -74,6 +74,17 @@ public sealed record Damper(string Name, string NodeA, string NodeB, double Coef
     public bool Axial { get; init; }
 }
 
+/// <summary>An inerter between two nodes: a two-terminal element whose force is b·(ẍ_a − ẍ_b).</summary>
+/// <param name="Name">Unique name of the inerter within its network.</param>
+/// <param name="NodeA">First end: a mass or support name.</param>
+/// <param name="NodeB">Second end: a mass or support name, different from <paramref name="NodeA"/>.</param>
+/// <param name="Inertance">Inertance b in kg; non-negative and finite.</param>
+/// <remarks>
+/// Line models only. It adds b to M exactly as a spring adds k to K: b on both ends' diagonals and −b off the
+/// diagonal; an end on a support drops its row (the grounded terminal adds b to the other end's apparent mass).
+/// </remarks>
+public sealed record Inerter(string Name, string NodeA, string NodeB, double Inertance);
+
 /// <summary>Masses tied rigidly together: they move as one, share one degree of freedom and their masses add.</summary>
 /// <param name="Name">Unique name of the link within its network.</param>
 /// <param name="Masses">The masses tied, at least two, all different; never a support.</param>
@@ -121,13 +132,16 @@ public sealed record Network
     /// <summary>The rigid links between masses, in declaration order; linked masses share one degree of freedom.</summary>
     public ImmutableArray<Link> Links { get; internal init; } = [];
 
+    /// <summary>The inerters (line models only), in declaration order; they put inertance into M, off its diagonal between two masses.</summary>
+    public ImmutableArray<Inerter> Inerters { get; internal init; } = [];
+
     /// <summary>The space the nodes move in; <see cref="ModelSpace.Line"/> unless the model declares another.</summary>
     public ModelSpace Space { get; internal init; } = ModelSpace.Line;
 
     /// <summary>The rigid bodies (plane and 3d models only), in declaration order, numbered after the masses.</summary>
     public ImmutableArray<RigidBody> Bodies { get; internal init; } = [];
 
-    /// <summary>Sum of all masses and bodies in kg.</summary>
+    /// <summary>Sum of all masses and bodies in kg: the physical mass (inerters carry no mass of their own).</summary>
     public double TotalMass => Masses.Sum(m => m.Kilograms) + Bodies.Sum(b => b.Kilograms);
 
     /// <summary>True when <paramref name="node"/> names a rigid body.</summary>
@@ -160,7 +174,7 @@ public sealed record Network
     public Network WithMassOrder(IReadOnlyList<int> order)
     {
         Guard.Permutation(order, Masses.Length, nameof(order));
-        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links, Space = Space, Bodies = Bodies };
+        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links, Space = Space, Bodies = Bodies, Inerters = Inerters };
     }
 }
 

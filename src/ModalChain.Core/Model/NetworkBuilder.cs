@@ -15,6 +15,8 @@ public sealed class NetworkBuilder
     private readonly HashSet<string> _names = [Network.Ground];
     private readonly HashSet<string> _springNames = [];
     private readonly HashSet<string> _damperNames = [];
+    private readonly List<Inerter> _inerters = [];
+    private readonly HashSet<string> _inerterNames = [];
 
     /// <summary>Title of the network being built.</summary>
     public string Title { get; set; } = "Untitled network";
@@ -142,6 +144,18 @@ public sealed class NetworkBuilder
         return this;
     }
 
+    /// <summary>Adds an inerter of inertance <paramref name="inertance"/> in kg between two existing masses or supports (line models only).</summary>
+    public NetworkBuilder AddInerter(string name, string nodeA, string nodeB, double inertance)
+    {
+        Guard.NonNegative(inertance, nameof(inertance));
+        if (Space != ModelSpace.Line) throw new ArgumentException($"Inerter '{name}' needs a line model.", nameof(name));
+        CheckEnds(name, nodeA, nodeB);
+        if (!_inerterNames.Add(name))
+            throw new ArgumentException($"An inerter named '{name}' already exists.", nameof(name));
+        _inerters.Add(new Inerter(name, nodeA, nodeB, inertance));
+        return this;
+    }
+
     /// <summary>Ties existing masses rigidly together: they will share one degree of freedom and their masses add.</summary>
     /// <param name="name">Unique link name.</param>
     /// <param name="masses">At least two different masses (never a support).</param>
@@ -163,7 +177,7 @@ public sealed class NetworkBuilder
 
     /// <summary>Produces the immutable network.</summary>
     public Network Build() =>
-        new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies] };
+        new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters] };
 
     private void ClaimNodeName(string name)
     {

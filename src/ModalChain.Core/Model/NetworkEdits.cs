@@ -55,7 +55,7 @@ public static class NetworkEdits
 
     private static Network Copy(Network n, ImmutableArray<Mass>? masses = null, ImmutableArray<Spring>? springs = null,
         ImmutableArray<Damper>? dampers = null) =>
-        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers) { Links = n.Links, Space = n.Space, Bodies = n.Bodies };
+        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers) { Links = n.Links, Space = n.Space, Bodies = n.Bodies, Inerters = n.Inerters };
 
     private static int IndexOf<T>(ImmutableArray<T> items, Func<T, bool> match, string kind, string name)
     {

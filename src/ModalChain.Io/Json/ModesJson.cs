@@ -59,6 +59,8 @@ public static class ModesJson
             foreach (var t in result.TotalByDirection) writer.Number(t.Direction.Label(), t.Value);
             writer.WriteEndObject();
         }
+        // ιᵀMι above counts the inerters' grounded terminals; this is the masses alone (equal without inerters).
+        if (result.Network.Inerters.Length > 0) writer.Number("physical_mass_kg", result.Network.TotalMass);
         writer.WriteString("algorithm", result.Algorithm);
 
         writer.WriteStartArray("modes");

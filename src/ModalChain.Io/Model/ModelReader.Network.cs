@@ -13,6 +13,7 @@ public static partial class ModelReader
     private static readonly Range MassRange = new(1e-6, 1e9);             // 1 mg .. 1,000,000 t
     private static readonly Range StiffnessRange = new(0, 1e14);          // N/m
     private static readonly Range DampingRange = new(0, 1e13);            // N·s/m
+    private static readonly Range InertanceRange = new(0, 1e9);           // kg, as masses (0 allowed: an inerter switched off)
     private static readonly Range DrawingRange = new(-1e5, 1e5);          // m
 
     [GeneratedRegex(@"^[\p{L}\p{N}_][\p{L}\p{N}_.\-]*$")]
@@ -85,6 +86,7 @@ public static partial class ModelReader
         if (spatial is not null) return ReadSpatialNetwork(top, builder, spatial, nodes, context);
         var springs = ReadTwoNodeSection(top, "springs", "spring", "stiffness", Quantity.Stiffness, StiffnessRange, nodes, context);
         var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
+        var inerters = ReadTwoNodeSection(top, "inerters", "inerter", "inertance", Quantity.Mass, InertanceRange, nodes, context);
         CheckRepeatedSprings(repeated, springs, context);
         var links = ReadLinks(top, context, masses.Entries.Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
         if (context.HasErrors) return null;
@@ -92,6 +94,7 @@ public static partial class ModelReader
         foreach (var (name, a, b, k) in springs) builder.AddSpring(name, a, b, k);
         foreach (var (name, a, b, k, _) in repeated.Springs) builder.AddSpring(name, a, b, k);
         foreach (var (name, a, b, c) in dampers) builder.AddDamper(name, a, b, c);
+        foreach (var (name, a, b, inertance) in inerters) builder.AddInerter(name, a, b, inertance);
         foreach (var (name, linked) in links) builder.AddLink(name, linked);
         var network = builder.Build();
         WarnAboutLinkedElements(network, context);
@@ -115,7 +118,7 @@ public static partial class ModelReader
             context.Positions[$"{section}.{key.Value}"] = key.Position;
             if (value is not YMapping entry)
             {
-                var example = quantity == Quantity.Stiffness ? "95 kN/mm" : "1.5 kN*s/m";
+                var example = quantity == Quantity.Stiffness ? "95 kN/mm" : quantity == Quantity.Mass ? "150 kg" : "1.5 kN*s/m";
                 context.Error(value, $"{what} must be a mapping such as '{{between: [ground, deck], {valueKey}: {example}}}'");
                 continue;
             }
@@ -212,6 +215,22 @@ public static partial class ModelReader
             return false;
         }
         return true;
+    }
+
+    /// <summary>
+    /// A support that moves (a base-motion load, harmonic or timed) may not carry an inerter: the inertance term
+    /// b·ü_support would be a force on the free DOFs that the support partition does not yet carry.
+    /// </summary>
+    private static void RefuseMovingInerterSupports(CoreNetwork network, IEnumerable<Load> loads,
+        IEnumerable<Core.Analyses.Transient.TransientExcitation> timed, ReadContext context)
+    {
+        if (network.Inerters.IsEmpty) return;
+        var moving = loads.OfType<BaseMotionLoad>().Select(l => (l.Name, l.Support))
+            .Concat(timed.OfType<Core.Analyses.Transient.SupportAccelerationHistory>().Select(l => (l.Name, l.Support)));
+        foreach (var (name, support) in moving)
+            if (network.Inerters.FirstOrDefault(i => i.NodeA == support || i.NodeB == support) is { } inerter
+                && context.Positions.TryGetValue($"loads.{name}", out var at))
+                context.Error(at, $"load '{name}' moves support '{support}', which inerter '{inerter.Name}' is attached to; moving a support that carries an inerter is not supported yet: attach the inerter to a mass, or to a support that does not move");
     }
 
     private static void WarnAboutConnectivity(CoreNetwork network, ReadContext context)

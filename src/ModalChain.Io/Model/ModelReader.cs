@@ -15,7 +15,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -72,6 +72,7 @@ public static partial class ModelReader
         var timedLoads = spatial is null ? ReadTimedLoads(top, massNames, supportNames, context) : [];
         var transient = ReadTransient(top, massNames, timedLoads, context);
         var criteria = ReadCriteria(top, context, network);
+        if (network is not null) RefuseMovingInerterSupports(network, loads, timedLoads, context);
         if (network is null || context.HasErrors) return Finish(context, null);
 
         var document = new ModelDocument(

@@ -117,7 +117,7 @@ internal sealed class SparseDirectEngine : HarmonicEngine
 /// <summary>The direct method: the exact solve of (K(1+iη) − ω²M + iωC) x = b through a Hessenberg form of the state matrix.</summary>
 /// <remarks>
 /// With z = [ω0·x; ẋ], the equations become (iωI − A) z = [0; M⁻¹b], A = [[0, ω0 I], [−M⁻¹K(1+iη)/ω0, −M⁻¹C]];
-/// ω0 = √(mean K_ii/M_ii) balances the two blocks. A = Q H Qᴴ is computed once (Householder), so each frequency
+/// ω0 = √(mean K_ii/M_ii) balances the two blocks; M⁻¹ is dense when an inerter couples two masses. A = Q H Qᴴ is computed once (Householder), so each frequency
 /// costs one O((2n)²) Hessenberg solve instead of an O(n³) factorisation (Laub 1981). This is exact for any
 /// damping (no modal truncation or classical-damping assumption).
 /// </remarks>
@@ -140,6 +140,11 @@ internal sealed class DirectEngine : HarmonicEngine
         var w0 = stiffnessScale > 0 ? Math.Sqrt(stiffnessScale / n) : 1.0;
         var k = new Complex(1, system.LossFactor);
 
+        // Lumped masses give a diagonal M; an inerter between two masses couples it, and M⁻¹ is then formed densely.
+        var massIsDiagonal = Assembler.IsDiagonal(p.Mass);
+        var inverse = massIsDiagonal ? null : p.Mass.Inverse();
+        var stiffness = massIsDiagonal ? p.StiffnessFF : inverse! * p.StiffnessFF;
+        var damping = massIsDiagonal ? system.Damping.FF : inverse! * system.Damping.FF;
         var a = new Complex[order * order];
         // A rigid body's inertia matrix off its principal axes couples its rotations in M: then M⁻¹ is formed densely.
         var massInverse = FullMassInverse(p.Mass);

@@ -20,7 +20,9 @@ internal sealed record ResolvedModes(double[] EigenValues, Matrix<double> Shapes
 /// Rigid-body modes are decided by the topology, never by the size of an eigenvalue: each group of masses that no
 /// chain of positive-stiffness springs ties to a support (<see cref="Topology.UnsupportedGroups"/>) has exactly one,
 /// its unit translation ι_g / √(ι_gᵀ M ι_g). The solver's pairs nearest those translations (largest Σ_g (ι_gᵀMφ)²/m_g)
-/// are replaced by them; every other pair is flexible, however low its frequency.
+/// are replaced by them; every other pair is flexible, however low its frequency. When an inerter between two masses
+/// makes M non-diagonal the translations are M-orthonormalised as a set (<c>RigidBasis</c>) and the flexibility solve,
+/// which assumes a diagonal M, is not used (a warning says so when the stiffness spread would have called for it).
 /// </para>
 /// <para>
 /// A backward-stable symmetric solve gives each ω² with an absolute error of about ε·λ_max (ε the unit round-off), so
@@ -57,7 +59,11 @@ internal static class ModeResolution
         var flexibleCount = count - rigidCount;
 
         // Drop the solver's pairs that lie nearest the rigid translations; keep the rest in ascending order.
-        var share = Enumerable.Range(0, count).Select(j => RigidShare(solution.Shapes.Column(j), mass, groups)).ToArray();
+        // With inerters between masses M is not diagonal: the rigid translations are M-orthonormalised as a set.
+        var rigidBasis = matrices.MassIsDiagonal ? null : RigidBasis(matrices.Mass, groups, n);
+        var share = Enumerable.Range(0, count)
+            .Select(j => rigidBasis is null ? RigidShare(solution.Shapes.Column(j), mass, groups) : RigidShare(solution.Shapes.Column(j), matrices.Mass, rigidBasis))
+            .ToArray();
         var dropped = Enumerable.Range(0, count).OrderByDescending(j => share[j]).Take(rigidCount).ToHashSet();
         var flexible = Enumerable.Range(0, count).Where(j => !dropped.Contains(j)).ToArray();
 
@@ -67,6 +73,11 @@ internal static class ModeResolution
         for (var j = 0; j < rigidCount; j++)
         {
             rigid[j] = true;
+            if (rigidBasis is not null)
+            {
+                shapes.SetColumn(j, rigidBasis[j]);
+                continue;
+            }
             var total = groups[j].Sum(i => mass[i]);
             foreach (var i in groups[j]) shapes[i, j] = 1 / Math.Sqrt(total);
         }
@@ -83,7 +94,9 @@ internal static class ModeResolution
             var spread = lowest > 0 ? stiffnessScale / lowest : double.PositiveInfinity;
             if (spread > SpreadNeedingFlexibility)
             {
-                if (n > MaxFlexibilitySize) warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                if (!matrices.MassIsDiagonal) warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                    $"The stiffness spread λ_max/ω²_min ≈ {spread:0.#e+0} leaves the lowest frequencies with a relative error up to about {2.2e-16 * spread:0.#e+0}; an inerter between two masses makes M non-diagonal, which the flexibility solve does not take."));
+                else if (n > MaxFlexibilitySize) warnings.Add(string.Create(CultureInfo.InvariantCulture,
                     $"The stiffness spread λ_max/ω²_min ≈ {spread:0.#e+0} leaves the lowest frequencies with a relative error up to about {2.2e-16 * spread:0.#e+0}; the model has {n} DOFs, more than the {MaxFlexibilitySize} the flexibility solve takes."));
                 else if (!RefineLowModes(mass, springs, groups, values, shapes, rigidCount, flexibleCount, stiffnessScale))
                     warnings.Add(string.Create(CultureInfo.InvariantCulture,
@@ -122,6 +135,35 @@ internal static class ModeResolution
             shapes.SetColumn(rigidCount + j, accurateShapes.Column(j));
         }
         return true;
+    }
+
+    /// <summary>
+    /// The unit translations ι_g of the free groups, M-orthonormalised in group order (modified Gram–Schmidt, run
+    /// twice): with an inerter between two groups their translations are not M-orthogonal, and any M-orthonormal basis
+    /// of the rigid subspace (all at ω = 0) is a valid set of rigid-body modes.
+    /// </summary>
+    private static Vector<double>[] RigidBasis(Matrix<double> m, int[][] groups, int n)
+    {
+        var basis = new Vector<double>[groups.Length];
+        for (var g = 0; g < groups.Length; g++)
+        {
+            var v = Vector<double>.Build.Dense(n);
+            foreach (var i in groups[g]) v[i] = 1;
+            for (var pass = 0; pass < 2; pass++)
+                for (var h = 0; h < g; h++)
+                    v -= basis[h] * (basis[h] * (m * v));
+            var norm = Math.Sqrt(v * (m * v));
+            if (!(norm > 0)) throw new NumericalFailureException(string.Create(CultureInfo.InvariantCulture, $"The rigid-body translation of group {g + 1} has no positive kinetic energy (vᵀMv = {norm * norm:G3})."));
+            basis[g] = v / norm;
+        }
+        return basis;
+    }
+
+    /// <summary>Σ_g (r_gᵀ M φ)² over an M-orthonormal rigid basis: the share of the M-normalised φ in the rigid subspace.</summary>
+    private static double RigidShare(Vector<double> phi, Matrix<double> m, Vector<double>[] basis)
+    {
+        var mPhi = m * phi;
+        return basis.Sum(r => Math.Pow(r * mPhi, 2));
     }
 
     /// <summary>Σ_g (ι_gᵀ M φ)² / m_g: the share of the M-normalised φ that is rigid translation of the free groups.</summary>

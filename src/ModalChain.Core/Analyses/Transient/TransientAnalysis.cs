@@ -62,7 +62,7 @@ public static class TransientAnalysis
         var network = system.Model.Network;
         var p = system.Partition;
         var matrices = new StructuralMatrices(p.Free, p.Mass, p.StiffnessFF, system.Damping.FF,
-            Vector<double>.Build.Dense(p.FreeCount, 1.0), MassIsDiagonal: network.Space == ModelSpace.Line || IsDiagonal(p.Mass));
+            Vector<double>.Build.Dense(p.FreeCount, 1.0), MassIsDiagonal: Assembler.IsDiagonal(p.Mass));
         var coupling = SupportCoupling.FromPartition(p, system.Damping);
         var notes = new List<string>();
         if (system.LossFactor > 0)
