@@ -38,7 +38,7 @@ internal static class ModesTable
         }
         table.Write(o, lastColumnLeftAligned: true);
         o.WriteLine();
-        if (n.Space != ModelSpace.Line) WriteDirections(o, result);
+        if (n.Space != ModelSpace.Line) WriteDirections(o, result, units);
 
         var fundamental = result.Modes.FirstOrDefault(m => !m.IsRigidBody);
         if (fundamental is not null && n.Springs.Length > 0 && fundamental.StrainEnergyShare.Any(e => e > 0))
@@ -84,7 +84,7 @@ internal static class ModesTable
     /// Plane and 3d models: each mode's motion name, decoupling and kinetic-energy share per direction, then the effective
     /// mass per direction with its cumulative fraction (rotations about the reference point).
     /// </summary>
-    private static void WriteDirections(TextWriter o, ModalResult result)
+    private static void WriteDirections(TextWriter o, ModalResult result, DisplayUnits units)
     {
         var directions = result.TotalByDirection.Select(t => t.Direction).ToArray();
         o.WriteLine("Motion of each mode (kinetic energy share per direction; decoupling = the largest share, 1 for a pure motion)");
@@ -96,7 +96,10 @@ internal static class ModesTable
         }
         motion.Write(o);
         o.WriteLine();
-        var about = result.ReferencePoint is { } p ? string.Create(Inv, $" about ({p.X:G4}, {p.Y:G4}, {p.Z:G4}) m") : "";
+        var length = units.LengthUnit;
+        var about = result.ReferencePoint is { } p
+            ? string.Create(Inv, $" about ({length.From(p.X):G4}, {length.From(p.Y):G4}, {length.From(p.Z):G4}) {length.Plain}")
+            : "";
         o.WriteLine($"Effective mass per direction, % of the total in that direction (cumulative); rotations{about}");
         var effective = new TextTable(["mode", .. directions.Select(d => $"{d.Label()} [%]")]);
         foreach (var m in result.Modes)
@@ -104,7 +107,9 @@ internal static class ModesTable
                 ? string.Create(Inv, $"{100 * x.Fraction:F1} ({100 * x.CumulativeFraction:F1})") : "-")]);
         effective.Write(o);
         o.WriteLine(string.Join(", ", result.TotalByDirection.Select(t =>
-            string.Create(Inv, $"total {t.Direction.Label()}: {t.Value:G5} {(t.Direction.IsRotation() ? "kg*m^2" : "kg")}"))));
+            t.Direction.IsRotation()
+                ? string.Create(Inv, $"total {t.Direction.Label()}: {units.MassUnit.From(t.Value) * length.From(1) * length.From(1):G5} {units.MassUnit.Plain}*{length.Plain}^2")
+                : string.Create(Inv, $"total {t.Direction.Label()}: {units.MassUnit.From(t.Value):G5} {units.MassUnit.Plain}"))));
         o.WriteLine();
     }
 

@@ -14,6 +14,7 @@ using ModalChain.Io.Csv;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
 using ModalChain.Reports.Units;
+using ModalChain.TestSupport;
 
 namespace ModalChain.Cli.Tests.Formatting;
 
@@ -47,6 +48,28 @@ public class SpatialOutputTests
             Criteria = criteria ?? CriteriaSet.None,
             TimedLoads = [.. timed],
         };
+    }
+
+    [Fact]
+    public void ImperialModesTable_OfA3dModel_ShowsDirectionTotalsAndTheReferencePointInImperialUnits()
+    {
+        // The skid example of the reader's fixtures: totals per direction in lb and lb*in^2 (1 kg*m^2 =
+        // 2.20462262 lb * 1550.0031 in^2, NIST SP 811 factors), the reference point in inches, never kg or m.
+        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "..", "tests", "ModalChain.Io.Tests", "Model", "Spatial", "compressor-skid-deck.yaml");
+        var si = ModalChain.Cli.Tests.Commands.CommandRun.Of("modes", file, "--units", "si");
+        var imperial = ModalChain.Cli.Tests.Commands.CommandRun.Of("modes", file, "--units", "imperial");
+        Assert.Equal(0, si.ExitCode);
+        Assert.Equal(0, imperial.ExitCode);
+        Assert.DoesNotContain(" kg", imperial.Output);
+        Assert.DoesNotContain(") m", imperial.Output);
+        static double Total(string output, string direction)
+        {
+            var at = output.IndexOf($"total {direction}: ", StringComparison.Ordinal);
+            var text = output[(at + direction.Length + 8)..].Split(' ')[0];
+            return double.Parse(text, System.Globalization.CultureInfo.InvariantCulture);
+        }
+        NumericAssert.Close(Total(si.Output, "rx") * 2.20462262185 / (0.0254 * 0.0254), Total(imperial.Output, "rx"), Tolerance.Rel(2e-4), "rx total, printed to 5 digits");
+        NumericAssert.Close(Total(si.Output, "z") * 2.20462262185, Total(imperial.Output, "z"), Tolerance.Rel(2e-4), "z total, printed to 5 digits");
     }
 
     [Fact]
