@@ -36,7 +36,10 @@ public sealed class ModelFilesReportTests
             Assert.StartsWith($"Mode {mode.Number}: ", title, StringComparison.Ordinal);
             Assert.Matches(@" Hz( \(rigid-body mode\))?$", title);
             var (shape, _) = ModalChain.Reports.Sections.ModesSection.Normalised(mode);
-            Sections.ModesSectionTests.AssertDisplacements(root, [.. document.Network.Masses.Select(m => m.Name)], shape, $"{model} mode {mode.Number}");
+            // Line models: each mass's block is displaced by its shape value. Plane and 3d mode figures are drawn in views and
+            // checked by SpatialReportTests (pure lift of a bounce, equal turn of a yaw, the centre of mass moved by the shape).
+            if (document.Network.Space == ModalChain.Core.Model.ModelSpace.Line)
+                Sections.ModesSectionTests.AssertDisplacements(root, [.. document.Network.Masses.Select(m => m.Name)], shape, $"{model} mode {mode.Number}");
         }
 
         // results.json holds the modes object of `modalchain modes --format json` under "modes", plus the report's own keys.

@@ -59,7 +59,7 @@ internal static class HarmonicTable
             o.WriteLine("Mount forces: largest amplitude over the sweep of the force (moment) each spring and damper passes to its second end");
             var mounts = new TextTable("element", "direction", "amplitude [peak]", "unit", "at [Hz]");
             foreach (var (m, peak, at) in result.MountForcePeaks())
-                mounts.Add($"{Kind(m.Kind)} {m.Element}", m.Direction, Num(peak), m.Unit, at.ToString("F3", Inv));
+                mounts.Add($"{Kind(m.Kind)} {m.Element}", m.Direction, Num(MountValue(m, peak, units)), MountUnit(m, units), at.ToString("F3", Inv));
             mounts.Write(o);
         }
 
@@ -91,7 +91,7 @@ internal static class HarmonicTable
                 o.WriteLine(string.Create(Inv, $"Mount forces at {op.SpeedHz:G6} Hz"));
                 var mounts = new TextTable("element", "direction", "amplitude [peak]", "unit", "phase [deg]");
                 foreach (var m in at.MountForces)
-                    mounts.Add($"{Kind(m.Kind)} {m.Element}", m.Direction, Num(m.Force[0].Magnitude), m.Unit, HarmonicJson.PhaseDegrees(m.Force[0]).ToString("F1", Inv));
+                    mounts.Add($"{Kind(m.Kind)} {m.Element}", m.Direction, Num(MountValue(m, m.Force[0].Magnitude, units)), MountUnit(m, units), HarmonicJson.PhaseDegrees(m.Force[0]).ToString("F1", Inv));
                 mounts.Write(o);
             }
             var nearest = system.Modes.Modes.Where(m => !m.IsRigidBody).MinBy(m => Math.Abs(m.NaturalFrequencyHz / op.SpeedHz - 1));
@@ -116,6 +116,16 @@ internal static class HarmonicTable
     }
 
     private static string Kind(ElementKind kind) => kind == ElementKind.Spring ? "spring" : "damper";
+
+    /// <summary>A mount force (N) or moment (N*m, a rotational component) in the display units.</summary>
+    private static double MountValue(MountForce m, double si, DisplayUnits units) =>
+        IsMoment(m) ? units.Force.From(si) * units.LengthUnit.From(1) : units.Force.From(si);
+
+    /// <summary>The display unit of a mount force or moment.</summary>
+    private static string MountUnit(MountForce m, DisplayUnits units) =>
+        IsMoment(m) ? $"{units.Force.Plain}*{units.LengthUnit.Plain}" : units.Force.Plain;
+
+    private static bool IsMoment(MountForce m) => m.Unit != "N";
 
     internal static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
 

@@ -51,6 +51,25 @@ public class SpatialOutputTests
     }
 
     [Fact]
+    public void ImperialHarmonicTable_ShowsMountForcesInPoundForce()
+    {
+        // 1 lbf = 4.4482216152605 N (NIST SP 811): the same mount's peak in both systems.
+        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "..", "tests", "ModalChain.Io.Tests", "Model", "Spatial", "compressor-skid-deck.yaml");
+        static (double Value, string Unit) Mount(string output)
+        {
+            var lines = output.Split('\n');
+            var header = Array.FindIndex(lines, l => l.StartsWith("Mount forces:", StringComparison.Ordinal));
+            var row = lines[header + 3].Split(' ', StringSplitOptions.RemoveEmptyEntries); // spring deck-beams z VALUE UNIT AT
+            return (double.Parse(row[3], System.Globalization.CultureInfo.InvariantCulture), row[4]);
+        }
+        var si = Mount(ModalChain.Cli.Tests.Commands.CommandRun.Of("harmonic", file, "--units", "si").Output);
+        var imperial = Mount(ModalChain.Cli.Tests.Commands.CommandRun.Of("harmonic", file, "--units", "imperial").Output);
+        Assert.Equal("N", si.Unit);
+        Assert.Equal("lbf", imperial.Unit);
+        NumericAssert.Close(si.Value / 4.4482216152605, imperial.Value, Tolerance.Rel(1e-3), "mount force, printed to 4 digits");
+    }
+
+    [Fact]
     public void ImperialModesTable_OfA3dModel_ShowsDirectionTotalsAndTheReferencePointInImperialUnits()
     {
         // The skid example of the reader's fixtures: totals per direction in lb and lb*in^2 (1 kg*m^2 =

@@ -120,7 +120,8 @@ internal sealed class GuardCase
     private static (string, string[]) CommandFor(BaseModel model, Random random)
     {
         var format = new[] { "table", "json", "csv" }[random.Next(3)];
-        var host = model.Masses[random.Next(model.Masses.Length)];
+        // A model of rigid bodies only has no mass to tune; the name then refers to nothing (an exit-2 case).
+        var host = model.Masses.Length > 0 ? model.Masses[random.Next(model.Masses.Length)] : "no-such-mass";
         // Reports cost about a hundred times a validation, so they are drawn rarely; every command is drawn.
         var roll = random.Next(1000);
         var (command, options) = roll switch
