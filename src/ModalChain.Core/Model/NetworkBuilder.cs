@@ -75,11 +75,7 @@ public sealed class NetworkBuilder
         ArgumentNullException.ThrowIfNull(spring);
         Guard.NonNegative(spring.Stiffness, nameof(spring));
         foreach (var c in spring.Components) Guard.NonNegative(c.Value, nameof(spring));
-        CheckEnds(spring.Name, spring.NodeA, spring.NodeB);
-        if (!_springNames.Add(spring.Name))
-            throw new ArgumentException($"A spring named '{spring.Name}' already exists.", nameof(spring));
-        _springs.Add(spring);
-        return this;
+        return AddElement(_springs, _springNames, spring, spring.Name, spring.NodeA, spring.NodeB, "spring", nameof(spring));
     }
 
     /// <summary>Adds a damper given as a record (directional components or axial included).</summary>
@@ -88,11 +84,7 @@ public sealed class NetworkBuilder
         ArgumentNullException.ThrowIfNull(damper);
         Guard.NonNegative(damper.Coefficient, nameof(damper));
         foreach (var c in damper.Components) Guard.NonNegative(c.Value, nameof(damper));
-        CheckEnds(damper.Name, damper.NodeA, damper.NodeB);
-        if (!_damperNames.Add(damper.Name))
-            throw new ArgumentException($"A damper named '{damper.Name}' already exists.", nameof(damper));
-        _dampers.Add(damper);
-        return this;
+        return AddElement(_dampers, _damperNames, damper, damper.Name, damper.NodeA, damper.NodeB, "damper", nameof(damper));
     }
 
     /// <summary>Adds a mass.</summary>
@@ -126,22 +118,14 @@ public sealed class NetworkBuilder
     public NetworkBuilder AddSpring(string name, string nodeA, string nodeB, double stiffness)
     {
         Guard.NonNegative(stiffness, nameof(stiffness));
-        CheckEnds(name, nodeA, nodeB);
-        if (!_springNames.Add(name))
-            throw new ArgumentException($"A spring named '{name}' already exists.", nameof(name));
-        _springs.Add(new Spring(name, nodeA, nodeB, stiffness));
-        return this;
+        return AddElement(_springs, _springNames, new Spring(name, nodeA, nodeB, stiffness), name, nodeA, nodeB, "spring", nameof(name));
     }
 
     /// <summary>Adds a viscous damper of coefficient <paramref name="coefficient"/> in N·s/m between two existing nodes.</summary>
     public NetworkBuilder AddDamper(string name, string nodeA, string nodeB, double coefficient)
     {
         Guard.NonNegative(coefficient, nameof(coefficient));
-        CheckEnds(name, nodeA, nodeB);
-        if (!_damperNames.Add(name))
-            throw new ArgumentException($"A damper named '{name}' already exists.", nameof(name));
-        _dampers.Add(new Damper(name, nodeA, nodeB, coefficient));
-        return this;
+        return AddElement(_dampers, _damperNames, new Damper(name, nodeA, nodeB, coefficient), name, nodeA, nodeB, "damper", nameof(name));
     }
 
     /// <summary>Adds an inerter of inertance <paramref name="inertance"/> in kg between two existing masses or supports (line models only).</summary>
@@ -178,6 +162,16 @@ public sealed class NetworkBuilder
     /// <summary>Produces the immutable network.</summary>
     public Network Build() =>
         new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters] };
+
+    /// <summary>Checks a two-node element's ends and name (unique among its kind) and appends it.</summary>
+    private NetworkBuilder AddElement<T>(List<T> elements, HashSet<string> names, T element, string name, string nodeA, string nodeB,
+        string kind, string parameter)
+    {
+        CheckEnds(name, nodeA, nodeB);
+        if (!names.Add(name)) throw new ArgumentException($"A {kind} named '{name}' already exists.", parameter);
+        elements.Add(element);
+        return this;
+    }
 
     private void ClaimNodeName(string name)
     {
