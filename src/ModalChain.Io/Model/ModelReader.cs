@@ -38,11 +38,15 @@ public static partial class ModelReader
             if (Decode(bytes, context) is not { } text) return Finish(context, null);
             root = YamlTree.Load(text, file, context.Diagnostics);
         }
+        else if (PlainYamlReader.TryLoad(bytes, Utf8Start(bytes), out var plain))
+        {
+            // The plain subset large models are written in, read without YamlDotNet (the same tree; see PlainYamlReader).
+            root = plain;
+        }
         else
         {
             // Valid UTF-8 (the usual case) is decoded as the parser reads it, not held a second time as one string.
-            var bom = 0;
-            while (bytes.AsSpan(bom) is [0xEF, 0xBB, 0xBF, ..]) bom += 3; // as TrimStart('\uFEFF') on the decoded text
+            var bom = Utf8Start(bytes);
             using var reader = new StreamReader(new MemoryStream(bytes, bom, bytes.Length - bom, writable: false), StrictUtf8, detectEncodingFromByteOrderMarks: false);
             root = YamlTree.Load(reader, () => Decode(bytes, context) ?? "", file, context.Diagnostics,
                 readAhead: bytes.Length >= ReadAheadBytes && Environment.ProcessorCount > 1);
@@ -115,6 +119,14 @@ public static partial class ModelReader
         context.Error(new SourcePosition(line, column),
             $"the file is not UTF-8 text (byte 0x{bytes[read]:X2} here); save it with UTF-8 encoding");
         return null;
+    }
+
+    // The first byte after any UTF-8 byte-order marks, as TrimStart('\uFEFF') on the decoded text.
+    private static int Utf8Start(byte[] bytes)
+    {
+        var bom = 0;
+        while (bytes.AsSpan(bom) is [0xEF, 0xBB, 0xBF, ..]) bom += 3;
+        return bom;
     }
 
     // Above this size the YAML parser runs on a thread of its own, ahead of the tree (a 100,000-mass model is 16 MiB).
