@@ -66,6 +66,8 @@ public static class ModelFiles
             output.WriteLine(string.Create(inv, $"  processor time (all threads, whole process) {Process.GetCurrentProcess().TotalProcessorTime.TotalSeconds:F3} s"));
             output.WriteLine(string.Create(inv,
                 $"  processor time of read+check {(cpuRead - cpuBefore).TotalSeconds:F3} s, of read+check, topology and assemble {(cpuAfter - cpuBefore).TotalSeconds:F3} s (writing the file excluded)"));
+            output.WriteLine(string.Create(inv,
+                $"  garbage collections gen0/gen1/gen2 {GC.CollectionCount(0)}/{GC.CollectionCount(1)}/{GC.CollectionCount(2)}, paused {GC.GetTotalPauseDuration().TotalSeconds:F3} s, allocated {GC.GetTotalAllocatedBytes() / 1048576.0:F0} MiB"));
             output.WriteLine(string.Create(inv, $"  peak working set {Process.GetCurrentProcess().PeakWorkingSet64 / 1048576.0:F0} MiB"));
         }
         finally

@@ -122,25 +122,43 @@ public sealed class DofMap
     public static DofMap ForScalarNetwork(Network network)
     {
         ArgumentNullException.ThrowIfNull(network);
-        var order = network.Masses.Select((m, i) => (m.Name, i)).ToDictionary(p => p.Name, p => p.i);
-        var parent = Enumerable.Range(0, network.Masses.Length).ToArray();
+        var masses = network.Masses;
+        var parent = new int[masses.Length];
+        for (var i = 0; i < parent.Length; i++) parent[i] = i;
         int Find(int x)
         {
             while (parent[x] != x) x = parent[x] = parent[parent[x]];
             return x;
         }
-        foreach (var link in network.Links)
-            foreach (var name in link.Masses.Skip(1))
-            {
-                var (a, b) = (Find(order[link.Masses[0]]), Find(order[name]));
-                if (a != b) parent[Math.Max(a, b)] = Math.Min(a, b);
-            }
-        var groups = Enumerable.Range(0, network.Masses.Length)
-            .GroupBy(Find)
-            .OrderBy(g => g.Key)
-            .Select(g => g.Select(i => network.Masses[i].Name).ToImmutableArray())
-            .ToImmutableArray();
-        return new DofMap([.. groups.Select(g => new Dof(string.Join("+", g), Direction.Along))], groups);
+        if (!network.Links.IsDefaultOrEmpty)
+        {
+            var order = new Dictionary<string, int>(masses.Length, StringComparer.Ordinal);
+            for (var i = 0; i < masses.Length; i++) order.Add(masses[i].Name, i);
+            foreach (var link in network.Links)
+                foreach (var name in link.Masses.Skip(1))
+                {
+                    var (a, b) = (Find(order[link.Masses[0]]), Find(order[name]));
+                    if (a != b) parent[Math.Max(a, b)] = Math.Min(a, b);
+                }
+        }
+        // Each group's DOF comes at the place of its first mass (the root of a group is its smallest index), its
+        // masses in declaration order.
+        var members = new List<string>?[masses.Length];
+        for (var i = 0; i < masses.Length; i++)
+        {
+            var root = Find(i);
+            if (root == i) members[i] = [masses[i].Name];
+            else members[root]!.Add(masses[i].Name);
+        }
+        var groups = ImmutableArray.CreateBuilder<ImmutableArray<string>>();
+        var dofs = ImmutableArray.CreateBuilder<Dof>();
+        foreach (var group in members)
+        {
+            if (group is null) continue;
+            groups.Add([.. group]);
+            dofs.Add(new Dof(group.Count == 1 ? group[0] : string.Join("+", group), Direction.Along));
+        }
+        return new DofMap(dofs.DrainToImmutable(), groups.DrainToImmutable());
     }
 
     /// <summary>The nodes (masses) that move with degree of freedom <paramref name="index"/>: one, or all the masses of a link.</summary>
@@ -184,11 +202,26 @@ public sealed class DofMap
 
     private static string SpaceName(ModelSpace space) => space == ModelSpace.Plane ? "plane" : "3d";
 
-    private sealed class FrozenIndex(ImmutableArray<Dof> dofs, ImmutableArray<ImmutableArray<string>> nodes)
+    /// <summary>The index of each (node, direction), one ordinal string table per direction (a string key hashes
+    /// faster than a <see cref="Dof"/>, and assembly asks once per element end).</summary>
+    private sealed class FrozenIndex
     {
-        private readonly Dictionary<Dof, int> _map = dofs
-            .SelectMany((d, i) => nodes[i].Select(n => (Dof: new Dof(n, d.Direction), Index: i)))
-            .ToDictionary(p => p.Dof, p => p.Index);
-        public bool TryGet(Dof dof, out int index) => _map.TryGetValue(dof, out index);
+        private readonly Dictionary<string, int>?[] _byDirection = new Dictionary<string, int>?[Enum.GetValues<Direction>().Length];
+
+        public FrozenIndex(ImmutableArray<Dof> dofs, ImmutableArray<ImmutableArray<string>> nodes)
+        {
+            for (var i = 0; i < dofs.Length; i++)
+            {
+                var table = _byDirection[(int)dofs[i].Direction] ??= new Dictionary<string, int>(StringComparer.Ordinal);
+                foreach (var node in nodes[i]) table.Add(node, i); // a node twice in one direction is a caller bug, as before
+            }
+        }
+
+        public bool TryGet(Dof dof, out int index)
+        {
+            index = 0;
+            return (uint)dof.Direction < (uint)_byDirection.Length && _byDirection[(int)dof.Direction] is { } table && dof.Node is not null
+                && table.TryGetValue(dof.Node, out index);
+        }
     }
 }

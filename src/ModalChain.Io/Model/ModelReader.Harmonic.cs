@@ -14,7 +14,7 @@ public static partial class ModelReader
     public const int MaxSweepPoints = 100_000;
 
     /// <summary>Reads 'harmonic': the loads, frequencies, outputs and method of a steady-state sweep.</summary>
-    private static HarmonicSpec? ReadHarmonic(YMapping top, ImmutableHashSet<string> masses, ImmutableArray<Load> loads, ReadContext context)
+    private static HarmonicSpec? ReadHarmonic(YMapping top, IReadOnlySet<string> masses, ImmutableArray<Load> loads, ReadContext context)
     {
         if (top["harmonic"] is not { } node || node is YScalar { IsPlainNull: true }) return null;
         if (context.Mapping(node, "'harmonic'") is not { } h) return null;
@@ -93,7 +93,7 @@ public static partial class ModelReader
         return sweep is null ? null : new HarmonicSpec(loadNames, sweep, refine, outputs, method, modes);
     }
 
-    private static ImmutableArray<string> NameList(YMapping h, string key, ImmutableHashSet<string> known, string element, string section, ReadContext context)
+    private static ImmutableArray<string> NameList(YMapping h, string key, IReadOnlySet<string> known, string element, string section, ReadContext context)
     {
         if (h[key] is not { } node) return [];
         if (node is not YSequence seq)

@@ -18,7 +18,7 @@ public static partial class ModelReader
 
     /// <summary>Reads 'loads': named harmonic forces, rotating unbalances and support motions.</summary>
     /// <remarks>In plane and 3d models (<paramref name="spatial"/> given) loads act at masses, bodies or body points, in a stated direction.</remarks>
-    private static ImmutableArray<Load> ReadLoads(YMapping top, ImmutableHashSet<string> masses, ImmutableHashSet<string> supports, ReadContext context,
+    private static ImmutableArray<Load> ReadLoads(YMapping top, IReadOnlySet<string> masses, IReadOnlySet<string> supports, ReadContext context,
         SpatialNodes? spatial = null)
     {
         if (top["loads"] is not { } node || node is YScalar { IsPlainNull: true }) return [];
@@ -93,7 +93,7 @@ public static partial class ModelReader
         return result.ToImmutable();
     }
 
-    private static string? LoadMass(YMapping entry, ImmutableHashSet<string> masses, string what, ReadContext context)
+    private static string? LoadMass(YMapping entry, IReadOnlySet<string> masses, string what, ReadContext context)
     {
         if (entry["at"] is not { } node)
         {
@@ -108,7 +108,7 @@ public static partial class ModelReader
         return null;
     }
 
-    private static string? LoadSupport(YMapping entry, ImmutableHashSet<string> supports, string what, ReadContext context)
+    private static string? LoadSupport(YMapping entry, IReadOnlySet<string> supports, string what, ReadContext context)
     {
         if (entry["support"] is not { } node)
         {

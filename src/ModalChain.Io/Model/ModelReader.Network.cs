@@ -16,8 +16,27 @@ public static partial class ModelReader
     private static readonly Range InertanceRange = new(0, 1e9);           // kg, as masses (0 allowed: an inerter switched off)
     private static readonly Range DrawingRange = new(-1e5, 1e5);          // m
 
+    private static readonly string[] MassKeys = ["mass", "at", "directions"];
+
     [GeneratedRegex(@"^[\p{L}\p{N}_][\p{L}\p{N}_.\-]*$")]
-    private static partial Regex NamePattern();
+    internal static partial Regex NamePattern();
+
+    /// <summary>Whether <paramref name="name"/> matches <see cref="NamePattern"/>; ASCII names, nearly all of them, by a
+    /// loop that gives the same answer (a large model checks hundreds of thousands of names), others by the pattern.</summary>
+    internal static bool IsUsableName(string name)
+    {
+        // The pattern's '$' also matches before one final '\n'.
+        var length = name.Length > 1 && name[^1] == '\n' ? name.Length - 1 : name.Length;
+        if (length == 0) return false;
+        for (var i = 0; i < length; i++)
+        {
+            var c = name[i];
+            if (c >= 0x80) return NamePattern().IsMatch(name);
+            var ok = c is (>= 'a' and <= 'z') or (>= 'A' and <= 'Z') or (>= '0' and <= '9') or '_' || (i > 0 && c is '.' or '-');
+            if (!ok) return false;
+        }
+        return true;
+    }
 
     private static CoreNetwork? ReadNetwork(YMapping top, ReadContext context, string defaultTitle, Repeated repeated, SpatialNodes? spatial)
     {
@@ -49,6 +68,7 @@ public static partial class ModelReader
             return null;
         }
 
+        context.Positions.EnsureCapacity(context.Positions.Count + masses.Entries.Length);
         foreach (var (key, value) in masses.Entries)
         {
             if (!CheckName(key, context, "mass")) continue;
@@ -72,7 +92,7 @@ public static partial class ModelReader
             }
             else if (context.Mapping(value, what) is { } entry)
             {
-                context.RejectUnknownKeys(entry, what, "mass", "at", "directions");
+                context.RejectUnknownKeys(entry, what, MassKeys);
                 RefuseInLine(entry, "directions", what, context);
                 kg = context.Required(entry, "mass", Quantity.Mass, MassRange, what, key.Position);
                 if (entry["at"] is { } atNode) at = ReadPosition(atNode, context, what);
@@ -111,6 +131,10 @@ public static partial class ModelReader
         if (sectionNode is YScalar s && s.IsPlainNull) return result;
         if (context.Mapping(sectionNode, $"'{section}'") is not { } mapping) return result;
 
+        // The same for every element: made once, not per spring.
+        var rotationalKey = $"rotational-{valueKey}";
+        string[] allowed = ["between", valueKey, "axial", rotationalKey];
+        context.Positions.EnsureCapacity(context.Positions.Count + mapping.Entries.Length);
         foreach (var (key, value) in mapping.Entries)
         {
             if (!CheckName(key, context, element)) continue;
@@ -122,11 +146,11 @@ public static partial class ModelReader
                 context.Error(value, $"{what} must be a mapping such as '{{between: [ground, deck], {valueKey}: {example}}}'");
                 continue;
             }
-            context.RejectUnknownKeys(entry, what, "between", valueKey, "axial", $"rotational-{valueKey}");
-            if (entry["axial"] is not null || entry[$"rotational-{valueKey}"] is not null)
+            context.RejectUnknownKeys(entry, what, allowed);
+            if (entry["axial"] is not null || entry[rotationalKey] is not null)
             {
                 RefuseInLine(entry, "axial", what, context);
-                RefuseInLine(entry, $"rotational-{valueKey}", what, context);
+                RefuseInLine(entry, rotationalKey, what, context);
                 continue;
             }
             if (entry[valueKey] is YMapping perDirection && perDirection.Entries.Any(e => Directions.Parse(e.Key.Value) is not null))
@@ -209,7 +233,7 @@ public static partial class ModelReader
             context.Error(key, $"'{CoreNetwork.Ground}' is the reserved fixed support and cannot name a {element}");
             return false;
         }
-        if (!NamePattern().IsMatch(key.Value))
+        if (!IsUsableName(key.Value))
         {
             context.Error(key, $"'{key.Value}' is not a usable {element} name; use letters, digits, '_', '-' and '.', starting with a letter or digit");
             return false;

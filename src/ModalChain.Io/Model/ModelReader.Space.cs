@@ -633,7 +633,7 @@ public static partial class ModelReader
     }
 
     /// <summary>The target of a force or unbalance: a mass (line models), or a mass, body or body point (plane and 3d).</summary>
-    private static End? LoadTarget(YMapping entry, ImmutableHashSet<string> masses, SpatialNodes? nodes, string what, ReadContext context)
+    private static End? LoadTarget(YMapping entry, IReadOnlySet<string> masses, SpatialNodes? nodes, string what, ReadContext context)
     {
         if (nodes is null)
             return LoadMass(entry, masses, what, context) is { } mass ? new End(mass, mass, EndKind.Mass, null, [Direction.Along]) : null;

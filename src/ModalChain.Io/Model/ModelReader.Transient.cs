@@ -17,8 +17,8 @@ public static partial class ModelReader
     private static readonly string[] TransientMethods = ["newmark", "hht", "exact", "modal"];
 
     /// <summary>Reads the loads that carry a 'time' function: forces and support accelerations in time, unbalances that run up or down.</summary>
-    private static ImmutableArray<TransientExcitation> ReadTimedLoads(YMapping top, ImmutableHashSet<string> masses,
-        ImmutableHashSet<string> supports, ReadContext context)
+    private static ImmutableArray<TransientExcitation> ReadTimedLoads(YMapping top, IReadOnlySet<string> masses,
+        IReadOnlySet<string> supports, ReadContext context)
     {
         if (top["loads"] is not YMapping loads) return [];
         var result = ImmutableArray.CreateBuilder<TransientExcitation>();
@@ -70,7 +70,7 @@ public static partial class ModelReader
     }
 
     /// <summary>Reads 'transient': duration, step, method, loads, outputs, initial conditions and the RMS window.</summary>
-    private static TransientSpec? ReadTransient(YMapping top, ImmutableHashSet<string> masses, ImmutableArray<TransientExcitation> timedLoads,
+    private static TransientSpec? ReadTransient(YMapping top, IReadOnlySet<string> masses, ImmutableArray<TransientExcitation> timedLoads,
         ReadContext context)
     {
         if (top["transient"] is not { } node || node is YScalar { IsPlainNull: true }) return null;

@@ -66,7 +66,8 @@ public static partial class ModelReader
         var referencePoint = ReadReferencePoint(top, space, context);
         var repeated = spatial is null ? ReadRepeat(top, context) : new Repeated();
         var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file), repeated, spatial);
-        var massNames = DeclaredNames(top, "masses").Union(repeated.MassNames);
+        var massNames = DeclaredNames(top, "masses");
+        massNames.UnionWith(repeated.MassNames);
         var supportNames = DeclaredNames(top, "supports");
         var damping = ReadDamping(top, context);
         var loads = ReadLoads(top, massNames, supportNames, context, spatial);
