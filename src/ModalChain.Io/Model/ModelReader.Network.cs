@@ -60,7 +60,7 @@ public static partial class ModelReader
             return null;
         }
         if (context.Mapping(massesNode, "'masses'") is not { } masses) return null;
-        if (masses.Entries.Length == 0 && repeated.Masses.Count == 0 && !bodiesGiven)
+        if (masses.Count == 0 && repeated.Masses.Count == 0 && !bodiesGiven)
         {
             // Its only entries were already reported (e.g. a key that is a list): "empty" would be a second, wrong error.
             if (masses.DroppedKeys || (top["repeat"] is not null && context.HasErrors)) return null;
@@ -68,8 +68,8 @@ public static partial class ModelReader
             return null;
         }
 
-        context.Positions.EnsureCapacity(context.Positions.Count + masses.Entries.Length);
-        foreach (var (key, value) in masses.Entries)
+        context.Positions.EnsureCapacity(context.Positions.Count + masses.Count);
+        foreach (var (key, value) in masses.Walk())
         {
             if (!CheckName(key, context, "mass")) continue;
             var what = $"mass '{key.Value}'";
@@ -108,7 +108,7 @@ public static partial class ModelReader
         var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
         var inerters = ReadTwoNodeSection(top, "inerters", "inerter", "inertance", Quantity.Mass, InertanceRange, nodes, context);
         CheckRepeatedSprings(repeated, springs, context);
-        var links = ReadLinks(top, context, masses.Entries.Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
+        var links = ReadLinks(top, context, masses.Walk().Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
         if (context.HasErrors) return null;
 
         foreach (var (name, a, b, k) in springs) builder.AddSpring(name, a, b, k);
@@ -134,8 +134,8 @@ public static partial class ModelReader
         // The same for every element: made once, not per spring.
         var rotationalKey = $"rotational-{valueKey}";
         string[] allowed = ["between", valueKey, "axial", rotationalKey];
-        context.Positions.EnsureCapacity(context.Positions.Count + mapping.Entries.Length);
-        foreach (var (key, value) in mapping.Entries)
+        context.Positions.EnsureCapacity(context.Positions.Count + mapping.Count);
+        foreach (var (key, value) in mapping.Walk())
         {
             if (!CheckName(key, context, element)) continue;
             var what = $"{element} '{key.Value}'";

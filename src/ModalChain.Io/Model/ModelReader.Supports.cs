@@ -53,7 +53,7 @@ public static partial class ModelReader
     {
         var names = new HashSet<string>(StringComparer.Ordinal);
         if (top[section] is YMapping m)
-            foreach (var (key, _) in m.Entries) names.Add(key.Value);
+            foreach (var (key, _) in m.Walk()) names.Add(key.Value);
         return names;
     }
 }

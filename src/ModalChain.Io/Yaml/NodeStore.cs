@@ -155,6 +155,22 @@ internal sealed class NodeStore
         return result;
     }
 
+    /// <summary>The entries kept of the mapping at <paramref name="slot"/>, made one at a time and not cached.</summary>
+    public IEnumerable<KeyValuePair<YScalar, YNode>> WalkEntries(int slot)
+    {
+        var (key, end) = (slot + 1, slot + At(slot).Span);
+        while (key < end)
+        {
+            var value = key + At(key).Span;
+            var next = value + At(value).Span;
+            if ((At(key).Marks & Marks.DroppedEntry) == 0) yield return new((YScalar)Node(key), Node(value));
+            key = next;
+        }
+    }
+
+    /// <summary>The number of items of a sequence, or of entries kept of a mapping, at <paramref name="slot"/>.</summary>
+    public int CountOf(int slot) => At(slot).Data;
+
     private sealed class CacheLine(int slot, object children)
     {
         public int Slot { get; } = slot;

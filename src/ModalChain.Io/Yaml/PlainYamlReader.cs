@@ -37,6 +37,7 @@ internal sealed class PlainYamlReader
     private readonly Dictionary<string, string> _strings = new(StringComparer.Ordinal);
     private readonly Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> _lookup;
     private readonly char[] _chars = new char[ShortText];
+    private readonly KeySet?[] _keys = new KeySet?[YamlTree.MaximumDepth + 1];
     private const int ShortText = 32;
 
     // YAML 1.2 limits an implicit key to 1024 characters; well below that, so a long key is always left to YamlDotNet.
@@ -267,10 +268,18 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>Rejects (declines) a key seen before in the same mapping.</summary>
+    /// <remarks>One per depth, reused by every mapping opened at that depth (a large model has hundreds of thousands).</remarks>
     private sealed class KeySet
     {
         private readonly List<string> _few = [];
         private HashSet<string>? _many;
+
+        public KeySet Reset()
+        {
+            _few.Clear();
+            _many = null;
+            return this;
+        }
 
         public void Add(string key)
         {
@@ -307,7 +316,7 @@ internal sealed class PlainYamlReader
     {
         if (depth > YamlTree.MaximumDepth) throw Decline();
         var slot = _store.OpenCollection(Position(_p), NodeStore.Kind.Mapping);
-        var keys = new KeySet();
+        var keys = (_keys[depth] ??= new KeySet()).Reset();
         var count = 0;
         while (true)
         {
@@ -373,7 +382,7 @@ internal sealed class PlainYamlReader
         var slot = _store.OpenCollection(Position(_p), NodeStore.Kind.Mapping);
         _p++;
         FlowSpaces();
-        var keys = new KeySet();
+        var keys = (_keys[depth] ??= new KeySet()).Reset();
         var count = 0;
         if (At(_p) != (byte)'}')
         {

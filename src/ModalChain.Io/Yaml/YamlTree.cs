@@ -53,6 +53,13 @@ internal sealed record YMapping : YNode
     /// <summary>True when an entry was left out because its key was already reported (duplicate, or not a scalar).</summary>
     public bool DroppedKeys { get; }
 
+    /// <summary>The number of entries kept.</summary>
+    public int Count => _store is null ? _entries.Length : _store.CountOf(_slot);
+
+    /// <summary>The entries kept, in document order, as <see cref="Entries"/> gives them, but made one at a time: a
+    /// section reader that walks a mapping of 100,000 entries once does not hold them all as objects at once.</summary>
+    public IEnumerable<KeyValuePair<YScalar, YNode>> Walk() => _store is null ? _entries : _store.WalkEntries(_slot);
+
     /// <summary>The value of <paramref name="key"/>, or null when the mapping has no such key.</summary>
     public YNode? this[string key]
     {
