@@ -85,11 +85,17 @@ public static class ModelWriter
     {
         var read = ModelReader.Read(text, file).Model?.Network;
         return read is not null
-            && read.Masses.OrderBy(m => m.Name, StringComparer.Ordinal).SequenceEqual(network.Masses.OrderBy(m => m.Name, StringComparer.Ordinal))
-            && read.Springs.OrderBy(s => s.Name, StringComparer.Ordinal).SequenceEqual(network.Springs.OrderBy(s => s.Name, StringComparer.Ordinal))
-            && read.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal).SequenceEqual(network.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal))
+            && Same(read.Masses, network.Masses, m => m.Name, (a, b) => a with { Moves = [] } == b with { Moves = [] } && a.Moves.SequenceEqual(b.Moves))
+            && Same(read.Springs, network.Springs, s => s.Name, (a, b) => a with { Components = [] } == b with { Components = [] } && a.Components.SequenceEqual(b.Components))
+            && Same(read.Dampers, network.Dampers, d => d.Name, (a, b) => a with { Components = [] } == b with { Components = [] } && a.Components.SequenceEqual(b.Components))
             && read.Supports.SequenceEqual(network.Supports);
     }
+
+    // Records holding immutable arrays (a mass's directions, a spring's components) compare those arrays by reference, so
+    // they are compared item by item here.
+    private static bool Same<T>(ImmutableArray<T> read, ImmutableArray<T> written, Func<T, string> name, Func<T, T, bool> equal) =>
+        read.Length == written.Length
+        && read.OrderBy(name, StringComparer.Ordinal).Zip(written.OrderBy(name, StringComparer.Ordinal)).All(p => equal(p.First, p.Second));
 
     /// <summary>Where a top-level section sits in the text, from the parser's marks.</summary>
     /// <param name="KeyEnd">Index just after the section's key.</param>
