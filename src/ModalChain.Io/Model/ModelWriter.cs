@@ -191,7 +191,9 @@ public static class ModelWriter
     {
         if (Sections(text) is not { } sections) return null;
         var newline = Newline(text);
-        var edits = new List<(int At, int Remove, string Insert)>();
+        // NewSection: a whole section appended after the network sections; at the same place as entries appended to the last
+        // existing section (a model of bodies only has springs but no masses), it must come after them.
+        var edits = new List<(int At, int Remove, string Insert, bool NewSection)>();
         var network = new[] { "title", "masses", "springs", "dampers" };
         var previousEnd = sections.Where(s => network.Contains(s.Key)).Select(s => s.Section.ContentEnd).DefaultIfEmpty(-1).Max();
         foreach (var (name, entries) in additions)
@@ -207,7 +209,7 @@ public static class ModelWriter
                 var block = new StringBuilder(at == text.Length && !text.EndsWith('\n') ? newline : "");
                 block.Append(name).Append(':').Append(newline);
                 foreach (var line in lines) block.Append("  ").Append(line).Append(newline);
-                edits.Add((at, 0, block.ToString()));
+                edits.Add((at, 0, block.ToString(), true));
                 continue;
             }
             var section = sections[found].Section;
@@ -219,18 +221,18 @@ public static class ModelWriter
                     var indent = new string(' ', Math.Max(1, section.EntryColumn - 1));
                     var block = new StringBuilder(at == text.Length && !text.EndsWith('\n') ? newline : "");
                     foreach (var line in lines) block.Append(indent).Append(line).Append(newline);
-                    edits.Add((at, 0, block.ToString()));
+                    edits.Add((at, 0, block.ToString(), false));
                     break;
                 }
                 case ValueStyle.FlowMapping:
-                    edits.Add((section.Close, 0, (section.Entries > 0 ? ", " : "") + string.Join(", ", lines)));
+                    edits.Add((section.Close, 0, (section.Entries > 0 ? ", " : "") + string.Join(", ", lines), false));
                     break;
                 case ValueStyle.EmptyScalar:
-                    edits.Add((section.KeyEnd + 1, 0, " {" + string.Join(", ", lines) + "}"));
+                    edits.Add((section.KeyEnd + 1, 0, " {" + string.Join(", ", lines) + "}", false));
                     if (section.KeyEnd >= text.Length || text[section.KeyEnd] != ':') return null;
                     break;
                 case ValueStyle.NullScalar:
-                    edits.Add((section.ValueStart, section.ContentEnd - section.ValueStart, "{" + string.Join(", ", lines) + "}"));
+                    edits.Add((section.ValueStart, section.ContentEnd - section.ValueStart, "{" + string.Join(", ", lines) + "}", false));
                     break;
                 default:
                     return null;
@@ -238,8 +240,9 @@ public static class ModelWriter
         }
         var result = new StringBuilder(text);
         // From the end backwards, so earlier indices stay valid; of two edits at one place, the later-made goes first,
-        // which leaves the earlier-made (an earlier section's entries) in front of it.
-        foreach (var (at, remove, insert) in edits.Select((e, i) => (e, i)).OrderByDescending(x => x.e.At).ThenByDescending(x => x.i).Select(x => x.e))
+        // which leaves the earlier-made (an earlier section's entries) in front of it; new sections go in first, so they end up last.
+        foreach (var (at, remove, insert, _) in edits.Select((e, i) => (e, i)).OrderByDescending(x => x.e.At).ThenByDescending(x => x.e.NewSection)
+            .ThenByDescending(x => x.i).Select(x => x.e))
         {
             result.Remove(at, remove);
             result.Insert(at, insert);
