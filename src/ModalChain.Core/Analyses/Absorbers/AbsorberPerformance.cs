@@ -370,7 +370,7 @@ public static class AbsorberPerformance
         var k = ModalStiffness(design);
         var loads = new Load[] { UnitForce(system, design) };
         double[][] rows = [HostRow(system, design)];
-        return [.. frequenciesHz.Select(f => HarmonicAnalysis.Observe(system, f, loads, rows) is { } x && double.IsFinite(x[0].Magnitude) ? x[0].Magnitude * k : double.NaN)];
+        return [.. HarmonicAnalysis.Observe(system, frequenciesHz, loads, rows).Select(x => x is not null && double.IsFinite(x[0].Magnitude) ? x[0].Magnitude * k : double.NaN)];
     }
 
     /// <summary>The point and direction of the design's host in <paramref name="network"/>.</summary>

@@ -549,21 +549,32 @@ public static class HarmonicAnalysis
     /// <param name="frequencyHz">The frequency in Hz, positive.</param>
     /// <param name="loads">Loads acting together.</param>
     /// <param name="observations">Rows over the free DOFs; one response each.</param>
-    internal static Complex[]? Observe(DampedSystem system, double frequencyHz, IReadOnlyList<Load> loads, double[][] observations)
+    internal static Complex[]? Observe(DampedSystem system, double frequencyHz, IReadOnlyList<Load> loads, double[][] observations) =>
+        Observe(system, [frequencyHz], loads, observations)[0];
+
+    /// <summary>The same at each of <paramref name="frequenciesHz"/>, on one engine (the direct method's reduction is done once).</summary>
+    internal static Complex[]?[] Observe(DampedSystem system, IReadOnlyList<double> frequenciesHz, IReadOnlyList<Load> loads, double[][] observations)
     {
         ArgumentNullException.ThrowIfNull(system);
+        ArgumentNullException.ThrowIfNull(frequenciesHz);
         ArgumentNullException.ThrowIfNull(loads);
         ArgumentNullException.ThrowIfNull(observations);
-        Guard.Positive(frequencyHz, nameof(frequencyHz));
+        foreach (var f in frequenciesHz) Guard.Positive(f, "frequency");
         var loading = HarmonicLoading.Compile(system, loads);
         var engine = DirectEngines.Create(system, loading, observations);
-        var omega = 2 * Math.PI * frequencyHz;
+        var workspace = engine.CreateWorkspace();
         var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];
-        HarmonicLoading.Powers(omega, powers);
         var coefficients = new Complex[loading.Terms.Count];
-        for (var r = 0; r < coefficients.Length; r++) coefficients[r] = powers[loading.Terms[r].Power - HarmonicLoading.MinPower];
-        var x = new Complex[observations.Length];
-        return engine.Solve(omega, coefficients, x, engine.CreateWorkspace()) ? x : null;
+        var results = new Complex[]?[frequenciesHz.Count];
+        for (var k = 0; k < results.Length; k++)
+        {
+            var omega = 2 * Math.PI * frequenciesHz[k];
+            HarmonicLoading.Powers(omega, powers);
+            for (var r = 0; r < coefficients.Length; r++) coefficients[r] = powers[loading.Terms[r].Power - HarmonicLoading.MinPower];
+            var x = new Complex[observations.Length];
+            results[k] = engine.Solve(omega, coefficients, x, workspace) ? x : null;
+        }
+        return results;
     }
 
     /// <summary>Maximum of a unimodal function on [lo, hi] by golden-section search (Kiefer 1953) to a relative width of 1e-7.</summary>
