@@ -124,7 +124,4 @@ public sealed record AbsorberHost(string Label, string Reference, Direction Dire
 
     /// <summary>A unit harmonic force at the host, along its direction.</summary>
     public ForceLoad UnitForce() => new("unit force at the host", Reference, 1, 0) { Direction = Direction };
-
-    /// <summary>The stem of the absorber's element names: the mass name in line models, the label with its dots as dashes otherwise (<c>skid-top-x</c>).</summary>
-    public string NameStem => Direction == Direction.Along ? Label : Label.Replace('.', '-');
 }
