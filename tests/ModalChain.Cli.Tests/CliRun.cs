@@ -38,6 +38,22 @@ internal static partial class CliRun
 
     public static string ModelPath(string name) => Path.Combine(RepositoryRoot, "models", name);
 
+    /// <summary>
+    /// The tune options naming a host of <paramref name="network"/>: the heaviest mass of a line model; in a plane or 3d
+    /// model the translation DOF label (from <see cref="ModalChain.Core.Dofs.DofMap"/>) that moves most in the first
+    /// flexible mode, with that mode, so the host never sits at a node of the mode tuned.
+    /// </summary>
+    public static string[] TuneHost(ModalChain.Core.Model.Network network)
+    {
+        if (network.Space == ModalChain.Core.Model.ModelSpace.Line) return ["--host", network.Masses.MaxBy(m => m.Kilograms)!.Name];
+        var modal = ModalChain.Core.Analyses.Modal.ModalAnalysis.Solve(network);
+        var dofs = modal.Matrices.Dofs;
+        var mode = modal.Modes.First(m => !m.IsRigidBody);
+        var translations = Enumerable.Range(0, dofs.Count).Where(i => !ModalChain.Core.Model.Directions.IsRotation(dofs.Dofs[i].Direction));
+        var host = translations.MaxBy(i => Math.Abs(mode.Shape[i]));
+        return ["--host", dofs.Label(host), "--mode", mode.Number.ToString(CultureInfo.InvariantCulture)];
+    }
+
     /// <summary>Help text with its line wrapping undone, so a phrase can be found whatever the width.</summary>
     public static string Unwrapped(string text) => Whitespace().Replace(text, " ");
 

@@ -10,7 +10,12 @@ namespace ModalChain.Cli.Commands;
 internal static class AbsorberArguments
 {
     public static Option<string> Host(string name, bool required) =>
-        new(name) { Description = "The mass the absorber hangs on.", Required = required };
+        new(name)
+        {
+            Description = "The mass the absorber hangs on. In plane and 3d models a point and the translation the absorber acts along: a DOF label " +
+                "('deck.z', 'skid.x' at the body's centre of mass) or a body point with a direction ('skid.top.x').",
+            Required = required,
+        };
 
     public static Option<CommandValue?> MassRatio(bool required)
     {

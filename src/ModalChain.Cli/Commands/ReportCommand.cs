@@ -22,7 +22,7 @@ internal static class ReportCommand
         var units = CommonOptions.Units();
         var modes = CommandValues.Count("--modes", "Largest number of modes tabulated and drawn (the lowest ones; default 20).", 1);
         var absorberHost = AbsorberArguments.Host("--absorber-host", required: false);
-        absorberHost.Description = "Add a tuned-absorber section: the mass the absorber hangs on (with --mass-ratio; as modalchain tune --host).";
+        absorberHost.Description = "Add a tuned-absorber section: the mass the absorber hangs on, or in plane and 3d models a point and translation such as 'deck.z' (with --mass-ratio; as modalchain tune --host).";
         var massRatio = AbsorberArguments.MassRatio(required: false);
         var absorberMode = AbsorberArguments.Mode("--absorber-mode");
         var absorberMethod = AbsorberArguments.Method("--absorber-method");

@@ -85,11 +85,17 @@ public static class ModelWriter
     {
         var read = ModelReader.Read(text, file).Model?.Network;
         return read is not null
-            && read.Masses.OrderBy(m => m.Name, StringComparer.Ordinal).SequenceEqual(network.Masses.OrderBy(m => m.Name, StringComparer.Ordinal))
-            && read.Springs.OrderBy(s => s.Name, StringComparer.Ordinal).SequenceEqual(network.Springs.OrderBy(s => s.Name, StringComparer.Ordinal))
-            && read.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal).SequenceEqual(network.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal))
+            && Same(read.Masses, network.Masses, m => m.Name, (a, b) => a with { Moves = [] } == b with { Moves = [] } && a.Moves.SequenceEqual(b.Moves))
+            && Same(read.Springs, network.Springs, s => s.Name, (a, b) => a with { Components = [] } == b with { Components = [] } && a.Components.SequenceEqual(b.Components))
+            && Same(read.Dampers, network.Dampers, d => d.Name, (a, b) => a with { Components = [] } == b with { Components = [] } && a.Components.SequenceEqual(b.Components))
             && read.Supports.SequenceEqual(network.Supports);
     }
+
+    // Records holding immutable arrays (a mass's directions, a spring's components) compare those arrays by reference, so
+    // they are compared item by item here.
+    private static bool Same<T>(ImmutableArray<T> read, ImmutableArray<T> written, Func<T, string> name, Func<T, T, bool> equal) =>
+        read.Length == written.Length
+        && read.OrderBy(name, StringComparer.Ordinal).Zip(written.OrderBy(name, StringComparer.Ordinal)).All(p => equal(p.First, p.Second));
 
     /// <summary>Where a top-level section sits in the text, from the parser's marks.</summary>
     /// <param name="KeyEnd">Index just after the section's key.</param>
@@ -185,7 +191,9 @@ public static class ModelWriter
     {
         if (Sections(text) is not { } sections) return null;
         var newline = Newline(text);
-        var edits = new List<(int At, int Remove, string Insert)>();
+        // NewSection: a whole section appended after the network sections; at the same place as entries appended to the last
+        // existing section (a model of bodies only has springs but no masses), it must come after them.
+        var edits = new List<(int At, int Remove, string Insert, bool NewSection)>();
         var network = new[] { "title", "masses", "springs", "dampers" };
         var previousEnd = sections.Where(s => network.Contains(s.Key)).Select(s => s.Section.ContentEnd).DefaultIfEmpty(-1).Max();
         foreach (var (name, entries) in additions)
@@ -201,7 +209,7 @@ public static class ModelWriter
                 var block = new StringBuilder(at == text.Length && !text.EndsWith('\n') ? newline : "");
                 block.Append(name).Append(':').Append(newline);
                 foreach (var line in lines) block.Append("  ").Append(line).Append(newline);
-                edits.Add((at, 0, block.ToString()));
+                edits.Add((at, 0, block.ToString(), true));
                 continue;
             }
             var section = sections[found].Section;
@@ -213,18 +221,18 @@ public static class ModelWriter
                     var indent = new string(' ', Math.Max(1, section.EntryColumn - 1));
                     var block = new StringBuilder(at == text.Length && !text.EndsWith('\n') ? newline : "");
                     foreach (var line in lines) block.Append(indent).Append(line).Append(newline);
-                    edits.Add((at, 0, block.ToString()));
+                    edits.Add((at, 0, block.ToString(), false));
                     break;
                 }
                 case ValueStyle.FlowMapping:
-                    edits.Add((section.Close, 0, (section.Entries > 0 ? ", " : "") + string.Join(", ", lines)));
+                    edits.Add((section.Close, 0, (section.Entries > 0 ? ", " : "") + string.Join(", ", lines), false));
                     break;
                 case ValueStyle.EmptyScalar:
-                    edits.Add((section.KeyEnd + 1, 0, " {" + string.Join(", ", lines) + "}"));
+                    edits.Add((section.KeyEnd + 1, 0, " {" + string.Join(", ", lines) + "}", false));
                     if (section.KeyEnd >= text.Length || text[section.KeyEnd] != ':') return null;
                     break;
                 case ValueStyle.NullScalar:
-                    edits.Add((section.ValueStart, section.ContentEnd - section.ValueStart, "{" + string.Join(", ", lines) + "}"));
+                    edits.Add((section.ValueStart, section.ContentEnd - section.ValueStart, "{" + string.Join(", ", lines) + "}", false));
                     break;
                 default:
                     return null;
@@ -232,8 +240,9 @@ public static class ModelWriter
         }
         var result = new StringBuilder(text);
         // From the end backwards, so earlier indices stay valid; of two edits at one place, the later-made goes first,
-        // which leaves the earlier-made (an earlier section's entries) in front of it.
-        foreach (var (at, remove, insert) in edits.Select((e, i) => (e, i)).OrderByDescending(x => x.e.At).ThenByDescending(x => x.i).Select(x => x.e))
+        // which leaves the earlier-made (an earlier section's entries) in front of it; new sections go in first, so they end up last.
+        foreach (var (at, remove, insert, _) in edits.Select((e, i) => (e, i)).OrderByDescending(x => x.e.At).ThenByDescending(x => x.e.NewSection)
+            .ThenByDescending(x => x.i).Select(x => x.e))
         {
             result.Remove(at, remove);
             result.Insert(at, insert);

@@ -156,13 +156,12 @@ public sealed class AbsorberSection : IReportSection
         var (lo, hi) = Tuned.Assessment.BandHz;
         var frequencies = Enumerable.Range(0, ChartPoints).Select(k => lo + (hi - lo) * k / (ChartPoints - 1)).ToArray();
         var structure = _context.Document.Structure;
-        var k = d.ModalMass * Math.Pow(2 * Math.PI * d.ModeFrequencyHz, 2);
         var model = Charts.Create($"Host response with and without the absorber: {d.Host}", $"{_context.Document.Network.Title}: harmonic force at {d.Host}, mode {d.ModeNumber}");
         model.Axes.Add(Charts.Linear(AxisPosition.Bottom, "Frequency (Hz)", lo, hi));
         var amplification = Charts.Logarithmic(AxisPosition.Left, "Dynamic amplification |x·K/F| (–)");
         model.Axes.Add(amplification);
-        var with = Amplification(AbsorberPerformance.With(structure, d, Tuned.Names), frequencies, d.Host, k);
-        var without = Amplification(structure, frequencies, d.Host, k);
+        var with = Amplification(AbsorberPerformance.With(structure, d, Tuned.Names), d, frequencies);
+        var without = Amplification(structure, d, frequencies);
         var withTop = Finite(with).DefaultIfEmpty(double.NaN).Max();
         // An undamped primary's curve rises without bound near f_p: cap the axis so the absorber's two peaks stay readable.
         if (double.IsFinite(withTop) && Finite(without).DefaultIfEmpty(0).Max() > 30 * withTop) amplification.Maximum = 30 * withTop;
@@ -200,20 +199,16 @@ public sealed class AbsorberSection : IReportSection
 
     private static IEnumerable<double> Finite(double[] values) => values.Where(v => double.IsFinite(v) && v > 0);
 
-    private static double[] Amplification(StructuralModel model, double[] frequencies, string host, double modalStiffness)
+    private static double[] Amplification(StructuralModel model, AbsorberDesign design, double[] frequencies)
     {
-        var values = new double[frequencies.Length];
         try
         {
-            var response = HarmonicAnalysis.Sweep(DampedSystem.Build(model), frequencies, [new ForceLoad("unit force at the host", host, 1, 0)], [host], HarmonicMethod.Direct);
-            var x = response.ResponseOf(host)!.Displacement;
-            for (var i = 0; i < values.Length; i++) values[i] = x[i].Magnitude * modalStiffness;
+            // NaN where the response is unbounded (an undamped resonance on the grid): that point is left out of the curve.
+            return AbsorberPerformance.HostAmplification(model, design, frequencies);
         }
         catch (ModalChain.Core.NumericalFailureException)
         {
-            // An undamped resonance on the grid: the curve is left out rather than drawn from a singular solve.
-            Array.Fill(values, double.NaN);
+            return [.. frequencies.Select(_ => double.NaN)];
         }
-        return values;
     }
 }

@@ -28,9 +28,8 @@ public sealed partial class DisplayUnitsTests
         if (!document.Criteria.IsEmpty) yield return ["check", path];
         if (document.Harmonic is not null && !document.Structure.Loads.IsEmpty) yield return ["harmonic", path, "--points", "60"];
         if (document.Transient is not null) yield return ["transient", path];
-        if (network.Space != ModelSpace.Line) yield break; // tune and study refuse plane and 3d models for now
-        var host = network.Masses.MaxBy(m => m.Kilograms)!.Name;
-        yield return ["tune", path, "--host", host, "--mass-ratio", "5 %"];
+        yield return ["tune", path, .. TuneHost(network), "--mass-ratio", "5 %"];
+        if (network.Space != ModelSpace.Line) yield break; // study refuses plane and 3d models for now
         if (network.Springs.Length > 0)
         {
             var spring = network.Springs[0];

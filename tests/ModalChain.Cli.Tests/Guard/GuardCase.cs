@@ -21,8 +21,11 @@ internal enum SpecialFile
     TableCorrupted,
 }
 
-/// <summary>One base model of models/ with the names a command line needs (a host mass, a spring to vary).</summary>
-internal sealed record BaseModel(string Name, byte[] Bytes, string[] Masses, string[] Springs, string? Table, byte[]? TableBytes)
+/// <summary>
+/// One base model of models/ with the names a command line needs (an absorber host, a spring to vary). Hosts are the
+/// masses of a line model and the translation DOF labels (DofMap) of a plane or 3d model.
+/// </summary>
+internal sealed record BaseModel(string Name, byte[] Bytes, string[] Hosts, string[] Springs, string? Table, byte[]? TableBytes)
 {
     public static BaseModel[] LoadAll()
     {
@@ -34,10 +37,17 @@ internal sealed record BaseModel(string Name, byte[] Bytes, string[] Masses, str
             var network = read.Model?.Network ?? throw new InvalidOperationException($"models/{name} does not read: {string.Join("; ", read.Diagnostics)}");
             var text = File.ReadAllText(path);
             var table = Directory.GetFiles(Path.GetDirectoryName(path)!, "*.csv").Select(Path.GetFileName).FirstOrDefault(f => text.Contains(f!, StringComparison.Ordinal));
-            list.Add(new BaseModel(name, File.ReadAllBytes(path), [.. network.Masses.Select(m => m.Name)], [.. network.Springs.Select(s => s.Name)],
+            list.Add(new BaseModel(name, File.ReadAllBytes(path), HostsOf(network), [.. network.Springs.Select(s => s.Name)],
                 table, table is null ? null : File.ReadAllBytes(Path.Combine(Path.GetDirectoryName(path)!, table))));
         }
         return [.. list];
+    }
+
+    private static string[] HostsOf(ModalChain.Core.Model.Network network)
+    {
+        if (network.Space == ModalChain.Core.Model.ModelSpace.Line) return [.. network.Masses.Select(m => m.Name)];
+        var dofs = ModalChain.Core.Dofs.DofMap.For(network);
+        return [.. Enumerable.Range(0, dofs.Count).Where(i => !ModalChain.Core.Model.Directions.IsRotation(dofs.Dofs[i].Direction)).Select(dofs.Label)];
     }
 }
 
@@ -120,8 +130,7 @@ internal sealed class GuardCase
     private static (string, string[]) CommandFor(BaseModel model, Random random)
     {
         var format = new[] { "table", "json", "csv" }[random.Next(3)];
-        // A model of rigid bodies only has no mass to tune; the name then refers to nothing (an exit-2 case).
-        var host = model.Masses.Length > 0 ? model.Masses[random.Next(model.Masses.Length)] : "no-such-mass";
+        var host = model.Hosts.Length > 0 ? model.Hosts[random.Next(model.Hosts.Length)] : "no-such-mass";
         // Reports cost about a hundred times a validation, so they are drawn rarely; every command is drawn.
         var roll = random.Next(1000);
         var (command, options) = roll switch

@@ -161,6 +161,40 @@ public class ModelWriterTests
         Assert.Equal(dampers[0].Components.ToArray(), damper.Components.ToArray());
         Assert.Equal(before.Bodies.Single().Inertia, after.Bodies.Single().Inertia);
     }
+
+    [Fact]
+    public void AbsorberOnABodyPoint_OfAModelWithoutMassesOrDampers_IsWrittenInPlace_AndReadsBack()
+    {
+        // A plane model of a body only: the absorber's spring joins the springs, and new 'masses' and 'dampers' sections
+        // follow them (the spring once landed under the new 'masses' header and the file was re-emitted without comments).
+        const string original = """
+            # A rigid bar on two springs.
+            title: Rigid bar
+            space: plane
+            bodies:
+              bar: {mass: 1000 kg, centre-of-mass: [0, 0], inertia: {yy: 810 kg*m^2}, points: {front: [1.0, 0], rear: [-1.5, 0]}}
+            springs:
+              front-spring: {between: [bar.front, ground], stiffness: {x: 50 kN/m, z: 18 kN/m}}
+              rear-spring: {between: [bar.rear, ground], stiffness: {x: 50 kN/m, z: 22 kN/m}}
+            damping:
+              modal: 2 %
+            """;
+        var before = ModelReader.Read(original, "in.yaml").Model!.Network;
+        var design = AbsorberTuning.Design(ModalAnalysis.Solve(before), new AbsorberRequest("bar.front.z", 0.05, 2, []));
+        var names = AbsorberTuning.FreeNames(before, design.Host);
+        var expected = AbsorberTuning.Attach(before, design, names);
+        var text = ModelWriter.WithAdditions(original, "in.yaml", expected, ["written by a test"]);
+        Assert.DoesNotContain(ModelWriter.CommentsLostNote, text, StringComparison.Ordinal);
+        Assert.Contains("# A rigid bar on two springs.", text, StringComparison.Ordinal);
+        var read = ModelReader.Read(text, "out.yaml");
+        Assert.True(read.Succeeded, string.Join("\n", read.Diagnostics) + "\n" + text);
+        var after = read.Model!.Network;
+        var mass = after.Masses.Single();
+        Assert.Equal((names.Mass, design.Mass, new Point3(1.0, 0, 0)), (mass.Name, mass.Kilograms, mass.Location));
+        Assert.Equal([Core.Dofs.Direction.Z], mass.Moves.ToArray());
+        Assert.Equal([new DirectionalValue(Core.Dofs.Direction.Z, design.Stiffness)], after.Springs.Single(x => x.Name == names.Spring).Components.ToArray());
+        Assert.Equal([new DirectionalValue(Core.Dofs.Direction.Z, design.Damping)], after.Dampers.Single().Components.ToArray());
+    }
 }
 
 /// <summary>The writer edits the file in place: comments, blank lines and layout of the original survive.</summary>
@@ -182,10 +216,22 @@ public class ModelWriterInPlaceTests
         var read = ModelReader.Read(original, file);
         Assert.True(read.Succeeded, string.Join("\n", read.Diagnostics));
         var before = read.Model!.Network;
-        var host = before.Masses.MaxBy(m => m.Kilograms)!.Name;
-        var design = AbsorberTuning.Design(ModalAnalysis.Solve(before), new AbsorberRequest(host, 0.05, null, []));
+        var modal = ModalAnalysis.Solve(before);
+        // Plane and 3d models: the translation DOF label that moves most in the first flexible mode, with that mode.
+        var (host, mode) = before.Space == ModelSpace.Line
+            ? (before.Masses.MaxBy(m => m.Kilograms)!.Name, (int?)null)
+            : SpatialHost(modal);
+        var design = AbsorberTuning.Design(modal, new AbsorberRequest(host, 0.05, mode, []));
         var expected = AbsorberTuning.Attach(before, design, AbsorberTuning.FreeNames(before, host));
         return (expected, ModelWriter.WithAdditions(original, file, expected, ["written by a test"]));
+    }
+
+    private static (string Host, int? Mode) SpatialHost(ModalResult modal)
+    {
+        var dofs = modal.Matrices.Dofs;
+        var mode = modal.Modes.First(m => !m.IsRigidBody);
+        var host = Enumerable.Range(0, dofs.Count).Where(i => !dofs.Dofs[i].Direction.IsRotation()).MaxBy(i => Math.Abs(mode.Shape[i]));
+        return (dofs.Label(host), mode.Number);
     }
 
     private static void AssertReadsBackAs(Network expected, string text, string file = "out.yaml")
@@ -193,9 +239,13 @@ public class ModelWriterInPlaceTests
         var read = ModelReader.Read(text, file);
         Assert.True(read.Succeeded, string.Join("\n", read.Diagnostics) + "\n" + text);
         var n = read.Model!.Network;
-        Assert.Equal(expected.Masses.OrderBy(m => m.Name, StringComparer.Ordinal), n.Masses.OrderBy(m => m.Name, StringComparer.Ordinal));
-        Assert.Equal(expected.Springs.OrderBy(s => s.Name, StringComparer.Ordinal), n.Springs.OrderBy(s => s.Name, StringComparer.Ordinal));
-        Assert.Equal(expected.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal), n.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal));
+        // Directions and components are immutable arrays, which records compare by reference: they are compared apart.
+        Assert.Equal(expected.Masses.OrderBy(m => m.Name, StringComparer.Ordinal).Select(m => (m with { Moves = [] }, string.Join(",", m.Moves))),
+            n.Masses.OrderBy(m => m.Name, StringComparer.Ordinal).Select(m => (m with { Moves = [] }, string.Join(",", m.Moves))));
+        Assert.Equal(expected.Springs.OrderBy(s => s.Name, StringComparer.Ordinal).Select(s => (s with { Components = [] }, string.Join(",", s.Components))),
+            n.Springs.OrderBy(s => s.Name, StringComparer.Ordinal).Select(s => (s with { Components = [] }, string.Join(",", s.Components))));
+        Assert.Equal(expected.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal).Select(d => (d with { Components = [] }, string.Join(",", d.Components))),
+            n.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal).Select(d => (d with { Components = [] }, string.Join(",", d.Components))));
     }
 
     [Theory]

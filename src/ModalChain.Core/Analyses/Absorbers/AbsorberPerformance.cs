@@ -121,7 +121,7 @@ public static class AbsorberPerformance
         var (lo, hi) = Band(design);
         var k = ModalStiffness(design);
         ResponsePeak Scaled(ResponsePeak p) => p with { Magnitude = p.Magnitude * k, EdgeMagnitude = p.EdgeMagnitude * k };
-        var search = HarmonicAnalysis.BandPeaks(system, [UnitForce(design.Host)], design.Host, lo, hi, BandPoints);
+        var search = HarmonicAnalysis.BandPeaksOf(system, [UnitForce(system, design)], design.Host, HostRow(system, design), lo, hi, BandPoints);
         var others = new Dictionary<int, double>();
         if (search.Unbounded is { } unbounded) return (Scaled(unbounded), others);
         ResponsePeak? controlled = null;
@@ -182,8 +182,8 @@ public static class AbsorberPerformance
         ArgumentNullException.ThrowIfNull(design);
         try
         {
-            var r = HarmonicAnalysis.Sweep(system, [frequencyHz], [UnitForce(design.Host)], [design.Host], HarmonicMethod.Direct);
-            var x = r.ResponseOf(design.Host)!.Displacement[0].Magnitude;
+            var r = HarmonicAnalysis.Observe(system, frequencyHz, [UnitForce(system, design)], [HostRow(system, design)]);
+            var x = r is null ? double.PositiveInfinity : r[0].Magnitude;
             return double.IsFinite(x) ? x * ModalStiffness(design) : double.PositiveInfinity;
         }
         catch (NumericalFailureException) { return double.PositiveInfinity; }
@@ -202,9 +202,9 @@ public static class AbsorberPerformance
         var stroke = double.NaN;
         if (double.IsFinite(after.Magnitude))
         {
-            var response = HarmonicAnalysis.Sweep(DampedSystem.Build(withAbsorber), [after.FrequencyHz], [UnitForce(design.Host)],
-                [design.Host, names.Mass], HarmonicMethod.Direct);
-            stroke = (response.ResponseOf(names.Mass)!.Displacement[0] - response.ResponseOf(design.Host)!.Displacement[0]).Magnitude;
+            var system = DampedSystem.Build(withAbsorber);
+            var response = HarmonicAnalysis.Observe(system, after.FrequencyHz, [UnitForce(system, design)], [HostRow(system, design), AbsorberRow(system, design, names)]);
+            if (response is not null) stroke = (response[1] - response[0]).Magnitude;
         }
         var mistuning = MistuningErrors.Select(e =>
         {
@@ -300,8 +300,10 @@ public static class AbsorberPerformance
         var stroke = 0.0;
         foreach (var g in groups)
         {
-            var r = HarmonicAnalysis.Sweep(system, [g.Key], [.. g], [design.Host, names.Mass], HarmonicMethod.Direct);
-            stroke += (r.ResponseOf(names.Mass)!.Displacement[0] - r.ResponseOf(design.Host)!.Displacement[0]).Magnitude;
+            var r = HarmonicAnalysis.Observe(system, g.Key, [.. g], [HostRow(system, design), AbsorberRow(system, design, names)])
+                ?? throw new NumericalFailureException(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                    $"the dynamic stiffness with the absorber is singular at the running speed {g.Key:G6} Hz: an undamped natural frequency; add damping"));
+            stroke += (r[1] - r[0]).Magnitude;
         }
         return stroke;
     }
@@ -326,7 +328,7 @@ public static class AbsorberPerformance
 
     private static ResponsePeak PeakIn(DampedSystem system, AbsorberDesign design, double lo, double hi, int points)
     {
-        var peak = HarmonicAnalysis.PeakResponse(system, [UnitForce(design.Host)], design.Host, lo, hi, points);
+        var peak = HarmonicAnalysis.PeakResponseOf(system, [UnitForce(system, design)], design.Host, HostRow(system, design), lo, hi, points);
         var k = ModalStiffness(design);
         return peak with { Magnitude = peak.Magnitude * k, EdgeMagnitude = peak.EdgeMagnitude * k };
     }
@@ -355,7 +357,38 @@ public static class AbsorberPerformance
 
     private static double ModalStiffness(AbsorberDesign d) => d.ModalMass * Math.Pow(2 * Math.PI * d.ModeFrequencyHz, 2);
 
-    private static ForceLoad UnitForce(string host) => new("unit force at the host", host, 1, 0);
+    /// <summary>The host's amplification |x_host|·K/|F| at each of <paramref name="frequenciesHz"/> for a unit force at the host (NaN where the response is unbounded): the curve a report draws.</summary>
+    /// <param name="model">The model, with or without the absorber.</param>
+    /// <param name="design">The design whose host and modal stiffness are used.</param>
+    /// <param name="frequenciesHz">Frequencies in Hz, positive.</param>
+    public static double[] HostAmplification(StructuralModel model, AbsorberDesign design, IReadOnlyList<double> frequenciesHz)
+    {
+        ArgumentNullException.ThrowIfNull(model);
+        ArgumentNullException.ThrowIfNull(design);
+        ArgumentNullException.ThrowIfNull(frequenciesHz);
+        var system = DampedSystem.Build(model);
+        var k = ModalStiffness(design);
+        var loads = new Load[] { UnitForce(system, design) };
+        double[][] rows = [HostRow(system, design)];
+        return [.. HarmonicAnalysis.Observe(system, frequenciesHz, loads, rows).Select(x => x is not null && double.IsFinite(x[0].Magnitude) ? x[0].Magnitude * k : double.NaN)];
+    }
+
+    /// <summary>The point and direction of the design's host in <paramref name="network"/>.</summary>
+    private static AbsorberHost HostOf(Network network, AbsorberDesign design) =>
+        design.HostPoint ?? AbsorberHost.Resolve(network, design.Host, out var problem) ?? throw new ArgumentException(problem, nameof(design));
+
+    // The host's motion over the free DOFs of this system (with or without the absorber, whose DOFs number differently).
+    private static double[] HostRow(DampedSystem system, AbsorberDesign design) =>
+        HostOf(system.Model.Network, design).Observation(system.Model.Network, system.Partition.Free);
+
+    // The absorber mass's motion along the host's direction.
+    private static double[] AbsorberRow(DampedSystem system, AbsorberDesign design, AbsorberNames names)
+    {
+        var host = HostOf(system.Model.Network, design);
+        return (host with { Label = names.Mass, Reference = names.Mass }).Observation(system.Model.Network, system.Partition.Free);
+    }
+
+    private static ForceLoad UnitForce(DampedSystem system, AbsorberDesign design) => HostOf(system.Model.Network, design).UnitForce();
 
     /// <summary>Nelder–Mead simplex minimisation (Nelder &amp; Mead 1965) with the standard coefficients 1, 2, ½, ½.</summary>
     internal static double[] NelderMead(Func<double[], double> f, double[] start, double[] steps, double relativeTolerance, int maxEvaluations)

@@ -6,7 +6,7 @@ using ModalChain.Core.Model;
 namespace ModalChain.Core.Analyses.Absorbers;
 
 /// <summary>What to tune: where the absorber hangs, how heavy it is, which mode it controls and against what.</summary>
-/// <param name="Host">Name of the mass the absorber is attached to.</param>
+/// <param name="Host">Name of the mass the absorber is attached to (line models), or in plane and 3d models a point and translation (<see cref="AbsorberHost"/>: <c>deck.z</c>, <c>skid.top.x</c>).</param>
 /// <param name="MassRatio">μ = absorber mass / modal mass of the controlled mode at the host, a fraction in (0, 1].</param>
 /// <param name="ModeNumber">1-based mode to control, or null to take the mode nearest an excitation frequency (with none, the mode with the largest motion at the host).</param>
 /// <param name="ExcitationsHz">Excitation frequencies in Hz (running speeds × orders): they choose the mode when <paramref name="ModeNumber"/> is null, and the response is reported at them.</param>
@@ -21,7 +21,7 @@ public sealed record AbsorberRequest(
 }
 
 /// <summary>A sized absorber: the equivalent single-mode primary it was designed for and its own mass, spring and damper.</summary>
-/// <param name="Host">Mass the absorber is attached to.</param>
+/// <param name="Host">Mass the absorber is attached to, or in plane and 3d models the point and translation (<see cref="AbsorberHost"/>).</param>
 /// <param name="ModeNumber">1-based mode controlled.</param>
 /// <param name="ModeFrequencyHz">Natural frequency f_p of the controlled mode in Hz.</param>
 /// <param name="ModalMass">Modal mass of the mode at the host, 1/φ_host² with mass-normalised φ, in kg.</param>
@@ -44,6 +44,9 @@ public sealed record AbsorberDesign(
 
     /// <summary>The degrees of freedom of <see cref="ModelShapes"/>.</summary>
     public ImmutableArray<Dofs.Dof> ModelDofs { get; init; } = [];
+
+    /// <summary>The point and direction <see cref="Host"/> names; null when the design was made without a model (then resolved from <see cref="Host"/>).</summary>
+    public AbsorberHost? HostPoint { get; init; }
 
     /// <summary>Excitation frequencies (running speeds × orders) in Hz at which the response is reported; empty when none.</summary>
     public ImmutableArray<double> ExcitationsHz { get; init; } = [];
@@ -79,7 +82,9 @@ public sealed record AbsorberNames(string Mass, string Spring, string Damper);
 /// Mode j seen at the host h behaves like a single mass M = 1/φ_{h,j}² on a spring M ω_j² when φ is mass-normalised
 /// (φᵀMφ = 1): the kinetic energy ½ q̇² of the mode equals ½ M ẋ_h² with x_h = φ_h q. The absorber is sized for that
 /// primary: m_a = μ M, ω_a = f ω_j, c_a = 2 ζ_a m_a ω_a (Den Hartog 1956 §3.3; Warburton 1982). The approximation is
-/// good when the mode is well separated from its neighbours and the absorber is light.
+/// good when the mode is well separated from its neighbours and the absorber is light. In plane and 3d models the host is
+/// a point and a translation (<see cref="AbsorberHost"/>) whose motion is x_h = a·u, a the point's attachment row; then
+/// φ_h = a·φ and M = 1/(a·φ)², and the absorber mass moves along that translation only.
 /// </remarks>
 public static class AbsorberTuning
 {
@@ -102,11 +107,8 @@ public static class AbsorberTuning
         ArgumentNullException.ThrowIfNull(request);
         var problems = ImmutableArray.CreateBuilder<string>();
         var inv = CultureInfo.InvariantCulture;
-        var host = modal.Matrices.Dofs.IndexOf(request.Host);
-        if (host < 0)
-            problems.Add(modal.Network.IsSupport(request.Host)
-                ? $"host '{request.Host}' is a support; an absorber must hang on a mass"
-                : $"host '{request.Host}' is not a mass of the model; masses: {string.Join(", ", modal.Network.Masses.Select(m => m.Name))}");
+        var point = AbsorberHost.Resolve(modal.Network, request.Host, out var hostProblem);
+        if (hostProblem is not null) problems.Add(hostProblem);
         if (!(request.MassRatio > 0) || !double.IsFinite(request.MassRatio))
             problems.Add(string.Create(inv, $"mass ratio must be positive, got {request.MassRatio * 100:G4} %"));
         else if (request.MassRatio < MinimumMassRatio)
@@ -123,17 +125,17 @@ public static class AbsorberTuning
             problems.Add("tuning for the running speed needs one: give --speed, criteria.separation.speeds or a load's speed");
         if (problems.Count > 0) return problems.ToImmutable();
 
-        var mode = request.ModeNumber is { } chosen ? modal.Modes[chosen - 1] : Chosen(modal, request, host, out _);
+        var mode = request.ModeNumber is { } chosen ? modal.Modes[chosen - 1] : Chosen(modal, request, point!, out _);
         if (mode is null)
             problems.Add("no mode to control: every mode of the model is a rigid-body mode");
         else if (mode.IsRigidBody)
             problems.Add($"mode {mode.Number} is a rigid-body mode (0 Hz); an absorber cannot be tuned to it");
-        else if (Math.Abs(mode.Shape[host]) < 1e-9 * mode.Shape.Max(Math.Abs))
+        else if (Math.Abs(HostMotion(modal, point!, mode)) < 1e-9 * mode.Shape.Max(Math.Abs))
             problems.Add($"'{request.Host}' does not move in mode {mode.Number} (it sits at a node of the mode shape); hang the absorber where the mode moves");
-        else if (request.MassRatio * mode.ModalMassAt(host) is var absorberMass && absorberMass > modal.Network.TotalMass)
+        else if (request.MassRatio * ModalMassAt(modal, point!, mode) is var absorberMass && absorberMass > modal.Network.TotalMass)
             // Near a node the modal mass at the host (1/φ²) grows without bound; such an absorber outweighs the whole
             // structure, and tune --write wrote a model that no longer read (a 2e14 kg absorber).
-            problems.Add(string.Create(inv, $"'{request.Host}' hardly moves in mode {mode.Number}: its modal mass there is {mode.ModalMassAt(host):G4} kg, so the absorber would weigh {absorberMass:G4} kg, more than the whole model ({modal.Network.TotalMass:G4} kg); hang the absorber where the mode moves"));
+            problems.Add(string.Create(inv, $"'{request.Host}' hardly moves in mode {mode.Number}: its modal mass there is {ModalMassAt(modal, point!, mode):G4} kg, so the absorber would weigh {absorberMass:G4} kg, more than the whole model ({modal.Network.TotalMass:G4} kg); hang the absorber where the mode moves"));
         return problems.ToImmutable();
     }
 
@@ -143,6 +145,7 @@ public static class AbsorberTuning
         var problems = Problems(modal, request);
         if (problems.Length > 0) throw new ArgumentException(string.Join("; ", problems), nameof(request));
         var inv = CultureInfo.InvariantCulture;
+        var point = AbsorberHost.Resolve(modal.Network, request.Host, out _)!;
         string chosenBy;
         Mode mode;
         if (request.ModeNumber is { } n)
@@ -152,14 +155,12 @@ public static class AbsorberTuning
         }
         else
         {
-            var at = modal.Matrices.Dofs.IndexOf(request.Host);
-            mode = Chosen(modal, request, at, out var excitation)!;
+            mode = Chosen(modal, request, point, out var excitation)!;
             chosenBy = double.IsFinite(excitation)
                 ? string.Create(inv, $"nearest to the excitation at {excitation:G6} Hz")
                 : "no running speed given: the mode with the largest motion at the host, (phi at the host)^2/omega^2";
         }
-        var host = modal.Matrices.Dofs.IndexOf(request.Host);
-        var modalMass = mode.ModalMassAt(host);
+        var modalMass = ModalMassAt(modal, point, mode);
         var optimum = request.Target == AbsorberTarget.RunningSpeed
             ? ClassicalOptimum.UndampedAt(request.MassRatio, NearestExcitation(request.ExcitationsHz, mode.NaturalFrequencyHz) / mode.NaturalFrequencyHz)
             : ClassicalOptimum.For(request.Target, request.MassRatio);
@@ -175,7 +176,24 @@ public static class AbsorberTuning
             ModelDofs = modal.Matrices.Dofs.Dofs,
             ExcitationsHz = request.ExcitationsHz.IsDefault ? [] : request.ExcitationsHz,
             SpeedTolerance = request.SpeedTolerance,
+            HostPoint = point,
         };
+    }
+
+    /// <summary>The host's motion a·φ in <paramref name="mode"/> (mass-normalised), m per unit modal coordinate.</summary>
+    public static double HostMotion(ModalResult modal, AbsorberHost host, Mode mode)
+    {
+        ArgumentNullException.ThrowIfNull(modal);
+        ArgumentNullException.ThrowIfNull(host);
+        ArgumentNullException.ThrowIfNull(mode);
+        return host.Motion(modal.Network, modal.Matrices.Dofs, mode.Shape);
+    }
+
+    /// <summary>The modal mass of <paramref name="mode"/> seen at the host, 1/(a·φ)² in kg (+∞ at a node of the mode).</summary>
+    public static double ModalMassAt(ModalResult modal, AbsorberHost host, Mode mode)
+    {
+        var phi = HostMotion(modal, host, mode);
+        return 1 / (phi * phi);
     }
 
     private static double NearestExcitation(ImmutableArray<double> excitationsHz, double frequencyHz) =>
@@ -185,6 +203,8 @@ public static class AbsorberTuning
     public static AbsorberNames FreeNames(Network network, string host)
     {
         ArgumentNullException.ThrowIfNull(network);
+        ArgumentNullException.ThrowIfNull(host);
+        if (network.Space != ModelSpace.Line) host = host.Replace('.', '-');
         var taken = network.Masses.Select(m => m.Name).Concat(network.Supports.Select(s => s.Name))
             .Concat(network.Springs.Select(s => s.Name)).Concat(network.Dampers.Select(d => d.Name)).ToHashSet();
         for (var i = 1; ; i++)
@@ -196,11 +216,26 @@ public static class AbsorberTuning
     }
 
     /// <summary>The network with the absorber's mass, spring and damper added (mass drawn 0.5 m above the host when it has a position).</summary>
+    /// <remarks>
+    /// In plane and 3d models the absorber mass sits at the host point and moves along the host's translation only
+    /// (<c>directions: [z]</c>); its spring and damper act in that direction between the host point and the mass.
+    /// </remarks>
     public static Network Attach(Network network, AbsorberDesign design, AbsorberNames names)
     {
         ArgumentNullException.ThrowIfNull(network);
         ArgumentNullException.ThrowIfNull(design);
         ArgumentNullException.ThrowIfNull(names);
+        if (network.Space != ModelSpace.Line)
+        {
+            var point = design.HostPoint ?? AbsorberHost.Resolve(network, design.Host, out var problem)
+                ?? throw new ArgumentException(problem, nameof(design));
+            var d = point.Direction;
+            return network.WithAdded(
+                // Drawn where the host point is, in the side view (x, z) as the reader draws a located mass.
+                [new Mass(names.Mass, design.Mass, point.Location is { } l ? new DrawingPosition(l.X, l.Z) : null) { Location = point.Location, Moves = [d] }],
+                [new Spring(names.Spring, point.Reference, names.Mass, design.Stiffness) { Components = [new DirectionalValue(d, design.Stiffness)] }],
+                design.Damping > 0 ? [new Damper(names.Damper, point.Reference, names.Mass, design.Damping) { Components = [new DirectionalValue(d, design.Damping)] }] : []);
+        }
         var host = network.Masses.FirstOrDefault(m => m.Name == design.Host)
             ?? throw new ArgumentException($"'{design.Host}' is not a mass of the network.", nameof(design));
         DrawingPosition? at = host.Position is { } p ? new DrawingPosition(p.X, p.Y + 0.5) : null;
@@ -214,11 +249,11 @@ public static class AbsorberTuning
     /// The non-rigid mode nearest (in ratio) to any excitation frequency; with no excitation, the mode with the largest
     /// motion at the host, φ_h²/ω² (its share of the host's static deflection under a force at the host); null when every mode is rigid.
     /// </summary>
-    private static Mode? Chosen(ModalResult modal, AbsorberRequest request, int host, out double excitationHz)
+    private static Mode? Chosen(ModalResult modal, AbsorberRequest request, AbsorberHost host, out double excitationHz)
     {
         excitationHz = double.NaN;
         if (request.ExcitationsHz.IsDefaultOrEmpty)
-            return modal.Modes.Where(m => !m.IsRigidBody).MaxBy(m => m.Shape[host] * m.Shape[host] / (m.AngularFrequency * m.AngularFrequency));
+            return modal.Modes.Where(m => !m.IsRigidBody).MaxBy(m => Math.Pow(HostMotion(modal, host, m), 2) / (m.AngularFrequency * m.AngularFrequency));
         Mode? best = null;
         var bestDistance = double.PositiveInfinity;
         foreach (var mode in modal.Modes.Where(m => !m.IsRigidBody))

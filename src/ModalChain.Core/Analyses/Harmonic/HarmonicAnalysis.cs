@@ -466,9 +466,14 @@ public static class HarmonicAnalysis
     /// <param name="points">Coarse points in the band (at least 2).</param>
     /// <param name="quantity">Displacement, velocity or acceleration.</param>
     public static ResponsePeak PeakResponse(DampedSystem system, IReadOnlyList<Load> loads, string dof, double fromHz, double toHz,
+        int points = 200, ResponseQuantity quantity = ResponseQuantity.Displacement) =>
+        PeakResponseOf(system, loads, dof, Observation(system, dof), fromHz, toHz, points, quantity);
+
+    /// <summary><see cref="PeakResponse(DampedSystem, IReadOnlyList{Load}, string, double, double, int, ResponseQuantity)"/> of a combination of DOFs: the response is observation·x, named <paramref name="label"/>.</summary>
+    internal static ResponsePeak PeakResponseOf(DampedSystem system, IReadOnlyList<Load> loads, string label, double[] observation, double fromHz, double toHz,
         int points = 200, ResponseQuantity quantity = ResponseQuantity.Displacement)
     {
-        var band = BandPeaks(system, loads, dof, fromHz, toHz, points, quantity);
+        var band = BandPeaksOf(system, loads, label, observation, fromHz, toHz, points, quantity);
         if (band.Unbounded is { } unbounded) return unbounded;
         var best = band.Peaks.IsEmpty ? null : band.Peaks.MaxBy(p => p.Magnitude);
         var sampled = band.Sampled;
@@ -480,18 +485,32 @@ public static class HarmonicAnalysis
     /// <summary>Every peak of one mass's response inside a band, refined, with the band's end values: what <see cref="PeakResponse"/> chooses from.</summary>
     /// <returns>The refined interior peaks in ascending frequency, the peak of the samples with its edge flag, the values at both ends, and the sample where the response is unbounded (else null).</returns>
     public static BandPeakSearch BandPeaks(DampedSystem system, IReadOnlyList<Load> loads, string dof, double fromHz, double toHz,
+        int points = 200, ResponseQuantity quantity = ResponseQuantity.Displacement) =>
+        BandPeaksOf(system, loads, dof, Observation(system, dof), fromHz, toHz, points, quantity);
+
+    private static double[] Observation(DampedSystem system, string dof)
+    {
+        ArgumentNullException.ThrowIfNull(system);
+        var index = system.Model.Network.Space == ModelSpace.Line ? system.Partition.Free.IndexOf(dof) : system.Partition.Free.IndexOfLabel(dof);
+        if (index < 0) throw new ArgumentException($"'{dof}' is not a mass of the network.", nameof(dof));
+        var unitRow = new double[system.Partition.FreeCount];
+        unitRow[index] = 1;
+        return unitRow;
+    }
+
+    /// <summary><see cref="BandPeaks(DampedSystem, IReadOnlyList{Load}, string, double, double, int, ResponseQuantity)"/> of a combination of DOFs: the response is observation·x over the free DOFs, named <paramref name="dof"/>.</summary>
+    internal static BandPeakSearch BandPeaksOf(DampedSystem system, IReadOnlyList<Load> loads, string dof, double[] observation, double fromHz, double toHz,
         int points = 200, ResponseQuantity quantity = ResponseQuantity.Displacement)
     {
         ArgumentNullException.ThrowIfNull(system);
         ArgumentNullException.ThrowIfNull(loads);
-        var index = system.Model.Network.Space == ModelSpace.Line ? system.Partition.Free.IndexOf(dof) : system.Partition.Free.IndexOfLabel(dof);
-        if (index < 0) throw new ArgumentException($"'{dof}' is not a mass of the network.", nameof(dof));
+        ArgumentNullException.ThrowIfNull(observation);
+        if (observation.Length != system.Partition.FreeCount)
+            throw new ArgumentException($"The observation has {observation.Length} entries for {system.Partition.FreeCount} free DOFs.", nameof(observation));
         var frequencies = FrequencyGrid.Build(new FrequencyRange(fromHz, toHz, points, FrequencySpacing.Linear), true,
             [.. system.Modes.Modes.Select(m => m.NaturalFrequencyHz)], system.ModalDampingRatios);
         var loading = HarmonicLoading.Compile(system, loads);
-        var unitRow = new double[system.Partition.FreeCount];
-        unitRow[index] = 1;
-        var engine = DirectEngines.Create(system, loading, [unitRow]);
+        var engine = DirectEngines.Create(system, loading, [observation]);
         var ws = engine.CreateWorkspace();
         var coefficients = new Complex[loading.Terms.Count];
         var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];
@@ -523,6 +542,39 @@ public static class HarmonicAnalysis
             peaks.Add(new ResponsePeak(dof, quantity, v, f));
         }
         return new BandPeakSearch(peaks.ToImmutable(), sampled, start, end, null);
+    }
+
+    /// <summary>The complex responses observation·x at one frequency to <paramref name="loads"/> by the direct method; null where the dynamic stiffness is singular (an undamped resonance).</summary>
+    /// <param name="system">The assembled model.</param>
+    /// <param name="frequencyHz">The frequency in Hz, positive.</param>
+    /// <param name="loads">Loads acting together.</param>
+    /// <param name="observations">Rows over the free DOFs; one response each.</param>
+    internal static Complex[]? Observe(DampedSystem system, double frequencyHz, IReadOnlyList<Load> loads, double[][] observations) =>
+        Observe(system, [frequencyHz], loads, observations)[0];
+
+    /// <summary>The same at each of <paramref name="frequenciesHz"/>, on one engine (the direct method's reduction is done once).</summary>
+    internal static Complex[]?[] Observe(DampedSystem system, IReadOnlyList<double> frequenciesHz, IReadOnlyList<Load> loads, double[][] observations)
+    {
+        ArgumentNullException.ThrowIfNull(system);
+        ArgumentNullException.ThrowIfNull(frequenciesHz);
+        ArgumentNullException.ThrowIfNull(loads);
+        ArgumentNullException.ThrowIfNull(observations);
+        foreach (var f in frequenciesHz) Guard.Positive(f, "frequency");
+        var loading = HarmonicLoading.Compile(system, loads);
+        var engine = DirectEngines.Create(system, loading, observations);
+        var workspace = engine.CreateWorkspace();
+        var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];
+        var coefficients = new Complex[loading.Terms.Count];
+        var results = new Complex[]?[frequenciesHz.Count];
+        for (var k = 0; k < results.Length; k++)
+        {
+            var omega = 2 * Math.PI * frequenciesHz[k];
+            HarmonicLoading.Powers(omega, powers);
+            for (var r = 0; r < coefficients.Length; r++) coefficients[r] = powers[loading.Terms[r].Power - HarmonicLoading.MinPower];
+            var x = new Complex[observations.Length];
+            results[k] = engine.Solve(omega, coefficients, x, workspace) ? x : null;
+        }
+        return results;
     }
 
     /// <summary>Maximum of a unimodal function on [lo, hi] by golden-section search (Kiefer 1953) to a relative width of 1e-7.</summary>
