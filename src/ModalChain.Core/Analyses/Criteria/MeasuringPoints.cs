@@ -94,7 +94,7 @@ public sealed class MeasuringPoints
             return null;
         }
         error = _network.IsSupport(at) || (dot > 0 && _network.IsSupport(at[..dot]))
-            ? "is a support, which does not move in this analysis; name a mass, a body or a body point ('body.point')"
+            ? "is a support: it does not move in this analysis; name a mass, a body or a body point ('body.point')"
             : "is not a mass, body, body point ('body.point') or translation ('mass.z', 'body.point.x') of the model";
         unknown = !_network.IsSupport(at);
         return null;
