@@ -81,7 +81,7 @@ internal static class TransientCommand
             var loadNames = spec.Loads;
             if (CommonOptions.Names(parse.GetValue(loadsOption)) is { Length: > 0 } chosenLoads)
             {
-                var timed = document.TimedLoads.Select(l => l.Name).ToArray();
+                var timed = document.TimedLoads.Select(l => l.Name).Distinct().ToArray();
                 foreach (var name in chosenLoads.Where(n => !timed.Contains(n)))
                 {
                     var harmonic = document.Structure.FindLoad(name) is not null;
