@@ -107,10 +107,11 @@ internal static class CheckCommand
             o.WriteLine("Vibration limits at the operating points (steady state)");
             var table = new TextTable("where", "quantity", "measure", "value", "limit", "reserve [%]", "result");
             foreach (var l in outcome.Limits)
-                table.Add(l.Limit.At, l.Limit.Quantity.ToString().ToLowerInvariant(), l.Limit.Measure == AmplitudeMeasure.Peak ? "peak" : "rms",
+                table.Add(Where(l.Limit.At, l.MeasuredAt), l.Limit.Quantity.ToString().ToLowerInvariant(), l.Limit.Measure == AmplitudeMeasure.Peak ? "peak" : "rms",
                     Show(l.Value, l.Limit.Quantity, units), Show(l.Limit.Value, l.Limit.Quantity, units), Signed(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL");
             table.Write(o);
             o.WriteLine("  reserve = (limit - value) / limit.");
+            if (outcome.Limits.Any(l => l.MeasuredAt is not null)) o.WriteLine(LargestNote);
             if (outcome.Combination is { } rule)
                 o.WriteLine($"  values are the load cases combined at their running speeds by the rule {LoadCaseSelection.Describe(rule)}.");
             o.WriteLine();
@@ -122,7 +123,7 @@ internal static class CheckCommand
             foreach (var z in outcome.Zones)
             {
                 var c = z.Criterion.Class;
-                table.Add(z.At, c.Name, string.Create(Inv, $"{velocity.From(c.BoundaryAB):G3}/{velocity.From(c.BoundaryBC):G3}/{velocity.From(c.BoundaryCD):G3}"),
+                table.Add(Where(z.At, z.MeasuredAt), c.Name, string.Create(Inv, $"{velocity.From(c.BoundaryAB):G3}/{velocity.From(c.BoundaryBC):G3}/{velocity.From(c.BoundaryCD):G3}"),
                     double.IsFinite(z.RmsVelocity) ? velocity.From(z.RmsVelocity).ToString("G4", Inv) : "unbounded", z.Zone.ToString(),
                     "up to " + z.Criterion.AcceptedZone, Signed(z.Reserve, z.ReserveNote), z.Passes ? "pass" : "FAIL");
             }
@@ -130,11 +131,12 @@ internal static class CheckCommand
             foreach (var source in outcome.Zones.Select(z => z.Criterion.Class).Distinct().Select(c => $"  {c.Name}: {c.Source}"))
                 o.WriteLine(source);
             o.WriteLine("  reserve = (upper boundary of the accepted zone - value) / boundary; zone boundaries are common practice, not compliance.");
+            if (outcome.Zones.Any(z => z.MeasuredAt is not null)) o.WriteLine(LargestNote);
             o.WriteLine();
         }
         foreach (var f in outcome.Floors)
         {
-            o.WriteLine($"Floor curve {f.Criterion.Curve.Name} at {f.At}: one-third-octave r.m.s. velocity at the operating points");
+            o.WriteLine($"Floor curve {f.Criterion.Curve.Name} at {Where(f.At, f.MeasuredAt, "nearest to failing")}: one-third-octave r.m.s. velocity at the operating points");
             var table = new TextTable("band [Hz]", $"value [{floor.Plain} rms]", $"limit [{floor.Plain} rms]", "reserve [%]", "result");
             foreach (var b in f.Bands)
                 table.Add(b.NominalHz.ToString("G4", Inv), double.IsFinite(b.RmsVelocity) ? floor.From(b.RmsVelocity).ToString("G4", Inv) : "unbounded",
@@ -154,6 +156,12 @@ internal static class CheckCommand
         o.WriteLine();
         o.WriteLine("Caution: " + Cautions.Text);
     }
+
+    private const string LargestNote =
+        "  a point named without a direction is measured in each translation it has; the largest response governs and is named in brackets.";
+
+    /// <summary>"skid.bearing (largest: skid.bearing.y)" (floor curves: the direction nearest to failing) when a point measured in several directions reports one, else the name.</summary>
+    internal static string Where(string at, string? measuredAt, string which = "largest") => measuredAt is null ? at : $"{at} ({which}: {measuredAt})";
 
     /// <summary>A reserve in % with its sign; a reserve with no finite value prints <paramref name="note"/> (never "inf" or "Infinity").</summary>
     internal static string Signed(double fraction, string? note) =>

@@ -10,9 +10,8 @@ internal static class SpatialSupport
 {
     /// <summary>
     /// The message refusing <paramref name="command"/> on <paramref name="document"/>, or null when the command runs on it
-    /// (always for line models). modes, validate, harmonic and report run on plane and 3d models; transient runs free
-    /// vibration and loads that carry a direction; check runs separation criteria; tune runs with a host that names a point and
-    /// a translation; study is refused.
+    /// (always for line models). modes, validate, harmonic, transient, check and report run on plane and 3d models; tune runs
+    /// with a host that names a point and a translation; study is refused.
     /// </summary>
     public static string? Refusal(ModelDocument document, string command)
     {
@@ -22,10 +21,6 @@ internal static class SpatialSupport
         return command switch
         {
             "study" => $"{document.File}: parameter studies ('study') are not supported for {space} models yet: stepping a spring's stiffness per direction and tracking coupled modes is not implemented",
-            "check" when !document.Criteria.Limits.IsDefaultOrEmpty || !document.Criteria.Zones.IsDefaultOrEmpty || !document.Criteria.Floors.IsDefaultOrEmpty =>
-                $"{document.File}: vibration limits, machine zones and floor criteria are not supported for {space} models yet (they name a mass but not the direction to check); only the 'separation' criterion is checked on {space} models",
-            "transient" when document.TimedLoads.FirstOrDefault(Undirected) is { } load =>
-                $"{document.File}: load '{load.Name}' has a 'time' function, but timed loads of {space} models are not read with a direction yet; run the harmonic response, or a transient from 'initial' conditions only",
             _ => null,
         };
     }
@@ -45,11 +40,4 @@ internal static class SpatialSupport
     public static string NotOutputs(Network network, int count) => network.Space == ModelSpace.Line
         ? count == 1 ? "is not a mass" : "are not masses"
         : count == 1 ? "is not a DOF label (such as 'mass.z'), mass or body" : "are not DOF labels (such as 'mass.z'), masses or bodies";
-
-    private static bool Undirected(TransientExcitation load) => load switch
-    {
-        ForceHistory f => f.Direction == Direction.Along,
-        SupportAccelerationHistory s => s.Direction == Direction.Along,
-        _ => false,
-    };
 }

@@ -81,7 +81,7 @@ internal static class TransientCommand
             var loadNames = spec.Loads;
             if (CommonOptions.Names(parse.GetValue(loadsOption)) is { Length: > 0 } chosenLoads)
             {
-                var timed = document.TimedLoads.Select(l => l.Name).ToArray();
+                var timed = document.TimedLoads.Select(l => l.Name).Distinct().ToArray();
                 foreach (var name in chosenLoads.Where(n => !timed.Contains(n)))
                 {
                     var harmonic = document.Structure.FindLoad(name) is not null;
@@ -92,7 +92,7 @@ internal static class TransientCommand
             }
             var loads = loadNames.IsEmpty
                 ? document.TimedLoads.ToList()
-                : loadNames.Select(n => document.TimedLoads.First(l => l.Name == n)).ToList();
+                : loadNames.SelectMany(n => document.TimedLoads.Where(l => l.Name == n)).ToList(); // an unbalance turning in a plane is two histories of one name
             if (loads.Count == 0 && spec.Initial.IsEmpty)
                 return Fail(io, $"{path}: nothing to respond to; give loads a 'time' function (see docs/model-format.md) or 'initial' conditions under 'transient'");
 
@@ -110,7 +110,7 @@ internal static class TransientCommand
             switch (chosenFormat)
             {
                 case OutputFormat.Json:
-                    io.WriteJson(stream => TransientJson.Write(stream, document, result, [.. loads.Select(l => l.Name)], CliApp.Version));
+                    io.WriteJson(stream => TransientJson.Write(stream, document, result, [.. loads.Select(l => l.Name).Distinct()], CliApp.Version));
                     break;
                 case OutputFormat.Csv:
                     TransientCsv.Write(io.Output, result);

@@ -2,6 +2,7 @@ using System.Globalization;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Transient;
 using ModalChain.Core.Assembly;
+using ModalChain.Core.Dofs;
 using ModalChain.Core.Model;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
@@ -20,7 +21,7 @@ internal static class TransientTable
         var s = result.Settings;
         o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine(string.Create(Inv, $"Transient response, {result.MethodDescription}: {result.StepCount} steps of {s.Step:G4} s over {result.StepCount * s.Step:G6} s"));
-        o.WriteLine("Loads acting together: " + (loads.Count == 0 ? "none (free vibration from the initial state)" : string.Join("; ", loads.Select(l => Describe(l, units)))));
+        o.WriteLine("Loads acting together: " + (loads.Count == 0 ? "none (free vibration from the initial state)" : string.Join("; ", loads.DistinctBy(l => l.Name).Select(l => Describe(l, units, loads)))));
         o.WriteLine("Damping: " + DescribeDamping(system));
         var window = string.Create(Inv, $"{s.RmsFrom ?? 0:G4} to {s.RmsTo ?? result.StepCount * s.Step:G4} s");
         o.WriteLine();
@@ -83,14 +84,27 @@ internal static class TransientTable
 
     private static string Time(double t) => t.ToString("F4", Inv);
 
-    private static string Describe(TransientExcitation load, DisplayUnits units) => load switch
+    private static string Describe(TransientExcitation load, DisplayUnits units, IReadOnlyList<TransientExcitation> loads) => load switch
     {
         ForceHistory { Time: UnbalanceSpeedRamp r } f => string.Create(Inv,
-            $"{f.Name} (unbalance {units.MassRadius.From(f.Scale):G4} {units.MassRadius.Plain} at {f.Mass}, {60 * r.FromRadPerSecond / (2 * Math.PI):G5} to {60 * r.ToRadPerSecond / (2 * Math.PI):G5} rpm over {r.Over:G4} s from {r.Start:G4} s)"),
-        ForceHistory f => $"{f.Name} ({Shape(f.Time, units.Force)} force at {f.Mass})",
-        SupportAccelerationHistory b => $"{b.Name} ({Shape(b.Acceleration, units.Acceleration)} acceleration of {b.Support})",
+            $"{f.Name} (unbalance {units.MassRadius.From(f.Scale):G4} {units.MassRadius.Plain} at {f.Mass}{Turning(f, loads)}, {60 * r.FromRadPerSecond / (2 * Math.PI):G5} to {60 * r.ToRadPerSecond / (2 * Math.PI):G5} rpm over {r.Over:G4} s from {r.Start:G4} s)"),
+        ForceHistory { Direction: var d } f when d.IsRotation() => $"{f.Name} ({Shape(f.Time, MomentUnit)} moment about {d.Label()} on {f.Mass})",
+        ForceHistory f => $"{f.Name} ({Shape(f.Time, units.Force)} force{In(f.Direction)} at {f.Mass})",
+        SupportAccelerationHistory b => $"{b.Name} ({Shape(b.Acceleration, units.Acceleration)} acceleration of {b.Support}{In(b.Direction)})",
         _ => load.Name,
     };
+
+    // Moments are printed in N*m whatever the unit system, as the harmonic table does.
+    private static readonly DisplayUnit MomentUnit = new("N·m", "N*m", 1);
+
+    private static string In(Direction d) => d == Direction.Along ? "" : $" in {d.Label()}";
+
+    /// <summary>" turning in xz" for an unbalance of a plane or 3d model (two histories of one name), else empty.</summary>
+    private static string Turning(ForceHistory f, IReadOnlyList<TransientExcitation> loads)
+    {
+        var directions = loads.OfType<ForceHistory>().Where(l => l.Name == f.Name && l.Direction != Direction.Along).Select(l => l.Direction.Label()).ToList();
+        return directions.Count == 0 ? "" : $" turning in {string.Concat(directions)}";
+    }
 
     /// <summary>A time function whose values are in <paramref name="unit"/>'s SI quantity (N for a force, m/s² for an acceleration).</summary>
     private static string Shape(TimeFunction f, DisplayUnit unit) => f switch

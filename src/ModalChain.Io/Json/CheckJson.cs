@@ -73,6 +73,7 @@ public static class CheckJson
         {
             w.WriteStartObject();
             w.WriteString("at", l.Limit.At);
+            if (l.MeasuredAt is { } lm) w.WriteString("measured_at", lm);
             w.WriteString("quantity", l.Limit.Quantity.ToString().ToLowerInvariant());
             w.WriteString("measure", l.Limit.Measure == AmplitudeMeasure.Peak ? "peak" : "rms");
             w.WriteString("unit", Unit(l.Limit.Quantity));
@@ -89,6 +90,7 @@ public static class CheckJson
         {
             w.WriteStartObject();
             w.WriteString("at", z.At);
+            if (z.MeasuredAt is { } zm) w.WriteString("measured_at", zm);
             w.WriteString("class", z.Criterion.Class.Name);
             w.WriteString("quantity", "velocity");
             w.WriteString("measure", "rms");
@@ -114,6 +116,7 @@ public static class CheckJson
         {
             w.WriteStartObject();
             w.WriteString("at", f.At);
+            if (f.MeasuredAt is { } fm) w.WriteString("measured_at", fm);
             w.WriteString("curve", f.Criterion.Curve.Name);
             w.WriteString("quantity", "velocity");
             w.WriteString("measure", "rms");

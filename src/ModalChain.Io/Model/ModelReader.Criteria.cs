@@ -148,14 +148,27 @@ public static partial class ModelReader
         foreach (var item in items)
         {
             if (context.Text(item, $"'at' of {what}") is not { } name) { ok = false; continue; }
-            if (network is not null && !network.IsMass(name))
-            {
-                context.Error(item, $"{what} is at '{name}', which is not a mass of the model{ReadContext.Suggest(name, network.Masses.Select(m => m.Name))}");
-                ok = false;
-            }
+            if (!Measurable(item, name, what, context, network)) ok = false;
             else names.Add(name);
         }
         return ok ? [.. names] : null;
+    }
+
+    /// <summary>
+    /// True when a criterion can measure at <paramref name="name"/> (or the network is unknown after errors): a mass in a
+    /// line model; a mass, body or body point, bare or with a translation, in plane and 3d models
+    /// (<see cref="MeasuringPoints"/>). Otherwise reports a located error and returns false.
+    /// </summary>
+    private static bool Measurable(YNode node, string name, string what, ReadContext context, CoreNetwork? network)
+    {
+        if (network is null) return true;
+        var points = new MeasuringPoints(network);
+        if (points.Resolve(name, out var error, out var unknown) is not null) return true;
+        var names = points.Names();
+        if (network.Space != Core.Model.ModelSpace.Line)
+            names = names.Concat(names.SelectMany(n => Core.Model.Directions.Translations(network.Space).Select(d => $"{n}.{Core.Model.Directions.Label(d)}"))).ToList();
+        context.Error(node, $"{what} is at '{name}', which {error}{(unknown ? ReadContext.Suggest(name, names) : "")}");
+        return false;
     }
 
     /// <summary>The masses whose modes the separation rule exempts: a name or a list of names, each a mass of the model, none twice.</summary>
@@ -205,12 +218,7 @@ public static partial class ModelReader
 
         string? at = null;
         if (entry["at"] is not { } atNode) context.Error(entry, $"{what} needs 'at', the mass whose vibration it limits");
-        else if (context.Text(atNode, $"'at' of {what}") is { } name)
-        {
-            if (network is not null && !network.IsMass(name))
-                context.Error(atNode, $"{what} is at '{name}', which is not a mass of the model{ReadContext.Suggest(name, network.Masses.Select(m => m.Name))}");
-            else at = name;
-        }
+        else if (context.Text(atNode, $"'at' of {what}") is { } name && Measurable(atNode, name, what, context, network)) at = name;
 
         ResponseQuantity? quantity = null;
         if (entry["quantity"] is not { } qNode) context.Error(entry, $"{what} needs 'quantity': displacement, velocity or acceleration");

@@ -626,10 +626,6 @@ public static partial class ModelReader
             else if (k.Value == "repeat")
                 context.Error(k, $"'repeat' makes masses of line models only: in a {SpaceName(space)} model write the masses with their locations under 'masses'");
         }
-        if (top["loads"] is YMapping loads)
-            foreach (var (name, value) in loads.Entries)
-                if (value is YMapping entry && entry.Entries.FirstOrDefault(e => e.Key.Value == "time").Key is { } time)
-                    context.Error(time, $"load '{name.Value}' has a 'time' function, which a {SpaceName(space)} model does not take yet: timed loads act in line models only; give a harmonic load");
     }
 
     /// <summary>The target of a force or unbalance: a mass (line models), or a mass, body or body point (plane and 3d).</summary>

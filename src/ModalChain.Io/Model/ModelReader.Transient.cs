@@ -17,8 +17,13 @@ public static partial class ModelReader
     private static readonly string[] TransientMethods = ["newmark", "hht", "exact", "modal"];
 
     /// <summary>Reads the loads that carry a 'time' function: forces and support accelerations in time, unbalances that run up or down.</summary>
+    /// <remarks>
+    /// In plane and 3d models (<paramref name="spatial"/> given) they read as the harmonic loads do: a force (or a moment on a
+    /// body) at a mass, body or body point in a stated direction, an unbalance turning in a plane of two translations, a
+    /// support moving in a stated translation.
+    /// </remarks>
     private static ImmutableArray<TransientExcitation> ReadTimedLoads(YMapping top, IReadOnlySet<string> masses,
-        IReadOnlySet<string> supports, ReadContext context)
+        IReadOnlySet<string> supports, ReadContext context, SpatialNodes? spatial = null)
     {
         if (top["loads"] is not YMapping loads) return [];
         var result = ImmutableArray.CreateBuilder<TransientExcitation>();
@@ -38,27 +43,39 @@ public static partial class ModelReader
             {
                 case "force":
                 {
-                    context.RejectUnknownKeys(entry, what, "kind", "at", "time");
-                    var at = LoadMass(entry, masses, what, context);
-                    var f = ReadValueFunction(time, Quantity.Force, timeWhat, context);
-                    if (at is not null && f is not null) result.Add(new ForceHistory(name, at, 1.0, f));
+                    context.RejectUnknownKeys(entry, what, "kind", "at", "direction", "time");
+                    var at = LoadTarget(entry, masses, spatial, what, context);
+                    var direction = LoadDirection(entry, at, spatial, supportMotion: false, what, context);
+                    // A moment's time function is in N·m, even when its direction was refused (one error, not two).
+                    var moment = spatial is not null && entry["direction"] is YScalar { Value: "rx" or "ry" or "rz" };
+                    var f = ReadValueFunction(time, moment ? Quantity.Moment : Quantity.Force, timeWhat, context);
+                    if (at is { } target && direction is { } d && f is not null) result.Add(new ForceHistory(name, target.Reference, 1.0, f) { Direction = d });
                     break;
                 }
                 case "unbalance":
                 {
-                    context.RejectUnknownKeys(entry, what, "kind", "at", "mass-radius", "time");
-                    var at = LoadMass(entry, masses, what, context);
+                    context.RejectUnknownKeys(entry, what, "kind", "at", "mass-radius", "plane", "time");
+                    var at = LoadTarget(entry, masses, spatial, what, context);
+                    var plane = UnbalancePlane(entry, at, spatial, what, context);
                     var me = context.Required(entry, "mass-radius", Quantity.MassRadius, MassRadiusRange, what);
                     var f = ReadSpeedFunction(time, timeWhat, context);
-                    if (at is not null && me is { } u && f is not null) result.Add(new ForceHistory(name, at, u, f));
+                    if (at is not { } target || plane is not { } p || me is not { } u || f is null) break;
+                    if (p.IsEmpty) result.Add(new ForceHistory(name, target.Reference, u, f));
+                    else
+                    {
+                        // m·e(ω² cos θ + α sin θ) along the first direction; the same with θ − π/2, m·e(ω² sin θ − α cos θ), along the second.
+                        result.Add(new ForceHistory(name, target.Reference, u, f) { Direction = p[0] });
+                        result.Add(new ForceHistory(name, target.Reference, u, f with { PhaseRadians = f.PhaseRadians - Math.PI / 2 }) { Direction = p[1] });
+                    }
                     break;
                 }
                 case "base-motion":
                 {
-                    context.RejectUnknownKeys(entry, what, "kind", "support", "time");
+                    context.RejectUnknownKeys(entry, what, "kind", "support", "direction", "time");
                     var support = LoadSupport(entry, supports, what, context);
+                    var direction = LoadDirection(entry, null, spatial, supportMotion: true, what, context);
                     var f = ReadValueFunction(time, Quantity.Acceleration, $"{timeWhat} (the support's acceleration)", context);
-                    if (support is not null && f is not null) result.Add(new SupportAccelerationHistory(name, support, f));
+                    if (support is not null && direction is { } d && f is not null) result.Add(new SupportAccelerationHistory(name, support, f) { Direction = d });
                     break;
                 }
                 default:

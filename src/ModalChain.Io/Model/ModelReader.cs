@@ -74,7 +74,7 @@ public static partial class ModelReader
         var loadCases = ReadLoadCases(top, loads, context);
         var harmonic = ReadHarmonic(top, massNames, loads, context);
         var caseSelection = ReadCaseSelection(top, loadCases, context);
-        var timedLoads = spatial is null ? ReadTimedLoads(top, massNames, supportNames, context) : [];
+        var timedLoads = ReadTimedLoads(top, massNames, supportNames, context, spatial);
         var transient = ReadTransient(top, massNames, timedLoads, context);
         var criteria = ReadCriteria(top, context, network);
         if (network is not null) RefuseMovingInerterSupports(network, loads, timedLoads, context);

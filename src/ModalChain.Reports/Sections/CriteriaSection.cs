@@ -85,8 +85,10 @@ public sealed class CriteriaSection : IReportSection
                 ["Criterion", "Value", "Limit", "Reserve (%)", "Result"],
                 _outcome.Limits.Select(l => (IReadOnlyList<string>)
                 [
-                    l.Limit.Describe(), Show(l.Value, l.Limit.Quantity, _context.Units), Show(l.Limit.Value, l.Limit.Quantity, _context.Units), Reserve(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL",
+                    l.MeasuredAt is { } m ? $"{l.Limit.Describe()} (largest: {m})" : l.Limit.Describe(), Show(l.Value, l.Limit.Quantity, _context.Units), Show(l.Limit.Value, l.Limit.Quantity, _context.Units), Reserve(l.Reserve, l.ReserveNote), l.Passes ? "pass" : "FAIL",
                 ]), new HashSet<int> { 1, 2, 3 }, "criteria-table");
+        if (_outcome.Limits.Any(l => l.MeasuredAt is not null) || _outcome.Zones.Any(z => z.MeasuredAt is not null) || _outcome.Floors.Any(f => f.MeasuredAt is not null))
+            html.Paragraph("A point named without a direction is measured in each translation it has; the largest response (for a floor curve, the direction nearest to failing) governs and is named in brackets.", "note");
         if (_outcome.Limits.Count > 0 && _outcome.Combination is { } rule)
             html.Paragraph($"The limits' values are the load cases combined at their running speeds by the rule {LoadCaseSelection.Describe(rule)}.", "note");
         var v = _context.Units.Velocity;
@@ -97,7 +99,7 @@ public sealed class CriteriaSection : IReportSection
                 ["Where", "Class", $"Zone boundaries A/B, B/C, C/D ({v.Symbol} r.m.s.)", $"Value ({v.Symbol} r.m.s.)", "Zone", "Accepted", "Reserve (%)", "Result"],
                 _outcome.Zones.Select(z => (IReadOnlyList<string>)
                 [
-                    z.At, z.Criterion.Class.Name,
+                    z.MeasuredAt is { } m ? $"{z.At} (largest: {m})" : z.At, z.Criterion.Class.Name,
                     $"{v.Format(z.Criterion.Class.BoundaryAB)}, {v.Format(z.Criterion.Class.BoundaryBC)}, {v.Format(z.Criterion.Class.BoundaryCD)}",
                     double.IsFinite(z.RmsVelocity) ? v.Format(z.RmsVelocity) : "unbounded", z.Zone.ToString(),
                     "up to " + z.Criterion.AcceptedZone, Reserve(z.Reserve, z.ReserveNote), z.Passes ? "pass" : "FAIL",
@@ -107,7 +109,7 @@ public sealed class CriteriaSection : IReportSection
         }
         foreach (var f in _outcome.Floors)
         {
-            html.Table($"Floor curve {f.Criterion.Curve.Name} at {f.At}: one-third-octave r.m.s. velocity",
+            html.Table($"Floor curve {f.Criterion.Curve.Name} at {(f.MeasuredAt is { } m ? $"{f.At} (nearest to failing: {m})" : f.At)}: one-third-octave r.m.s. velocity",
                 ["Band (Hz)", $"Value ({floor.Symbol} r.m.s.)", $"Limit ({floor.Symbol} r.m.s.)", "Reserve (%)", "Result"],
                 f.Bands.Select(b => (IReadOnlyList<string>)
                 [

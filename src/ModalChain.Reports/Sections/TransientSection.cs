@@ -60,10 +60,10 @@ public sealed class TransientSection : IReportSection
         if (document.Transient is not { } spec) return null;
         var loads = spec.Loads.IsDefaultOrEmpty
             ? document.TimedLoads.ToList()
-            : [.. spec.Loads.Select(n => document.TimedLoads.First(l => l.Name == n))];
+            : [.. spec.Loads.SelectMany(n => document.TimedLoads.Where(l => l.Name == n))]; // an unbalance turning in a plane is two histories of one name
         if (loads.Count == 0 && spec.Initial.IsDefaultOrEmpty) return null;
         var result = TransientAnalysis.Run(context.Damped, loads, spec.Initial, spec.Settings);
-        return new TransientSection(context, result, [.. loads.Select(l => l.Name)]);
+        return new TransientSection(context, result, [.. loads.Select(l => l.Name).Distinct()]);
     }
 
     /// <inheritdoc />

@@ -217,9 +217,68 @@ public class SpatialReaderErrorTests
     }
 
     [Fact]
-    public void ATimedLoadInA3dModel_IsLocated()
+    public void ATimedLoadWithoutADirection_IsLocated()
     {
         const string line = "  kick: {kind: force, at: skid, time: {kind: step, value: 1 kN}}";
-        SingleError(ReadSkid("loads:", line), 14, ColumnOf(line, "time"), "a 3d model does not take yet");
+        SingleError(ReadSkid("loads:", line), 14, ColumnOf(line, "{kind: force"), "load 'kick' needs 'direction' in a 3d model");
+    }
+
+    [Fact]
+    public void ATimedMomentOnAPointMass_IsLocated()
+    {
+        const string line = "  kick: {kind: force, at: deck, direction: rx, time: {kind: step, value: 1 kN*m}}";
+        SingleError(ReadSkid("loads:", line), 14, ColumnOf(line, "rx"), "a point mass, which has no rotation");
+    }
+
+    [Fact]
+    public void ATimedSupportMotionInARotation_IsLocated()
+    {
+        const string line = "  quake: {kind: base-motion, support: pad, direction: rz, time: {kind: step, value: 1 m/s^2}}";
+        SingleError(ReadSkid("supports:", "  pad: {at: [0, 0, -1]}", "loads:", line), 16, ColumnOf(line, "rz"), "a support's prescribed motion is a translation");
+    }
+
+    [Fact]
+    public void ALimitAtARotation_IsLocated()
+    {
+        const string line = "  limits: [{at: skid.ry, quantity: displacement, peak: 1 mm}]";
+        SingleError(ReadSkid("criteria:", line), 14, ColumnOf(line, "skid.ry"),
+            "limit 1 of 'criteria' is at 'skid.ry', which is a rotation ('ry'); limits, machine zones and floor curves bound motion in length units: name a translation (skid.x, skid.y, skid.z)");
+    }
+
+    [Fact]
+    public void AZoneAtAnUnknownBodyPoint_IsLocated_WithTheNearestName()
+    {
+        const string line = "  machine-zones: [{at: [deck, skid.foot-3], class: medium-rigid, zone: B}]";
+        SingleError(ReadSkid("criteria:", line), 14, ColumnOf(line, "skid.foot-3"),
+            "entry 1 of 'machine-zones' is at 'skid.foot-3', which is not a mass, body, body point ('body.point') or translation ('mass.z', 'body.point.x') of the model (did you mean 'skid.foot-1'?)");
+    }
+
+    [Fact]
+    public void AFloorCurveInADirectionTheMassDoesNotMove_IsLocated()
+    {
+        const string line = "  floor-curves: [{at: deck.x, curve: VC-A}]";
+        SingleError(ReadSkid("criteria:", line), 14, ColumnOf(line, "deck.x"), "entry 1 of 'floor-curves' is at 'deck.x', which names 'x', but 'deck' does not move in 'x'");
+    }
+
+    [Fact]
+    public void ALimitAtASupport_IsLocated()
+    {
+        const string line = "  limits: [{at: ground, quantity: velocity, rms: 1 mm/s}]";
+        SingleError(ReadSkid("criteria:", line), 14, ColumnOf(line, "ground"), "limit 1 of 'criteria' is at 'ground', which is a support: it does not move");
+    }
+
+    [Fact]
+    public void CriteriaAtDofLabelsBodyPointsAndBarePoints_AreRead()
+    {
+        var result = ReadSkid(
+            "criteria:",
+            "  limits: [{at: deck.z, quantity: velocity, rms: 1 mm/s}, {at: skid.foot-1.x, quantity: velocity, rms: 1 mm/s}]",
+            "  machine-zones: [{at: [skid, skid.foot-2], class: medium-rigid, zone: B}]",
+            "  floor-curves: [{at: deck, curve: VC-A}]");
+        Assert.True(result.Succeeded, string.Join("\n", result.Diagnostics));
+        var criteria = result.Model!.Criteria;
+        Assert.Equal(["deck.z", "skid.foot-1.x"], criteria.Limits.Select(l => l.At));
+        Assert.Equal("skid, skid.foot-2", string.Join(", ", criteria.Zones[0].At));
+        Assert.Equal("deck", Assert.Single(criteria.Floors[0].At));
     }
 }

@@ -76,21 +76,35 @@ public static class CriteriaCheck
 
         var zones = ImmutableArray.CreateBuilder<MachineZoneResult>();
         var floors = ImmutableArray.CreateBuilder<FloorResult>();
-        var network = system.Model.Network;
         var named = criteria.Zones.SelectMany(z => z.At).Concat(criteria.Floors.SelectMany(f => f.At)).ToList();
         if (named.Count > 0)
         {
+            var points = MeasuredResponse.Resolve(system.Model.Network, named);
+            var dofs = MeasuredResponse.Dofs(points.Values);
             var components = cases is null
-                ? OperatingPointLimits.Components(system, operatingLoads, [.. named.Where(network.IsMass)])
-                : LoadCaseLimits.AsHarmonic(LoadCaseAnalysis.Components(system, cases, [.. named.Where(network.IsMass)])) is var byCase && byCase.Values.Any(c => c.Count > 0) ? byCase : null;
+                ? OperatingPointLimits.Components(system, operatingLoads, dofs)
+                : LoadCaseLimits.AsHarmonic(LoadCaseAnalysis.Components(system, cases, dofs)) is var byCase && byCase.Values.Any(c => c.Count > 0) ? byCase : null;
+            var noOperatingPoint = cases is null ? OperatingPointLimits.NoOperatingPoint : LoadCaseLimits.NoOperatingPoint;
             foreach (var zone in criteria.Zones)
                 foreach (var at in zone.At)
-                    if (components?.GetValueOrDefault(at) is { } parts) zones.Add(VelocityLevels.Evaluate(zone, at, parts));
-                    else notEvaluated.Add((zone.Describe(at), components is null ? (cases is null ? OperatingPointLimits.NoOperatingPoint : LoadCaseLimits.NoOperatingPoint) : $"'{at}' is not a mass of the model"));
+                    if (points[at] is not { Point: { } point }) notEvaluated.Add((zone.Describe(at), points[at].Reason!));
+                    else if (components is null) notEvaluated.Add((zone.Describe(at), noOperatingPoint));
+                    else
+                    {
+                        var (result, label) = MeasuredResponse.Largest(point, m => VelocityLevels.Evaluate(zone, at, MeasuredResponse.Of(m, components)), r => r.RmsVelocity);
+                        zones.Add(point.TakesLargest ? result with { MeasuredAt = label } : result);
+                    }
             foreach (var floor in criteria.Floors)
                 foreach (var at in floor.At)
-                    if (components?.GetValueOrDefault(at) is { } parts) floors.Add(VelocityLevels.Evaluate(floor, at, parts));
-                    else notEvaluated.Add((floor.Describe(at), components is null ? (cases is null ? OperatingPointLimits.NoOperatingPoint : LoadCaseLimits.NoOperatingPoint) : $"'{at}' is not a mass of the model"));
+                    if (points[at] is not { Point: { } point }) notEvaluated.Add((floor.Describe(at), points[at].Reason!));
+                    else if (components is null) notEvaluated.Add((floor.Describe(at), noOperatingPoint));
+                    else
+                    {
+                        // The direction nearest to failing governs: the smallest reserve over the bands, the largest level where none is compared.
+                        var (result, label) = MeasuredResponse.Largest(point, m => VelocityLevels.Evaluate(floor, at, MeasuredResponse.Of(m, components)),
+                            r => r.Bands.IsEmpty ? double.NegativeInfinity : -r.Reserve);
+                        floors.Add(point.TakesLargest ? result with { MeasuredAt = label } : result);
+                    }
         }
         return new CheckOutcome(separation, limits.Evaluated, notEvaluated)
         {

@@ -24,15 +24,15 @@ public static class LoadCaseLimits
         ArgumentNullException.ThrowIfNull(cases);
         ArgumentNullException.ThrowIfNull(limits);
         if (limits.Count == 0) return new LimitOutcome([], []);
-        var network = system.Model.Network;
-        var components = LoadCaseAnalysis.Components(system, cases, [.. limits.Select(l => l.At).Where(network.IsMass).Distinct()]);
+        var points = MeasuredResponse.Resolve(system.Model.Network, limits.Select(l => l.At));
+        var components = LoadCaseAnalysis.Components(system, cases, MeasuredResponse.Dofs(points.Values));
         var evaluated = ImmutableArray.CreateBuilder<LimitResult>();
         var missing = ImmutableArray.CreateBuilder<(VibrationLimit, string)>();
         foreach (var limit in limits)
         {
-            if (!components.TryGetValue(limit.At, out var parts)) missing.Add((limit, $"'{limit.At}' is not a mass of the model"));
-            else if (parts.Count == 0) missing.Add((limit, NoOperatingPoint));
-            else evaluated.Add(Evaluate(limit, parts, cases.Rule));
+            if (points[limit.At] is not { Point: { } point }) missing.Add((limit, points[limit.At].Reason!));
+            else if (components[point.Motions[0].Terms[0].Dof].Count == 0) missing.Add((limit, NoOperatingPoint));
+            else evaluated.Add(OperatingPointLimits.Evaluate(limit, point, m => Evaluate(limit, MeasuredResponse.Of(m, components), cases.Rule)));
         }
         return new LimitOutcome(evaluated.ToImmutable(), missing.ToImmutable());
     }

@@ -28,16 +28,26 @@ public static class OperatingPointLimits
         if (!loads.Any(l => l.SpeedHz is > 0))
             return new LimitOutcome([], [.. limits.Select(l => (l, NoOperatingPoint))]);
 
-        var network = system.Model.Network;
-        var components = Components(system, loads, [.. limits.Select(l => l.At).Where(network.IsMass).Distinct()])!;
+        var points = MeasuredResponse.Resolve(system.Model.Network, limits.Select(l => l.At));
+        var components = Components(system, loads, MeasuredResponse.Dofs(points.Values))!;
         var evaluated = ImmutableArray.CreateBuilder<LimitResult>();
         var missing = ImmutableArray.CreateBuilder<(VibrationLimit, string)>();
         foreach (var limit in limits)
         {
-            if (components.TryGetValue(limit.At, out var parts)) evaluated.Add(VibrationLimitCheck.Evaluate(limit, parts));
-            else missing.Add((limit, $"'{limit.At}' is not a mass of the model"));
+            if (points[limit.At] is not { Point: { } point }) missing.Add((limit, points[limit.At].Reason!));
+            else evaluated.Add(Evaluate(limit, point, m => VibrationLimitCheck.Evaluate(limit, MeasuredResponse.Of(m, components))));
         }
         return new LimitOutcome(evaluated.ToImmutable(), missing.ToImmutable());
+    }
+
+    /// <summary>
+    /// The result of <paramref name="limit"/> at <paramref name="point"/>: of its one motion, or of the motion with the
+    /// largest value when the point is measured in several directions (named in <see cref="LimitResult.MeasuredAt"/>).
+    /// </summary>
+    internal static LimitResult Evaluate(VibrationLimit limit, MeasuringPoint point, Func<MeasuredMotion, LimitResult> evaluate)
+    {
+        var (result, label) = MeasuredResponse.Largest(point, evaluate, r => r.Value);
+        return point.TakesLargest ? result with { MeasuredAt = label } : result;
     }
 
     /// <summary>The sentence given when the loads have no running speed, so there is no operating point.</summary>

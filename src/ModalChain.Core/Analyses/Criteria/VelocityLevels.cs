@@ -27,6 +27,9 @@ public sealed record MachineZoneResult(MachineZoneCriterion Criterion, string At
     /// <summary>True when the velocity does not exceed the upper boundary of the accepted zone.</summary>
     public bool Passes => RmsVelocity <= Criterion.Limit;
 
+    /// <summary>The translation whose velocity is reported when <see cref="At"/> is measured in several directions (the largest governs); null when it names one motion.</summary>
+    public string? MeasuredAt { get; init; }
+
     /// <summary>Why the value or reserve has no finite value, or null.</summary>
     public string? ReserveNote => ReserveNotes.OfLimit(RmsVelocity, Reserve);
 }
@@ -68,6 +71,9 @@ public sealed record FloorResult(FloorCriterion Criterion, string At, ImmutableA
 
     /// <summary>True when every band passes.</summary>
     public bool Passes => Bands.All(b => b.Passes);
+
+    /// <summary>The translation whose bands are reported when <see cref="At"/> is measured in several directions (the one nearest to failing governs); null when it names one motion.</summary>
+    public string? MeasuredAt { get; init; }
 
     /// <summary>Why <see cref="Reserve"/> has no finite value, or null.</summary>
     public string? ReserveNote => Bands.IsEmpty ? "n/a: no response component lies in a band the curve covers" : ReserveNotes.OfLimit(Governing!.RmsVelocity, Reserve);

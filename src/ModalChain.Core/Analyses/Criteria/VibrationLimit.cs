@@ -38,6 +38,12 @@ public sealed record LimitResult(VibrationLimit Limit, double Value, double Rese
     /// <summary>True when the value does not exceed the limit.</summary>
     public bool Passes => Value <= Limit.Value;
 
+    /// <summary>
+    /// The translation whose response <see cref="Value"/> is, when the limit's point is measured in several directions and
+    /// the largest governs (<c>skid.bearing.y</c> for a limit at <c>skid.bearing</c>); null when the limit names one motion.
+    /// </summary>
+    public string? MeasuredAt { get; init; }
+
     /// <summary>Why the value or reserve has no finite value, or null when both have one.</summary>
     public string? ReserveNote => ReserveNotes.OfLimit(Value, Reserve);
 }
