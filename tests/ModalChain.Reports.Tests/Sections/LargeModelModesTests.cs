@@ -135,6 +135,24 @@ public sealed class LargeModelModesTests
     }
 
     [Fact]
+    public void LargeGrid_ModelTablesGroupEqualValues_AndTheCountsAddUpToTheModel()
+    {
+        // Identity: a 12 x 12 grid with one heavier mass has two mass groups (143 + 1) and one spring group of
+        // 2·12·11 + 4·12 = 312 springs; the counts in the tables add up to the model's.
+        var yaml = "title: g\nrepeat:\n  g: {kind: grid, rows: 12, columns: 12, spacing: 0.5 m, mass: 45 kg, stiffness: 12 kN/mm, support: edges}\n"
+            + "masses:\n  pump: {mass: 300 kg, at: [2.6, -2.4]}\nsprings:\n  pump-mounts: {between: [g-5-6, pump], stiffness: 2 kN/mm}\n";
+        var context = new ReportContext(Repository.Parse(yaml), Options);
+        var html = new HtmlWriter();
+        ModelSummarySection.Create(context)!.WriteHtml(html);
+        var tables = html.Blocks.OfType<TableBlock>().ToArray();
+        var masses = tables.Single(t => t.Caption!.StartsWith("Masses: 145 in 2 groups", StringComparison.Ordinal));
+        Assert.Equal(["144", "1"], masses.Rows.Select(r => r[1]));
+        var springs = tables.Single(t => t.Caption!.StartsWith("Springs: 313 in 2 groups", StringComparison.Ordinal));
+        Assert.Equal(["312", "1"], springs.Rows.Select(r => r[1]));
+        Assert.Equal("pump-mounts", springs.Rows[1][2]);
+    }
+
+    [Fact]
     public void HundredByHundredGrid_WritesMapsOfAFewHundredKilobytes()
     {
         // 10,000 masses, the lowest 3 modes: the maps stay compact (compound paths per colour step, touching cells merged).
