@@ -38,8 +38,12 @@ public sealed class ModelFilesReportTests
             var (shape, _) = ModalChain.Reports.Sections.ModesSection.Normalised(mode);
             // Line models: each mass's block is displaced by its shape value. Plane and 3d mode figures are drawn in views and
             // checked by SpatialReportTests (pure lift of a bounce, equal turn of a yaw, the centre of mass moved by the shape).
-            if (document.Network.Space == ModalChain.Core.Model.ModelSpace.Line)
+            // Large or plan-laid-out line models are drawn as colour maps: each mass's cell has the colour step of its value.
+            var view = ModalChain.Reports.Sections.ModesSection.ViewOf(document.Network);
+            if (view == ModalChain.Reports.Sections.ModeView.Schematic)
                 Sections.ModesSectionTests.AssertDisplacements(root, [.. document.Network.Masses.Select(m => m.Name)], shape, $"{model} mode {mode.Number}");
+            else if (view == ModalChain.Reports.Sections.ModeView.Map)
+                Drawing.ShapeMapFigureTests.AssertColoursFollowShape(root, document.Network, modal.ShapeByMass(mode), $"{model} mode {mode.Number}");
         }
 
         // results.json holds the modes object of `modalchain modes --format json` under "modes", plus the report's own keys.

@@ -49,6 +49,16 @@ public static class PdfSceneWriter
                         using (var stroke = StrokePaint(p.Stroke)) canvas.DrawPath(path, stroke);
                 }
                 break;
+            case RectSetShape set:
+                using (var path = new SKPath())
+                {
+                    foreach (var r in set.Rects) path.AddRect(new SKRect((float)r.Left, (float)r.Top, (float)r.Right, (float)r.Bottom));
+                    if (set.Fill is not null)
+                        using (var fill = FillPaint(set.Fill, 1)) canvas.DrawPath(path, fill);
+                    if (set.Stroke is not null)
+                        using (var stroke = StrokePaint(set.Stroke)) canvas.DrawPath(path, stroke);
+                }
+                break;
             case CircleShape c:
                 if (c.Fill is not null)
                     using (var fill = FillPaint(c.Fill, 1)) canvas.DrawCircle((float)c.Center.X, (float)c.Center.Y, (float)c.Radius, fill);

@@ -38,6 +38,33 @@ public sealed class ModelSummarySection : IReportSection
             + PositionNote(layout), "network", scene, animated: false);
     }
 
+    /// <summary>Large line models: masses, springs and dampers grouped by equal value (count and first names), not one row each.</summary>
+    private void GroupedTables(HtmlWriter html, Network network, Units.DisplayUnits u)
+    {
+        static IEnumerable<IReadOnlyList<string>> Rows<T>(IEnumerable<T> items, Func<T, double> value, Func<T, string> name, Func<double, string> format) =>
+            items.GroupBy(value).OrderByDescending(g => g.Count()).ThenBy(g => g.Key).Select(g => (IReadOnlyList<string>)
+            [
+                format(g.Key),
+                g.Count().ToString(CultureInfo.InvariantCulture),
+                string.Join(", ", g.Take(3).Select(name)) + (g.Count() > 3 ? ", …" : ""),
+            ]);
+        string Caption(string what, int count, int groups) => string.Create(CultureInfo.InvariantCulture,
+            $"{what}: {count} in {groups} group{(groups == 1 ? "" : "s")} of equal value (every one is listed in results.json)");
+        html.Table(Caption("Masses", network.Masses.Length, network.Masses.Select(m => m.Kilograms).Distinct().Count()),
+            [$"Mass ({u.MassSymbol})", "Count", "First names"], Rows(network.Masses, m => m.Kilograms, m => m.Name, v => u.Mass(v, given: true)), new HashSet<int> { 0, 1 });
+        if (network.Springs.Length > 0)
+            html.Table(Caption("Springs", network.Springs.Length, network.Springs.Select(s => s.Stiffness).Distinct().Count()),
+                [$"Stiffness ({u.StiffnessSymbol})", "Count", "First names"], Rows(network.Springs, s => s.Stiffness, s => s.Name, v => u.Stiffness(v, given: true)), new HashSet<int> { 0, 1 });
+        if (network.Dampers.Length > 0)
+            html.Table(Caption("Dampers", network.Dampers.Length, network.Dampers.Select(d => d.Coefficient).Distinct().Count()),
+                [$"Coefficient ({u.DampingSymbol})", "Count", "First names"], Rows(network.Dampers, d => d.Coefficient, d => d.Name, v => u.Damping(v, given: true)), new HashSet<int> { 0, 1 });
+        if (_context.Document.Warnings.Length > 0)
+        {
+            html.Heading("Warnings from reading the model");
+            html.List(_context.Document.Warnings.Select(w => w.ToString()), "warnings");
+        }
+    }
+
     private static SchematicFigure SpatialDrawing(Network network, SpatialGeometry geometry, Units.DisplayUnits units)
     {
         var header = new[]
@@ -97,6 +124,12 @@ public sealed class ModelSummarySection : IReportSection
             ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
             ("Parts not held by a spring to a support", groups.Length == 0 ? "none" : string.Join("; ", groups.Select(g => string.Join(", ", g))) + " (rigid-body modes at 0 Hz)"),
         ]);
+        if (network.Masses.Length > ModesSection.LargeModelMasses)
+        {
+            GroupedTables(html, network, u);
+            html.Figure(_drawing);
+            return;
+        }
         html.Table("Masses", ["Name", $"Mass ({u.MassSymbol})", $"Drawing position ({u.LengthSymbol})"],
             network.Masses.Select(m => (IReadOnlyList<string>)[m.Name, u.Mass(m.Kilograms, given: true),
                 m.Position is { } p ? $"({u.Length(p.X, given: true)}, {u.Length(p.Y, given: true)})" : "—"]),

@@ -23,6 +23,7 @@ public sealed class ModesSection : IReportSection
     private readonly ChartFigure _massChart;
     private readonly ImmutableArray<SchematicFigure> _modeFigures;
     private readonly ImmutableArray<ComplexMode> _complexModes;
+    private readonly ModeView _view;
 
     private ModesSection(ReportContext context)
     {
@@ -30,6 +31,17 @@ public sealed class ModesSection : IReportSection
         _result = context.Modal;
         _complexModes = context.Damped.IsClassical ? [] : ComplexModes.Solve(context.Damped);
         _massChart = MassChart(_result);
+        _view = ViewOf(_result.Network);
+        if (_view == ModeView.Map)
+        {
+            _modeFigures = [.. _result.Modes.Select(MapFigure)];
+            return;
+        }
+        if (_view == ModeView.LargestMotions)
+        {
+            _modeFigures = [.. _result.Modes.Select(LargestMotionsFigure)];
+            return;
+        }
         if (context.Geometry is { } geometry)
         {
             var animateSpatial = geometry.Nodes.Length <= context.Options.MaxAnimatedMasses;
@@ -41,6 +53,50 @@ public sealed class ModesSection : IReportSection
         var animate = layout.Masses.Length <= context.Options.MaxAnimatedMasses;
         _modeFigures = [.. _result.Modes.Select(mode => ModeFigure(mode, layout, scale, animate))];
     }
+
+    /// <summary>Line models with more masses than this get shape maps (or bar charts of the largest motions) and tables of the top contributors instead of schematics.</summary>
+    public const int LargeModelMasses = 60;
+
+    /// <summary>How many contributors each per-mode table lists (masses by |φ| and by kinetic energy, springs by strain energy).</summary>
+    public const int TopContributors = 10;
+
+    /// <summary>How many masses the bar chart of a large model without drawing positions shows.</summary>
+    public const int LargestMotionsShown = 20;
+
+    /// <summary>How the section draws the mode shapes of <paramref name="network"/>.</summary>
+    /// <remarks>
+    /// Plane and 3d models: <see cref="ModeView.Spatial"/>. Line models whose masses all have distinct drawing positions get
+    /// <see cref="ModeView.Map"/> when they have more than <see cref="LargeModelMasses"/> masses or their positions form a
+    /// plan (at least 9 masses over at least 3 distinct x and 3 distinct y values, as a grid does); other line models with
+    /// more than <see cref="LargeModelMasses"/> masses get <see cref="ModeView.LargestMotions"/>; the rest
+    /// <see cref="ModeView.Schematic"/>.
+    /// </remarks>
+    public static ModeView ViewOf(Core.Model.Network network)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        if (network.Space != Core.Model.ModelSpace.Line) return ModeView.Spatial;
+        var masses = network.Masses;
+        var placed = masses.All(m => m.Position is not null)
+            && masses.Select(m => m.Position!.Value).Distinct().Count() == masses.Length;
+        if (placed)
+        {
+            var plan = masses.Length >= 9
+                && masses.Select(m => m.Position!.Value.X).Distinct().Count() >= 3
+                && masses.Select(m => m.Position!.Value.Y).Distinct().Count() >= 3;
+            if (masses.Length > LargeModelMasses || plan) return ModeView.Map;
+        }
+        return masses.Length > LargeModelMasses ? ModeView.LargestMotions : ModeView.Schematic;
+    }
+
+    /// <summary>The indexes of the <paramref name="count"/> largest of <paramref name="keys"/>, largest first (ties: lower index first).</summary>
+    public static ImmutableArray<int> Largest(IReadOnlyList<double> keys, int count)
+    {
+        ArgumentNullException.ThrowIfNull(keys);
+        return [.. Enumerable.Range(0, keys.Count).OrderByDescending(i => keys[i]).ThenBy(i => i).Take(count)];
+    }
+
+    /// <summary>How the mode shapes are drawn (<see cref="ViewOf"/>).</summary>
+    public ModeView View => _view;
 
     /// <summary>The modes the section shows (the lowest <see cref="ReportOptions.MaxModes"/>).</summary>
     public ModalResult Result => _result;
@@ -125,10 +181,19 @@ public sealed class ModesSection : IReportSection
             html.Paragraph("Warning: " + w, "note");
         html.Figure(_massChart);
         html.Heading("Mode shapes");
-        html.Paragraph(_context.Geometry is null
+        html.Paragraph(_view switch
+        {
+            ModeView.Map => string.Create(Inv, $"Each figure is a plan of the {network.Masses.Length} masses at their drawing positions, each mass a square coloured by its value of the mode shape, normalised so that the largest |φ| is +1: vermillion where the mass moves in the positive direction, blue where it moves against it, pale near a node line. The colour bar gives the value of each step; black squares mark masses held by a spring or damper to a support, and rings the largest positive and negative values. A mode has no absolute amplitude: only the ratios between masses are meaningful. Under each figure, the table lists the top {TopContributors} masses by |φ| and by kinetic-energy share and the top {TopContributors} springs by strain-energy share; every value of every mass is in results.json."),
+            ModeView.LargestMotions => string.Create(Inv, $"The model gives no drawing positions, so each figure shows the {LargestMotionsShown} masses that move most in the mode (largest |φ| first, normalised so that the largest is +1), as bars to the right for positive and to the left for negative motion. Under each figure, the table lists the top {TopContributors} masses by |φ| and by kinetic-energy share and the top {TopContributors} springs by strain-energy share; every value of every mass is in results.json."),
+            _ => _context.Geometry is null
             ? "Each figure shows the undeformed network (grey, dashed) and the mode shape (blue, solid). Displacements act in the network's single direction of motion and are drawn across the chain so masses do not overlap; the numbers beside the masses are the normalised amplitudes (largest = +1). A mode has no absolute amplitude: only the ratios between masses are meaningful."
-            : SpatialModesNote);
-        foreach (var figure in _modeFigures) html.Figure(figure);
+            : SpatialModesNote,
+        });
+        for (var k = 0; k < _modeFigures.Length; k++)
+        {
+            html.Figure(_modeFigures[k]);
+            if (_view is ModeView.Map or ModeView.LargestMotions) ContributorsTable(html, _result.Modes[k]);
+        }
     }
 
     /// <inheritdoc />
@@ -142,6 +207,83 @@ public sealed class ModesSection : IReportSection
     private static string Dominant(IReadOnlyList<string> names, ImmutableArray<double> shares, int count) =>
         string.Join(", ", shares.Select((s, i) => (s, i)).OrderByDescending(p => p.s).Take(count).Where(p => p.s > 0.005)
             .Select(p => $"{names[p.i]} {DisplayUnits.Percent(p.s)} %"));
+
+    private void ContributorsTable(HtmlWriter html, Mode mode)
+    {
+        var dofs = _result.Matrices.Dofs.Dofs.Select(d => d.ToString()).ToArray();
+        var springs = _result.Network.Springs;
+        var byMotion = Largest([.. mode.Shape.Select(Math.Abs)], TopContributors);
+        var byKinetic = Largest(mode.KineticEnergyShare, TopContributors);
+        var strained = mode.IsRigidBody || springs.IsEmpty ? [] : Largest(mode.StrainEnergyShare, TopContributors);
+        var peak = mode.Shape.Max(Math.Abs);
+        var what = dofs.Length == _result.Network.Masses.Length ? "masses" : "degrees of freedom";
+        var springPart = springs.IsEmpty ? "the model has no springs"
+            : mode.IsRigidBody ? "no spring is strained in a rigid-body mode"
+            : string.Create(Inv, $"top {strained.Length} of {springs.Length} springs by strain-energy share");
+        var caption = string.Create(Inv,
+            $"Mode {mode.Number} ({DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz): top {byMotion.Length} of {dofs.Length} {what} by |φ| and by kinetic-energy share; {springPart}. Every value is in results.json.");
+        var rows = Enumerable.Range(0, Math.Max(byMotion.Length, strained.Length)).Select(r => (IReadOnlyList<string>)
+        [
+            (r + 1).ToString(Inv),
+            r < byMotion.Length ? dofs[byMotion[r]] : "",
+            r < byMotion.Length ? NetworkFigure.Signed(mode.Shape[byMotion[r]] / peak) : "",
+            r < byKinetic.Length ? dofs[byKinetic[r]] : "",
+            r < byKinetic.Length ? DisplayUnits.Percent(mode.KineticEnergyShare[byKinetic[r]]) : "",
+            r < strained.Length ? springs[strained[r]].Name : "",
+            r < strained.Length ? DisplayUnits.Percent(mode.StrainEnergyShare[strained[r]]) : "",
+        ]);
+        html.Table(caption, ["Rank", "Largest |φ|", "φ (max |φ| = 1)", "Largest kinetic energy", "Share (%)", "Most strained spring", "Share (%)"],
+            rows, new HashSet<int> { 0, 2, 4, 6 }, "contributors-table");
+    }
+
+    private static string ModeSubtitle(Mode mode) =>
+        string.Create(Inv, $"Period {(mode.IsRigidBody ? "none (rigid-body mode)" : DisplayUnits.Number(mode.PeriodSeconds) + " s")}  ·  ω = {DisplayUnits.Number(mode.AngularFrequency)} rad/s  ·  effective mass {DisplayUnits.Percent(mode.EffectiveMassFraction)} % of total (cumulative {DisplayUnits.Percent(mode.CumulativeEffectiveMassFraction)} %)");
+
+    private static string PeriodText(Mode mode) => mode.IsRigidBody ? "rigid-body mode" : "period " + DisplayUnits.Number(mode.PeriodSeconds) + " s";
+
+    private SchematicFigure MapFigure(Mode mode)
+    {
+        var network = _result.Network;
+        var (shape, reference) = Normalised(mode with { Shape = _result.ShapeByMass(mode) });
+        var referenceName = network.Masses[reference].Name;
+        var supported = network.Springs.Select(s => (s.NodeA, s.NodeB)).Concat(network.Dampers.Select(d => (d.NodeA, d.NodeB)))
+            .SelectMany(e => network.IsSupport(e.NodeA) ? [e.NodeB] : network.IsSupport(e.NodeB) ? new[] { e.NodeA } : [])
+            .ToHashSet(StringComparer.Ordinal);
+        var usedSupports = network.Springs.SelectMany(s => new[] { s.NodeA, s.NodeB }).Concat(network.Dampers.SelectMany(d => new[] { d.NodeA, d.NodeB }))
+            .Where(network.IsSupport).ToHashSet(StringComparer.Ordinal);
+        var nodes = network.Masses.Select((m, i) => new MapNode(m.Name, new Point(m.Position!.Value.X, m.Position.Value.Y), shape[i], supported.Contains(m.Name))).ToArray();
+        var supports = network.Supports.Where(s => s.Position is not null && usedSupports.Contains(s.Name))
+            .Select(s => new Point(s.Position!.Value.X, s.Position.Value.Y)).ToArray();
+        string[] header = [ModeTitle(mode), ModeSubtitle(mode)];
+        string[] footer =
+        [
+            $"Plan of the drawing positions (x to the right, y up the page); normalised so that max |φ| = 1 (at {referenceName}).",
+            "Black squares: masses held by a spring or damper to a support; rings: the extreme values.",
+        ];
+        var scene = ShapeMapFigure.Mode(nodes, supports, header, footer);
+        scene = scene with { Data = scene.Data.Add("mode", mode.Number.ToString(Inv)).Add("reference-mass", referenceName) };
+        var caption = string.Create(Inv,
+            $"Mode {mode.Number} at {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz ({PeriodText(mode)}), effective mass {DisplayUnits.Percent(mode.EffectiveMassFraction)} %: the shape as a colour map over the {nodes.Length} masses' drawing positions, normalised to +1 at {referenceName}.");
+        return new SchematicFigure(FigureName(mode.Number), caption, "mode", scene, animated: false);
+    }
+
+    private SchematicFigure LargestMotionsFigure(Mode mode)
+    {
+        var network = _result.Network;
+        var (shape, reference) = Normalised(mode with { Shape = _result.ShapeByMass(mode) });
+        var largest = Largest([.. shape.Select(Math.Abs)], LargestMotionsShown).Select(i => (network.Masses[i].Name, shape[i])).ToArray();
+        string[] header =
+        [
+            ModeTitle(mode),
+            string.Create(Inv, $"The {largest.Length} largest motions of {network.Masses.Length} masses, normalised so that max |φ| = 1 (at {network.Masses[reference].Name})"),
+        ];
+        string[] footer = [ModeSubtitle(mode), "The model gives no drawing positions ('at' or a 'repeat' spacing), so the shape is not drawn as a map."];
+        var scene = Drawing.LargestMotionsFigure.Mode(largest, header, footer);
+        scene = scene with { Data = scene.Data.Add("mode", mode.Number.ToString(Inv)) };
+        var caption = string.Create(Inv,
+            $"Mode {mode.Number} at {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz ({PeriodText(mode)}), effective mass {DisplayUnits.Percent(mode.EffectiveMassFraction)} %: the {largest.Length} masses that move most, of {network.Masses.Length}.");
+        return new SchematicFigure(FigureName(mode.Number), caption, "mode", scene, animated: false);
+    }
 
     private SchematicFigure ModeFigure(Mode mode, NetworkLayout layout, double scale, bool animate)
     {
@@ -254,4 +396,20 @@ public sealed class ModesSection : IReportSection
         model.Legends.Add(new OxyPlot.Legends.Legend { LegendPosition = OxyPlot.Legends.LegendPosition.RightMiddle, LegendPlacement = OxyPlot.Legends.LegendPlacement.Inside, LegendBackground = OxyColor.FromAColor(220, OxyColors.White) });
         return new ChartFigure("effective-mass", "Effective modal mass of each mode (bars) and cumulative share (squares, dashed), in % of the total mass; the thin dashed black line is the 90 % cumulative share that seismic codes ask modal analyses to reach (ASCE 7-16 §12.9.1.1, EN 1998-1 §4.3.3.3.1), shown as a guide to how many modes describe the response.", model, height: 340);
     }
+}
+
+/// <summary>How the modes section draws mode shapes.</summary>
+public enum ModeView
+{
+    /// <summary>The network schematic with the shape drawn across the chain (small line models).</summary>
+    Schematic,
+
+    /// <summary>Plane and 3d models drawn to scale from their locations.</summary>
+    Spatial,
+
+    /// <summary>A colour map of the shape over the masses' drawing positions (large or plan-laid-out line models).</summary>
+    Map,
+
+    /// <summary>Bars of the masses that move most (large line models without drawing positions).</summary>
+    LargestMotions,
 }

@@ -33,11 +33,29 @@ public sealed class ReportContext
         });
         _layout = new Lazy<NetworkLayout>(() => NetworkLayout.For(document.Network));
         _geometry = new Lazy<SpatialGeometry?>(() => document.Network.Space == Core.Model.ModelSpace.Line ? null : SpatialGeometry.For(document.Network));
-        _damped = new Lazy<DampedSystem>(() => DampedSystem.Build(document.Structure, new ModalOptions(Choice: options.Solver)));
+        _damped = new Lazy<DampedSystem>(() => DampedSystem.Build(document.Structure,
+            new ModalOptions(Choice: options.Solver, Count: LowestModesSuffice(document, options) ? options.MaxModes : null)));
         _harmonic = new Lazy<HarmonicResult?>(() =>
             document.Harmonic is { } spec && !document.Structure.Loads.IsEmpty && document.Cases is null ? HarmonicAnalysis.Solve(Damped, spec) : null);
         _loadCases = new Lazy<LoadCaseResult?>(() =>
             document.Harmonic is { } spec && document.Cases is { } cases ? LoadCaseAnalysis.Solve(Damped, spec, cases) : null);
+    }
+
+    /// <summary>Models with more masses than this solve only the lowest <see cref="ReportOptions.MaxModes"/> modes when nothing else in the report needs them all.</summary>
+    public const int PartialSolveAboveMasses = 1000;
+
+    /// <summary>
+    /// True when the report shows nothing but the lowest <see cref="ReportOptions.MaxModes"/> modes (no harmonic sweep,
+    /// transient run, criteria or absorber) of a model with more than <see cref="PartialSolveAboveMasses"/> masses: then
+    /// only those are solved (a sparse shift-invert solve instead of every mode of a dense one; a 10,000-mass grid takes
+    /// seconds instead of many minutes) and the quality figures cover them.
+    /// </summary>
+    public static bool LowestModesSuffice(ModelDocument document, ReportOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(document);
+        ArgumentNullException.ThrowIfNull(options);
+        return document.Network.Masses.Length > PartialSolveAboveMasses && document.Harmonic is null && document.Transient is null
+            && document.Criteria.IsEmpty && options.Absorber is null;
     }
 
     /// <summary>The model as read.</summary>
