@@ -53,7 +53,7 @@ public sealed class AbsorberSection : IReportSection
         if (context.Options.Absorber is not { } asked) return null;
         // The same modal solve as modalchain tune, so that results.json repeats its numbers exactly.
         var modal = ModalAnalysis.Solve(context.Document.Network);
-        var tuned = AbsorberStudy.Run(context.Document.Structure, modal, asked.Request, asked.Optimal, OperatingLoads.Of(context.Document));
+        var tuned = AbsorberStudy.Run(context.Document.Structure, modal, asked.Request, asked.Optimal, OperatingLoads.Of(context.Document), context.Document.Cases);
         return new AbsorberSection(context, tuned);
     }
 
@@ -119,7 +119,7 @@ public sealed class AbsorberSection : IReportSection
             rows.Add(["Fixed-point value √(1 + 2/μ) (undamped single-mode primary)", d.Optimum.PeakAmplification.ToString("F4", Inv)]);
         rows.Add([$"Absorber stroke per unit force at the host ({u.Compliance.Symbol}), at the worst frequency", $"{u.Compliance.Format(a.StrokePerForce)} {u.Compliance.Symbol}"]);
         rows.Add(["Absorber stroke in operation", double.IsFinite(a.OperatingStroke)
-            ? $"{u.Displacement.Format(a.OperatingStroke)} {u.Displacement.Symbol} peak under the model's loads at their running speeds"
+            ? $"{u.Displacement.Format(a.OperatingStroke)} {u.Displacement.Symbol} peak {a.OperatingStrokeBasis}"
             : "not computed: no load of the model has a running speed"]);
         if (Tuned.Improvement is { } improvement) rows.Add(["Optimal tuning", improvement]);
         html.Table("Effect on the host", ["Quantity", "Value"], rows, new HashSet<int>(), "absorber-effect");
