@@ -106,7 +106,7 @@ internal static class StudyCommand
                     StudyCsv.Write(io.Output, result, UnitTable.SiSymbol(parameter.Quantity));
                     break;
                 default:
-                    WriteTable(io.Output, document, result, a, CommonOptions.UnitsOf(parse, units, document));
+                    WriteTable(io.Output, document, result, CommonOptions.UnitsOf(parse, units, document));
                     break;
             }
             return ExitCodes.Success;
@@ -127,9 +127,18 @@ internal static class StudyCommand
         return value;
     }
 
-    private static void WriteTable(TextWriter o, ModelDocument document, StudyResult result, CommandValue unit, Reports.Units.DisplayUnits units)
+    private static void WriteTable(TextWriter o, ModelDocument document, StudyResult result, Reports.Units.DisplayUnits units)
     {
         var req = result.Request;
+        // The varied value in the unit every other table shows its kind in (the file's own unit, kN/mm staying kN/mm, or
+        // the system of --units), not in whatever unit --from happened to be typed in.
+        var shown = req.Parameter.Quantity switch
+        {
+            Quantity.Mass => units.MassUnit,
+            Quantity.Stiffness => units.StiffnessUnit,
+            _ => units.DampingUnit,
+        };
+        var unit = new CommandValue(0, shown.Plain, shown.Factor);
         o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine($"Study of {req.Parameter.Text} from {unit.Show(req.From)} to {unit.Show(req.To)}, {req.Steps} values ({req.Spacing.ToString().ToLowerInvariant()})");
         o.WriteLine("Modes are followed by shape (modal assurance criterion); 'mode k' is the mode numbered k at the first value.");

@@ -33,6 +33,10 @@ internal static class TransientCommand
             "Modal method: keep the lowest N modes (overrides the file's 'modes'; default: all, or the lowest 30 above 300 masses).", 1);
         var loadsOption = CommonOptions.NameList("--loads",
             "Run with these timed loads only, e.g. --loads fan-start,door-slam (names joined by commas, or the option repeated); overrides 'loads' of the file's 'transient' section.");
+        var casesOption = CommonOptions.NameList("--cases",
+            "Run with the loads of these load cases (under 'load-cases'), e.g. --cases exhaust-fan: each harmonic load acts as its steady sinusoid " +
+            "at its running speed, switched on at t = 0 from the initial state, with the phases written (several cases act together); " +
+            "added to the timed loads of --loads, in place of the file's transient loads.");
         var solver = CommonOptions.Solver();
         var units = CommonOptions.Units();
         var command = new Command("transient",
@@ -41,7 +45,7 @@ internal static class TransientCommand
             "of each output mass, spring and damper forces and support reactions, with their peaks and RMS and an energy " +
             "balance. The run comes from the file's 'transient' section; the options override it. A progress bar is shown " +
             "on long runs, only on a terminal and only with the table format.")
-        { file, method, step, duration, outputs, count, loadsOption, solver, format, units };
+        { file, method, step, duration, outputs, count, loadsOption, casesOption, solver, format, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -79,6 +83,24 @@ internal static class TransientCommand
             }
 
             var loadNames = spec.Loads;
+            var chosenCases = CommonOptions.Names(parse.GetValue(casesOption));
+            var caseLoads = new List<TransientExcitation>();
+            if (chosenCases.Length > 0)
+            {
+                if (document.LoadCases.IsEmpty)
+                    return Fail(io, $"--cases names load cases, but {path} has no 'load-cases' section (see docs/model-format.md)");
+                foreach (var name in chosenCases.Where(n => document.LoadCases.All(c => c.Name != n)))
+                    return Fail(io, $"--cases names '{name}', which is not a load case of the model; the load cases are: {string.Join(", ", document.LoadCases.Select(c => c.Name))}");
+                foreach (var loadName in chosenCases.SelectMany(n => document.LoadCases.First(c => c.Name == n).Loads).Distinct())
+                {
+                    var load = document.Structure.FindLoad(loadName)!;
+                    if (load.SpeedHz is not > 0)
+                        return Fail(io, $"--cases: load '{loadName}' has no running speed ('speed:'), so it has no frequency to act at in time; give it one, or run it in the harmonic response");
+                    caseLoads.AddRange(SteadyLoadHistories.Of(load));
+                }
+                // The cases replace the file's transient loads; --loads adds timed loads to them.
+                loadNames = [];
+            }
             if (CommonOptions.Names(parse.GetValue(loadsOption)) is { Length: > 0 } chosenLoads)
             {
                 var timed = document.TimedLoads.Select(l => l.Name).Distinct().ToArray();
@@ -90,9 +112,11 @@ internal static class TransientCommand
                 }
                 loadNames = [.. chosenLoads];
             }
-            var loads = loadNames.IsEmpty
-                ? document.TimedLoads.ToList()
-                : loadNames.SelectMany(n => document.TimedLoads.Where(l => l.Name == n)).ToList(); // an unbalance turning in a plane is two histories of one name
+            var loads = !loadNames.IsEmpty
+                ? loadNames.SelectMany(n => document.TimedLoads.Where(l => l.Name == n)).ToList() // an unbalance turning in a plane is two histories of one name
+                : chosenCases.Length > 0 ? new List<TransientExcitation>()
+                : document.TimedLoads.ToList();
+            loads.AddRange(caseLoads);
             if (loads.Count == 0 && spec.Initial.IsEmpty)
                 return Fail(io, $"{path}: nothing to respond to; give loads a 'time' function (see docs/model-format.md) or 'initial' conditions under 'transient'");
 

@@ -62,7 +62,7 @@ internal static class TuneCommand
             var request = AbsorberArguments.Request(modal, parse.GetValue(host)!, parse.GetValue(ratio)!, parse.GetValue(mode), excitations.Value,
                 parse.GetValue(target), io, parse.GetValue(tolerance));
             if (request is null) return ExitCodes.InputError;
-            var tuned = AbsorberStudy.Run(document.Structure, modal, request, AbsorberArguments.IsOptimal(parse.GetValue(method)), OperatingLoads.Of(document));
+            var tuned = AbsorberStudy.Run(document.Structure, modal, request, AbsorberArguments.IsOptimal(parse.GetValue(method)), OperatingLoads.Of(document), document.Cases);
             var (design, names, assessment, improvement) = (tuned.Design, tuned.Names, tuned.Assessment, tuned.Improvement);
 
             if (parse.GetValue(write) is { } output)
@@ -190,7 +190,7 @@ internal static class TuneCommand
             o.WriteLine(string.Create(Inv, $"  at {sp.FrequencyHz,8:G6} Hz         {Peak(sp.Before)} before, {Peak(sp.After)} after (running speed x order)"));
         o.WriteLine(string.Create(Inv, $"  absorber stroke       {units.Compliance.From(a.StrokePerForce):G4} {units.Compliance.Plain} (stroke per force at the host), at {a.PeakFrequencyHz:F3} Hz (relative to the host)"));
         o.WriteLine(double.IsFinite(a.OperatingStroke)
-            ? string.Create(Inv, $"  stroke in operation   {units.Displacement.From(a.OperatingStroke):G4} {units.Displacement.Plain} peak under the model's loads at their running speeds")
+            ? string.Create(Inv, $"  stroke in operation   {units.Displacement.From(a.OperatingStroke):G4} {units.Displacement.Plain} peak {a.OperatingStrokeBasis}")
             : "  stroke in operation   not computed: no load of the model has a running speed");
         if (improvement is not null) o.WriteLine($"  optimal tuning:       {improvement}");
         o.WriteLine("  mistuning (absorber frequency off, same mass and damping ratio):");

@@ -92,7 +92,7 @@ public static class TuneJson
             }
             w.WriteEndArray();
             w.Number("stroke_m", a.OperatingStroke);
-            w.WriteString("stroke_basis", "peak relative displacement of the absorber to the host under the model's loads at their running speeds; null when no load has a speed");
+            w.WriteString("stroke_basis", $"peak relative displacement of the absorber to the host {a.OperatingStrokeBasis}; null when no load has a speed");
             w.Number("stroke_per_force_m_per_n", a.StrokePerForce);
             w.WriteString("stroke_per_force_basis", "per newton of harmonic force at the host, at the frequency of the worst peak");
             w.WriteStartArray("mistuning");

@@ -13,7 +13,8 @@ namespace ModalChain.Reports.Figures;
 /// <remarks>
 /// The SVG that SkiaSharp writes has no viewBox, numbers its clip paths from 1 in every file (so two charts inline in
 /// one HTML page would share ids) and leaves a trailing separator in per-glyph position lists; <see cref="Svg"/> fixes
-/// all three so the chart scales with the page and renders the same in every browser.
+/// all three so the chart scales with the page and renders the same in every browser. Its <see cref="CurveLabel"/>s are
+/// placed once, at the chart's size, by <see cref="ChartLabels.Place"/>: inside the plot area and clear of each other.
 /// </remarks>
 public sealed partial class ChartFigure : ReportFigure
 {
@@ -29,6 +30,7 @@ public sealed partial class ChartFigure : ReportFigure
         Height = height;
         Charts.ApplyFont(model);
         CleanTexts(model);
+        ChartLabels.Place(model, width, height);
         _svg = new Lazy<string>(Export);
     }
 
@@ -48,9 +50,15 @@ public sealed partial class ChartFigure : ReportFigure
     /// <inheritdoc />
     public override void WritePdf(Stream stream)
     {
-        // Text shaping needs HarfBuzz's native library, which the Linux no-dependency assets do not ship; plain glyph runs suffice for labels.
-        var exporter = new OxyPlot.SkiaSharp.PdfExporter { Width = (float)Width, Height = (float)Height, UseTextShaping = false };
-        lock (Model.SyncRoot) exporter.Export(Model, stream);
+        // A page of the chart's size at 72 points per inch (0.75 point per user unit), laid out exactly as the SVG.
+        const float pointsPerUnit = 0.75f;
+        using var document = SkiaSharp.SKDocument.CreatePdf(stream);
+        using var canvas = document.BeginPage((float)Width * pointsPerUnit, (float)Height * pointsPerUnit);
+        canvas.Clear(Background);
+        canvas.Scale(pointsPerUnit);
+        Draw(canvas);
+        document.EndPage();
+        document.Close();
     }
 
     /// <inheritdoc />
@@ -61,10 +69,18 @@ public sealed partial class ChartFigure : ReportFigure
     {
         ArgumentNullException.ThrowIfNull(canvas);
         // The same render context the PDF exporter uses, on a canvas the caller placed; DpiScale 1 keeps user units.
-        using var context = new OxyPlot.SkiaSharp.SkiaRenderContext
+        Render(canvas);
+    }
+
+    /// <summary>Renders the chart onto <paramref name="canvas"/> in user units, every text kept as text (see <see cref="TextKeepingRenderContext"/>).</summary>
+    private void Render(SkiaSharp.SKCanvas canvas)
+    {
+        // Text shaping needs HarfBuzz's native library, which the Linux no-dependency assets do not ship; plain glyph runs suffice for labels.
+        using var skia = new OxyPlot.SkiaSharp.SkiaRenderContext
         {
             RenderTarget = OxyPlot.SkiaSharp.RenderTarget.VectorGraphic, SkCanvas = canvas, UseTextShaping = false, DpiScale = 1,
         };
+        var context = new TextKeepingRenderContext(skia);
         lock (Model.SyncRoot)
         {
             ((IPlotModel)Model).Update(true);
@@ -72,11 +88,16 @@ public sealed partial class ChartFigure : ReportFigure
         }
     }
 
+    private SkiaSharp.SKColor Background => new(Model.Background.R, Model.Background.G, Model.Background.B, Model.Background.A);
+
     private string Export()
     {
         using var buffer = new MemoryStream();
-        var exporter = new OxyPlot.SkiaSharp.SvgExporter { Width = (float)Width, Height = (float)Height };
-        lock (Model.SyncRoot) exporter.Export(Model, buffer);
+        using (var canvas = SkiaSharp.SKSvgCanvas.Create(new SkiaSharp.SKRect(0, 0, (float)Width, (float)Height), buffer))
+        {
+            canvas.Clear(Background);
+            Render(canvas);
+        }
         var document = XDocument.Parse(Encoding.UTF8.GetString(buffer.ToArray()));
         var root = document.Root ?? throw new InvalidOperationException("The chart exporter wrote an empty SVG.");
         XNamespace svg = "http://www.w3.org/2000/svg";

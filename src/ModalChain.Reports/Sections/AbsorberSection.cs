@@ -7,6 +7,7 @@ using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 using ModalChain.Io.Json;
 using ModalChain.Io.Model;
+using ModalChain.Reports.Drawing;
 using ModalChain.Reports.Figures;
 using ModalChain.Reports.Html;
 using ModalChain.Reports.Units;
@@ -52,7 +53,7 @@ public sealed class AbsorberSection : IReportSection
         if (context.Options.Absorber is not { } asked) return null;
         // The same modal solve as modalchain tune, so that results.json repeats its numbers exactly.
         var modal = ModalAnalysis.Solve(context.Document.Network);
-        var tuned = AbsorberStudy.Run(context.Document.Structure, modal, asked.Request, asked.Optimal, OperatingLoads.Of(context.Document));
+        var tuned = AbsorberStudy.Run(context.Document.Structure, modal, asked.Request, asked.Optimal, OperatingLoads.Of(context.Document), context.Document.Cases);
         return new AbsorberSection(context, tuned);
     }
 
@@ -118,7 +119,7 @@ public sealed class AbsorberSection : IReportSection
             rows.Add(["Fixed-point value √(1 + 2/μ) (undamped single-mode primary)", d.Optimum.PeakAmplification.ToString("F4", Inv)]);
         rows.Add([$"Absorber stroke per unit force at the host ({u.Compliance.Symbol}), at the worst frequency", $"{u.Compliance.Format(a.StrokePerForce)} {u.Compliance.Symbol}"]);
         rows.Add(["Absorber stroke in operation", double.IsFinite(a.OperatingStroke)
-            ? $"{u.Displacement.Format(a.OperatingStroke)} {u.Displacement.Symbol} peak under the model's loads at their running speeds"
+            ? $"{u.Displacement.Format(a.OperatingStroke)} {u.Displacement.Symbol} peak {a.OperatingStrokeBasis}"
             : "not computed: no load of the model has a running speed"]);
         if (Tuned.Improvement is { } improvement) rows.Add(["Optimal tuning", improvement]);
         html.Table("Effect on the host", ["Quantity", "Value"], rows, new HashSet<int>(), "absorber-effect");
@@ -166,6 +167,7 @@ public sealed class AbsorberSection : IReportSection
         // An undamped primary's curve rises without bound near f_p: cap the axis so the absorber's two peaks stay readable.
         if (double.IsFinite(withTop) && Finite(without).DefaultIfEmpty(0).Max() > 30 * withTop) amplification.Maximum = 30 * withTop;
         var ceiling = double.IsFinite(amplification.Maximum) ? amplification.Maximum : double.PositiveInfinity;
+        var labels = new List<CurveLabel>();
         foreach (var (title, values, index) in new[] { ("without absorber", without, 1), ("with absorber", with, 0) })
         {
             var line = new LineSeries { Title = title };
@@ -174,27 +176,54 @@ public sealed class AbsorberSection : IReportSection
                 line.Points.Add(new DataPoint(frequencies[i], double.IsFinite(values[i]) && values[i] > 0 ? values[i] : double.NaN));
             model.Series.Add(line);
             // Each curve is named beside it (OxyPlot's SVG export drew only the first entry of a legend): the absorber's curve
-            // at its highest point, the bare structure's where its rising flank passes twice that height (or at its highest point).
+            // preferably at its highest point, the bare structure's where its rising flank passes twice that height (or at
+            // its highest point); ChartLabels moves a label along its curve where that place has no room.
             var drawn = line.Points.Where(p => double.IsFinite(p.Y) && p.Y <= ceiling).ToList();
             if (drawn.Count == 0) continue;
             var at = index == 1 && double.IsFinite(withTop) && drawn.FirstOrDefault(p => p.Y >= 2 * withTop) is { } flank && flank.IsDefined() && flank.Y >= 2 * withTop
                 ? flank
                 : drawn.MaxBy(p => p.Y);
-            model.Annotations.Add(new OxyPlot.Annotations.TextAnnotation
+            var start = drawn.IndexOf(at);
+            labels.Add(new CurveLabel(title, line.Color)
             {
-                Text = title,
-                TextPosition = at,
-                TextColor = line.Color,
-                Stroke = OxyColors.Transparent,
-                FontSize = 10,
-                TextVerticalAlignment = VerticalAlignment.Bottom,
-                TextHorizontalAlignment = index == 0 ? HorizontalAlignment.Left : HorizontalAlignment.Right,
-                Offset = new ScreenVector(index == 0 ? 6 : -6, -4),
+                Anchors = [.. drawn.Select((p, i) => (p, i)).Where(q => q.i % 3 == 0 || q.i == start).OrderBy(q => Math.Abs(q.i - start)).Select(q => q.p)],
             });
         }
+        foreach (var (speedHz, text) in SpeedMarkers(lo, hi))
+        {
+            model.Annotations.Add(new OxyPlot.Annotations.LineAnnotation
+            {
+                Type = OxyPlot.Annotations.LineAnnotationType.Vertical,
+                X = speedHz,
+                Color = OxyColor.Parse(Palette.Orange),
+                LineStyle = LineStyle.DashDot,
+                StrokeThickness = 1.2,
+            });
+            labels.Add(new CurveLabel(text, OxyColor.Parse(Palette.Black)) { AlongX = speedHz });
+        }
+        foreach (var label in labels) model.Annotations.Add(label);
         var caption = string.Create(Inv,
             $"Dynamic amplification of {d.Host} for a harmonic force there, without the absorber (dashed) and with it (solid); mode {d.ModeNumber} at {DisplayUnits.Number(d.ModeFrequencyHz)} Hz, absorber tuned to {DisplayUnits.Number(d.FrequencyHz)} Hz.");
+        if (model.Annotations.OfType<OxyPlot.Annotations.LineAnnotation>().Any()) caption += " Running speeds (× order) in the band: dash-dot orange.";
         return new ChartFigure(FigureName, caption, model);
+    }
+
+    /// <summary>
+    /// The excitation frequencies of the design inside the chart's band, each with its label: "running speed 24.67 Hz (1480 rpm)",
+    /// or "2 × running speed 49 Hz (2 × 1470 rpm)" for a higher order of criteria.separation.
+    /// </summary>
+    private IEnumerable<(double FrequencyHz, string Text)> SpeedMarkers(double lo, double hi)
+    {
+        var named = new List<(double FrequencyHz, double Order)>();
+        if (_context.Document.Criteria.Separation is { } separation)
+            named.AddRange(separation.Excitations().Select(e => (e.FrequencyHz, e.Order)));
+        foreach (var excitation in Tuned.Design.ExcitationsHz.Where(f => f >= lo && f <= hi).Distinct().Order())
+        {
+            var order = named.Where(n => Math.Abs(n.FrequencyHz - excitation) <= 1e-9 * excitation).Select(n => n.Order).DefaultIfEmpty(1).Min();
+            var hz = DisplayUnits.Number(excitation);
+            var rpm = (excitation / order * 60).ToString("0.#", Inv);
+            yield return (excitation, order == 1 ? $"running speed {hz} Hz ({rpm} rpm)" : string.Create(Inv, $"{order:G6} × running speed {hz} Hz ({order:G6} × {rpm} rpm)"));
+        }
     }
 
     private static IEnumerable<double> Finite(double[] values) => values.Where(v => double.IsFinite(v) && v > 0);

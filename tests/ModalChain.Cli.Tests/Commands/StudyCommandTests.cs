@@ -31,6 +31,25 @@ public class StudyCommandTests
     }
 
     [Fact]
+    public void Table_ShowsTheVariedValueInTheFilesUnit_OrTheUnitsOfUnits()
+    {
+        // The model writes stiffness in kN/mm; --from and --to typed in kN/m. 40 000 kN/m = 40 kN/mm and
+        // 1 lbf/in = 4.4482216152605 N / 0.0254 m = 175.126835 N/m (exact definitions of the pound-force and inch;
+        // common practice), so 40 kN/mm = 228 406 lbf/in to six digits.
+        var path = CommandRun.Deck("68 kN/mm");
+        var si = CommandRun.Of("study", path, "--vary", "springs.beams.stiffness", "--from", "40000 kN/m", "--to", "140000 kN/m", "--steps", "3");
+        Assert.Equal(0, si.ExitCode);
+        Assert.Contains("Study of springs.beams.stiffness from 40 kN/mm to 140 kN/mm", si.Output, StringComparison.Ordinal);
+        Assert.Contains("springs.beams.stiffness [kN/mm]", si.Output, StringComparison.Ordinal);
+        Assert.Matches(@"\n\s+40\s+\d", si.Output);
+        Assert.DoesNotContain("kN/m ", si.Output, StringComparison.Ordinal);
+        var imperial = CommandRun.Of("study", path, "--vary", "springs.beams.stiffness", "--from", "40000 kN/m", "--to", "140000 kN/m", "--steps", "3", "--units", "imperial");
+        Assert.Equal(0, imperial.ExitCode);
+        Assert.Contains("springs.beams.stiffness [lbf/in]", imperial.Output, StringComparison.Ordinal);
+        Assert.Matches(@"\n\s+228406\s+\d", imperial.Output);
+    }
+
+    [Fact]
     public void Csv_HasOneRowPerValue()
     {
         var run = CommandRun.Of("study", CommandRun.Deck("68 kN/mm"), "--vary", "masses.fan.mass", "--from", "200 kg", "--to", "800 kg", "--steps", "7", "--format", "csv");

@@ -191,4 +191,92 @@ public sealed class TransientCommandTests : IDisposable
         Assert.Equal(ExitCodes.Success, ok);
         Assert.Equal(1002, output.TrimEnd('\n').Split('\n').Length);
     }
+
+    private const string OneMassWithCases = """
+        title: one mass with load cases
+        masses:
+          m: 100 kg
+        springs:
+          k: {between: [ground, m], stiffness: 98696 N/m}
+        damping:
+          modal: 20 %
+        loads:
+          push: {kind: force, at: m, amplitude: 1 kN, phase: 30 deg, speed: 7 Hz}
+          idle: {kind: force, at: m, amplitude: 1 kN}
+          drop: {kind: force, at: m, time: {kind: step, value: 2 kN, at: 0.1 s}}
+        load-cases:
+          run: [push]
+          still: [idle]
+        transient:
+          duration: 1 s
+          step: 1 ms
+          loads: [drop]
+        """;
+
+    [Fact]
+    public void Cases_RunTheCaseLoadsAsTheirSteadySinusoid_ReachingTheHarmonicSteadyState()
+    {
+        // A single degree of freedom (m = 100 kg, k = 98 696 N/m, so f_n ≈ 5 Hz; ζ = 20 %) under F cos(Ωt + φ), F = 1 kN,
+        // φ = 30°, Ω = 2π·7 Hz, switched on at t = 0 from rest. The start-up transient decays as e^{−ζω_n t} (≈ e^{−25} by
+        // 4 s), leaving the closed-form steady state x(t) = Re(X e^{iΩt}), X = F e^{iφ}/(k − mΩ² + icΩ), c = 2ζ√(km)
+        // (REFERENCES §4, common practice). Tolerance 1e-4 of |X|: the exact method holds the load linear over a step,
+        // an error of about (Ωh)²/12 ≈ 1e-5 with h = 0.25 ms.
+        var path = Model("one-mass-cases.yaml", OneMassWithCases);
+        var (code, output, error) = Run("transient", path, "--cases", "run", "--duration", "4 s", "--step", "0.25 ms", "--method", "exact", "--format", "json");
+        Assert.True(code == ExitCodes.Success, error);
+        using var json = JsonDocument.Parse(output);
+        var root = json.RootElement;
+        Assert.Equal(["push"], root.GetProperty("loads").EnumerateArray().Select(e => e.GetString()!).ToArray());
+        var times = root.GetProperty("time_s").EnumerateArray().Select(e => e.GetDouble()).ToArray();
+        var x = root.GetProperty("responses").EnumerateArray()
+            .Single(r => r.GetProperty("dof").GetString() == "m" && r.GetProperty("quantity").GetString() == "displacement")
+            .GetProperty("values").EnumerateArray().Select(e => e.GetDouble()).ToArray();
+        const double m = 100, k = 98696, zeta = 0.2, f = 1000, phi = Math.PI / 6;
+        var omega = 2 * Math.PI * 7;
+        var c = 2 * zeta * Math.Sqrt(k * m);
+        var steady = System.Numerics.Complex.FromPolarCoordinates(f, phi) / new System.Numerics.Complex(k - m * omega * omega, c * omega);
+        var checkedSamples = 0;
+        for (var i = 0; i < times.Length; i++)
+        {
+            if (times[i] < 3.5) continue;
+            var expected = (steady * System.Numerics.Complex.FromPolarCoordinates(1, omega * times[i])).Real;
+            NumericAssert.Close(expected, x[i], Tolerance.Abs(1e-4 * steady.Magnitude), $"x at t = {times[i]} s");
+            checkedSamples++;
+        }
+        Assert.True(checkedSamples > 400, $"{checkedSamples} samples checked");
+    }
+
+    [Fact]
+    public void Cases_ReplaceTheFileLoads_AndAddToLoadsGivenOnTheCommandLine()
+    {
+        var path = Model("one-mass-cases.yaml", OneMassWithCases);
+        var alone = Run("transient", path, "--cases", "run", "--format", "json");
+        Assert.True(alone.Code == ExitCodes.Success, alone.Err);
+        using (var json = JsonDocument.Parse(alone.Out))
+            Assert.Equal(["push"], json.RootElement.GetProperty("loads").EnumerateArray().Select(e => e.GetString()!).ToArray());
+        var both = Run("transient", path, "--cases", "run", "--loads", "drop", "--format", "json");
+        Assert.True(both.Code == ExitCodes.Success, both.Err);
+        using (var json = JsonDocument.Parse(both.Out))
+            Assert.Equal(["drop", "push"], json.RootElement.GetProperty("loads").EnumerateArray().Select(e => e.GetString()!).ToArray());
+    }
+
+    [Theory]
+    [InlineData("nope", "--cases names 'nope', which is not a load case of the model; the load cases are: run, still")]
+    [InlineData("still", "--cases: load 'idle' has no running speed")]
+    public void Cases_UnknownOrWithoutASpeed_IsAnInputError(string name, string message)
+    {
+        var path = Model("one-mass-cases.yaml", OneMassWithCases);
+        var (code, output, error) = Run("transient", path, "--cases", name);
+        Assert.Equal(ExitCodes.InputError, code);
+        Assert.Equal("", output);
+        Assert.Contains(message, error, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void Cases_OnAModelWithoutLoadCases_IsAnInputError()
+    {
+        var (code, _, error) = Run("transient", Example, "--cases", "anything");
+        Assert.Equal(ExitCodes.InputError, code);
+        Assert.Contains("has no 'load-cases' section", error, StringComparison.Ordinal);
+    }
 }

@@ -4,6 +4,7 @@ using ModalChain.Io.Model;
 using ModalChain.Reports.Figures;
 using ModalChain.Reports.Sections;
 using ModalChain.TestSupport;
+using OxyPlot.Annotations;
 using OxyPlot.Series;
 
 namespace ModalChain.Reports.Tests.Sections;
@@ -93,6 +94,67 @@ public sealed class AbsorberSectionTests
         var dashed = figure.Model.Series.OfType<LineSeries>().Single(s => s.Title == "without absorber");
         Assert.NotNull(dashed.Dashes);
         Assert.Contains(report.Figures, f => f.Name == "absorber-response");
+    }
+
+    [Fact]
+    public void ResponseChart_MarksTheRunningSpeedInTheBand_AndItsLabelsAreTextInsideThePlotAndApart()
+    {
+        // 1470 rpm = 24.5 Hz (common practice: f = n/60), near mode 2 (26.1 Hz by the closed form above), so inside the band.
+        var document = Repository.Parse(Model);
+        var report = ReportBuilder.Build(document, WithAbsorber(document));
+        var section = Assert.Single(report.Sections.OfType<AbsorberSection>());
+        var figure = Assert.IsType<ChartFigure>(Assert.Single(section.Figures));
+        var (lo, hi) = section.Tuned.Assessment.BandHz;
+        Assert.InRange(24.5, lo, hi);
+        var markers = figure.Model.Annotations.OfType<LineAnnotation>().Where(a => a.Type == LineAnnotationType.Vertical).Select(a => a.X).ToList();
+        Assert.Equal(section.Tuned.Design.ExcitationsHz.Where(f => f >= lo && f <= hi).Order(), markers.Order());
+        Assert.Contains(markers, x => Math.Abs(x - 24.5) < 1e-9);
+        var root = SvgAssert.WellFormedWithViewBox(figure.Svg(standalone: true));
+        Assert.Contains("running speed 24.50 Hz (1470 rpm)", SvgAssert.Texts(root), StringComparer.Ordinal);
+        SvgAssert.LabelsInsideAndApart(root, figure.Width, figure.Height, "with absorber", "without absorber", "running speed 24.50 Hz");
+        Assert.All(figure.Model.Annotations.OfType<CurveLabel>(), l => Assert.True(l.Placed));
+    }
+
+    public static IEnumerable<object[]> LineModels() => Repository.ModelFiles()
+        .Where(m => Repository.Load((string)m[0]).Network.Space == ModalChain.Core.Model.ModelSpace.Line);
+
+    [Theory]
+    [MemberData(nameof(LineModels))]
+    public void EveryExampleModel_AbsorberChartLabelsAreTextInsideThePlotAndApart(string model)
+    {
+        // The absorber on the heaviest mass of each example (the host an engineer would try first; common practice), 5 %.
+        var document = Repository.Load(model);
+        var host = document.Network.Masses.MaxBy(m => m.Kilograms)!.Name;
+        var options = Plain with { Absorber = new AbsorberReportRequest(new AbsorberRequest(host, 0.05, null, OperatingLoads.AbsorberExcitations(document)), false) };
+        var section = Assert.Single(ReportBuilder.Build(document, options).Sections.OfType<AbsorberSection>());
+        var figure = Assert.IsType<ChartFigure>(Assert.Single(section.Figures));
+        var root = SvgAssert.WellFormedWithViewBox(figure.Svg(standalone: true));
+        var (lo, hi) = section.Tuned.Assessment.BandHz;
+        var speeds = section.Tuned.Design.ExcitationsHz.Where(f => f >= lo && f <= hi).Select(_ => "running speed").Take(1);
+        SvgAssert.LabelsInsideAndApart(root, figure.Width, figure.Height, ["with absorber", "without absorber", .. speeds]);
+    }
+
+    [Fact]
+    public void ChartTexts_StayTextAfterADashedLine()
+    {
+        // Skia's SVG device writes text drawn with a dash pattern as glyph outlines; the title is drawn after the dashed
+        // curve and marker and must still be a <text> element, with no glyph outline (a path placed by a translate) left.
+        var model = Charts.Create("Title after dashes", "subtitle");
+        model.Axes.Add(Charts.Linear(OxyPlot.Axes.AxisPosition.Bottom, "x (–)", 0, 10));
+        model.Axes.Add(Charts.Linear(OxyPlot.Axes.AxisPosition.Left, "y (–)", 0, 10));
+        var dashed = new LineSeries { Title = "dashed" };
+        Charts.Style(dashed, 1);
+        dashed.Points.Add(new OxyPlot.DataPoint(0, 1));
+        dashed.Points.Add(new OxyPlot.DataPoint(10, 9));
+        model.Series.Add(dashed);
+        model.Annotations.Add(new LineAnnotation { Type = LineAnnotationType.Vertical, X = 5, LineStyle = OxyPlot.LineStyle.DashDot, Text = "marker" });
+        var figure = new ChartFigure("dashes", "caption", model);
+        var root = SvgAssert.WellFormedWithViewBox(figure.Svg(standalone: true));
+        var texts = SvgAssert.Texts(root);
+        Assert.Contains("Title after dashes", texts);
+        Assert.Contains("subtitle", texts);
+        Assert.Contains("marker", texts);
+        Assert.DoesNotContain(root.Descendants(Repository.Svg + "path"), p => (p.Attribute("transform")?.Value ?? "").StartsWith("translate(", StringComparison.Ordinal));
     }
 
     [Fact]

@@ -36,8 +36,11 @@ public sealed record AbsorberAssessment(
     (double Low, double High) BandHz, double PeakBefore, double PeakAfter, double PeakFrequencyHz, double StrokePerForce,
     ImmutableArray<MistuningPoint> Mistuning)
 {
-    /// <summary>Peak stroke in m under the model's own loads at their running speeds; NaN when no load has a speed.</summary>
+    /// <summary>Peak stroke in m under the model's own loads at their running speeds (or its load cases combined by their rule); NaN when no load has a speed.</summary>
     public double OperatingStroke { get; init; } = double.NaN;
+
+    /// <summary>What <see cref="OperatingStroke"/> was computed under, in words ("the model's loads at their running speeds", or the load cases and their rule).</summary>
+    public string OperatingStrokeBasis { get; init; } = AbsorberPerformance.LoadsBasis;
 
     /// <summary>The mode (of the model without the absorber) the peak after belongs to, by <see cref="AbsorberPerformance.Owner"/>: the controlled one unless no peak in the band is its.</summary>
     public int PeakAfterMode { get; init; }

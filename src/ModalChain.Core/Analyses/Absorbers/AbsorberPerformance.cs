@@ -289,7 +289,7 @@ public static class AbsorberPerformance
         return (chosen.Design, chosen.Value, evaluations);
     }
 
-    /// <summary>The absorber's stroke (peak relative displacement to the host, m) under the model's own loads at their running speeds.</summary>
+    /// <summary>The absorber's stroke (peak relative displacement to the host, m) under the model's own loads at their running speeds (a model without load cases).</summary>
     /// <remarks>Loads are grouped by speed as for vibration limits; strokes at distinct speeds add as a peak bound Σ|X_a − X_h|. NaN when no load has a speed.</remarks>
     public static double OperatingStroke(StructuralModel model, AbsorberDesign design, AbsorberNames names, IReadOnlyList<Load> loads)
     {
@@ -306,6 +306,40 @@ public static class AbsorberPerformance
             stroke += (r[1] - r[0]).Magnitude;
         }
         return stroke;
+    }
+
+    /// <summary>What the stroke in operation is computed under for a model without load cases.</summary>
+    public const string LoadsBasis = "under the model's loads at their running speeds";
+
+    /// <summary>What the stroke in operation is computed under for <paramref name="cases"/>, e.g. "under the load cases exhaust-fan, supply-fan, each on its own at its running speeds, combined by the sum rule".</summary>
+    public static string CasesBasis(LoadCaseSelection cases)
+    {
+        ArgumentNullException.ThrowIfNull(cases);
+        return $"under the load case{(cases.Cases.Length == 1 ? "" : "s")} {string.Join(", ", cases.Cases.Select(c => c.Name))}, each on its own at its running speeds, combined by the {LoadCaseSelection.Name(cases.Rule)} rule";
+    }
+
+    /// <summary>
+    /// The absorber's stroke (m) under the model's load cases: each case on its own at its running speeds, the cases'
+    /// components combined by the selection's rule as the vibration limits combine them (<see cref="Criteria.LoadCaseLimits"/>).
+    /// </summary>
+    /// <remarks>
+    /// Within a case the loads running at one speed act together (complex sum) and give one component of the relative
+    /// displacement, s_k = |X_a − X_h|; components of different cases (or speeds) are combined as amplitudes, Σ s_k by the
+    /// sum rule (a bound of the peak stroke) or √(Σ s_k²) by the rms rule (<see cref="Harmonic.LoadCaseAnalysis.Combine"/>).
+    /// Two cases running at the same speed are not added as complex amplitudes: their phases are unrelated. NaN when no
+    /// case has a load with a speed.
+    /// </remarks>
+    public static double OperatingStroke(StructuralModel model, AbsorberDesign design, AbsorberNames names, LoadCaseSelection cases)
+    {
+        ArgumentNullException.ThrowIfNull(design);
+        ArgumentNullException.ThrowIfNull(names);
+        ArgumentNullException.ThrowIfNull(cases);
+        var system = DampedSystem.Build(With(model, design, names));
+        var components = LoadCaseAnalysis.Components(system, cases, [design.Host, names.Mass]);
+        var host = components[design.Host];
+        var mass = components[names.Mass];
+        if (host.Count == 0) return double.NaN;
+        return LoadCaseAnalysis.Combine(host.Zip(mass, (h, a) => (a.Displacement - h.Displacement).Magnitude), cases.Rule);
     }
 
     /// <summary><paramref name="model"/> with the absorber of <paramref name="design"/> attached.</summary>

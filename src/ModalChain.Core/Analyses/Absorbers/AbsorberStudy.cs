@@ -31,8 +31,9 @@ public static class AbsorberStudy
     /// <param name="modal">Its modes (mass-normalised shapes).</param>
     /// <param name="request">A request with no <see cref="AbsorberTuning.Problems"/>.</param>
     /// <param name="optimal">True to refine the closed form numerically on the full model (band target); the running-speed target is always numerical.</param>
-    /// <param name="operatingLoads">Loads whose running speeds give the stroke in operation.</param>
-    public static TunedAbsorber Run(StructuralModel structure, ModalResult modal, AbsorberRequest request, bool optimal, IReadOnlyList<Load> operatingLoads)
+    /// <param name="operatingLoads">Loads whose running speeds give the stroke in operation (used when <paramref name="cases"/> is null).</param>
+    /// <param name="cases">The model's load cases and their rule, or null: when set, the stroke in operation is each case's on its own, combined by the rule.</param>
+    public static TunedAbsorber Run(StructuralModel structure, ModalResult modal, AbsorberRequest request, bool optimal, IReadOnlyList<Load> operatingLoads, LoadCaseSelection? cases = null)
     {
         ArgumentNullException.ThrowIfNull(structure);
         ArgumentNullException.ThrowIfNull(request);
@@ -79,7 +80,10 @@ public static class AbsorberStudy
         }
         var assessment = AbsorberPerformance.Assess(structure, design, names) with
         {
-            OperatingStroke = AbsorberPerformance.OperatingStroke(structure, design, names, operatingLoads),
+            OperatingStroke = cases is null
+                ? AbsorberPerformance.OperatingStroke(structure, design, names, operatingLoads)
+                : AbsorberPerformance.OperatingStroke(structure, design, names, cases),
+            OperatingStrokeBasis = cases is null ? AbsorberPerformance.LoadsBasis : AbsorberPerformance.CasesBasis(cases),
         };
         return new TunedAbsorber(design, method, names, assessment, improvement)
         {
