@@ -11,7 +11,7 @@ internal static class SpatialSupport
     /// <summary>
     /// The message refusing <paramref name="command"/> on <paramref name="document"/>, or null when the command runs on it
     /// (always for line models). modes, validate, harmonic and report run on plane and 3d models; transient runs free
-    /// vibration and loads that carry a direction; check runs separation criteria; tune and study are refused.
+    /// vibration and loads that carry a direction; check runs separation criteria; study runs; tune is refused.
     /// </summary>
     public static string? Refusal(ModelDocument document, string command)
     {
@@ -21,7 +21,6 @@ internal static class SpatialSupport
         return command switch
         {
             "tune" => $"{document.File}: absorber design ('tune') is not supported for {space} models yet: a tuned mass acts along one line, and choosing its direction on a rigid body is not implemented; design it on a line model of the host's dominant motion",
-            "study" => $"{document.File}: parameter studies ('study') are not supported for {space} models yet: stepping a spring's stiffness per direction and tracking coupled modes is not implemented",
             "check" when !document.Criteria.Limits.IsDefaultOrEmpty || !document.Criteria.Zones.IsDefaultOrEmpty || !document.Criteria.Floors.IsDefaultOrEmpty =>
                 $"{document.File}: vibration limits, machine zones and floor criteria are not supported for {space} models yet (they name a mass but not the direction to check); only the 'separation' criterion is checked on {space} models",
             "transient" when document.TimedLoads.FirstOrDefault(Undirected) is { } load =>
