@@ -150,4 +150,28 @@ public class ModelsEndToEndTests
         var table = Run("modes", path, "--count", "1");
         Assert.Contains(" 1 mode", table.Stdout, StringComparison.Ordinal);
     }
+
+    [Theory]
+    [MemberData(nameof(CliRun.Models), MemberType = typeof(CliRun))]
+    public void Study_FollowsEveryMode_AndItsFirstValueGivesTheModesOfTheModel(string model)
+    {
+        // Line, plane and 3d models alike: vary the first spring with a stiffness (its scale in space, every direction
+        // in proportion) from its own value up 20 %. The first value is the model itself, so its frequencies must be
+        // those of 'modes' (identity); every DOF's mode is tracked, and named by its motion exactly in plane and 3d models.
+        var n = Network(model);
+        var spring = n.Springs.FirstOrDefault(s => s.Stiffness > 0);
+        if (spring is null) return; // nothing to vary by this rule
+        string F(double v) => v.ToString("R", CultureInfo.InvariantCulture);
+        var o = Run("study", ModelPath(model), "--vary", $"springs.{spring.Name}.stiffness", "--from", F(spring.Stiffness), "--to", F(1.2 * spring.Stiffness),
+            "--steps", "3", "--format", "json");
+        Assert.True(o.ExitCode is 0 or 1, o.ToString());
+        using var json = JsonDocument.Parse(o.Stdout);
+        var tracked = json.RootElement.GetProperty("modes").EnumerateArray().ToArray();
+        Assert.Equal(DofMap.For(n).Count, tracked.Length);
+        using var modes = JsonDocument.Parse(Run("modes", ModelPath(model), "--format", "json").Stdout);
+        var expected = modes.RootElement.GetProperty("modes").EnumerateArray().Select(m => m.GetProperty("frequency_hz").GetDouble()).ToArray();
+        var first = tracked.Select(m => m.GetProperty("frequency_hz")[0].GetDouble()).ToArray();
+        NumericAssert.Close(expected, first, Tolerance.Rel(1e-12), "the study's first value against modes");
+        Assert.All(tracked, m => Assert.Equal(n.Space != ModelSpace.Line, m.TryGetProperty("motion", out _)));
+    }
 }

@@ -36,11 +36,6 @@ internal static class CheckCommand
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            if (SpatialSupport.Refusal(document, "check") is { } refusal)
-            {
-                io.Error.WriteLine($"modalchain: error: {refusal}");
-                return ExitCodes.InputError;
-            }
             if (document.Criteria.IsEmpty)
             {
                 io.Error.WriteLine($"{path}: error: the model has no 'criteria' section, so there is nothing to check (see docs/model-format.md)");

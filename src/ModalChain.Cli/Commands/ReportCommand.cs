@@ -44,14 +44,6 @@ internal static class ReportCommand
             }
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            // The report runs the check, the transient and the absorber design the model (or the options) ask for: a plane
-            // or 3d model stops here when one of them is not supported for it yet, as the command itself would.
-            var sections = new[] { ("check", !document.Criteria.IsEmpty), ("transient", document.Transient is not null), ("tune", parse.GetValue(absorberHost) is not null) };
-            if (sections.Where(x => x.Item2).Select(x => SpatialSupport.Refusal(document, x.Item1)).FirstOrDefault(r => r is not null) is { } refusal)
-            {
-                io.Error.WriteLine($"modalchain: error: {refusal}");
-                return ExitCodes.InputError;
-            }
             if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
             if (!Generated(io, out var generated)) return ExitCodes.InputError;
             var options = new ReportOptions(CliApp.Version, generated, parse.GetValue(units), parse.GetValue(modes) ?? 20) { Solver = choice };

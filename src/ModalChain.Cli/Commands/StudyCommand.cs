@@ -33,12 +33,14 @@ internal static class StudyCommand
         var vary = new Option<string>("--vary")
         {
             Description = "The numeric field to vary, as section.name.field: masses.NAME.mass, springs.NAME.stiffness or " +
-                          "dampers.NAME.coefficient. 'speed' instead gives the speed-frequency chart (natural frequencies " +
-                          "against running speed with the order lines and their crossings).",
+                          "dampers.NAME.coefficient. In plane and 3d models also bodies.NAME.mass (inertia kept), one direction " +
+                          "(springs.NAME.stiffness.z, springs.NAME.rotational-stiffness.rx, dampers.NAME.coefficient.x) or " +
+                          "springs.NAME.axial; springs.NAME.stiffness then scales every direction in proportion. 'speed' instead " +
+                          "gives the speed-frequency chart (natural frequencies against running speed with the order lines and their crossings).",
             Required = true,
         };
         const string fieldUnits = "A number with an optional unit of the varied field's kind; a bare number is in the field's SI unit " +
-                                  "(kg for a mass, N/m for a stiffness, N*s/m for a damping coefficient, Hz for speed), which the output states.";
+                                  "(kg for a mass, N/m for a stiffness, N*s/m for a damping coefficient, N*m/rad and N*m*s/rad for rotational ones, Hz for speed), which the output states.";
         var from = new Option<string>("--from") { Description = "First value, e.g. '50 kN/mm' (for speed: '0 rpm'). " + fieldUnits, HelpName = "value", Required = true };
         var to = new Option<string>("--to") { Description = "Last value, e.g. '200 kN/mm'. " + fieldUnits, HelpName = "value", Required = true };
         var steps = CommandValues.Count("--steps", "Number of values including both ends (at least 2; default 31).", 2);
@@ -57,11 +59,6 @@ internal static class StudyCommand
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            if (SpatialSupport.Refusal(document, "study") is { } refusal)
-            {
-                io.Error.WriteLine($"modalchain: error: {refusal}");
-                return ExitCodes.InputError;
-            }
             var varied = parse.GetValue(vary)!;
             if (varied == "speed")
                 return SpeedChart(document, parse.GetValue(from)!, parse.GetValue(to)!, parse.GetValue(steps) ?? DefaultSteps, parse.GetValue(orders), parse.GetValue(format), io);
@@ -80,7 +77,9 @@ internal static class StudyCommand
             var operatingLoads = OperatingLoads.Of(document).Where(l => l.SpeedHz is > 0).ToArray();
             if (!document.Criteria.Limits.IsDefaultOrEmpty)
             {
-                if (operatingLoads.Length == 0)
+                if (document.Network.Space != ModelSpace.Line)
+                    io.Error.WriteLine("note: the model's vibration limits are not followed: limits on plane and 3d models are not supported yet (they name a mass, not a direction); only the separation criterion is.");
+                else if (operatingLoads.Length == 0)
                     io.Error.WriteLine("note: the model's vibration limits are not followed: no load has a running speed, so there is no operating point.");
                 else
                     foreach (var limit in document.Criteria.Limits)
@@ -161,6 +160,14 @@ internal static class StudyCommand
         var crossings = result.Modes.Where(m => m.ModeNumbers.Distinct().Count() > 1).ToList();
         foreach (var m in crossings)
             o.WriteLine($"mode {m.Identity} changes its frequency rank during the study (numbers {string.Join(", ", m.ModeNumbers.Distinct())}): it crosses another mode.");
+        if (result.Modes.Any(m => !m.Motions.IsDefaultOrEmpty))
+        {
+            if (crossings.Count > 0) o.WriteLine();
+            o.WriteLine("Motion of each mode (the direction carrying most of its kinetic energy; arrows where it changes during the study):");
+            foreach (var m in result.Modes)
+                o.WriteLine($"  mode {m.Identity}: {string.Join(" -> ", Changes(m.Motions))}");
+            o.WriteLine();
+        }
         var weak = result.Modes.Where(m => m.WorstMac < 0.8).ToList();
         foreach (var m in weak)
             o.WriteLine(string.Create(Inv, $"warning: mode {m.Identity} changes shape strongly between steps (MAC down to {m.WorstMac:F2}); use more steps to follow it with confidence."));
@@ -179,6 +186,10 @@ internal static class StudyCommand
         o.WriteLine();
         o.WriteLine("Caution: " + Cautions.Text);
     }
+
+    /// <summary>The motions in order with repeats of a neighbour left out: [a, a, b, b, a] gives [a, b, a].</summary>
+    private static IEnumerable<string> Changes(ImmutableArray<string> motions) =>
+        motions.Where((m, i) => i == 0 || m != motions[i - 1]);
 
     private static int SpeedChart(ModelDocument document, string fromText, string toText, int points, string? ordersText, OutputFormat format, Streams io)
     {

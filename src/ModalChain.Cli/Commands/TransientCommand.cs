@@ -51,11 +51,6 @@ internal static class TransientCommand
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            if (SpatialSupport.Refusal(document, "transient") is { } refusal)
-            {
-                io.Error.WriteLine($"modalchain: error: {refusal}");
-                return ExitCodes.InputError;
-            }
             if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
             var spec = document.Transient;
             var stepValue = parse.GetValue(step);

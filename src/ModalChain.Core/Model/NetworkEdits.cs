@@ -15,22 +15,87 @@ public static class NetworkEdits
         return Copy(network, masses: network.Masses.SetItem(i, network.Masses[i] with { Kilograms = kilograms }));
     }
 
+    /// <summary>A copy in which rigid body <paramref name="name"/> weighs <paramref name="kilograms"/> kg; its centre of mass and inertia are kept.</summary>
+    public static Network WithBodyMass(this Network network, string name, double kilograms)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        Guard.Positive(kilograms, nameof(kilograms));
+        var i = IndexOf(network.Bodies, b => b.Name == name, "body", name);
+        return Copy(network, bodies: network.Bodies.SetItem(i, network.Bodies[i] with { Kilograms = kilograms }));
+    }
+
     /// <summary>A copy in which spring <paramref name="name"/> has stiffness <paramref name="stiffness"/> N/m.</summary>
+    /// <remarks>
+    /// A per-direction spring (plane and 3d models) has its scale, the largest translational component, set to
+    /// <paramref name="stiffness"/> and every component, rotations included, multiplied by the same factor.
+    /// </remarks>
+    /// <exception cref="ArgumentException">A per-direction spring whose scale is 0 (no translational stiffness above zero) asked for a non-zero value.</exception>
     public static Network WithSpringStiffness(this Network network, string name, double stiffness)
     {
         ArgumentNullException.ThrowIfNull(network);
         Guard.NonNegative(stiffness, nameof(stiffness));
         var i = IndexOf(network.Springs, s => s.Name == name, "spring", name);
-        return Copy(network, springs: network.Springs.SetItem(i, network.Springs[i] with { Stiffness = stiffness }));
+        var spring = network.Springs[i];
+        var components = Scaled(spring.Components, spring.Stiffness, stiffness, "spring", name);
+        return Copy(network, springs: network.Springs.SetItem(i, spring with { Stiffness = stiffness, Components = components }));
+    }
+
+    /// <summary>A copy in which per-direction spring <paramref name="name"/> has <paramref name="value"/> (N/m, or N·m/rad for a rotation) in <paramref name="direction"/>; its other directions are kept.</summary>
+    /// <exception cref="ArgumentException">The spring has no component in <paramref name="direction"/>.</exception>
+    public static Network WithSpringComponent(this Network network, string name, Dofs.Direction direction, double value)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        Guard.NonNegative(value, nameof(value));
+        var i = IndexOf(network.Springs, s => s.Name == name, "spring", name);
+        var spring = network.Springs[i];
+        var components = WithComponent(spring.Components, direction, value, "spring", name);
+        return Copy(network, springs: network.Springs.SetItem(i, spring with { Stiffness = Scale(components), Components = components }));
     }
 
     /// <summary>A copy in which damper <paramref name="name"/> has coefficient <paramref name="coefficient"/> N·s/m.</summary>
+    /// <remarks>A per-direction damper has every component scaled in proportion, as <see cref="WithSpringStiffness"/> does.</remarks>
     public static Network WithDamperCoefficient(this Network network, string name, double coefficient)
     {
         ArgumentNullException.ThrowIfNull(network);
         Guard.NonNegative(coefficient, nameof(coefficient));
         var i = IndexOf(network.Dampers, d => d.Name == name, "damper", name);
-        return Copy(network, dampers: network.Dampers.SetItem(i, network.Dampers[i] with { Coefficient = coefficient }));
+        var damper = network.Dampers[i];
+        var components = Scaled(damper.Components, damper.Coefficient, coefficient, "damper", name);
+        return Copy(network, dampers: network.Dampers.SetItem(i, damper with { Coefficient = coefficient, Components = components }));
+    }
+
+    /// <summary>A copy in which per-direction damper <paramref name="name"/> has <paramref name="value"/> (N·s/m, or N·m·s/rad for a rotation) in <paramref name="direction"/>.</summary>
+    public static Network WithDamperComponent(this Network network, string name, Dofs.Direction direction, double value)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        Guard.NonNegative(value, nameof(value));
+        var i = IndexOf(network.Dampers, d => d.Name == name, "damper", name);
+        var damper = network.Dampers[i];
+        var components = WithComponent(damper.Components, direction, value, "damper", name);
+        return Copy(network, dampers: network.Dampers.SetItem(i, damper with { Coefficient = Scale(components), Components = components }));
+    }
+
+    /// <summary>The scale of per-direction values: the largest translational one (0 when there is none), as the model reader sets it.</summary>
+    private static double Scale(ImmutableArray<DirectionalValue> components) =>
+        components.Where(c => !c.Direction.IsRotation()).Select(c => c.Value).DefaultIfEmpty(0).Max();
+
+    private static ImmutableArray<DirectionalValue> Scaled(ImmutableArray<DirectionalValue> components, double from, double to, string kind, string name)
+    {
+        if (components.IsDefaultOrEmpty || from == to) return components;
+        if (!(from > 0))
+        {
+            if (to == 0) return components;
+            throw new ArgumentException($"The {kind} '{name}' has no translational value above zero to scale; set one direction instead.", nameof(name));
+        }
+        var factor = to / from;
+        return [.. components.Select(c => c with { Value = c.Value * factor })];
+    }
+
+    private static ImmutableArray<DirectionalValue> WithComponent(ImmutableArray<DirectionalValue> components, Dofs.Direction direction, double value, string kind, string name)
+    {
+        for (var j = 0; j < (components.IsDefault ? 0 : components.Length); j++)
+            if (components[j].Direction == direction) return components.SetItem(j, new DirectionalValue(direction, value));
+        throw new ArgumentException($"The {kind} '{name}' has no value in direction {direction}.", nameof(direction));
     }
 
     /// <summary>A copy with elements appended after the existing ones; references and names are checked as by <see cref="NetworkBuilder"/>.</summary>
@@ -54,8 +119,8 @@ public static class NetworkEdits
     }
 
     private static Network Copy(Network n, ImmutableArray<Mass>? masses = null, ImmutableArray<Spring>? springs = null,
-        ImmutableArray<Damper>? dampers = null) =>
-        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers) { Links = n.Links, Space = n.Space, Bodies = n.Bodies, Inerters = n.Inerters };
+        ImmutableArray<Damper>? dampers = null, ImmutableArray<RigidBody>? bodies = null) =>
+        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers) { Links = n.Links, Space = n.Space, Bodies = bodies ?? n.Bodies, Inerters = n.Inerters };
 
     private static int IndexOf<T>(ImmutableArray<T> items, Func<T, bool> match, string kind, string name)
     {

@@ -30,6 +30,13 @@ public static class StudyJson
             foreach (var n in m.ModeNumbers) w.WriteNumberValue(n);
             w.WriteEndArray();
             w.Array("mac_to_previous", m.Mac);
+            if (!m.Motions.IsDefaultOrEmpty)
+            {
+                // Plane and 3d models: the mode's motion name at each value.
+                w.WriteStartArray("motion");
+                foreach (var name in m.Motions) w.WriteStringValue(name);
+                w.WriteEndArray();
+            }
             w.WriteEndObject();
         }
         w.WriteEndArray();

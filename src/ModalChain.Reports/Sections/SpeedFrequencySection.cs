@@ -74,7 +74,7 @@ public sealed class SpeedFrequencySection : IReportSection
         else
             html.Table("Crossings (speeds at which an order meets a natural frequency)", ["Mode", "Order", "Speed (rpm)", "Speed (Hz)", "Frequency (Hz)"],
                 _chart.Crossings.Select(c => (IReadOnlyList<string>)
-                    [c.ModeNumber.ToString(Inv), DisplayUnits.Given(c.Order) + "×", DisplayUnits.Number(c.SpeedHz * 60), DisplayUnits.Number(c.SpeedHz), DisplayUnits.Number(c.FrequencyHz)]),
+                    [ModeLabel(c.ModeNumber), DisplayUnits.Given(c.Order) + "×", DisplayUnits.Number(c.SpeedHz * 60), DisplayUnits.Number(c.SpeedHz), DisplayUnits.Number(c.FrequencyHz)]),
                 new HashSet<int> { 0, 2, 3, 4 });
         html.Figure(_figure);
     }
@@ -88,6 +88,12 @@ public sealed class SpeedFrequencySection : IReportSection
         using var parsed = JsonDocument.Parse(buffer.ToArray());
         parsed.RootElement.WriteTo(json);
     }
+
+    /// <summary>The mode's number, with its motion (bounce, roll, ...) in plane and 3d models: "3 (bounce)".</summary>
+    private string ModeLabel(int number) =>
+        _context.Damped.Modes.Modes.FirstOrDefault(m => m.Number == number)?.Motion is { Length: > 0 } motion
+            ? string.Create(Inv, $"{number} ({motion})")
+            : number.ToString(Inv);
 
     private ChartFigure BuildFigure()
     {
@@ -126,7 +132,7 @@ public sealed class SpeedFrequencySection : IReportSection
                 Color = OxyColor.Parse(Palette.Blue),
                 StrokeThickness = 1.6,
                 LineStyle = LineStyle.Solid,
-                Text = string.Create(Inv, $"mode {_chart.ModeNumbers[i]}: {DisplayUnits.Number(_chart.NaturalFrequenciesHz[i])} Hz"),
+                Text = string.Create(Inv, $"mode {ModeLabel(_chart.ModeNumbers[i])}: {DisplayUnits.Number(_chart.NaturalFrequenciesHz[i])} Hz"),
                 TextColor = OxyColor.Parse(Palette.Blue),
                 TextHorizontalAlignment = HorizontalAlignment.Left,
                 TextLinePosition = 0.01,

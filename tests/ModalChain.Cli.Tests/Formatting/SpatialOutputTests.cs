@@ -176,18 +176,9 @@ public class SpatialOutputTests
     }
 
     [Fact]
-    public void CommandsNotYetWorkingOnSpatialModels_RefuseWithAMessage()
+    public void OutputNames_OnSpatialModels_AreDofLabelsMassesOrBodies()
     {
         var document = Document();
-        Assert.Null(SpatialSupport.Refusal(document, "tune")); // tune takes a point and a translation as host on plane and 3d models
-        Assert.Contains("parameter studies ('study') are not supported for plane models", SpatialSupport.Refusal(document, "study"), StringComparison.Ordinal);
-        Assert.Null(SpatialSupport.Refusal(document, "harmonic"));
-        Assert.Null(SpatialSupport.Refusal(document, "transient"));
-        Assert.Null(SpatialSupport.Refusal(document, "check"));
-        var limits = new CriteriaSet(null, [new VibrationLimit("skid", Core.Analyses.Harmonic.ResponseQuantity.Displacement, AmplitudeMeasure.Peak, 1e-4)]);
-        Assert.Null(SpatialSupport.Refusal(Document(limits), "check"));
-        var directed = new ForceHistory("knock", "skid", 1, new StepFunction(1, 0)) { Direction = Direction.X };
-        Assert.Null(SpatialSupport.Refusal(Document(null, directed), "transient"));
         Assert.Equal(["nowhere"], SpatialSupport.UnknownOutputs(document.Network, ["skid", "skid.ry", "nowhere"]));
     }
 }

@@ -90,8 +90,8 @@ public class OutputSchemaTests
         "harmonic" => d.Harmonic is not null,
         "transient" => d.Transient is not null,
         "check" => !d.Criteria.IsEmpty,
-        // tune and study refuse plane and 3d models for now (exit 2, tested in SpatialOutputTests).
-        "tune" or "study" or "study-speed" => d.Network.Space == ModelSpace.Line,
+        // tune refuses plane and 3d models for now (exit 2, tested in SpatialOutputTests).
+        "tune" => d.Network.Space == ModelSpace.Line,
         _ => true,
     };
 
@@ -101,7 +101,11 @@ public class OutputSchemaTests
         var d = Document(model);
         if (!Applies(d, command)) return null;
         var path = ModelPath(model);
-        var first = d.Network.Masses.FirstOrDefault() ?? new Mass("none", 1); // tune and study run on line models only (Applies)
+        var first = d.Network.Masses.FirstOrDefault() ?? new Mass("none", 1); // tune runs on line models only (Applies)
+        // study varies the first mass, or in a model of rigid bodies only the first body's mass.
+        var (varied, kilograms) = d.Network.Masses.IsEmpty && !d.Network.Bodies.IsEmpty
+            ? ($"bodies.{d.Network.Bodies[0].Name}.mass", d.Network.Bodies[0].Kilograms)
+            : ($"masses.{first.Name}.mass", first.Kilograms);
         string F(double v) => v.ToString("R", CultureInfo.InvariantCulture);
         string[] args = command switch
         {
@@ -110,7 +114,7 @@ public class OutputSchemaTests
             "transient" => ["transient", path, "--duration", "1 s", "--format", "json"],
             "check" => ["check", path, "--format", "json"],
             "tune" => ["tune", path, "--host", first.Name, "--mass-ratio", "5 %", "--format", "json"],
-            "study" => ["study", path, "--vary", $"masses.{first.Name}.mass", "--from", F(0.8 * first.Kilograms), "--to", F(1.2 * first.Kilograms), "--steps", "3", "--format", "json"],
+            "study" => ["study", path, "--vary", varied, "--from", F(0.8 * kilograms), "--to", F(1.2 * kilograms), "--steps", "3", "--format", "json"],
             "study-speed" => ["study", path, "--vary", "speed", "--from", "0", "--to", "1500 rpm", "--steps", "3", "--format", "json"],
             "report" => [],
             _ => throw new ArgumentOutOfRangeException(nameof(command), command, null),

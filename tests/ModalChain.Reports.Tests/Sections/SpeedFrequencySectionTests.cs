@@ -36,6 +36,26 @@ public sealed class SpeedFrequencySectionTests
     }
 
     [Fact]
+    public void In3dModels_CrossingsAndFrequencyLinesNameTheMotion()
+    {
+        // A point mass on a z spring only, in a 3d model: bounce at 10 Hz (f = √(k/m)/2π, closed form), met by 1× at 600 rpm.
+        const string model = """
+            title: one bounce mode in space
+            space: 3d
+            masses: {m: {mass: 100 kg, at: [0, 0, 1], directions: [z]}}
+            springs: {k: {between: [ground, m], stiffness: {z: 394784.176 N/m}}}
+            criteria:
+              separation: {margin: 20 %, speeds: [600 rpm], orders: [1]}
+            """;
+        var report = ReportBuilder.Build(Repository.Parse(model), Options);
+        var section = Assert.IsType<SpeedFrequencySection>(report.Sections.Single(s => s.Key == "speed_frequency"));
+        NumericAssert.Close(10.0, section.Data.Crossings.Single().SpeedHz, Tolerance.Rel(1e-9), "1× crossing speed (Hz)");
+        var texts = SvgAssert.Texts(SvgAssert.WellFormedWithViewBox(report.Figures.OfType<ChartFigure>().Single(f => f.Name == "speed-frequency").Svg(true)));
+        Assert.Contains(texts, t => t.StartsWith("mode 1 (bounce): 10", StringComparison.Ordinal));
+        Assert.Contains("1 (bounce)", report.Html, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void ModelWithoutRunningSpeed_HasNoChart() =>
         Assert.DoesNotContain(ReportBuilder.Build(Repository.UniformChain(2, 1, 100), Options).Sections, s => s.Key == "speed_frequency");
 }

@@ -63,12 +63,19 @@ public static class SeparationCheck
     }
 
     /// <summary>Per mode of <paramref name="modal"/>, the share of its kinetic energy carried by <paramref name="masses"/>:
-    /// Σ m_k φ_k² over those masses divided by Σ m φ² over every mass; null when no mass is named.</summary>
+    /// Σ m_k φ_k² over those masses divided by Σ m φ² over every mass (plane and 3d models: the kinetic-energy shares of their DOFs,
+    /// bodies counted in the whole); null when no mass is named.</summary>
     public static ImmutableArray<double>? ExemptShares(ModalResult modal, IReadOnlyCollection<string> masses)
     {
         ArgumentNullException.ThrowIfNull(modal);
         ArgumentNullException.ThrowIfNull(masses);
         if (masses.Count == 0) return null;
+        if (modal.Network.Space != Model.ModelSpace.Line)
+        {
+            // Plane and 3d models: the named masses' DOFs' kinetic-energy shares (which sum to 1 over every DOF, bodies included).
+            var dofs = modal.Matrices.Dofs.Dofs;
+            return [.. modal.Modes.Select(mode => Enumerable.Range(0, dofs.Length).Where(i => masses.Contains(dofs[i].Node)).Sum(i => mode.KineticEnergyShare[i]))];
+        }
         var named = modal.Network.Masses.Select(m => masses.Contains(m.Name)).ToArray();
         var kilograms = modal.Network.Masses.Select(m => m.Kilograms).ToArray();
         return [.. modal.Modes.Select(mode =>

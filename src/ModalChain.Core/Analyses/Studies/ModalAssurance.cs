@@ -29,6 +29,41 @@ public static class ModalAssurance
         return aa > 0 && bb > 0 ? ab * ab / (aa * bb) : 0;
     }
 
+    /// <summary>The mass-weighted MAC of <paramref name="a"/> and <paramref name="b"/> with the full mass matrix <paramref name="mass"/> (kg, kg·m on rotations): (aᵀMb)² / ((aᵀMa)(bᵀMb)).</summary>
+    /// <remarks>For any DOF vector: translations and rotations alike, with a body's inertia coupling its rotations.</remarks>
+    public static double Criterion(IReadOnlyList<double> a, IReadOnlyList<double> b, Matrix<double> mass)
+    {
+        ArgumentNullException.ThrowIfNull(a);
+        ArgumentNullException.ThrowIfNull(b);
+        ArgumentNullException.ThrowIfNull(mass);
+        if (a.Count != b.Count) throw new ArgumentException($"Shapes have {a.Count} and {b.Count} entries.", nameof(b));
+        if (mass.RowCount != a.Count || mass.ColumnCount != a.Count) throw new ArgumentException($"M is {mass.RowCount}×{mass.ColumnCount} but the shapes have {a.Count} entries.", nameof(mass));
+        var va = Vector<double>.Build.DenseOfEnumerable(a);
+        var vb = Vector<double>.Build.DenseOfEnumerable(b);
+        var ma = mass * va;
+        var mb = mass * vb;
+        return Weighted(va * mb, va * ma, vb * mb);
+    }
+
+    /// <summary>The matrix MAC[i, j] between <paramref name="first"/>[i] and <paramref name="second"/>[j], weighted by the full mass matrix <paramref name="mass"/>.</summary>
+    public static Matrix<double> Matrix(IReadOnlyList<IReadOnlyList<double>> first, IReadOnlyList<IReadOnlyList<double>> second, Matrix<double> mass)
+    {
+        ArgumentNullException.ThrowIfNull(first);
+        ArgumentNullException.ThrowIfNull(second);
+        ArgumentNullException.ThrowIfNull(mass);
+        var a = first.Select(x => Vector<double>.Build.DenseOfEnumerable(x)).ToArray();
+        var b = second.Select(x => Vector<double>.Build.DenseOfEnumerable(x)).ToArray();
+        if (a.Concat(b).Any(v => v.Count != mass.RowCount) || mass.RowCount != mass.ColumnCount)
+            throw new ArgumentException($"M is {mass.RowCount}×{mass.ColumnCount}, which does not match every shape.", nameof(mass));
+        // M b once per shape: the matrix costs one product per shape, not one per pair.
+        var mb = b.Select(v => mass * v).ToArray();
+        var aa = a.Select(v => v * (mass * v)).ToArray();
+        var bb = b.Select((v, j) => v * mb[j]).ToArray();
+        return Matrix<double>.Build.Dense(a.Length, b.Length, (i, j) => Weighted(a[i] * mb[j], aa[i], bb[j]));
+    }
+
+    private static double Weighted(double ab, double aa, double bb) => aa > 0 && bb > 0 ? ab * ab / (aa * bb) : 0;
+
     /// <summary>The matrix MAC[i, j] between shapes <paramref name="first"/>[i] and <paramref name="second"/>[j].</summary>
     public static Matrix<double> Matrix(IReadOnlyList<IReadOnlyList<double>> first, IReadOnlyList<IReadOnlyList<double>> second,
         IReadOnlyList<double>? massDiagonal = null) =>

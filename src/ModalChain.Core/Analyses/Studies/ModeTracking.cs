@@ -22,8 +22,24 @@ public static class ModeTracking
         ArgumentNullException.ThrowIfNull(previous);
         ArgumentNullException.ThrowIfNull(next);
         if (previous.Count != next.Count) throw new ArgumentException($"Steps have {previous.Count} and {next.Count} modes.", nameof(next));
-        var n = previous.Count;
-        var mac = ModalAssurance.Matrix(previous, next, massDiagonal);
+        return Greedy(ModalAssurance.Matrix(previous, next, massDiagonal), previousHz, nextHz);
+    }
+
+    /// <summary>As the other overload, with the MAC weighted by the full mass matrix <paramref name="mass"/> (kg; any DOF vector, rotations and coupled inertia included).</summary>
+    public static (int[] Next, double[] Mac) Pair(
+        IReadOnlyList<IReadOnlyList<double>> previous, IReadOnlyList<double> previousHz,
+        IReadOnlyList<IReadOnlyList<double>> next, IReadOnlyList<double> nextHz,
+        MathNet.Numerics.LinearAlgebra.Matrix<double> mass)
+    {
+        ArgumentNullException.ThrowIfNull(previous);
+        ArgumentNullException.ThrowIfNull(next);
+        if (previous.Count != next.Count) throw new ArgumentException($"Steps have {previous.Count} and {next.Count} modes.", nameof(next));
+        return Greedy(ModalAssurance.Matrix(previous, next, mass), previousHz, nextHz);
+    }
+
+    private static (int[] Next, double[] Mac) Greedy(MathNet.Numerics.LinearAlgebra.Matrix<double> mac, IReadOnlyList<double> previousHz, IReadOnlyList<double> nextHz)
+    {
+        var n = mac.RowCount;
         var candidates = new List<(double Mac, double Shift, int I, int J)>(n * n);
         for (var i = 0; i < n; i++)
             for (var j = 0; j < n; j++)

@@ -1,3 +1,5 @@
+using System.Collections.Immutable;
+using ModalChain.Core.Dofs;
 using ModalChain.Core.Model;
 using ModalChain.Core.Units;
 
@@ -8,38 +10,58 @@ public enum ParameterKind
 {
     /// <summary>masses.NAME.mass, kg.</summary>
     Mass,
-    /// <summary>springs.NAME.stiffness, N/m.</summary>
+    /// <summary>springs.NAME.stiffness (or one direction of it), N/m or N·m/rad.</summary>
     Stiffness,
-    /// <summary>dampers.NAME.coefficient, N·s/m.</summary>
+    /// <summary>dampers.NAME.coefficient (or one direction of it), N·s/m or N·m·s/rad.</summary>
     DamperCoefficient,
+    /// <summary>bodies.NAME.mass, kg (plane and 3d models); the body's inertia is kept.</summary>
+    BodyMass,
 }
 
 /// <summary>A numeric field of a network addressed as in the model file: <c>section.name.field</c>.</summary>
 /// <param name="Kind">What the field is.</param>
 /// <param name="Element">The element's name.</param>
+/// <remarks>
+/// <para>In plane and 3d models a spring or damper acts per direction or along its axis. <c>springs.NAME.stiffness</c>
+/// then varies the spring's scale (its largest translational stiffness, or its axial stiffness) and multiplies every
+/// component, rotations included, by the same factor; <c>springs.NAME.stiffness.z</c> and
+/// <c>springs.NAME.rotational-stiffness.rx</c> vary one component and keep the others; <c>springs.NAME.axial</c> names
+/// an axial spring's stiffness. Dampers alike with <c>coefficient</c>, <c>rotational-coefficient</c> and <c>axial</c>.
+/// <c>bodies.NAME.mass</c> varies a rigid body's mass and keeps its inertia matrix and centre of mass.</para>
+/// </remarks>
 public sealed record ParameterPath(ParameterKind Kind, string Element)
 {
+    /// <summary>The one direction varied of a per-direction spring or damper; null for the whole element.</summary>
+    public Direction? Component { get; init; }
+
+    /// <summary>True when the path was written with the field <c>axial</c> (an axial spring or damper).</summary>
+    public bool Axial { get; init; }
+
     private static readonly (string Section, string Field, ParameterKind Kind, string[] OtherFields)[] Sections =
     [
-        ("masses", "mass", ParameterKind.Mass, ["at"]),
+        ("masses", "mass", ParameterKind.Mass, ["at", "directions"]),
+        ("bodies", "mass", ParameterKind.BodyMass, ["centre-of-mass", "inertia", "principal-inertia", "box", "points"]),
         ("springs", "stiffness", ParameterKind.Stiffness, ["between"]),
         ("dampers", "coefficient", ParameterKind.DamperCoefficient, ["between"]),
     ];
 
-    /// <summary>The path as written, e.g. "springs.columns.stiffness".</summary>
-    public string Text => Kind switch
-    {
-        ParameterKind.Mass => $"masses.{Element}.mass",
-        ParameterKind.Stiffness => $"springs.{Element}.stiffness",
-        _ => $"dampers.{Element}.coefficient",
-    };
+    private string Section => Sections.First(s => s.Kind == Kind).Section;
+
+    private string Field => Sections.First(s => s.Kind == Kind).Field;
+
+    /// <summary>The path as written, e.g. "springs.columns.stiffness" or "springs.mount-1.stiffness.z".</summary>
+    public string Text => Component is { } d
+        ? $"{Section}.{Element}.{(d.IsRotation() ? "rotational-" + Field : Field)}.{d.Label()}"
+        : $"{Section}.{Element}.{(Axial ? "axial" : Field)}";
 
     /// <summary>The physical quantity of the field (its SI unit is the value's unit).</summary>
-    public Quantity Quantity => Kind switch
+    public Quantity Quantity => (Kind, Component?.IsRotation() == true) switch
     {
-        ParameterKind.Mass => Quantity.Mass,
-        ParameterKind.Stiffness => Quantity.Stiffness,
-        _ => Quantity.Damping,
+        (ParameterKind.Mass or ParameterKind.BodyMass, _) => Quantity.Mass,
+        (ParameterKind.Stiffness, false) => Quantity.Stiffness,
+        (ParameterKind.Stiffness, true) => Quantity.RotationalStiffness,
+        (_, false) => Quantity.Damping,
+        _ => Quantity.RotationalDamping,
     };
 
     /// <summary>The field's value in <paramref name="network"/>, SI.</summary>
@@ -49,31 +71,39 @@ public sealed record ParameterPath(ParameterKind Kind, string Element)
         return Kind switch
         {
             ParameterKind.Mass => network.Masses.First(m => m.Name == Element).Kilograms,
+            ParameterKind.BodyMass => network.Bodies.First(b => b.Name == Element).Kilograms,
+            ParameterKind.Stiffness when Component is { } d => network.Springs.First(s => s.Name == Element).Components.First(c => c.Direction == d).Value,
             ParameterKind.Stiffness => network.Springs.First(s => s.Name == Element).Stiffness,
+            _ when Component is { } d => network.Dampers.First(x => x.Name == Element).Components.First(c => c.Direction == d).Value,
             _ => network.Dampers.First(d => d.Name == Element).Coefficient,
         };
     }
 
     /// <summary>A copy of <paramref name="network"/> with the field set to <paramref name="value"/> (SI).</summary>
+    /// <remarks>Without <see cref="Component"/>, a per-direction spring or damper has all its components scaled in proportion (see the remarks of the type).</remarks>
     public Network Apply(Network network, double value) => Kind switch
     {
         ParameterKind.Mass => network.WithMassValue(Element, value),
+        ParameterKind.BodyMass => network.WithBodyMass(Element, value),
+        ParameterKind.Stiffness when Component is { } d => network.WithSpringComponent(Element, d, value),
         ParameterKind.Stiffness => network.WithSpringStiffness(Element, value),
+        _ when Component is { } d => network.WithDamperComponent(Element, d, value),
         _ => network.WithDamperCoefficient(Element, value),
     };
 
     /// <summary>Whether <paramref name="value"/> (SI) is a value the field can take: positive for a mass, non-negative otherwise.</summary>
     /// <remarks>
     /// The plausible ranges of the model format (docs/model-format.md): mass 1 mg to 1,000,000 t, stiffness 0 to
-    /// 1e14 N/m, damping 0 to 1e13 N·s/m. Outside them the eigen solve overflows (a study from 1e308 N/m crashed).
+    /// 1e14 N/m (rotational: N·m/rad), damping 0 to 1e13 N·s/m (rotational: N·m·s/rad). Outside them the eigen solve
+    /// overflows (a study from 1e308 N/m crashed).
     /// </remarks>
     public bool Admits(double value) => double.IsFinite(value) && value >= Minimum && value <= Maximum;
 
     /// <summary>The smallest value admitted, SI.</summary>
-    public double Minimum => Kind == ParameterKind.Mass ? 1e-6 : 0;
+    public double Minimum => Kind is ParameterKind.Mass or ParameterKind.BodyMass ? 1e-6 : 0;
 
     /// <summary>The largest value admitted, SI.</summary>
-    public double Maximum => Kind switch { ParameterKind.Mass => 1e9, ParameterKind.Stiffness => 1e14, _ => 1e13 };
+    public double Maximum => Kind switch { ParameterKind.Mass or ParameterKind.BodyMass => 1e9, ParameterKind.Stiffness => 1e14, _ => 1e13 };
 
     /// <summary>Reads <paramref name="text"/> against <paramref name="network"/>; on failure <paramref name="error"/> says what is wrong and what exists.</summary>
     public static ParameterPath? Resolve(string text, Network network, out string? error)
@@ -81,41 +111,111 @@ public sealed record ParameterPath(ParameterKind Kind, string Element)
         ArgumentNullException.ThrowIfNull(network);
         error = null;
         var parts = (text ?? "").Split('.');
-        var known = string.Join(", ", Sections.Select(s => $"{s.Section}.NAME.{s.Field}"));
+        var sections = Sections.Where(s => s.Kind != ParameterKind.BodyMass || network.Space != ModelSpace.Line).ToArray();
+        var known = string.Join(", ", sections.Select(s => $"{s.Section}.NAME.{s.Field}"))
+                    + (network.Space == ModelSpace.Line ? "" : " (springs and dampers also per direction: springs.NAME.stiffness.z)");
         if (parts.Length < 3 || parts.Any(p => p.Length == 0))
         {
             error = $"'{text}' is not a parameter path; write section.name.field, one of: {known}";
             return null;
         }
-        var section = Sections.FirstOrDefault(s => s.Section == parts[0]);
+        var section = sections.FirstOrDefault(s => s.Section == parts[0]);
         if (section.Section is null)
         {
-            error = $"'{parts[0]}' is not a section that holds numeric fields; use one of: {known}";
+            error = parts[0] == "bodies"
+                ? $"a line model has no bodies, so '{text}' names nothing; use one of: {known}"
+                : $"'{parts[0]}' is not a section that holds numeric fields; use one of: {known}";
             return null;
         }
-        var name = string.Join('.', parts[1..^1]);
-        var field = parts[^1];
-        var names = section.Kind switch
+        var names = (section.Kind switch
         {
             ParameterKind.Mass => network.Masses.Select(m => m.Name),
+            ParameterKind.BodyMass => network.Bodies.Select(b => b.Name),
             ParameterKind.Stiffness => network.Springs.Select(s => s.Name),
             _ => network.Dampers.Select(d => d.Name),
-        };
-        var list = names.ToList();
-        if (!list.Contains(name))
+        }).ToList();
+
+        // Names may hold dots: read "name.field" first, then "name.field.direction" when that names an element instead.
+        var name = string.Join('.', parts[1..^1]);
+        var field = parts[^1];
+        string? direction = null;
+        if (!names.Contains(name) && parts.Length >= 4 && names.Contains(string.Join('.', parts[1..^2])))
         {
-            error = list.Count == 0
+            name = string.Join('.', parts[1..^2]);
+            field = parts[^2];
+            direction = parts[^1];
+        }
+        if (!names.Contains(name))
+        {
+            error = names.Count == 0
                 ? $"the model has no {section.Section}, so '{text}' names nothing"
-                : $"the model has no entry '{name}' under '{section.Section}' (it has: {string.Join(", ", list)})";
+                : $"the model has no entry '{name}' under '{section.Section}' (it has: {string.Join(", ", names)})";
             return null;
         }
-        if (field != section.Field)
+        if (section.Kind is ParameterKind.Stiffness or ParameterKind.DamperCoefficient && network.Space != ModelSpace.Line)
+            return ResolveDirectional(text!, network, section.Section, section.Kind, name, field, direction, out error);
+        if (field != section.Field || direction is not null)
         {
-            error = section.OtherFields.Contains(field)
+            error = section.OtherFields.Contains(field) && direction is null
                 ? $"'{field}' of {section.Section} is not a numeric field; the numeric field is '{section.Field}' ({section.Section}.{name}.{section.Field})"
-                : $"{section.Section} have no field '{field}'; the numeric field is '{section.Field}' ({section.Section}.{name}.{section.Field})";
+                : $"{section.Section} have no field '{(direction is null ? field : field + "." + direction)}'; the numeric field is '{section.Field}' ({section.Section}.{name}.{section.Field})";
             return null;
         }
         return new ParameterPath(section.Kind, name);
+    }
+
+    /// <summary>A spring's or damper's field in a plane or 3d model: the scale, one direction, or the axial value.</summary>
+    private static ParameterPath? ResolveDirectional(string text, Network network, string section, ParameterKind kind, string name,
+        string field, string? directionLabel, out string? error)
+    {
+        error = null;
+        var spring = kind == ParameterKind.Stiffness;
+        var (valueKey, rotationKey, element) = spring ? ("stiffness", "rotational-stiffness", "spring") : ("coefficient", "rotational-coefficient", "damper");
+        var (axial, scale, components) = spring
+            ? network.Springs.Where(s => s.Name == name).Select(s => (s.Axial, s.Stiffness, s.Components)).First()
+            : network.Dampers.Where(d => d.Name == name).Select(d => (d.Axial, d.Coefficient, d.Components)).First();
+        var fields = Fields(section, name, valueKey, rotationKey, axial, scale, components);
+        string Offer() => $"{element} '{name}' has: {string.Join(", ", fields)}";
+
+        if (directionLabel is null)
+        {
+            if (field == "axial" && axial) return new ParameterPath(kind, name) { Axial = true };
+            if (field == valueKey && (axial || scale > 0)) return new ParameterPath(kind, name);
+            error = field == "between"
+                ? $"'between' of {section} is not a numeric field; {Offer()}"
+                : field == valueKey
+                    ? $"{element} '{name}' has no translational {valueKey} above zero, so '{text}' has nothing to scale; vary one direction instead ({Offer()})"
+                    : field == "axial"
+                        ? $"{element} '{name}' is not axial (it acts per direction), so '{text}' names nothing; {Offer()}"
+                        : $"{section} have no field '{field}'; {Offer()}";
+            return null;
+        }
+        var direction = Directions.Parse(directionLabel);
+        if ((field != valueKey && field != rotationKey) || direction is null || direction.Value.IsRotation() != (field == rotationKey))
+        {
+            error = field == valueKey || field == rotationKey
+                ? $"'{directionLabel}' is not a {(field == valueKey ? "translation (x, y, z)" : "rotation (rx, ry, rz)")}, so '{text}' names nothing; {Offer()}"
+                : $"{section} have no field '{field}.{directionLabel}'; {Offer()}";
+            return null;
+        }
+        if (axial || !components.Any(c => c.Direction == direction))
+        {
+            error = axial
+                ? $"{element} '{name}' is axial (it acts along the line between its ends), so it has no per-direction value; {Offer()}"
+                : $"{element} '{name}' has no {field} in '{directionLabel}'; {Offer()}";
+            return null;
+        }
+        return new ParameterPath(kind, name) { Component = direction };
+    }
+
+    /// <summary>The paths that name a numeric field of one spring or damper of a plane or 3d model.</summary>
+    private static ImmutableArray<string> Fields(string section, string name, string valueKey, string rotationKey, bool axial, double scale,
+        ImmutableArray<DirectionalValue> components)
+    {
+        if (axial) return [$"{section}.{name}.axial", $"{section}.{name}.{valueKey} (the same)"];
+        var list = new List<string>();
+        if (scale > 0) list.Add($"{section}.{name}.{valueKey} (every direction in proportion)");
+        list.AddRange(components.Select(c => $"{section}.{name}.{(c.Direction.IsRotation() ? rotationKey : valueKey)}.{c.Direction.Label()}"));
+        return [.. list];
     }
 }

@@ -88,6 +88,12 @@ public sealed record StudyStep(int Index, double Value, ImmutableArray<double> F
 /// <param name="Mac">MAC of its shape with its shape at the previous step (1 at the first step).</param>
 public sealed record TrackedMode(int Identity, ImmutableArray<double> FrequenciesHz, ImmutableArray<int> ModeNumbers, ImmutableArray<double> Mac)
 {
+    /// <summary>
+    /// Plane and 3d models: the mode's motion at each step (bounce, sway, roll, ... or "coupled A + B", as the modes
+    /// table names it); empty in line models.
+    /// </summary>
+    public ImmutableArray<string> Motions { get; init; } = [];
+
     /// <summary>The smallest step-to-step MAC: below about 0.8 the steps are too coarse to follow this mode with confidence (common practice).</summary>
     public double WorstMac => Mac.Min();
 }
@@ -168,8 +174,9 @@ public static class ParameterStudy
             var prevHz = current.Select(j => before.Modes[j].NaturalFrequencyHz).ToArray();
             var nextShapes = after.Modes.Select(m => (IReadOnlyList<double>)m.Shape).ToArray();
             var nextHz = after.Modes.Select(m => m.NaturalFrequencyHz).ToArray();
-            var massDiagonal = after.Network.Masses.Select(m => m.Kilograms).ToArray();
-            var (map, values) = ModeTracking.Pair(prevShapes, prevHz, nextShapes, nextHz, massDiagonal);
+            // The later step's full M: a diagonal of masses in line models, and in plane and 3d models the bodies'
+            // inertia too, so the MAC weighs rotations as kinetic energy does.
+            var (map, values) = ModeTracking.Pair(prevShapes, prevHz, nextShapes, nextHz, after.Matrices.Mass);
             for (var id = 0; id < n; id++)
             {
                 current[id] = map[id];
@@ -178,7 +185,11 @@ public static class ParameterStudy
                 mac[id][s] = values[id];
             }
         }
-        return [.. Enumerable.Range(0, n).Select(id => new TrackedMode(id + 1, [.. frequency[id]], [.. number[id]], [.. mac[id]]))];
+        var spatial = steps[0].Network.Space != ModelSpace.Line;
+        ImmutableArray<string> Motions(int id) => spatial
+            ? [.. Enumerable.Range(0, count).Select(s => steps[s].Modes[number[id][s] - 1].Motion ?? "")]
+            : [];
+        return [.. Enumerable.Range(0, n).Select(id => new TrackedMode(id + 1, [.. frequency[id]], [.. number[id]], [.. mac[id]]) { Motions = Motions(id) })];
     }
 
     private static ImmutableArray<StudyThreshold> Thresholds(Network network, StudyRequest request, ImmutableArray<double> values, double[][] reserves)

@@ -1,5 +1,6 @@
 using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Dofs;
 using ModalChain.Core.Model;
 using ModalChain.TestSupport;
 
@@ -21,6 +22,26 @@ public class SeparationExemptTests
         b.AddSpring("host-spring", Network.Ground, "host", kp);
         b.AddSpring("absorber-spring", "host", "absorber", ka);
         return b.Build();
+    }
+
+    [Fact]
+    public void AbsorberShare_InA3dModelWhoseMassesMoveInZ_IsTheLineModelsShare()
+    {
+        // The same host and absorber as a 3d model moving in z only has the same modes (identity of the two
+        // formulations), so the absorber's share must match the closed form as in the line model.
+        const double mu = 0.05, tuning = 1 / (1 + mu);
+        var line = HostWithAbsorber(10, mu, tuning);
+        var b = new NetworkBuilder { Space = ModelSpace.ThreeD };
+        foreach (var m in line.Masses) b.AddMass(new Mass(m.Name, m.Kilograms) { Location = new Point3(0, 0, m.Name == "host" ? 0 : 1), Moves = [Direction.Z] });
+        foreach (var s in line.Springs) b.AddSpring(new Spring(s.Name, s.NodeA, s.NodeB, s.Stiffness) { Components = [new(Direction.Z, s.Stiffness)] });
+        var modal = ModalAnalysis.Solve(b.Build());
+        var shares = SeparationCheck.ExemptShares(modal, ["absorber"])!.Value;
+        var wa = 2 * Math.PI * 10 * tuning;
+        for (var j = 0; j < 2; j++)
+        {
+            var r = 1 / (1 - Math.Pow(modal.Modes[j].AngularFrequency / wa, 2));
+            NumericAssert.Close(mu * r * r / (1 + mu * r * r), shares[j], Tolerance.Rel(1e-9), $"absorber share of mode {j + 1}");
+        }
     }
 
     [Theory]

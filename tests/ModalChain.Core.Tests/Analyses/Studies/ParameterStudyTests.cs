@@ -53,6 +53,24 @@ public class ParameterStudyTests
     }
 
     [Fact]
+    public void LinkedMasses_AreTrackedOnTheirSharedDof()
+    {
+        // a and b linked share one DOF (150 kg): the study's shapes have 2 entries for 3 masses, which the masses'
+        // diagonal did not fit. Each step against the 2×2 closed form det(K − λM) = 0 with K = [[k_a + k_c, −k_c], [−k_c, k_c]].
+        const double ka = 1e6, kc = 2e5;
+        var b = new NetworkBuilder().AddMass("a", 100).AddMass("b", 50).AddMass("c", 20)
+            .AddSpring("ka", Network.Ground, "a", ka).AddSpring("kc", "b", "c", kc);
+        b.AddLink("ab", ["a", "b"]);
+        var result = ParameterStudy.Run(b.Build(), Request(new ParameterPath(ParameterKind.Mass, "c"), 10, 30, 5));
+        for (var s = 0; s < result.Steps.Length; s++)
+        {
+            var (low, high) = SpatialNetworks.TwoByTwo(ka + kc, -kc, kc, 150, result.Steps[s].Value);
+            NumericAssert.Close(new[] { Math.Sqrt(low), Math.Sqrt(high) }.Select(w => w / (2 * Math.PI)).ToArray(), result.Steps[s].FrequenciesHz, Tolerance.Rel(1e-10), $"step {s}");
+        }
+        Assert.All(result.Modes, m => Assert.True(m.WorstMac > 0.9, $"mode {m.Identity} MAC {m.WorstMac}"));
+    }
+
+    [Fact]
     public void WeaklyCoupledCrossing_ModesFollowTheirShapes()
     {
         // A link of 1e-3 of the springs makes the pair veer instead of crossing; away from the veering zone
