@@ -85,11 +85,21 @@ public static class ModelWriter
     {
         var read = ModelReader.Read(text, file).Model?.Network;
         return read is not null
-            && read.Masses.OrderBy(m => m.Name, StringComparer.Ordinal).SequenceEqual(network.Masses.OrderBy(m => m.Name, StringComparer.Ordinal))
-            && read.Springs.OrderBy(s => s.Name, StringComparer.Ordinal).SequenceEqual(network.Springs.OrderBy(s => s.Name, StringComparer.Ordinal))
-            && read.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal).SequenceEqual(network.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal))
+            && read.Masses.OrderBy(m => m.Name, StringComparer.Ordinal).Select(Comparable).SequenceEqual(network.Masses.OrderBy(m => m.Name, StringComparer.Ordinal).Select(Comparable))
+            && read.Springs.OrderBy(s => s.Name, StringComparer.Ordinal).Select(Comparable).SequenceEqual(network.Springs.OrderBy(s => s.Name, StringComparer.Ordinal).Select(Comparable))
+            && read.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal).Select(Comparable).SequenceEqual(network.Dampers.OrderBy(d => d.Name, StringComparer.Ordinal).Select(Comparable))
             && read.Supports.SequenceEqual(network.Supports);
     }
+
+    // Records compare ImmutableArray members by reference, so a plane or 3d element read back never equalled the one written
+    // (and every in-place edit of such a model fell back to rewriting it without comments): compare those members as text.
+    private static (Mass, string) Comparable(Mass m) => (m with { Moves = default }, Joined(m.Moves));
+
+    private static (Spring, string) Comparable(Spring s) => (s with { Components = default }, Joined(s.Components));
+
+    private static (Damper, string) Comparable(Damper d) => (d with { Components = default }, Joined(d.Components));
+
+    private static string Joined<T>(ImmutableArray<T> values) => values.IsDefaultOrEmpty ? "" : string.Join(";", values);
 
     /// <summary>Where a top-level section sits in the text, from the parser's marks.</summary>
     /// <param name="KeyEnd">Index just after the section's key.</param>
@@ -186,6 +196,9 @@ public static class ModelWriter
         if (Sections(text) is not { } sections) return null;
         var newline = Newline(text);
         var edits = new List<(int At, int Remove, string Insert)>();
+        // New sections are made last, so at the place where an existing section gains entries (the end of 'dampers' when
+        // 'masses' is new, as in a model of bodies only) they follow those entries instead of swallowing them.
+        var newSections = new List<(int At, int Remove, string Insert)>();
         var network = new[] { "title", "masses", "springs", "dampers" };
         var previousEnd = sections.Where(s => network.Contains(s.Key)).Select(s => s.Section.ContentEnd).DefaultIfEmpty(-1).Max();
         foreach (var (name, entries) in additions)
@@ -201,7 +214,7 @@ public static class ModelWriter
                 var block = new StringBuilder(at == text.Length && !text.EndsWith('\n') ? newline : "");
                 block.Append(name).Append(':').Append(newline);
                 foreach (var line in lines) block.Append("  ").Append(line).Append(newline);
-                edits.Add((at, 0, block.ToString()));
+                newSections.Add((at, 0, block.ToString()));
                 continue;
             }
             var section = sections[found].Section;
@@ -230,6 +243,7 @@ public static class ModelWriter
                     return null;
             }
         }
+        edits.AddRange(newSections);
         var result = new StringBuilder(text);
         // From the end backwards, so earlier indices stay valid; of two edits at one place, the later-made goes first,
         // which leaves the earlier-made (an earlier section's entries) in front of it.

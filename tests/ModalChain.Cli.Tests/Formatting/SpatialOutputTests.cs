@@ -54,7 +54,7 @@ public class SpatialOutputTests
     public void ImperialHarmonicTable_ShowsMountForcesInPoundForce()
     {
         // 1 lbf = 4.4482216152605 N (NIST SP 811): the same mount's peak in both systems.
-        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "..", "tests", "ModalChain.Io.Tests", "Model", "Spatial", "compressor-skid-deck.yaml");
+        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "compressor-skid-deck.yaml");
         static (double Value, string Unit) Mount(string output)
         {
             var lines = output.Split('\n');
@@ -72,9 +72,9 @@ public class SpatialOutputTests
     [Fact]
     public void ImperialModesTable_OfA3dModel_ShowsDirectionTotalsAndTheReferencePointInImperialUnits()
     {
-        // The skid example of the reader's fixtures: totals per direction in lb and lb*in^2 (1 kg*m^2 =
+        // The skid example of models/: totals per direction in lb and lb*in^2 (1 kg*m^2 =
         // 2.20462262 lb * 1550.0031 in^2, NIST SP 811 factors), the reference point in inches, never kg or m.
-        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "..", "tests", "ModalChain.Io.Tests", "Model", "Spatial", "compressor-skid-deck.yaml");
+        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "compressor-skid-deck.yaml");
         var si = ModalChain.Cli.Tests.Commands.CommandRun.Of("modes", file, "--units", "si");
         var imperial = ModalChain.Cli.Tests.Commands.CommandRun.Of("modes", file, "--units", "imperial");
         Assert.Equal(0, si.ExitCode);
