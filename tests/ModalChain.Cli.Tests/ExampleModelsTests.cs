@@ -75,4 +75,32 @@ public class ExampleModelsTests
         var n = Read("chiller-deck.yaml");
         NumericAssert.Close(4 * 2.1e6, K(n, "mounts"), Tolerance.Rel(1e-12), "four mounts of 2.1 kN/mm");
     }
+    [Fact]
+    public void CompressorSkid_StatedFiguresFollowFromItsValues_AndItsCheckFailsOnTheRollMode()
+    {
+        // The file's comments: the crank at 980 rpm (16.3 Hz); seven modes (six of the skid on its mounts, one of the deck);
+        // the roll mode about x at 16.4 Hz, on the crank speed, so the separation check fails on purpose (exit 1).
+        var path = ModelPath("compressor-skid-deck.yaml");
+        NumericAssert.Close(16.3, 980.0 / 60, Tolerance.Abs(0.05), "crank speed [Hz]");
+        using var json = JsonDocument.Parse(Run("modes", path, "--format", "json").Stdout);
+        var modes = json.RootElement.GetProperty("modes").EnumerateArray().ToArray();
+        Assert.Equal(7, modes.Length);
+        var roll = modes.Single(m => m.GetProperty("motion").GetString() == "roll");
+        NumericAssert.Close(16.4, roll.GetProperty("frequency_hz").GetDouble(), Tolerance.Abs(0.05), "roll mode [Hz]");
+        var check = Run("check", path);
+        Assert.True(check.ExitCode == 1, check.ToString());
+        Assert.Contains("FAIL", check.Stdout, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void InstrumentCabinet_ModesAreClearOfTheFloorShake_SoItsCheckPasses()
+    {
+        // The file's comments: the floor shakes at 25 Hz; every mode (sway, rocking, bounce) must be 20 % clear of it.
+        var path = ModelPath("instrument-cabinet-sway.yaml");
+        using var json = JsonDocument.Parse(Run("modes", path, "--format", "json").Stdout);
+        Assert.All(json.RootElement.GetProperty("modes").EnumerateArray(),
+            m => Assert.True(Math.Abs(m.GetProperty("frequency_hz").GetDouble() / 25 - 1) >= 0.2, $"mode at {m.GetProperty("frequency_hz").GetDouble()} Hz"));
+        var check = Run("check", path);
+        Assert.True(check.ExitCode == 0, check.ToString());
+    }
 }

@@ -2,6 +2,7 @@ using System.Text.Json;
 using System.Text.RegularExpressions;
 using System.Xml.Linq;
 using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Dofs;
 using ModalChain.Reports.Writing;
 using ModalChain.TestSupport;
 
@@ -24,7 +25,9 @@ public sealed class ModelFilesReportTests
         var document = Repository.Load(model);
         var dir = Path.Combine(Repository.TempDirectory(), "report");
         var files = ReportWriter.Write(ReportBuilder.Build(document, Options), dir, ReportFormat.Html);
-        var modal = ModalAnalysis.Solve(document.Network, new ModalOptions(Math.Min(20, document.Network.Masses.Length)));
+        // The report shows one mode per degree of freedom up to its limit: one per mass in a line model, one per DOF of each
+        // mass and body in plane and 3d models (a rigid body in 3d has six), since the DOFs, not the nodes, count the modes.
+        var modal = ModalAnalysis.Solve(document.Network, new ModalOptions(Math.Min(Options.MaxModes, DofMap.For(document.Network).Count)));
 
         // Every SVG file: well-formed, viewBox; every mode figure names its mode and frequency with the unit.
         foreach (var svg in files.Where(f => f.EndsWith(".svg", StringComparison.Ordinal)))

@@ -118,14 +118,18 @@ internal static class HarmonicTable
     private static string Kind(ElementKind kind) => kind == ElementKind.Spring ? "spring" : "damper";
 
     /// <summary>A mount force (N) or moment (N*m, a rotational component) in the display units.</summary>
-    private static double MountValue(MountForce m, double si, DisplayUnits units) =>
-        IsMoment(m) ? units.Force.From(si) * units.LengthUnit.From(1) : units.Force.From(si);
+    private static double MountValue(MountForce m, double si, DisplayUnits units) => MountValue(m.Unit, si, units);
+
+    /// <summary>An SI mount value whose unit is <paramref name="siUnit"/> ("N", or "N*m" for a moment) in the display units.</summary>
+    internal static double MountValue(string siUnit, double si, DisplayUnits units) =>
+        siUnit != "N" ? units.Force.From(si) * units.LengthUnit.From(1) : units.Force.From(si);
 
     /// <summary>The display unit of a mount force or moment.</summary>
-    private static string MountUnit(MountForce m, DisplayUnits units) =>
-        IsMoment(m) ? $"{units.Force.Plain}*{units.LengthUnit.Plain}" : units.Force.Plain;
+    private static string MountUnit(MountForce m, DisplayUnits units) => MountUnit(m.Unit, units);
 
-    private static bool IsMoment(MountForce m) => m.Unit != "N";
+    /// <summary>The display unit of a mount value whose SI unit is <paramref name="siUnit"/>.</summary>
+    internal static string MountUnit(string siUnit, DisplayUnits units) =>
+        siUnit != "N" ? $"{units.Force.Plain}*{units.LengthUnit.Plain}" : units.Force.Plain;
 
     internal static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
 

@@ -63,7 +63,9 @@ internal static class TransientTable
             o.WriteLine("Mount forces: peak (largest magnitude, with sign) of the force (moment) each spring and damper passes to its second end");
             var table = new TextTable("element", "direction", "peak", "unit", "at [s]", "rms");
             foreach (var r in mounts)
-                table.Add($"{(r.Quantity == ResponseQuantity.SpringForce ? "spring" : "damper")} {r.Name}", r.Direction!, Num(r.Peak.Value), r.Unit, Time(r.Peak.Time), Rms(r.Rms));
+                table.Add($"{(r.Quantity == ResponseQuantity.SpringForce ? "spring" : "damper")} {r.Name}", r.Direction!,
+                    Num(HarmonicTable.MountValue(r.Unit, r.Peak.Value, units)), HarmonicTable.MountUnit(r.Unit, units), Time(r.Peak.Time),
+                    double.IsNaN(r.Rms) ? "n/a" : Num(HarmonicTable.MountValue(r.Unit, r.Rms, units)));
             table.Write(o);
         }
 

@@ -110,11 +110,13 @@ public static class SpatialFigure
             NodeLabels(parts, placer, geometry, rest, n => n.Kind == SpatialNodeKind.Support
                 ? n.Name
                 : n.Name + " (" + units.Mass(n.Kilograms, given: true) + " " + units.MassSymbol + ")");
-            foreach (var e in geometry.Elements)
+            var offsets = Offsets(geometry, panel);
+            for (var i = 0; i < geometry.Elements.Length; i++)
             {
+                var e = geometry.Elements[i];
                 var a = rest.End(e.A, 0);
                 var b = rest.End(e.B, 0);
-                var mid = 0.5 * (a + b);
+                var mid = 0.5 * (a + b) + offsets[i] * Across(a, b);
                 var clearance = (b - a).Length < EndOnPixels ? 5 : 3;
                 if (placer.Place(e.Name, LabelSize - 0.5, LabelPlacer.AroundPoint(mid, clearance, LabelSize - 0.5), "#333333", "label element-name",
                         ImmutableDictionary<string, string>.Empty.Add("element", e.Name)) is { } label)
@@ -280,13 +282,16 @@ public static class SpatialFigure
 
     private static void Elements(ImmutableArray<Shape>.Builder parts, SpatialGeometry geometry, Drawn drawn, Pen pen, string cssClass)
     {
-        foreach (var e in geometry.Elements)
+        var offsets = Offsets(geometry, drawn.Panel);
+        for (var i = 0; i < geometry.Elements.Length; i++)
         {
+            var e = geometry.Elements[i];
             var restA = drawn.Panel.Map(e.A.Location);
             var restB = drawn.Panel.Map(e.B.Location);
             var endOn = (restB - restA).Length < EndOnPixels;
+            var across = offsets[i];
             var geometryPerFrame = Enumerable.Range(0, drawn.FrameCount)
-                .Select(f => ElementLines(e.Kind, drawn.End(e.A, f), drawn.End(e.B, f), endOn))
+                .Select(f => ElementLines(e.Kind, drawn.End(e.A, f), drawn.End(e.B, f), endOn, across))
                 .ToArray();
             var lines = ImmutableArray.CreateBuilder<Shape>();
             for (var p = 0; p < geometryPerFrame[0].Length; p++)
@@ -299,20 +304,64 @@ public static class SpatialFigure
         }
     }
 
+    /// <summary>Distance (figure units) between the bodies of elements drawn side by side.</summary>
+    public const double SideBySide = 14;
+
+    /// <summary>
+    /// The sideways offset of each element's drawing (figure units, along <see cref="Across"/>): 0 for an element alone,
+    /// and for elements whose ends fall on the same drawn points in this view (the two mounts of a skid's side seen
+    /// along y, a spring and a damper between the same points) offsets <see cref="SideBySide"/> apart, centred on the
+    /// line, so each is drawn on its own: ends shared, bodies side by side, as parallel elements are drawn.
+    /// </summary>
+    private static double[] Offsets(SpatialGeometry geometry, Panel panel)
+    {
+        var offsets = new double[geometry.Elements.Length];
+        var groups = Enumerable.Range(0, geometry.Elements.Length).GroupBy(i =>
+        {
+            var (a, b) = (panel.Map(geometry.Elements[i].A.Location), panel.Map(geometry.Elements[i].B.Location));
+            return Reversed(a, b) ? (Pixel(b), Pixel(a)) : (Pixel(a), Pixel(b));
+        });
+        foreach (var group in groups)
+        {
+            var members = group.ToArray();
+            for (var k = 0; k < members.Length; k++)
+            {
+                var e = geometry.Elements[members[k]];
+                var (a, b) = (panel.Map(e.A.Location), panel.Map(e.B.Location));
+                // The same physical side for an element written B-to-A: its 'across' direction is the other way round.
+                offsets[members[k]] = (k - 0.5 * (members.Length - 1)) * SideBySide * (Reversed(a, b) ? -1 : 1);
+            }
+        }
+        return offsets;
+    }
+
+    private static (long, long) Pixel(Point p) => ((long)Math.Round(p.X), (long)Math.Round(p.Y));
+
+    private static bool Reversed(Point a, Point b) => Pixel(b).CompareTo(Pixel(a)) < 0;
+
+    /// <summary>The unit vector across the line from <paramref name="a"/> to <paramref name="b"/> (to the right of the page for an end-on element).</summary>
+    private static Point Across(Point a, Point b)
+    {
+        var d = b - a;
+        return d.Length < EndOnPixels ? new Point(1, 0) : new Point(-d.Y / d.Length, d.X / d.Length);
+    }
+
     /// <summary>The polylines of one element, in a fixed count and order so frames can be animated.</summary>
-    /// <remarks>An element seen end-on in a view (its ends within a few pixels) is a line between its ends and a small ring at its first end.</remarks>
-    private static ImmutableArray<Point>[] ElementLines(ElementKind kind, Point a, Point b, bool endOn)
+    /// <remarks>An element seen end-on in a view (its ends within a few pixels) is a line between its ends and a small ring at its
+    /// first end. <paramref name="offset"/> moves the element's body (zigzag, dashpot, ring) sideways, its ends staying in place.</remarks>
+    private static ImmutableArray<Point>[] ElementLines(ElementKind kind, Point a, Point b, bool endOn, double offset)
     {
         if (endOn)
         {
-            var ring = Enumerable.Range(0, 8).Select(k => a + new Point(4 * Math.Cos(k * Math.PI / 4), 4 * Math.Sin(k * Math.PI / 4)));
+            var centre = a + new Point(offset, 0);
+            var ring = Enumerable.Range(0, 8).Select(k => centre + new Point(4 * Math.Cos(k * Math.PI / 4), 4 * Math.Sin(k * Math.PI / 4)));
             return [[a, b], [.. ring]];
         }
         var d = b - a;
         var length = d.Length;
         var u = length > 1e-9 ? (1 / length) * d : new Point(0, -1);
         var n = new Point(-u.Y, u.X);
-        Point At(double t, double across) => a + t * length * u + across * n;
+        Point At(double t, double across) => a + t * length * u + (across + offset) * n;
         if (kind == ElementKind.Spring)
         {
             var w = Math.Clamp(0.12 * length, 3, 6);

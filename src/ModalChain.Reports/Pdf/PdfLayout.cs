@@ -158,7 +158,11 @@ public sealed class PdfLayout : IDisposable
             foreach (var block in section.Blocks) Block(block);
         }
 
-        KeepSpace(60);
+        // The closing block (rule, caution, trace) stays on one page, so the caution is on the last page: its height is
+        // measured from the wrapped lines, not guessed (a long trace line used to push itself alone onto a new page).
+        var closingCaution = Wrap("Caution. " + Cautions.Text, ContentWidth, NoteSize).Count * NoteSize * 1.35f;
+        var closingTrace = Wrap(document.TraceLine, ContentWidth, 7).Count * 9f;
+        KeepSpace(12 + 6 + closingCaution + 4 + closingTrace);
         _y += 12;
         _items.Add(new PdfLine(Margin, _y, Margin + ContentWidth, _y, 1.1f, Ink));
         _y += 6;

@@ -135,6 +135,8 @@ public sealed class HarmonicSection : IReportSection
             html.Paragraph(string.Create(Inv,
                 $"{p.Dof}, {HarmonicJson.Name(p.Quantity)}: {p.EdgeWarning} ({(p.IsInterior ? "the peak shown is the largest inside the sweep" : "no peak inside the sweep; the value shown is at its end")})."), "note");
 
+        MountForceTables.WriteHarmonic(html, _result, _context.Units);
+
         foreach (var op in _result.OperatingPoints)
         {
             var at = op.Response;

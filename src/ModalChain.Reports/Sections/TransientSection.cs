@@ -94,10 +94,11 @@ public sealed class TransientSection : IReportSection
         var u = _context.Units;
         html.Table("Peaks and RMS of each recorded response",
             ["Response", "Quantity", "Unit", "Peak (largest magnitude, signed)", "at (s)", "RMS"],
-            _result.Responses.Select(r => (IReadOnlyList<string>)
+            _result.Responses.Where(r => !MountForceTables.IsMount(r)).Select(r => (IReadOnlyList<string>)
                 [r.Name, DisplayUnits.Words(r.Quantity), u.Of(r.Quantity).Symbol, u.Of(r.Quantity).Format(r.Peak.Value), DisplayUnits.Number(r.Peak.Time),
                     double.IsNaN(r.Rms) ? "n/a" : u.Of(r.Quantity).Format(r.Rms)]),
             new HashSet<int> { 3, 4, 5 });
+        MountForceTables.WriteTransient(html, _result, u);
         var e = _result.Energy;
         var j = u.Energy;
         html.Paragraph(string.Create(Inv,

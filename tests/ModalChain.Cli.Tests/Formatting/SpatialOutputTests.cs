@@ -54,7 +54,7 @@ public class SpatialOutputTests
     public void ImperialHarmonicTable_ShowsMountForcesInPoundForce()
     {
         // 1 lbf = 4.4482216152605 N (NIST SP 811): the same mount's peak in both systems.
-        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "..", "tests", "ModalChain.Io.Tests", "Model", "Spatial", "compressor-skid-deck.yaml");
+        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "compressor-skid-deck.yaml");
         static (double Value, string Unit) Mount(string output)
         {
             var lines = output.Split('\n');
@@ -70,11 +70,31 @@ public class SpatialOutputTests
     }
 
     [Fact]
+    public void ImperialTransientTable_ShowsMountForcesInPoundForce()
+    {
+        // 1 lbf = 4.4482216152605 N (NIST SP 811): the same mount's peak and r.m.s. in both systems (the skid's heel-drop run).
+        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "compressor-skid-deck.yaml");
+        static (double Peak, string Unit, double Rms) Mount(string output)
+        {
+            var lines = output.Split('\n');
+            var header = Array.FindIndex(lines, l => l.StartsWith("Mount forces:", StringComparison.Ordinal));
+            var row = lines[header + 3].Split(' ', StringSplitOptions.RemoveEmptyEntries); // spring deck-beams z PEAK UNIT AT RMS
+            return (double.Parse(row[3], System.Globalization.CultureInfo.InvariantCulture), row[4], double.Parse(row[6], System.Globalization.CultureInfo.InvariantCulture));
+        }
+        var si = Mount(ModalChain.Cli.Tests.Commands.CommandRun.Of("transient", file, "--units", "si").Output);
+        var imperial = Mount(ModalChain.Cli.Tests.Commands.CommandRun.Of("transient", file, "--units", "imperial").Output);
+        Assert.Equal("N", si.Unit);
+        Assert.Equal("lbf", imperial.Unit);
+        NumericAssert.Close(si.Peak / 4.4482216152605, imperial.Peak, Tolerance.Rel(1e-3), "mount peak, printed to 4 digits");
+        NumericAssert.Close(si.Rms / 4.4482216152605, imperial.Rms, Tolerance.Rel(1e-3), "mount r.m.s., printed to 4 digits");
+    }
+
+    [Fact]
     public void ImperialModesTable_OfA3dModel_ShowsDirectionTotalsAndTheReferencePointInImperialUnits()
     {
-        // The skid example of the reader's fixtures: totals per direction in lb and lb*in^2 (1 kg*m^2 =
+        // The skid example of models/: totals per direction in lb and lb*in^2 (1 kg*m^2 =
         // 2.20462262 lb * 1550.0031 in^2, NIST SP 811 factors), the reference point in inches, never kg or m.
-        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "..", "tests", "ModalChain.Io.Tests", "Model", "Spatial", "compressor-skid-deck.yaml");
+        var file = Path.Combine(ModalChain.Cli.Tests.Commands.CommandRun.Models(), "compressor-skid-deck.yaml");
         var si = ModalChain.Cli.Tests.Commands.CommandRun.Of("modes", file, "--units", "si");
         var imperial = ModalChain.Cli.Tests.Commands.CommandRun.Of("modes", file, "--units", "imperial");
         Assert.Equal(0, si.ExitCode);

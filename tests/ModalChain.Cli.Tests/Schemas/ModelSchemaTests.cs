@@ -19,19 +19,6 @@ public class ModelSchemaTests
         Assert.True(problems is null, $"{model} does not match {Schema}:\n{problems}");
     }
 
-    // The plane and 3d example models wait under tests/ModalChain.Io.Tests until their assembly is on main.
-    public static TheoryData<string> SpatialFixtures() =>
-        [.. Directory.GetFiles(Path.Combine(RepositoryRoot, "tests", "ModalChain.Io.Tests", "Model", "Spatial"), "*.yaml").Order(StringComparer.Ordinal)];
-
-    [Theory]
-    [MemberData(nameof(SpatialFixtures))]
-    public void EverySpatialFixture_IsValidAgainstTheModelSchema_AndForTheReader(string path)
-    {
-        Assert.True(ModelReader.ReadFile(path).Succeeded, path);
-        var problems = SchemaFiles.Problems(Schema, SchemaFiles.YamlToJson(File.ReadAllText(path)));
-        Assert.True(problems is null, $"{path} does not match {Schema}:\n{problems}");
-    }
-
     [Fact]
     public void TheSchemasTopLevelKeys_AreTheReadersTopLevelKeys()
     {

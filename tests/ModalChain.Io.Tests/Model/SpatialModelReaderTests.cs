@@ -13,7 +13,7 @@ public class SpatialModelReaderTests
 
     private static ModelDocument ReadFixture(string name)
     {
-        var path = Path.Combine(AppContext.BaseDirectory, "Model", "Spatial", name);
+        var path = Path.Combine(AppContext.BaseDirectory, "models", name);
         var result = ModelReader.ReadFile(path);
         Assert.True(result.Succeeded, string.Join("\n", result.Diagnostics));
         Assert.Empty(result.Model!.Warnings);

@@ -29,7 +29,7 @@ public partial class SpatialReadingRobustnessTests
         for (var i = 0; i < 600; i++)
         {
             var name = Fixtures[random.Next(Fixtures.Length)];
-            var lines = File.ReadAllLines(Path.Combine(AppContext.BaseDirectory, "Model", "Spatial", name)).ToList();
+            var lines = File.ReadAllLines(Path.Combine(AppContext.BaseDirectory, "models", name)).ToList();
             var edits = 1 + random.Next(3);
             for (var e = 0; e < edits; e++) Edit(lines, random);
             var text = string.Join("\n", lines) + "\n";

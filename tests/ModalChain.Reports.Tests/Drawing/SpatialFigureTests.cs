@@ -243,4 +243,47 @@ public sealed class SpatialFigureTests
         Assert.Contains(SvgAssert.Texts(root), t => t.StartsWith("<a&\"b'>", StringComparison.Ordinal));
         Svg(SpatialFigure.Mode(geometry, new SpatialOverlay(new GivenMotion(new Dictionary<string, NodeMotion> { ["<a&\"b'>"] = new(new Point3(0, 0, 1), default) }), Frames: 3), ["m"], []), animate: true);
     }
+    /// <summary>The first polyline of each element drawing in <paramref name="view"/> of <paramref name="scene"/>, by element name (frame 0).</summary>
+    private static Dictionary<string, ImmutableArray<Point>> ElementPaths(Scene scene, string view, string cssClass)
+    {
+        var panel = scene.Shapes.OfType<GroupShape>().Single(g => g.Data.TryGetValue("view", out var v) && v == view);
+        return panel.Children.OfType<GroupShape>()
+            .Where(g => g.Class is { } c && c.StartsWith(cssClass + " ", StringComparison.Ordinal) && g.Data.ContainsKey("element"))
+            .ToDictionary(g => g.Data["element"], g => g.Children.OfType<PathShape>().First().Frames[0]);
+    }
+
+    [Fact]
+    public void ElementsWithTheSameDrawnEnds_AreDrawnSideBySide_SharingTheirEnds()
+    {
+        // In the side view (seen along y) mount-1 and mount-4 (feet at y = −0.3 and +0.3, same x and z) fall on the same
+        // line, and the damper 'pad' joins the same points as mount-1: each must still be seen, not drawn over another.
+        var geometry = SpatialGeometry.For(Skid());
+        var network = SpatialFigure.Network(geometry, ["Network: skid"], [], new DisplayUnits(UnitSystem.Si));
+        var mode = SpatialFigure.Mode(geometry, new SpatialOverlay(new GivenMotion(new Dictionary<string, NodeMotion>
+        {
+            ["skid"] = new(new Point3(0, 0, 1e-3), new Point3(2e-3, 0, 0)),
+        })), ["Mode 1"], []);
+        foreach (var (scene, cssClass) in new[] { (network, "element"), (mode, "element undeformed"), (mode, "element deformed") })
+        {
+            var side = ElementPaths(scene, "side", cssClass);
+            Assert.Equal(6, side.Count);
+            var group = new[] { "mount-1", "mount-4", "pad" };
+            foreach (var name in group)
+                foreach (var other in group.Where(o => string.CompareOrdinal(o, name) > 0))
+                    Assert.False(side[name].SequenceEqual(side[other]), $"{cssClass}: '{name}' is drawn exactly over '{other}'");
+            if (cssClass != "element deformed")
+            {
+                // Unmoved drawings: the three start at the same drawn foot (ends shared, as parallel elements are drawn), and
+                // the middles of their bodies are about SideBySide apart (less a zigzag's half-width).
+                var middles = group.Select(n => side[n][side[n].Length / 2]).ToList();
+                foreach (var name in group)
+                {
+                    NumericAssert.Close(side[group[0]][0].X, side[name][0].X, Tolerance.Abs(1e-9), $"{name} foot end x");
+                    NumericAssert.Close(side[group[0]][0].Y, side[name][0].Y, Tolerance.Abs(1e-9), $"{name} foot end y");
+                }
+                var gaps = middles.SelectMany((p, i) => middles.Skip(i + 1).Select(q => Math.Sqrt((p.X - q.X) * (p.X - q.X) + (p.Y - q.Y) * (p.Y - q.Y)))).Order().ToList();
+                Assert.True(gaps[0] >= SpatialFigure.SideBySide - 7, $"{cssClass}: bodies only {gaps[0]:F1} apart");
+            }
+        }
+    }
 }

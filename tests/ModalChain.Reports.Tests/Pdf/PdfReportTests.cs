@@ -134,6 +134,29 @@ public sealed class PdfReportTests
     }
 
     [Fact]
+    public void ClosingCautionAndTrace_ShareTheLastPage_WhereverTheBodyEnds()
+    {
+        // The body grows one short paragraph at a time, so the closing block (rule, caution, trace) starts at every height
+        // of a page in turn; it must never be split, and the caution must be on the last page (product rule: first and last).
+        var trace = "Model file instrument-cabinet-sway.yaml · SHA-256 " + new string('c', 64) + " · ModalChain test · generated 2026-12-01 12:00 UTC · "
+            + string.Concat(Enumerable.Repeat("long trace words ", 20));
+        var firstCautionWord = "Caution.";
+        for (var n = 0; n < 120; n++)
+        {
+            var blocks = Enumerable.Range(0, n).Select(i => (Block)new ParagraphBlock($"filler paragraph {i}", null)).ToImmutableArray();
+            var document = new ReportDocument("closing block", [], [new DocumentSection(1, "t", "Body", blocks)], trace);
+            var layout = PdfLayout.LayOut(document);
+            var texts = layout.Pages.SelectMany((p, i) => p.Items.OfType<PdfText>().Select(t => (Page: i, t.Text))).ToList();
+            var cautions = texts.Where(t => t.Text.StartsWith(firstCautionWord, StringComparison.Ordinal)).ToList();
+            Assert.Equal(2, cautions.Count); // boxed under the title, and closing the document
+            var lastPage = layout.Pages.Length - 1;
+            Assert.True(cautions[^1].Page == lastPage, $"{n} paragraphs: the closing caution starts on page {cautions[^1].Page + 1} of {lastPage + 1}");
+            Assert.True(texts.Last(t => t.Text.Contains("licensed", StringComparison.Ordinal)).Page == lastPage, $"{n} paragraphs: the caution's end is not on the last page");
+            Assert.True(texts.Single(t => t.Text.StartsWith("Model file", StringComparison.Ordinal)).Page == lastPage, $"{n} paragraphs: the trace line is split from the caution");
+        }
+    }
+
+    [Fact]
     public void PageCount_GrowsWithTheSections()
     {
         var document = Repository.UniformChain(6, 1, 100);
