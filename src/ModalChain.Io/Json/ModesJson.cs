@@ -24,6 +24,10 @@ public static class ModesJson
     /// </remarks>
     public const int DefaultEnergyShareModes = 20;
 
+    private static readonly JsonEncodedText ShapeName = JsonEncodedText.Encode("shape");
+    private static readonly JsonEncodedText KineticName = JsonEncodedText.Encode("kinetic_energy_share");
+    private static readonly JsonEncodedText StrainName = JsonEncodedText.Encode("strain_energy_share");
+
     /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
     /// <param name="stream">Where to write (UTF-8).</param>
     /// <param name="document">The model read.</param>
@@ -55,6 +59,10 @@ public static class ModesJson
         var dofKeys = dofNames.Select(d => JsonEncodedText.Encode(d, WriterOptions.Encoder)).ToArray();
         var springKeys = springNames.Select(s => JsonEncodedText.Encode(s, WriterOptions.Encoder)).ToArray();
         var massKeys = massNames.Select(m => JsonEncodedText.Encode(m, WriterOptions.Encoder)).ToArray();
+        var dofLine = JsonNumbers.LineKeys(dofKeys);
+        var springLine = JsonNumbers.LineKeys(springKeys);
+        var massLine = JsonNumbers.LineKeys(massKeys);
+        var buffer = new byte[1 << 16];
 
         writer.WriteString("title", MarkupText.Clean(network.Title));
         writer.Source(document, toolVersion);
@@ -86,16 +94,17 @@ public static class ModesJson
             writer.WriteBoolean("rigid_body", mode.IsRigidBody);
             // Shapes are written per mass: a linked group's one DOF is repeated for each of its masses. Plane and 3d
             // models write them per DOF label (skid.z, skid.ry), the masses' and bodies' several directions each.
-            if (network.Space != ModelSpace.Line) writer.Keyed("shape", dofKeys, mode.Shape.AsSpan());
-            else writer.Keyed("shape", massKeys, network.Links.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan());
+            // Each keyed object is one line (JsonNumbers.KeyedLine): large models write n numbers per mode.
+            if (network.Space != ModelSpace.Line) writer.KeyedLine(ShapeName, dofLine, mode.Shape.AsSpan(), ref buffer);
+            else writer.KeyedLine(ShapeName, massLine, network.Links.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan(), ref buffer);
             writer.Number("participation", mode.ParticipationFactor);
             writer.Number("effective_mass_kg", mode.EffectiveModalMass);
             writer.Number("effective_mass_fraction", mode.EffectiveMassFraction);
             writer.Number("cumulative_mass_fraction", mode.CumulativeEffectiveMassFraction);
             if (mode.Number <= energyShareModes)
             {
-                writer.Keyed("kinetic_energy_share", dofKeys, mode.KineticEnergyShare.AsSpan());
-                writer.Keyed("strain_energy_share", springKeys, mode.StrainEnergyShare.AsSpan());
+                writer.KeyedLine(KineticName, dofLine, mode.KineticEnergyShare.AsSpan(), ref buffer);
+                writer.KeyedLine(StrainName, springLine, mode.StrainEnergyShare.AsSpan(), ref buffer);
             }
             writer.Number("residual", mode.Residual);
             if (network.Space != ModelSpace.Line) WriteDirections(writer, mode);
