@@ -32,13 +32,8 @@ public enum SolverChoice
 /// </remarks>
 public static class GeneralizedEigen
 {
-    /// <summary>Auto gives a few modes of a model larger than this to the sparse solver even when a native library is loaded.</summary>
-    /// <remarks>
-    /// The lowest 20 modes of a random spring network of 1,000 masses took 0.8 s of processor time either way and
-    /// the sparse solver was the faster in wall-clock time; at 2,000 masses it took 1.4 s against 2.9 s for dsyevr, which
-    /// reduces the whole matrix to tridiagonal form (O(n³)) whatever the number of modes (docs/performance.md).
-    /// </remarks>
-    public const int SparseFromSize = 800;
+    /// <summary>Smallest model that Auto may give to the sparse solver when few modes are wanted.</summary>
+    public const int SparseFromSize = 3000;
 
     /// <summary>Smallest model that Auto may give to the sparse solver when no native library is loaded.</summary>
     public const int ManagedSparseFromSize = 300;

@@ -27,14 +27,13 @@ public class GeneralizedEigenChoiceTests
 
     [Theory]
     [InlineData(false, 1000)]
-    [InlineData(true, 1000)]
     [InlineData(true, 10_000)]
     public void Auto_GivesAFewModesOfALargeModelToTheSparseSolver(bool native, int size) =>
         Assert.IsType<ShiftInvertLanczos>(GeneralizedEigen.Choose(size, 20, SolverChoice.Auto, 3L * size, native));
 
     [Fact]
     public void Auto_KeepsAFewModesOfAMidSizeModelDenseWhenNativeIsThere() =>
-        Assert.IsType<LapackEigen>(GeneralizedEigen.Choose(500, 20, SolverChoice.Auto, 1500, nativeAvailable: true));
+        Assert.IsType<LapackEigen>(GeneralizedEigen.Choose(1000, 20, SolverChoice.Auto, 3000, nativeAvailable: true));
 
     [Fact]
     public void Native_WithoutTheLibrary_IsACallerError()
