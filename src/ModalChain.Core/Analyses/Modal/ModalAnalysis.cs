@@ -62,7 +62,7 @@ public static class ModalAnalysis
         var massDiagonal = matrices.MassIsDiagonal ? Enumerable.Range(0, n).Select(i => m[i, i]).ToArray() : null;
         var mIota = (m * iota).ToArray();
         var figures = new ModeFigures[count];
-        Parallel.For(0, count, j =>
+        void Figures(int j)
         {
             var phi = new double[n];
             Array.Copy(shapes, (long)j * n, phi, 0, n);
@@ -83,7 +83,10 @@ public static class ModalAnalysis
             var residual = rigid ? Math.Sqrt(kNorm) / (scale * Math.Sqrt(mNorm)) : Math.Sqrt(residualNorm) / Math.Sqrt(kNorm);
             figures[j] = new ModeFigures(phi, gamma, gamma * gamma / kinetic, residual,
                 KineticShares(phi, mPhi), rigid ? [.. new double[springEnds.Length]] : StrainShares(phi, springEnds));
-        });
+        }
+        // Threads only where the work pays for them: commands such as tune solve small models many times.
+        if ((long)count * n >= 1 << 16) Parallel.For(0, count, Figures);
+        else for (var j = 0; j < count; j++) Figures(j);
 
         var modes = ImmutableArray.CreateBuilder<Mode>(count);
         var cumulative = 0.0;
