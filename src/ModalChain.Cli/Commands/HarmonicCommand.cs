@@ -51,9 +51,11 @@ internal static class HarmonicCommand
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
+            var stages = StageTimes.FromEnvironment(io);
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
             if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
+            stages?.Mark("read and check");
             var model = document.Structure;
             var spec = document.Harmonic;
             var fromHz = parse.GetValue(from)?.Si;
@@ -104,6 +106,7 @@ internal static class HarmonicCommand
                 selection = new LoadCaseSelection([.. chosenCases.Select(n => document.LoadCases.First(c => c.Name == n))], selection?.Rule ?? CaseCombination.Sum);
             }
             var system = HarmonicAnalysis.Assemble(model, spec, choice);
+            stages?.Mark("assemble (modes solved here for the modal method)");
             if (selection is { } cases)
             {
                 var byCase = LoadCaseAnalysis.Solve(system, spec, cases);
@@ -122,6 +125,7 @@ internal static class HarmonicCommand
                 return ExitCodes.Success;
             }
             var result = HarmonicAnalysis.Solve(system, spec);
+            stages?.Mark("sweep");
             switch (parse.GetValue(format))
             {
                 case OutputFormat.Json:
@@ -134,6 +138,8 @@ internal static class HarmonicCommand
                     HarmonicTable.Write(io.Output, document, system, result, CommonOptions.UnitsOf(parse, units, document));
                     break;
             }
+            stages?.Mark("write");
+            stages?.Report();
             return ExitCodes.Success;
         });
         return command;

@@ -24,11 +24,16 @@ internal static class ModesCommand
             "lowest N of them); large sparse models are solved for these modes only, with a count proving none was missed.",
             ValueBound.Positive);
         var solver = CommonOptions.Solver();
+        var detail = CommandValues.Choice("--detail",
+            "What the JSON carries per mode: standard (the default: frequencies, shape, participation, effective mass and " +
+            $"damping of every mode, with the kinetic-energy share per mass and the strain-energy share per spring for the lowest {ModesJson.DefaultEnergyShareModes} modes) " +
+            "or energy (the energy shares of every mode too; the file grows by modes x (masses + springs) numbers).",
+            ("standard", ModesDetail.Standard), ("energy", ModesDetail.Energy));
         var units = CommonOptions.Units();
         var command = new Command("modes",
             "Natural frequencies, periods, mass-normalised mode shapes, participation factors and effective modal masses " +
             "of the undamped network, with quality figures (eigen residual, M-orthogonality).")
-        { file, count, below, solver, format, units };
+        { file, count, below, solver, format, detail, units };
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -57,7 +62,8 @@ internal static class ModesCommand
             switch (parse.GetValue(format))
             {
                 case OutputFormat.Json:
-                    io.WriteJson(stream => ModesJson.Write(stream, document, result, CliApp.Version, damped, complexModes));
+                    var shareModes = parse.GetValue(detail) == ModesDetail.Energy ? int.MaxValue : ModesJson.DefaultEnergyShareModes;
+                    io.WriteJson(stream => ModesJson.Write(stream, document, result, CliApp.Version, damped, complexModes, shareModes));
                     break;
                 case OutputFormat.Csv:
                     ModesCsv.Write(io.Output, result);
@@ -72,4 +78,14 @@ internal static class ModesCommand
         });
         return command;
     }
+}
+
+/// <summary>How much the modes JSON carries per mode (<c>--detail</c>).</summary>
+internal enum ModesDetail
+{
+    /// <summary>Energy shares for the lowest <see cref="ModesJson.DefaultEnergyShareModes"/> modes only.</summary>
+    Standard,
+
+    /// <summary>Energy shares for every mode.</summary>
+    Energy,
 }

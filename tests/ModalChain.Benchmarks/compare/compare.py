@@ -28,6 +28,7 @@ CASES = {
     "low20-1000": ("random-1000.yaml", ["modes", "--count", "20"], "lowest", "lowest 20 modes, n = 1,000 (auto)"),
     "low20-2000": ("random-2000.yaml", ["modes", "--count", "20"], "lowest", "lowest 20 modes, n = 2,000 (auto)"),
     "low20-grid": ("grid-100x100.yaml", ["modes", "--count", "20"], "lowest", "lowest 20 modes, 100 x 100 grid (auto)"),
+    "all-2000-energy": ("random-2000.yaml", ["modes", "--solver", "native", "--detail", "energy"], "all", "all modes, n = 2,000, native, `--detail energy`"),
     "harmonic-500": ("harmonic-500.yaml", ["harmonic"], "harmonic", "modal harmonic sweep, 500 masses x 10,000 frequencies"),
 }
 
@@ -47,7 +48,7 @@ def write_models(work):
 
 
 def timed(command, out_path, env=None):
-    """Runs command under /usr/bin/time -v with stdout to out_path; returns (seconds, peak MB, stderr) or None on failure."""
+    """Runs command under /usr/bin/time -v with stdout to out_path; returns (seconds, peak MB, stderr, processor seconds) or None on failure."""
     with open(out_path, "wb") as out:
         try:
             p = subprocess.run(["/usr/bin/time", "-v", *command], stdout=out, stderr=subprocess.PIPE, timeout=TIMEOUT, env=env)
@@ -60,7 +61,8 @@ def timed(command, out_path, env=None):
     wall = re.search(r"Elapsed \(wall clock\) time \(h:mm:ss or m:ss\): (?:(\d+):)?(\d+):([\d.]+)", err)
     seconds = int(wall.group(1) or 0) * 3600 + int(wall.group(2)) * 60 + float(wall.group(3))
     peak = int(re.search(r"Maximum resident set size \(kbytes\): (\d+)", err).group(1)) / 1024
-    return seconds, peak, err
+    processor = float(re.search(r"User time \(seconds\): ([\d.]+)", err).group(1)) + float(re.search(r"System time \(seconds\): ([\d.]+)", err).group(1))
+    return seconds, peak, err, processor
 
 
 def frequencies_of_modalchain(path):
@@ -95,7 +97,7 @@ def main():
     if os.environ.get("MODALCHAIN_NO_SOLVER_OPTION") == "1":  # an older build without --solver: its only (managed) solver
         for name, (model, mc_args, kind, what) in list(CASES.items()):
             CASES[name] = (model, [a for i, a in enumerate(mc_args) if a != "--solver" and (i == 0 or mc_args[i - 1] != "--solver")], kind, what)
-    times = {c: {"mc": [], "py": [], "mc_mb": [], "py_mb": []} for c in chosen}
+    times = {c: {"mc": [], "py": [], "mc_mb": [], "py_mb": [], "mc_cpu": [], "py_cpu": []} for c in chosen}
     notes = {}
     for run in range(args.runs):
         for case in chosen:
@@ -106,10 +108,13 @@ def main():
                 if r is None:
                     times[case][key].append(float("nan"))
                     times[case][key + "_mb"].append(float("nan"))
+                    times[case][key + "_cpu"].append(float("nan"))
                 else:
                     times[case][key].append(r[0])
                     times[case][key + "_mb"].append(r[1])
-            print(f"run {run + 1} {case}: modalchain {times[case]['mc'][-1]:.2f} s, script {times[case]['py'][-1]:.2f} s", file=sys.stderr, flush=True)
+                    times[case][key + "_cpu"].append(r[3])
+            print(f"run {run + 1} {case}: modalchain {times[case]['mc'][-1]:.2f} s ({times[case]['mc_cpu'][-1]:.2f} s processor), "
+                  f"script {times[case]['py'][-1]:.2f} s ({times[case]['py_cpu'][-1]:.2f} s processor), load {os.getloadavg()[0]:.0f}", file=sys.stderr, flush=True)
             if run == 0 and mc and py and kind != "harmonic":
                 with open(work / f"{case}.py.json", encoding="utf-8") as f:
                     reference = json.load(f)["frequencies_hz"]
@@ -125,30 +130,32 @@ def main():
         mc = timed(["dotnet", args.cli, mc_args[0], str(work / model), *mc_args[1:], "--format", "json"], work / f"{case}.stages.json", env)
         py = timed(["/usr/bin/python3", str(HERE / "script.py"), kind, str(work / model), str(work / f"{case}.py.json")], work / f"{case}.py.out")
         if mc and py:
-            m = re.search(r"stage: eigen solve \(extra, timing only\): ([\d.]+) s", mc[2])
-            p = re.search(r"stage: eigen solve: ([\d.]+) s", py[2])
+            m = re.search(r"stage: eigen solve \(extra, timing only\): ([\d.]+) s \(processor ([\d.]+) s\)", mc[2])
+            p = re.search(r"stage: eigen solve: ([\d.]+) s \(processor ([\d.]+) s\)", py[2])
             if m and p:
-                eigen[case] = (float(m.group(1)), float(p.group(1)))
+                eigen[case] = (float(m.group(1)), float(p.group(1)), float(m.group(2)), float(p.group(2)))
             print(f"stages {case}:\n" + "\n".join(l for l in mc[2].splitlines() if l.startswith("stage:")), file=sys.stderr)
 
     def med(values):
         finite = [v for v in values if v == v]
         return statistics.median(finite) if len(finite) == len(values) and finite else float("nan")
 
-    rows = ["| work | ModalChain | the script | ratio (ModalChain / script) | frequencies agree to |",
-            "|---|---|---|---|---|"]
+    rows = ["| work | ModalChain | the script | ratio (ModalChain / script) | processor time, ModalChain / script | frequencies agree to |",
+            "|---|---|---|---|---|---|"]
     for case in chosen:
         t = times[case]
         mc, py = med(t["mc"]), med(t["py"])
         mc_mb, py_mb = med(t["mc_mb"]), med(t["py_mb"])
+        mc_cpu, py_cpu = med(t["mc_cpu"]), med(t["py_cpu"])
         ratio = mc / py if mc == mc and py == py else float("nan")
+        cpu_ratio = mc_cpu / py_cpu if mc_cpu == mc_cpu and py_cpu == py_cpu and py_cpu > 0 else float("nan")
         agree = notes.get(case)
         rows.append(f"| {CASES[case][3]} | {fmt(mc)} s, {fmt(mc_mb, 0)} MB | {fmt(py)} s, {fmt(py_mb, 0)} MB | {fmt(ratio, 2)}× | "
-                    f"{'—' if agree is None else f'{agree:.0e}'} |")
+                    f"{fmt(mc_cpu)} s / {fmt(py_cpu)} s = {fmt(cpu_ratio, 2)}× | {'—' if agree is None else f'{agree:.0e}'} |")
     if eigen:
-        rows += ["", "| eigen step alone | ModalChain | SciPy eigh (dsygvd) | ratio |", "|---|---|---|---|"]
-        for case, (m, p) in eigen.items():
-            rows.append(f"| {CASES[case][3]} | {m:.2f} s | {p:.2f} s | {m / p:.2f}× |")
+        rows += ["", "| eigen step alone (wall; processor) | ModalChain | SciPy eigh (dsygvd) | ratio (wall; processor) |", "|---|---|---|---|"]
+        for case, (m, p, mp, pp) in eigen.items():
+            rows.append(f"| {CASES[case][3]} | {m:.2f} s; {mp:.2f} s | {p:.2f} s; {pp:.2f} s | {m / p:.2f}×; {mp / pp:.2f}× |")
     table = "\n".join(rows)
     print(table)
     if not args.no_docs:
@@ -163,8 +170,9 @@ def update_docs(table, label, runs):
     path = REPO / "docs" / "performance.md"
     text = path.read_text(encoding="utf-8")
     begin, end = "<!-- compare:begin -->", "<!-- compare:end -->"
-    block = (f"{begin}\nSide by side with the NumPy/SciPy script ({label}; medians of {runs} interleaved runs, wall clock and peak "
-             f"resident memory from `/usr/bin/time -v`, end to end from process start to JSON written):\n\n{table}\n{end}")
+    block = (f"{begin}\nSide by side with the NumPy/SciPy script ({label}; medians of {runs} interleaved runs, wall clock, processor "
+             f"time (user + system, every thread) and peak resident memory from `/usr/bin/time -v`, end to end from process start "
+             f"to JSON written):\n\n{table}\n{end}")
     if begin in text:
         text = text[:text.index(begin)] + block + text[text.index(end) + len(end):]
     else:

@@ -101,4 +101,36 @@ public class ModesCommandTests
         Assert.Equal(2, o.ExitCode);
         Assert.Contains("--below", o.Stderr, StringComparison.Ordinal);
     }
+
+    [Theory]
+    [InlineData(new string[0], 20)]
+    [InlineData(new[] { "--detail", "standard" }, 20)]
+    [InlineData(new[] { "--detail", "energy" }, 25)]
+    [InlineData(new[] { "--detail", "ENERGY" }, 25)]
+    public void Detail_DecidesWhichModesCarryEnergyShares(string[] detail, int expected)
+    {
+        // 25 equal masses in a chain from ground: 25 modes, more than the 20 that carry energy shares by default.
+        var text = "title: Chain of 25 masses\nmasses:\n" + string.Concat(Enumerable.Range(1, 25).Select(i => $"  m{i}: 10 kg\n")) +
+            "springs:\n" + string.Concat(Enumerable.Range(1, 25).Select(i => $"  k{i}: {{between: [{(i == 1 ? "ground" : $"m{i - 1}")}, m{i}], stiffness: 1 kN/m}}\n"));
+        using var model = new TempModel(text);
+        var o = Run(["modes", model.Path, "--format", "json", .. detail]);
+        Assert.True(o.ExitCode == 0, o.ToString());
+        using var json = JsonDocument.Parse(o.Stdout);
+        Assert.Equal(expected, json.RootElement.GetProperty("energy_share_modes").GetInt32());
+        var modes = json.RootElement.GetProperty("modes").EnumerateArray().ToArray();
+        Assert.Equal(25, modes.Length);
+        for (var i = 0; i < modes.Length; i++)
+        {
+            Assert.Equal(i < expected, modes[i].TryGetProperty("kinetic_energy_share", out _));
+            Assert.Equal(i < expected, modes[i].TryGetProperty("strain_energy_share", out _));
+        }
+    }
+
+    [Fact]
+    public void Detail_WithAnUnknownWord_IsAnInputError()
+    {
+        var o = Run("modes", ModelPath("chiller-deck.yaml"), "--detail", "everything");
+        Assert.Equal(2, o.ExitCode);
+        Assert.Contains("--detail", o.Stderr, StringComparison.Ordinal);
+    }
 }

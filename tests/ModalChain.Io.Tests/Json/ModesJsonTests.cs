@@ -54,7 +54,8 @@ public class ModesJsonTests
         string[] required = ["title", "dofs", "total_mass_kg", "modes", "quality"];
         string[] requiredMode = ["number", "frequency_hz", "omega_rad_s", "period_s", "shape", "participation", "effective_mass_kg", "effective_mass_fraction"];
         Assert.Subset(Names(root).ToHashSet(), required.ToHashSet());
-        Assert.Equal(["title", "format_version", "source", "dofs", "total_mass_kg", "algorithm", "modes", "damping", "quality", "warnings", "caution"], Names(root));
+        Assert.Equal(["title", "format_version", "source", "dofs", "total_mass_kg", "algorithm", "energy_share_modes", "modes", "damping", "quality", "warnings", "caution"], Names(root));
+        Assert.Equal(2, root.GetProperty("energy_share_modes").GetInt32());
 
         foreach (var mode in root.GetProperty("modes").EnumerateArray())
         {
@@ -168,5 +169,64 @@ public class ModesJsonTests
         var json = Write(doc, result);
         Assert.Contains("\"bühne\"", json, StringComparison.Ordinal);
         Assert.Equal("Bühne über dem Keller", Parse(json).GetProperty("title").GetString());
+    }
+
+    /// <summary>A chain of <paramref name="count"/> equal masses from ground, one spring between neighbours.</summary>
+    private static string[] Chain(int count) =>
+    [
+        $"title: Chain of {count} masses",
+        "masses:",
+        .. Enumerable.Range(1, count).Select(i => $"  m{i}: 10 kg"),
+        "springs:",
+        .. Enumerable.Range(1, count).Select(i => $"  k{i}: {{between: [{(i == 1 ? "ground" : $"m{i - 1}")}, m{i}], stiffness: 1 kN/m}}"),
+    ];
+
+    [Fact]
+    public void EnergyShares_ByDefault_OnlyForTheLowestModes()
+    {
+        var (doc, result) = Solve(Chain(ModesJson.DefaultEnergyShareModes + 5));
+        var root = Parse(Write(doc, result));
+        Assert.Equal(ModesJson.DefaultEnergyShareModes, root.GetProperty("energy_share_modes").GetInt32());
+        var modes = root.GetProperty("modes").EnumerateArray().ToArray();
+        Assert.Equal(ModesJson.DefaultEnergyShareModes + 5, modes.Length);
+        for (var i = 0; i < modes.Length; i++)
+        {
+            var carries = i < ModesJson.DefaultEnergyShareModes;
+            Assert.Equal(carries, modes[i].TryGetProperty("kinetic_energy_share", out _));
+            Assert.Equal(carries, modes[i].TryGetProperty("strain_energy_share", out _));
+            Assert.True(modes[i].TryGetProperty("shape", out _), $"mode {i + 1} keeps its shape");
+        }
+    }
+
+    [Fact]
+    public void EnergyShares_ForEveryModeWhenAsked_MatchTheModalResult()
+    {
+        var (doc, result) = Solve(Chain(ModesJson.DefaultEnergyShareModes + 5));
+        using var stream = new MemoryStream();
+        ModesJson.Write(stream, doc, result, "9.9.9-test", energyShareModes: int.MaxValue);
+        var root = Parse(Encoding.UTF8.GetString(stream.ToArray()));
+        Assert.Equal(result.Modes.Length, root.GetProperty("energy_share_modes").GetInt32());
+        var modes = root.GetProperty("modes").EnumerateArray().ToArray();
+        for (var i = 0; i < modes.Length; i++)
+        {
+            var kinetic = modes[i].GetProperty("kinetic_energy_share").EnumerateObject().Select(p => p.Value.GetDouble()).ToArray();
+            var strain = modes[i].GetProperty("strain_energy_share").EnumerateObject().Select(p => p.Value.GetDouble()).ToArray();
+            NumericAssert.Close(result.Modes[i].KineticEnergyShare.ToArray(), kinetic, Tolerance.Abs(0), $"mode {i + 1} kinetic shares round-trip");
+            NumericAssert.Close(result.Modes[i].StrainEnergyShare.ToArray(), strain, Tolerance.Abs(0), $"mode {i + 1} strain shares round-trip");
+            // Each set of shares sums to 1 (identity: the shares divide the mode's energy).
+            NumericAssert.Close(1, kinetic.Sum(), Tolerance.Abs(1e-12), $"mode {i + 1} Σ kinetic");
+            NumericAssert.Close(1, strain.Sum(), Tolerance.Abs(1e-12), $"mode {i + 1} Σ strain");
+        }
+    }
+
+    [Fact]
+    public void EnergyShares_None_LeavesEveryModeWithoutThem()
+    {
+        var (doc, result) = Solve(CaseA);
+        using var stream = new MemoryStream();
+        ModesJson.Write(stream, doc, result, "9.9.9-test", energyShareModes: 0);
+        var root = Parse(Encoding.UTF8.GetString(stream.ToArray()));
+        Assert.Equal(0, root.GetProperty("energy_share_modes").GetInt32());
+        Assert.All(root.GetProperty("modes").EnumerateArray(), m => Assert.False(m.TryGetProperty("strain_energy_share", out _)));
     }
 }

@@ -1,5 +1,7 @@
 using System.Collections.Immutable;
+using System.Runtime.InteropServices;
 using MathNet.Numerics.LinearAlgebra;
+using MathNet.Numerics.LinearAlgebra.Storage;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 using ModalChain.Core.Solvers;
@@ -52,27 +54,51 @@ public static class ModalAnalysis
             .Select(s => (a: matrices.Dofs.IndexOf(s.NodeA), b: matrices.Dofs.IndexOf(s.NodeB), k: s.Stiffness))
             .ToArray();
 
-        var modes = ImmutableArray.CreateBuilder<Mode>(resolved.EigenValues.Length);
+        // Each mode's figures are independent of the others: computed in parallel from the shapes' columns, then the
+        // cumulative fractions in order.
+        var count = resolved.EigenValues.Length;
+        var n = matrices.Size;
+        var shapes = resolved.Shapes.Storage is DenseColumnMajorMatrixStorage<double> dense ? dense.Data : resolved.Shapes.ToColumnMajorArray();
+        var massDiagonal = matrices.MassIsDiagonal ? Enumerable.Range(0, n).Select(i => m[i, i]).ToArray() : null;
+        var mIota = (m * iota).ToArray();
+        var figures = new ModeFigures[count];
+        void Figures(int j)
+        {
+            var phi = new double[n];
+            Array.Copy(shapes, (long)j * n, phi, 0, n);
+            var rigid = resolved.IsRigidBody[j];
+            var lambda = resolved.EigenValues[j];
+            var mPhi = massDiagonal is null ? (m * Vector<double>.Build.Dense(phi)).ToArray() : Product(massDiagonal, phi);
+            var kPhi = Product(k, phi);
+            double kNorm = 0, mNorm = 0, residualNorm = 0, gamma = 0, kinetic = 0;
+            for (var i = 0; i < n; i++)
+            {
+                kNorm += kPhi[i] * kPhi[i];
+                mNorm += mPhi[i] * mPhi[i];
+                var r = kPhi[i] - mPhi[i] * lambda;
+                residualNorm += r * r;
+                gamma += phi[i] * mIota[i];
+                kinetic += phi[i] * mPhi[i];
+            }
+            var residual = rigid ? Math.Sqrt(kNorm) / (scale * Math.Sqrt(mNorm)) : Math.Sqrt(residualNorm) / Math.Sqrt(kNorm);
+            figures[j] = new ModeFigures(phi, gamma, gamma * gamma / kinetic, residual,
+                KineticShares(phi, mPhi), rigid ? [.. new double[springEnds.Length]] : StrainShares(phi, springEnds));
+        }
+        // Threads only where the work pays for them: commands such as tune solve small models many times.
+        if ((long)count * n >= 1 << 16) Parallel.For(0, count, Figures);
+        else for (var j = 0; j < count; j++) Figures(j);
+
+        var modes = ImmutableArray.CreateBuilder<Mode>(count);
         var cumulative = 0.0;
         var maxResidual = 0.0;
-        for (var j = 0; j < resolved.EigenValues.Length; j++)
+        for (var j = 0; j < count; j++)
         {
-            var phi = resolved.Shapes.Column(j);
-            var lambda = resolved.EigenValues[j];
+            var (phi, gamma, effective, residual, kineticShares, strainShares) = figures[j];
             var rigid = resolved.IsRigidBody[j];
-            var omega2 = rigid ? 0.0 : lambda;
+            var omega2 = rigid ? 0.0 : resolved.EigenValues[j];
             var omega = Math.Sqrt(omega2);
             var f = omega / (2 * Math.PI);
-
-            var mPhi = m * phi;
-            var kPhi = k * phi;
-            var residual = rigid
-                ? kPhi.L2Norm() / (scale * mPhi.L2Norm())
-                : (kPhi - mPhi * lambda).L2Norm() / kPhi.L2Norm();
             maxResidual = Math.Max(maxResidual, residual);
-
-            var gamma = phi * (m * iota);
-            var effective = gamma * gamma / (phi * mPhi);
             var fraction = effective / totalMass;
             cumulative += fraction;
 
@@ -83,13 +109,13 @@ public static class ModalAnalysis
                 NaturalFrequencyHz: f,
                 PeriodSeconds: rigid ? double.PositiveInfinity : 1 / f,
                 IsRigidBody: rigid,
-                Shape: [.. phi],
+                Shape: ImmutableCollectionsMarshal.AsImmutableArray(phi),
                 ParticipationFactor: gamma,
                 EffectiveModalMass: effective,
                 EffectiveMassFraction: fraction,
                 CumulativeEffectiveMassFraction: cumulative,
-                KineticEnergyShare: KineticShares(phi, mPhi),
-                StrainEnergyShare: rigid ? [.. new double[springEnds.Length]] : StrainShares(phi, springEnds),
+                KineticEnergyShare: kineticShares,
+                StrainEnergyShare: strainShares,
                 Residual: residual)
             {
                 Participation = [new DirectionalParticipation(Dofs.Direction.Along, gamma, effective, fraction, cumulative)],
@@ -114,21 +140,52 @@ public static class ModalAnalysis
         return scale > 0 ? scale : 1.0;
     }
 
-    private static ImmutableArray<double> KineticShares(Vector<double> phi, Vector<double> mPhi)
+    /// <summary>The figures of one mode computed before the cumulative fractions.</summary>
+    private readonly record struct ModeFigures(double[] Shape, double Participation, double Effective, double Residual,
+        ImmutableArray<double> KineticShares, ImmutableArray<double> StrainShares);
+
+    /// <summary>diag(d) x.</summary>
+    private static double[] Product(double[] diagonal, double[] x)
     {
-        var shares = phi.PointwiseMultiply(mPhi);
-        var sum = shares.Sum();
-        return [.. shares.Select(s => s / sum)];
+        var y = new double[x.Length];
+        for (var i = 0; i < x.Length; i++) y[i] = diagonal[i] * x[i];
+        return y;
     }
 
-    private static ImmutableArray<double> StrainShares(Vector<double> phi, (int a, int b, double k)[] springs)
+    /// <summary>A x over the stored entries of a sparse (compressed-row) A; through Math.NET otherwise.</summary>
+    private static double[] Product(Matrix<double> a, double[] x)
     {
-        var energies = springs.Select(s =>
+        if (a.Storage is not SparseCompressedRowMatrixStorage<double> csr) return (a * Vector<double>.Build.Dense(x)).ToArray();
+        var y = new double[a.RowCount];
+        for (var i = 0; i < y.Length; i++)
         {
-            var d = (s.a >= 0 ? phi[s.a] : 0) - (s.b >= 0 ? phi[s.b] : 0);
-            return s.k * d * d;
-        }).ToArray();
-        var sum = energies.Sum();
-        return [.. energies.Select(e => sum > 0 ? e / sum : 0)];
+            var sum = 0.0;
+            for (var p = csr.RowPointers[i]; p < csr.RowPointers[i + 1]; p++) sum += csr.Values[p] * x[csr.ColumnIndices[p]];
+            y[i] = sum;
+        }
+        return y;
+    }
+
+    private static ImmutableArray<double> KineticShares(double[] phi, double[] mPhi)
+    {
+        var shares = new double[phi.Length];
+        var sum = 0.0;
+        for (var i = 0; i < shares.Length; i++) sum += shares[i] = phi[i] * mPhi[i];
+        for (var i = 0; i < shares.Length; i++) shares[i] /= sum;
+        return ImmutableCollectionsMarshal.AsImmutableArray(shares);
+    }
+
+    private static ImmutableArray<double> StrainShares(double[] phi, (int a, int b, double k)[] springs)
+    {
+        var energies = new double[springs.Length];
+        var sum = 0.0;
+        for (var e = 0; e < springs.Length; e++)
+        {
+            var (a, b, k) = springs[e];
+            var d = (a >= 0 ? phi[a] : 0) - (b >= 0 ? phi[b] : 0);
+            sum += energies[e] = k * d * d;
+        }
+        for (var e = 0; e < energies.Length; e++) energies[e] = sum > 0 ? energies[e] / sum : 0;
+        return ImmutableCollectionsMarshal.AsImmutableArray(energies);
     }
 }
