@@ -131,13 +131,17 @@ internal static class StudyCommand
         var req = result.Request;
         // The varied value in the unit every other table shows its kind in (the file's own unit, kN/mm staying kN/mm, or
         // the system of --units), not in whatever unit --from happened to be typed in.
+        // Rotational stiffness and damping have no display unit of their own: they are shown in SI.
         var shown = req.Parameter.Quantity switch
         {
             Quantity.Mass => units.MassUnit,
             Quantity.Stiffness => units.StiffnessUnit,
-            _ => units.DampingUnit,
+            Quantity.Damping => units.DampingUnit,
+            _ => null,
         };
-        var unit = new CommandValue(0, shown.Plain, shown.Factor);
+        var unit = shown is null
+            ? new CommandValue(0, UnitTable.SiSymbol(req.Parameter.Quantity), 1)
+            : new CommandValue(0, shown.Plain, shown.Factor);
         o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine($"Study of {req.Parameter.Text} from {unit.Show(req.From)} to {unit.Show(req.To)}, {req.Steps} values ({req.Spacing.ToString().ToLowerInvariant()})");
         o.WriteLine("Modes are followed by shape (modal assurance criterion); 'mode k' is the mode numbered k at the first value.");

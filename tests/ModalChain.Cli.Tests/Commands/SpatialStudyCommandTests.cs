@@ -66,7 +66,7 @@ public class SpatialStudyCommandTests
     {
         var run = CommandRun.Of("study", Block, "--vary", "springs.mount-1.stiffness.z", "--from", "0.2 kN/mm", "--to", "2 kN/mm", "--steps", "5");
         Assert.True(run.ExitCode == 0, run.Error);
-        Assert.Contains("Study of springs.mount-1.stiffness.z from 0.2 kN/mm to 2 kN/mm", run.Output);
+        Assert.Contains("Study of springs.mount-1.stiffness.z from 200 kN/m to 2000 kN/m", run.Output); // shown in the unit the file writes stiffness in
         Assert.Contains("Motion of each mode", run.Output);
         Assert.Contains("licensed engineer", run.Output);
         var lines = run.Output.Split('\n');
@@ -115,5 +115,18 @@ public class SpatialStudyCommandTests
         SchemaFiles.AssertValid("study.schema.json", run.Output, "speed chart on a 3d model");
         var crossings = run.Json().GetProperty("crossings").EnumerateArray().Select(c => c.GetProperty("speed_hz").GetDouble()).ToArray();
         Assert.Contains(crossings, s => Math.Abs(s - Hz(4 * Kz * A * A / Jy)) < 1e-9 * s);
+    }
+
+    [Fact]
+    public void RotationalStiffnessStudy_Table_ShowsTheValuesInNewtonMetresPerRadian()
+    {
+        // Rotational stiffness has no display unit of its own: the varied value is shown in SI (N*m/rad), never in a
+        // stiffness or damping unit.
+        var model = CommandRun.ModelFile(File.ReadAllText(Block).Replace(
+            "dampers:", "  twist: {between: [block.foot-1, ground], rotational-stiffness: {rz: 50 kN*m/rad}}\ndampers:", StringComparison.Ordinal));
+        var run = CommandRun.Of("study", model, "--vary", "springs.twist.rotational-stiffness.rz", "--from", "20 kN*m/rad", "--to", "80 kN*m/rad", "--steps", "3");
+        Assert.True(run.ExitCode == 0, run.Error);
+        Assert.Contains("Study of springs.twist.rotational-stiffness.rz from 20000 N*m/rad to 80000 N*m/rad", run.Output);
+        Assert.Contains("springs.twist.rotational-stiffness.rz [N*m/rad]", run.Output);
     }
 }

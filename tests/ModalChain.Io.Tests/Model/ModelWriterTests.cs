@@ -132,7 +132,7 @@ public class ModelWriterTests
     [Fact]
     public void ElementsAddedToA3dModel_AreWrittenWithLocationsAndDirections_AndReadBack()
     {
-        var original = File.ReadAllText(Path.Combine(AppContext.BaseDirectory, "Model", "Spatial", "compressor-skid-deck.yaml"));
+        var original = File.ReadAllText(Path.Combine(AppContext.BaseDirectory, "models", "compressor-skid-deck.yaml"));
         var before = ModelReader.Read(original, "in.yaml").Model!.Network;
         var absorber = new Mass("absorber", 92.5, null) { Location = new Point3(0.35, 0.2, 1.05), Moves = [Core.Dofs.Direction.Z] };
         var springs = new[]
