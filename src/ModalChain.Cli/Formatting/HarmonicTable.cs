@@ -28,17 +28,27 @@ internal static class HarmonicTable
         o.WriteLine();
 
         o.WriteLine("Peaks over the sweep");
+        var (ru, rv, ra) = RotationRows.Units;
+        var network = system.Model.Network;
         var peaks = new TextTable("output", $"displacement [{du.Plain} peak]", "at [Hz]", $"velocity [{vu.Plain} peak]", "at [Hz]", $"acceleration [{au.Plain} peak]", "at [Hz]");
+        var rotationPeaks = new TextTable("output", $"rotation [{ru.Plain} peak]", "at [Hz]", $"angular velocity [{rv.Plain} peak]", "at [Hz]", $"angular acceleration [{ra.Plain} peak]", "at [Hz]");
         var all = result.Peaks();
         foreach (var r in result.Responses)
         {
             var p = all.Where(x => x.Dof == r.Dof).ToDictionary(x => x.Quantity);
-            peaks.Add(r.Dof,
-                Num(du.From(p[ResponseQuantity.Displacement].Magnitude)), p[ResponseQuantity.Displacement].FrequencyHz.ToString("F3", Inv),
-                Num(vu.From(p[ResponseQuantity.Velocity].Magnitude)), p[ResponseQuantity.Velocity].FrequencyHz.ToString("F3", Inv),
-                Num(au.From(p[ResponseQuantity.Acceleration].Magnitude)), p[ResponseQuantity.Acceleration].FrequencyHz.ToString("F3", Inv));
+            var turns = RotationRows.Is(network, r.Dof);
+            var (tu, tv, ta) = turns ? (ru, rv, ra) : (du, vu, au);
+            (turns ? rotationPeaks : peaks).Add(r.Dof,
+                Num(tu.From(p[ResponseQuantity.Displacement].Magnitude)), p[ResponseQuantity.Displacement].FrequencyHz.ToString("F3", Inv),
+                Num(tv.From(p[ResponseQuantity.Velocity].Magnitude)), p[ResponseQuantity.Velocity].FrequencyHz.ToString("F3", Inv),
+                Num(ta.From(p[ResponseQuantity.Acceleration].Magnitude)), p[ResponseQuantity.Acceleration].FrequencyHz.ToString("F3", Inv));
         }
         peaks.Write(o);
+        if (result.Responses.Any(r => RotationRows.Is(network, r.Dof)))
+        {
+            o.WriteLine();
+            rotationPeaks.Write(o);
+        }
         foreach (var p in all.Where(p => p.EdgeWarning is not null))
             o.WriteLine(string.Create(Inv,
                 $"  {p.Dof} {HarmonicJson.Name(p.Quantity)}: {p.EdgeWarning} ({(p.IsInterior ? "the peak shown is the largest inside the sweep" : "no peak inside the sweep; the value shown is at its end")})"));
@@ -69,15 +79,23 @@ internal static class HarmonicTable
             o.WriteLine();
             o.WriteLine(string.Create(Inv, $"Operating point {op.SpeedHz:G6} Hz ({60 * op.SpeedHz:G6} rpm): {string.Join(", ", op.Loads)}"));
             var table = new TextTable("output", $"displacement [{du.Plain} peak]", "phase [deg]", $"velocity [{vu.Plain} peak]", $"velocity [{vu.Plain} rms]", $"acceleration [{au.Plain} peak]");
+            var rotationTable = new TextTable("output", $"rotation [{ru.Plain} peak]", "phase [deg]", $"angular velocity [{rv.Plain} peak]", $"angular velocity [{rv.Plain} rms]", $"angular acceleration [{ra.Plain} peak]");
             foreach (var r in at.Responses)
             {
                 var x = r.At(0, op.SpeedHz, ResponseQuantity.Displacement);
-                table.Add(r.Dof, Num(du.From(x.Magnitude)), HarmonicJson.PhaseDegrees(x).ToString("F1", Inv),
-                    Num(vu.From(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude)),
-                    Num(vu.From(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude) / Math.Sqrt(2)),
-                    Num(au.From(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude)));
+                var turns = RotationRows.Is(network, r.Dof);
+                var (tu, tv, ta) = turns ? (ru, rv, ra) : (du, vu, au);
+                (turns ? rotationTable : table).Add(r.Dof, Num(tu.From(x.Magnitude)), HarmonicJson.PhaseDegrees(x).ToString("F1", Inv),
+                    Num(tv.From(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude)),
+                    Num(tv.From(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude) / Math.Sqrt(2)),
+                    Num(ta.From(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude)));
             }
             table.Write(o);
+            if (at.Responses.Any(r => RotationRows.Is(network, r.Dof)))
+            {
+                o.WriteLine();
+                rotationTable.Write(o);
+            }
             var forces = new TextTable("element or support", $"force [{fu.Plain} peak]", "phase [deg]");
             foreach (var e in at.ElementForces)
                 forces.Add($"{(e.Kind == ElementKind.Spring ? "spring" : "damper")} {e.Element}", Num(fu.From(e.Force[0].Magnitude)), HarmonicJson.PhaseDegrees(e.Force[0]).ToString("F1", Inv));

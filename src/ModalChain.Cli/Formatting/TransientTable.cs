@@ -27,16 +27,27 @@ internal static class TransientTable
         o.WriteLine();
 
         o.WriteLine($"Peaks (largest magnitude, with sign) and RMS over {window}");
+        var (ru, rv, ra) = RotationRows.Units;
         var motion = new TextTable("output", $"displacement [{du.Plain} peak]", "at [s]", $"displacement [{du.Plain} rms]", $"velocity [{vu.Plain} peak]", "at [s]", $"acceleration [{au.Plain} peak]", "at [s]");
+        var rotation = new TextTable("output", $"rotation [{ru.Plain} peak]", "at [s]", $"rotation [{ru.Plain} rms]", $"angular velocity [{rv.Plain} peak]", "at [s]", $"angular acceleration [{ra.Plain} peak]", "at [s]");
+        var rotations = 0;
         foreach (var name in result.Responses.Where(r => r.Quantity == ResponseQuantity.Displacement).Select(r => r.Name))
         {
             var u = result.Get(name, ResponseQuantity.Displacement);
             var v = result.Get(name, ResponseQuantity.Velocity);
             var a = result.Get(name, ResponseQuantity.Acceleration);
-            motion.Add(name, Num(du.From(u.Peak.Value)), Time(u.Peak.Time), Rms(du.From(u.Rms)), Num(vu.From(v.Peak.Value)), Time(v.Peak.Time),
-                Num(au.From(a.Peak.Value)), Time(a.Peak.Time));
+            var turns = RotationRows.Is(document.Network, name);
+            var (tu, tv, ta) = turns ? (ru, rv, ra) : (du, vu, au);
+            (turns ? rotation : motion).Add(name, Num(tu.From(u.Peak.Value)), Time(u.Peak.Time), Rms(tu.From(u.Rms)), Num(tv.From(v.Peak.Value)), Time(v.Peak.Time),
+                Num(ta.From(a.Peak.Value)), Time(a.Peak.Time));
+            if (turns) rotations++;
         }
         motion.Write(o);
+        if (rotations > 0)
+        {
+            o.WriteLine();
+            rotation.Write(o);
+        }
 
         var forces = result.Responses.Where(r => !Io.Json.TransientJson.IsMotion(r.Quantity) && r.Direction is null).ToArray();
         if (forces.Length > 0)

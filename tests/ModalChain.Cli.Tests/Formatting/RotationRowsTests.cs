@@ -1,0 +1,54 @@
+using System.Globalization;
+using System.Text.Json;
+using ModalChain.TestSupport;
+
+namespace ModalChain.Cli.Tests.Formatting;
+
+/// <summary>
+/// Rotations of plane and 3d models are angles: the harmonic and transient tables show them in a table of their own in
+/// mrad, never under a length column (they were printed as "mm" before: the radian value × 1000 under a length header).
+/// </summary>
+public class RotationRowsTests
+{
+    private static readonly string Cabinet = CliRun.ModelPath("instrument-cabinet-sway.yaml");
+
+    [Theory]
+    [InlineData("si")]
+    [InlineData("imperial")]
+    public void HarmonicPeaks_ShowTheRotationInMilliradians_InBothUnitSystems(string units)
+    {
+        var table = CliRun.Run("harmonic", Cabinet, "--units", units);
+        Assert.True(table.ExitCode == 0, table.ToString());
+        var json = CliRun.Run("harmonic", Cabinet, "--format", "json");
+        Assert.True(json.ExitCode == 0, json.ToString());
+        using var doc = JsonDocument.Parse(json.Stdout);
+        var radians = doc.RootElement.GetProperty("peaks").EnumerateArray()
+            .Single(p => p.GetProperty("dof").GetString() == "cabinet.ry" && p.GetProperty("quantity").GetString() == "displacement")
+            .GetProperty("magnitude").GetDouble();
+
+        var lines = table.Stdout.Split('\n');
+        var header = Array.FindIndex(lines, l => l.Contains("rotation [mrad peak]", StringComparison.Ordinal));
+        Assert.True(header > 0, table.Stdout);
+        var lengthHeader = Array.FindIndex(lines, l => l.Contains("displacement [", StringComparison.Ordinal));
+        Assert.True(lengthHeader >= 0 && lengthHeader < header, table.Stdout);
+        // Not in the length table: the row sits under the rotation header.
+        Assert.DoesNotContain(lines[lengthHeader..header], l => l.TrimStart().StartsWith("cabinet.ry", StringComparison.Ordinal));
+        var row = lines[header..].First(l => l.TrimStart().StartsWith("cabinet.ry", StringComparison.Ordinal));
+        var shown = double.Parse(row.Split(' ', StringSplitOptions.RemoveEmptyEntries)[1], CultureInfo.InvariantCulture);
+        // 1 mrad = 1e-3 rad (SI definition); the table prints four significant digits.
+        NumericAssert.Close(radians * 1e3, shown, Tolerance.Rel(5e-4), "cabinet.ry peak rotation in mrad");
+    }
+
+    [Fact]
+    public void TransientPeaks_ShowTheRotationInMilliradians()
+    {
+        var run = CliRun.Run("transient", Cabinet);
+        Assert.True(run.ExitCode == 0, run.ToString());
+        var lines = run.Stdout.Split('\n');
+        var header = Array.FindIndex(lines, l => l.Contains("rotation [mrad peak]", StringComparison.Ordinal) && l.Contains("angular velocity [mrad/s peak]", StringComparison.Ordinal));
+        Assert.True(header > 0, run.Stdout);
+        Assert.Contains(lines[header..], l => l.TrimStart().StartsWith("cabinet.ry", StringComparison.Ordinal));
+        var lengthHeader = Array.FindIndex(lines, l => l.Contains("displacement [mm peak]", StringComparison.Ordinal));
+        Assert.DoesNotContain(lines[lengthHeader..header], l => l.TrimStart().StartsWith("cabinet.ry", StringComparison.Ordinal));
+    }
+}
