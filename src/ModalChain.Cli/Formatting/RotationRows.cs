@@ -1,4 +1,5 @@
-using ModalChain.Core.Model;
+using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Dofs;
 using ModalChain.Reports.Units;
 
 namespace ModalChain.Cli.Formatting;
@@ -12,9 +13,8 @@ internal static class RotationRows
 {
     /// <summary>mrad, mrad/s and rad/s² for angle, angular velocity and angular acceleration.</summary>
     public static readonly (DisplayUnit Angle, DisplayUnit Rate, DisplayUnit Acceleration) Units =
-        (new DisplayUnit("mrad", "mrad", 1e-3), new DisplayUnit("mrad/s", "mrad/s", 1e-3), new DisplayUnit("rad/s²", "rad/s^2", 1));
+        (DisplayUnits.AngularOf(ResponseQuantity.Displacement), DisplayUnits.AngularOf(ResponseQuantity.Velocity), DisplayUnits.AngularOf(ResponseQuantity.Acceleration));
 
-    /// <summary>True when <paramref name="label"/> is a rotation DOF label of a plane or 3d model.</summary>
-    public static bool Is(Network network, string label) =>
-        network.Space != ModelSpace.Line && (label.EndsWith(".rx", StringComparison.Ordinal) || label.EndsWith(".ry", StringComparison.Ordinal) || label.EndsWith(".rz", StringComparison.Ordinal));
+    /// <summary>True when <paramref name="label"/> is a rotation DOF label of a plane or 3d model (see <see cref="DofMap.IsRotationLabel"/>).</summary>
+    public static bool Is(DofMap dofs, string label) => dofs.IsRotationLabel(label);
 }

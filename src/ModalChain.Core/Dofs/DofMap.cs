@@ -187,6 +187,16 @@ public sealed class DofMap
 
     private Dictionary<string, int>? _labels;
 
+    /// <summary>True when <paramref name="label"/> is the label of a rotation DOF (<c>skid.ry</c>) of a plane or 3d model:
+    /// its values are angles (rad, rad/s, rad/s²), not lengths.</summary>
+    public bool IsRotationLabel(string label)
+    {
+        ArgumentNullException.ThrowIfNull(label);
+        if (Space == ModelSpace.Line) return false;
+        var i = IndexOfLabel(label);
+        return i >= 0 && Dofs[i].Direction.IsRotation();
+    }
+
     /// <summary>
     /// The DOF labels an output name stands for: itself when it is a label (or, in a line model, a mass); in plane and
     /// 3d models the name of a mass or body stands for every DOF of that node (<c>skid</c> → <c>skid.x</c> … <c>skid.rz</c>).

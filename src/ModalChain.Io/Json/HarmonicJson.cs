@@ -2,6 +2,7 @@ using System.Numerics;
 using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Dofs;
 using ModalChain.Core.Model;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
@@ -29,7 +30,7 @@ public static class HarmonicJson
         w.WriteStartObject();
         w.WriteString("title", MarkupText.Clean(document.Network.Title));
         w.Source(document, toolVersion);
-        WriteSweep(w, result);
+        WriteSweep(w, result, DofMap.For(document.Network));
         w.WriteStartArray("cases");
         w.WriteEndArray();
         w.WriteNull("combination");
@@ -70,7 +71,7 @@ public static class HarmonicJson
         {
             w.WriteStartObject();
             w.WriteString("name", c.Case.Name);
-            WriteSweep(w, c.Result);
+            WriteSweep(w, c.Result, DofMap.For(document.Network));
             w.WriteStartArray("warnings");
             foreach (var warning in c.Result.Warnings) w.WriteStringValue(warning);
             w.WriteEndArray();
@@ -78,6 +79,7 @@ public static class HarmonicJson
         }
         w.WriteEndArray();
 
+        var dofs = DofMap.For(document.Network);
         w.WriteStartObject("combination");
         w.WriteString("rule", LoadCaseSelection.Name(result.Rule));
         w.WriteString("rule_description", LoadCaseSelection.Describe(result.Rule));
@@ -90,7 +92,7 @@ public static class HarmonicJson
                     w.WriteStartObject();
                     w.WriteString("dof", r.Dof);
                     w.WriteString("quantity", Name(q));
-                    w.WriteString("unit", Unit(q));
+                    w.WriteString("unit", Unit(q, dofs.IsRotationLabel(r.Dof)));
                     w.WriteString("amplitude", rms ? "rms" : "peak");
                     w.Number("magnitude", rms ? r.Rms(q, result.Rule) : r.Peak(q, result.Rule));
                     w.WriteStartArray("components");
@@ -122,7 +124,7 @@ public static class HarmonicJson
     }
 
     /// <summary>The fields of one sweep, from "method" to "notes".</summary>
-    private static void WriteSweep(Utf8JsonWriter w, HarmonicResult result)
+    private static void WriteSweep(Utf8JsonWriter w, HarmonicResult result, DofMap dofs)
     {
         w.WriteString("method", result.Method == HarmonicMethod.Modal ? "modal" : "direct");
         w.WriteNumber("modes_used", result.ModesUsed);
@@ -139,7 +141,7 @@ public static class HarmonicJson
                 w.WriteStartObject();
                 w.WriteString("dof", r.Dof);
                 w.WriteString("quantity", Name(q));
-                w.WriteString("unit", Unit(q));
+                w.WriteString("unit", Unit(q, dofs.IsRotationLabel(r.Dof)));
                 w.WriteString("amplitude", "peak");
                 Series(w, values);
                 w.WriteEndObject();
@@ -205,7 +207,7 @@ public static class HarmonicJson
             w.WriteStartObject();
             w.WriteString("dof", p.Dof);
             w.WriteString("quantity", Name(p.Quantity));
-            w.WriteString("unit", Unit(p.Quantity));
+            w.WriteString("unit", Unit(p.Quantity, dofs.IsRotationLabel(p.Dof)));
             w.WriteString("amplitude", "peak");
             w.Number("magnitude", p.Magnitude);
             w.Number("frequency_hz", p.FrequencyHz);
@@ -234,7 +236,7 @@ public static class HarmonicJson
                     w.WriteStartObject();
                     w.WriteString("dof", r.Dof);
                     w.WriteString("quantity", Name(q));
-                    w.WriteString("unit", Unit(q));
+                    w.WriteString("unit", Unit(q, dofs.IsRotationLabel(r.Dof)));
                     w.WriteString("amplitude", "peak");
                     Point(w, r.At(0, op.SpeedHz, q));
                     w.WriteEndObject();
@@ -288,6 +290,14 @@ public static class HarmonicJson
     public static string Name(ResponseQuantity q) => q.ToString().ToLowerInvariant();
 
     /// <summary>The SI unit of a quantity as written in JSON and CSV headers.</summary>
+    /// <summary>The SI unit of <paramref name="q"/>: of an angle (rad, rad/s, rad/s^2) when <paramref name="rotation"/>.</summary>
+    public static string Unit(ResponseQuantity q, bool rotation) => !rotation ? Unit(q) : q switch
+    {
+        ResponseQuantity.Displacement => "rad",
+        ResponseQuantity.Velocity => "rad/s",
+        _ => "rad/s^2",
+    };
+
     public static string Unit(ResponseQuantity q) => q switch
     {
         ResponseQuantity.Displacement => "m",

@@ -296,7 +296,7 @@ public static partial class ModelReader
         }
     }
 
-    private static readonly Range InertiaRange = new(0, 1e12, MinimumInclusive: false);           // kg·m²
+    private static readonly Range InertiaRange = new(1e-9, 1e12);                                  // kg·m² (a subnormal moment made NaN frequencies)
     private static readonly Range OffDiagonalInertiaRange = new(-1e12, 1e12);                     // kg·m²
 
     /// <summary>Three mutually perpendicular directions (plain numbers), each scaled to unit length.</summary>

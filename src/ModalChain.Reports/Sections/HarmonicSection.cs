@@ -93,16 +93,6 @@ public sealed class HarmonicSection : IReportSection
     public static string FigureName(string dof, ResponseQuantity quantity) =>
         quantity == ResponseQuantity.Displacement ? FigureName(dof) : FigureName(dof) + "-" + quantity.ToString().ToLowerInvariant();
 
-    /// <summary>Display symbol and SI amount per display unit of <paramref name="quantity"/>.</summary>
-    private (string Symbol, double Scale) UnitOf(ResponseQuantity quantity) => (_context.Units.Of(quantity).Symbol, _context.Units.Of(quantity).Factor);
-
-    /// <summary>Display unit of displacement amplitude: mm (SI) or in (imperial), and metres per unit.</summary>
-    private (string Symbol, double Metres) Displacement => UnitOf(ResponseQuantity.Displacement);
-
-    private (string Symbol, double MetresPerSecond) Velocity => UnitOf(ResponseQuantity.Velocity);
-
-    private (string Symbol, double MetresPerSecondSquared) Acceleration => UnitOf(ResponseQuantity.Acceleration);
-
     /// <inheritdoc />
     public void WriteHtml(HtmlWriter html)
     {
@@ -115,22 +105,27 @@ public sealed class HarmonicSection : IReportSection
         foreach (var note in _result.Notes) html.Paragraph(note, "note");
         foreach (var warning in _result.Warnings) html.Paragraph("Warning: " + warning, "note");
 
-        var (dSym, dScale) = Displacement;
-        var (vSym, vScale) = Velocity;
-        var (aSym, aScale) = Acceleration;
         var force = _context.Units.Force;
         var peaks = _result.Peaks();
-        html.Table("Largest response over the sweep",
-            ["Mass", $"Displacement ({dSym} peak)", "at (Hz)", $"Velocity ({vSym} peak)", "at (Hz)", $"Acceleration ({aSym} peak)", "at (Hz)"],
-            _result.Responses.Select(r =>
-            {
-                ResponsePeak P(ResponseQuantity q) => peaks.First(p => p.Dof == r.Dof && p.Quantity == q);
-                var d = P(ResponseQuantity.Displacement);
-                var v = P(ResponseQuantity.Velocity);
-                var a = P(ResponseQuantity.Acceleration);
-                return (IReadOnlyList<string>)[r.Dof, DisplayUnits.Number(d.Magnitude / dScale), DisplayUnits.Number(d.FrequencyHz),
-                    DisplayUnits.Number(v.Magnitude / vScale), DisplayUnits.Number(v.FrequencyHz), DisplayUnits.Number(a.Magnitude / aScale), DisplayUnits.Number(a.FrequencyHz)];
-            }), new HashSet<int> { 1, 2, 3, 4, 5, 6 });
+        var dofs = Core.Dofs.DofMap.For(_context.Document.Network);
+        foreach (var rotation in new[] { false, true })
+        {
+            var rows = _result.Responses.Where(r => dofs.IsRotationLabel(r.Dof) == rotation).ToArray();
+            if (rotation && rows.Length == 0) continue;
+            var (du, vu, au) = (_context.Units.Of(ResponseQuantity.Displacement, rotation), _context.Units.Of(ResponseQuantity.Velocity, rotation), _context.Units.Of(ResponseQuantity.Acceleration, rotation));
+            html.Table(rotation ? "Largest rotation over the sweep" : "Largest response over the sweep",
+                [rotation ? "Rotation DOF" : "Mass", $"{DisplayUnits.Word(ResponseQuantity.Displacement, rotation)} ({du.Symbol} peak)", "at (Hz)",
+                 $"{DisplayUnits.Word(ResponseQuantity.Velocity, rotation)} ({vu.Symbol} peak)", "at (Hz)", $"{DisplayUnits.Word(ResponseQuantity.Acceleration, rotation)} ({au.Symbol} peak)", "at (Hz)"],
+                rows.Select(r =>
+                {
+                    ResponsePeak P(ResponseQuantity q) => peaks.First(p => p.Dof == r.Dof && p.Quantity == q);
+                    var d = P(ResponseQuantity.Displacement);
+                    var v = P(ResponseQuantity.Velocity);
+                    var a = P(ResponseQuantity.Acceleration);
+                    return (IReadOnlyList<string>)[r.Dof, DisplayUnits.Number(du.From(d.Magnitude)), DisplayUnits.Number(d.FrequencyHz),
+                        DisplayUnits.Number(vu.From(v.Magnitude)), DisplayUnits.Number(v.FrequencyHz), DisplayUnits.Number(au.From(a.Magnitude)), DisplayUnits.Number(a.FrequencyHz)];
+                }), new HashSet<int> { 1, 2, 3, 4, 5, 6 });
+        }
         foreach (var p in peaks.Where(p => p.EdgeWarning is not null))
             html.Paragraph(string.Create(Inv,
                 $"{p.Dof}, {HarmonicJson.Name(p.Quantity)}: {p.EdgeWarning} ({(p.IsInterior ? "the peak shown is the largest inside the sweep" : "no peak inside the sweep; the value shown is at its end")})."), "note");
@@ -140,17 +135,24 @@ public sealed class HarmonicSection : IReportSection
         foreach (var op in _result.OperatingPoints)
         {
             var at = op.Response;
-            html.Table(string.Create(Inv, $"At the running speed {DisplayUnits.Number(op.SpeedHz * 60)} rpm ({DisplayUnits.Number(op.SpeedHz)} Hz): {string.Join(", ", op.Loads)}"),
-                ["Mass", $"Displacement ({dSym} peak)", $"Velocity ({vSym} peak)", $"Velocity ({vSym} r.m.s.)", $"Acceleration ({aSym} peak)", "Phase of displacement (°)"],
-                at.Responses.Select(r => (IReadOnlyList<string>)
-                [
-                    r.Dof,
-                    DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Displacement).Magnitude / dScale),
-                    DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude / vScale),
-                    DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude / vScale / Math.Sqrt(2)),
-                    DisplayUnits.Number(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude / aScale),
-                    DisplayUnits.Number(HarmonicJson.PhaseDegrees(r.Displacement[0])),
-                ]), new HashSet<int> { 1, 2, 3, 4, 5 });
+            foreach (var rotation in new[] { false, true })
+            {
+                var rows = at.Responses.Where(r => dofs.IsRotationLabel(r.Dof) == rotation).ToArray();
+                if (rotation && rows.Length == 0) continue;
+                var (du, vu, au) = (_context.Units.Of(ResponseQuantity.Displacement, rotation), _context.Units.Of(ResponseQuantity.Velocity, rotation), _context.Units.Of(ResponseQuantity.Acceleration, rotation));
+                var (dw, vw, aw) = (DisplayUnits.Word(ResponseQuantity.Displacement, rotation), DisplayUnits.Word(ResponseQuantity.Velocity, rotation), DisplayUnits.Word(ResponseQuantity.Acceleration, rotation));
+                html.Table(string.Create(Inv, $"At the running speed {DisplayUnits.Number(op.SpeedHz * 60)} rpm ({DisplayUnits.Number(op.SpeedHz)} Hz): {string.Join(", ", op.Loads)}{(rotation ? ", rotations" : "")}"),
+                    [rotation ? "Rotation DOF" : "Mass", $"{dw} ({du.Symbol} peak)", $"{vw} ({vu.Symbol} peak)", $"{vw} ({vu.Symbol} r.m.s.)", $"{aw} ({au.Symbol} peak)", $"Phase of {dw.ToLowerInvariant()} (°)"],
+                    rows.Select(r => (IReadOnlyList<string>)
+                    [
+                        r.Dof,
+                        DisplayUnits.Number(du.From(r.At(0, op.SpeedHz, ResponseQuantity.Displacement).Magnitude)),
+                        DisplayUnits.Number(vu.From(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude)),
+                        DisplayUnits.Number(vu.From(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude) / Math.Sqrt(2)),
+                        DisplayUnits.Number(au.From(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude)),
+                        DisplayUnits.Number(HarmonicJson.PhaseDegrees(r.Displacement[0])),
+                    ]), new HashSet<int> { 1, 2, 3, 4, 5 });
+            }
             if (at.Reactions.Length > 0)
                 html.Table("Force into each support at that speed", ["Support", $"Force amplitude ({force.Symbol} peak)", "Phase (°)"],
                     at.Reactions.Select(r => (IReadOnlyList<string>)[r.Support, force.Format(r.Force[0].Magnitude), DisplayUnits.Number(HarmonicJson.PhaseDegrees(r.Force[0]))]),
@@ -175,8 +177,10 @@ public sealed class HarmonicSection : IReportSection
 
     private ChartFigure ResponseChart(DofResponse response, ResponseQuantity quantity, bool logFrequency)
     {
-        var (dSym, dScale) = UnitOf(quantity);
-        var word = quantity.ToString();
+        var rotation = Core.Dofs.DofMap.For(_context.Document.Network).IsRotationLabel(response.Dof);
+        var unit = _context.Units.Of(quantity, rotation);
+        var (dSym, dScale) = (unit.Symbol, unit.Factor);
+        var word = DisplayUnits.Word(quantity, rotation);
         var f = _result.FrequenciesHz;
         var values = Enumerable.Range(0, f.Length).Select(k => response.At(k, f[k], quantity)).ToArray();
         var model = Charts.Create($"Harmonic response of {response.Dof}{(quantity == ResponseQuantity.Displacement ? "" : ": " + word.ToLowerInvariant())}",

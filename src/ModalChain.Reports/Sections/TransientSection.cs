@@ -95,8 +95,8 @@ public sealed class TransientSection : IReportSection
         html.Table("Peaks and RMS of each recorded response",
             ["Response", "Quantity", "Unit", "Peak (largest magnitude, signed)", "at (s)", "RMS"],
             _result.Responses.Where(r => !MountForceTables.IsMount(r)).Select(r => (IReadOnlyList<string>)
-                [r.Name, DisplayUnits.Words(r.Quantity), u.Of(r.Quantity).Symbol, u.Of(r.Quantity).Format(r.Peak.Value), DisplayUnits.Number(r.Peak.Time),
-                    double.IsNaN(r.Rms) ? "n/a" : u.Of(r.Quantity).Format(r.Rms)]),
+                [r.Name, Rotation(r) ? Word(r).ToLowerInvariant() : DisplayUnits.Words(r.Quantity), UnitOf(r).Symbol, UnitOf(r).Format(r.Peak.Value), DisplayUnits.Number(r.Peak.Time),
+                    double.IsNaN(r.Rms) ? "n/a" : UnitOf(r).Format(r.Rms)]),
             new HashSet<int> { 3, 4, 5 });
         MountForceTables.WriteTransient(html, _result, u);
         var e = _result.Energy;
@@ -142,8 +142,8 @@ public sealed class TransientSection : IReportSection
 
     private ChartFigure HistoryChart(ResponseHistory history)
     {
-        var (symbol, scale) = (_context.Units.Of(history.Quantity).Symbol, _context.Units.Of(history.Quantity).Factor);
-        var word = history.Quantity.ToString();
+        var (symbol, scale) = (UnitOf(history).Symbol, UnitOf(history).Factor);
+        var word = Word(history);
         var model = Charts.Create($"{word} of {history.Name}", $"{_context.Document.Network.Title}: transient");
         model.Axes.Add(Charts.Linear(AxisPosition.Bottom, "Time (s)", _result.Times[0], _result.Times[^1]));
         var largest = history.Values.Max(Math.Abs) / scale;
@@ -171,4 +171,20 @@ public sealed class TransientSection : IReportSection
         var caption = string.Create(Inv, $"{word} of {history.Name} against time; the largest magnitude (the peak) is marked with a diamond.");
         return new ChartFigure(FigureName(history.Name, history.Quantity), caption, model, height: 320);
     }
+
+    /// <summary>A recorded motion of a rotation DOF (its SI unit is rad, rad/s or rad/s²).</summary>
+    private static bool Rotation(ResponseHistory r) => r.Unit.StartsWith("rad", StringComparison.Ordinal);
+
+    private static Core.Analyses.Harmonic.ResponseQuantity Motion(ResponseQuantity q) => q switch
+    {
+        ResponseQuantity.Displacement => Core.Analyses.Harmonic.ResponseQuantity.Displacement,
+        ResponseQuantity.Velocity => Core.Analyses.Harmonic.ResponseQuantity.Velocity,
+        _ => Core.Analyses.Harmonic.ResponseQuantity.Acceleration,
+    };
+
+    /// <summary>The display unit of <paramref name="r"/>: mrad, mrad/s, rad/s² for a rotation, the length or force unit otherwise.</summary>
+    private DisplayUnit UnitOf(ResponseHistory r) => Rotation(r) ? DisplayUnits.AngularOf(Motion(r.Quantity)) : _context.Units.Of(r.Quantity);
+
+    /// <summary>"Rotation", "Angular velocity", ... for a rotation; the quantity's name otherwise.</summary>
+    private static string Word(ResponseHistory r) => Rotation(r) ? DisplayUnits.Word(Motion(r.Quantity), rotation: true) : r.Quantity.ToString();
 }

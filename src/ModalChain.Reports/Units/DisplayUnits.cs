@@ -109,6 +109,26 @@ public sealed class DisplayUnits
         _ => Acceleration,
     };
 
+    /// <summary>Rotations of plane and 3d models: angle in mrad, angular velocity in mrad/s, angular acceleration in rad/s²
+    /// (the same in every unit system).</summary>
+    public static DisplayUnit AngularOf(Core.Analyses.Harmonic.ResponseQuantity quantity) => quantity switch
+    {
+        Core.Analyses.Harmonic.ResponseQuantity.Displacement => new DisplayUnit("mrad", "mrad", 1e-3),
+        Core.Analyses.Harmonic.ResponseQuantity.Velocity => new DisplayUnit("mrad/s", "mrad/s", 1e-3),
+        _ => new DisplayUnit("rad/s²", "rad/s^2", 1),
+    };
+
+    /// <summary>The unit of <paramref name="quantity"/> at a DOF that is a rotation (<paramref name="rotation"/>) or a translation.</summary>
+    public DisplayUnit Of(Core.Analyses.Harmonic.ResponseQuantity quantity, bool rotation) => rotation ? AngularOf(quantity) : Of(quantity);
+
+    /// <summary>"Rotation", "Angular velocity", "Angular acceleration" for a rotation; "Displacement", "Velocity", "Acceleration" otherwise.</summary>
+    public static string Word(Core.Analyses.Harmonic.ResponseQuantity quantity, bool rotation) => !rotation ? quantity.ToString() : quantity switch
+    {
+        Core.Analyses.Harmonic.ResponseQuantity.Displacement => "Rotation",
+        Core.Analyses.Harmonic.ResponseQuantity.Velocity => "Angular velocity",
+        _ => "Angular acceleration",
+    };
+
     /// <summary>The unit of a recorded transient quantity (motions and forces).</summary>
     public DisplayUnit Of(Core.Analyses.Transient.ResponseQuantity quantity) => quantity switch
     {

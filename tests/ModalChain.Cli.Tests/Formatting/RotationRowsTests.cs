@@ -51,4 +51,50 @@ public class RotationRowsTests
         var lengthHeader = Array.FindIndex(lines, l => l.Contains("displacement [mm peak]", StringComparison.Ordinal));
         Assert.DoesNotContain(lines[lengthHeader..header], l => l.TrimStart().StartsWith("cabinet.ry", StringComparison.Ordinal));
     }
+
+    [Fact]
+    public void Json_GivesTheRotationsUnitAsRadians()
+    {
+        // The JSON is SI: a rotation DOF's motion is in rad, rad/s, rad/s^2 (it said m, m/s, m/s^2 before).
+        var harmonic = CliRun.Run("harmonic", Cabinet, "--format", "json");
+        Assert.True(harmonic.ExitCode == 0, harmonic.ToString());
+        using (var doc = JsonDocument.Parse(harmonic.Stdout))
+        {
+            var units = doc.RootElement.GetProperty("peaks").EnumerateArray().Where(p => p.GetProperty("dof").GetString() == "cabinet.ry")
+                .ToDictionary(p => p.GetProperty("quantity").GetString()!, p => p.GetProperty("unit").GetString());
+            Assert.Equal("rad", units["displacement"]);
+            Assert.Equal("rad/s", units["velocity"]);
+            Assert.Equal("rad/s^2", units["acceleration"]);
+            Assert.All(doc.RootElement.GetProperty("peaks").EnumerateArray().Where(p => p.GetProperty("dof").GetString() == "cabinet.x"),
+                p => Assert.StartsWith("m", p.GetProperty("unit").GetString(), StringComparison.Ordinal));
+        }
+        var transient = CliRun.Run("transient", Cabinet, "--format", "json");
+        Assert.True(transient.ExitCode == 0, transient.ToString());
+        using (var doc = JsonDocument.Parse(transient.Stdout))
+        {
+            var units = doc.RootElement.GetProperty("responses").EnumerateArray().Where(p => p.GetProperty("dof").GetString() == "cabinet.ry")
+                .Select(p => p.GetProperty("unit").GetString()!).ToArray();
+            Assert.Equal(["rad", "rad/s", "rad/s^2"], units);
+        }
+    }
+
+    [Fact]
+    public void Report_ShowsRotationsInMilliradians_InTablesAndCharts()
+    {
+        var dir = Path.Combine(Path.GetTempPath(), "mc-rot-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            var run = CliRun.Run("report", Cabinet, "-o", dir);
+            Assert.True(run.ExitCode == 0, run.ToString());
+            var html = File.ReadAllText(Path.Combine(dir, "report.html"));
+            Assert.Contains("Largest rotation over the sweep", html, StringComparison.Ordinal);
+            Assert.Contains("Rotation (mrad peak)", html, StringComparison.Ordinal);
+            Assert.Contains("Rotation amplitude (mrad peak)", html, StringComparison.Ordinal);
+            Assert.Contains("Rotation (mrad, instantaneous)", html, StringComparison.Ordinal);
+        }
+        finally
+        {
+            if (Directory.Exists(dir)) Directory.Delete(dir, recursive: true);
+        }
+    }
 }

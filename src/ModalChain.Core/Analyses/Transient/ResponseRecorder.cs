@@ -22,12 +22,15 @@ internal sealed record Probe(
 {
     public string Unit => Quantity switch
     {
-        ResponseQuantity.Displacement => "m",
-        ResponseQuantity.Velocity => "m/s",
-        ResponseQuantity.Acceleration => "m/s^2",
+        ResponseQuantity.Displacement => Rotation ? "rad" : "m",
+        ResponseQuantity.Velocity => Rotation ? "rad/s" : "m/s",
+        ResponseQuantity.Acceleration => Rotation ? "rad/s^2" : "m/s^2",
         _ when Direction is "rx" or "ry" or "rz" => "N*m",
         _ => "N",
     };
+
+    /// <summary>Plane and 3d models: the probe reads a rotation DOF, so its motion is in rad, rad/s and rad/s².</summary>
+    public bool Rotation { get; init; }
 
     /// <summary>Plane and 3d models: the direction label of a spring or damper force (<c>x</c> … <c>rz</c>, <c>axial</c>); null otherwise.</summary>
     public string? Direction { get; init; }

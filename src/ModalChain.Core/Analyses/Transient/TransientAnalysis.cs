@@ -439,9 +439,10 @@ public static class TransientAnalysis
         {
             var i = spatial ? dofs.IndexOfLabel(name) : dofs.IndexOf(name);
             if (i < 0) throw new ArgumentException($"Output '{name}' is not a mass.", nameof(settings));
-            probes.Add(new Probe(name, ResponseQuantity.Displacement, [(i, 1.0)], [], [], []));
-            probes.Add(new Probe(name, ResponseQuantity.Velocity, [], [(i, 1.0)], [], []));
-            probes.Add(new Probe(name, ResponseQuantity.Acceleration, [], [], [(i, 1.0)], []));
+            var rotation = spatial && dofs.Dofs[i].Direction.IsRotation();
+            probes.Add(new Probe(name, ResponseQuantity.Displacement, [(i, 1.0)], [], [], []) { Rotation = rotation });
+            probes.Add(new Probe(name, ResponseQuantity.Velocity, [], [(i, 1.0)], [], []) { Rotation = rotation });
+            probes.Add(new Probe(name, ResponseQuantity.Acceleration, [], [], [(i, 1.0)], []) { Rotation = rotation });
         }
 
         var wanted = outputs.ToHashSet();
