@@ -1,6 +1,7 @@
 using System.Globalization;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Dofs;
 using ModalChain.Core.Assembly;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
@@ -32,7 +33,10 @@ internal static class HarmonicCaseTable
         o.WriteLine($"Combination of the load cases at their running speeds, rule: {LoadCaseSelection.Name(result.Rule)}");
         var combined = new TextTable("output", $"displacement [{du.Plain} peak, {Rule(result)}]", $"velocity [{vu.Plain} peak, {Rule(result)}]",
             $"velocity [{vu.Plain} rms, {Rule(result)}]", $"acceleration [{au.Plain} peak, {Rule(result)}]", "components");
-        foreach (var r in result.Combined)
+        var dofs = DofMap.For(document.Network);
+        var translations = result.Combined.Where(r => !dofs.IsRotationLabel(r.Dof)).ToArray();
+        var rotations = result.Combined.Where(r => dofs.IsRotationLabel(r.Dof)).Select(r => r.Dof).ToArray();
+        foreach (var r in translations)
             combined.Add(r.Dof,
                 HarmonicTable.Num(du.From(r.Peak(ResponseQuantity.Displacement, result.Rule))),
                 HarmonicTable.Num(vu.From(r.Peak(ResponseQuantity.Velocity, result.Rule))),
@@ -42,12 +46,14 @@ internal static class HarmonicCaseTable
         combined.Write(o);
         o.WriteLine();
         var parts = new TextTable("output", "case", "speed [Hz]", "speed [rpm]", $"displacement [{du.Plain} peak]", $"velocity [{vu.Plain} peak]", $"velocity [{vu.Plain} rms]", $"acceleration [{au.Plain} peak]");
-        foreach (var r in result.Combined)
+        foreach (var r in translations)
             foreach (var c in r.Components)
                 parts.Add(r.Dof, c.Case, c.SpeedHz.ToString("G6", Inv), (60 * c.SpeedHz).ToString("G6", Inv),
                     HarmonicTable.Num(du.From(c.Peak(ResponseQuantity.Displacement))), HarmonicTable.Num(vu.From(c.Peak(ResponseQuantity.Velocity))),
                     HarmonicTable.Num(vu.From(c.Peak(ResponseQuantity.Velocity)) / Math.Sqrt(2)), HarmonicTable.Num(au.From(c.Peak(ResponseQuantity.Acceleration))));
         parts.Write(o);
+        if (rotations.Length > 0)
+            o.WriteLine($"Rotations ({string.Join(", ", rotations)}) are angles and are left out of these length tables; their combined values are in --format json (rad, rad/s, rad/s^2).");
         o.WriteLine();
         o.WriteLine("Rule " + LoadCaseSelection.Describe(result.Rule) + ".");
         foreach (var n in result.Notes) o.WriteLine("Note: " + n + ".");

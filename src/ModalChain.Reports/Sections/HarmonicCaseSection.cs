@@ -56,9 +56,12 @@ public sealed class HarmonicCaseSection : IReportSection
         var (dSym, dScale) = Displacement;
         var (vSym, vScale) = Velocity;
         var (aSym, aScale) = Acceleration;
+        var dofs = Core.Dofs.DofMap.For(_context.Document.Network);
+        var translations = _result.Combined.Where(r => !dofs.IsRotationLabel(r.Dof)).ToArray();
+        var rotations = _result.Combined.Where(r => dofs.IsRotationLabel(r.Dof)).Select(r => r.Dof).ToArray();
         html.Table($"Combined response, rule: {rule}",
             ["Mass", $"Displacement ({dSym} peak)", $"Velocity ({vSym} peak)", $"Velocity ({vSym} r.m.s.)", $"Acceleration ({aSym} peak)", "Components"],
-            _result.Combined.Select(r => (IReadOnlyList<string>)
+            translations.Select(r => (IReadOnlyList<string>)
             [
                 r.Dof,
                 DisplayUnits.Number(r.Peak(ResponseQuantity.Displacement, _result.Rule) / dScale),
@@ -69,13 +72,15 @@ public sealed class HarmonicCaseSection : IReportSection
             ]), new HashSet<int> { 1, 2, 3, 4 });
         html.Table("Components: each case at each of its running speeds",
             ["Mass", "Case", "Speed (rpm)", $"Displacement ({dSym} peak)", $"Velocity ({vSym} r.m.s.)", $"Acceleration ({aSym} peak)"],
-            _result.Combined.SelectMany(r => r.Components.Select(c => (IReadOnlyList<string>)
+            translations.SelectMany(r => r.Components.Select(c => (IReadOnlyList<string>)
             [
                 r.Dof, c.Case, DisplayUnits.Number(c.SpeedHz * 60),
                 DisplayUnits.Number(c.Peak(ResponseQuantity.Displacement) / dScale),
                 DisplayUnits.Number(c.Peak(ResponseQuantity.Velocity) / Math.Sqrt(2) / vScale),
                 DisplayUnits.Number(c.Peak(ResponseQuantity.Acceleration) / aScale),
             ])), new HashSet<int> { 2, 3, 4, 5 });
+        if (rotations.Length > 0)
+            html.Paragraph($"Rotations ({string.Join(", ", rotations)}) are angles and are left out of these length tables; their combined values are in results.json (rad, rad/s, rad/s²).", "note");
         html.Paragraph("Rule " + LoadCaseSelection.Describe(_result.Rule) + ".", "note");
         foreach (var note in _result.Notes) html.Paragraph(note, "note");
     }

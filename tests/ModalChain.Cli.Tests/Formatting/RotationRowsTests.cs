@@ -97,4 +97,27 @@ public class RotationRowsTests
             if (Directory.Exists(dir)) Directory.Delete(dir, recursive: true);
         }
     }
+
+    [Fact]
+    public void LoadCaseCombination_LeavesRotationsOutOfTheLengthTables_AndSaysWhere()
+    {
+        var text = File.ReadAllText(Cabinet)
+            .Replace("harmonic:\n  loads: [floor-shake]\n", "load-cases:\n  shake: [floor-shake]\n  knock-free: [floor-shake]\n\nharmonic:\n  cases: [shake, knock-free]\n  combine: rms\n", StringComparison.Ordinal);
+        Assert.Contains("load-cases:", text, StringComparison.Ordinal);
+        var path = Path.Combine(Path.GetTempPath(), "mc-rot-cases-" + Guid.NewGuid().ToString("N") + ".yaml");
+        try
+        {
+            File.WriteAllText(path, text);
+            var run = CliRun.Run("harmonic", path);
+            Assert.True(run.ExitCode == 0, run.ToString());
+            var combination = run.Stdout[run.Stdout.IndexOf("Combination of the load cases", StringComparison.Ordinal)..];
+            Assert.DoesNotContain(combination.Split('\n'), l => l.TrimStart().StartsWith("cabinet.ry", StringComparison.Ordinal));
+            Assert.Contains("Rotations (cabinet.ry) are angles and are left out of these length tables", combination, StringComparison.Ordinal);
+            Assert.Contains(combination.Split('\n'), l => l.TrimStart().StartsWith("cabinet.x", StringComparison.Ordinal));
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
 }
