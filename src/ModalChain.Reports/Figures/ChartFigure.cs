@@ -22,16 +22,28 @@ public sealed partial class ChartFigure : ReportFigure
 
     /// <summary>Creates a chart figure of <paramref name="width"/> × <paramref name="height"/> user units.</summary>
     public ChartFigure(string name, string caption, PlotModel model, double width = NetworkFigure.Width, double height = 380)
-        : base(name, caption, "chart")
+        : base(name, Prepare(model, caption, width, height), "chart")
     {
-        ArgumentNullException.ThrowIfNull(model);
         Model = model;
         Width = width;
         Height = height;
+        _svg = new Lazy<string>(Export);
+    }
+
+    /// <summary>
+    /// Sets the chart's font, cleans its texts and places its <see cref="CurveLabel"/>s at the final size; returns
+    /// <paramref name="caption"/>, with a note when a label found no room and was left out rather than drawn cut off.
+    /// </summary>
+    private static string Prepare(PlotModel model, string caption, double width, double height)
+    {
+        ArgumentNullException.ThrowIfNull(model);
         Charts.ApplyFont(model);
         CleanTexts(model);
-        ChartLabels.Place(model, width, height);
-        _svg = new Lazy<string>(Export);
+        var omitted = ChartLabels.Place(model, width, height);
+        return omitted == 0
+            ? caption
+            : caption + string.Create(CultureInfo.InvariantCulture,
+                $" {omitted} chart label{(omitted == 1 ? " was" : "s were")} left out where the plot had no free room for {(omitted == 1 ? "it" : "them")}; the tables give every value.");
     }
 
     /// <summary>The chart.</summary>

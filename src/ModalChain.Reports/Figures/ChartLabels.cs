@@ -57,13 +57,20 @@ public static class ChartLabels
     /// <summary>
     /// Lays <paramref name="model"/> out at <paramref name="width"/> × <paramref name="height"/> and gives every
     /// <see cref="CurveLabel"/> a position inside the plot area that overlaps no other label, preferring positions that
-    /// cross no curve or marker line; a label for which the plot area has no room at all is removed.
+    /// cross no curve or marker line; a label for which the plot area has no room at all is removed. Returns how many
+    /// labels were removed, so the figure's caption can say so.
     /// </summary>
-    public static void Place(PlotModel model, double width, double height)
+    /// <remarks>
+    /// A label's room is the part of the plot area its own axes span (a chart with two stacked panels, like the harmonic
+    /// chart's magnitude over phase, clips each label to its panel), less <see cref="Gap"/>; a legend drawn inside the plot
+    /// area is kept clear like another label.
+    /// </remarks>
+    public static int Place(PlotModel model, double width, double height)
     {
         ArgumentNullException.ThrowIfNull(model);
         var labels = model.Annotations.OfType<CurveLabel>().ToList();
-        if (labels.Count == 0) return;
+        if (labels.Count == 0) return 0;
+        var omitted = 0;
         lock (model.SyncRoot)
         {
             // The same render context as the exporters (no text shaping, user units), so the plot area and the text
@@ -74,17 +81,18 @@ public static class ChartLabels
             // A provisional position inside the axes' ranges for the layout pass; the real one is chosen below.
             foreach (var label in labels) label.TextPosition = new DataPoint(label.XAxis!.ActualMinimum, label.YAxis!.ActualMinimum);
             ((IPlotModel)model).Render(context, new OxyRect(0, 0, width, height));
-            var area = model.PlotArea;
-            var room = new OxyRect(area.Left + Gap, area.Top + Gap, Math.Max(0, area.Width - 2 * Gap), Math.Max(0, area.Height - 2 * Gap));
-            var obstacles = Obstacles(model, area);
-            var placed = new List<OxyRect>();
+            var obstacles = Obstacles(model, model.PlotArea);
+            var placed = new List<OxyRect>(model.Legends.Where(l => l.IsLegendVisible && l.LegendArea.Width > 0).Select(l => l.LegendArea));
             foreach (var label in labels)
             {
+                var area = Panel(label, model.PlotArea);
+                var room = new OxyRect(area.Left + Gap, area.Top + Gap, Math.Max(0, area.Width - 2 * Gap), Math.Max(0, area.Height - 2 * Gap));
                 var size = label.Measure(context);
                 var box = Choose(label, size, area, room, placed, obstacles);
                 if (box is not { } chosen)
                 {
                     model.Annotations.Remove(label);
+                    omitted++;
                     continue;
                 }
                 placed.Add(chosen);
@@ -94,6 +102,19 @@ public static class ChartLabels
                 label.TextPosition = label.InverseTransform(new ScreenPoint(chosen.Left, chosen.Top));
             }
         }
+        return omitted;
+    }
+
+    /// <summary>The part of <paramref name="plotArea"/> spanned by the label's own axes: the rectangle OxyPlot clips it to.</summary>
+    private static OxyRect Panel(CurveLabel label, OxyRect plotArea)
+    {
+        double x0 = Math.Min(label.XAxis!.ScreenMin.X, label.XAxis.ScreenMax.X), x1 = Math.Max(label.XAxis.ScreenMin.X, label.XAxis.ScreenMax.X);
+        double y0 = Math.Min(label.YAxis!.ScreenMin.Y, label.YAxis.ScreenMax.Y), y1 = Math.Max(label.YAxis.ScreenMin.Y, label.YAxis.ScreenMax.Y);
+        var left = Math.Max(plotArea.Left, x0);
+        var top = Math.Max(plotArea.Top, y0);
+        var right = Math.Min(plotArea.Right, x1);
+        var bottom = Math.Min(plotArea.Bottom, y1);
+        return right > left && bottom > top ? new OxyRect(left, top, right - left, bottom - top) : plotArea;
     }
 
     private static OxyRect? Choose(CurveLabel label, OxySize size, OxyRect area, OxyRect room, List<OxyRect> placed, List<(ScreenPoint A, ScreenPoint B)> obstacles)

@@ -221,10 +221,14 @@ public sealed class HarmonicSection : IReportSection
         model.Series.Add(angle);
         var curveTop = quantity == ResponseQuantity.Velocity ? AddFloorCurves(model, response.Dof, f.Min(), f.Max(), dScale) : 0;
 
-        foreach (var mode in _context.Damped.Modes.Modes.Where(m => !m.IsRigidBody && m.NaturalFrequencyHz >= f.Min() && m.NaturalFrequencyHz <= f.Max()).Take(12))
-            model.Annotations.Add(Marker(mode.NaturalFrequencyHz, string.Create(Inv, $"f{mode.Number} {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz"), Palette.Grey, LineStyle.Dash));
+        // Marker and peak labels are CurveLabels, placed by ChartLabels inside the magnitude panel and clear of each other;
+        // the peak's label first, then the running speeds, then the natural frequencies (a label without room is left out).
+        var labels = new List<CurveLabel>();
+        var markers = new List<CurveLabel>();
         foreach (var op in _result.OperatingPoints)
-            model.Annotations.Add(Marker(op.SpeedHz, string.Create(Inv, $"{DisplayUnits.Number(op.SpeedHz * 60)} rpm"), Palette.Orange, LineStyle.DashDot));
+            markers.Add(Marker(model, op.SpeedHz, string.Create(Inv, $"{DisplayUnits.Number(op.SpeedHz * 60)} rpm"), Palette.Orange, LineStyle.DashDot));
+        foreach (var mode in _context.Damped.Modes.Modes.Where(m => !m.IsRigidBody && m.NaturalFrequencyHz >= f.Min() && m.NaturalFrequencyHz <= f.Max()).Take(12))
+            markers.Add(Marker(model, mode.NaturalFrequencyHz, string.Create(Inv, $"f{mode.Number} {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz"), Palette.Grey, LineStyle.Dash));
 
         var peak = order.MaxBy(k => values[k].Magnitude);
         var top = Math.Max(values[peak].Magnitude / dScale, curveTop);
@@ -234,21 +238,23 @@ public sealed class HarmonicSection : IReportSection
             magnitude.Maximum = top * 4;
             magnitude.Minimum = Math.Max(smallest, top * 1e-6) / 1.5;
         }
+        var peakPoint = new DataPoint(f[peak], values[peak].Magnitude / dScale);
         model.Annotations.Add(new PointAnnotation
         {
-            X = f[peak],
-            Y = values[peak].Magnitude / dScale,
+            X = peakPoint.X,
+            Y = peakPoint.Y,
             YAxisKey = "magnitude",
             Shape = MarkerType.Diamond,
             Size = 5,
             Fill = OxyColor.Parse(Palette.Vermillion),
-            Text = string.Create(Inv, $"peak {DisplayUnits.Number(values[peak].Magnitude / dScale)} {dSym} at {DisplayUnits.Number(f[peak])} Hz"),
-            TextColor = OxyColor.Parse(Palette.Black),
-            FontSize = 10,
-            TextHorizontalAlignment = HorizontalAlignment.Right,
-            TextVerticalAlignment = VerticalAlignment.Bottom,
-            TextMargin = 6,
         });
+        if (peakPoint.Y > 0)
+            labels.Add(new CurveLabel(string.Create(Inv, $"peak {DisplayUnits.Number(peakPoint.Y)} {dSym} at {DisplayUnits.Number(f[peak])} Hz"), OxyColor.Parse(Palette.Black))
+            {
+                YAxisKey = "magnitude",
+                Anchors = [peakPoint],
+            });
+        foreach (var label in labels.Concat(markers)) model.Annotations.Add(label);
         var caption = string.Create(Inv,
             $"{word} amplitude (peak, log scale) and phase of {response.Dof} over the sweep; natural frequencies dashed grey, running speeds dash-dot orange, the largest value marked with a diamond.");
         if (curveTop > 0)
@@ -286,18 +292,18 @@ public sealed class HarmonicSection : IReportSection
         return largest;
     }
 
-    private static LineAnnotation Marker(double x, string text, string colour, LineStyle style) => new()
+    /// <summary>Adds a vertical marker line at <paramref name="x"/> to the magnitude panel and returns its label, to be placed beside it.</summary>
+    private static CurveLabel Marker(PlotModel model, double x, string text, string colour, LineStyle style)
     {
-        Type = LineAnnotationType.Vertical,
-        X = x,
-        YAxisKey = "magnitude",
-        Color = OxyColor.Parse(colour),
-        LineStyle = style,
-        StrokeThickness = 1.2,
-        Text = text,
-        TextColor = OxyColor.Parse(colour == Palette.Grey ? Palette.Black : Palette.Vermillion),
-        FontSize = 9.5,
-        TextOrientation = AnnotationTextOrientation.Vertical,
-        TextHorizontalAlignment = HorizontalAlignment.Right,
-    };
+        model.Annotations.Add(new LineAnnotation
+        {
+            Type = LineAnnotationType.Vertical,
+            X = x,
+            YAxisKey = "magnitude",
+            Color = OxyColor.Parse(colour),
+            LineStyle = style,
+            StrokeThickness = 1.2,
+        });
+        return new CurveLabel(text, OxyColor.Parse(colour == Palette.Grey ? Palette.Black : Palette.Vermillion)) { YAxisKey = "magnitude", AlongX = x, FontSize = 9.5 };
+    }
 }

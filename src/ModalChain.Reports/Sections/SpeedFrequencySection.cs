@@ -100,6 +100,7 @@ public sealed class SpeedFrequencySection : IReportSection
         var model = Charts.Create("Speed-frequency chart", _context.Document.Network.Title);
         var top = 1.25 * _runningSpeedsHz.Max() * 60;
         var fMax = Math.Max(_chart.NaturalFrequenciesHz.DefaultIfEmpty(0).Max(), _chart.Orders.Max() * _runningSpeedsHz.Max()) * 1.15;
+        var labels = new List<CurveLabel>();
         model.Axes.Add(Charts.Linear(AxisPosition.Bottom, "Running speed (rpm)", 0, top));
         model.Axes.Add(Charts.Linear(AxisPosition.Left, "Frequency (Hz)", 0, fMax));
         foreach (var s in _runningSpeedsHz)
@@ -119,24 +120,26 @@ public sealed class SpeedFrequencySection : IReportSection
                 Color = OxyColor.Parse(Palette.Orange),
                 LineStyle = LineStyle.DashDot,
                 StrokeThickness = 1.4,
-                Text = DisplayUnits.Number(s * 60) + " rpm",
-                TextColor = OxyColor.Parse(Palette.Vermillion),
-                TextOrientation = AnnotationTextOrientation.Vertical,
             });
+            labels.Add(new CurveLabel(DisplayUnits.Number(s * 60) + " rpm", OxyColor.Parse(Palette.Vermillion)) { AlongX = s * 60 });
         }
         for (var i = 0; i < _chart.NaturalFrequenciesHz.Length; i++)
+        {
+            var hz = _chart.NaturalFrequenciesHz[i];
             model.Annotations.Add(new LineAnnotation
             {
                 Type = LineAnnotationType.Horizontal,
-                Y = _chart.NaturalFrequenciesHz[i],
+                Y = hz,
                 Color = OxyColor.Parse(Palette.Blue),
                 StrokeThickness = 1.6,
                 LineStyle = LineStyle.Solid,
-                Text = string.Create(Inv, $"mode {ModeLabel(_chart.ModeNumbers[i])}: {DisplayUnits.Number(_chart.NaturalFrequenciesHz[i])} Hz"),
-                TextColor = OxyColor.Parse(Palette.Blue),
-                TextHorizontalAlignment = HorizontalAlignment.Left,
-                TextLinePosition = 0.01,
             });
+            // Along its line, from the left edge rightwards: ChartLabels takes the first place with room.
+            labels.Add(new CurveLabel(string.Create(Inv, $"mode {ModeLabel(_chart.ModeNumbers[i])}: {DisplayUnits.Number(hz)} Hz"), OxyColor.Parse(Palette.Blue))
+            {
+                Anchors = [.. Enumerable.Range(0, 40).Select(k => new DataPoint(top * k / 40.0, hz))],
+            });
+        }
         for (var j = 0; j < _chart.Orders.Length; j++)
         {
             var h = _chart.Orders[j];
@@ -149,6 +152,7 @@ public sealed class SpeedFrequencySection : IReportSection
         var crossings = new ScatterSeries { Title = "crossing", MarkerType = MarkerType.Circle, MarkerSize = 4, MarkerFill = OxyColor.Parse(Palette.Vermillion), MarkerStroke = OxyColors.Black };
         foreach (var c in _chart.Crossings) crossings.Points.Add(new ScatterPoint(c.SpeedHz * 60, c.FrequencyHz));
         model.Series.Add(crossings);
+        foreach (var label in labels) model.Annotations.Add(label);
         model.Legends.Add(new OxyPlot.Legends.Legend { LegendPosition = OxyPlot.Legends.LegendPosition.BottomRight, LegendPlacement = OxyPlot.Legends.LegendPlacement.Inside, LegendBackground = OxyColor.FromAColor(220, OxyColors.White) });
         var caption = "Natural frequencies (solid blue) against running speed; order lines through the origin (dashed, one pattern per order); "
             + "running speeds dash-dot orange" + (_margin > 0 ? string.Create(Inv, $", with the ±{DisplayUnits.Given(100 * _margin)} % separation band shaded") : "")

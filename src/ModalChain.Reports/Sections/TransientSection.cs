@@ -156,17 +156,19 @@ public sealed class TransientSection : IReportSection
         foreach (var k in PlotIndices(history.Values)) line.Points.Add(new DataPoint(_result.Times[k], history.Values[k] / scale));
         model.Series.Add(line);
         var peakIndex = Enumerable.Range(0, history.Values.Length).MaxBy(k => Math.Abs(history.Values[k]));
+        var peakPoint = new DataPoint(_result.Times[peakIndex], history.Values[peakIndex] / scale);
         model.Annotations.Add(new PointAnnotation
         {
-            X = _result.Times[peakIndex],
-            Y = history.Values[peakIndex] / scale,
+            X = peakPoint.X,
+            Y = peakPoint.Y,
             Shape = MarkerType.Diamond,
             Size = 5,
             Fill = OxyColor.Parse(Palette.Vermillion),
-            Text = string.Create(Inv, $"peak {DisplayUnits.Number(Math.Abs(history.Values[peakIndex]) / scale)} {symbol} at {DisplayUnits.Number(_result.Times[peakIndex])} s"),
-            TextColor = OxyColor.Parse(Palette.Black),
-            FontSize = 10,
-            TextVerticalAlignment = history.Values[peakIndex] >= 0 ? VerticalAlignment.Bottom : VerticalAlignment.Top,
+        });
+        // Placed by ChartLabels beside the diamond, inside the plot and clear of the curve where there is room.
+        model.Annotations.Add(new CurveLabel(string.Create(Inv, $"peak {DisplayUnits.Number(Math.Abs(peakPoint.Y))} {symbol} at {DisplayUnits.Number(peakPoint.X)} s"), OxyColor.Parse(Palette.Black))
+        {
+            Anchors = [peakPoint],
         });
         var caption = string.Create(Inv, $"{word} of {history.Name} against time; the largest magnitude (the peak) is marked with a diamond.");
         return new ChartFigure(FigureName(history.Name, history.Quantity), caption, model, height: 320);
