@@ -88,7 +88,7 @@ public static partial class ModelReader
 
     /// <summary>Reads 'transient': duration, step, method, loads, outputs, initial conditions and the RMS window.</summary>
     private static TransientSpec? ReadTransient(YMapping top, IReadOnlySet<string> masses, ImmutableArray<TransientExcitation> timedLoads,
-        ReadContext context)
+        ReadContext context, IReadOnlySet<string>? initialNames = null, bool spatial = false)
     {
         if (top["transient"] is not { } node || node is YScalar { IsPlainNull: true }) return null;
         if (context.Mapping(node, "'transient'") is not { } t) return null;
@@ -169,9 +169,12 @@ public static partial class ModelReader
             foreach (var (massKey, stateNode) in im.Entries)
             {
                 var iw = $"the initial state of '{massKey.Value}'";
-                if (!masses.Contains(massKey.Value))
+                var starts = initialNames ?? masses;
+                if (!starts.Contains(massKey.Value))
                 {
-                    context.Error(massKey, $"'initial' of {what} names unknown mass '{massKey.Value}'{ReadContext.Suggest(massKey.Value, masses)}");
+                    context.Error(massKey, spatial
+                        ? $"'initial' of {what} names '{massKey.Value}', which is not a translation DOF label of the model (such as 'deck.z' or 'skid.x'; a mass that moves in one direction by its name){ReadContext.Suggest(massKey.Value, starts)}; rotations start at rest"
+                        : $"'initial' of {what} names unknown mass '{massKey.Value}'{ReadContext.Suggest(massKey.Value, masses)}");
                     continue;
                 }
                 if (context.Mapping(stateNode, iw) is not { } state) continue;

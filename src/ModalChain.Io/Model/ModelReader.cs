@@ -72,10 +72,20 @@ public static partial class ModelReader
         var damping = ReadDamping(top, context);
         var loads = ReadLoads(top, massNames, supportNames, context, spatial);
         var loadCases = ReadLoadCases(top, loads, context);
-        var harmonic = ReadHarmonic(top, massNames, loads, context);
+        // Plane and 3d models: outputs may name masses, bodies and DOF labels (skid.z, skid.ry); initial conditions a
+        // translation DOF label (a mass that moves in one direction by its bare name).
+        IReadOnlySet<string> outputNames = massNames, initialNames = massNames;
+        if (spatial is not null && network is not null)
+        {
+            var dofs = Core.Dofs.DofMap.For(network);
+            var labels = Enumerable.Range(0, dofs.Count).Select(dofs.Label);
+            outputNames = new HashSet<string>(massNames.Concat(network.Bodies.Select(b => b.Name)).Concat(labels), StringComparer.Ordinal);
+            initialNames = new HashSet<string>(Enumerable.Range(0, dofs.Count).Where(i => !Core.Model.Directions.IsRotation(dofs.Dofs[i].Direction)).Select(dofs.Label), StringComparer.Ordinal);
+        }
+        var harmonic = ReadHarmonic(top, outputNames, loads, context);
         var caseSelection = ReadCaseSelection(top, loadCases, context);
         var timedLoads = ReadTimedLoads(top, massNames, supportNames, context, spatial);
-        var transient = ReadTransient(top, massNames, timedLoads, context);
+        var transient = ReadTransient(top, outputNames, timedLoads, context, initialNames, spatial is not null);
         var criteria = ReadCriteria(top, context, network);
         if (network is not null) RefuseMovingInerterSupports(network, loads, timedLoads, context);
         if (network is null || context.HasErrors) return Finish(context, null);
