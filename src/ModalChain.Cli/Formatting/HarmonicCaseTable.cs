@@ -33,9 +33,9 @@ internal static class HarmonicCaseTable
         o.WriteLine($"Combination of the load cases at their running speeds, rule: {LoadCaseSelection.Name(result.Rule)}");
         var combined = new TextTable("output", $"displacement [{du.Plain} peak, {Rule(result)}]", $"velocity [{vu.Plain} peak, {Rule(result)}]",
             $"velocity [{vu.Plain} rms, {Rule(result)}]", $"acceleration [{au.Plain} peak, {Rule(result)}]", "components");
-        var dofs = DofMap.For(document.Network);
-        var translations = result.Combined.Where(r => !dofs.IsRotationLabel(r.Dof)).ToArray();
-        var rotations = result.Combined.Where(r => dofs.IsRotationLabel(r.Dof)).Select(r => r.Dof).ToArray();
+        var isRotation = DofMap.RotationLabels(document.Network);
+        var translations = result.Combined.Where(r => !isRotation(r.Dof)).ToArray();
+        var rotations = result.Combined.Where(r => isRotation(r.Dof)).Select(r => r.Dof).ToArray();
         foreach (var r in translations)
             combined.Add(r.Dof,
                 HarmonicTable.Num(du.From(r.Peak(ResponseQuantity.Displacement, result.Rule))),

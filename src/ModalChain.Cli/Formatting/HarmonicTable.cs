@@ -30,14 +30,14 @@ internal static class HarmonicTable
 
         o.WriteLine("Peaks over the sweep");
         var (ru, rv, ra) = RotationRows.Units;
-        var dofs = DofMap.For(system.Model.Network);
+        var isRotation = DofMap.RotationLabels(system.Model.Network);
         var peaks = new TextTable("output", $"displacement [{du.Plain} peak]", "at [Hz]", $"velocity [{vu.Plain} peak]", "at [Hz]", $"acceleration [{au.Plain} peak]", "at [Hz]");
         var rotationPeaks = new TextTable("output", $"rotation [{ru.Plain} peak]", "at [Hz]", $"angular velocity [{rv.Plain} peak]", "at [Hz]", $"angular acceleration [{ra.Plain} peak]", "at [Hz]");
         var all = result.Peaks();
         foreach (var r in result.Responses)
         {
             var p = all.Where(x => x.Dof == r.Dof).ToDictionary(x => x.Quantity);
-            var turns = RotationRows.Is(dofs, r.Dof);
+            var turns = isRotation(r.Dof);
             var (tu, tv, ta) = turns ? (ru, rv, ra) : (du, vu, au);
             (turns ? rotationPeaks : peaks).Add(r.Dof,
                 Num(tu.From(p[ResponseQuantity.Displacement].Magnitude)), p[ResponseQuantity.Displacement].FrequencyHz.ToString("F3", Inv),
@@ -45,7 +45,7 @@ internal static class HarmonicTable
                 Num(ta.From(p[ResponseQuantity.Acceleration].Magnitude)), p[ResponseQuantity.Acceleration].FrequencyHz.ToString("F3", Inv));
         }
         peaks.Write(o);
-        if (result.Responses.Any(r => RotationRows.Is(dofs, r.Dof)))
+        if (result.Responses.Any(r => isRotation(r.Dof)))
         {
             o.WriteLine();
             rotationPeaks.Write(o);
@@ -84,7 +84,7 @@ internal static class HarmonicTable
             foreach (var r in at.Responses)
             {
                 var x = r.At(0, op.SpeedHz, ResponseQuantity.Displacement);
-                var turns = RotationRows.Is(dofs, r.Dof);
+                var turns = isRotation(r.Dof);
                 var (tu, tv, ta) = turns ? (ru, rv, ra) : (du, vu, au);
                 (turns ? rotationTable : table).Add(r.Dof, Num(tu.From(x.Magnitude)), HarmonicJson.PhaseDegrees(x).ToString("F1", Inv),
                     Num(tv.From(r.At(0, op.SpeedHz, ResponseQuantity.Velocity).Magnitude)),
@@ -92,7 +92,7 @@ internal static class HarmonicTable
                     Num(ta.From(r.At(0, op.SpeedHz, ResponseQuantity.Acceleration).Magnitude)));
             }
             table.Write(o);
-            if (at.Responses.Any(r => RotationRows.Is(dofs, r.Dof)))
+            if (at.Responses.Any(r => isRotation(r.Dof)))
             {
                 o.WriteLine();
                 rotationTable.Write(o);

@@ -1,5 +1,4 @@
 using ModalChain.Core.Analyses.Harmonic;
-using ModalChain.Core.Dofs;
 using ModalChain.Reports.Units;
 
 namespace ModalChain.Cli.Formatting;
@@ -14,7 +13,4 @@ internal static class RotationRows
     /// <summary>mrad, mrad/s and rad/s² for angle, angular velocity and angular acceleration.</summary>
     public static readonly (DisplayUnit Angle, DisplayUnit Rate, DisplayUnit Acceleration) Units =
         (DisplayUnits.AngularOf(ResponseQuantity.Displacement), DisplayUnits.AngularOf(ResponseQuantity.Velocity), DisplayUnits.AngularOf(ResponseQuantity.Acceleration));
-
-    /// <summary>True when <paramref name="label"/> is a rotation DOF label of a plane or 3d model (see <see cref="DofMap.IsRotationLabel"/>).</summary>
-    public static bool Is(DofMap dofs, string label) => dofs.IsRotationLabel(label);
 }

@@ -28,7 +28,7 @@ internal static class TransientTable
 
         o.WriteLine($"Peaks (largest magnitude, with sign) and RMS over {window}");
         var (ru, rv, ra) = RotationRows.Units;
-        var dofs = DofMap.For(document.Network);
+        var isRotation = DofMap.RotationLabels(document.Network);
         var motion = new TextTable("output", $"displacement [{du.Plain} peak]", "at [s]", $"displacement [{du.Plain} rms]", $"velocity [{vu.Plain} peak]", "at [s]", $"acceleration [{au.Plain} peak]", "at [s]");
         var rotation = new TextTable("output", $"rotation [{ru.Plain} peak]", "at [s]", $"rotation [{ru.Plain} rms]", $"angular velocity [{rv.Plain} peak]", "at [s]", $"angular acceleration [{ra.Plain} peak]", "at [s]");
         var rotations = 0;
@@ -37,7 +37,7 @@ internal static class TransientTable
             var u = result.Get(name, ResponseQuantity.Displacement);
             var v = result.Get(name, ResponseQuantity.Velocity);
             var a = result.Get(name, ResponseQuantity.Acceleration);
-            var turns = RotationRows.Is(dofs, name);
+            var turns = isRotation(name);
             var (tu, tv, ta) = turns ? (ru, rv, ra) : (du, vu, au);
             (turns ? rotation : motion).Add(name, Num(tu.From(u.Peak.Value)), Time(u.Peak.Time), Rms(tu.From(u.Rms)), Num(tv.From(v.Peak.Value)), Time(v.Peak.Time),
                 Num(ta.From(a.Peak.Value)), Time(a.Peak.Time));

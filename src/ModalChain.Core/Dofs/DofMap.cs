@@ -187,6 +187,14 @@ public sealed class DofMap
 
     private Dictionary<string, int>? _labels;
 
+    /// <summary>The test <see cref="IsRotationLabel"/> of <paramref name="network"/>'s map, without building the map for a line
+    /// model (which has no rotation): output writers ask it per row.</summary>
+    public static Func<string, bool> RotationLabels(Network network)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        return network.Space == ModelSpace.Line ? static _ => false : For(network).IsRotationLabel;
+    }
+
     /// <summary>True when <paramref name="label"/> is the label of a rotation DOF (<c>skid.ry</c>) of a plane or 3d model:
     /// its values are angles (rad, rad/s, rad/s²), not lengths.</summary>
     public bool IsRotationLabel(string label)

@@ -30,7 +30,7 @@ public static class HarmonicJson
         w.WriteStartObject();
         w.WriteString("title", MarkupText.Clean(document.Network.Title));
         w.Source(document, toolVersion);
-        WriteSweep(w, result, DofMap.For(document.Network));
+        WriteSweep(w, result, DofMap.RotationLabels(document.Network));
         w.WriteStartArray("cases");
         w.WriteEndArray();
         w.WriteNull("combination");
@@ -66,12 +66,13 @@ public static class HarmonicJson
         w.WriteStringValue("the model has load cases: each case is swept on its own under 'cases', and the cases are combined at their running speeds under 'combination'");
         w.WriteEndArray();
 
+        var rotation = DofMap.RotationLabels(document.Network);
         w.WriteStartArray("cases");
         foreach (var c in result.Cases)
         {
             w.WriteStartObject();
             w.WriteString("name", c.Case.Name);
-            WriteSweep(w, c.Result, DofMap.For(document.Network));
+            WriteSweep(w, c.Result, rotation);
             w.WriteStartArray("warnings");
             foreach (var warning in c.Result.Warnings) w.WriteStringValue(warning);
             w.WriteEndArray();
@@ -79,7 +80,6 @@ public static class HarmonicJson
         }
         w.WriteEndArray();
 
-        var dofs = DofMap.For(document.Network);
         w.WriteStartObject("combination");
         w.WriteString("rule", LoadCaseSelection.Name(result.Rule));
         w.WriteString("rule_description", LoadCaseSelection.Describe(result.Rule));
@@ -92,7 +92,7 @@ public static class HarmonicJson
                     w.WriteStartObject();
                     w.WriteString("dof", r.Dof);
                     w.WriteString("quantity", Name(q));
-                    w.WriteString("unit", Unit(q, dofs.IsRotationLabel(r.Dof)));
+                    w.WriteString("unit", Unit(q, rotation(r.Dof)));
                     w.WriteString("amplitude", rms ? "rms" : "peak");
                     w.Number("magnitude", rms ? r.Rms(q, result.Rule) : r.Peak(q, result.Rule));
                     w.WriteStartArray("components");
@@ -124,7 +124,7 @@ public static class HarmonicJson
     }
 
     /// <summary>The fields of one sweep, from "method" to "notes".</summary>
-    private static void WriteSweep(Utf8JsonWriter w, HarmonicResult result, DofMap dofs)
+    private static void WriteSweep(Utf8JsonWriter w, HarmonicResult result, Func<string, bool> rotation)
     {
         w.WriteString("method", result.Method == HarmonicMethod.Modal ? "modal" : "direct");
         w.WriteNumber("modes_used", result.ModesUsed);
@@ -141,7 +141,7 @@ public static class HarmonicJson
                 w.WriteStartObject();
                 w.WriteString("dof", r.Dof);
                 w.WriteString("quantity", Name(q));
-                w.WriteString("unit", Unit(q, dofs.IsRotationLabel(r.Dof)));
+                w.WriteString("unit", Unit(q, rotation(r.Dof)));
                 w.WriteString("amplitude", "peak");
                 Series(w, values);
                 w.WriteEndObject();
@@ -207,7 +207,7 @@ public static class HarmonicJson
             w.WriteStartObject();
             w.WriteString("dof", p.Dof);
             w.WriteString("quantity", Name(p.Quantity));
-            w.WriteString("unit", Unit(p.Quantity, dofs.IsRotationLabel(p.Dof)));
+            w.WriteString("unit", Unit(p.Quantity, rotation(p.Dof)));
             w.WriteString("amplitude", "peak");
             w.Number("magnitude", p.Magnitude);
             w.Number("frequency_hz", p.FrequencyHz);
@@ -236,7 +236,7 @@ public static class HarmonicJson
                     w.WriteStartObject();
                     w.WriteString("dof", r.Dof);
                     w.WriteString("quantity", Name(q));
-                    w.WriteString("unit", Unit(q, dofs.IsRotationLabel(r.Dof)));
+                    w.WriteString("unit", Unit(q, rotation(r.Dof)));
                     w.WriteString("amplitude", "peak");
                     Point(w, r.At(0, op.SpeedHz, q));
                     w.WriteEndObject();

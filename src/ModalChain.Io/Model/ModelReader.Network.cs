@@ -165,19 +165,27 @@ public static partial class ModelReader
         return result;
     }
 
-    private static (string A, string B)? ReadBetween(YMapping entry, SourcePosition owner, HashSet<string> nodes, ReadContext context, string what)
+    /// <summary>The two-item 'between' list of an element, or null after a located error: the entry lacks it (it
+    /// needs <paramref name="needs"/>) or it does not list exactly two <paramref name="example"/>.</summary>
+    private static YSequence? BetweenPair(YMapping entry, SourcePosition owner, ReadContext context, string what, string needs, string example)
     {
         var node = entry["between"];
         if (node is null)
         {
-            context.Error(owner, $"{what} needs 'between: [node, node]' naming the two masses or supports it connects");
+            context.Error(owner, $"{what} needs 'between: [node, node]' naming {needs}");
             return null;
         }
         if (node is not YSequence { Items.Length: 2 } seq)
         {
-            context.Error(node, $"'between' of {what} must list exactly two nodes, e.g. [ground, deck]");
+            context.Error(node, $"'between' of {what} must list exactly two {example}");
             return null;
         }
+        return seq;
+    }
+
+    private static (string A, string B)? ReadBetween(YMapping entry, SourcePosition owner, HashSet<string> nodes, ReadContext context, string what)
+    {
+        if (BetweenPair(entry, owner, context, what, "the two masses or supports it connects", "nodes, e.g. [ground, deck]") is not { } seq) return null;
         var names = new string?[2];
         for (var i = 0; i < 2; i++)
         {

@@ -548,17 +548,7 @@ public static partial class ModelReader
 
     private static (End A, End B)? ReadSpatialEnds(YMapping entry, SourcePosition owner, SpatialNodes nodes, ReadContext context, string what)
     {
-        var node = entry["between"];
-        if (node is null)
-        {
-            context.Error(owner, $"{what} needs 'between: [node, node]' naming its two ends: masses, supports, bodies or body points ('body.point')");
-            return null;
-        }
-        if (node is not YSequence { Items.Length: 2 } seq)
-        {
-            context.Error(node, $"'between' of {what} must list exactly two ends, e.g. [skid.foot-1, ground]");
-            return null;
-        }
+        if (BetweenPair(entry, owner, context, what, "its two ends: masses, supports, bodies or body points ('body.point')", "ends, e.g. [skid.foot-1, ground]") is not { } seq) return null;
         var ends = new End?[2];
         for (var i = 0; i < 2; i++)
             if (context.Text(seq.Items[i], $"'between' of {what}") is { } text)

@@ -56,9 +56,9 @@ public sealed class HarmonicCaseSection : IReportSection
         var (dSym, dScale) = Displacement;
         var (vSym, vScale) = Velocity;
         var (aSym, aScale) = Acceleration;
-        var dofs = Core.Dofs.DofMap.For(_context.Document.Network);
-        var translations = _result.Combined.Where(r => !dofs.IsRotationLabel(r.Dof)).ToArray();
-        var rotations = _result.Combined.Where(r => dofs.IsRotationLabel(r.Dof)).Select(r => r.Dof).ToArray();
+        var isRotation = Core.Dofs.DofMap.RotationLabels(_context.Document.Network);
+        var translations = _result.Combined.Where(r => !isRotation(r.Dof)).ToArray();
+        var rotations = _result.Combined.Where(r => isRotation(r.Dof)).Select(r => r.Dof).ToArray();
         html.Table($"Combined response, rule: {rule}",
             ["Mass", $"Displacement ({dSym} peak)", $"Velocity ({vSym} peak)", $"Velocity ({vSym} r.m.s.)", $"Acceleration ({aSym} peak)", "Components"],
             translations.Select(r => (IReadOnlyList<string>)

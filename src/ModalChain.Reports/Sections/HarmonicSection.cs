@@ -107,10 +107,10 @@ public sealed class HarmonicSection : IReportSection
 
         var force = _context.Units.Force;
         var peaks = _result.Peaks();
-        var dofs = Core.Dofs.DofMap.For(_context.Document.Network);
+        var isRotation = Core.Dofs.DofMap.RotationLabels(_context.Document.Network);
         foreach (var rotation in new[] { false, true })
         {
-            var rows = _result.Responses.Where(r => dofs.IsRotationLabel(r.Dof) == rotation).ToArray();
+            var rows = _result.Responses.Where(r => isRotation(r.Dof) == rotation).ToArray();
             if (rotation && rows.Length == 0) continue;
             var (du, vu, au) = (_context.Units.Of(ResponseQuantity.Displacement, rotation), _context.Units.Of(ResponseQuantity.Velocity, rotation), _context.Units.Of(ResponseQuantity.Acceleration, rotation));
             html.Table(rotation ? "Largest rotation over the sweep" : "Largest response over the sweep",
@@ -137,7 +137,7 @@ public sealed class HarmonicSection : IReportSection
             var at = op.Response;
             foreach (var rotation in new[] { false, true })
             {
-                var rows = at.Responses.Where(r => dofs.IsRotationLabel(r.Dof) == rotation).ToArray();
+                var rows = at.Responses.Where(r => isRotation(r.Dof) == rotation).ToArray();
                 if (rotation && rows.Length == 0) continue;
                 var (du, vu, au) = (_context.Units.Of(ResponseQuantity.Displacement, rotation), _context.Units.Of(ResponseQuantity.Velocity, rotation), _context.Units.Of(ResponseQuantity.Acceleration, rotation));
                 var (dw, vw, aw) = (DisplayUnits.Word(ResponseQuantity.Displacement, rotation), DisplayUnits.Word(ResponseQuantity.Velocity, rotation), DisplayUnits.Word(ResponseQuantity.Acceleration, rotation));
@@ -177,7 +177,7 @@ public sealed class HarmonicSection : IReportSection
 
     private ChartFigure ResponseChart(DofResponse response, ResponseQuantity quantity, bool logFrequency)
     {
-        var rotation = Core.Dofs.DofMap.For(_context.Document.Network).IsRotationLabel(response.Dof);
+        var rotation = Core.Dofs.DofMap.RotationLabels(_context.Document.Network)(response.Dof);
         var unit = _context.Units.Of(quantity, rotation);
         var (dSym, dScale) = (unit.Symbol, unit.Factor);
         var word = DisplayUnits.Word(quantity, rotation);
