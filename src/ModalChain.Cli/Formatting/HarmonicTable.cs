@@ -25,7 +25,7 @@ internal static class HarmonicTable
         o.WriteLine(string.Create(Inv,
             $"Harmonic response, {(result.Method == HarmonicMethod.Modal ? "modal superposition" : "direct solve")}, {f.Length} frequencies from {f.Min():G4} to {f.Max():G4} Hz"));
         o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!, units))));
-        o.WriteLine("Damping: " + DescribeDamping(system));
+        o.WriteLine("Damping: " + DampingLine.ForSweep(system));
         o.WriteLine();
 
         o.WriteLine("Peaks over the sweep");
@@ -173,17 +173,4 @@ internal static class HarmonicTable
     private static string In(Core.Dofs.Direction d) => d == Core.Dofs.Direction.Along ? "" : " in " + d.Label();
 
     private static string Speed(double? hz) => hz is { } s ? string.Create(Inv, $", {60 * s:G6} rpm") : "";
-
-    private static string DescribeDamping(DampedSystem system)
-    {
-        var d = system.Model.Damping;
-        var parts = new List<string>();
-        if (system.Model.Network.Dampers.Length > 0) parts.Add($"{system.Model.Network.Dampers.Length} discrete damper(s)");
-        if (!d.ModalRatios.IsDefaultOrEmpty) parts.Add("modal " + string.Join("/", d.ModalRatios.Select(z => (100 * z).ToString("G3", Inv) + " %")));
-        if (d.Rayleigh is { } r) parts.Add(string.Create(Inv, $"Rayleigh a0 = {r.MassCoefficient:G4} 1/s, a1 = {r.StiffnessCoefficient:G4} s"));
-        if (d.LossFactor > 0) parts.Add(string.Create(Inv, $"loss factor {d.LossFactor:G3}"));
-        if (parts.Count == 0) return "none";
-        var ratios = system.ModalDampingRatios.Where(double.IsFinite).Select(z => (100 * z).ToString("F2", Inv) + " %").Take(6);
-        return string.Join(", ", parts) + (system.IsClassical ? "" : " (not classical)") + "; modal ratios " + string.Join(", ", ratios);
-    }
 }

@@ -22,7 +22,7 @@ internal static class TransientTable
         o.WriteLine(TerminalText.Line(document.Network.Title));
         o.WriteLine(string.Create(Inv, $"Transient response, {result.MethodDescription}: {result.StepCount} steps of {s.Step:G4} s over {result.StepCount * s.Step:G6} s"));
         o.WriteLine("Loads acting together: " + (loads.Count == 0 ? "none (free vibration from the initial state)" : string.Join("; ", loads.DistinctBy(l => l.Name).Select(l => Describe(l, units, loads)))));
-        o.WriteLine("Damping: " + DescribeDamping(system));
+        o.WriteLine("Damping: " + DampingLine.ForHistory(system));
         var window = string.Create(Inv, $"{s.RmsFrom ?? 0:G4} to {s.RmsTo ?? result.StepCount * s.Step:G4} s");
         o.WriteLine();
 
@@ -131,15 +131,4 @@ internal static class TransientTable
         TableFunction t => string.Create(Inv, $"table of {t.Times.Length} samples to {t.Times[^1]:G4} s"),
         _ => "timed",
     };
-
-    private static string DescribeDamping(DampedSystem system)
-    {
-        var d = system.Model.Damping;
-        var parts = new List<string>();
-        if (system.Model.Network.Dampers.Length > 0) parts.Add($"{system.Model.Network.Dampers.Length} discrete damper(s)");
-        if (!d.ModalRatios.IsDefaultOrEmpty) parts.Add("modal " + string.Join("/", d.ModalRatios.Select(z => (100 * z).ToString("G3", Inv) + " %")));
-        if (d.Rayleigh is { } r) parts.Add(string.Create(Inv, $"Rayleigh a0 = {r.MassCoefficient:G4} 1/s, a1 = {r.StiffnessCoefficient:G4} s"));
-        if (d.LossFactor > 0) parts.Add(string.Create(Inv, $"loss factor {d.LossFactor:G3} (not used in time histories)"));
-        return parts.Count == 0 ? "none" : string.Join(", ", parts) + (system.IsClassical ? "" : " (not classical)");
-    }
 }

@@ -7,12 +7,17 @@ public abstract class ReportFigure
     protected ReportFigure(string name, string caption, string kind)
     {
         ArgumentException.ThrowIfNullOrWhiteSpace(name);
-        if (name.Any(c => !(char.IsAsciiLetterOrDigit(c) || c is '-' or '_')))
+        if (!name.All(IsStemCharacter))
             throw new ArgumentException($"Figure name '{name}' must be a plain file stem (letters, digits, '-', '_').", nameof(name));
         Name = name;
         Caption = caption;
         Kind = kind;
     }
+
+    /// <summary>A figure file stem from <paramref name="prefix"/> and a model name (a mass, a DOF label, a load case): every character a stem may not hold becomes '-'.</summary>
+    public static string Stem(string prefix, string name) => prefix + "-" + new string([.. name.Select(c => IsStemCharacter(c) ? c : '-')]);
+
+    private static bool IsStemCharacter(char c) => char.IsAsciiLetterOrDigit(c) || c is '-' or '_';
 
     /// <summary>File stem after the figure's content ("network", "mode-01", "harmonic-skid").</summary>
     public string Name { get; }

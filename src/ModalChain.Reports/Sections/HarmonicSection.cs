@@ -87,7 +87,7 @@ public sealed class HarmonicSection : IReportSection
 
     /// <summary>File stem of the response chart of mass <paramref name="dof"/>.</summary>
     public static string FigureName(string dof) =>
-        "harmonic-" + new string([.. dof.Select(c => char.IsAsciiLetterOrDigit(c) || c is '-' or '_' ? c : '-')]);
+        ReportFigure.Stem("harmonic", dof);
 
     /// <summary>File stem of the chart of <paramref name="quantity"/> of mass <paramref name="dof"/>: the displacement chart keeps <see cref="FigureName(string)"/>.</summary>
     public static string FigureName(string dof, ResponseQuantity quantity) =>

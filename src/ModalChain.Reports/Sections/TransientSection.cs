@@ -77,7 +77,7 @@ public sealed class TransientSection : IReportSection
 
     /// <summary>File stem of the history chart of mass <paramref name="name"/>.</summary>
     public static string FigureName(string name) =>
-        "transient-" + new string([.. name.Select(c => char.IsAsciiLetterOrDigit(c) || c is '-' or '_' ? c : '-')]);
+        ReportFigure.Stem("transient", name);
 
     /// <summary>File stem of the history chart of <paramref name="quantity"/> of mass <paramref name="name"/>; displacement keeps <see cref="FigureName(string)"/>.</summary>
     public static string FigureName(string name, ResponseQuantity quantity) =>
