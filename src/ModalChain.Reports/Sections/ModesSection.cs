@@ -390,9 +390,10 @@ public sealed class ModesSection : IReportSection
             Color = OxyColor.Parse(Palette.Black),
             LineStyle = LineStyle.Dash,
             StrokeThickness = 1.0,
-            Text = "90 % cumulative",
-            TextColor = OxyColor.Parse(Palette.Black),
         });
+        // Named by the label placer like every chart label: beside the line, clear of the bars, markers and legend.
+        var lineAnchors = new[] { modes.Length + 0.6, 0.4 + 0.5 * modes.Length, 0.4 }.Select(x => new DataPoint(x, 90)).ToList();
+        model.Annotations.Add(new CurveLabel("90 % cumulative", OxyColor.Parse(Palette.Black)) { Anchors = lineAnchors });
         model.Legends.Add(new OxyPlot.Legends.Legend { LegendPosition = OxyPlot.Legends.LegendPosition.RightMiddle, LegendPlacement = OxyPlot.Legends.LegendPlacement.Inside, LegendBackground = OxyColor.FromAColor(220, OxyColors.White) });
         return new ChartFigure("effective-mass", "Effective modal mass of each mode (bars) and cumulative share (squares, dashed), in % of the total mass; the thin dashed black line is the 90 % cumulative share that seismic codes ask modal analyses to reach (ASCE 7-16 §12.9.1.1, EN 1998-1 §4.3.3.3.1), shown as a guide to how many modes describe the response.", model, height: 340);
     }

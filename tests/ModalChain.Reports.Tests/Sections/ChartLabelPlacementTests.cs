@@ -3,7 +3,7 @@ using ModalChain.Reports.Figures;
 namespace ModalChain.Reports.Tests.Sections;
 
 /// <summary>
-/// Every label of the harmonic, transient and speed-frequency charts of every example model is text, lies inside the
+/// Every label of the harmonic, transient, speed-frequency and effective-mass charts of every example model is text, lies inside the
 /// figure and the clip rectangle it is drawn in, and overlaps no other text of the chart (measured with the font that draws
 /// it); a label left out for want of room is named in the caption. The same properties the absorber chart's test checks.
 /// </summary>
@@ -27,6 +27,11 @@ public sealed class ChartLabelPlacementTests
     [MemberData(nameof(Models))]
     public void SpeedFrequencyChart_LabelsAreTextInsideThePlotAndApart(string model) =>
         Check(model, "speed-frequency", "speed_frequency", " rpm");
+
+    [Theory]
+    [MemberData(nameof(Models))]
+    public void EffectiveMassChart_LabelsAreTextInsideThePlotAndApart(string model) =>
+        Check(model, "effective-mass", "modes", "90 % cumulative");
 
     private static void Check(string model, string figurePrefix, string sectionKey, string expected)
     {
