@@ -17,7 +17,7 @@ namespace ModalChain.Core.Assembly;
 /// </remarks>
 /// <param name="Free">Numbering of the free DOFs (one per mass in a line model; see <see cref="DofMap.For"/>).</param>
 /// <param name="Supports">Names of the prescribed DOFs, ground first, in the network's support order (plane and 3d models: <c>support.x</c>, <c>support.z</c>, … per translation).</param>
-/// <param name="Mass">M over the free DOFs in kg, inerters included (diagonal in line models without an inerter between two masses; a body's inertia may couple its rotations).</param>
+/// <param name="Mass">M over the free DOFs in kg, inerters included (diagonal in line models without an inerter between two masses; a body's inertia may couple its rotations, and in plane and 3d models an inerter row couples the DOFs it reaches).</param>
 /// <param name="StiffnessFF">K_ff in N/m.</param>
 /// <param name="StiffnessFP">K_fp in N/m (free rows, support columns).</param>
 /// <param name="StiffnessPP">K_pp in N/m.</param>

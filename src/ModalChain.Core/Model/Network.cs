@@ -76,8 +76,8 @@ public sealed record Damper(string Name, string NodeA, string NodeB, double Coef
 
 /// <summary>An inerter between two nodes: a two-terminal element whose force is b·(ẍ_a − ẍ_b).</summary>
 /// <param name="Name">Unique name of the inerter within its network.</param>
-/// <param name="NodeA">First end: a mass or support name.</param>
-/// <param name="NodeB">Second end: a mass or support name, different from <paramref name="NodeA"/>.</param>
+/// <param name="NodeA">First end: a mass or support name (or a body, or <c>body.point</c>, in plane and 3d models).</param>
+/// <param name="NodeB">Second end, different from <paramref name="NodeA"/>.</param>
 /// <param name="Inertance">Inertance b in kg; non-negative and finite.</param>
 /// <remarks>
 /// It adds b to M exactly as a spring adds k to K: b on both ends' diagonals and −b off the diagonal; an end on a
