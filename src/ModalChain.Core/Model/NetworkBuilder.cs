@@ -128,15 +128,27 @@ public sealed class NetworkBuilder
         return AddElement(_dampers, _damperNames, new Damper(name, nodeA, nodeB, coefficient), name, nodeA, nodeB, "damper", nameof(name));
     }
 
-    /// <summary>Adds an inerter of inertance <paramref name="inertance"/> in kg between two existing masses or supports (line models only).</summary>
+    /// <summary>Adds an inerter of inertance <paramref name="inertance"/> in kg between two existing masses or supports of a line model.</summary>
     public NetworkBuilder AddInerter(string name, string nodeA, string nodeB, double inertance)
     {
         Guard.NonNegative(inertance, nameof(inertance));
-        if (Space != ModelSpace.Line) throw new ArgumentException($"Inerter '{name}' needs a line model.", nameof(name));
-        CheckEnds(name, nodeA, nodeB);
-        if (!_inerterNames.Add(name))
-            throw new ArgumentException($"An inerter named '{name}' already exists.", nameof(name));
-        _inerters.Add(new Inerter(name, nodeA, nodeB, inertance));
+        if (Space != ModelSpace.Line && inertance > 0)
+            throw new ArgumentException($"Inerter '{name}' in a plane or 3d model needs directional components or 'axial': add it as a record.", nameof(name));
+        return AddInerter(new Inerter(name, nodeA, nodeB, inertance));
+    }
+
+    /// <summary>Adds an inerter given as a record (directional components or axial included, in plane and 3d models).</summary>
+    public NetworkBuilder AddInerter(Inerter inerter)
+    {
+        ArgumentNullException.ThrowIfNull(inerter);
+        Guard.NonNegative(inerter.Inertance, nameof(inerter));
+        foreach (var c in inerter.Components) Guard.NonNegative(c.Value, nameof(inerter));
+        if (Space == ModelSpace.Line && (inerter.Axial || !inerter.Components.IsDefaultOrEmpty))
+            throw new ArgumentException($"Inerter '{inerter.Name}' has directions, which need a plane or 3d model.", nameof(inerter));
+        CheckEnds(inerter.Name, inerter.NodeA, inerter.NodeB);
+        if (!_inerterNames.Add(inerter.Name))
+            throw new ArgumentException($"An inerter named '{inerter.Name}' already exists.", nameof(inerter));
+        _inerters.Add(inerter);
         return this;
     }
 

@@ -220,15 +220,17 @@ public static partial class ModelReader
         return x is { } xv && y is { } yv ? new DrawingPosition(xv, yv) : null;
     }
 
-    /// <summary>The rest of a plane or 3d model's network, after its masses and supports: bodies, springs and dampers.</summary>
+    /// <summary>The rest of a plane or 3d model's network, after its masses and supports: bodies, springs, dampers and inerters.</summary>
     private static CoreNetwork? ReadSpatialNetwork(YMapping top, NetworkBuilder builder, SpatialNodes spatial, HashSet<string> nodes, ReadContext context)
     {
         ReadBodies(top, builder, spatial, nodes, context);
         var springs = ReadSpatialElements(top, "springs", spatial, context);
         var dampers = ReadSpatialElements(top, "dampers", spatial, context);
+        var inerters = ReadSpatialInerters(top, spatial, context);
         if (context.HasErrors) return null;
         foreach (var s in springs) builder.AddSpring(new Spring(s.Name, s.A, s.B, s.Scale) { Components = s.Components, Axial = s.Axial });
         foreach (var d in dampers) builder.AddDamper(new Damper(d.Name, d.A, d.B, d.Scale) { Components = d.Components, Axial = d.Axial });
+        foreach (var i in inerters) builder.AddInerter(i);
         var network = builder.Build();
         WarnAboutSpatialConnectivity(network, context);
         return network;
@@ -247,22 +249,6 @@ public static partial class ModelReader
             return false;
         }
         return true;
-    }
-
-    /// <summary>
-    /// A support that moves (a base-motion load, harmonic or timed) may not carry an inerter: the inertance term
-    /// b·ü_support would be a force on the free DOFs that the support partition does not yet carry.
-    /// </summary>
-    private static void RefuseMovingInerterSupports(CoreNetwork network, IEnumerable<Load> loads,
-        IEnumerable<Core.Analyses.Transient.TransientExcitation> timed, ReadContext context)
-    {
-        if (network.Inerters.IsEmpty) return;
-        var moving = loads.OfType<BaseMotionLoad>().Select(l => (l.Name, l.Support))
-            .Concat(timed.OfType<Core.Analyses.Transient.SupportAccelerationHistory>().Select(l => (l.Name, l.Support)));
-        foreach (var (name, support) in moving)
-            if (network.Inerters.FirstOrDefault(i => i.NodeA == support || i.NodeB == support) is { } inerter
-                && context.Positions.TryGetValue($"loads.{name}", out var at))
-                context.Error(at, $"load '{name}' moves support '{support}', which inerter '{inerter.Name}' is attached to; moving a support that carries an inerter is not supported yet: attach the inerter to a mass, or to a support that does not move");
     }
 
     private static void WarnAboutConnectivity(CoreNetwork network, ReadContext context)

@@ -87,7 +87,6 @@ public static partial class ModelReader
         var timedLoads = ReadTimedLoads(top, massNames, supportNames, context, spatial);
         var transient = ReadTransient(top, outputNames, timedLoads, context, initialNames, spatial is not null);
         var criteria = ReadCriteria(top, context, network);
-        if (network is not null) RefuseMovingInerterSupports(network, loads, timedLoads, context);
         if (network is null || context.HasErrors) return Finish(context, null);
 
         var document = new ModelDocument(

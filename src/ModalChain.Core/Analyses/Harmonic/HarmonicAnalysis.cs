@@ -149,8 +149,20 @@ public static class HarmonicAnalysis
         }
         var stiffnessRow = new int[p.SupportCount];
         var dampingRow = new int[p.SupportCount];
+        var massRow = new int[p.SupportCount];
         for (var s = 0; s < p.SupportCount; s++)
         {
+            massRow[s] = -1;
+            if (p.HasInertialCoupling)
+            {
+                var ms = new double[n];
+                for (var i = 0; i < n; i++) ms[i] = p.MassFP[i, s];
+                if (ms.Any(v => v != 0))
+                {
+                    massRow[s] = observations.Count;
+                    observations.Add(ms);
+                }
+            }
             var ks = new double[n];
             var cs = new double[n];
             for (var i = 0; i < n; i++)
@@ -277,10 +289,12 @@ public static class HarmonicAnalysis
                 var sum = Complex.Zero;
                 if (stiffnessRow[s] >= 0) sum += hysteretic * x[k * nk + stiffnessRow[s]];
                 if (dampingRow[s] >= 0) sum += iw * x[k * nk + dampingRow[s]];
+                if (massRow[s] >= 0) sum += iw * iw * x[k * nk + massRow[s]];
                 for (var t = 0; t < p.SupportCount; t++)
                 {
                     var ut = u[k * p.SupportCount + t];
-                    if (ut != Complex.Zero) sum += (p.StiffnessPP[s, t] * hysteretic + iw * system.Damping.PP[s, t]) * ut;
+                    if (ut != Complex.Zero)
+                        sum += (p.StiffnessPP[s, t] * hysteretic + iw * system.Damping.PP[s, t] + iw * iw * (p.HasInertialCoupling ? p.MassPP[s, t] : 0)) * ut;
                 }
                 r[k] = -sum;
                 total[k] += r[k];
