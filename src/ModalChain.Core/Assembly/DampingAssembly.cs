@@ -1,15 +1,48 @@
 using System.Collections.Immutable;
 using MathNet.Numerics.LinearAlgebra;
+using MathNet.Numerics.LinearAlgebra.Storage;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Model;
 
 namespace ModalChain.Core.Assembly;
 
 /// <summary>The viscous damping matrix over free and prescribed DOFs, in N·s/m.</summary>
-/// <param name="FF">C_ff (free rows and columns).</param>
-/// <param name="FP">C_fp (free rows, support columns).</param>
-/// <param name="PP">C_pp (support rows and columns).</param>
-public sealed record DampingMatrices(Matrix<double> FF, Matrix<double> FP, Matrix<double> PP);
+/// <remarks>
+/// The support blocks may be computed on first use: with distributed damping they need the quasi-static influence
+/// T = −K_ff⁻¹K_fp (a sparse factorisation of K_ff), which a modal run or a sweep without support motion never reads.
+/// </remarks>
+public sealed class DampingMatrices
+{
+    private readonly Lazy<(Matrix<double> FP, Matrix<double> PP)> _supports;
+
+    /// <summary>The three blocks, all given.</summary>
+    /// <param name="ff">C_ff (free rows and columns).</param>
+    /// <param name="fp">C_fp (free rows, support columns).</param>
+    /// <param name="pp">C_pp (support rows and columns).</param>
+    public DampingMatrices(Matrix<double> ff, Matrix<double> fp, Matrix<double> pp)
+    {
+        ArgumentNullException.ThrowIfNull(fp);
+        ArgumentNullException.ThrowIfNull(pp);
+        FF = ff ?? throw new ArgumentNullException(nameof(ff));
+        _supports = new Lazy<(Matrix<double>, Matrix<double>)>((fp, pp));
+    }
+
+    /// <summary>C_ff given, C_fp and C_pp computed by <paramref name="supports"/> when first read (once, thread-safe).</summary>
+    internal DampingMatrices(Matrix<double> ff, Func<(Matrix<double> FP, Matrix<double> PP)> supports)
+    {
+        FF = ff ?? throw new ArgumentNullException(nameof(ff));
+        _supports = new Lazy<(Matrix<double>, Matrix<double>)>(supports, LazyThreadSafetyMode.ExecutionAndPublication);
+    }
+
+    /// <summary>C_ff (free rows and columns).</summary>
+    public Matrix<double> FF { get; }
+
+    /// <summary>C_fp (free rows, support columns).</summary>
+    public Matrix<double> FP => _supports.Value.FP;
+
+    /// <summary>C_pp (support rows and columns).</summary>
+    public Matrix<double> PP => _supports.Value.PP;
+}
 
 /// <summary>Builds the viscous damping matrix of a model (discrete dampers + Rayleigh + modal) and modal damping ratios.</summary>
 /// <remarks>
@@ -30,17 +63,12 @@ public static class DampingAssembly
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(partition);
         var damping = model.Damping;
-        var ff = partition.DamperFF.Clone();
-        var fp = partition.DamperFP.Clone();
-        var pp = partition.DamperPP.Clone();
-
-        // The relative-motion part and its quasi-static influence (a dense LU of K_ff) only when there is such damping.
-        Matrix<double>? relative = null;
+        var ff = partition.DamperFF;
+        var (stiffnessShare, relative) = (0.0, (Matrix<double>?)null);
         if (damping.Rayleigh is { } r)
         {
-            ff += r.StiffnessCoefficient * partition.StiffnessFF;
-            fp += r.StiffnessCoefficient * partition.StiffnessFP;
-            pp += r.StiffnessCoefficient * partition.StiffnessPP;
+            stiffnessShare = r.StiffnessCoefficient;
+            ff = Sum(ff, stiffnessShare, partition.StiffnessFF);
             if (r.MassCoefficient != 0) relative = r.MassCoefficient * partition.Mass;
         }
         if (!damping.ModalRatios.IsDefaultOrEmpty)
@@ -50,16 +78,57 @@ public static class DampingAssembly
             var modal = ModalDampingMatrix(partition.Mass, modes, damping);
             relative = relative is null ? modal : relative + modal;
         }
-        if (relative is null) return new DampingMatrices(ff, fp, pp);
+        if (relative is not null) ff = Sum(ff, 1, relative);
+        if (stiffnessShare == 0 && relative is null) return new DampingMatrices(ff, partition.DamperFP, partition.DamperPP);
 
-        ff += relative;
-        if (partition.QuasiStaticInfluence() is { } t)
+        // The support blocks need the quasi-static influence T (a sparse factorisation of K_ff, one solve per support):
+        // computed when an analysis first reads them, never for a modal run.
+        return new DampingMatrices(ff, () =>
         {
-            var ct = relative * t;
-            fp -= ct;
-            pp += t.TransposeThisAndMultiply(ct);
+            var fp = Sum(partition.DamperFP, stiffnessShare, partition.StiffnessFP);
+            var pp = Sum(partition.DamperPP, stiffnessShare, partition.StiffnessPP);
+            if (relative is not null && partition.QuasiStaticInfluence() is { } t)
+            {
+                var ct = relative * t;
+                fp -= ct;
+                pp += t.TransposeThisAndMultiply(ct);
+            }
+            return (fp, pp);
+        });
+    }
+
+    /// <summary>a + β·b; over compressed rows in one pass when both are sparse (Math.NET's sparse sum inserts entry by entry, quadratic in the rows).</summary>
+    /// <remarks>Each entry is a_ij + (β·b_ij), the same floating-point operations as <c>a + β * b</c>; exact zeros are not stored.</remarks>
+    internal static Matrix<double> Sum(Matrix<double> a, double beta, Matrix<double> b)
+    {
+        if (beta == 0) return a;
+        if (a.Storage is not SparseCompressedRowMatrixStorage<double> x || b.Storage is not SparseCompressedRowMatrixStorage<double> y)
+            return a + beta * b;
+        var rows = a.RowCount;
+        var rowPointers = new int[rows + 1];
+        var capacity = x.RowPointers[rows] + y.RowPointers[rows];
+        var columns = new int[capacity];
+        var values = new double[capacity];
+        var count = 0;
+        for (var i = 0; i < rows; i++)
+        {
+            int p = x.RowPointers[i], pEnd = x.RowPointers[i + 1], q = y.RowPointers[i], qEnd = y.RowPointers[i + 1];
+            while (p < pEnd || q < qEnd)
+            {
+                var cx = p < pEnd ? x.ColumnIndices[p] : int.MaxValue;
+                var cy = q < qEnd ? y.ColumnIndices[q] : int.MaxValue;
+                int column;
+                double v;
+                if (cx < cy) (column, v) = (cx, x.Values[p++]);
+                else if (cy < cx) (column, v) = (cy, beta * y.Values[q++]);
+                else (column, v) = (cx, x.Values[p++] + beta * y.Values[q++]);
+                if (v == 0) continue;
+                columns[count] = column;
+                values[count++] = v;
+            }
+            rowPointers[i + 1] = count;
         }
-        return new DampingMatrices(ff, fp, pp);
+        return Matrix<double>.Build.SparseFromCompressedSparseRowFormat(rows, a.ColumnCount, count, rowPointers, columns[..count], values[..count]);
     }
 
     /// <summary>C_m = M Φ diag(2ζ_jω_j) Φᵀ M in N·s/m from the modal ratios of <paramref name="damping"/>; rigid-body modes get none.</summary>
