@@ -13,7 +13,9 @@ namespace ModalChain.Core.Assembly;
 /// </remarks>
 public sealed class DampingMatrices
 {
-    private readonly Lazy<(Matrix<double> FP, Matrix<double> PP)> _supports;
+    private readonly Matrix<double>? _ff;
+    private readonly Lazy<(Matrix<double> FP, Matrix<double> PP)>? _supports;
+    private readonly Lazy<DampingMatrices>? _deferred;
 
     /// <summary>The three blocks, all given.</summary>
     /// <param name="ff">C_ff (free rows and columns).</param>
@@ -23,25 +25,29 @@ public sealed class DampingMatrices
     {
         ArgumentNullException.ThrowIfNull(fp);
         ArgumentNullException.ThrowIfNull(pp);
-        FF = ff ?? throw new ArgumentNullException(nameof(ff));
+        _ff = ff ?? throw new ArgumentNullException(nameof(ff));
         _supports = new Lazy<(Matrix<double>, Matrix<double>)>((fp, pp));
     }
 
     /// <summary>C_ff given, C_fp and C_pp computed by <paramref name="supports"/> when first read (once, thread-safe).</summary>
     internal DampingMatrices(Matrix<double> ff, Func<(Matrix<double> FP, Matrix<double> PP)> supports)
     {
-        FF = ff ?? throw new ArgumentNullException(nameof(ff));
+        _ff = ff ?? throw new ArgumentNullException(nameof(ff));
         _supports = new Lazy<(Matrix<double>, Matrix<double>)>(supports, LazyThreadSafetyMode.ExecutionAndPublication);
     }
 
+    /// <summary>Every block computed by <paramref name="build"/> when one is first read (once, thread-safe).</summary>
+    internal DampingMatrices(Func<DampingMatrices> build) =>
+        _deferred = new Lazy<DampingMatrices>(build, LazyThreadSafetyMode.ExecutionAndPublication);
+
     /// <summary>C_ff (free rows and columns).</summary>
-    public Matrix<double> FF { get; }
+    public Matrix<double> FF => _deferred is { } d ? d.Value.FF : _ff!;
 
     /// <summary>C_fp (free rows, support columns).</summary>
-    public Matrix<double> FP => _supports.Value.FP;
+    public Matrix<double> FP => _deferred is { } d ? d.Value.FP : _supports!.Value.FP;
 
     /// <summary>C_pp (support rows and columns).</summary>
-    public Matrix<double> PP => _supports.Value.PP;
+    public Matrix<double> PP => _deferred is { } d ? d.Value.PP : _supports!.Value.PP;
 }
 
 /// <summary>Builds the viscous damping matrix of a model (discrete dampers + Rayleigh + modal) and modal damping ratios.</summary>
@@ -146,7 +152,7 @@ public static class DampingAssembly
         var n = mass.RowCount;
         // Plane and 3d models count rigid-body modes from the null space of K (topology cannot), and a body's inertia may couple M.
         var spatial = modes.Network.Space != ModelSpace.Line;
-        var rigidBodyModes = spatial ? modes.Modes.Count(m => m.IsRigidBody) : Topology.UnsupportedGroups(modes.Network).Length;
+        var rigidBodyModes = RigidBodyModes(modes);
         var fullProduct = spatial ? mass * Shapes(modes) : null;
         var mPhi = Matrix<double>.Build.Dense(n, modes.Modes.Length);
         var scaled = Matrix<double>.Build.Dense(n, modes.Modes.Length);
@@ -163,6 +169,36 @@ public static class DampingAssembly
         }
         return scaled.TransposeAndMultiply(mPhi);
     }
+
+    /// <summary>
+    /// Φᵀ C_ff Φ of proportional damping (Rayleigh and modal ratios, no discrete damper) in closed form: the diagonal
+    /// a0 + a1·ω_j² + 2ζ_jω_j per mode of <paramref name="modes"/>, in 1/s.
+    /// </summary>
+    /// <remarks>
+    /// With mass-normalised shapes ΦᵀMΦ = I and ΦᵀK_ffΦ = Λ, so Rayleigh damping gives a0·I + a1·Λ (Chopra, Dynamics of
+    /// Structures, §11.4) and the modal damping matrix C_m gives diag(2ζ_jω_j) (§11.4.2; <see cref="ModalDampingMatrix"/>),
+    /// whichever modes are held: no C and no product with the shapes. The damping ratio a0/(2ω) + a1ω/2 + ζ_j follows.
+    /// Rigid-body modes (ω = 0) take a0 alone. Equal to <see cref="ModalCoordinates"/> of <see cref="Build"/> up to round-off.
+    /// </remarks>
+    public static double[] ProportionalModalDamping(ModalResult modes, DampingModel damping)
+    {
+        ArgumentNullException.ThrowIfNull(modes);
+        ArgumentNullException.ThrowIfNull(damping);
+        var (a0, a1) = damping.Rayleigh is { } r ? (r.MassCoefficient, r.StiffnessCoefficient) : (0.0, 0.0);
+        var rigidBodyModes = RigidBodyModes(modes);
+        var diagonal = new double[modes.Modes.Length];
+        for (var j = 0; j < diagonal.Length; j++)
+        {
+            var mode = modes.Modes[j];
+            var modal = j < rigidBodyModes || mode.IsRigidBody ? 0 : 2 * damping.ModalRatioOf(j - rigidBodyModes + 1) * mode.AngularFrequency;
+            diagonal[j] = a0 + a1 * mode.EigenValue + modal;
+        }
+        return diagonal;
+    }
+
+    /// <summary>Rigid-body modes of the network that come first in <paramref name="modes"/>: from the topology in line models, else counted.</summary>
+    private static int RigidBodyModes(ModalResult modes) =>
+        modes.Network.Space != ModelSpace.Line ? modes.Modes.Count(m => m.IsRigidBody) : Topology.UnsupportedGroups(modes.Network).Length;
 
     /// <summary>The modal damping matrix Ĉ = Φᵀ C_ff Φ in 1/s (mass-normalised shapes, all modes of <paramref name="modes"/>).</summary>
     public static Matrix<double> ModalCoordinates(ModalResult modes, Matrix<double> dampingFF)
