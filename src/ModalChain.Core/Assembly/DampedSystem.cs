@@ -106,7 +106,8 @@ public sealed record DampedSystem(
             // and no product with the shapes; C itself is built only if an analysis reads it (a modal run never does).
             var diagonal = DampingAssembly.ProportionalModalDamping(modes, damping);
             var held = modes;
-            var deferred = new DampingMatrices(() => DampingAssembly.Build(model, partition, held));
+            var deferred = new DampingMatrices(() => DampingAssembly.Build(model, partition, held).FF,
+                () => DampingAssembly.ProportionalSupportBlocks(model, partition, held));
             var diagonalMatrix = Matrix<double>.Build.DiagonalOfDiagonalArray(diagonal);
             return new DampedSystem(model, partition, modes, deferred, diagonalMatrix,
                 DampingAssembly.ModalRatios(modes, diagonalMatrix, damping.LossFactor), 0)

@@ -62,21 +62,30 @@ public class ProportionalDampingTests
     }
 
     [Fact]
-    public void ZeroRatios_AreNotViscousDamping_AndDeferredCIsAssembledOnRead()
+    public void ZeroRatios_AreNotViscousDamping_AndDeferredCIsTheAssembledOne()
     {
-        // Modal ratios of 0 give C = 0 (no viscous damping) without forming C; the C formed on first read is the one
-        // DampingAssembly.Build gives for the same modes (same function, so equal entry for entry), and rigid motion with
-        // the single support is not damped (Chopra §13.5 [from memory]): C_full·1 = 0 to 1e-9 of the largest entry.
+        // Modal ratios of 0 give C = 0 (no viscous damping) without forming C. The support blocks formed on first read
+        // (C_fp = a1·K_fp − a0·M T − MΦ diag(2ζω) ΦᵀM T, never forming C_m) equal those of the dense route
+        // DampingAssembly.Build (C_m = MΦ diag(2ζω) ΦᵀM formed, then C·T; identity, tolerance 1e-12 of the largest
+        // entry), and rigid motion with the single support is not damped (Chopra §13.5 [from memory]): C_full·1 = 0 to
+        // 1e-9 of the largest entry. Modal ratios and Rayleigh damping with both coefficients, on two seeded networks.
         var network = HarmonicModels.Random(5, 8, dampers: false);
         var none = DampedSystem.Build(new StructuralModel(network, new DampingModel([0.0], null, 0), []));
         Assert.False(none.HasViscousDamping);
-        var modal = new StructuralModel(network, new DampingModel([0.04], null, 0), []);
-        var system = DampedSystem.Build(modal);
-        Assert.True(system.HasViscousDamping);
-        var direct = DampingAssembly.Build(modal, system.Partition, system.Modes);
-        Assert.Equal(direct.FF, system.Damping.FF);
-        Assert.Equal(direct.FP, system.Damping.FP);
-        Assert.Equal(direct.PP, system.Damping.PP);
+        foreach (var model in Models(network).Concat(Models(HarmonicModels.Random(6, 11, dampers: false))))
+        {
+            var system = DampedSystem.Build(model);
+            Assert.True(system.HasViscousDamping);
+            var direct = DampingAssembly.Build(model, system.Partition, system.Modes);
+            NumericAssert.Close(direct.FF, system.Damping.FF, Tolerance.Abs(1e-12 * direct.FF.Enumerate().Max(Math.Abs)), "C_ff");
+            NumericAssert.Close(direct.FP, system.Damping.FP, Tolerance.Abs(1e-12 * direct.FF.Enumerate().Max(Math.Abs)), "C_fp");
+            NumericAssert.Close(direct.PP, system.Damping.PP, Tolerance.Abs(1e-12 * direct.FF.Enumerate().Max(Math.Abs)), "C_pp");
+            CheckRigidMotion(system);
+        }
+    }
+
+    private static void CheckRigidMotion(DampedSystem system)
+    {
         var full = Matrix<double>.Build.DenseOfMatrixArray(new[,] { { system.Damping.FF, system.Damping.FP }, { system.Damping.FP.Transpose(), system.Damping.PP } });
         var ones = Vector<double>.Build.Dense(full.RowCount, 1.0);
         NumericAssert.Small((full * ones).AbsoluteMaximum(), 1e-9 * full.Enumerate().Max(Math.Abs), "C·1");
