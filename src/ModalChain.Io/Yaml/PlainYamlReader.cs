@@ -33,9 +33,7 @@ internal sealed class PlainYamlReader
     private int _indent;       // spaces before the first character of the content line at _p
     private bool _atEnd;       // no content line is left
 
-    // Large models repeat the same few keys and values hundreds of thousands of times: one string each.
-    private readonly Dictionary<string, string> _strings = new(StringComparer.Ordinal);
-    private readonly Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> _lookup;
+    // Short texts are decoded here and looked up in the store's text table, so a repeated one makes no string.
     private readonly char[] _chars = new char[ShortText];
     private readonly KeySet?[] _keys = new KeySet?[YamlTree.MaximumDepth + 1];
     private const int ShortText = 32;
@@ -48,7 +46,6 @@ internal sealed class PlainYamlReader
         _text = text;
         _end = text.Length;
         _p = _lineStart = start;
-        _lookup = _strings.GetAlternateLookup<ReadOnlySpan<char>>();
     }
 
     /// <summary>The text was outside the subset: the caller reads it with YamlDotNet.</summary>
@@ -241,20 +238,16 @@ internal sealed class PlainYamlReader
         }
         if (last == start) throw Decline();
         _p = last;
-        var text = Text(start, last);
-        return (_store.AddScalar(Position(start), text, quoted: false), text);
+        var (id, text) = Text(start, last);
+        return (_store.AddScalar(Position(start), id, quoted: false), text);
     }
 
-    private string Text(int start, int end)
+    private (int Id, string Text) Text(int start, int end)
     {
         var length = end - start;
-        if (length > ShortText) return Encoding.UTF8.GetString(_text, start, length);
+        if (length > ShortText) return _store.Intern(Encoding.UTF8.GetString(_text, start, length));
         var count = Encoding.UTF8.GetChars(_text, start, length, _chars, 0);
-        var chars = _chars.AsSpan(0, count);
-        if (_lookup.TryGetValue(chars, out var known)) return known;
-        var made = new string(chars);
-        _strings.Add(made, made);
-        return made;
+        return _store.Intern(_chars.AsSpan(0, count));
     }
 
     /// <summary>A key at <see cref="_p"/>, followed by ':' and a space or the line's end; <see cref="_p"/> ends after the ':'.</summary>
