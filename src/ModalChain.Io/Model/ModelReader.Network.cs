@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Text.RegularExpressions;
 using ModalChain.Core.Model;
 using ModalChain.Core.Units;
@@ -23,6 +24,7 @@ public static partial class ModelReader
 
     /// <summary>Whether <paramref name="name"/> matches <see cref="NamePattern"/>; ASCII names, nearly all of them, by a
     /// loop that gives the same answer (a large model checks hundreds of thousands of names), others by the pattern.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static bool IsUsableName(string name)
     {
         // The pattern's '$' also matches before one final '\n'.
@@ -176,9 +178,12 @@ public static partial class ModelReader
     // or composing their descriptions. Anything these readers do not recognise as valid (a wrong name, key, form,
     // unknown node, a value text not read before or out of range, a quoted or aliased-to-collection scalar) returns
     // false before any effect, and the entry is read by the general code below, which gives every diagnostic.
+    // A command reads its model once, so these run in a fresh process: they are compiled optimized at their first call
+    // (AggressiveOptimization) instead of running unoptimized through the first tens of thousands of elements.
 
     /// <summary>Adds a valid mass of a line model given as 'name: 40 kg' or 'name: {mass: 40 kg, at: [x, y]}', as the
     /// general reader would; false, with nothing done, for anything else.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static bool TryAddValidMass(YEntry item, NetworkBuilder builder, HashSet<string> nodes, ReadContext context)
     {
         if (item.Store is not { } store || ValidName(store, item.KeySlot) is not { } name) return false;
@@ -227,6 +232,7 @@ public static partial class ModelReader
 
     /// <summary>Adds a valid element of a line model, '{between: [a, b], stiffness: 5 MN/m}' (or the section's value
     /// key), to <paramref name="result"/> as <see cref="ReadTwoNodeSection"/> would; false, with nothing done, for anything else.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static bool TryReadValidElement(YEntry item, string section, string valueKey, Quantity quantity, Range range,
         HashSet<string> nodes, ReadContext context, List<(string Name, string A, string B, double Value)> result)
     {
@@ -268,6 +274,7 @@ public static partial class ModelReader
 
     /// <summary>The text of the unquoted scalar at <paramref name="slot"/> (through an alias) that is not empty or a
     /// null (what <see cref="ReadContext.Text"/> accepts), or null for anything else.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static string? PlainText(NodeStore store, int slot)
     {
         slot = store.Resolve(slot);
@@ -278,6 +285,7 @@ public static partial class ModelReader
 
     /// <summary>The value of the plain scalar at <paramref name="slot"/> when its text was read before as
     /// <paramref name="quantity"/> and lies in <paramref name="range"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private static bool KnownValue(NodeStore store, int slot, Quantity quantity, Range range, ReadContext context, out double value)
     {
         value = 0;

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using ModalChain.Core.Units;
 using ModalChain.Io.Diagnostics;
 using ModalChain.Io.Yaml;
@@ -114,6 +115,7 @@ internal sealed partial class ReadContext
     /// <summary>The value of a text already read as <paramref name="quantity"/> (so known to be well written), when it
     /// lies in <paramref name="range"/>; false for a text not read yet or out of range, which <see cref="Value(YNode, Quantity, Range, string)"/>
     /// then reads and reports. Reports nothing, so a section reader may try it first on every element.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public bool TryKnownValue(string text, Quantity quantity, Range range, out double value)
     {
         if (!_parsed.TryGetValue((text, quantity), out value)) return false;

@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 using ModalChain.Io.Diagnostics;
 
@@ -59,6 +60,7 @@ internal sealed class NodeStore
 
     private ref Slot At(int slot) => ref _chunks[slot >> ChunkBits][slot & (ChunkSize - 1)];
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int Add(Kind kind, SourcePosition position)
     {
         var chunk = _count >> ChunkBits;
@@ -71,6 +73,7 @@ internal sealed class NodeStore
 
     /// <summary>The number of <paramref name="text"/> in the text table, and the table's string for it (one string per
     /// short text, so a reader may keep it).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public (int Id, string Text) Intern(ReadOnlySpan<char> text)
     {
         if (text.Length <= ShortText && _textLookup.TryGetValue(text, out var known)) return (known, _texts[known]);
@@ -78,6 +81,7 @@ internal sealed class NodeStore
     }
 
     /// <inheritdoc cref="Intern(ReadOnlySpan{char})"/>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public (int Id, string Text) Intern(string text)
     {
         if (text.Length > ShortText)
@@ -94,6 +98,7 @@ internal sealed class NodeStore
     public int AddScalar(SourcePosition position, string text, bool quoted) => AddScalar(position, Intern(text).Id, quoted);
 
     /// <summary>Adds a scalar whose text is number <paramref name="textId"/> of <see cref="Intern(string)"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     public int AddScalar(SourcePosition position, int textId, bool quoted)
     {
         var slot = Add(Kind.Scalar, position);

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Text;
 using ModalChain.Io.Diagnostics;
 
@@ -19,6 +20,10 @@ namespace ModalChain.Io.Yaml;
 /// reader that gives it today.
 /// <para>
 /// Columns count UTF-16 code units from 1, as YamlDotNet's marks do.
+/// </para>
+/// <para>
+/// The scanning methods are compiled optimized at their first call (AggressiveOptimization): a command reads its model
+/// once, in a fresh process, and would otherwise read much of a large file with unoptimized code.
 /// </para>
 /// </remarks>
 internal sealed class PlainYamlReader
@@ -86,6 +91,7 @@ internal sealed class PlainYamlReader
 
     /// <summary>Moves to the first character of the next line that holds more than spaces and a comment; false at the end.</summary>
     /// <remarks>Called at the start of a line (or at the start of the text).</remarks>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private bool NextContentLine()
     {
         while (true)
@@ -117,6 +123,7 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>Steps over the line break at <see cref="_p"/> (or stops at the end of the text).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void NewLine()
     {
         if (_p >= _end)
@@ -137,6 +144,7 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>The end of a comment that starts at <paramref name="i"/>: its line break, or the end of the text.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int SkipComment(int i)
     {
         while (i < _end)
@@ -174,6 +182,7 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>After a value: spaces, an optional comment after a space, and the line break; then the next content line.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void EndOfEntry()
     {
         var i = _p;
@@ -193,6 +202,7 @@ internal sealed class PlainYamlReader
 
     /// <summary>Reads a plain scalar at <see cref="_p"/> into the store; <see cref="_p"/> ends after its last non-space character.</summary>
     /// <param name="flow">Inside a flow collection, where ',', ']' and '}' end the scalar.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private (int Slot, string Text) PlainScalar(bool flow)
     {
         var start = _p;
@@ -242,6 +252,7 @@ internal sealed class PlainYamlReader
         return (_store.AddScalar(Position(start), id, quoted: false), text);
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private (int Id, string Text) Text(int start, int end)
     {
         var length = end - start;
@@ -251,6 +262,7 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>A key at <see cref="_p"/>, followed by ':' and a space or the line's end; <see cref="_p"/> ends after the ':'.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private string Key(bool flow)
     {
         var start = _p;
@@ -274,6 +286,7 @@ internal sealed class PlainYamlReader
             return this;
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Add(string key)
         {
             if (_many is null && _few.Count < 16)
@@ -294,6 +307,7 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>A value on the line of its key or list marker: a flow collection or a plain scalar.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int InlineValue(int depth, bool flow)
     {
         var c = At(_p);
@@ -305,6 +319,7 @@ internal sealed class PlainYamlReader
     /// <summary>A block mapping whose keys start in column <paramref name="indent"/> + 1, from the first key at <see cref="_p"/>.</summary>
     /// <param name="indent">Spaces before each key.</param>
     /// <param name="depth">Collections open, this one included.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int BlockMapping(int indent, int depth)
     {
         if (depth > YamlTree.MaximumDepth) throw Decline();
@@ -363,12 +378,14 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>Spaces inside a flow collection, which must close on its own line.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void FlowSpaces()
     {
         SkipSpaces();
         if (IsBreak(_p) || At(_p) is (byte)'#' or (byte)'\t') throw Decline();
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int FlowMapping(int depth)
     {
         if (depth > YamlTree.MaximumDepth) throw Decline();
@@ -400,6 +417,7 @@ internal sealed class PlainYamlReader
         return slot;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int FlowSequence(int depth)
     {
         if (depth > YamlTree.MaximumDepth) throw Decline();
