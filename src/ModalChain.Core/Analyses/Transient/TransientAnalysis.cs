@@ -42,9 +42,10 @@ public static class TransientAnalysis
     {
         ArgumentNullException.ThrowIfNull(network);
         ArgumentNullException.ThrowIfNull(matrices);
-        var coupling = network.Space == ModelSpace.Line
+        // Transducers map an eliminated node onto others (supports included): their coupling comes from the partition.
+        var coupling = network.Space == ModelSpace.Line && network.Transducers.IsDefaultOrEmpty
             ? SupportCoupling.FromElements(network, matrices.Dofs)
-            : SupportCoupling.FromPartition(SpatialAssembly.Partition(network), DampingMatrices: null);
+            : SupportCoupling.FromPartition(SupportPartition.Assemble(network), DampingMatrices: null);
         return Run(network, matrices, coupling, null, excitations, initial, settings, modes, progress, []);
     }
 
@@ -453,7 +454,11 @@ public static class TransientAnalysis
         {
             var state = new List<(int, double)>();
             var known = new List<(double, TimeFunction)>();
-            foreach (var (node, sign) in new[] { (a, 1.0), (b, -1.0) })
+            // An end a transducer eliminates moves as a combination of kept nodes (ConstraintElimination).
+            var ends = new List<(string Node, double Weight)>(2);
+            if (ConstraintElimination.Of(network) is { } elimination) { elimination.AddTerms(a, 1, ends); elimination.AddTerms(b, -1, ends); }
+            else { ends.Add((a, 1.0)); ends.Add((b, -1.0)); }
+            foreach (var (node, sign) in ends)
             {
                 var i = dofs.IndexOf(node);
                 if (i >= 0) state.Add((i, sign * value));
