@@ -109,6 +109,7 @@ public static partial class ModelReader
         var inerters = ReadTwoNodeSection(top, "inerters", "inerter", "inertance", Quantity.Mass, InertanceRange, nodes, context);
         CheckRepeatedSprings(repeated, springs, context);
         var links = ReadLinks(top, context, masses.Walk().Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
+        var transducers = ReadTransducers(top, context, nodes, DeclaredNames(top, "supports"), links);
         if (context.HasErrors) return null;
 
         foreach (var (name, a, b, k) in springs) builder.AddSpring(name, a, b, k);
@@ -116,6 +117,7 @@ public static partial class ModelReader
         foreach (var (name, a, b, c) in dampers) builder.AddDamper(name, a, b, c);
         foreach (var (name, a, b, inertance) in inerters) builder.AddInerter(name, a, b, inertance);
         foreach (var (name, linked) in links) builder.AddLink(name, linked);
+        foreach (var t in transducers) builder.AddTransducer(t.Name, t.NodeA, t.NodeB, t.BranchA, t.BranchB, t.ForceFactor);
         var network = builder.Build();
         WarnAboutLinkedElements(network, context);
         WarnAboutConnectivity(network, context);

@@ -330,7 +330,7 @@ public static class HarmonicAnalysis
     private static ImmutableArray<string> DefaultOutputs(DampedSystem system)
     {
         var network = system.Model.Network;
-        if (network.Space == ModelSpace.Line) return [.. network.Masses.Select(m => m.Name)];
+        if (network.Space == ModelSpace.Line) return [.. network.Masses.Select(m => m.Name).Where(m => system.Partition.Free.IndexOf(m) >= 0)]; // nodes a transducer eliminates have no DOF
         var free = system.Partition.Free;
         return [.. Enumerable.Range(0, free.Count).Select(free.Label)];
     }

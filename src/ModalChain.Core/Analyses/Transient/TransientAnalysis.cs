@@ -434,7 +434,7 @@ public static class TransientAnalysis
         var spatial = network.Space != ModelSpace.Line;
         var outputs = !settings.Outputs.IsEmpty
             ? spatial ? [.. settings.Outputs.SelectMany(o => dofs.OutputLabels(o) is { IsEmpty: false } labels ? labels : [o]).Distinct()] : settings.Outputs
-            : spatial ? [.. Enumerable.Range(0, dofs.Count).Select(dofs.Label)] : [.. network.Masses.Select(m => m.Name)];
+            : spatial ? [.. Enumerable.Range(0, dofs.Count).Select(dofs.Label)] : [.. network.Masses.Select(m => m.Name).Where(m => dofs.IndexOf(m) >= 0)]; // nodes a transducer eliminates have no DOF
         var probes = new List<Probe>();
         foreach (var name in outputs)
         {
