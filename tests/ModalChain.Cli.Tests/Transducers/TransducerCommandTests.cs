@@ -63,13 +63,13 @@ public class TransducerCommandTests
     }
 
     [Theory]
-    [InlineData("  t2: {between: [table, ground], branch: [coil-plus, ground], force-factor: 0 T*m}\n", 12, 77, "force factor")]
-    [InlineData("  t2: {between: [table, ground], branch: [coil-plus, ground], force-factor: 1 T*m}\n", 13, 3, "already eliminates")]
-    [InlineData("  t2: {between: [table, ground], branch: [amplifier, ground], force-factor: 1 T*m}\n", 12, 3, "both branch terminals on supports")]
-    [InlineData("  t2: {between: [table, ground], branch: [nowhere, ground], force-factor: 1 T*m}\n", 12, 43, "unknown node 'nowhere'")]
+    [InlineData("  t2: {between: [table, ground], branch: [coil-plus, ground], force-factor: 0 T*m}\n", 13, 77, "force factor")]
+    [InlineData("  t2: {between: [table, ground], branch: [coil-plus, ground], force-factor: 1 T*m}\n", 14, 3, "already eliminates")]
+    [InlineData("  t2: {between: [table, ground], branch: [amplifier, ground], force-factor: 1 T*m}\n", 13, 3, "both branch terminals on supports")]
+    [InlineData("  t2: {between: [table, ground], branch: [nowhere, ground], force-factor: 1 T*m}\n", 13, 43, "unknown node 'nowhere'")]
     public void BadTransducers_ExitTwo_WithALocatedMessage(string entry, int line, int column, string fragment)
     {
-        // The bad entry goes first in the existing section (line 12), before 'coil' (then line 13).
+        // The bad entry goes first in the existing section (line 13), before 'coil' (then line 14).
         var path = Write(Shaker.Replace("transducers:\n", "transducers:\n" + entry, StringComparison.Ordinal));
         foreach (var command in new[] { "validate", "harmonic" })
         {
