@@ -98,6 +98,7 @@ public sealed record SupportPartition(
             return i >= 0 ? i : n + supportIndex[node];
         }
 
+        if (ConstraintElimination.Of(network) is { } elimination) return AssembleReduced(network, free, supports, Index, elimination);
         var k = new Blocks(n);
         foreach (var s in network.Springs) k.AddTwoNode(Index(s.NodeA), Index(s.NodeB), s.Stiffness);
         var c = new Blocks(n);
@@ -119,6 +120,43 @@ public sealed record SupportPartition(
             MassFP = Summed(n, p, m.FP),
             MassPP = Summed(p, p, m.PP),
         };
+    }
+
+    /// <summary>The partition with transducer constraints eliminated by congruence over the whole (free, then support) numbering.</summary>
+    /// <remarks>
+    /// Each element adds k (t_A − t_B)ᵀ(t_A − t_B) with t the rows of T over free and support columns, so a support in an
+    /// eliminated node's terms lands in the FP and PP blocks. A mass on an eliminated node adds to M only its free block:
+    /// its coupling to a support's acceleration is not kept (the reader refuses prescribed motion at such a support).
+    /// </remarks>
+    private static SupportPartition AssembleReduced(Network network, DofMap free, ImmutableArray<string> supports,
+        Func<string, int> index, ConstraintElimination elimination)
+    {
+        var n = free.Count;
+        var p = supports.Length;
+        var k = new List<(int, int, double)>();
+        foreach (var s in network.Springs) elimination.AddTwoEnd(k, index, s.NodeA, s.NodeB, s.Stiffness);
+        var c = new List<(int, int, double)>();
+        foreach (var d in network.Dampers) elimination.AddTwoEnd(c, index, d.NodeA, d.NodeB, d.Coefficient);
+        var m = new List<(int, int, double)>();
+        foreach (var mass in network.Masses) elimination.AddOneEnd(m, index, mass.Name, mass.Kilograms);
+        foreach (var b in network.Inerters) elimination.AddTwoEnd(m, index, b.NodeA, b.NodeB, b.Inertance);
+        static (List<(int, int, double)> FF, List<(int, int, double)> FP, List<(int, int, double)> PP) Split(List<(int, int, double)> all, int n)
+        {
+            var (ff, fp, pp) = (new List<(int, int, double)>(), new List<(int, int, double)>(), new List<(int, int, double)>());
+            foreach (var (r, col, v) in all)
+            {
+                if (r < n && col < n) ff.Add((r, col, v));
+                else if (r < n) fp.Add((r, col - n, v));
+                else if (col >= n) pp.Add((r - n, col - n, v));
+            }
+            return (ff, fp, pp);
+        }
+        var (kff, kfp, kpp) = Split(k, n);
+        var (cff, cfp, cpp) = Split(c, n);
+        var (mff, _, _) = Split(m, n);
+        return new SupportPartition(free, supports, Assembler.Summed(n, mff),
+            Summed(n, n, kff), Summed(n, p, kfp), Summed(p, p, kpp),
+            Summed(n, n, cff), Summed(n, p, cfp), Summed(p, p, cpp));
     }
 
     /// <summary>The quasi-static influence matrix T = −K_ff⁻¹ K_fp (free displacement per unit support displacement), or null when K_ff is singular.</summary>

@@ -146,6 +146,9 @@ public sealed record Network
     /// <summary>The inerters, in declaration order; they put inertance into M, off its diagonal between two moving nodes.</summary>
     public ImmutableArray<Inerter> Inerters { get; internal init; } = [];
 
+    /// <summary>The transducers (line models only), in declaration order; each removes one electrical coordinate (see <see cref="Transducer"/>).</summary>
+    public ImmutableArray<Transducer> Transducers { get; internal init; } = [];
+
     /// <summary>The space the nodes move in; <see cref="ModelSpace.Line"/> unless the model declares another.</summary>
     public ModelSpace Space { get; internal init; } = ModelSpace.Line;
 
@@ -185,7 +188,7 @@ public sealed record Network
     public Network WithMassOrder(IReadOnlyList<int> order)
     {
         Guard.Permutation(order, Masses.Length, nameof(order));
-        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links, Space = Space, Bodies = Bodies, Inerters = Inerters };
+        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links, Space = Space, Bodies = Bodies, Inerters = Inerters, Transducers = Transducers };
     }
 }
 

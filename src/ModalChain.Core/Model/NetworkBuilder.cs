@@ -17,6 +17,7 @@ public sealed class NetworkBuilder
     private readonly HashSet<string> _damperNames = [];
     private readonly List<Inerter> _inerters = [];
     private readonly HashSet<string> _inerterNames = [];
+    private readonly List<Transducer> _transducers = [];
 
     /// <summary>Title of the network being built.</summary>
     public string Title { get; set; } = "Untitled network";
@@ -152,6 +153,34 @@ public sealed class NetworkBuilder
         return this;
     }
 
+    /// <summary>Adds an ideal electrodynamic transducer of force factor <paramref name="forceFactor"/> in T·m (line models only).</summary>
+    /// <param name="name">Unique transducer name.</param>
+    /// <param name="nodeA">Mechanical terminal a (mass or support).</param>
+    /// <param name="nodeB">Mechanical terminal b (mass or support).</param>
+    /// <param name="branchA">Electrical terminal n1 (a mass standing for an electrical node, or a support).</param>
+    /// <param name="branchB">Electrical terminal n2.</param>
+    /// <param name="forceFactor">Bl in T·m, positive and finite.</param>
+    /// <exception cref="ArgumentException">
+    /// Unknown or repeated terminals, a plane or 3d model, or terminals <see cref="Assembly.ConstraintElimination"/> cannot
+    /// eliminate (see <see cref="Assembly.ConstraintElimination.Problem"/>).
+    /// </exception>
+    public NetworkBuilder AddTransducer(string name, string nodeA, string nodeB, string branchA, string branchB, double forceFactor)
+    {
+        Guard.Positive(forceFactor, nameof(forceFactor));
+        if (Space != ModelSpace.Line) throw new ArgumentException($"Transducer '{name}' needs a line model.", nameof(name));
+        CheckEnds(name, nodeA, nodeB);
+        CheckEnds(name, branchA, branchB);
+        if (_transducers.Any(t => t.Name == name))
+            throw new ArgumentException($"A transducer named '{name}' already exists.", nameof(name));
+        var transducer = new Transducer(name, nodeA, nodeB, branchA, branchB, forceFactor);
+        var supports = _supports.Select(s => s.Name).ToHashSet(StringComparer.Ordinal);
+        var linked = _links.SelectMany(l => l.Masses).ToHashSet(StringComparer.Ordinal);
+        if (Assembly.ConstraintElimination.Problem(_transducers, transducer, supports.Contains, linked.Contains) is { } problem)
+            throw new ArgumentException(problem, nameof(branchA));
+        _transducers.Add(transducer);
+        return this;
+    }
+
     /// <summary>Ties existing masses rigidly together: they will share one degree of freedom and their masses add.</summary>
     /// <param name="name">Unique link name.</param>
     /// <param name="masses">At least two different masses (never a support).</param>
@@ -173,7 +202,7 @@ public sealed class NetworkBuilder
 
     /// <summary>Produces the immutable network.</summary>
     public Network Build() =>
-        new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters] };
+        new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters], Transducers = [.. _transducers] };
 
     /// <summary>Checks a two-node element's ends and name (unique among its kind) and appends it.</summary>
     private NetworkBuilder AddElement<T>(List<T> elements, HashSet<string> names, T element, string name, string nodeA, string nodeB,

@@ -35,4 +35,6 @@ public enum Quantity
     MomentOfInertia,
     /// <summary>Moment of a force (a torque), SI unit N·m.</summary>
     Moment,
+    /// <summary>Force factor Bl of an electrodynamic transducer, SI unit T·m (= N/A = V·s/m).</summary>
+    ForceFactor,
 }

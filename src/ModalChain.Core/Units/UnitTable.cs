@@ -36,6 +36,7 @@ public static class UnitTable
             [Quantity.RotationalDamping] = [("N*m*s/rad", 1), ("Nms/rad", 1), ("kN*m*s/rad", 1e3), ("N*mm*s/rad", 1e-3), ("lbf*in*s/rad", PoundForce * Inch)],
             [Quantity.MomentOfInertia] = [("kg*m^2", 1), ("t*m^2", 1e3), ("kg*cm^2", 1e-4), ("kg*mm^2", 1e-6), ("lb*in^2", Pound * Inch * Inch)],
             [Quantity.Moment] = [("N*m", 1), ("Nm", 1), ("kN*m", 1e3), ("kNm", 1e3), ("N*mm", 1e-3), ("lbf*in", PoundForce * Inch), ("lbf*ft", PoundForce * 12 * Inch)],
+            [Quantity.ForceFactor] = [("T*m", 1), ("N/A", 1), ("V*s/m", 1)],
         }.ToFrozenDictionary();
 
     /// <summary>The SI unit symbol of <paramref name="quantity"/> as the tool prints it.</summary>
@@ -57,6 +58,7 @@ public static class UnitTable
         Quantity.RotationalDamping => "N*m*s/rad",
         Quantity.MomentOfInertia => "kg*m^2",
         Quantity.Moment => "N*m",
+        Quantity.ForceFactor => "T*m",
         _ => throw new ArgumentOutOfRangeException(nameof(quantity), quantity, null),
     };
 
@@ -68,6 +70,7 @@ public static class UnitTable
         Quantity.RotationalStiffness => "rotational stiffness",
         Quantity.RotationalDamping => "rotational damping coefficient",
         Quantity.MomentOfInertia => "moment of inertia",
+        Quantity.ForceFactor => "force factor",
         _ => quantity.ToString().ToLowerInvariant(),
     };
 

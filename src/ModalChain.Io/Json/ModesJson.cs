@@ -96,7 +96,7 @@ public static class ModesJson
             // models write them per DOF label (skid.z, skid.ry), the masses' and bodies' several directions each.
             // Each keyed object is one line (JsonNumbers.KeyedLine): large models write n numbers per mode.
             if (network.Space != ModelSpace.Line) writer.KeyedLine(ShapeName, dofLine, mode.Shape.AsSpan(), ref buffer);
-            else writer.KeyedLine(ShapeName, massLine, network.Links.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan(), ref buffer);
+            else writer.KeyedLine(ShapeName, massLine, network.Links.IsDefaultOrEmpty && network.Transducers.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan(), ref buffer);
             writer.Number("participation", mode.ParticipationFactor);
             writer.Number("effective_mass_kg", mode.EffectiveModalMass);
             writer.Number("effective_mass_fraction", mode.EffectiveMassFraction);

@@ -115,6 +115,7 @@ public static partial class ModelReader
         CheckRepeatedSprings(repeated, springs, context);
         // The set of mass names is asked for only by a 'links' section (absent, ReadLinks returns at once).
         var links = ReadLinks(top, context, top["links"] is null ? new HashSet<string>() : masses.Walk().Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
+        var transducers = ReadTransducers(top, context, nodes, DeclaredNames(top, "supports"), links);
         if (context.HasErrors) return null;
 
         foreach (var (name, a, b, k) in springs) builder.AddSpring(name, a, b, k);
@@ -122,6 +123,7 @@ public static partial class ModelReader
         foreach (var (name, a, b, c) in dampers) builder.AddDamper(name, a, b, c);
         foreach (var (name, a, b, inertance) in inerters) builder.AddInerter(name, a, b, inertance);
         foreach (var (name, linked) in links) builder.AddLink(name, linked);
+        foreach (var t in transducers) builder.AddTransducer(t.Name, t.NodeA, t.NodeB, t.BranchA, t.BranchB, t.ForceFactor);
         var network = builder.Build();
         WarnAboutLinkedElements(network, context);
         WarnAboutConnectivity(network, context);

@@ -15,7 +15,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point", "transducers"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -63,6 +63,7 @@ public static partial class ModelReader
         if (ReadSpace(top, context) is not { } space) return Finish(context, null);
         var spatial = space == Core.Model.ModelSpace.Line ? null : new SpatialNodes(space);
         CheckSectionsForSpace(top, space, context);
+        RefuseTransducersOutsideLine(top, space, context);
         var referencePoint = ReadReferencePoint(top, space, context);
         var repeated = spatial is null ? ReadRepeat(top, context) : new Repeated();
         var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file), repeated, spatial);
@@ -87,6 +88,7 @@ public static partial class ModelReader
         var timedLoads = ReadTimedLoads(top, massNames, supportNames, context, spatial);
         var transient = ReadTransient(top, outputNames, timedLoads, context, initialNames, spatial is not null);
         var criteria = ReadCriteria(top, context, network);
+        if (network is not null) CheckTransducerReferences(top, network, loads, timedLoads, context);
         if (network is null || context.HasErrors) return Finish(context, null);
 
         var document = new ModelDocument(

@@ -120,10 +120,16 @@ public static class HarmonicAnalysis
         var dampers = spatial ? [] : network.Dampers.Where(d => outputSet.Contains(d.NodeA) || outputSet.Contains(d.NodeB)).ToArray();
         var mountRows = spatial ? SpatialLoads.MountRows(network, p) : [];
         var neededSet = new SortedSet<int>(outputIndex);
+        // An end a transducer eliminates moves as a combination of kept nodes (ConstraintElimination).
+        var elimination = spatial ? null : ConstraintElimination.Of(network);
+        var ends = new List<(string Node, double Weight)>();
         foreach (var e in springs.Select(s => (s.NodeA, s.NodeB)).Concat(dampers.Select(d => (d.NodeA, d.NodeB))))
         {
-            if (p.Free.IndexOf(e.NodeA) is var a and >= 0) neededSet.Add(a);
-            if (p.Free.IndexOf(e.NodeB) is var b and >= 0) neededSet.Add(b);
+            ends.Clear();
+            if (elimination is null) { ends.Add((e.NodeA, 1)); ends.Add((e.NodeB, 1)); }
+            else { elimination.AddTerms(e.NodeA, 1, ends); elimination.AddTerms(e.NodeB, 1, ends); }
+            foreach (var (node, _) in ends)
+                if (p.Free.IndexOf(node) is var a and >= 0) neededSet.Add(a);
         }
         var needed = neededSet.ToArray();
         var slot = new Dictionary<int, int>();
@@ -259,11 +265,12 @@ public static class HarmonicAnalysis
             HarmonicLoading.Powers(2 * Math.PI * frequenciesHz[k], powers);
             foreach (var (s, a, q) in loading.SupportMotion) u[k * p.SupportCount + s] += a * powers[q - HarmonicLoading.MinPower];
         }
-        Complex At(int k, string node)
+        Complex AtKept(int k, string node)
         {
             var i = p.Free.IndexOf(node);
             return i >= 0 ? x[k * nk + slot[i]] : u[k * p.SupportCount + p.SupportIndex(node)];
         }
+        Complex At(int k, string node) => elimination is null ? AtKept(k, node) : elimination.Value(node, n => AtKept(k, n));
 
         var responses = outputs.Select((o, j) => new DofResponse(o,
             [.. Enumerable.Range(0, nf).Select(k => x[k * nk + slot[outputIndex[j]]])])).ToImmutableArray();
@@ -337,7 +344,7 @@ public static class HarmonicAnalysis
     private static ImmutableArray<string> DefaultOutputs(DampedSystem system)
     {
         var network = system.Model.Network;
-        if (network.Space == ModelSpace.Line) return [.. network.Masses.Select(m => m.Name)];
+        if (network.Space == ModelSpace.Line) return [.. network.Masses.Select(m => m.Name).Where(m => system.Partition.Free.IndexOf(m) >= 0)]; // nodes a transducer eliminates have no DOF
         var free = system.Partition.Free;
         return [.. Enumerable.Range(0, free.Count).Select(free.Label)];
     }

@@ -43,9 +43,10 @@ public static class TransientAnalysis
     {
         ArgumentNullException.ThrowIfNull(network);
         ArgumentNullException.ThrowIfNull(matrices);
-        var coupling = network.Space == ModelSpace.Line
+        // Transducers map an eliminated node onto others (supports included): their coupling comes from the partition.
+        var coupling = network.Space == ModelSpace.Line && network.Transducers.IsDefaultOrEmpty
             ? SupportCoupling.FromElements(network, matrices.Dofs)
-            : SupportCoupling.FromPartition(SpatialAssembly.Partition(network), DampingMatrices: null);
+            : SupportCoupling.FromPartition(SupportPartition.Assemble(network), DampingMatrices: null);
         return Run(network, matrices, coupling, null, excitations, initial, settings, modes, progress, []);
     }
 
@@ -436,7 +437,7 @@ public static class TransientAnalysis
         var spatial = network.Space != ModelSpace.Line;
         var outputs = !settings.Outputs.IsEmpty
             ? spatial ? [.. settings.Outputs.SelectMany(o => dofs.OutputLabels(o) is { IsEmpty: false } labels ? labels : [o]).Distinct()] : settings.Outputs
-            : spatial ? [.. Enumerable.Range(0, dofs.Count).Select(dofs.Label)] : [.. network.Masses.Select(m => m.Name)];
+            : spatial ? [.. Enumerable.Range(0, dofs.Count).Select(dofs.Label)] : [.. network.Masses.Select(m => m.Name).Where(m => dofs.IndexOf(m) >= 0)]; // nodes a transducer eliminates have no DOF
         var probes = new List<Probe>();
         foreach (var name in outputs)
         {
@@ -456,7 +457,11 @@ public static class TransientAnalysis
         {
             var state = new List<(int, double)>();
             var known = new List<(double, TimeFunction)>();
-            foreach (var (node, sign) in new[] { (a, 1.0), (b, -1.0) })
+            // An end a transducer eliminates moves as a combination of kept nodes (ConstraintElimination).
+            var ends = new List<(string Node, double Weight)>(2);
+            if (ConstraintElimination.Of(network) is { } elimination) { elimination.AddTerms(a, 1, ends); elimination.AddTerms(b, -1, ends); }
+            else { ends.Add((a, 1.0)); ends.Add((b, -1.0)); }
+            foreach (var (node, sign) in ends)
             {
                 var i = dofs.IndexOf(node);
                 if (i >= 0) state.Add((i, sign * value));
