@@ -78,7 +78,7 @@ public sealed record DampedSystem(
                 new DampingMatrices(partition.DamperFF, partition.DamperFP, partition.DamperPP), none,
                 DampingAssembly.ModalRatios(modes, none, damping.LossFactor), 0);
         }
-        if (!damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != partition.FreeCount)
+        if (!damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != modes.ModeCountAvailable)
             modes = ModalAnalysis.Solve(model.Network, new ModalOptions(Choice: choice));
         var matrices = DampingAssembly.Build(model, partition, modes);
         var modal = DampingAssembly.ModalCoordinates(modes, matrices.FF);
