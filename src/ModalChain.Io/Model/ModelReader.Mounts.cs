@@ -49,6 +49,7 @@ public static partial class ModelReader
                 continue;
             }
             context.Positions[$"nodes.{key.Value}"] = key.Position;
+            context.Positions[$"masses.{key.Value}"] = key.Position;
             DrawingPosition? at = null;
             if (value is not null and not YScalar { IsPlainNull: true })
             {
@@ -71,6 +72,10 @@ public static partial class ModelReader
             if (!CheckName(key, context, "mount")) continue;
             var what = $"mount '{key.Value}'";
             context.Positions[$"mounts.{key.Value}"] = key.Position;
+            // The expansion's elements are found at their mount (warnings and reports look them up by section).
+            context.Positions[$"masses.{MountExpansion.InnerNode(key.Value)}"] = key.Position;
+            foreach (var part in new[] { "~spring", "~long-term", "~series" }) context.Positions[$"springs.{key.Value}{part}"] = key.Position;
+            context.Positions[$"dampers.{key.Value}~damper"] = key.Position;
             if (value is not YMapping entry)
             {
                 context.Error(value, $"{what} must be a mapping such as '{{kind: maxwell, between: [fan, ground], stiffness: 80 kN/m, damping: 400 N*s/m}}'");

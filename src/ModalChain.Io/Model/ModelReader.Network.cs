@@ -281,13 +281,15 @@ public static partial class ModelReader
         var spread = Topology.StiffnessRatioWarning(network);
         if (spread is not null && context.Positions.TryGetValue($"springs.{Topology.StiffnessSpread(network).Stiff[0].Name}", out var at))
             context.Warning(at, spread);
-        var loose = Topology.MassesWithoutSpring(network).ToHashSet();
+        // A massless node has no rigid-body mode of its own (it is condensed or a first-order state): not warned about here.
+        var massless = network.Masses.Where(m => m.Kilograms == 0).Select(m => m.Name).ToHashSet(StringComparer.Ordinal);
+        var loose = Topology.MassesWithoutSpring(network).Where(name => !massless.Contains(name)).ToHashSet();
         foreach (var name in loose)
             context.Warning(context.Positions[$"masses.{name}"],
                 $"mass '{name}' has no spring: nothing holds it, so it has a rigid-body mode (reported at 0 Hz)");
         foreach (var group in Topology.UnsupportedGroups(network))
         {
-            if (group.All(loose.Contains)) continue;
+            if (group.All(g => loose.Contains(g) || massless.Contains(g))) continue;
             context.Warning(context.Positions[$"masses.{group[0]}"],
                 $"masses {string.Join(", ", group.Select(g => $"'{g}'"))} are not connected to ground by springs: " +
                 "that part of the network has a rigid-body mode (reported at 0 Hz)");
