@@ -42,6 +42,14 @@ public sealed record DampedSystem(
     /// <summary>True when the viscous damping does not couple the undamped modes.</summary>
     public bool IsClassical => NonClassicalIndex < ClassicalTolerance;
 
+    /// <summary>
+    /// True when a massless DOF is touched by viscous damping (a line model with a Maxwell element, say): it is then a
+    /// first-order state, the undamped modes condense it through its springs only, and only the complex modes
+    /// (<see cref="Analyses.Modal.ComplexModes"/>) describe the damped system, however classical Φᵀ C Φ looks.
+    /// </summary>
+    public bool HasFirstOrderStates => Model.Network.Space == ModelSpace.Line && Model.Network.Masses.Any(m => m.Kilograms == 0)
+        && MasslessReduction.Classify(Partition.Mass, Damping.FF).HasFirstOrderStates;
+
     /// <summary>True when the model has any viscous damping at all.</summary>
     public bool HasViscousDamping => KnownViscousDamping ?? Damping.FF.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0);
 
@@ -98,7 +106,7 @@ public sealed record DampedSystem(
                 DampingAssembly.ModalRatios(modes, none, damping.LossFactor), 0);
         }
         // Modal damping ratios define C from every mode, and the analyses superpose the modes held: all of them then.
-        if (!damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != partition.FreeCount)
+        if (!damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != modes.ModeCountAvailable)
             modes = ModalAnalysis.Solve(model.Network, new ModalOptions(Choice: choice));
         if (!partition.HasDampers)
         {

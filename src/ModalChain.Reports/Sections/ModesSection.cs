@@ -29,7 +29,7 @@ public sealed class ModesSection : IReportSection
     {
         _context = context;
         _result = context.Modal;
-        _complexModes = context.Damped.IsClassical ? [] : ComplexModes.Solve(context.Damped);
+        _complexModes = context.Damped.IsClassical && !context.Damped.HasFirstOrderStates ? [] : ComplexModes.Solve(context.Damped);
         _massChart = MassChart(_result);
         _view = ViewOf(_result.Network);
         if (_view == ModeView.Map)
@@ -169,6 +169,7 @@ public sealed class ModesSection : IReportSection
                     {
                         ComplexModeKind.RigidBody => "rigid body (zero root)",
                         ComplexModeKind.RigidBodyRelaxation => "rigid-body relaxation, " + DisplayUnits.Number(-c.EigenValue.Real) + " 1/s",
+                        ComplexModeKind.Relaxation => "relaxation, τ = " + DisplayUnits.Number(-1 / c.EigenValue.Real) + " s",
                         _ => c.IsOscillatory ? DisplayUnits.Number(c.DampedFrequencyHz) : "overdamped",
                     }, c.IsOscillatory ? DisplayUnits.Percent(c.DampingRatio) : "—"]),
                 new HashSet<int> { 0, 1, 2, 3 });
