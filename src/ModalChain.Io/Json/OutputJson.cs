@@ -22,11 +22,18 @@ public static class OutputJson
 {
     private static readonly JsonSerializerOptions Options = CreateOptions();
 
-    /// <summary>Every command's output record and the schema file derived from it, in docs/schema/.</summary>
-    public static IReadOnlyList<(Type Type, string File, string Title)> Schemas { get; } =
+    /// <summary>Every output schema file in docs/schema/ derived from the records: its title and its record, or for a file
+    /// that describes several outputs, one record per definition in <c>$defs</c> (the file then says which in its
+    /// description).</summary>
+    public static IReadOnlyList<OutputSchemaFile> Schemas { get; } =
     [
-        (typeof(TuneOutput), "tune.schema.json", "modalchain tune --format json"),
-        (typeof(CheckOutput), "check.schema.json", "modalchain check --format json"),
+        new("tune.schema.json", "modalchain tune --format json", typeof(TuneOutput)),
+        new("check.schema.json", "modalchain check --format json", typeof(CheckOutput)),
+        new("study.schema.json", "modalchain study --format json", typeof(ParameterStudyOutput))
+        {
+            Description = "A parameter study (--vary PATH: frequencies, mode tracking and criteria per value) or a speed-frequency chart (--vary speed).",
+            Definitions = [("parameter", typeof(ParameterStudyOutput)), ("speed", typeof(SpeedChartOutput))],
+        },
     ];
 
     /// <summary>Writes <paramref name="value"/> to <paramref name="stream"/> as one JSON document.</summary>
@@ -46,14 +53,34 @@ public static class OutputJson
         return JsonSerializer.SerializeToUtf8Bytes(value, info);
     }
 
-    /// <summary>The JSON Schema (draft 2020-12) of the output record <paramref name="type"/>, as written to docs/schema/.</summary>
-    public static string Schema(Type type, string title)
+    /// <summary>The text of <paramref name="file"/>'s schema (JSON Schema draft 2020-12), as committed in docs/schema/.</summary>
+    public static string Schema(OutputSchemaFile file)
+    {
+        ArgumentNullException.ThrowIfNull(file);
+        JsonObject schema;
+        if (file.Definitions.IsDefaultOrEmpty) schema = Schema(file.Type);
+        else
+        {
+            // One output of several: each is a definition, and the document is exactly one of them.
+            schema = new JsonObject
+            {
+                ["description"] = file.Description,
+                ["oneOf"] = new JsonArray([.. file.Definitions.Select(d => (JsonNode)new JsonObject { ["$ref"] = "#/$defs/" + d.Name })]),
+                ["required"] = new JsonArray("format_version"),
+                ["properties"] = new JsonObject { ["format_version"] = Schema(file.Type)["properties"]!["format_version"]!.DeepClone() },
+                ["$defs"] = new JsonObject(file.Definitions.Select(d => KeyValuePair.Create(d.Name, (JsonNode?)Schema(d.Type)))),
+            };
+        }
+        schema.Insert(0, "$schema", "https://json-schema.org/draft/2020-12/schema");
+        schema.Insert(1, "title", file.Title);
+        return schema.ToJsonString(new JsonSerializerOptions { WriteIndented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + "\n";
+    }
+
+    /// <summary>The schema of one output record.</summary>
+    private static JsonObject Schema(Type type)
     {
         var exporter = new JsonSchemaExporterOptions { TreatNullObliviousAsNonNullable = true, TransformSchemaNode = Transform };
-        var schema = Options.GetTypeInfo(type).GetJsonSchemaAsNode(exporter).AsObject();
-        schema.Insert(0, "$schema", "https://json-schema.org/draft/2020-12/schema");
-        schema.Insert(1, "title", title);
-        return schema.ToJsonString(new JsonSerializerOptions { WriteIndented = true, Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping }) + "\n";
+        return Options.GetTypeInfo(type).GetJsonSchemaAsNode(exporter).AsObject();
     }
 
     private static JsonTypeInfo<T> TypeInfo<T>() => (JsonTypeInfo<T>)Options.GetTypeInfo(typeof(T));
@@ -85,6 +112,10 @@ public static class OutputJson
         if (context.TypeInfo is { Kind: JsonTypeInfoKind.Enumerable, ElementType: { } element } && !node.ContainsKey("items")
             && (element == typeof(double) || element == typeof(double?)))
             node["items"] = new JsonObject { ["type"] = new JsonArray("number", "null") };
+        // A list of nullable strings (IReadOnlyList<string?>): the exporter cannot see the item's annotation.
+        if (attributes is PropertyInfo member && node["items"] is JsonObject { } items && items["type"] is JsonValue
+            && new NullabilityInfoContext().Create(member).GenericTypeArguments is [{ ReadState: NullabilityState.Nullable }])
+            items["type"] = new JsonArray(items["type"]!.GetValue<string>(), "null");
         if (Attribute<SchemaConstAttribute>(attributes) is { } constant)
             node = new JsonObject { ["const"] = constant.Value };
         if (Attribute<SchemaEnumAttribute>(attributes) is { } allowed)
@@ -117,4 +148,19 @@ public static class OutputJson
     Converters = [typeof(FiniteNumberConverter)])]
 [JsonSerializable(typeof(TuneOutput))]
 [JsonSerializable(typeof(CheckOutput))]
+[JsonSerializable(typeof(ParameterStudyOutput))]
+[JsonSerializable(typeof(SpeedChartOutput))]
 internal sealed partial class OutputJsonContext : JsonSerializerContext;
+
+/// <summary>One schema file of <see cref="OutputJson.Schemas"/>.</summary>
+/// <param name="File">The file's name in docs/schema/.</param>
+/// <param name="Title">The schema's title.</param>
+/// <param name="Type">The output record; with <see cref="Definitions"/>, the one whose format_version the file states.</param>
+public sealed record OutputSchemaFile(string File, string Title, Type Type)
+{
+    /// <summary>The file's description when it has <see cref="Definitions"/>; else the record's [Description].</summary>
+    public string? Description { get; init; }
+
+    /// <summary>For a file describing several outputs: each definition's name in <c>$defs</c> and its record.</summary>
+    public System.Collections.Immutable.ImmutableArray<(string Name, Type Type)> Definitions { get; init; } = [];
+}

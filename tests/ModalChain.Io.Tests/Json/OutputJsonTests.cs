@@ -83,7 +83,7 @@ public class OutputJsonTests
     [Fact]
     public void DerivedSchema_StatesRequiredFields_NullableNumbers_TheVersion_AndForbidsOtherFields()
     {
-        var schema = JsonNode.Parse(OutputJson.Schema(typeof(TuneOutput), "tune"))!.AsObject();
+        var schema = JsonNode.Parse(OutputJson.Schema(new OutputSchemaFile("tune.schema.json", "tune", typeof(TuneOutput))))!.AsObject();
         Assert.False(schema["additionalProperties"]!.GetValue<bool>());
         var required = schema["required"]!.AsArray().Select(n => n!.GetValue<string>()).ToArray();
         Assert.Contains("peak_before", required);      // always written, null when no response was computed
@@ -95,7 +95,7 @@ public class OutputJsonTests
         Assert.False(properties["absorber"]!["additionalProperties"]!.GetValue<bool>());
         Assert.Equal("Why the number beside it is null.", properties["peak_before_note"]!["description"]!.GetValue<string>());
 
-        var check = JsonNode.Parse(OutputJson.Schema(typeof(CheckOutput), "check"))!["properties"]!;
+        var check = JsonNode.Parse(OutputJson.Schema(new OutputSchemaFile("check.schema.json", "check", typeof(CheckOutput))))!["properties"]!;
         Assert.Equal(["sum", "rms", null], check["load_case_combination"]!["enum"]!.AsArray().Select(n => n?.GetValue<string>()));
     }
 }
