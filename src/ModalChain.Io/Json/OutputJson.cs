@@ -29,6 +29,7 @@ public static class OutputJson
     [
         new("tune.schema.json", "modalchain tune --format json", typeof(TuneOutput)),
         new("check.schema.json", "modalchain check --format json", typeof(CheckOutput)),
+        new("transient.schema.json", "modalchain transient --format json", typeof(TransientOutput)),
         new("study.schema.json", "modalchain study --format json", typeof(ParameterStudyOutput))
         {
             Description = "A parameter study (--vary PATH: frequencies, mode tracking and criteria per value) or a speed-frequency chart (--vary speed).",
@@ -150,6 +151,7 @@ public static class OutputJson
 [JsonSerializable(typeof(CheckOutput))]
 [JsonSerializable(typeof(ParameterStudyOutput))]
 [JsonSerializable(typeof(SpeedChartOutput))]
+[JsonSerializable(typeof(TransientOutput))]
 internal sealed partial class OutputJsonContext : JsonSerializerContext;
 
 /// <summary>One schema file of <see cref="OutputJson.Schemas"/>.</summary>

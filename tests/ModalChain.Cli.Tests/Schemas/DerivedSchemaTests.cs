@@ -23,6 +23,7 @@ public class DerivedSchemaTests
         ["check"] = typeof(CheckOutput),
         ["study"] = typeof(ParameterStudyOutput),
         ["study-speed"] = typeof(SpeedChartOutput),
+        ["transient"] = typeof(TransientOutput),
     };
 
     public static TheoryData<string> SchemaFilesDerived() => [.. OutputJson.Schemas.Select(s => s.File)];

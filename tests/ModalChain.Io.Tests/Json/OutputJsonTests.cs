@@ -98,4 +98,45 @@ public class OutputJsonTests
         var check = JsonNode.Parse(OutputJson.Schema(new OutputSchemaFile("check.schema.json", "check", typeof(CheckOutput))))!["properties"]!;
         Assert.Equal(["sum", "rms", null], check["load_case_combination"]!["enum"]!.AsArray().Select(n => n?.GetValue<string>()));
     }
+
+    // Peak memory: a long history goes to the stream while it is being written, not after the document is complete
+    // (the serializer flushes its buffer between items of a sequence; common practice for System.Text.Json streams).
+    [Fact]
+    public void ALongHistory_ReachesTheStream_WhileItIsStillBeingWritten()
+    {
+        const int samples = 1_000_000;
+        using var stream = new MemoryStream();
+        long writtenBeforeLastSample = -1;
+        IEnumerable<double> History()
+        {
+            for (var k = 0; k < samples - 1; k++) yield return k * 1e-3;
+            writtenBeforeLastSample = stream.Length;
+            yield return (samples - 1) * 1e-3;
+        }
+        var output = new TransientOutput
+        {
+            Title = "t",
+            FormatVersion = JsonFormat.Version,
+            Source = new() { File = "f.yaml", Sha256 = "00", ToolVersion = "0" },
+            Method = "newmark",
+            MethodDescription = "m",
+            StepS = 1e-3,
+            DurationS = 1e3,
+            Steps = samples - 1,
+            RecordEvery = 1,
+            Loads = [],
+            TimeS = History(),
+            Responses = [],
+            ElementForces = [],
+            Reactions = [],
+            RmsWindowS = new() { From = 0, To = 1e3 },
+            Peaks = [],
+            Energy = new() { InitialJ = 0, InputWorkJ = 0, FinalKineticJ = 0, FinalStrainJ = 0, DissipatedJ = 0, MaxRelativeError = 0 },
+            Warnings = [],
+            Caution = "c",
+        };
+        OutputJson.Write(stream, output);
+        Assert.True(writtenBeforeLastSample > 0.95 * stream.Length,
+            $"{writtenBeforeLastSample} of {stream.Length} bytes had reached the stream before the last sample was read");
+    }
 }
