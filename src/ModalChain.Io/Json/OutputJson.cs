@@ -29,6 +29,7 @@ public static class OutputJson
     [
         new("tune.schema.json", "modalchain tune --format json", typeof(TuneOutput)),
         new("check.schema.json", "modalchain check --format json", typeof(CheckOutput)),
+        new("harmonic.schema.json", "modalchain harmonic --format json", typeof(HarmonicOutput)),
         new("transient.schema.json", "modalchain transient --format json", typeof(TransientOutput)),
         new("study.schema.json", "modalchain study --format json", typeof(ParameterStudyOutput))
         {
@@ -152,6 +153,7 @@ public static class OutputJson
 [JsonSerializable(typeof(ParameterStudyOutput))]
 [JsonSerializable(typeof(SpeedChartOutput))]
 [JsonSerializable(typeof(TransientOutput))]
+[JsonSerializable(typeof(HarmonicOutput))]
 internal sealed partial class OutputJsonContext : JsonSerializerContext;
 
 /// <summary>One schema file of <see cref="OutputJson.Schemas"/>.</summary>

@@ -24,6 +24,7 @@ public class DerivedSchemaTests
         ["study"] = typeof(ParameterStudyOutput),
         ["study-speed"] = typeof(SpeedChartOutput),
         ["transient"] = typeof(TransientOutput),
+        ["harmonic"] = typeof(HarmonicOutput),
     };
 
     public static TheoryData<string> SchemaFilesDerived() => [.. OutputJson.Schemas.Select(s => s.File)];
