@@ -45,7 +45,11 @@ public sealed record SupportPartition(
     public Matrix<double> MassFP
     {
         get => _massFP ?? Matrix<double>.Build.Sparse(FreeCount, SupportCount);
-        init => _massFP = value;
+        init
+        {
+            _massFP = value;
+            HasInertialCoupling = value is not null && value.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0);
+        }
     }
 
     /// <summary>M_pp in kg: the inertance between supports and their own terminals (enters the support reactions only).</summary>
@@ -56,7 +60,7 @@ public sealed record SupportPartition(
     }
 
     /// <summary>True when an inerter joins a free DOF to a support's prescribed column (M_fp has a non-zero entry).</summary>
-    public bool HasInertialCoupling => _massFP is not null && _massFP.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0);
+    public bool HasInertialCoupling { get; private init; }
 
     /// <summary>Number of free DOFs.</summary>
     public int FreeCount => Free.Count;

@@ -294,6 +294,7 @@ public static class HarmonicAnalysis
 
         var reactions = ImmutableArray.CreateBuilder<SupportReaction>();
         var total = new Complex[nf];
+        var inertial = p.HasInertialCoupling;
         for (var s = 0; s < p.SupportCount; s++)
         {
             var r = new Complex[nf];
@@ -308,7 +309,7 @@ public static class HarmonicAnalysis
                 {
                     var ut = u[k * p.SupportCount + t];
                     if (ut != Complex.Zero)
-                        sum += (p.StiffnessPP[s, t] * hysteretic + iw * system.Damping.PP[s, t] + iw * iw * (p.HasInertialCoupling ? p.MassPP[s, t] : 0)) * ut;
+                        sum += (p.StiffnessPP[s, t] * hysteretic + iw * system.Damping.PP[s, t] + iw * iw * (inertial ? p.MassPP[s, t] : 0)) * ut;
                 }
                 r[k] = -sum;
                 total[k] += r[k];
