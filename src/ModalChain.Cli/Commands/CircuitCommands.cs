@@ -83,6 +83,10 @@ internal static class CircuitCommands
         return ExitCodes.Success;
     }
 
+    /// <summary>Exit 2 for a command that has no circuit form yet.</summary>
+    public static int NotForCircuits(Streams io, string path, string command) =>
+        Fail(io, $"{path}: '{command}' does not take circuit models yet; 'validate', 'modes', 'harmonic' and 'transient' do");
+
     private static int NoCsv(Streams io) => Fail(io, "--format csv is not available for circuit models yet; use text or json");
 
     private static int Fail(Streams io, string message)
