@@ -40,6 +40,7 @@ internal static class ModesCommand
             var stages = StageTimes.FromEnvironment(io);
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (document.Circuit is { } circuit) return CircuitCommands.Modes(io, document, circuit, parse.GetValue(format));
             if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
             var belowHz = parse.GetValue(below)?.Si;
             stages?.Mark("read and check");

@@ -15,7 +15,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point", "nodes", "mounts", "transducers"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point", "nodes", "mounts", "transducers", "circuit"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -59,6 +59,8 @@ public static partial class ModelReader
         if (context.Mapping(root, "the model file") is not { } top) return Finish(context, null);
 
         context.RejectUnknownKeys(top, "the model file", TopLevelKeys);
+        // A circuit model has a reader of its own (ModelReader.Circuit.cs): no masses, supports or loads.
+        if (top["circuit"] is not null) return ReadCircuitModel(top, context, file, bytes);
         // The space decides how masses, supports, springs and loads read: after a wrong one nothing else can be read sensibly.
         if (ReadSpace(top, context) is not { } space) return Finish(context, null);
         var spatial = space == Core.Model.ModelSpace.Line ? null : new SpatialNodes(space);
