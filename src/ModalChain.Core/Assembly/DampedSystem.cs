@@ -39,6 +39,13 @@ public sealed record DampedSystem(
     /// <summary>True when the viscous damping does not couple the undamped modes.</summary>
     public bool IsClassical => NonClassicalIndex < ClassicalTolerance;
 
+    /// <summary>
+    /// True when a massless DOF is touched by viscous damping (a line model with a Maxwell element, say): it is then a
+    /// first-order state, the undamped modes condense it through its springs only, and only the complex modes
+    /// (<see cref="Analyses.Modal.ComplexModes"/>) describe the damped system, however classical Φᵀ C Φ looks.
+    /// </summary>
+    public bool HasFirstOrderStates => Model.Network.Space == ModelSpace.Line && MasslessReduction.Classify(Partition.Mass, Damping.FF).HasFirstOrderStates;
+
     /// <summary>True when the model has any viscous damping at all.</summary>
     public bool HasViscousDamping => Damping.FF.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0);
 
@@ -78,7 +85,7 @@ public sealed record DampedSystem(
                 new DampingMatrices(partition.DamperFF, partition.DamperFP, partition.DamperPP), none,
                 DampingAssembly.ModalRatios(modes, none, damping.LossFactor), 0);
         }
-        if (!damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != partition.FreeCount)
+        if (!damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != modes.ModeCountAvailable)
             modes = ModalAnalysis.Solve(model.Network, new ModalOptions(Choice: choice));
         var matrices = DampingAssembly.Build(model, partition, modes);
         var modal = DampingAssembly.ModalCoordinates(modes, matrices.FF);

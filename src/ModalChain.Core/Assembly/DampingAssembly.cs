@@ -45,7 +45,7 @@ public static class DampingAssembly
         }
         if (!damping.ModalRatios.IsDefaultOrEmpty)
         {
-            if (modes is null || modes.Modes.Length != partition.FreeCount)
+            if (modes is null || modes.Modes.Length != modes.ModeCountAvailable || modes.Matrices.Size != partition.FreeCount)
                 throw new ArgumentException("Modal damping needs every mode of the network.", nameof(modes));
             var modal = ModalDampingMatrix(partition.Mass, modes, damping);
             relative = relative is null ? modal : relative + modal;

@@ -15,7 +15,7 @@ public sealed record Attachment(string Node, string? Point, Point3? Location);
 
 /// <summary>A lumped mass that moves in the network's direction of motion.</summary>
 /// <param name="Name">Unique name of the mass within its network.</param>
-/// <param name="Kilograms">Mass in kg; positive and finite.</param>
+/// <param name="Kilograms">Mass in kg; non-negative and finite. 0 is a massless node (line models): a point where springs, dampers and inerters meet, with no inertia of its own.</param>
 /// <param name="Position">Optional drawing position in m.</param>
 public sealed record Mass(string Name, double Kilograms, DrawingPosition? Position = null)
 {

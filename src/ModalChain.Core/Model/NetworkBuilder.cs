@@ -28,7 +28,7 @@ public sealed class NetworkBuilder
     public NetworkBuilder AddMass(Mass mass)
     {
         ArgumentNullException.ThrowIfNull(mass);
-        Guard.Positive(mass.Kilograms, nameof(mass));
+        Guard.NonNegative(mass.Kilograms, nameof(mass));
         foreach (var d in mass.Moves)
             if (d.IsRotation() || d == Dofs.Direction.Along)
                 throw new ArgumentException($"Mass '{mass.Name}' may move only in translations of the model's space, not '{d}'.", nameof(mass));
@@ -89,15 +89,20 @@ public sealed class NetworkBuilder
 
     /// <summary>Adds a mass.</summary>
     /// <param name="name">Unique name.</param>
-    /// <param name="kilograms">Mass in kg, positive and finite.</param>
+    /// <param name="kilograms">Mass in kg, non-negative and finite; 0 declares a massless node (line models only).</param>
     /// <param name="position">Optional drawing position in m.</param>
     public NetworkBuilder AddMass(string name, double kilograms, DrawingPosition? position = null)
     {
-        Guard.Positive(kilograms, nameof(kilograms));
+        Guard.NonNegative(kilograms, nameof(kilograms));
         ClaimNodeName(name);
         _masses.Add(new Mass(name, kilograms, position));
         return this;
     }
+
+    /// <summary>Adds a massless node (line models): a mass of 0 kg where springs, dampers and inerters meet.</summary>
+    /// <param name="name">Unique name.</param>
+    /// <param name="position">Optional drawing position in m.</param>
+    public NetworkBuilder AddNode(string name, DrawingPosition? position = null) => AddMass(name, 0, position);
 
     /// <summary>Adds a support (a node that does not move unless an analysis prescribes its motion).</summary>
     public NetworkBuilder AddSupport(string name, DrawingPosition? position = null)
@@ -160,8 +165,13 @@ public sealed class NetworkBuilder
     }
 
     /// <summary>Produces the immutable network.</summary>
-    public Network Build() =>
-        new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters] };
+    /// <exception cref="ArgumentException">A massless node (zero mass) in a plane or 3d model, which only line models take.</exception>
+    public Network Build()
+    {
+        if (Space != ModelSpace.Line && _masses.FirstOrDefault(m => m.Kilograms == 0) is { } massless)
+            throw new ArgumentException($"Mass '{massless.Name}' has zero mass: massless nodes are taken in line models only.");
+        return new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters] };
+    }
 
     /// <summary>Checks a two-node element's ends and name (unique among its kind) and appends it.</summary>
     private NetworkBuilder AddElement<T>(List<T> elements, HashSet<string> names, T element, string name, string nodeA, string nodeB,

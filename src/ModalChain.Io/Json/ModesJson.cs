@@ -180,11 +180,12 @@ public static class ModesJson
         writer.WriteEndArray();
     }
 
-    /// <summary>The JSON name of a complex root's kind: elastic, rigid-body (a zero root) or rigid-body-relaxation.</summary>
+    /// <summary>The JSON name of a complex root's kind: elastic, rigid-body (a zero root), rigid-body-relaxation or relaxation (first-order, τ = −1/λ).</summary>
     public static string KindName(ComplexModeKind kind) => kind switch
     {
         ComplexModeKind.RigidBody => "rigid-body",
         ComplexModeKind.RigidBodyRelaxation => "rigid-body-relaxation",
+        ComplexModeKind.Relaxation => "relaxation",
         _ => "elastic",
     };
 

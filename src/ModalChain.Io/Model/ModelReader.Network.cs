@@ -102,13 +102,21 @@ public static partial class ModelReader
         }
 
         AddRepeatedMasses(repeated, builder, nodes, context);
+        if (spatial is null) ReadNodes(top, context, builder, nodes);
         ReadSupports(top, context, builder, nodes, spatial);
-        if (spatial is not null) return ReadSpatialNetwork(top, builder, spatial, nodes, context);
+        if (spatial is not null)
+        {
+            foreach (var section in new[] { "nodes", "mounts" })
+                if (top[section] is { } refused)
+                    context.Error(refused, $"'{section}' (massless nodes{(section == "mounts" ? " and the mounts built on them" : "")}) are taken in line models only; this model has 'space: {(spatial.Space == ModelSpace.Plane ? "plane" : "3d")}'");
+            return ReadSpatialNetwork(top, builder, spatial, nodes, context);
+        }
         var springs = ReadTwoNodeSection(top, "springs", "spring", "stiffness", Quantity.Stiffness, StiffnessRange, nodes, context);
         var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
         var inerters = ReadTwoNodeSection(top, "inerters", "inerter", "inertance", Quantity.Mass, InertanceRange, nodes, context);
         CheckRepeatedSprings(repeated, springs, context);
         var links = ReadLinks(top, context, masses.Walk().Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
+        var mounts = ReadMounts(top, nodes, context);
         if (context.HasErrors) return null;
 
         foreach (var (name, a, b, k) in springs) builder.AddSpring(name, a, b, k);
@@ -116,7 +124,10 @@ public static partial class ModelReader
         foreach (var (name, a, b, c) in dampers) builder.AddDamper(name, a, b, c);
         foreach (var (name, a, b, inertance) in inerters) builder.AddInerter(name, a, b, inertance);
         foreach (var (name, linked) in links) builder.AddLink(name, linked);
+        foreach (var mount in mounts) MountExpansion.Expand(mount, builder);
         var network = builder.Build();
+        CheckMasslessNodes(network, context);
+        if (context.HasErrors) return null;
         WarnAboutLinkedElements(network, context);
         WarnAboutConnectivity(network, context);
         return network;
@@ -270,13 +281,15 @@ public static partial class ModelReader
         var spread = Topology.StiffnessRatioWarning(network);
         if (spread is not null && context.Positions.TryGetValue($"springs.{Topology.StiffnessSpread(network).Stiff[0].Name}", out var at))
             context.Warning(at, spread);
-        var loose = Topology.MassesWithoutSpring(network).ToHashSet();
+        // A massless node has no rigid-body mode of its own (it is condensed or a first-order state): not warned about here.
+        var massless = network.Masses.Where(m => m.Kilograms == 0).Select(m => m.Name).ToHashSet(StringComparer.Ordinal);
+        var loose = Topology.MassesWithoutSpring(network).Where(name => !massless.Contains(name)).ToHashSet();
         foreach (var name in loose)
             context.Warning(context.Positions[$"masses.{name}"],
                 $"mass '{name}' has no spring: nothing holds it, so it has a rigid-body mode (reported at 0 Hz)");
         foreach (var group in Topology.UnsupportedGroups(network))
         {
-            if (group.All(loose.Contains)) continue;
+            if (group.All(g => loose.Contains(g) || massless.Contains(g))) continue;
             context.Warning(context.Positions[$"masses.{group[0]}"],
                 $"masses {string.Join(", ", group.Select(g => $"'{g}'"))} are not connected to ground by springs: " +
                 "that part of the network has a rigid-body mode (reported at 0 Hz)");

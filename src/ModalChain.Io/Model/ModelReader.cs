@@ -15,7 +15,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point", "circuit"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point", "nodes", "mounts", "circuit"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -77,6 +77,16 @@ public static partial class ModelReader
         // Plane and 3d models: outputs may name masses, bodies and DOF labels (skid.z, skid.ry); initial conditions a
         // translation DOF label (a mass that moves in one direction by its bare name).
         IReadOnlySet<string> outputNames = massNames, initialNames = massNames;
+        // Line models: outputs may also name massless nodes and the inner nodes of mounts (their motion is reported).
+        if (spatial is null && (top["nodes"] is not null || top["mounts"] is not null))
+        {
+            var withNodes = new HashSet<string>(massNames, StringComparer.Ordinal);
+            if (top["nodes"] is YSequence nodeList)
+                foreach (var item in nodeList.Items) if (item is YScalar { IsPlainNull: false } listed) withNodes.Add(listed.Value);
+            withNodes.UnionWith(DeclaredNames(top, "nodes"));
+            withNodes.UnionWith(DeclaredNames(top, "mounts").Select(Core.Model.MountExpansion.InnerNode));
+            outputNames = withNodes;
+        }
         if (spatial is not null && network is not null)
         {
             var dofs = Core.Dofs.DofMap.For(network);

@@ -167,6 +167,13 @@ public static class HarmonicAnalysis
         var notes = ImmutableArray.CreateBuilder<string>();
         int used;
         HarmonicEngine engine;
+        // Damping at a massless node makes it a first-order state that no undamped mode describes: solve directly.
+        if (method == HarmonicMethod.Modal && network.Space == ModelSpace.Line
+            && MasslessReduction.Classify(p.Mass, system.Damping.FF).HasFirstOrderStates)
+        {
+            method = HarmonicMethod.Direct;
+            notes.Add("the modal method was asked for, but damping at a massless node makes it a first-order state that the undamped modes do not describe: solved directly instead");
+        }
         if (method == HarmonicMethod.Modal)
         {
             var fmax = frequenciesHz.Count > 0 ? frequenciesHz.Max() : 0;

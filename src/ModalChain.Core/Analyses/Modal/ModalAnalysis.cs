@@ -40,6 +40,9 @@ public static class ModalAnalysis
         if (options.BelowFrequencyHz is { } belowHz) Guard.Positive(belowHz, nameof(options.BelowFrequencyHz));
         if (matrices.Size == 0) throw new ArgumentException("The network has no masses.", nameof(network));
 
+        if (network.Space == ModelSpace.Line && MasslessReduction.HasMasslessDofs(matrices.Mass))
+            return MasslessModes.Solve(network, matrices, options);
+
         double? limit = options.BelowFrequencyHz is { } below ? Math.Pow(2 * Math.PI * below, 2) : null;
         var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver, options.Choice, limit);
         if (network.Space != ModelSpace.Line) return SpatialModes.Build(network, matrices, solution);
@@ -175,7 +178,7 @@ public static class ModalAnalysis
         return ImmutableCollectionsMarshal.AsImmutableArray(shares);
     }
 
-    private static ImmutableArray<double> StrainShares(double[] phi, (int a, int b, double k)[] springs)
+    internal static ImmutableArray<double> StrainShares(double[] phi, (int a, int b, double k)[] springs)
     {
         var energies = new double[springs.Length];
         var sum = 0.0;

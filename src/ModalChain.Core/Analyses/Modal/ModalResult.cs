@@ -131,6 +131,15 @@ public sealed record ModalResult(
         return i >= 0 ? mode.Shape[i] : 0;
     }
 
+    /// <summary>
+    /// The massless DOFs condensed statically before the eigen solve (indices into <see cref="StructuralMatrices.Dofs"/>):
+    /// a model has at most FreeCount − this many modes; empty when every DOF has mass.
+    /// </summary>
+    public ImmutableArray<int> CondensedDofs { get; init; } = [];
+
+    /// <summary>Number of modes the model has: its DOFs less the massless ones condensed.</summary>
+    public int ModeCountAvailable => Matrices.Size - CondensedDofs.Length;
+
     /// <summary>Number of rigid-body (0 Hz) modes among <see cref="Modes"/>.</summary>
     public int RigidBodyModeCount => Modes.Count(m => m.IsRigidBody);
 }

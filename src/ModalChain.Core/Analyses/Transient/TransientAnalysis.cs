@@ -113,7 +113,22 @@ public static class TransientAnalysis
         ResponseRecorder recorder;
         var consideredModes = modes.Modes;
 
-        switch (settings.Method)
+        // Massless nodes: no M⁻¹ exists, so the state-space form of FirstOrderSystem is integrated exactly, whatever
+        // method was asked for, unless the modal method runs on a model whose massless nodes carry springs only.
+        var firstOrder = network.Space == ModelSpace.Line && MasslessReduction.HasMasslessDofs(matrices.Mass)
+            && (settings.Method != TransientMethod.Modal || MasslessReduction.Classify(matrices.Mass, matrices.Damping).HasFirstOrderStates);
+        if (firstOrder)
+        {
+            if (n > ExactMethodMaxDofs)
+                throw new ArgumentOutOfRangeException(nameof(settings), settings.Method,
+                    $"A model with massless nodes is integrated in its state-space form, a dense exponential limited to {ExactMethodMaxDofs} DOFs; it has {n}.");
+            var state = FirstOrder.FirstOrderSystem.Build(matrices.Mass, matrices.Damping, matrices.Stiffness, dofs.Label);
+            var integrator = new FirstOrder.FirstOrderIntegrator();
+            description = integrator.Name + (settings.Method == TransientMethod.Exact ? "" : Invariant($", in place of the {settings.Method.ToString().ToLowerInvariant()} method asked for (the model has massless nodes)"));
+            recorder = PhysicalRecorder(system, probes, settings, steps, rmsFrom, rmsTo, progress);
+            integrator.Run(state, load.AsLoadVector(), u0, v0, h, steps, recorder);
+        }
+        else switch (settings.Method)
         {
             case TransientMethod.Newmark:
             case TransientMethod.Hht:
@@ -157,7 +172,7 @@ public static class TransientAnalysis
             case TransientMethod.Modal:
             {
                 var count = Math.Min(settings.ModeCount ?? modes.Modes.Length, modes.Modes.Length);
-                if (settings.ModeCount is null && count < n)
+                if (settings.ModeCount is null && count < modes.ModeCountAvailable)
                     warnings.Add(Invariant($"The modal method kept the lowest {count} of {n} modes, chosen automatically for a model of more than {LargeModel} masses (up to {modes.Modes[count - 1].NaturalFrequencyHz:G4} Hz): give 'modes' under 'transient' or --count for more."));
                 consideredModes = modes.Modes[..count];
                 var shapes = Matrix<double>.Build.Dense(n, count, (i, j) => consideredModes[j].Shape[i]);
@@ -174,7 +189,7 @@ public static class TransientAnalysis
                     h, steps, settings.RecordEvery, rmsFrom, rmsTo, progress);
                 integrator.Run(shapes, omega, zeta, matrices.Mass, load, u0, v0, h, steps, recorder);
                 var cumulative = consideredModes[^1].CumulativeEffectiveMassFraction;
-                if (count < n && cumulative < 0.9)
+                if (count < modes.ModeCountAvailable && cumulative < 0.9)
                     warnings.Add(Invariant($"The {count} modes kept carry {100 * cumulative:F1} % of the effective mass (less than 90 %): responses to loads that excite higher modes are underestimated."));
                 break;
             }
