@@ -123,15 +123,15 @@ public sealed class CircuitAnalogy
     }
 
     /// <summary>
-    /// The analogue mechanical network, when every free node has capacitance to ground (the mass of its node); null
-    /// otherwise, because a node without a grounded capacitor would be a mass of 0 kg.
+    /// The analogue mechanical network: every free node a mass of its capacitance to ground, or a massless node when it
+    /// has none; the nodes voltage sources hold are supports.
     /// </summary>
     /// <remarks>
     /// Node ↔ mass (kg = the node's capacitance to ground in F) or support (a node a voltage source holds), capacitor
     /// between two nodes ↔ inerter (kg = F), inductor ↔ spring (N/m = 1/H), resistor ↔ damper (N·s/m = 1/Ω); element
     /// names are kept. Current and voltage sources are loads on this network, not part of it.
     /// </remarks>
-    public Network? ToNetwork()
+    public Network ToNetwork()
     {
         var builder = new NetworkBuilder { Title = Circuit.Title };
         var grounded = new Dictionary<string, double>(StringComparer.Ordinal);
@@ -142,8 +142,8 @@ public sealed class CircuitAnalogy
         }
         for (var i = 0; i < FreeCount; i++)
         {
-            if (!(grounded.GetValueOrDefault(Nodes[i]) > 0)) return null;
-            builder.AddMass(Nodes[i], grounded[Nodes[i]]);
+            if (grounded.GetValueOrDefault(Nodes[i]) > 0) builder.AddMass(Nodes[i], grounded[Nodes[i]]);
+            else builder.AddNode(Nodes[i]);
         }
         for (var i = FreeCount; i < Nodes.Length; i++) builder.AddSupport(Nodes[i]);
         foreach (var e in Circuit.Capacitors)

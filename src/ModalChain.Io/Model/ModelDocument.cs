@@ -52,7 +52,7 @@ public sealed record ModelDocument(
     public IReadOnlyDictionary<Core.Units.Quantity, string> WrittenUnits { get; init; } = new Dictionary<Core.Units.Quantity, string>();
 
     /// <summary>The circuit of a model with a <c>circuit:</c> section, or null for a mechanical model. For a circuit,
-    /// <see cref="Network"/> is its mechanical analogue when every node has capacitance to ground, else an empty network.</summary>
+    /// <see cref="Network"/> is its mechanical analogue (massless nodes where a node has no capacitance to ground).</summary>
     public CircuitModel? Circuit { get; init; }
 }
 

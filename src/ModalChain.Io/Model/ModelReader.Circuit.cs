@@ -42,7 +42,7 @@ public static partial class ModelReader
         if (circuit is null || context.HasErrors) return Finish(context, null);
 
         var analogy = CircuitAnalogy.Of(circuit);
-        var network = analogy.ToNetwork() ?? new NetworkBuilder { Title = title }.Build();
+        var network = analogy.ToNetwork();
         var document = new ModelDocument(file, Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(bytes)), network,
             [.. context.Diagnostics.Where(d => d.Severity == Severity.Warning)],
             new System.Collections.ObjectModel.ReadOnlyDictionary<string, SourcePosition>(context.Positions))

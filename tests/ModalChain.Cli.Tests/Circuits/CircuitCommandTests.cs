@@ -60,6 +60,23 @@ public class CircuitCommandTests
     }
 
     [Theory]
+    [InlineData("modes")]
+    [InlineData("harmonic")]
+    [InlineData("transient")]
+    public void Outputs_AreByteIdenticalUnderADecimalCommaCulture(string command)
+    {
+        // Rule of the project: output is the same under any locale (invariant culture everywhere).
+        var invariant = Run(command, Example);
+        var json = Run(command, Example, "--format", "json");
+        using (new ModalChain.TestSupport.CultureScope("de-DE"))
+        {
+            Assert.Equal(invariant.Stdout, Run(command, Example).Stdout);
+            Assert.Equal(json.Stdout, Run(command, Example, "--format", "json").Stdout);
+        }
+        Assert.Contains(".", invariant.Stdout);
+    }
+
+    [Theory]
     [InlineData("check")]
     [InlineData("report", "-o", "/tmp/modalchain-circuit-report-never-written")]
     [InlineData("tune", "--host", "output", "--mass-ratio", "5 %")]

@@ -20,7 +20,7 @@ public class CircuitAnalogyTests
     {
         // Identity: the circuit's stamps equal the support partition of the analogue network (M, C_ff, K_ff).
         var analogy = CircuitAnalogy.Of(CircuitFixtures.CoupledTanks());
-        var network = analogy.ToNetwork()!;
+        var network = analogy.ToNetwork();
         var partition = SupportPartition.Assemble(network);
         NumericAssert.Close(D(partition.Mass), analogy.Capacitance, Tolerance.Abs(0), "M = capacitance");
         NumericAssert.Close(D(partition.StiffnessFF), analogy.InverseInductance, Tolerance.Abs(0), "K = 1/L");
@@ -29,9 +29,22 @@ public class CircuitAnalogyTests
     }
 
     [Fact]
-    public void NoNetwork_WhenANodeHasNoCapacitanceToGround()
+    public void SeriesRlc_RootsEqualTheMasslessNodeEngineOnTheAnalogueNetwork()
     {
-        Assert.Null(CircuitAnalogy.Of(CircuitFixtures.SeriesRlc(10, 1e-3, 1e-6)).ToNetwork());
+        // Identity: 'mid' has no capacitor, so the analogue network has a massless node; the network's first-order
+        // engine (support held: the source shorted) must give the circuit's oscillation. R, L, C of order one (ζ = 0.1).
+        var analogy = CircuitAnalogy.Of(CircuitFixtures.SeriesRlc(0.2, 1, 1));
+        var network = analogy.ToNetwork();
+        Assert.Equal(0, network.Masses.Single(m => m.Name == "mid").Kilograms);
+        var p = SupportPartition.Assemble(network);
+        var mechanical = ModalChain.Core.Analyses.FirstOrder.FirstOrderSystem.Build(p.Mass, p.DamperFF, p.StiffnessFF, p.Free.Label)
+            .ComplexModes().Where(m => m.IsOscillatory).ToArray();
+        var circuit = CircuitModes.Solve(CircuitStateSpace.Of(analogy)).Where(r => r.Kind == CircuitRootKind.Oscillation).ToArray();
+        Assert.Equal(mechanical.Length, circuit.Length);
+        Assert.Single(circuit);
+        NumericAssert.Close(mechanical[0].UndampedFrequencyHz, circuit[0].NaturalFrequencyHz, Tolerance.Rel(1e-10), "f0");
+        NumericAssert.Close(mechanical[0].DampingRatio, circuit[0].DampingRatio, Tolerance.Rel(1e-10), "ζ");
+        NumericAssert.Close(0.1, circuit[0].DampingRatio, Tolerance.Rel(1e-12), "ζ = (R/2)√(C/L)");
     }
 
     [Fact]
@@ -41,7 +54,7 @@ public class CircuitAnalogyTests
         // and Ω of order one: with µF and mH, ComplexModes' unbalanced M⁻¹K loses ζ to 2e-10 relative (checked against a
         // 40-digit solution of det(s²C + sG + Γ) = 0, which the circuit path matches to 1e-16).
         var analogy = CircuitAnalogy.Of(CircuitFixtures.CoupledTanks(normalised: true));
-        var network = analogy.ToNetwork()!;
+        var network = analogy.ToNetwork();
         var p = SupportPartition.Assemble(network);
         var mechanical = ComplexModes.Solve(D(p.Mass), D(p.StiffnessFF), D(p.DamperFF))
             .Where(m => m.IsOscillatory).OrderBy(m => m.UndampedFrequencyHz).ToArray();
@@ -84,7 +97,7 @@ public class CircuitAnalogyTests
     {
         // Identity: velocities of (K − ω²M + iωC) x = F, F = unit force on 'a', solved densely here, vs node voltages.
         var analogy = CircuitAnalogy.Of(CircuitFixtures.CoupledTanks());
-        var p = SupportPartition.Assemble(analogy.ToNetwork()!);
+        var p = SupportPartition.Assemble(analogy.ToNetwork());
         var frequencies = new[] { 300.0, 1200, 2500, 4000 };
         var response = CircuitFrequencyResponse.Solve(analogy, frequencies).Single();
         foreach (var (f, i) in frequencies.Select((f, i) => (f, i)))
