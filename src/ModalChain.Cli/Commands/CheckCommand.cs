@@ -36,6 +36,7 @@ internal static class CheckCommand
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (document.Circuit is not null) return CircuitCommands.NotForCircuits(io, path, "check");
             if (document.Criteria.IsEmpty)
             {
                 io.Error.WriteLine($"{path}: error: the model has no 'criteria' section, so there is nothing to check (see docs/model-format.md)");

@@ -61,6 +61,7 @@ internal static class HarmonicCommand
             var fromHz = parse.GetValue(from)?.Si;
             var toHz = parse.GetValue(to)?.Si;
             var pointCount = parse.GetValue(points);
+            if (document.Circuit is { } circuit) return CircuitCommands.Harmonic(io, document, circuit, parse.GetValue(format), fromHz, toHz, pointCount);
 
             if (model.Loads.IsEmpty)
                 return Fail(io, $"{path}: the model has no 'loads'; a harmonic response needs at least one (see docs/model-format.md)");

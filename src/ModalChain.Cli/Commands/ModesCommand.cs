@@ -40,6 +40,7 @@ internal static class ModesCommand
             var stages = StageTimes.FromEnvironment(io);
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (document.Circuit is { } circuit) return CircuitCommands.Modes(io, document, circuit, parse.GetValue(format));
             if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
             var belowHz = parse.GetValue(below)?.Si;
             stages?.Mark("read and check");
@@ -57,7 +58,7 @@ internal static class ModesCommand
             stages?.Mark("assemble, solve and post-process modes");
             var damped = DampedSystem.Build(document.Structure, result, choice);
             // The complex modes are a dense eigenproblem of order 2n: only for models that a dense solve suits.
-            var complexModes = damped.IsClassical || damped.Partition.FreeCount > ComplexModesMaxDofs ? [] : ComplexModes.Solve(damped);
+            var complexModes = (damped.IsClassical && !damped.HasFirstOrderStates) || damped.Partition.FreeCount > ComplexModesMaxDofs ? [] : ComplexModes.Solve(damped);
             stages?.Mark("damping");
             switch (parse.GetValue(format))
             {

@@ -44,6 +44,7 @@ internal static class ReportCommand
             }
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (document.Circuit is not null) return CircuitCommands.NotForCircuits(io, path, "report");
             if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
             if (!Generated(io, out var generated)) return ExitCodes.InputError;
             var options = new ReportOptions(CliApp.Version, generated, parse.GetValue(units), parse.GetValue(modes) ?? 20) { Solver = choice };

@@ -59,6 +59,7 @@ internal static class StudyCommand
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (document.Circuit is not null) return CircuitCommands.NotForCircuits(io, path, "study");
             var varied = parse.GetValue(vary)!;
             if (varied == "speed")
                 return SpeedChart(document, parse.GetValue(from)!, parse.GetValue(to)!, parse.GetValue(steps) ?? DefaultSteps, parse.GetValue(orders), parse.GetValue(format), io);

@@ -55,6 +55,7 @@ internal static class TransientCommand
             var spec = document.Transient;
             var stepValue = parse.GetValue(step);
             var durationValue = parse.GetValue(duration);
+            if (document.Circuit is { } circuit) return CircuitCommands.Transient(io, document, circuit, parse.GetValue(format), durationValue?.Si, stepValue?.Si);
             if (spec is null && (stepValue is null || durationValue is null))
                 return Fail(io, $"{path}: the model has no 'transient' section; add one (see docs/model-format.md) or give --duration and --step");
             spec ??= new TransientSpec([], [], new TransientSettings(1, 1));

@@ -49,6 +49,7 @@ internal static class TuneCommand
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (document.Circuit is not null) return CircuitCommands.NotForCircuits(io, path, "tune");
             // Checked before the work, so a refused --write costs nothing.
             if (parse.GetValue(write) is { } destination && RefuseOutput(document.File, destination, parse.GetValue(force), io)) return ExitCodes.InputError;
             var excitations = Excitations(document, parse.GetValue(speed));

@@ -21,6 +21,7 @@ internal static class ValidateCommand
             var path = parse.GetValue(file)!;
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
+            if (document.Circuit is { } circuit) return CircuitCommands.Validate(io, path, document, circuit);
             var n = document.Network;
             var inv = CultureInfo.InvariantCulture;
             var o = io.Output;

@@ -56,7 +56,9 @@ internal static class ModesTable
         if (!complexModes.IsDefaultOrEmpty)
         {
             o.WriteLine();
-            o.WriteLine("The damping is not classical (it couples the modes above, whose damping is then an estimate).");
+            o.WriteLine(damping is { HasFirstOrderStates: true }
+                ? "Massless nodes with damping are first-order states: the modes above condense them through their springs only, and the damped system's own roots (relaxations included) are these."
+                : "The damping is not classical (it couples the modes above, whose damping is then an estimate).");
             o.WriteLine("Complex modes of the damped system (state-space eigenproblem):");
             var complex = new TextTable("root", "undamped [Hz]", "damped [Hz]", "damping [%]");
             foreach (var c in complexModes)
@@ -65,6 +67,7 @@ internal static class ModesTable
                     {
                         ComplexModeKind.RigidBody => "rigid body (zero root)",
                         ComplexModeKind.RigidBodyRelaxation => string.Create(Inv, $"rigid-body relaxation, {-c.EigenValue.Real:G4} 1/s"),
+                        ComplexModeKind.Relaxation => string.Create(Inv, $"relaxation, τ = {-1 / c.EigenValue.Real:G4} s"),
                         _ => c.IsOscillatory ? c.DampedFrequencyHz.ToString("F4", Inv) : "overdamped",
                     },
                     c.IsOscillatory ? (100 * c.DampingRatio).ToString("F2", Inv) : "-");

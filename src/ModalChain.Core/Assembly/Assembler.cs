@@ -45,6 +45,8 @@ public static class Assembler
         if (network.Space != ModelSpace.Line) return SpatialAssembly.Assemble(network, dofs, referencePoint: null);
         var n = dofs.Count;
 
+        var elimination = ConstraintElimination.Of(network);
+        if (elimination is not null) return AssembleReduced(network, dofs, elimination);
         var mass = new List<(int, int, double)>(n);
         foreach (var m in network.Masses)
         {
@@ -72,6 +74,25 @@ public static class Assembler
             Summed(n, damping),
             Vector<double>.Build.Dense(n, 1.0),
             MassIsDiagonal: !coupled);
+    }
+
+    /// <summary>The line matrices with transducer constraints eliminated by congruence: TᵀMT, TᵀKT, TᵀCT (<see cref="ConstraintElimination"/>).</summary>
+    private static StructuralMatrices AssembleReduced(Network network, DofMap dofs, ConstraintElimination elimination)
+    {
+        var n = dofs.Count;
+        int Index(string node) => dofs.IndexOf(node);
+        var mass = new List<(int, int, double)>(n);
+        foreach (var x in network.Masses) elimination.AddOneEnd(mass, Index, x.Name, x.Kilograms);
+        foreach (var b in network.Inerters) elimination.AddTwoEnd(mass, Index, b.NodeA, b.NodeB, b.Inertance);
+        var stiffness = new List<(int, int, double)>(4 * network.Springs.Length);
+        foreach (var s in network.Springs) elimination.AddTwoEnd(stiffness, Index, s.NodeA, s.NodeB, s.Stiffness);
+        var damping = new List<(int, int, double)>(4 * network.Dampers.Length);
+        foreach (var d in network.Dampers) elimination.AddTwoEnd(damping, Index, d.NodeA, d.NodeB, d.Coefficient);
+        var summedMass = Summed(n, mass);
+        // The influence vector stays a unit motion of every coordinate, as in a network without transducers.
+        return new StructuralMatrices(dofs, summedMass, Summed(n, stiffness), Summed(n, damping), Vector<double>.Build.Dense(n, 1.0),
+            // The flexibility refinement reads springs as two-node edges, which an eliminated end is not: keep it out.
+            MassIsDiagonal: IsDiagonal(summedMass) && !elimination.TouchesSpring(network));
     }
 
     /// <summary>True when <paramref name="m"/> has no non-zero entry off its diagonal (lumped masses; no inerter between two masses).</summary>

@@ -13,6 +13,9 @@ namespace ModalChain.Core.Assembly;
 /// superposition with <see cref="ModalDampingRatios"/> is exact. Every matrix over the free DOFs is sparse unless
 /// modal damping ratios fill C (C_m = MΦ diag(2ζω) ΦᵀM is dense and needs every mode); a model with no viscous damping
 /// at all skips the damping stage, and the modal damping, ratios and coupling index cover the modes solved only.
+/// Proportional damping (Rayleigh and modal ratios without a discrete damper) takes Φᵀ C Φ in closed form
+/// (<see cref="DampingAssembly.ProportionalModalDamping"/>; coupling index 0) and forms C only when an analysis reads
+/// <see cref="Damping"/>, so a modal run with Rayleigh damping never builds C.
 /// </remarks>
 /// <param name="Model">The model assembled.</param>
 /// <param name="Partition">K, M and discrete-damper matrices split into free and support DOFs.</param>
@@ -39,8 +42,32 @@ public sealed record DampedSystem(
     /// <summary>True when the viscous damping does not couple the undamped modes.</summary>
     public bool IsClassical => NonClassicalIndex < ClassicalTolerance;
 
+    /// <summary>
+    /// True when a massless DOF is touched by viscous damping (a line model with a Maxwell element, say): it is then a
+    /// first-order state, the undamped modes condense it through its springs only, and only the complex modes
+    /// (<see cref="Analyses.Modal.ComplexModes"/>) describe the damped system, however classical Φᵀ C Φ looks.
+    /// </summary>
+    public bool HasFirstOrderStates => Model.Network.Space == ModelSpace.Line && Model.Network.Masses.Any(m => m.Kilograms == 0)
+        && MasslessReduction.Classify(Partition.Mass, Damping.FF).HasFirstOrderStates;
+
     /// <summary>True when the model has any viscous damping at all.</summary>
-    public bool HasViscousDamping => Damping.FF.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0);
+    public bool HasViscousDamping => KnownViscousDamping ?? Damping.FF.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0);
+
+    /// <summary>Whether C ≠ 0, when known without forming C (proportional damping); null to look at C.</summary>
+    private bool? KnownViscousDamping { get; init; }
+
+    /// <summary>C = a0·M + a1·K_ff + C_m ≠ 0 without forming it: M has positive masses, and C_m ≠ 0 when an elastic mode has a ratio; null when unsure.</summary>
+    private static bool? ProportionalIsViscous(DampingModel damping, SupportPartition partition, ModalResult modes)
+    {
+        if (damping.Rayleigh is { } r && (r.MassCoefficient != 0
+            || (r.StiffnessCoefficient != 0 && partition.StiffnessFF.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0))))
+            return true;
+        if (damping.ModalRatios.IsDefaultOrEmpty) return false;
+        // Elastic modes of the whole network: exact from the topology in line models; plane and 3d models only when every mode is held.
+        int? elastic = modes.Network.Space == ModelSpace.Line ? partition.FreeCount - Topology.UnsupportedGroups(modes.Network).Length
+            : modes.Modes.Length == partition.FreeCount ? modes.Modes.Count(m => !m.IsRigidBody) : null;
+        return elastic is { } e ? damping.ModalRatios.Take(e).Any(z => z != 0) : null;
+    }
 
     /// <summary>Assembles <paramref name="model"/> and solves all its undamped modes.</summary>
     public static DampedSystem Build(StructuralModel model) => Build(model, options: null);
@@ -78,8 +105,24 @@ public sealed record DampedSystem(
                 new DampingMatrices(partition.DamperFF, partition.DamperFP, partition.DamperPP), none,
                 DampingAssembly.ModalRatios(modes, none, damping.LossFactor), 0);
         }
-        if (!damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != partition.FreeCount)
+        // Modal damping ratios define C from every mode, and the analyses superpose the modes held: all of them then.
+        if (!damping.ModalRatios.IsDefaultOrEmpty && modes.Modes.Length != modes.ModeCountAvailable)
             modes = ModalAnalysis.Solve(model.Network, new ModalOptions(Choice: choice));
+        if (!partition.HasDampers)
+        {
+            // Proportional damping (Rayleigh, modal ratios): Φᵀ C Φ is diagonal in closed form, so the ratios need no C
+            // and no product with the shapes; C itself is built only if an analysis reads it (a modal run never does).
+            var diagonal = DampingAssembly.ProportionalModalDamping(modes, damping);
+            var held = modes;
+            var deferred = new DampingMatrices(() => DampingAssembly.Build(model, partition, held).FF,
+                () => DampingAssembly.ProportionalSupportBlocks(model, partition, held));
+            var diagonalMatrix = Matrix<double>.Build.DiagonalOfDiagonalArray(diagonal);
+            return new DampedSystem(model, partition, modes, deferred, diagonalMatrix,
+                DampingAssembly.ModalRatios(modes, diagonalMatrix, damping.LossFactor), 0)
+            {
+                KnownViscousDamping = ProportionalIsViscous(damping, partition, modes),
+            };
+        }
         var matrices = DampingAssembly.Build(model, partition, modes);
         var modal = DampingAssembly.ModalCoordinates(modes, matrices.FF);
         return new DampedSystem(model, partition, modes, matrices, modal,

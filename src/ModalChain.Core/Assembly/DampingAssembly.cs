@@ -1,15 +1,54 @@
 using System.Collections.Immutable;
 using MathNet.Numerics.LinearAlgebra;
+using MathNet.Numerics.LinearAlgebra.Storage;
 using ModalChain.Core.Analyses.Modal;
 using ModalChain.Core.Model;
 
 namespace ModalChain.Core.Assembly;
 
 /// <summary>The viscous damping matrix over free and prescribed DOFs, in N·s/m.</summary>
-/// <param name="FF">C_ff (free rows and columns).</param>
-/// <param name="FP">C_fp (free rows, support columns).</param>
-/// <param name="PP">C_pp (support rows and columns).</param>
-public sealed record DampingMatrices(Matrix<double> FF, Matrix<double> FP, Matrix<double> PP);
+/// <remarks>
+/// The support blocks may be computed on first use: with distributed damping they need the quasi-static influence
+/// T = −K_ff⁻¹K_fp (a sparse factorisation of K_ff), which a modal run or a sweep without support motion never reads.
+/// </remarks>
+public sealed class DampingMatrices
+{
+    private readonly Lazy<Matrix<double>> _ff;
+    private readonly Lazy<(Matrix<double> FP, Matrix<double> PP)> _supports;
+
+    /// <summary>The three blocks, all given.</summary>
+    /// <param name="ff">C_ff (free rows and columns).</param>
+    /// <param name="fp">C_fp (free rows, support columns).</param>
+    /// <param name="pp">C_pp (support rows and columns).</param>
+    public DampingMatrices(Matrix<double> ff, Matrix<double> fp, Matrix<double> pp)
+    {
+        ArgumentNullException.ThrowIfNull(ff);
+        ArgumentNullException.ThrowIfNull(fp);
+        ArgumentNullException.ThrowIfNull(pp);
+        _ff = new Lazy<Matrix<double>>(ff);
+        _supports = new Lazy<(Matrix<double>, Matrix<double>)>((fp, pp));
+    }
+
+    /// <summary>C_ff given, C_fp and C_pp computed by <paramref name="supports"/> when first read (once, thread-safe).</summary>
+    internal DampingMatrices(Matrix<double> ff, Func<(Matrix<double> FP, Matrix<double> PP)> supports)
+        : this(() => ff, supports) => ArgumentNullException.ThrowIfNull(ff);
+
+    /// <summary>C_ff from <paramref name="ff"/>, C_fp and C_pp from <paramref name="supports"/>, each computed when first read (once, thread-safe).</summary>
+    internal DampingMatrices(Func<Matrix<double>> ff, Func<(Matrix<double> FP, Matrix<double> PP)> supports)
+    {
+        _ff = new Lazy<Matrix<double>>(ff, LazyThreadSafetyMode.ExecutionAndPublication);
+        _supports = new Lazy<(Matrix<double>, Matrix<double>)>(supports, LazyThreadSafetyMode.ExecutionAndPublication);
+    }
+
+    /// <summary>C_ff (free rows and columns).</summary>
+    public Matrix<double> FF => _ff.Value;
+
+    /// <summary>C_fp (free rows, support columns).</summary>
+    public Matrix<double> FP => _supports.Value.FP;
+
+    /// <summary>C_pp (support rows and columns).</summary>
+    public Matrix<double> PP => _supports.Value.PP;
+}
 
 /// <summary>Builds the viscous damping matrix of a model (discrete dampers + Rayleigh + modal) and modal damping ratios.</summary>
 /// <remarks>
@@ -30,36 +69,72 @@ public static class DampingAssembly
         ArgumentNullException.ThrowIfNull(model);
         ArgumentNullException.ThrowIfNull(partition);
         var damping = model.Damping;
-        var ff = partition.DamperFF.Clone();
-        var fp = partition.DamperFP.Clone();
-        var pp = partition.DamperPP.Clone();
-
-        // The relative-motion part and its quasi-static influence (a dense LU of K_ff) only when there is such damping.
-        Matrix<double>? relative = null;
+        var ff = partition.DamperFF;
+        var (stiffnessShare, relative) = (0.0, (Matrix<double>?)null);
         if (damping.Rayleigh is { } r)
         {
-            ff += r.StiffnessCoefficient * partition.StiffnessFF;
-            fp += r.StiffnessCoefficient * partition.StiffnessFP;
-            pp += r.StiffnessCoefficient * partition.StiffnessPP;
+            stiffnessShare = r.StiffnessCoefficient;
+            ff = Sum(ff, stiffnessShare, partition.StiffnessFF);
             if (r.MassCoefficient != 0) relative = r.MassCoefficient * partition.Mass;
         }
         if (!damping.ModalRatios.IsDefaultOrEmpty)
         {
-            if (modes is null || modes.Modes.Length != partition.FreeCount)
+            if (modes is null || modes.Modes.Length != modes.ModeCountAvailable || modes.Matrices.Size != partition.FreeCount)
                 throw new ArgumentException("Modal damping needs every mode of the network.", nameof(modes));
             var modal = ModalDampingMatrix(partition.Mass, modes, damping);
             relative = relative is null ? modal : relative + modal;
         }
-        if (relative is null) return new DampingMatrices(ff, fp, pp);
+        if (relative is not null) ff = Sum(ff, 1, relative);
+        if (stiffnessShare == 0 && relative is null) return new DampingMatrices(ff, partition.DamperFP, partition.DamperPP);
 
-        ff += relative;
-        if (partition.QuasiStaticInfluence() is { } t)
+        // The support blocks need the quasi-static influence T (a sparse factorisation of K_ff, one solve per support):
+        // computed when an analysis first reads them, never for a modal run.
+        return new DampingMatrices(ff, () =>
         {
-            var ct = relative * t;
-            fp -= ct;
-            pp += t.TransposeThisAndMultiply(ct);
+            var fp = Sum(partition.DamperFP, stiffnessShare, partition.StiffnessFP);
+            var pp = Sum(partition.DamperPP, stiffnessShare, partition.StiffnessPP);
+            if (relative is not null && partition.QuasiStaticInfluence() is { } t)
+            {
+                var ct = relative * t;
+                fp -= ct;
+                pp += t.TransposeThisAndMultiply(ct);
+            }
+            return (fp, pp);
+        });
+    }
+
+    /// <summary>a + β·b; over compressed rows in one pass when both are sparse (Math.NET's sparse sum inserts entry by entry, quadratic in the rows).</summary>
+    /// <remarks>Each entry is a_ij + (β·b_ij), the same floating-point operations as <c>a + β * b</c>; exact zeros are not stored.</remarks>
+    internal static Matrix<double> Sum(Matrix<double> a, double beta, Matrix<double> b)
+    {
+        if (beta == 0) return a;
+        if (a.Storage is not SparseCompressedRowMatrixStorage<double> x || b.Storage is not SparseCompressedRowMatrixStorage<double> y)
+            return a + beta * b;
+        var rows = a.RowCount;
+        var rowPointers = new int[rows + 1];
+        var capacity = x.RowPointers[rows] + y.RowPointers[rows];
+        var columns = new int[capacity];
+        var values = new double[capacity];
+        var count = 0;
+        for (var i = 0; i < rows; i++)
+        {
+            int p = x.RowPointers[i], pEnd = x.RowPointers[i + 1], q = y.RowPointers[i], qEnd = y.RowPointers[i + 1];
+            while (p < pEnd || q < qEnd)
+            {
+                var cx = p < pEnd ? x.ColumnIndices[p] : int.MaxValue;
+                var cy = q < qEnd ? y.ColumnIndices[q] : int.MaxValue;
+                int column;
+                double v;
+                if (cx < cy) (column, v) = (cx, x.Values[p++]);
+                else if (cy < cx) (column, v) = (cy, beta * y.Values[q++]);
+                else (column, v) = (cx, x.Values[p++] + beta * y.Values[q++]);
+                if (v == 0) continue;
+                columns[count] = column;
+                values[count++] = v;
+            }
+            rowPointers[i + 1] = count;
         }
-        return new DampingMatrices(ff, fp, pp);
+        return Matrix<double>.Build.SparseFromCompressedSparseRowFormat(rows, a.ColumnCount, count, rowPointers, columns[..count], values[..count]);
     }
 
     /// <summary>C_m = M Φ diag(2ζ_jω_j) Φᵀ M in N·s/m from the modal ratios of <paramref name="damping"/>; rigid-body modes get none.</summary>
@@ -77,14 +152,14 @@ public static class DampingAssembly
         var n = mass.RowCount;
         // Plane and 3d models count rigid-body modes from the null space of K (topology cannot), and a body's inertia may couple M.
         var spatial = modes.Network.Space != ModelSpace.Line;
-        var rigidBodyModes = spatial ? modes.Modes.Count(m => m.IsRigidBody) : Topology.UnsupportedGroups(modes.Network).Length;
         var fullProduct = spatial ? mass * Shapes(modes) : null;
         var mPhi = Matrix<double>.Build.Dense(n, modes.Modes.Length);
         var scaled = Matrix<double>.Build.Dense(n, modes.Modes.Length);
+        var coefficients = ModalCoefficients(modes, damping);
         for (var j = 0; j < modes.Modes.Length; j++)
         {
             var mode = modes.Modes[j];
-            var c = j < rigidBodyModes || mode.IsRigidBody ? 0 : 2 * damping.ModalRatioOf(j - rigidBodyModes + 1) * mode.AngularFrequency;
+            var c = coefficients[j];
             for (var i = 0; i < n; i++)
             {
                 var v = fullProduct?[i, j] ?? mass[i, i] * mode.Shape[i];
@@ -94,6 +169,72 @@ public static class DampingAssembly
         }
         return scaled.TransposeAndMultiply(mPhi);
     }
+
+    /// <summary>
+    /// Φᵀ C_ff Φ of proportional damping (Rayleigh and modal ratios, no discrete damper) in closed form: the diagonal
+    /// a0 + a1·ω_j² + 2ζ_jω_j per mode of <paramref name="modes"/>, in 1/s.
+    /// </summary>
+    /// <remarks>
+    /// With mass-normalised shapes ΦᵀMΦ = I and ΦᵀK_ffΦ = Λ, so Rayleigh damping gives a0·I + a1·Λ (Chopra, Dynamics of
+    /// Structures, §11.4) and the modal damping matrix C_m gives diag(2ζ_jω_j) (§11.4.2; <see cref="ModalDampingMatrix"/>),
+    /// whichever modes are held: no C and no product with the shapes. The damping ratio a0/(2ω) + a1ω/2 + ζ_j follows.
+    /// Rigid-body modes (ω = 0) take a0 alone. Equal to <see cref="ModalCoordinates"/> of <see cref="Build"/> up to round-off.
+    /// </remarks>
+    public static double[] ProportionalModalDamping(ModalResult modes, DampingModel damping)
+    {
+        ArgumentNullException.ThrowIfNull(modes);
+        ArgumentNullException.ThrowIfNull(damping);
+        var (a0, a1) = damping.Rayleigh is { } r ? (r.MassCoefficient, r.StiffnessCoefficient) : (0.0, 0.0);
+        var diagonal = ModalCoefficients(modes, damping);
+        for (var j = 0; j < diagonal.Length; j++) diagonal[j] += a0 + a1 * modes.Modes[j].EigenValue;
+        return diagonal;
+    }
+
+    /// <summary>2ζ_jω_j per mode from the modal ratios of <paramref name="damping"/>; 0 for rigid-body modes.</summary>
+    private static double[] ModalCoefficients(ModalResult modes, DampingModel damping)
+    {
+        var rigidBodyModes = RigidBodyModes(modes);
+        var c = new double[modes.Modes.Length];
+        for (var j = 0; j < c.Length; j++)
+        {
+            var mode = modes.Modes[j];
+            c[j] = j < rigidBodyModes || mode.IsRigidBody ? 0 : 2 * damping.ModalRatioOf(j - rigidBodyModes + 1) * mode.AngularFrequency;
+        }
+        return c;
+    }
+
+    /// <summary>
+    /// C_fp and C_pp of proportional damping (no discrete damper) without forming C_ff: a1·K_fp − R T and
+    /// a1·K_pp + Tᵀ R T with R T = a0·M T + M Φ diag(2ζω) Φᵀ M T (T the quasi-static influence).
+    /// </summary>
+    /// <remarks>The same blocks as <see cref="Build"/>, in O(n·m·p) rather than the O(n²·m) of the dense C_m; <paramref name="modes"/> must hold every mode when modal ratios are given.</remarks>
+    internal static (Matrix<double> FP, Matrix<double> PP) ProportionalSupportBlocks(StructuralModel model, SupportPartition partition, ModalResult modes)
+    {
+        var damping = model.Damping;
+        var (a0, a1) = damping.Rayleigh is { } r ? (r.MassCoefficient, r.StiffnessCoefficient) : (0.0, 0.0);
+        var fp = Sum(partition.DamperFP, a1, partition.StiffnessFP);
+        var pp = Sum(partition.DamperPP, a1, partition.StiffnessPP);
+        var modal = !damping.ModalRatios.IsDefaultOrEmpty;
+        if ((a0 == 0 && !modal) || partition.QuasiStaticInfluence() is not { } t) return (fp, pp);
+        var mt = partition.Mass * t;
+        var rt = a0 * mt;
+        if (modal)
+        {
+            if (modes.Modes.Length != partition.FreeCount)
+                throw new ArgumentException("Modal damping needs every mode of the network.", nameof(modes));
+            var phi = Shapes(modes);
+            var w = phi.TransposeThisAndMultiply(mt);
+            var c = ModalCoefficients(modes, damping);
+            for (var j = 0; j < c.Length; j++)
+                for (var s = 0; s < w.ColumnCount; s++) w[j, s] *= c[j];
+            rt += partition.Mass * (phi * w);
+        }
+        return (fp - rt, pp + t.TransposeThisAndMultiply(rt));
+    }
+
+    /// <summary>Rigid-body modes of the network that come first in <paramref name="modes"/>: from the topology in line models, else counted.</summary>
+    private static int RigidBodyModes(ModalResult modes) =>
+        modes.Network.Space != ModelSpace.Line ? modes.Modes.Count(m => m.IsRigidBody) : Topology.UnsupportedGroups(modes.Network).Length;
 
     /// <summary>The modal damping matrix Ĉ = Φᵀ C_ff Φ in 1/s (mass-normalised shapes, all modes of <paramref name="modes"/>).</summary>
     public static Matrix<double> ModalCoordinates(ModalResult modes, Matrix<double> dampingFF)

@@ -27,7 +27,9 @@ internal sealed record ElementRow(double Value, Direction? Direction, (int Dof, 
 /// between locations x_A and x_B adds K_e = k (nᵀ(T_A − T_B))ᵀ (nᵀ(T_A − T_B)) over the translation rows, with
 /// n = (x_B − x_A)/|x_B − x_A|. Dampers build C the same way.</para>
 /// <para>M: m on every translation of a point mass; for a body, m on its translations and its inertia matrix J about
-/// the centre of mass (global axes) on its rotations (J_yy alone in a plane model). M is diagonal when every J is.</para>
+/// the centre of mass (global axes) on its rotations (J_yy alone in a plane model). An inerter adds b t tᵀ per row,
+/// exactly as a spring adds k t tᵀ to K, so M is full wherever an inerter row joins two DOFs (an axial inerter, two
+/// moving ends, a body point off the centre). M is diagonal when every J is and no inerter row couples DOFs.</para>
 /// <para>Influence vectors: ι_d for a translation d is a unit rigid translation (1 on every DOF in d); ι_a for a
 /// rotation a is a unit rigid rotation about the reference point o: θ = e_a for bodies and u = e_a × (x − o) for
 /// masses and body centres. o is the model's centre of mass unless the caller gives one.</para>
@@ -42,6 +44,11 @@ internal static class SpatialAssembly
         var resolver = new AttachmentMap.Resolver(network, dofs);
 
         var (mass, diagonal) = MassEntries(network, dofs);
+        foreach (var rows in InerterRows(network, resolver))
+        {
+            AddRows(mass, rows);
+            diagonal &= rows.All(r => r.Terms.Length <= 1);
+        }
         var stiffness = new List<(int, int, double)>();
         foreach (var s in network.Springs)
             AddRows(stiffness, RowsOf(network, resolver, s.Name, s.NodeA, s.NodeB, s.Stiffness, s.Components, s.Axial));
@@ -82,12 +89,26 @@ internal static class SpatialAssembly
             AddRows(c, RowsOf(network, resolver, d.Name, d.NodeA, d.NodeB, d.Coefficient, d.Components, d.Axial));
         var kk = Matrix<double>.Build.DenseOfMatrix(Assembler.Summed(total, k));
         var cc = Matrix<double>.Build.DenseOfMatrix(Assembler.Summed(total, c));
-        var m = Matrix<double>.Build.DenseOfMatrix(Assembler.Summed(n, MassEntries(network, free).Entries));
+        // Inerter rows reach the prescribed columns as spring rows do: M over the whole numbering, then split.
+        var mEntries = MassEntries(network, free).Entries;
+        foreach (var rows in InerterRows(network, resolver)) AddRows(mEntries, rows);
+        var mm = Matrix<double>.Build.DenseOfMatrix(Assembler.Summed(total, mEntries));
         var p = labels.Length;
-        return new SupportPartition(free, labels, m,
+        return new SupportPartition(free, labels, mm.SubMatrix(0, n, 0, n),
             kk.SubMatrix(0, n, 0, n), kk.SubMatrix(0, n, n, p), kk.SubMatrix(n, p, n, p),
-            cc.SubMatrix(0, n, 0, n), cc.SubMatrix(0, n, n, p), cc.SubMatrix(n, p, n, p));
+            cc.SubMatrix(0, n, 0, n), cc.SubMatrix(0, n, n, p), cc.SubMatrix(n, p, n, p))
+        {
+            MassFP = mm.SubMatrix(0, n, n, p),
+            MassPP = mm.SubMatrix(n, p, n, p),
+        };
     }
+
+    /// <summary>
+    /// The rows of every inerter, in declaration order: b t tᵀ adds to M as k t tᵀ adds to K (b in kg for a
+    /// translation or an axial row, kg·m²/rad for a rotation).
+    /// </summary>
+    private static IEnumerable<ImmutableArray<ElementRow>> InerterRows(Network network, AttachmentMap.Resolver resolver) =>
+        network.Inerters.Select(i => RowsOf(network, resolver, i.Name, i.NodeA, i.NodeB, i.Inertance, i.Components, i.Axial));
 
     /// <summary>The rows of every spring of <paramref name="network"/>, in declaration order, over the free DOFs.</summary>
     public static ImmutableArray<ImmutableArray<ElementRow>> SpringRows(Network network, DofMap dofs)

@@ -9,15 +9,15 @@ namespace ModalChain.Core.Assembly;
 /// <summary>Stiffness and discrete-damper matrices split into free DOFs (masses) and prescribed DOFs (supports).</summary>
 /// <remarks>
 /// Every support, ground included, is one prescribed DOF p; the equations of motion of the free DOFs f are
-/// M ẍ_f + C_ff ẋ_f + K_ff x_f = F − C_fp u̇_p − K_fp u_p, and the force the supports must supply is
-/// r_p = C_pf ẋ_f + K_pf x_f + C_pp u̇_p + K_pp u_p. Ground has u = 0; a support carrying a base-motion load has its
+/// M ẍ_f + C_ff ẋ_f + K_ff x_f = F − M_fp ü_p − C_fp u̇_p − K_fp u_p, and the force the supports must supply is
+/// r_p = M_pf ẍ_f + C_pf ẋ_f + K_pf x_f + M_pp ü_p + C_pp u̇_p + K_pp u_p (M_fp and M_pp from inerters with an end on a support). Ground has u = 0; a support carrying a base-motion load has its
 /// prescribed motion. Every block is stored sparse (compressed rows), so the partition costs memory in proportion to
 /// the springs and dampers, not to n²: a 100,000-mass grid is partitioned in a few tens of megabytes.
 /// Reusable by every analysis that moves supports (harmonic, time stepping).
 /// </remarks>
 /// <param name="Free">Numbering of the free DOFs (one per mass in a line model; see <see cref="DofMap.For"/>).</param>
 /// <param name="Supports">Names of the prescribed DOFs, ground first, in the network's support order (plane and 3d models: <c>support.x</c>, <c>support.z</c>, … per translation).</param>
-/// <param name="Mass">M over the free DOFs in kg, inerters included (diagonal in line models without an inerter between two masses; a body's inertia may couple its rotations).</param>
+/// <param name="Mass">M over the free DOFs in kg, inerters included (diagonal in line models without an inerter between two masses; a body's inertia may couple its rotations, and in plane and 3d models an inerter row couples the DOFs it reaches).</param>
 /// <param name="StiffnessFF">K_ff in N/m.</param>
 /// <param name="StiffnessFP">K_fp in N/m (free rows, support columns).</param>
 /// <param name="StiffnessPP">K_pp in N/m.</param>
@@ -35,6 +35,33 @@ public sealed record SupportPartition(
     Matrix<double> DamperFP,
     Matrix<double> DamperPP)
 {
+    private readonly Matrix<double>? _massFP;
+    private readonly Matrix<double>? _massPP;
+
+    /// <summary>
+    /// M_fp in kg (free rows, support columns): the inertial coupling of inerters with one end on a support. A support
+    /// moving with acceleration ü_p loads the free DOFs by −M_fp ü_p. Zero (n × p) when no inerter reaches a support.
+    /// </summary>
+    public Matrix<double> MassFP
+    {
+        get => _massFP ?? Matrix<double>.Build.Sparse(FreeCount, SupportCount);
+        init
+        {
+            _massFP = value;
+            HasInertialCoupling = value is not null && value.EnumerateIndexed(Zeros.AllowSkip).Any(e => e.Item3 != 0);
+        }
+    }
+
+    /// <summary>M_pp in kg: the inertance between supports and their own terminals (enters the support reactions only).</summary>
+    public Matrix<double> MassPP
+    {
+        get => _massPP ?? Matrix<double>.Build.Sparse(SupportCount, SupportCount);
+        init => _massPP = value;
+    }
+
+    /// <summary>True when an inerter joins a free DOF to a support's prescribed column (M_fp has a non-zero entry).</summary>
+    public bool HasInertialCoupling { get; private init; }
+
     /// <summary>Number of free DOFs.</summary>
     public int FreeCount => Free.Count;
 
@@ -75,34 +102,65 @@ public sealed record SupportPartition(
             return i >= 0 ? i : n + supportIndex[node];
         }
 
+        if (ConstraintElimination.Of(network) is { } elimination) return AssembleReduced(network, free, supports, Index, elimination);
         var k = new Blocks(n);
         foreach (var s in network.Springs) k.AddTwoNode(Index(s.NodeA), Index(s.NodeB), s.Stiffness);
         var c = new Blocks(n);
         foreach (var d in network.Dampers) c.AddTwoNode(Index(d.NodeA), Index(d.NodeB), d.Coefficient);
-        var m = new List<(int, int, double)>(network.Masses.Length);
+        var m = new Blocks(n);
         foreach (var mass in network.Masses)
         {
             var i = free.IndexOf(mass.Name);
-            m.Add((i, i, mass.Kilograms));
+            m.FF.Add((i, i, mass.Kilograms));
         }
-        // An inerter adds its inertance to M as a spring adds its stiffness to K; an end on a support drops out (base
-        // motion of a support that carries an inerter is refused by the reader).
-        foreach (var b in network.Inerters)
-        {
-            var (ia, ib) = (Index(b.NodeA), Index(b.NodeB));
-            if (ia == ib) continue;
-            if (ia >= 0 && ia < n) m.Add((ia, ia, b.Inertance));
-            if (ib >= 0 && ib < n) m.Add((ib, ib, b.Inertance));
-            if (ia >= 0 && ia < n && ib >= 0 && ib < n)
-            {
-                m.Add((ia, ib, -b.Inertance));
-                m.Add((ib, ia, -b.Inertance));
-            }
-        }
+        // An inerter adds its inertance to M as a spring adds its stiffness to K, support columns included: a moving
+        // support then loads the free DOFs by −M_fp ü_p (the force b·ü_support of its grounded terminal).
+        foreach (var b in network.Inerters) m.AddTwoNode(Index(b.NodeA), Index(b.NodeB), b.Inertance);
 
-        return new SupportPartition(free, supports, Assembler.Summed(n, m),
+        return new SupportPartition(free, supports, Assembler.Summed(n, m.FF),
             Summed(n, n, k.FF), Summed(n, p, k.FP), Summed(p, p, k.PP),
-            Summed(n, n, c.FF), Summed(n, p, c.FP), Summed(p, p, c.PP));
+            Summed(n, n, c.FF), Summed(n, p, c.FP), Summed(p, p, c.PP))
+        {
+            MassFP = Summed(n, p, m.FP),
+            MassPP = Summed(p, p, m.PP),
+        };
+    }
+
+    /// <summary>The partition with transducer constraints eliminated by congruence over the whole (free, then support) numbering.</summary>
+    /// <remarks>
+    /// Each element adds k (t_A − t_B)ᵀ(t_A − t_B) with t the rows of T over free and support columns, so a support in an
+    /// eliminated node's terms lands in the FP and PP blocks. A mass on an eliminated node adds to M only its free block:
+    /// its coupling to a support's acceleration is not kept (the reader refuses prescribed motion at such a support).
+    /// </remarks>
+    private static SupportPartition AssembleReduced(Network network, DofMap free, ImmutableArray<string> supports,
+        Func<string, int> index, ConstraintElimination elimination)
+    {
+        var n = free.Count;
+        var p = supports.Length;
+        var k = new List<(int, int, double)>();
+        foreach (var s in network.Springs) elimination.AddTwoEnd(k, index, s.NodeA, s.NodeB, s.Stiffness);
+        var c = new List<(int, int, double)>();
+        foreach (var d in network.Dampers) elimination.AddTwoEnd(c, index, d.NodeA, d.NodeB, d.Coefficient);
+        var m = new List<(int, int, double)>();
+        foreach (var mass in network.Masses) elimination.AddOneEnd(m, index, mass.Name, mass.Kilograms);
+        foreach (var b in network.Inerters) elimination.AddTwoEnd(m, index, b.NodeA, b.NodeB, b.Inertance);
+        static (List<(int, int, double)> FF, List<(int, int, double)> FP, List<(int, int, double)> PP) Split(List<(int, int, double)> all, int n)
+        {
+            var (ff, fp, pp) = (new List<(int, int, double)>(), new List<(int, int, double)>(), new List<(int, int, double)>());
+            foreach (var (r, col, v) in all)
+            {
+                if (r < n && col < n) ff.Add((r, col, v));
+                else if (r < n) fp.Add((r, col - n, v));
+                else if (col >= n) pp.Add((r - n, col - n, v));
+            }
+            return (ff, fp, pp);
+        }
+        var (kff, kfp, kpp) = Split(k, n);
+        var (cff, cfp, cpp) = Split(c, n);
+        var (mff, _, _) = Split(m, n);
+        return new SupportPartition(free, supports, Assembler.Summed(n, mff),
+            Summed(n, n, kff), Summed(n, p, kfp), Summed(p, p, kpp),
+            Summed(n, n, cff), Summed(n, p, cfp), Summed(p, p, cpp));
     }
 
     /// <summary>The quasi-static influence matrix T = −K_ff⁻¹ K_fp (free displacement per unit support displacement), or null when K_ff is singular.</summary>

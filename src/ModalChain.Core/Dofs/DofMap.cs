@@ -117,7 +117,8 @@ public sealed class DofMap
 
     /// <summary>
     /// One degree of freedom per mass in the network's direction, in the order the masses were declared; masses tied
-    /// by links share the DOF of the first of them.
+    /// by links share the DOF of the first of them. A node a transducer's constraint eliminates has no DOF (its motion is
+    /// a combination of others, <see cref="Assembly.ConstraintElimination"/>).
     /// </summary>
     public static DofMap ForScalarNetwork(Network network)
     {
@@ -144,8 +145,10 @@ public sealed class DofMap
         // Each group's DOF comes at the place of its first mass (the root of a group is its smallest index), its
         // masses in declaration order.
         var members = new List<string>?[masses.Length];
+        var elimination = Assembly.ConstraintElimination.Of(network);
         for (var i = 0; i < masses.Length; i++)
         {
+            if (elimination is not null && elimination.IsEliminated(masses[i].Name)) continue; // a transducer's constraint removes it
             var root = Find(i);
             if (root == i) members[i] = [masses[i].Name];
             else members[root]!.Add(masses[i].Name);

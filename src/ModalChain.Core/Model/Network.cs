@@ -15,7 +15,7 @@ public sealed record Attachment(string Node, string? Point, Point3? Location);
 
 /// <summary>A lumped mass that moves in the network's direction of motion.</summary>
 /// <param name="Name">Unique name of the mass within its network.</param>
-/// <param name="Kilograms">Mass in kg; positive and finite.</param>
+/// <param name="Kilograms">Mass in kg; non-negative and finite. 0 is a massless node (line models): a point where springs, dampers and inerters meet, with no inertia of its own.</param>
 /// <param name="Position">Optional drawing position in m.</param>
 public sealed record Mass(string Name, double Kilograms, DrawingPosition? Position = null)
 {
@@ -76,14 +76,25 @@ public sealed record Damper(string Name, string NodeA, string NodeB, double Coef
 
 /// <summary>An inerter between two nodes: a two-terminal element whose force is b·(ẍ_a − ẍ_b).</summary>
 /// <param name="Name">Unique name of the inerter within its network.</param>
-/// <param name="NodeA">First end: a mass or support name.</param>
-/// <param name="NodeB">Second end: a mass or support name, different from <paramref name="NodeA"/>.</param>
+/// <param name="NodeA">First end: a mass or support name (or a body, or <c>body.point</c>, in plane and 3d models).</param>
+/// <param name="NodeB">Second end, different from <paramref name="NodeA"/>.</param>
 /// <param name="Inertance">Inertance b in kg; non-negative and finite.</param>
 /// <remarks>
-/// Line models only. It adds b to M exactly as a spring adds k to K: b on both ends' diagonals and −b off the
-/// diagonal; an end on a support drops its row (the grounded terminal adds b to the other end's apparent mass).
+/// It adds b to M exactly as a spring adds k to K: b on both ends' diagonals and −b off the diagonal; an end on a
+/// fixed support drops its row (the grounded terminal adds b to the other end's apparent mass), and an end on a
+/// moving support loads the other end by b·ü_support. Ends are node names, or <c>body.point</c> in plane and 3d
+/// models, where the inerter acts either along the line between its ends (<see cref="Axial"/>, inertance
+/// <paramref name="Inertance"/>) or per global direction (<see cref="Components"/>, translations in kg and rotations
+/// in kg·m²/rad), and <paramref name="Inertance"/> is then the largest translational component.
 /// </remarks>
-public sealed record Inerter(string Name, string NodeA, string NodeB, double Inertance);
+public sealed record Inerter(string Name, string NodeA, string NodeB, double Inertance)
+{
+    /// <summary>Inertance per global direction in plane and 3d models; empty in line models and for axial inerters.</summary>
+    public ImmutableArray<DirectionalValue> Components { get; init; } = [];
+
+    /// <summary>True when <see cref="Inerter.Inertance"/> acts along the line between the ends' locations (plane and 3d models).</summary>
+    public bool Axial { get; init; }
+}
 
 /// <summary>Masses tied rigidly together: they move as one, share one degree of freedom and their masses add.</summary>
 /// <param name="Name">Unique name of the link within its network.</param>
@@ -132,8 +143,11 @@ public sealed record Network
     /// <summary>The rigid links between masses, in declaration order; linked masses share one degree of freedom.</summary>
     public ImmutableArray<Link> Links { get; internal init; } = [];
 
-    /// <summary>The inerters (line models only), in declaration order; they put inertance into M, off its diagonal between two masses.</summary>
+    /// <summary>The inerters, in declaration order; they put inertance into M, off its diagonal between two moving nodes.</summary>
     public ImmutableArray<Inerter> Inerters { get; internal init; } = [];
+
+    /// <summary>The transducers (line models only), in declaration order; each removes one electrical coordinate (see <see cref="Transducer"/>).</summary>
+    public ImmutableArray<Transducer> Transducers { get; internal init; } = [];
 
     /// <summary>The space the nodes move in; <see cref="ModelSpace.Line"/> unless the model declares another.</summary>
     public ModelSpace Space { get; internal init; } = ModelSpace.Line;
@@ -174,7 +188,7 @@ public sealed record Network
     public Network WithMassOrder(IReadOnlyList<int> order)
     {
         Guard.Permutation(order, Masses.Length, nameof(order));
-        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links, Space = Space, Bodies = Bodies, Inerters = Inerters };
+        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links, Space = Space, Bodies = Bodies, Inerters = Inerters, Transducers = Transducers };
     }
 }
 

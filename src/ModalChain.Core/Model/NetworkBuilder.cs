@@ -17,6 +17,7 @@ public sealed class NetworkBuilder
     private readonly HashSet<string> _damperNames = [];
     private readonly List<Inerter> _inerters = [];
     private readonly HashSet<string> _inerterNames = [];
+    private readonly List<Transducer> _transducers = [];
 
     /// <summary>Title of the network being built.</summary>
     public string Title { get; set; } = "Untitled network";
@@ -28,7 +29,7 @@ public sealed class NetworkBuilder
     public NetworkBuilder AddMass(Mass mass)
     {
         ArgumentNullException.ThrowIfNull(mass);
-        Guard.Positive(mass.Kilograms, nameof(mass));
+        Guard.NonNegative(mass.Kilograms, nameof(mass));
         foreach (var d in mass.Moves)
             if (d.IsRotation() || d == Dofs.Direction.Along)
                 throw new ArgumentException($"Mass '{mass.Name}' may move only in translations of the model's space, not '{d}'.", nameof(mass));
@@ -89,15 +90,20 @@ public sealed class NetworkBuilder
 
     /// <summary>Adds a mass.</summary>
     /// <param name="name">Unique name.</param>
-    /// <param name="kilograms">Mass in kg, positive and finite.</param>
+    /// <param name="kilograms">Mass in kg, non-negative and finite; 0 declares a massless node (line models only).</param>
     /// <param name="position">Optional drawing position in m.</param>
     public NetworkBuilder AddMass(string name, double kilograms, DrawingPosition? position = null)
     {
-        Guard.Positive(kilograms, nameof(kilograms));
+        Guard.NonNegative(kilograms, nameof(kilograms));
         ClaimNodeName(name);
         _masses.Add(new Mass(name, kilograms, position));
         return this;
     }
+
+    /// <summary>Adds a massless node (line models): a mass of 0 kg where springs, dampers and inerters meet.</summary>
+    /// <param name="name">Unique name.</param>
+    /// <param name="position">Optional drawing position in m.</param>
+    public NetworkBuilder AddNode(string name, DrawingPosition? position = null) => AddMass(name, 0, position);
 
     /// <summary>Adds a support (a node that does not move unless an analysis prescribes its motion).</summary>
     public NetworkBuilder AddSupport(string name, DrawingPosition? position = null)
@@ -128,15 +134,55 @@ public sealed class NetworkBuilder
         return AddElement(_dampers, _damperNames, new Damper(name, nodeA, nodeB, coefficient), name, nodeA, nodeB, "damper", nameof(name));
     }
 
-    /// <summary>Adds an inerter of inertance <paramref name="inertance"/> in kg between two existing masses or supports (line models only).</summary>
+    /// <summary>Adds an inerter of inertance <paramref name="inertance"/> in kg between two existing masses or supports of a line model.</summary>
     public NetworkBuilder AddInerter(string name, string nodeA, string nodeB, double inertance)
     {
         Guard.NonNegative(inertance, nameof(inertance));
-        if (Space != ModelSpace.Line) throw new ArgumentException($"Inerter '{name}' needs a line model.", nameof(name));
+        if (Space != ModelSpace.Line && inertance > 0)
+            throw new ArgumentException($"Inerter '{name}' in a plane or 3d model needs directional components or 'axial': add it as a record.", nameof(name));
+        return AddInerter(new Inerter(name, nodeA, nodeB, inertance));
+    }
+
+    /// <summary>Adds an inerter given as a record (directional components or axial included, in plane and 3d models).</summary>
+    public NetworkBuilder AddInerter(Inerter inerter)
+    {
+        ArgumentNullException.ThrowIfNull(inerter);
+        Guard.NonNegative(inerter.Inertance, nameof(inerter));
+        foreach (var c in inerter.Components) Guard.NonNegative(c.Value, nameof(inerter));
+        if (Space == ModelSpace.Line && (inerter.Axial || !inerter.Components.IsDefaultOrEmpty))
+            throw new ArgumentException($"Inerter '{inerter.Name}' has directions, which need a plane or 3d model.", nameof(inerter));
+        CheckEnds(inerter.Name, inerter.NodeA, inerter.NodeB);
+        if (!_inerterNames.Add(inerter.Name))
+            throw new ArgumentException($"An inerter named '{inerter.Name}' already exists.", nameof(inerter));
+        _inerters.Add(inerter);
+        return this;
+    }
+
+    /// <summary>Adds an ideal electrodynamic transducer of force factor <paramref name="forceFactor"/> in T·m (line models only).</summary>
+    /// <param name="name">Unique transducer name.</param>
+    /// <param name="nodeA">Mechanical terminal a (mass or support).</param>
+    /// <param name="nodeB">Mechanical terminal b (mass or support).</param>
+    /// <param name="branchA">Electrical terminal n1 (a mass standing for an electrical node, or a support).</param>
+    /// <param name="branchB">Electrical terminal n2.</param>
+    /// <param name="forceFactor">Bl in T·m, positive and finite.</param>
+    /// <exception cref="ArgumentException">
+    /// Unknown or repeated terminals, a plane or 3d model, or terminals <see cref="Assembly.ConstraintElimination"/> cannot
+    /// eliminate (see <see cref="Assembly.ConstraintElimination.Problem"/>).
+    /// </exception>
+    public NetworkBuilder AddTransducer(string name, string nodeA, string nodeB, string branchA, string branchB, double forceFactor)
+    {
+        Guard.Positive(forceFactor, nameof(forceFactor));
+        if (Space != ModelSpace.Line) throw new ArgumentException($"Transducer '{name}' needs a line model.", nameof(name));
         CheckEnds(name, nodeA, nodeB);
-        if (!_inerterNames.Add(name))
-            throw new ArgumentException($"An inerter named '{name}' already exists.", nameof(name));
-        _inerters.Add(new Inerter(name, nodeA, nodeB, inertance));
+        CheckEnds(name, branchA, branchB);
+        if (_transducers.Any(t => t.Name == name))
+            throw new ArgumentException($"A transducer named '{name}' already exists.", nameof(name));
+        var transducer = new Transducer(name, nodeA, nodeB, branchA, branchB, forceFactor);
+        var supports = _supports.Select(s => s.Name).ToHashSet(StringComparer.Ordinal);
+        var linked = _links.SelectMany(l => l.Masses).ToHashSet(StringComparer.Ordinal);
+        if (Assembly.ConstraintElimination.Problem(_transducers, transducer, supports.Contains, linked.Contains) is { } problem)
+            throw new ArgumentException(problem, nameof(branchA));
+        _transducers.Add(transducer);
         return this;
     }
 
@@ -160,8 +206,13 @@ public sealed class NetworkBuilder
     }
 
     /// <summary>Produces the immutable network.</summary>
-    public Network Build() =>
-        new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters] };
+    /// <exception cref="ArgumentException">A massless node (zero mass) in a plane or 3d model, which only line models take.</exception>
+    public Network Build()
+    {
+        if (Space != ModelSpace.Line && _masses.FirstOrDefault(m => m.Kilograms == 0) is { } massless)
+            throw new ArgumentException($"Mass '{massless.Name}' has zero mass: massless nodes are taken in line models only.");
+        return new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters], Transducers = [.. _transducers] };
+    }
 
     /// <summary>Checks a two-node element's ends and name (unique among its kind) and appends it.</summary>
     private NetworkBuilder AddElement<T>(List<T> elements, HashSet<string> names, T element, string name, string nodeA, string nodeB,

@@ -26,6 +26,12 @@ public static class Topology
             if (spring.Stiffness > 0) sets.Join(nodes.Of(spring.NodeA), nodes.Of(spring.NodeB));
         foreach (var link in network.Links)
             for (var i = 1; i < link.Masses.Length; i++) sets.Join(nodes.Of(link.Masses[i]), nodes.Of(link.Masses[0]));
+        // A node a transducer eliminates has no DOF of its own: a spring at it acts on its terms, which it joins.
+        var elimination = Assembly.ConstraintElimination.Of(network);
+        if (elimination is not null)
+            foreach (var e in elimination.Nodes)
+                if (network.Springs.Any(s => s.Stiffness > 0 && (s.NodeA == e.Node || s.NodeB == e.Node)))
+                    foreach (var (term, _) in e.Terms) sets.Join(nodes.Of(term), nodes.Of(e.Node));
 
         // Groups in the order of their first mass, each in mass order.
         var held = sets.Find(ground);
@@ -34,7 +40,7 @@ public static class Topology
         for (var m = 0; m < network.Masses.Length; m++)
         {
             var root = sets.Find(m);
-            if (root == held) continue;
+            if (root == held || (elimination is not null && elimination.IsEliminated(network.Masses[m].Name))) continue;
             if (!groupOfRoot.TryGetValue(root, out var g))
             {
                 groupOfRoot.Add(root, g = groups.Count);
@@ -75,7 +81,7 @@ public static class Topology
         }
         var result = ImmutableArray.CreateBuilder<string>();
         for (var m = 0; m < network.Masses.Length; m++)
-            if (!touched[m]) result.Add(network.Masses[m].Name);
+            if (!touched[m] && !Assembly.ConstraintElimination.IsEliminated(network, network.Masses[m].Name)) result.Add(network.Masses[m].Name);
         return result.ToImmutable();
     }
 

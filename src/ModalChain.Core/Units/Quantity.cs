@@ -35,4 +35,16 @@ public enum Quantity
     MomentOfInertia,
     /// <summary>Moment of a force (a torque), SI unit N·m.</summary>
     Moment,
+    /// <summary>Force factor Bl of an electrodynamic transducer, SI unit T·m (= N/A = V·s/m).</summary>
+    ForceFactor,
+    /// <summary>Electrical resistance, SI unit Ω (also written ohm).</summary>
+    Resistance,
+    /// <summary>Inductance, SI unit H.</summary>
+    Inductance,
+    /// <summary>Capacitance, SI unit F.</summary>
+    Capacitance,
+    /// <summary>Voltage (electric potential difference), SI unit V.</summary>
+    Voltage,
+    /// <summary>Electric current, SI unit A.</summary>
+    Current,
 }

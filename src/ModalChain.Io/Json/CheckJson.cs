@@ -1,13 +1,13 @@
-using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Io.Json.Records;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
-/// <summary>Writes a <see cref="CheckOutcome"/> as one JSON object.</summary>
+/// <summary>Maps a <see cref="CheckOutcome"/> to its output record, <see cref="CheckOutput"/>, and writes it.</summary>
 /// <remarks>
 /// Reserves are fractions: separation reserve = relative change of the natural frequency that reaches the band edge;
 /// limit reserve = (limit − value)/limit. A reserve with no finite value is null, with "reserve_note" saying why
@@ -17,142 +17,107 @@ namespace ModalChain.Io.Json;
 public static class CheckJson
 {
     /// <summary>Writes one JSON object to <paramref name="stream"/>.</summary>
-    public static void Write(Stream stream, ModelDocument document, CheckOutcome outcome, string toolVersion)
+    public static void Write(Stream stream, ModelDocument document, CheckOutcome outcome, string toolVersion) =>
+        OutputJson.Write(stream, Output(document, outcome, toolVersion));
+
+    /// <summary>The output record of a check.</summary>
+    public static CheckOutput Output(ModelDocument document, CheckOutcome outcome, string toolVersion)
     {
-        using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
-        w.WriteStartObject();
-        w.WriteString("title", MarkupText.Clean(document.Network.Title));
-        w.Source(document, toolVersion);
-        w.WriteBoolean("passes", outcome.AllPass);
-        if (outcome.Separation is { } sep)
+        ArgumentNullException.ThrowIfNull(document);
+        ArgumentNullException.ThrowIfNull(outcome);
+        return new()
         {
-            w.WriteStartObject("separation");
-            w.WriteBoolean("passes", sep.Passes);
-            w.Number("margin", sep.Criterion.Margin);
-            w.Array("speeds_hz", sep.Criterion.SpeedsHz);
-            w.Array("orders", sep.Criterion.Orders);
-            w.Number("reserve", sep.Reserve);
-            w.Note("reserve_note", sep.ReserveNote);
-            w.WriteStartArray("pairs");
-            foreach (var p in sep.Pairs)
+            Title = MarkupText.Clean(document.Network.Title),
+            FormatVersion = JsonFormat.Version,
+            Source = SourceOutput.Of(document, toolVersion),
+            Passes = outcome.AllPass,
+            Separation = outcome.Separation is { } sep ? new()
             {
-                w.WriteStartObject();
-                w.WriteNumber("mode", p.ModeNumber);
-                w.Number("frequency_hz", p.NaturalFrequencyHz);
-                w.Number("speed_hz", p.SpeedHz);
-                w.Number("order", p.Order);
-                w.Number("excitation_hz", p.ExcitationHz);
-                w.Number("separation", p.Separation);
-                w.Number("reserve", p.Reserve);
-                w.Note("reserve_note", p.ReserveNote);
-                w.WriteBoolean("passes", p.Passes);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-            w.WriteStartArray("exempt");
-            foreach (var name in sep.Criterion.Exempt) w.WriteStringValue(MarkupText.Clean(name));
-            w.WriteEndArray();
-            w.WriteStartArray("exempt_modes");
-            foreach (var x in sep.Exempted)
+                Passes = sep.Passes,
+                Margin = sep.Criterion.Margin,
+                SpeedsHz = sep.Criterion.SpeedsHz,
+                Orders = sep.Criterion.Orders,
+                Reserve = sep.Reserve,
+                ReserveNote = sep.ReserveNote,
+                Pairs = [.. sep.Pairs.Select(p => new CheckPairOutput
+                {
+                    Mode = p.ModeNumber,
+                    FrequencyHz = p.NaturalFrequencyHz,
+                    SpeedHz = p.SpeedHz,
+                    Order = p.Order,
+                    ExcitationHz = p.ExcitationHz,
+                    Separation = p.Separation,
+                    Reserve = p.Reserve,
+                    ReserveNote = p.ReserveNote,
+                    Passes = p.Passes,
+                })],
+                Exempt = [.. sep.Criterion.Exempt.Select(MarkupText.Clean)],
+                ExemptModes = [.. sep.Exempted.Select(x => new CheckExemptModeOutput
+                {
+                    Mode = x.ModeNumber,
+                    FrequencyHz = x.NaturalFrequencyHz,
+                    KineticEnergyShare = x.KineticEnergyShare,
+                    Reason = MarkupText.Clean(x.Reason),
+                })],
+            } : null,
+            LoadCaseCombination = outcome.Combination is { } rule ? LoadCaseSelection.Name(rule) : null,
+            Limits = [.. outcome.Limits.Select(l => new CheckLimitOutput
             {
-                w.WriteStartObject();
-                w.WriteNumber("mode", x.ModeNumber);
-                w.Number("frequency_hz", x.NaturalFrequencyHz);
-                w.Number("kinetic_energy_share", x.KineticEnergyShare);
-                w.WriteString("reason", MarkupText.Clean(x.Reason));
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-            w.WriteEndObject();
-        }
-        else w.WriteNull("separation");
-        if (outcome.Combination is { } rule) w.WriteString("load_case_combination", LoadCaseSelection.Name(rule));
-        else w.WriteNull("load_case_combination");
-        w.WriteStartArray("limits");
-        foreach (var l in outcome.Limits)
-        {
-            w.WriteStartObject();
-            w.WriteString("at", l.Limit.At);
-            if (l.MeasuredAt is { } lm) w.WriteString("measured_at", lm);
-            w.WriteString("quantity", l.Limit.Quantity.ToString().ToLowerInvariant());
-            w.WriteString("measure", l.Limit.Measure == AmplitudeMeasure.Peak ? "peak" : "rms");
-            w.WriteString("unit", Unit(l.Limit.Quantity));
-            w.Number("limit", l.Limit.Value);
-            w.Number("value", l.Value);
-            w.Number("reserve", l.Reserve);
-            w.Note("reserve_note", l.ReserveNote);
-            w.WriteBoolean("passes", l.Passes);
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteStartArray("machine_zones");
-        foreach (var z in outcome.Zones)
-        {
-            w.WriteStartObject();
-            w.WriteString("at", z.At);
-            if (z.MeasuredAt is { } zm) w.WriteString("measured_at", zm);
-            w.WriteString("class", z.Criterion.Class.Name);
-            w.WriteString("quantity", "velocity");
-            w.WriteString("measure", "rms");
-            w.WriteString("unit", "m/s");
-            w.WriteString("accepted_zone", z.Criterion.AcceptedZone.ToString());
-            w.Number("limit", z.Criterion.Limit);
-            w.Number("value", z.RmsVelocity);
-            w.WriteString("zone", z.Zone.ToString());
-            w.WriteStartObject("boundaries");
-            w.Number("a_b", z.Criterion.Class.BoundaryAB);
-            w.Number("b_c", z.Criterion.Class.BoundaryBC);
-            w.Number("c_d", z.Criterion.Class.BoundaryCD);
-            w.WriteEndObject();
-            w.WriteString("source", z.Criterion.Class.Source);
-            w.Number("reserve", z.Reserve);
-            w.Note("reserve_note", z.ReserveNote);
-            w.WriteBoolean("passes", z.Passes);
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteStartArray("floor_curves");
-        foreach (var f in outcome.Floors)
-        {
-            w.WriteStartObject();
-            w.WriteString("at", f.At);
-            if (f.MeasuredAt is { } fm) w.WriteString("measured_at", fm);
-            w.WriteString("curve", f.Criterion.Curve.Name);
-            w.WriteString("quantity", "velocity");
-            w.WriteString("measure", "rms");
-            w.WriteString("unit", "m/s");
-            w.WriteString("source", f.Criterion.Curve.Source);
-            w.WriteStartArray("bands");
-            foreach (var b in f.Bands)
+                At = l.Limit.At,
+                MeasuredAt = l.MeasuredAt,
+                Quantity = l.Limit.Quantity.ToString().ToLowerInvariant(),
+                Measure = l.Limit.Measure == AmplitudeMeasure.Peak ? "peak" : "rms",
+                Unit = Unit(l.Limit.Quantity),
+                Limit = l.Limit.Value,
+                Value = l.Value,
+                Reserve = l.Reserve,
+                ReserveNote = l.ReserveNote,
+                Passes = l.Passes,
+            })],
+            MachineZones = [.. outcome.Zones.Select(z => new CheckZoneOutput
             {
-                w.WriteStartObject();
-                w.Number("centre_hz", b.CentreHz);
-                w.Number("nominal_hz", b.NominalHz);
-                w.Number("value", b.RmsVelocity);
-                w.Number("limit", b.Limit);
-                w.Number("reserve", b.Reserve);
-                w.WriteBoolean("passes", b.Passes);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-            w.Array("uncompared_hz", f.UncomparedHz);
-            w.Number("reserve", f.Reserve);
-            w.Note("reserve_note", f.ReserveNote);
-            w.WriteBoolean("passes", f.Passes);
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteStartArray("not_evaluated");
-        foreach (var (criterion, reason) in outcome.NotEvaluated)
-        {
-            w.WriteStartObject();
-            w.WriteString("criterion", criterion);
-            w.WriteString("reason", reason);
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteString("caution", Cautions.Text);
-        w.WriteEndObject();
+                At = z.At,
+                MeasuredAt = z.MeasuredAt,
+                Class = z.Criterion.Class.Name,
+                Quantity = "velocity",
+                Measure = "rms",
+                Unit = "m/s",
+                AcceptedZone = z.Criterion.AcceptedZone.ToString(),
+                Limit = z.Criterion.Limit,
+                Value = z.RmsVelocity,
+                Zone = z.Zone.ToString(),
+                Boundaries = new() { AB = z.Criterion.Class.BoundaryAB, BC = z.Criterion.Class.BoundaryBC, CD = z.Criterion.Class.BoundaryCD },
+                Source = z.Criterion.Class.Source,
+                Reserve = z.Reserve,
+                ReserveNote = z.ReserveNote,
+                Passes = z.Passes,
+            })],
+            FloorCurves = [.. outcome.Floors.Select(f => new CheckFloorOutput
+            {
+                At = f.At,
+                MeasuredAt = f.MeasuredAt,
+                Curve = f.Criterion.Curve.Name,
+                Quantity = "velocity",
+                Measure = "rms",
+                Unit = "m/s",
+                Source = f.Criterion.Curve.Source,
+                Bands = [.. f.Bands.Select(b => new CheckBandOutput
+                {
+                    CentreHz = b.CentreHz,
+                    NominalHz = b.NominalHz,
+                    Value = b.RmsVelocity,
+                    Limit = b.Limit,
+                    Reserve = b.Reserve,
+                    Passes = b.Passes,
+                })],
+                UncomparedHz = f.UncomparedHz,
+                Reserve = f.Reserve,
+                ReserveNote = f.ReserveNote,
+                Passes = f.Passes,
+            })],
+            NotEvaluated = [.. outcome.NotEvaluated.Select(n => new CheckNotEvaluatedOutput { Criterion = n.Criterion, Reason = n.Reason })],
+            Caution = Cautions.Text,
+        };
     }
 
     internal static string Unit(ResponseQuantity q) => q switch

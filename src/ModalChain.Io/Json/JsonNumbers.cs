@@ -3,7 +3,7 @@ using System.Text.Json;
 
 namespace ModalChain.Io.Json;
 
-/// <summary>Number writing shared by the JSON writers: non-finite values become null, since JSON has no infinity.</summary>
+/// <summary>Number writing of the hand-written JSON writer of <c>modes</c> (the other outputs go through <see cref="OutputJson"/>): non-finite values become null, since JSON has no infinity.</summary>
 internal static class JsonNumbers
 {
     public static void Number(this Utf8JsonWriter writer, string name, double value)
@@ -16,12 +16,6 @@ internal static class JsonNumbers
     {
         if (double.IsFinite(value)) writer.WriteNumberValue(value);
         else writer.WriteNullValue();
-    }
-
-    /// <summary>A sentence saying why the number before it is null; written only when there is one.</summary>
-    public static void Note(this Utf8JsonWriter writer, string name, string? note)
-    {
-        if (note is not null) writer.WriteString(name, note);
     }
 
     public static void Array(this Utf8JsonWriter writer, string name, IEnumerable<double> values)
@@ -37,15 +31,7 @@ internal static class JsonNumbers
         writer.WriteEndArray();
     }
 
-    /// <summary>An object from names to numbers, e.g. a mode shape keyed by mass name.</summary>
-    public static void Keyed(this Utf8JsonWriter writer, string name, IReadOnlyList<string> keys, IReadOnlyList<double> values)
-    {
-        writer.WriteStartObject(name);
-        for (var i = 0; i < keys.Count; i++) writer.Number(keys[i], values[i]);
-        writer.WriteEndObject();
-    }
-
-    /// <summary>As <see cref="Keyed(Utf8JsonWriter, string, IReadOnlyList{string}, IReadOnlyList{double})"/> with the keys encoded once (large outputs).</summary>
+    /// <summary>An object from names to numbers with the keys encoded once, e.g. a mode shape keyed by DOF label (the reference the one-line form is tested against).</summary>
     public static void Keyed(this Utf8JsonWriter writer, string name, JsonEncodedText[] keys, ReadOnlySpan<double> values)
     {
         writer.WriteStartObject(name);

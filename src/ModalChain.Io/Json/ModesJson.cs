@@ -96,7 +96,7 @@ public static class ModesJson
             // models write them per DOF label (skid.z, skid.ry), the masses' and bodies' several directions each.
             // Each keyed object is one line (JsonNumbers.KeyedLine): large models write n numbers per mode.
             if (network.Space != ModelSpace.Line) writer.KeyedLine(ShapeName, dofLine, mode.Shape.AsSpan(), ref buffer);
-            else writer.KeyedLine(ShapeName, massLine, network.Links.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan(), ref buffer);
+            else writer.KeyedLine(ShapeName, massLine, network.Links.IsDefaultOrEmpty && network.Transducers.IsDefaultOrEmpty ? mode.Shape.AsSpan() : result.ShapeByMass(mode).AsSpan(), ref buffer);
             writer.Number("participation", mode.ParticipationFactor);
             writer.Number("effective_mass_kg", mode.EffectiveModalMass);
             writer.Number("effective_mass_fraction", mode.EffectiveMassFraction);
@@ -180,11 +180,12 @@ public static class ModesJson
         writer.WriteEndArray();
     }
 
-    /// <summary>The JSON name of a complex root's kind: elastic, rigid-body (a zero root) or rigid-body-relaxation.</summary>
+    /// <summary>The JSON name of a complex root's kind: elastic, rigid-body (a zero root), rigid-body-relaxation or relaxation (first-order, τ = −1/λ).</summary>
     public static string KindName(ComplexModeKind kind) => kind switch
     {
         ComplexModeKind.RigidBody => "rigid-body",
         ComplexModeKind.RigidBodyRelaxation => "rigid-body-relaxation",
+        ComplexModeKind.Relaxation => "relaxation",
         _ => "elastic",
     };
 

@@ -1,134 +1,98 @@
-using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Criteria;
 using ModalChain.Core.Analyses.Studies;
+using ModalChain.Io.Json.Records;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
-/// <summary>Writes parameter studies and speed-frequency charts as JSON (SI units; speeds also in rpm).</summary>
+/// <summary>Maps parameter studies and speed-frequency charts to their output records (SI units; speeds also in rpm)
+/// and writes them.</summary>
 public static class StudyJson
 {
     /// <summary>Writes a parameter study as one JSON object to <paramref name="stream"/>.</summary>
-    public static void Write(Stream stream, ModelDocument document, StudyResult result, string unit, string toolVersion)
-    {
-        using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
-        w.WriteStartObject();
-        w.WriteString("title", MarkupText.Clean(document.Network.Title));
-        w.Source(document, toolVersion);
-        w.WriteString("parameter", result.Request.Parameter.Text);
-        w.WriteString("unit", unit);
-        w.Array("values", result.Steps.Select(s => s.Value));
-        w.WriteStartArray("modes");
-        foreach (var m in result.Modes)
-        {
-            w.WriteStartObject();
-            w.WriteNumber("identity", m.Identity);
-            w.Array("frequency_hz", m.FrequenciesHz);
-            w.WriteStartArray("mode_number");
-            foreach (var n in m.ModeNumbers) w.WriteNumberValue(n);
-            w.WriteEndArray();
-            w.Array("mac_to_previous", m.Mac);
-            if (!m.Motions.IsDefaultOrEmpty)
-            {
-                // Plane and 3d models: the mode's motion name at each value.
-                w.WriteStartArray("motion");
-                foreach (var name in m.Motions) w.WriteStringValue(name);
-                w.WriteEndArray();
-            }
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteStartArray("criteria");
-        for (var c = 0; c < result.Request.Criteria.Length; c++)
-        {
-            w.WriteStartObject();
-            w.WriteString("name", result.Request.Criteria[c].Name);
-            w.Array("reserve", result.Steps.Select(s => s.Reserves[c]));
-            if (result.Steps.Any(s => !double.IsFinite(s.Reserves[c])))
-            {
-                // Beside each null reserve, the reason (JSON has no infinity).
-                w.WriteStartArray("reserve_note");
-                foreach (var s in result.Steps)
-                {
-                    var note = result.Request.Criteria[c].Limit is null
-                        ? ReserveNotes.OfSeparation(s.Reserves[c], rigidBody: false)
-                        : ReserveNotes.OfLimit(0, s.Reserves[c]);
-                    if (note is null) w.WriteNullValue();
-                    else w.WriteStringValue(note);
-                }
-                w.WriteEndArray();
-            }
-            w.WriteStartArray("passes");
-            foreach (var s in result.Steps) w.WriteBooleanValue(s.Reserves[c] >= 0);
-            w.WriteEndArray();
-            if (result.Request.Criteria[c].Limit is { } limit)
-            {
-                // The operating-point response at each value, in the limit's measure and SI unit.
-                w.WriteString("unit", CheckJson.Unit(limit.Quantity));
-                w.Number("limit", limit.Value);
-                w.Array("response", result.Steps.Select(s => limit.Value * (1 - s.Reserves[c])));
-            }
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteStartArray("thresholds");
-        foreach (var t in result.Thresholds)
-        {
-            w.WriteStartObject();
-            w.WriteString("criterion", t.Criterion);
-            w.Number("value", t.Value);
-            w.WriteString("direction", t.PassesAbove ? "passes above" : "passes below");
-            w.Array("bracket", [t.Bracket.Low, t.Bracket.High]);
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteString("caution", Cautions.Text);
-        w.WriteEndObject();
-    }
+    public static void Write(Stream stream, ModelDocument document, StudyResult result, string unit, string toolVersion) =>
+        OutputJson.Write(stream, Output(document, result, unit, toolVersion));
 
     /// <summary>Writes a speed-frequency chart as one JSON object to <paramref name="stream"/>.</summary>
-    public static void WriteChart(Stream stream, ModelDocument document, SpeedFrequencyChart chart, string toolVersion)
+    public static void WriteChart(Stream stream, ModelDocument document, SpeedFrequencyChart chart, string toolVersion) =>
+        OutputJson.Write(stream, Output(document, chart, toolVersion));
+
+    /// <summary>The output record of a parameter study; <paramref name="unit"/> is the SI unit of the varied field.</summary>
+    public static ParameterStudyOutput Output(ModelDocument document, StudyResult result, string unit, string toolVersion)
     {
-        using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
-        w.WriteStartObject();
-        w.WriteString("title", MarkupText.Clean(document.Network.Title));
-        w.Source(document, toolVersion);
-        w.WriteString("chart", "speed-frequency");
-        w.Array("speeds_hz", chart.SpeedsHz);
-        w.Array("speeds_rpm", chart.SpeedsHz.Select(s => s * 60));
-        w.WriteStartArray("natural_frequencies");
-        for (var i = 0; i < chart.NaturalFrequenciesHz.Length; i++)
+        ArgumentNullException.ThrowIfNull(document);
+        ArgumentNullException.ThrowIfNull(result);
+        var criteria = result.Request.Criteria;
+        return new()
         {
-            w.WriteStartObject();
-            w.WriteNumber("mode", chart.ModeNumbers[i]);
-            w.Number("frequency_hz", chart.NaturalFrequenciesHz[i]);
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteStartArray("order_lines");
-        foreach (var h in chart.Orders)
+            Title = MarkupText.Clean(document.Network.Title),
+            FormatVersion = JsonFormat.Version,
+            Source = SourceOutput.Of(document, toolVersion),
+            Parameter = result.Request.Parameter.Text,
+            Unit = unit,
+            Values = [.. result.Steps.Select(s => s.Value)],
+            Modes = [.. result.Modes.Select(m => new StudyModeOutput
+            {
+                Identity = m.Identity,
+                FrequencyHz = m.FrequenciesHz,
+                ModeNumber = m.ModeNumbers,
+                MacToPrevious = m.Mac,
+                // Plane and 3d models: the mode's motion name at each value.
+                Motion = m.Motions.IsDefaultOrEmpty ? null : m.Motions,
+            })],
+            Criteria = [.. criteria.Select((criterion, c) => new StudyCriterionOutput
+            {
+                Name = criterion.Name,
+                Reserve = [.. result.Steps.Select(s => s.Reserves[c])],
+                // Beside each null reserve, the reason (JSON has no infinity).
+                ReserveNote = result.Steps.Any(s => !double.IsFinite(s.Reserves[c]))
+                    ? [.. result.Steps.Select(s => criterion.Limit is null
+                        ? ReserveNotes.OfSeparation(s.Reserves[c], rigidBody: false)
+                        : ReserveNotes.OfLimit(0, s.Reserves[c]))]
+                    : null,
+                Passes = [.. result.Steps.Select(s => s.Reserves[c] >= 0)],
+                // The operating-point response at each value, in the limit's measure and SI unit.
+                Unit = criterion.Limit is { } l ? CheckJson.Unit(l.Quantity) : null,
+                Limit = criterion.Limit?.Value,
+                Response = criterion.Limit is { } limit ? [.. result.Steps.Select(s => limit.Value * (1 - s.Reserves[c]))] : null,
+            })],
+            Thresholds = [.. result.Thresholds.Select(t => new StudyThresholdOutput
+            {
+                Criterion = t.Criterion,
+                Value = t.Value,
+                Direction = t.PassesAbove ? "passes above" : "passes below",
+                Bracket = [t.Bracket.Low, t.Bracket.High],
+            })],
+            Caution = Cautions.Text,
+        };
+    }
+
+    /// <summary>The output record of a speed-frequency chart.</summary>
+    public static SpeedChartOutput Output(ModelDocument document, SpeedFrequencyChart chart, string toolVersion)
+    {
+        ArgumentNullException.ThrowIfNull(document);
+        ArgumentNullException.ThrowIfNull(chart);
+        return new()
         {
-            w.WriteStartObject();
-            w.Number("order", h);
-            w.Array("frequency_hz", chart.SpeedsHz.Select(s => h * s));
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteStartArray("crossings");
-        foreach (var c in chart.Crossings)
-        {
-            w.WriteStartObject();
-            w.WriteNumber("mode", c.ModeNumber);
-            w.Number("order", c.Order);
-            w.Number("speed_hz", c.SpeedHz);
-            w.Number("speed_rpm", c.SpeedHz * 60);
-            w.Number("frequency_hz", c.FrequencyHz);
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-        w.WriteString("caution", Cautions.Text);
-        w.WriteEndObject();
+            Title = MarkupText.Clean(document.Network.Title),
+            FormatVersion = JsonFormat.Version,
+            Source = SourceOutput.Of(document, toolVersion),
+            Chart = "speed-frequency",
+            SpeedsHz = chart.SpeedsHz,
+            SpeedsRpm = [.. chart.SpeedsHz.Select(s => s * 60)],
+            NaturalFrequencies = [.. chart.NaturalFrequenciesHz.Select((f, i) => new SpeedChartModeOutput { Mode = chart.ModeNumbers[i], FrequencyHz = f })],
+            OrderLines = [.. chart.Orders.Select(h => new SpeedChartOrderOutput { Order = h, FrequencyHz = [.. chart.SpeedsHz.Select(s => h * s)] })],
+            Crossings = [.. chart.Crossings.Select(c => new SpeedChartCrossingOutput
+            {
+                Mode = c.ModeNumber,
+                Order = c.Order,
+                SpeedHz = c.SpeedHz,
+                SpeedRpm = c.SpeedHz * 60,
+                FrequencyHz = c.FrequencyHz,
+            })],
+            Caution = Cautions.Text,
+        };
     }
 }

@@ -1,13 +1,13 @@
 using System.Collections.Immutable;
-using System.Text.Json;
 using ModalChain.Core;
 using ModalChain.Core.Analyses.Transient;
+using ModalChain.Io.Json.Records;
 using ModalChain.Io.Model;
 using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
-/// <summary>Writes a transient result as the JSON object of <c>modalchain transient --format json</c> (SI units).</summary>
+/// <summary>Maps a transient result to its output record, <see cref="TransientOutput"/>, the JSON object of <c>modalchain transient --format json</c> (SI units).</summary>
 /// <remarks>
 /// Field names are a public contract: time_s, responses (dof, quantity, unit, values), element_forces (element, kind,
 /// unit, values), reactions (support, unit, values), peaks (name, quantity, unit, value, time_s, rms), energy, warnings;
@@ -30,127 +30,91 @@ public static class TransientJson
         ArgumentNullException.ThrowIfNull(document);
         ArgumentNullException.ThrowIfNull(result);
         ArgumentNullException.ThrowIfNull(loads);
+        OutputJson.Write(stream, Output(document, result, loads, toolVersion, samples));
+    }
+
+    /// <summary>The output record of a transient result; arguments as <see cref="Write"/>.</summary>
+    /// <remarks>The histories are lazy sequences over the result's arrays: nothing is copied until it is written.</remarks>
+    public static TransientOutput Output(ModelDocument document, TransientResult result, IReadOnlyList<string> loads, string toolVersion,
+        IReadOnlyList<int>? samples = null)
+    {
+        ArgumentNullException.ThrowIfNull(document);
+        ArgumentNullException.ThrowIfNull(result);
+        ArgumentNullException.ThrowIfNull(loads);
         IEnumerable<double> Pick(ImmutableArray<double> values) => samples is null ? values : samples.Select(i => values[i]);
-        using var w = new Utf8JsonWriter(stream, ModesJson.WriterOptions);
-        w.WriteStartObject();
-        w.WriteString("title", MarkupText.Clean(document.Network.Title));
-        w.Source(document, toolVersion);
-        w.WriteString("method", MethodName(result.Settings.Method));
-        w.WriteString("method_description", result.MethodDescription);
-        w.Number("step_s", result.Settings.Step);
-        w.Number("duration_s", result.Settings.Duration);
-        w.WriteNumber("steps", result.StepCount);
-        w.WriteNumber("record_every", result.Settings.RecordEvery);
-        w.WriteStartArray("loads");
-        foreach (var l in loads) w.WriteStringValue(l);
-        w.WriteEndArray();
-        if (samples is not null)
-        {
-            w.WriteStartObject("history_samples");
-            w.WriteNumber("recorded", result.Times.Length);
-            w.WriteNumber("written", samples.Count);
-            w.WriteString("rule", samples.Count == result.Times.Length
-                ? "every recorded sample"
-                : "thinned: the first and last sample and, for every history, its smallest and largest value in each of equal time buckets, so every local extreme at that resolution and every history's largest value survive");
-            w.WriteEndObject();
-        }
-        w.Array("time_s", Pick(result.Times));
-
-        w.WriteStartArray("responses");
-        foreach (var r in result.Responses.Where(r => IsMotion(r.Quantity)))
-        {
-            w.WriteStartObject();
-            w.WriteString("dof", r.Name);
-            w.WriteString("quantity", QuantityName(r.Quantity));
-            w.WriteString("unit", r.Unit);
-            w.WriteString("amplitude", "instantaneous");
-            w.Array("values", Pick(r.Values));
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-
-        w.WriteStartArray("element_forces");
-        foreach (var r in result.Responses.Where(r => r.Quantity is ResponseQuantity.SpringForce or ResponseQuantity.DamperForce && r.Direction is null))
-        {
-            w.WriteStartObject();
-            w.WriteString("element", r.Name);
-            w.WriteString("kind", r.Quantity == ResponseQuantity.SpringForce ? "spring" : "damper");
-            w.WriteString("unit", "N");
-            w.WriteString("amplitude", "instantaneous");
-            w.Array("values", Pick(r.Values));
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-
-        // Plane and 3d models only: each spring's and damper's force (N) or moment (N*m) per direction, with its peak.
-        if (result.Network.Space != Core.Model.ModelSpace.Line)
-        {
-            w.WriteStartArray("mount_forces");
-            foreach (var r in result.Responses.Where(r => r.Direction is not null))
-            {
-                w.WriteStartObject();
-                w.WriteString("element", r.Name);
-                w.WriteString("kind", r.Quantity == ResponseQuantity.SpringForce ? "spring" : "damper");
-                w.WriteString("direction", r.Direction);
-                w.WriteString("unit", r.Unit);
-                w.WriteString("amplitude", "instantaneous");
-                w.Array("values", Pick(r.Values));
-                w.Number("peak_abs", Math.Abs(r.Peak.Value));
-                w.Number("peak_value", r.Peak.Value);
-                w.Number("peak_time_s", r.Peak.Time);
-                w.Number("rms", r.Rms);
-                w.WriteEndObject();
-            }
-            w.WriteEndArray();
-        }
-
-        w.WriteStartArray("reactions");
-        foreach (var r in result.Responses.Where(r => r.Quantity == ResponseQuantity.Reaction))
-        {
-            w.WriteStartObject();
-            w.WriteString("support", r.Name);
-            w.WriteString("unit", "N");
-            w.WriteString("amplitude", "instantaneous");
-            w.Array("values", Pick(r.Values));
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-
-        w.WriteStartObject("rms_window_s");
-        w.Number("from", result.Settings.RmsFrom ?? 0);
-        w.Number("to", result.Settings.RmsTo ?? result.StepCount * result.Settings.Step);
-        w.WriteEndObject();
-        w.WriteStartArray("peaks");
-        foreach (var r in result.Responses.Where(r => r.Direction is null))
-        {
-            w.WriteStartObject();
-            w.WriteString("name", r.Name);
-            w.WriteString("quantity", QuantityName(r.Quantity));
-            w.WriteString("unit", r.Unit);
-            w.WriteString("amplitude", "peak");
-            w.Number("value", r.Peak.Value);
-            w.Number("time_s", r.Peak.Time);
-            w.Number("rms", r.Rms);
-            w.WriteEndObject();
-        }
-        w.WriteEndArray();
-
+        static string Kind(ResponseQuantity q) => q == ResponseQuantity.SpringForce ? "spring" : "damper";
         var e = result.Energy;
-        w.WriteStartObject("energy");
-        w.Number("initial_j", e.InitialEnergy);
-        w.Number("input_work_j", e.InputWork);
-        w.Number("final_kinetic_j", e.FinalKineticEnergy);
-        w.Number("final_strain_j", e.FinalStrainEnergy);
-        w.Number("dissipated_j", e.Dissipated);
-        w.Number("max_relative_error", e.MaxRelativeError);
-        w.WriteEndObject();
-
-        w.WriteStartArray("warnings");
-        foreach (var warning in document.Warnings) w.WriteStringValue(warning.ToString());
-        foreach (var warning in result.Warnings) w.WriteStringValue(warning);
-        w.WriteEndArray();
-        w.WriteString("caution", Cautions.Text);
-        w.WriteEndObject();
+        return new()
+        {
+            Title = MarkupText.Clean(document.Network.Title),
+            FormatVersion = JsonFormat.Version,
+            Source = SourceOutput.Of(document, toolVersion),
+            Method = MethodName(result.Settings.Method),
+            MethodDescription = result.MethodDescription,
+            StepS = result.Settings.Step,
+            DurationS = result.Settings.Duration,
+            Steps = result.StepCount,
+            RecordEvery = result.Settings.RecordEvery,
+            Loads = loads,
+            HistorySamples = samples is null ? null : new()
+            {
+                Recorded = result.Times.Length,
+                Written = samples.Count,
+                Rule = samples.Count == result.Times.Length
+                    ? "every recorded sample"
+                    : "thinned: the first and last sample and, for every history, its smallest and largest value in each of equal time buckets, so every local extreme at that resolution and every history's largest value survive",
+            },
+            TimeS = Pick(result.Times),
+            Responses = [.. result.Responses.Where(r => IsMotion(r.Quantity)).Select(r => new TransientResponseOutput
+            {
+                Dof = r.Name,
+                Quantity = QuantityName(r.Quantity),
+                Unit = r.Unit,
+                Amplitude = "instantaneous",
+                Values = Pick(r.Values),
+            })],
+            ElementForces = [.. result.Responses.Where(r => r.Quantity is ResponseQuantity.SpringForce or ResponseQuantity.DamperForce && r.Direction is null)
+                .Select(r => new TransientElementForceOutput { Element = r.Name, Kind = Kind(r.Quantity), Unit = "N", Amplitude = "instantaneous", Values = Pick(r.Values) })],
+            // Plane and 3d models only: each spring's and damper's force (N) or moment (N*m) per direction, with its peak.
+            MountForces = result.Network.Space == Core.Model.ModelSpace.Line ? null : [.. result.Responses.Where(r => r.Direction is not null)
+                .Select(r => new TransientMountForceOutput
+                {
+                    Element = r.Name,
+                    Kind = Kind(r.Quantity),
+                    Direction = r.Direction!,
+                    Unit = r.Unit,
+                    Amplitude = "instantaneous",
+                    Values = Pick(r.Values),
+                    PeakAbs = Math.Abs(r.Peak.Value),
+                    PeakValue = r.Peak.Value,
+                    PeakTimeS = r.Peak.Time,
+                    Rms = r.Rms,
+                })],
+            Reactions = [.. result.Responses.Where(r => r.Quantity == ResponseQuantity.Reaction)
+                .Select(r => new TransientReactionOutput { Support = r.Name, Unit = "N", Amplitude = "instantaneous", Values = Pick(r.Values) })],
+            RmsWindowS = new() { From = result.Settings.RmsFrom ?? 0, To = result.Settings.RmsTo ?? result.StepCount * result.Settings.Step },
+            Peaks = [.. result.Responses.Where(r => r.Direction is null).Select(r => new TransientPeakOutput
+            {
+                Name = r.Name,
+                Quantity = QuantityName(r.Quantity),
+                Unit = r.Unit,
+                Amplitude = "peak",
+                Value = r.Peak.Value,
+                TimeS = r.Peak.Time,
+                Rms = r.Rms,
+            })],
+            Energy = new()
+            {
+                InitialJ = e.InitialEnergy,
+                InputWorkJ = e.InputWork,
+                FinalKineticJ = e.FinalKineticEnergy,
+                FinalStrainJ = e.FinalStrainEnergy,
+                DissipatedJ = e.Dissipated,
+                MaxRelativeError = e.MaxRelativeError,
+            },
+            Warnings = [.. document.Warnings.Select(w => w.ToString()), .. result.Warnings],
+            Caution = Cautions.Text,
+        };
     }
 
     /// <summary>

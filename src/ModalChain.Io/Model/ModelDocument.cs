@@ -50,6 +50,10 @@ public sealed record ModelDocument(
     /// file writes every value of that kind; a kind written in several units, or not at all, is absent. Display layers show
     /// values in these units so a model written in kN/mm reads back in kN/mm; the values themselves stay SI.</summary>
     public IReadOnlyDictionary<Core.Units.Quantity, string> WrittenUnits { get; init; } = new Dictionary<Core.Units.Quantity, string>();
+
+    /// <summary>The circuit of a model with a <c>circuit:</c> section, or null for a mechanical model. For a circuit,
+    /// <see cref="Network"/> is its mechanical analogue (massless nodes where a node has no capacitance to ground).</summary>
+    public CircuitModel? Circuit { get; init; }
 }
 
 /// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Text.RegularExpressions;
 using ModalChain.Core.Model;
 using ModalChain.Core.Units;
@@ -23,6 +24,7 @@ public static partial class ModelReader
 
     /// <summary>Whether <paramref name="name"/> matches <see cref="NamePattern"/>; ASCII names, nearly all of them, by a
     /// loop that gives the same answer (a large model checks hundreds of thousands of names), others by the pattern.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     internal static bool IsUsableName(string name)
     {
         // The pattern's '$' also matches before one final '\n'.
@@ -68,9 +70,12 @@ public static partial class ModelReader
             return null;
         }
 
-        context.Positions.EnsureCapacity(context.Positions.Count + masses.Count);
-        foreach (var (key, value) in masses.Walk())
+        context.Positions.EnsureCapacity("masses", masses.Count);
+        nodes.EnsureCapacity(masses.Count + 1);
+        foreach (var item in masses.WalkSlots())
         {
+            if (spatial is null && TryAddValidMass(item, builder, nodes, context)) continue;
+            var (key, value) = item;
             if (!CheckName(key, context, "mass")) continue;
             var what = $"mass '{key.Value}'";
             context.Positions[$"masses.{key.Value}"] = key.Position;
@@ -102,13 +107,23 @@ public static partial class ModelReader
         }
 
         AddRepeatedMasses(repeated, builder, nodes, context);
+        if (spatial is null) ReadNodes(top, context, builder, nodes);
         ReadSupports(top, context, builder, nodes, spatial);
-        if (spatial is not null) return ReadSpatialNetwork(top, builder, spatial, nodes, context);
+        if (spatial is not null)
+        {
+            foreach (var section in new[] { "nodes", "mounts" })
+                if (top[section] is { } refused)
+                    context.Error(refused, $"'{section}' (massless nodes{(section == "mounts" ? " and the mounts built on them" : "")}) are taken in line models only; this model has 'space: {(spatial.Space == ModelSpace.Plane ? "plane" : "3d")}'");
+            return ReadSpatialNetwork(top, builder, spatial, nodes, context);
+        }
         var springs = ReadTwoNodeSection(top, "springs", "spring", "stiffness", Quantity.Stiffness, StiffnessRange, nodes, context);
         var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
         var inerters = ReadTwoNodeSection(top, "inerters", "inerter", "inertance", Quantity.Mass, InertanceRange, nodes, context);
         CheckRepeatedSprings(repeated, springs, context);
-        var links = ReadLinks(top, context, masses.Walk().Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
+        // The set of mass names is asked for only by a 'links' section (absent, ReadLinks returns at once).
+        var links = ReadLinks(top, context, top["links"] is null ? new HashSet<string>() : masses.Walk().Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
+        var transducers = ReadTransducers(top, context, nodes, DeclaredNames(top, "supports"), links);
+        var mounts = ReadMounts(top, nodes, context);
         if (context.HasErrors) return null;
 
         foreach (var (name, a, b, k) in springs) builder.AddSpring(name, a, b, k);
@@ -116,7 +131,11 @@ public static partial class ModelReader
         foreach (var (name, a, b, c) in dampers) builder.AddDamper(name, a, b, c);
         foreach (var (name, a, b, inertance) in inerters) builder.AddInerter(name, a, b, inertance);
         foreach (var (name, linked) in links) builder.AddLink(name, linked);
+        foreach (var t in transducers) builder.AddTransducer(t.Name, t.NodeA, t.NodeB, t.BranchA, t.BranchB, t.ForceFactor);
+        foreach (var mount in mounts) MountExpansion.Expand(mount, builder);
         var network = builder.Build();
+        CheckMasslessNodes(network, context);
+        if (context.HasErrors) return null;
         WarnAboutLinkedElements(network, context);
         WarnAboutConnectivity(network, context);
         return network;
@@ -130,13 +149,16 @@ public static partial class ModelReader
         if (top[section] is not { } sectionNode) return result;
         if (sectionNode is YScalar s && s.IsPlainNull) return result;
         if (context.Mapping(sectionNode, $"'{section}'") is not { } mapping) return result;
+        result.Capacity = mapping.Count;
 
         // The same for every element: made once, not per spring.
         var rotationalKey = $"rotational-{valueKey}";
         string[] allowed = ["between", valueKey, "axial", rotationalKey];
-        context.Positions.EnsureCapacity(context.Positions.Count + mapping.Count);
-        foreach (var (key, value) in mapping.Walk())
+        context.Positions.EnsureCapacity(section, mapping.Count);
+        foreach (var item in mapping.WalkSlots())
         {
+            if (TryReadValidElement(item, section, valueKey, quantity, range, nodes, context, result)) continue;
+            var (key, value) = item;
             if (!CheckName(key, context, element)) continue;
             var what = $"{element} '{key.Value}'";
             context.Positions[$"{section}.{key.Value}"] = key.Position;
@@ -163,6 +185,124 @@ public static partial class ModelReader
             if (ends is { } e && v is { } x) result.Add((key.Value, e.A, e.B, x));
         }
         return result;
+    }
+
+    // Valid entries of a large section, nearly all of them, are read from the tree's slots without making their nodes
+    // or composing their descriptions. Anything these readers do not recognise as valid (a wrong name, key, form,
+    // unknown node, a value text not read before or out of range, a quoted or aliased-to-collection scalar) returns
+    // false before any effect, and the entry is read by the general code below, which gives every diagnostic.
+    // A command reads its model once, so these run in a fresh process: they are compiled optimized at their first call
+    // (AggressiveOptimization) instead of running unoptimized through the first tens of thousands of elements.
+
+    /// <summary>Adds a valid mass of a line model given as 'name: 40 kg' or 'name: {mass: 40 kg, at: [x, y]}', as the
+    /// general reader would; false, with nothing done, for anything else.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static bool TryAddValidMass(YEntry item, NetworkBuilder builder, HashSet<string> nodes, ReadContext context)
+    {
+        if (item.Store is not { } store || ValidName(store, item.KeySlot) is not { } name) return false;
+        double kg;
+        DrawingPosition? at = null;
+        var value = store.Resolve(item.ValueSlot);
+        switch (store.KindOf(value))
+        {
+            case NodeStore.Kind.Scalar:
+                if (!KnownValue(store, value, Quantity.Mass, MassRange, context, out kg)) return false;
+                break;
+            case NodeStore.Kind.Mapping when !store.Marked(value):
+                var (massSeen, entries) = (false, store.CountOf(value));
+                kg = 0;
+                for (var (k, i) = (value + 1, 0); i < entries; i++)
+                {
+                    var v = store.Resolve(store.After(k));
+                    switch (PlainText(store, k))
+                    {
+                        case "mass" when !massSeen:
+                            if (!KnownValue(store, v, Quantity.Mass, MassRange, context, out kg)) return false;
+                            massSeen = true;
+                            break;
+                        case "at" when at is null:
+                            if (store.KindOf(v) != NodeStore.Kind.Sequence || store.CountOf(v) != 2
+                                || !KnownValue(store, store.Resolve(v + 1), Quantity.Length, DrawingRange, context, out var x)
+                                || !KnownValue(store, store.Resolve(store.After(v + 1)), Quantity.Length, DrawingRange, context, out var y))
+                                return false;
+                            at = new DrawingPosition(x, y);
+                            break;
+                        default:
+                            return false;
+                    }
+                    k = store.After(store.After(k));
+                }
+                if (!massSeen) return false;
+                break;
+            default:
+                return false;
+        }
+        context.Positions.Set("masses", name, store.PositionOf(item.KeySlot));
+        nodes.Add(name);
+        if (!context.HasErrors) builder.AddMass(name, kg, at);
+        return true;
+    }
+
+    /// <summary>Adds a valid element of a line model, '{between: [a, b], stiffness: 5 MN/m}' (or the section's value
+    /// key), to <paramref name="result"/> as <see cref="ReadTwoNodeSection"/> would; false, with nothing done, for anything else.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static bool TryReadValidElement(YEntry item, string section, string valueKey, Quantity quantity, Range range,
+        HashSet<string> nodes, ReadContext context, List<(string Name, string A, string B, double Value)> result)
+    {
+        if (item.Store is not { } store || ValidName(store, item.KeySlot) is not { } name) return false;
+        var entry = store.Resolve(item.ValueSlot);
+        if (store.KindOf(entry) != NodeStore.Kind.Mapping || store.Marked(entry)) return false;
+        var entries = store.CountOf(entry);
+        if (entries != 2) return false;
+        string? a = null, b = null;
+        double? amount = null;
+        for (var (k, i) = (entry + 1, 0); i < entries; i++)
+        {
+            var v = store.Resolve(store.After(k));
+            var key = PlainText(store, k);
+            if (key == "between" && a is null)
+            {
+                if (store.KindOf(v) != NodeStore.Kind.Sequence || store.CountOf(v) != 2) return false;
+                a = PlainText(store, v + 1);
+                b = PlainText(store, store.After(v + 1));
+                if (a is null || b is null || a == b || !nodes.Contains(a) || !nodes.Contains(b)) return false;
+            }
+            else if (key == valueKey && amount is null)
+            {
+                if (!KnownValue(store, v, quantity, range, context, out var x)) return false;
+                amount = x;
+            }
+            else return false;
+            k = store.After(store.After(k));
+        }
+        if (a is null || amount is not { } value) return false;
+        context.Positions.Set(section, name, store.PositionOf(item.KeySlot));
+        result.Add((name, a, b!, value));
+        return true;
+    }
+
+    /// <summary>The key at <paramref name="slot"/> when it is a name <see cref="CheckName"/> accepts without a word.</summary>
+    private static string? ValidName(NodeStore store, int slot) =>
+        PlainText(store, slot) is { } name && name != CoreNetwork.Ground && IsUsableName(name) ? name : null;
+
+    /// <summary>The text of the unquoted scalar at <paramref name="slot"/> (through an alias) that is not empty or a
+    /// null (what <see cref="ReadContext.Text"/> accepts), or null for anything else.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static string? PlainText(NodeStore store, int slot)
+    {
+        slot = store.Resolve(slot);
+        if (store.KindOf(slot) != NodeStore.Kind.Scalar || store.Marked(slot)) return null;
+        var text = store.TextOf(slot);
+        return text.Length == 0 || text is "~" or "null" or "Null" or "NULL" ? null : text;
+    }
+
+    /// <summary>The value of the plain scalar at <paramref name="slot"/> when its text was read before as
+    /// <paramref name="quantity"/> and lies in <paramref name="range"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private static bool KnownValue(NodeStore store, int slot, Quantity quantity, Range range, ReadContext context, out double value)
+    {
+        value = 0;
+        return PlainText(store, slot) is { } text && context.TryKnownValue(text, quantity, range, out value);
     }
 
     /// <summary>The two-item 'between' list of an element, or null after a located error: the entry lacks it (it
@@ -220,15 +360,17 @@ public static partial class ModelReader
         return x is { } xv && y is { } yv ? new DrawingPosition(xv, yv) : null;
     }
 
-    /// <summary>The rest of a plane or 3d model's network, after its masses and supports: bodies, springs and dampers.</summary>
+    /// <summary>The rest of a plane or 3d model's network, after its masses and supports: bodies, springs, dampers and inerters.</summary>
     private static CoreNetwork? ReadSpatialNetwork(YMapping top, NetworkBuilder builder, SpatialNodes spatial, HashSet<string> nodes, ReadContext context)
     {
         ReadBodies(top, builder, spatial, nodes, context);
         var springs = ReadSpatialElements(top, "springs", spatial, context);
         var dampers = ReadSpatialElements(top, "dampers", spatial, context);
+        var inerters = ReadSpatialInerters(top, spatial, context);
         if (context.HasErrors) return null;
         foreach (var s in springs) builder.AddSpring(new Spring(s.Name, s.A, s.B, s.Scale) { Components = s.Components, Axial = s.Axial });
         foreach (var d in dampers) builder.AddDamper(new Damper(d.Name, d.A, d.B, d.Scale) { Components = d.Components, Axial = d.Axial });
+        foreach (var i in inerters) builder.AddInerter(i);
         var network = builder.Build();
         WarnAboutSpatialConnectivity(network, context);
         return network;
@@ -249,34 +391,20 @@ public static partial class ModelReader
         return true;
     }
 
-    /// <summary>
-    /// A support that moves (a base-motion load, harmonic or timed) may not carry an inerter: the inertance term
-    /// b·ü_support would be a force on the free DOFs that the support partition does not yet carry.
-    /// </summary>
-    private static void RefuseMovingInerterSupports(CoreNetwork network, IEnumerable<Load> loads,
-        IEnumerable<Core.Analyses.Transient.TransientExcitation> timed, ReadContext context)
-    {
-        if (network.Inerters.IsEmpty) return;
-        var moving = loads.OfType<BaseMotionLoad>().Select(l => (l.Name, l.Support))
-            .Concat(timed.OfType<Core.Analyses.Transient.SupportAccelerationHistory>().Select(l => (l.Name, l.Support)));
-        foreach (var (name, support) in moving)
-            if (network.Inerters.FirstOrDefault(i => i.NodeA == support || i.NodeB == support) is { } inerter
-                && context.Positions.TryGetValue($"loads.{name}", out var at))
-                context.Error(at, $"load '{name}' moves support '{support}', which inerter '{inerter.Name}' is attached to; moving a support that carries an inerter is not supported yet: attach the inerter to a mass, or to a support that does not move");
-    }
-
     private static void WarnAboutConnectivity(CoreNetwork network, ReadContext context)
     {
         var spread = Topology.StiffnessRatioWarning(network);
         if (spread is not null && context.Positions.TryGetValue($"springs.{Topology.StiffnessSpread(network).Stiff[0].Name}", out var at))
             context.Warning(at, spread);
-        var loose = Topology.MassesWithoutSpring(network).ToHashSet();
+        // A massless node has no rigid-body mode of its own (it is condensed or a first-order state): not warned about here.
+        var massless = network.Masses.Where(m => m.Kilograms == 0).Select(m => m.Name).ToHashSet(StringComparer.Ordinal);
+        var loose = Topology.MassesWithoutSpring(network).Where(name => !massless.Contains(name)).ToHashSet();
         foreach (var name in loose)
             context.Warning(context.Positions[$"masses.{name}"],
                 $"mass '{name}' has no spring: nothing holds it, so it has a rigid-body mode (reported at 0 Hz)");
         foreach (var group in Topology.UnsupportedGroups(network))
         {
-            if (group.All(loose.Contains)) continue;
+            if (group.All(g => loose.Contains(g) || massless.Contains(g))) continue;
             context.Warning(context.Positions[$"masses.{group[0]}"],
                 $"masses {string.Join(", ", group.Select(g => $"'{g}'"))} are not connected to ground by springs: " +
                 "that part of the network has a rigid-body mode (reported at 0 Hz)");

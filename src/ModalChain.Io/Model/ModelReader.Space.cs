@@ -611,8 +611,6 @@ public static partial class ModelReader
         {
             if (k.Value == "links")
                 context.Error(k, $"'links' cannot be used in a {SpaceName(space)} model: masses that move together are one rigid body; declare it under 'bodies'");
-            else if (k.Value == "inerters")
-                context.Error(k, $"'inerters' cannot be used in a {SpaceName(space)} model yet: inerters act in line models only");
             else if (k.Value == "repeat")
                 context.Error(k, $"'repeat' makes masses of line models only: in a {SpaceName(space)} model write the masses with their locations under 'masses'");
         }

@@ -22,7 +22,13 @@ public static partial class ModelReader
     /// <summary>Reads a 'time' function whose values are <paramref name="quantity"/> (a force or a support acceleration).</summary>
     private static TimeFunction? ReadValueFunction(YNode node, Quantity quantity, string what, ReadContext context)
     {
-        var range = quantity == Quantity.Force || quantity == Quantity.Moment ? SignedForceRange : SignedAccelerationRange;
+        var range = quantity switch
+        {
+            Quantity.Force or Quantity.Moment => SignedForceRange,
+            Quantity.Voltage => SourceVoltageRange,   // circuit sources (ModelReader.Circuit.cs)
+            Quantity.Current => SourceCurrentRange,
+            _ => SignedAccelerationRange,
+        };
         if (context.Mapping(node, what) is not { } f) return null;
         var kind = FunctionKind(f, ValueFunctionKinds, what, context);
         switch (kind)

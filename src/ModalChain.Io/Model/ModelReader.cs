@@ -15,7 +15,7 @@ namespace ModalChain.Io.Model;
 public static partial class ModelReader
 {
     /// <summary>Top-level keys and what they hold, in the order docs/model-format.md lists them.</summary>
-    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point"];
+    private static readonly string[] TopLevelKeys = ["title", "masses", "supports", "springs", "dampers", "inerters", "links", "damping", "loads", "load-cases", "harmonic", "transient", "criteria", "repeat", "space", "bodies", "reference-point", "nodes", "mounts", "transducers", "circuit"];
 
     /// <summary>Reads the file at <paramref name="path"/>; a missing or unreadable file is an error diagnostic, not an exception.</summary>
     public static LoadResult ReadFile(string path)
@@ -59,10 +59,13 @@ public static partial class ModelReader
         if (context.Mapping(root, "the model file") is not { } top) return Finish(context, null);
 
         context.RejectUnknownKeys(top, "the model file", TopLevelKeys);
+        // A circuit model has a reader of its own (ModelReader.Circuit.cs): no masses, supports or loads.
+        if (top["circuit"] is not null) return ReadCircuitModel(top, context, file, bytes);
         // The space decides how masses, supports, springs and loads read: after a wrong one nothing else can be read sensibly.
         if (ReadSpace(top, context) is not { } space) return Finish(context, null);
         var spatial = space == Core.Model.ModelSpace.Line ? null : new SpatialNodes(space);
         CheckSectionsForSpace(top, space, context);
+        RefuseTransducersOutsideLine(top, space, context);
         var referencePoint = ReadReferencePoint(top, space, context);
         var repeated = spatial is null ? ReadRepeat(top, context) : new Repeated();
         var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file), repeated, spatial);
@@ -75,6 +78,16 @@ public static partial class ModelReader
         // Plane and 3d models: outputs may name masses, bodies and DOF labels (skid.z, skid.ry); initial conditions a
         // translation DOF label (a mass that moves in one direction by its bare name).
         IReadOnlySet<string> outputNames = massNames, initialNames = massNames;
+        // Line models: outputs may also name massless nodes and the inner nodes of mounts (their motion is reported).
+        if (spatial is null && (top["nodes"] is not null || top["mounts"] is not null))
+        {
+            var withNodes = new HashSet<string>(massNames, StringComparer.Ordinal);
+            if (top["nodes"] is YSequence nodeList)
+                foreach (var item in nodeList.Items) if (item is YScalar { IsPlainNull: false } listed) withNodes.Add(listed.Value);
+            withNodes.UnionWith(DeclaredNames(top, "nodes"));
+            withNodes.UnionWith(DeclaredNames(top, "mounts").Select(Core.Model.MountExpansion.InnerNode));
+            outputNames = withNodes;
+        }
         if (spatial is not null && network is not null)
         {
             var dofs = Core.Dofs.DofMap.For(network);
@@ -87,7 +100,7 @@ public static partial class ModelReader
         var timedLoads = ReadTimedLoads(top, massNames, supportNames, context, spatial);
         var transient = ReadTransient(top, outputNames, timedLoads, context, initialNames, spatial is not null);
         var criteria = ReadCriteria(top, context, network);
-        if (network is not null) RefuseMovingInerterSupports(network, loads, timedLoads, context);
+        if (network is not null) CheckTransducerReferences(top, network, loads, timedLoads, context);
         if (network is null || context.HasErrors) return Finish(context, null);
 
         var document = new ModelDocument(

@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using ModalChain.Core.Units;
 using ModalChain.Io.Diagnostics;
 using ModalChain.Io.Yaml;
@@ -32,7 +33,7 @@ internal sealed partial class ReadContext
 
     public string File { get; }
     public List<Diagnostic> Diagnostics { get; } = [];
-    public Dictionary<string, SourcePosition> Positions { get; } = [];
+    public PositionTable Positions { get; } = new();
 
     // Section readers ask HasErrors once per element; scanning the whole list each time made a file with many
     // warnings or errors quadratic. Diagnostics are only ever appended, so only the new ones are looked at.
@@ -111,6 +112,17 @@ internal sealed partial class ReadContext
         return v;
     }
 
+    /// <summary>The value of a text already read as <paramref name="quantity"/> (so known to be well written), when it
+    /// lies in <paramref name="range"/>; false for a text not read yet or out of range, which <see cref="Value(YNode, Quantity, Range, string)"/>
+    /// then reads and reports. Reports nothing, so a section reader may try it first on every element.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public bool TryKnownValue(string text, Quantity quantity, Range range, out double value)
+    {
+        if (!_parsed.TryGetValue((text, quantity), out value)) return false;
+        var belowMinimum = range.MinimumInclusive ? value < range.Minimum : value <= range.Minimum;
+        return !(belowMinimum || value > range.Maximum);
+    }
+
     private static string Of(string? key, string what) => key is null ? what : $"'{key}' of {what}";
 
     // Large models repeat a few values ("40 kg", "5 MN/m") many thousands of times; each text is parsed once.
@@ -168,6 +180,8 @@ internal sealed partial class ReadContext
             return range.Minimum > 0 || !range.MinimumInclusive
                 ? $"but a {UnitTable.Describe(quantity)} must be positive"
                 : $"but a {UnitTable.Describe(quantity)} cannot be negative";
+        if (value == 0 && quantity == Quantity.Mass && range.Minimum > 0)
+            return $"but a {UnitTable.Describe(quantity)} must be positive (a point without mass is declared under 'nodes:', line models only)";
         if (value == 0 && (range.Minimum > 0 || !range.MinimumInclusive))
             return $"but a {UnitTable.Describe(quantity)} must be positive";
         if (range.Minimum == 0 && !range.MinimumInclusive && range.Maximum == double.MaxValue) return "but it must be positive";

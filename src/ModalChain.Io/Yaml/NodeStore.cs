@@ -1,4 +1,5 @@
 using System.Collections.Immutable;
+using System.Runtime.CompilerServices;
 using System.Runtime.InteropServices;
 using ModalChain.Io.Diagnostics;
 
@@ -29,12 +30,12 @@ internal sealed class NodeStore
     [Flags]
     private enum Marks : byte { None = 0, Quoted = 1, DroppedKeys = 2, DroppedEntry = 4 }
 
-    // Text for a scalar; Data is the number of children of a collection (entries of a mapping) or the anchored slot
-    // of an alias; Span is the number of slots of the subtree, the node's own included.
+    // Data is the text's number in the text table for a scalar, the number of children of a collection (entries of a
+    // mapping) or the anchored slot of an alias; Span is the number of slots of the subtree, the node's own included.
+    // No reference in a slot: the collector neither scans nor marks the chunks, and a slot is 20 bytes, not 32.
     [StructLayout(LayoutKind.Auto)]
     private struct Slot
     {
-        public string? Text;
         public int Line;
         public int Column;
         public int Span;
@@ -48,8 +49,18 @@ internal sealed class NodeStore
     private Slot[][] _chunks = new Slot[4][];
     private int _count;
 
+    // Every scalar's text, each short text once (large models repeat the same few keys and values, and every name
+    // of an element end, hundreds of thousands of times).
+    private readonly List<string> _texts = [];
+    private readonly Dictionary<string, int> _textIds = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, int>.AlternateLookup<ReadOnlySpan<char>> _textLookup;
+    private const int ShortText = 32;
+
+    public NodeStore() => _textLookup = _textIds.GetAlternateLookup<ReadOnlySpan<char>>();
+
     private ref Slot At(int slot) => ref _chunks[slot >> ChunkBits][slot & (ChunkSize - 1)];
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int Add(Kind kind, SourcePosition position)
     {
         var chunk = _count >> ChunkBits;
@@ -60,11 +71,39 @@ internal sealed class NodeStore
         return _count++;
     }
 
-    public int AddScalar(SourcePosition position, string text, bool quoted)
+    /// <summary>The number of <paramref name="text"/> in the text table, and the table's string for it (one string per
+    /// short text, so a reader may keep it).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public (int Id, string Text) Intern(ReadOnlySpan<char> text)
+    {
+        if (text.Length <= ShortText && _textLookup.TryGetValue(text, out var known)) return (known, _texts[known]);
+        return Intern(new string(text));
+    }
+
+    /// <inheritdoc cref="Intern(ReadOnlySpan{char})"/>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public (int Id, string Text) Intern(string text)
+    {
+        if (text.Length > ShortText)
+        {
+            _texts.Add(text);
+            return (_texts.Count - 1, text);
+        }
+        if (_textIds.TryGetValue(text, out var known)) return (known, _texts[known]);
+        _texts.Add(text);
+        _textIds.Add(text, _texts.Count - 1);
+        return (_texts.Count - 1, text);
+    }
+
+    public int AddScalar(SourcePosition position, string text, bool quoted) => AddScalar(position, Intern(text).Id, quoted);
+
+    /// <summary>Adds a scalar whose text is number <paramref name="textId"/> of <see cref="Intern(string)"/>.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    public int AddScalar(SourcePosition position, int textId, bool quoted)
     {
         var slot = Add(Kind.Scalar, position);
         ref var s = ref At(slot);
-        s.Text = text;
+        s.Data = textId;
         if (quoted) s.Marks = Marks.Quoted;
         return slot;
     }
@@ -96,7 +135,7 @@ internal sealed class NodeStore
     public (string Text, SourcePosition At)? ScalarOf(int slot)
     {
         ref var s = ref At(Resolve(slot));
-        return s.Kind == Kind.Scalar ? (s.Text!, new SourcePosition(s.Line, s.Column)) : null;
+        return s.Kind == Kind.Scalar ? (_texts[s.Data], new SourcePosition(s.Line, s.Column)) : null;
     }
 
     public SourcePosition PositionOf(int slot)
@@ -105,7 +144,8 @@ internal sealed class NodeStore
         return new SourcePosition(s.Line, s.Column);
     }
 
-    private int Resolve(int slot)
+    /// <summary>The slot an alias at <paramref name="slot"/> stands for, or <paramref name="slot"/> itself.</summary>
+    public int Resolve(int slot)
     {
         ref var s = ref At(slot);
         return s.Kind == Kind.Alias ? s.Data : slot;
@@ -119,7 +159,7 @@ internal sealed class NodeStore
         var position = new SourcePosition(s.Line, s.Column);
         return s.Kind switch
         {
-            Kind.Scalar => new YScalar(position, s.Text!, (s.Marks & Marks.Quoted) != 0),
+            Kind.Scalar => new YScalar(position, _texts[s.Data], (s.Marks & Marks.Quoted) != 0),
             Kind.Sequence => new YSequence(position, this, slot),
             _ => new YMapping(position, this, slot, (s.Marks & Marks.DroppedKeys) != 0),
         };
@@ -167,6 +207,32 @@ internal sealed class NodeStore
             key = next;
         }
     }
+
+    /// <summary>The slots of the key and value of each entry kept of the mapping at <paramref name="slot"/>, in document
+    /// order: a section reader reads a valid entry from its slots without making its nodes.</summary>
+    public IEnumerable<YEntry> EntrySlotsOf(int slot)
+    {
+        var (key, end) = (slot + 1, slot + At(slot).Span);
+        while (key < end)
+        {
+            var value = key + At(key).Span;
+            var next = value + At(value).Span;
+            if ((At(key).Marks & Marks.DroppedEntry) == 0) yield return new YEntry(this, key, value);
+            key = next;
+        }
+    }
+
+    /// <summary>The kind of the node at <paramref name="slot"/>, which is not an alias (see <see cref="Resolve"/>).</summary>
+    public Kind KindOf(int slot) => At(slot).Kind;
+
+    /// <summary>True when the collection at <paramref name="slot"/> left out an entry or the scalar there was quoted.</summary>
+    public bool Marked(int slot) => At(slot).Marks != Marks.None;
+
+    /// <summary>The text of the scalar at <paramref name="slot"/>, which is not an alias.</summary>
+    public string TextOf(int slot) => _texts[At(slot).Data];
+
+    /// <summary>The slot after the subtree at <paramref name="slot"/>: its next sibling, if it has one.</summary>
+    public int After(int slot) => slot + At(slot).Span;
 
     /// <summary>The number of items of a sequence, or of entries kept of a mapping, at <paramref name="slot"/>.</summary>
     public int CountOf(int slot) => At(slot).Data;

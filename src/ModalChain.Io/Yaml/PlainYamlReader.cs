@@ -1,3 +1,4 @@
+using System.Runtime.CompilerServices;
 using System.Text;
 using ModalChain.Io.Diagnostics;
 
@@ -20,6 +21,10 @@ namespace ModalChain.Io.Yaml;
 /// <para>
 /// Columns count UTF-16 code units from 1, as YamlDotNet's marks do.
 /// </para>
+/// <para>
+/// The scanning methods are compiled optimized at their first call (AggressiveOptimization): a command reads its model
+/// once, in a fresh process, and would otherwise read much of a large file with unoptimized code.
+/// </para>
 /// </remarks>
 internal sealed class PlainYamlReader
 {
@@ -33,9 +38,7 @@ internal sealed class PlainYamlReader
     private int _indent;       // spaces before the first character of the content line at _p
     private bool _atEnd;       // no content line is left
 
-    // Large models repeat the same few keys and values hundreds of thousands of times: one string each.
-    private readonly Dictionary<string, string> _strings = new(StringComparer.Ordinal);
-    private readonly Dictionary<string, string>.AlternateLookup<ReadOnlySpan<char>> _lookup;
+    // Short texts are decoded here and looked up in the store's text table, so a repeated one makes no string.
     private readonly char[] _chars = new char[ShortText];
     private readonly KeySet?[] _keys = new KeySet?[YamlTree.MaximumDepth + 1];
     private const int ShortText = 32;
@@ -48,7 +51,6 @@ internal sealed class PlainYamlReader
         _text = text;
         _end = text.Length;
         _p = _lineStart = start;
-        _lookup = _strings.GetAlternateLookup<ReadOnlySpan<char>>();
     }
 
     /// <summary>The text was outside the subset: the caller reads it with YamlDotNet.</summary>
@@ -89,6 +91,7 @@ internal sealed class PlainYamlReader
 
     /// <summary>Moves to the first character of the next line that holds more than spaces and a comment; false at the end.</summary>
     /// <remarks>Called at the start of a line (or at the start of the text).</remarks>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private bool NextContentLine()
     {
         while (true)
@@ -120,6 +123,7 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>Steps over the line break at <see cref="_p"/> (or stops at the end of the text).</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void NewLine()
     {
         if (_p >= _end)
@@ -140,6 +144,7 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>The end of a comment that starts at <paramref name="i"/>: its line break, or the end of the text.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int SkipComment(int i)
     {
         while (i < _end)
@@ -177,6 +182,7 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>After a value: spaces, an optional comment after a space, and the line break; then the next content line.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void EndOfEntry()
     {
         var i = _p;
@@ -196,6 +202,7 @@ internal sealed class PlainYamlReader
 
     /// <summary>Reads a plain scalar at <see cref="_p"/> into the store; <see cref="_p"/> ends after its last non-space character.</summary>
     /// <param name="flow">Inside a flow collection, where ',', ']' and '}' end the scalar.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private (int Slot, string Text) PlainScalar(bool flow)
     {
         var start = _p;
@@ -241,23 +248,21 @@ internal sealed class PlainYamlReader
         }
         if (last == start) throw Decline();
         _p = last;
-        var text = Text(start, last);
-        return (_store.AddScalar(Position(start), text, quoted: false), text);
+        var (id, text) = Text(start, last);
+        return (_store.AddScalar(Position(start), id, quoted: false), text);
     }
 
-    private string Text(int start, int end)
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
+    private (int Id, string Text) Text(int start, int end)
     {
         var length = end - start;
-        if (length > ShortText) return Encoding.UTF8.GetString(_text, start, length);
+        if (length > ShortText) return _store.Intern(Encoding.UTF8.GetString(_text, start, length));
         var count = Encoding.UTF8.GetChars(_text, start, length, _chars, 0);
-        var chars = _chars.AsSpan(0, count);
-        if (_lookup.TryGetValue(chars, out var known)) return known;
-        var made = new string(chars);
-        _strings.Add(made, made);
-        return made;
+        return _store.Intern(_chars.AsSpan(0, count));
     }
 
     /// <summary>A key at <see cref="_p"/>, followed by ':' and a space or the line's end; <see cref="_p"/> ends after the ':'.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private string Key(bool flow)
     {
         var start = _p;
@@ -281,6 +286,7 @@ internal sealed class PlainYamlReader
             return this;
         }
 
+        [MethodImpl(MethodImplOptions.AggressiveOptimization)]
         public void Add(string key)
         {
             if (_many is null && _few.Count < 16)
@@ -301,6 +307,7 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>A value on the line of its key or list marker: a flow collection or a plain scalar.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int InlineValue(int depth, bool flow)
     {
         var c = At(_p);
@@ -312,6 +319,7 @@ internal sealed class PlainYamlReader
     /// <summary>A block mapping whose keys start in column <paramref name="indent"/> + 1, from the first key at <see cref="_p"/>.</summary>
     /// <param name="indent">Spaces before each key.</param>
     /// <param name="depth">Collections open, this one included.</param>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int BlockMapping(int indent, int depth)
     {
         if (depth > YamlTree.MaximumDepth) throw Decline();
@@ -370,12 +378,14 @@ internal sealed class PlainYamlReader
     }
 
     /// <summary>Spaces inside a flow collection, which must close on its own line.</summary>
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private void FlowSpaces()
     {
         SkipSpaces();
         if (IsBreak(_p) || At(_p) is (byte)'#' or (byte)'\t') throw Decline();
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int FlowMapping(int depth)
     {
         if (depth > YamlTree.MaximumDepth) throw Decline();
@@ -407,6 +417,7 @@ internal sealed class PlainYamlReader
         return slot;
     }
 
+    [MethodImpl(MethodImplOptions.AggressiveOptimization)]
     private int FlowSequence(int depth)
     {
         if (depth > YamlTree.MaximumDepth) throw Decline();

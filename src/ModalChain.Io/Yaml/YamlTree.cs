@@ -60,6 +60,10 @@ internal sealed record YMapping : YNode
     /// section reader that walks a mapping of 100,000 entries once does not hold them all as objects at once.</summary>
     public IEnumerable<KeyValuePair<YScalar, YNode>> Walk() => _store is null ? _entries : _store.WalkEntries(_slot);
 
+    /// <summary>The entries kept, as <see cref="Walk"/> gives them, but without making their nodes until a reader
+    /// deconstructs one: a section reader reads a valid entry of a large section straight from its slots.</summary>
+    public IEnumerable<YEntry> WalkSlots() => _store is null ? _entries.Select(e => new YEntry(e)) : _store.EntrySlotsOf(_slot);
+
     /// <summary>The value of <paramref name="key"/>, or null when the mapping has no such key.</summary>
     public YNode? this[string key]
     {
@@ -69,6 +73,32 @@ internal sealed record YMapping : YNode
                 if (k.Value == key) return v;
             return null;
         }
+    }
+}
+
+/// <summary>An entry of a mapping: its key and value nodes, or, for a mapping read from a file, their slots in the
+/// <see cref="NodeStore"/>, from which the nodes are made when the entry is deconstructed.</summary>
+internal readonly struct YEntry
+{
+    private readonly KeyValuePair<YScalar, YNode> _made;
+
+    public YEntry(KeyValuePair<YScalar, YNode> made) => _made = made;
+
+    public YEntry(NodeStore store, int keySlot, int valueSlot) => (Store, KeySlot, ValueSlot) = (store, keySlot, valueSlot);
+
+    /// <summary>The store the entry was read into; null for an entry made in code.</summary>
+    public NodeStore? Store { get; }
+
+    /// <summary>The key's slot in <see cref="Store"/> (possibly an alias).</summary>
+    public int KeySlot { get; }
+
+    /// <summary>The value's slot in <see cref="Store"/> (possibly an alias).</summary>
+    public int ValueSlot { get; }
+
+    public void Deconstruct(out YScalar key, out YNode value)
+    {
+        if (Store is null) (key, value) = (_made.Key, _made.Value);
+        else (key, value) = ((YScalar)Store.Node(KeySlot), Store.Node(ValueSlot));
     }
 }
 
@@ -230,10 +260,8 @@ internal static class YamlTree
         private readonly Dictionary<string, Anchored> _anchors = [];
         private long _aliasExpansion;
 
-        // Large models repeat the same few keys and values ("mass", "between", "40 kg") hundreds of thousands of
-        // times: one string each keeps the store small. The keys of the mapping open at each depth are gathered in
-        // one reusable list per depth (the depth is bounded) to find duplicates.
-        private readonly Dictionary<string, string> _strings = new(StringComparer.Ordinal);
+        // The keys of the mapping open at each depth are gathered in one reusable list per depth (the depth is
+        // bounded) to find duplicates; the store keeps one string per repeated key or value.
         private readonly List<(string Key, SourcePosition At)>[] _keys = new List<(string, SourcePosition)>[MaximumDepth + 1];
 
         /// <param name="depth">How many collections enclose the node.</param>
@@ -263,7 +291,7 @@ internal static class YamlTree
             var size = 1L;
             if (parser.TryConsume<Scalar>(out var scalar))
             {
-                slot = store.AddScalar(Pos(scalar.Start), Intern(scalar.Value), scalar.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted);
+                slot = store.AddScalar(Pos(scalar.Start), scalar.Value, scalar.Style is ScalarStyle.SingleQuoted or ScalarStyle.DoubleQuoted);
                 anchor = scalar.Anchor.IsEmpty ? null : scalar.Anchor.Value;
             }
             else if (parser.TryConsume<SequenceStart>(out var seq))
@@ -341,14 +369,6 @@ internal static class YamlTree
                 foreach (var (k, at) in keys) seen.Add(k, at);
             }
             return seen.TryGetValue(key, out var first) ? first : null;
-        }
-
-        private string Intern(string value)
-        {
-            if (value.Length > 32) return value;
-            if (_strings.TryGetValue(value, out var known)) return known;
-            _strings.Add(value, value);
-            return value;
         }
     }
 

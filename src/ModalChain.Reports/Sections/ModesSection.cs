@@ -29,7 +29,7 @@ public sealed class ModesSection : IReportSection
     {
         _context = context;
         _result = context.Modal;
-        _complexModes = context.Damped.IsClassical ? [] : ComplexModes.Solve(context.Damped);
+        _complexModes = context.Damped.IsClassical && !context.Damped.HasFirstOrderStates ? [] : ComplexModes.Solve(context.Damped);
         _massChart = MassChart(_result);
         _view = ViewOf(_result.Network);
         if (_view == ModeView.Map)
@@ -162,13 +162,16 @@ public sealed class ModesSection : IReportSection
             ["Mode", "f (Hz)", "T (s)", "ω (rad/s)", "ζ (%)", $"M* ({u.MassSymbol})", "M* (%)", "Σ M* (%)", "Dominant masses", "Key spring"],
             rows, new HashSet<int> { 0, 1, 2, 3, 4, 5, 6, 7 }, "modes-table");
         if (!_complexModes.IsEmpty)
-            html.Table("Complex modes of the damped system (the damping is not classical, so the undamped shapes are coupled)",
+            html.Table(_context.Damped.HasFirstOrderStates
+                    ? "Roots of the damped system (massless nodes with damping are first-order states: the modes above condense them through their springs only)"
+                    : "Complex modes of the damped system (the damping is not classical, so the undamped shapes are coupled)",
                 ["Mode", "Undamped frequency (Hz)", "Damped frequency (Hz)", "Damping ratio (%)"],
-                _complexModes.Take(_result.Modes.Length).Select(c => (IReadOnlyList<string>)
+                _complexModes.Take(_context.Damped.HasFirstOrderStates ? _complexModes.Length : _result.Modes.Length).Select(c => (IReadOnlyList<string>)
                     [c.Number.ToString(Inv), DisplayUnits.Number(c.UndampedFrequencyHz), c.Kind switch
                     {
                         ComplexModeKind.RigidBody => "rigid body (zero root)",
                         ComplexModeKind.RigidBodyRelaxation => "rigid-body relaxation, " + DisplayUnits.Number(-c.EigenValue.Real) + " 1/s",
+                        ComplexModeKind.Relaxation => "relaxation, τ = " + DisplayUnits.Number(-1 / c.EigenValue.Real) + " s",
                         _ => c.IsOscillatory ? DisplayUnits.Number(c.DampedFrequencyHz) : "overdamped",
                     }, c.IsOscillatory ? DisplayUnits.Percent(c.DampingRatio) : "—"]),
                 new HashSet<int> { 0, 1, 2, 3 });

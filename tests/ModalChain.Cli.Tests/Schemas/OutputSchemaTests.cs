@@ -96,7 +96,7 @@ public class OutputSchemaTests
     };
 
     /// <summary>The JSON the command writes for the model, or null when the model has no section for the command.</summary>
-    private static string? Output(string model, string command)
+    internal static string? Output(string model, string command)
     {
         var d = Document(model);
         if (!Applies(d, command)) return null;

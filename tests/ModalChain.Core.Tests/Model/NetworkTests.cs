@@ -41,7 +41,7 @@ public class NetworkTests
         var b = new NetworkBuilder().AddMass("a", 1);
         Assert.Throws<ArgumentException>(() => b.AddMass("a", 2));
         Assert.Throws<ArgumentException>(() => b.AddMass(Network.Ground, 2));
-        Assert.Throws<ArgumentOutOfRangeException>(() => b.AddMass("b", 0));
+        Assert.Throws<ArgumentOutOfRangeException>(() => b.AddMass("b", -1));
         Assert.Throws<ArgumentOutOfRangeException>(() => b.AddMass("b", double.NaN));
         Assert.Throws<ArgumentOutOfRangeException>(() => b.AddSpring("k", Network.Ground, "a", -1));
         Assert.Throws<ArgumentOutOfRangeException>(() => b.AddSpring("k", Network.Ground, "a", double.PositiveInfinity));

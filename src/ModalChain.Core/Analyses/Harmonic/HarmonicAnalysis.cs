@@ -120,10 +120,16 @@ public static class HarmonicAnalysis
         var dampers = spatial ? [] : network.Dampers.Where(d => outputSet.Contains(d.NodeA) || outputSet.Contains(d.NodeB)).ToArray();
         var mountRows = spatial ? SpatialLoads.MountRows(network, p) : [];
         var neededSet = new SortedSet<int>(outputIndex);
+        // An end a transducer eliminates moves as a combination of kept nodes (ConstraintElimination).
+        var elimination = spatial ? null : ConstraintElimination.Of(network);
+        var ends = new List<(string Node, double Weight)>();
         foreach (var e in springs.Select(s => (s.NodeA, s.NodeB)).Concat(dampers.Select(d => (d.NodeA, d.NodeB))))
         {
-            if (p.Free.IndexOf(e.NodeA) is var a and >= 0) neededSet.Add(a);
-            if (p.Free.IndexOf(e.NodeB) is var b and >= 0) neededSet.Add(b);
+            ends.Clear();
+            if (elimination is null) { ends.Add((e.NodeA, 1)); ends.Add((e.NodeB, 1)); }
+            else { elimination.AddTerms(e.NodeA, 1, ends); elimination.AddTerms(e.NodeB, 1, ends); }
+            foreach (var (node, _) in ends)
+                if (p.Free.IndexOf(node) is var a and >= 0) neededSet.Add(a);
         }
         var needed = neededSet.ToArray();
         var slot = new Dictionary<int, int>();
@@ -149,8 +155,20 @@ public static class HarmonicAnalysis
         }
         var stiffnessRow = new int[p.SupportCount];
         var dampingRow = new int[p.SupportCount];
+        var massRow = new int[p.SupportCount];
         for (var s = 0; s < p.SupportCount; s++)
         {
+            massRow[s] = -1;
+            if (p.HasInertialCoupling)
+            {
+                var ms = new double[n];
+                for (var i = 0; i < n; i++) ms[i] = p.MassFP[i, s];
+                if (ms.Any(v => v != 0))
+                {
+                    massRow[s] = observations.Count;
+                    observations.Add(ms);
+                }
+            }
             var ks = new double[n];
             var cs = new double[n];
             for (var i = 0; i < n; i++)
@@ -167,6 +185,13 @@ public static class HarmonicAnalysis
         var notes = ImmutableArray.CreateBuilder<string>();
         int used;
         HarmonicEngine engine;
+        // Damping at a massless node makes it a first-order state that no undamped mode describes: solve directly.
+        if (method == HarmonicMethod.Modal && network.Space == ModelSpace.Line
+            && MasslessReduction.Classify(p.Mass, system.Damping.FF).HasFirstOrderStates)
+        {
+            method = HarmonicMethod.Direct;
+            notes.Add("the modal method was asked for, but damping at a massless node makes it a first-order state that the undamped modes do not describe: solved directly instead");
+        }
         if (method == HarmonicMethod.Modal)
         {
             var fmax = frequenciesHz.Count > 0 ? frequenciesHz.Max() : 0;
@@ -247,11 +272,12 @@ public static class HarmonicAnalysis
             HarmonicLoading.Powers(2 * Math.PI * frequenciesHz[k], powers);
             foreach (var (s, a, q) in loading.SupportMotion) u[k * p.SupportCount + s] += a * powers[q - HarmonicLoading.MinPower];
         }
-        Complex At(int k, string node)
+        Complex AtKept(int k, string node)
         {
             var i = p.Free.IndexOf(node);
             return i >= 0 ? x[k * nk + slot[i]] : u[k * p.SupportCount + p.SupportIndex(node)];
         }
+        Complex At(int k, string node) => elimination is null ? AtKept(k, node) : elimination.Value(node, n => AtKept(k, n));
 
         var responses = outputs.Select((o, j) => new DofResponse(o,
             [.. Enumerable.Range(0, nf).Select(k => x[k * nk + slot[outputIndex[j]]])])).ToImmutableArray();
@@ -268,6 +294,7 @@ public static class HarmonicAnalysis
 
         var reactions = ImmutableArray.CreateBuilder<SupportReaction>();
         var total = new Complex[nf];
+        var inertial = p.HasInertialCoupling;
         for (var s = 0; s < p.SupportCount; s++)
         {
             var r = new Complex[nf];
@@ -277,10 +304,12 @@ public static class HarmonicAnalysis
                 var sum = Complex.Zero;
                 if (stiffnessRow[s] >= 0) sum += hysteretic * x[k * nk + stiffnessRow[s]];
                 if (dampingRow[s] >= 0) sum += iw * x[k * nk + dampingRow[s]];
+                if (massRow[s] >= 0) sum += iw * iw * x[k * nk + massRow[s]];
                 for (var t = 0; t < p.SupportCount; t++)
                 {
                     var ut = u[k * p.SupportCount + t];
-                    if (ut != Complex.Zero) sum += (p.StiffnessPP[s, t] * hysteretic + iw * system.Damping.PP[s, t]) * ut;
+                    if (ut != Complex.Zero)
+                        sum += (p.StiffnessPP[s, t] * hysteretic + iw * system.Damping.PP[s, t] + iw * iw * (inertial ? p.MassPP[s, t] : 0)) * ut;
                 }
                 r[k] = -sum;
                 total[k] += r[k];
@@ -323,7 +352,7 @@ public static class HarmonicAnalysis
     private static ImmutableArray<string> DefaultOutputs(DampedSystem system)
     {
         var network = system.Model.Network;
-        if (network.Space == ModelSpace.Line) return [.. network.Masses.Select(m => m.Name)];
+        if (network.Space == ModelSpace.Line) return [.. network.Masses.Select(m => m.Name).Where(m => system.Partition.Free.IndexOf(m) >= 0)]; // nodes a transducer eliminates have no DOF
         var free = system.Partition.Free;
         return [.. Enumerable.Range(0, free.Count).Select(free.Label)];
     }

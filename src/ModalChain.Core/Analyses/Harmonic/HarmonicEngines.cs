@@ -46,10 +46,15 @@ internal static class DirectEngines
     public static HarmonicEngine Create(DampedSystem system, HarmonicLoading loading, double[][] observations) =>
         UsesSparse(system) ? new SparseDirectEngine(system, loading, observations) : new DirectEngine(system, loading, observations);
 
-    /// <summary>True when the direct method runs on the sparse engine.</summary>
+    /// <summary>True when the direct method runs on the sparse engine: large sparse models, and every model with a massless DOF.</summary>
+    /// <remarks>
+    /// The Hessenberg engine needs M⁻¹; the dynamic stiffness K(1+iη) − ω²M + iωC needs none and stays regular at a
+    /// massless DOF (its diagonal there is k(1+iη) + iωc), so a singular M goes to the sparse engine whatever its size.
+    /// </remarks>
     public static bool UsesSparse(DampedSystem system) =>
-        system.Partition.FreeCount > SparseFromDofs
-        && system.Damping.FF.Storage is MathNet.Numerics.LinearAlgebra.Storage.SparseCompressedRowMatrixStorage<double>;
+        (system.Partition.FreeCount > SparseFromDofs
+            && system.Damping.FF.Storage is MathNet.Numerics.LinearAlgebra.Storage.SparseCompressedRowMatrixStorage<double>)
+        || MasslessReduction.HasMasslessDofs(system.Partition.Mass);
 }
 
 /// <summary>The direct method on a sparse model: a complex symmetric LDLᵀ of (K(1+iη) − ω²M + iωC) at each frequency.</summary>

@@ -9,7 +9,8 @@ namespace ModalChain.Core.Analyses.Harmonic;
 /// <remarks>
 /// The free right-hand side is b(ω) = Σ_r (iω)^{p_r} b_r and each support moves as u_s(ω) = Σ (iω)^{q} U. A force
 /// contributes F e^{iφ} with p = 0; an unbalance m·e·ω² = −m·e·(iω)², p = 2; a prescribed support motion U moves the
-/// free DOFs through −(K(1+iη)_fp + iω C_fp) U (Chopra, Dynamics of Structures, §9.6 on multi-support excitation).
+/// free DOFs through −(K(1+iη)_fp + iω C_fp + (iω)² M_fp) U (Chopra, Dynamics of Structures, §9.6 on multi-support
+/// excitation; M_fp is the inertance of inerters with an end on the support).
 /// In plane and 3d models a load enters through its attachment map as Tᵀ e_d F (<see cref="SpatialLoads"/>): a
 /// force at a body point also gives its moment about the centre of mass, an unbalance in the plane (d₁, d₂) has
 /// amplitudes A along d₁ and −iA along d₂ (cos and sin, 90° apart), and a support motion in direction d moves the
@@ -93,6 +94,13 @@ internal sealed class HarmonicLoading
                     }
                     loading.Terms.Add((stiff, q));
                     loading.Terms.Add((damp, q + 1));
+                    if (p.HasInertialCoupling)
+                    {
+                        // An inerter from the support to a free DOF: −M_fp ü_p = −(iω)² M_fp U.
+                        var inertial = new Complex[n];
+                        for (var i = 0; i < n; i++) inertial[i] = -p.MassFP[i, s] * amplitude;
+                        if (inertial.Any(v => v != Complex.Zero)) loading.Terms.Add((inertial, q + 2));
+                    }
                     break;
                 }
                 default:

@@ -30,6 +30,12 @@ public enum ComplexModeKind
 
     /// <summary>The real root λ &lt; 0 with which damping to a support brings a free group's rigid-body velocity to rest.</summary>
     RigidBodyRelaxation,
+
+    /// <summary>
+    /// A real root λ &lt; 0 of first-order relaxation: a spring creeping through a damper at a massless node (a
+    /// Maxwell element), with time constant τ = −1/λ (see <see cref="FirstOrder.FirstOrderSystem.ComplexModes"/>).
+    /// </summary>
+    Relaxation,
 }
 
 
@@ -63,6 +69,9 @@ public static class ComplexModes
     {
         ArgumentNullException.ThrowIfNull(system);
         var free = system.Partition.Free;
+        // Massless DOFs: their damped ones are first-order states, the rest are condensed (no M⁻¹ exists).
+        if (system.Model.Network.Space == ModelSpace.Line && MasslessReduction.HasMasslessDofs(system.Partition.Mass))
+            return FirstOrder.FirstOrderSystem.Build(system.Partition.Mass, system.Damping.FF, system.Partition.StiffnessFF, free.Label).ComplexModes();
         // Plane and 3d models: no topological groups (rigid-body roots are recognised by size), M may be full.
         if (system.Model.Network.Space != ModelSpace.Line) return Solve(system.Partition.Mass, system.Partition.StiffnessFF, system.Damping.FF);
         var groups = Topology.UnsupportedGroups(system.Model.Network)

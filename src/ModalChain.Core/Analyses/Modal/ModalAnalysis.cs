@@ -40,6 +40,9 @@ public static class ModalAnalysis
         if (options.BelowFrequencyHz is { } belowHz) Guard.Positive(belowHz, nameof(options.BelowFrequencyHz));
         if (matrices.Size == 0) throw new ArgumentException("The network has no masses.", nameof(network));
 
+        if (network.Space == ModelSpace.Line && MasslessReduction.HasMasslessDofs(matrices.Mass))
+            return MasslessModes.Solve(network, matrices, options);
+
         double? limit = options.BelowFrequencyHz is { } below ? Math.Pow(2 * Math.PI * below, 2) : null;
         var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver, options.Choice, limit);
         if (network.Space != ModelSpace.Line) return SpatialModes.Build(network, matrices, solution);
@@ -53,6 +56,10 @@ public static class ModalAnalysis
         var springEnds = network.Springs
             .Select(s => (a: matrices.Dofs.IndexOf(s.NodeA), b: matrices.Dofs.IndexOf(s.NodeB), k: s.Stiffness))
             .ToArray();
+        // With transducers a spring's end may be an eliminated node: its elongation is then a row of T (ConstraintElimination).
+        var springRows = Assembly.ConstraintElimination.Of(network) is { } elimination
+            ? network.Springs.Select(s => elimination.Row(node => matrices.Dofs.IndexOf(node), s.NodeA, s.NodeB)).ToArray()
+            : null;
 
         // Each mode's figures are independent of the others: computed in parallel from the shapes' columns, then the
         // cumulative fractions in order.
@@ -82,7 +89,7 @@ public static class ModalAnalysis
             }
             var residual = rigid ? Math.Sqrt(kNorm) / (scale * Math.Sqrt(mNorm)) : Math.Sqrt(residualNorm) / Math.Sqrt(kNorm);
             figures[j] = new ModeFigures(phi, gamma, gamma * gamma / kinetic, residual,
-                KineticShares(phi, mPhi), rigid ? [.. new double[springEnds.Length]] : StrainShares(phi, springEnds));
+                KineticShares(phi, mPhi), rigid ? [.. new double[springEnds.Length]] : StrainShares(phi, springEnds, springRows));
         }
         // Threads only where the work pays for them: commands such as tune solve small models many times.
         if ((long)count * n >= 1 << 16) Parallel.For(0, count, Figures);
@@ -175,14 +182,14 @@ public static class ModalAnalysis
         return ImmutableCollectionsMarshal.AsImmutableArray(shares);
     }
 
-    private static ImmutableArray<double> StrainShares(double[] phi, (int a, int b, double k)[] springs)
+    internal static ImmutableArray<double> StrainShares(double[] phi, (int a, int b, double k)[] springs, (int Index, double Weight)[][]? rows)
     {
         var energies = new double[springs.Length];
         var sum = 0.0;
         for (var e = 0; e < springs.Length; e++)
         {
             var (a, b, k) = springs[e];
-            var d = (a >= 0 ? phi[a] : 0) - (b >= 0 ? phi[b] : 0);
+            var d = rows is null ? (a >= 0 ? phi[a] : 0) - (b >= 0 ? phi[b] : 0) : rows[e].Sum(t => t.Weight * phi[t.Index]);
             sum += energies[e] = k * d * d;
         }
         for (var e = 0; e < energies.Length; e++) energies[e] = sum > 0 ? energies[e] / sum : 0;

@@ -120,6 +120,9 @@ public sealed record ModalResult(
         ArgumentNullException.ThrowIfNull(mode);
         if (Network.Space != ModelSpace.Line)
             throw new InvalidOperationException("A plane or 3d model has several DOFs per node: read the shape per (node, direction) with ShapeAt, or per DOF label from Mode.Shape.");
+        // A node a transducer eliminates takes its value from the kept ones, x = T q (flux per unit modal coordinate).
+        if (Assembly.ConstraintElimination.Of(Network) is { } elimination)
+            return [.. Network.Masses.Select(m => elimination.Value(m.Name, n => Matrices.Dofs.IndexOf(n) is var i and >= 0 ? mode.Shape[i] : 0.0))];
         return [.. Network.Masses.Select(m => mode.Shape[Matrices.Dofs.IndexOf(m.Name)])];
     }
 
@@ -130,6 +133,15 @@ public sealed record ModalResult(
         var i = Matrices.Dofs.IndexOf(node, direction);
         return i >= 0 ? mode.Shape[i] : 0;
     }
+
+    /// <summary>
+    /// The massless DOFs condensed statically before the eigen solve (indices into <see cref="StructuralMatrices.Dofs"/>):
+    /// a model has at most FreeCount − this many modes; empty when every DOF has mass.
+    /// </summary>
+    public ImmutableArray<int> CondensedDofs { get; init; } = [];
+
+    /// <summary>Number of modes the model has: its DOFs less the massless ones condensed.</summary>
+    public int ModeCountAvailable => Matrices.Size - CondensedDofs.Length;
 
     /// <summary>Number of rigid-body (0 Hz) modes among <see cref="Modes"/>.</summary>
     public int RigidBodyModeCount => Modes.Count(m => m.IsRigidBody);

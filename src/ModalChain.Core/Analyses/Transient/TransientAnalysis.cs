@@ -12,7 +12,8 @@ namespace ModalChain.Core.Analyses.Transient;
 /// <remarks>
 /// Solves M ü + C u̇ + K u = f(t) for the free DOFs in absolute coordinates. A support with a prescribed acceleration
 /// a_s(t) moves with u̇_s = ∫a_s and u_s = ∫u̇_s, integrated on the time grid exactly for a_s linear between steps;
-/// it loads the free DOFs by −K_fp u_s − C_fp u̇_s (for a spring k from the support to mass i, f_i += k u_s). Warnings follow common practice: at least ~10 steps per period of the
+/// it loads the free DOFs by −K_fp u_s − C_fp u̇_s − M_fp a_s (for a spring k from the support to mass i, f_i += k u_s;
+/// for an inerter b from the support to mass i, f_i += b a_s). Warnings follow common practice: at least ~10 steps per period of the
 /// highest mode that takes a significant share (≥ 1 %) of the effective mass or of a load, and a duration of at
 /// least a few periods of the lowest mode. Models of more than 300 DOFs get only their lowest modes (30, or those the
 /// modal method keeps) by shift-invert Lanczos unless a complete modal result is passed in, so the step check then
@@ -42,9 +43,10 @@ public static class TransientAnalysis
     {
         ArgumentNullException.ThrowIfNull(network);
         ArgumentNullException.ThrowIfNull(matrices);
-        var coupling = network.Space == ModelSpace.Line
+        // Transducers map an eliminated node onto others (supports included): their coupling comes from the partition.
+        var coupling = network.Space == ModelSpace.Line && network.Transducers.IsDefaultOrEmpty
             ? SupportCoupling.FromElements(network, matrices.Dofs)
-            : SupportCoupling.FromPartition(SpatialAssembly.Partition(network), DampingMatrices: null);
+            : SupportCoupling.FromPartition(SupportPartition.Assemble(network), DampingMatrices: null);
         return Run(network, matrices, coupling, null, excitations, initial, settings, modes, progress, []);
     }
 
@@ -113,7 +115,22 @@ public static class TransientAnalysis
         ResponseRecorder recorder;
         var consideredModes = modes.Modes;
 
-        switch (settings.Method)
+        // Massless nodes: no M⁻¹ exists, so the state-space form of FirstOrderSystem is integrated exactly, whatever
+        // method was asked for, unless the modal method runs on a model whose massless nodes carry springs only.
+        var firstOrder = network.Space == ModelSpace.Line && MasslessReduction.HasMasslessDofs(matrices.Mass)
+            && (settings.Method != TransientMethod.Modal || MasslessReduction.Classify(matrices.Mass, matrices.Damping).HasFirstOrderStates);
+        if (firstOrder)
+        {
+            if (n > ExactMethodMaxDofs)
+                throw new ArgumentOutOfRangeException(nameof(settings), settings.Method,
+                    $"A model with massless nodes is integrated in its state-space form, a dense exponential limited to {ExactMethodMaxDofs} DOFs; it has {n}.");
+            var state = FirstOrder.FirstOrderSystem.Build(matrices.Mass, matrices.Damping, matrices.Stiffness, dofs.Label);
+            var integrator = new FirstOrder.FirstOrderIntegrator();
+            description = integrator.Name + (settings.Method == TransientMethod.Exact ? "" : Invariant($", in place of the {settings.Method.ToString().ToLowerInvariant()} method asked for (the model has massless nodes)"));
+            recorder = PhysicalRecorder(system, probes, settings, steps, rmsFrom, rmsTo, progress);
+            integrator.Run(state, load.AsLoadVector(), u0, v0, h, steps, recorder);
+        }
+        else switch (settings.Method)
         {
             case TransientMethod.Newmark:
             case TransientMethod.Hht:
@@ -157,7 +174,7 @@ public static class TransientAnalysis
             case TransientMethod.Modal:
             {
                 var count = Math.Min(settings.ModeCount ?? modes.Modes.Length, modes.Modes.Length);
-                if (settings.ModeCount is null && count < n)
+                if (settings.ModeCount is null && count < modes.ModeCountAvailable)
                     warnings.Add(Invariant($"The modal method kept the lowest {count} of {n} modes, chosen automatically for a model of more than {LargeModel} masses (up to {modes.Modes[count - 1].NaturalFrequencyHz:G4} Hz): give 'modes' under 'transient' or --count for more."));
                 consideredModes = modes.Modes[..count];
                 var shapes = Matrix<double>.Build.Dense(n, count, (i, j) => consideredModes[j].Shape[i]);
@@ -174,7 +191,7 @@ public static class TransientAnalysis
                     h, steps, settings.RecordEvery, rmsFrom, rmsTo, progress);
                 integrator.Run(shapes, omega, zeta, matrices.Mass, load, u0, v0, h, steps, recorder);
                 var cumulative = consideredModes[^1].CumulativeEffectiveMassFraction;
-                if (count < n && cumulative < 0.9)
+                if (count < modes.ModeCountAvailable && cumulative < 0.9)
                     warnings.Add(Invariant($"The {count} modes kept carry {100 * cumulative:F1} % of the effective mass (less than 90 %): responses to loads that excite higher modes are underestimated."));
                 break;
             }
@@ -358,10 +375,10 @@ public static class TransientAnalysis
     }
 
     /// <summary>Displacement and velocity histories of each moving support, integrated on the step grid.</summary>
-    private static Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> SupportMotion(
+    private static Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity, TimeFunction Acceleration)> SupportMotion(
         Network network, IReadOnlyList<TransientExcitation> excitations, double h, int steps)
     {
-        var motion = new Dictionary<string, (TimeFunction, TimeFunction)>();
+        var motion = new Dictionary<string, (TimeFunction, TimeFunction, TimeFunction)>();
         // Keyed by the support's prescribed column: its name in line models, 'support.z' in plane and 3d models.
         string Column(SupportAccelerationHistory e)
         {
@@ -381,21 +398,21 @@ public static class TransientAnalysis
                 throw new ArgumentException($"Support motion '{group.First().Name}' refers to unknown support '{support}'.", nameof(excitations));
             var d = new double[steps + 1];
             var v = new double[steps + 1];
-            var aOld = group.Sum(e => e.Acceleration.ValueAt(0));
+            var a = new double[steps + 1];
+            a[0] = group.Sum(e => e.Acceleration.ValueAt(0));
             for (var s = 1; s <= steps; s++)
             {
-                var aNew = group.Sum(e => e.Acceleration.ValueAt(s * h));
-                d[s] = d[s - 1] + h * v[s - 1] + h * h / 6 * (2 * aOld + aNew);
-                v[s] = v[s - 1] + 0.5 * h * (aOld + aNew);
-                aOld = aNew;
+                a[s] = group.Sum(e => e.Acceleration.ValueAt(s * h));
+                d[s] = d[s - 1] + h * v[s - 1] + h * h / 6 * (2 * a[s - 1] + a[s]);
+                v[s] = v[s - 1] + 0.5 * h * (a[s - 1] + a[s]);
             }
-            motion[group.Key] = (new GridHistory(h, d), new GridHistory(h, v));
+            motion[group.Key] = (new GridHistory(h, d), new GridHistory(h, v), new GridHistory(h, a));
         }
         return motion;
     }
 
     private static LoadSet BuildLoad(Network network, Dofs.DofMap dofs, IReadOnlyList<TransientExcitation> excitations, SupportCoupling coupling,
-        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
+        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity, TimeFunction Acceleration)> supportMotion)
     {
         var terms = new List<LoadTerm>();
         foreach (var e in excitations.OfType<ForceHistory>())
@@ -412,14 +429,16 @@ public static class TransientAnalysis
             Guard.Finite(e.Scale, nameof(excitations));
             terms.Add(new LoadTerm([(i, e.Scale)], e.Time));
         }
-        // A moving support loads the free DOFs by −K_fp u_s − C_fp u̇_s.
-        foreach (var (support, (displacement, velocity)) in supportMotion)
+        // A moving support loads the free DOFs by −K_fp u_s − C_fp u̇_s − M_fp ü_s (M_fp: inerters with an end on it).
+        foreach (var (support, (displacement, velocity, acceleration)) in supportMotion)
         {
             var s = coupling.Supports.IndexOf(support);
             var k = Column(coupling.StiffnessFP, s);
             var c = Column(coupling.DampingFP, s);
+            var m = Column(coupling.MassFP, s);
             if (k.Length > 0) terms.Add(new LoadTerm([.. k.Select(e => (e.Index, -e.Value))], displacement));
             if (c.Length > 0) terms.Add(new LoadTerm([.. c.Select(e => (e.Index, -e.Value))], velocity));
+            if (m.Length > 0) terms.Add(new LoadTerm([.. m.Select(e => (e.Index, -e.Value))], acceleration));
         }
         return new LoadSet(dofs.Count, [.. terms]);
     }
@@ -428,12 +447,12 @@ public static class TransientAnalysis
         [.. Enumerable.Range(0, m.RowCount).Select(i => (i, m[i, column])).Where(e => e.Item2 != 0)];
 
     private static List<Probe> BuildProbes(Network network, Dofs.DofMap dofs, TransientSettings settings, SupportCoupling coupling,
-        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
+        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity, TimeFunction Acceleration)> supportMotion)
     {
         var spatial = network.Space != ModelSpace.Line;
         var outputs = !settings.Outputs.IsEmpty
             ? spatial ? [.. settings.Outputs.SelectMany(o => dofs.OutputLabels(o) is { IsEmpty: false } labels ? labels : [o]).Distinct()] : settings.Outputs
-            : spatial ? [.. Enumerable.Range(0, dofs.Count).Select(dofs.Label)] : [.. network.Masses.Select(m => m.Name)];
+            : spatial ? [.. Enumerable.Range(0, dofs.Count).Select(dofs.Label)] : [.. network.Masses.Select(m => m.Name).Where(m => dofs.IndexOf(m) >= 0)]; // nodes a transducer eliminates have no DOF
         var probes = new List<Probe>();
         foreach (var name in outputs)
         {
@@ -453,7 +472,11 @@ public static class TransientAnalysis
         {
             var state = new List<(int, double)>();
             var known = new List<(double, TimeFunction)>();
-            foreach (var (node, sign) in new[] { (a, 1.0), (b, -1.0) })
+            // An end a transducer eliminates moves as a combination of kept nodes (ConstraintElimination).
+            var ends = new List<(string Node, double Weight)>(2);
+            if (ConstraintElimination.Of(network) is { } elimination) { elimination.AddTerms(a, 1, ends); elimination.AddTerms(b, -1, ends); }
+            else { ends.Add((a, 1.0)); ends.Add((b, -1.0)); }
+            foreach (var (node, sign) in ends)
             {
                 var i = dofs.IndexOf(node);
                 if (i >= 0) state.Add((i, sign * value));
@@ -474,23 +497,26 @@ public static class TransientAnalysis
             probes.Add(new Probe(d.Name, ResponseQuantity.DamperForce, [], [.. state], [], [.. known]));
         }
 
-        // Force received by support s: r_s = −(K_pf u + C_pf u̇ + K_pp u_p + C_pp u̇_p), K_pf = K_fpᵀ.
+        // Force received by support s: r_s = −(K_pf u + C_pf u̇ + M_pf ü + K_pp u_p + C_pp u̇_p + M_pp ü_p), K_pf = K_fpᵀ.
         for (var s = 0; s < coupling.Supports.Length; s++)
         {
             var u = Column(coupling.StiffnessFP, s).Select(e => (e.Index, -e.Value)).ToList();
             var v = Column(coupling.DampingFP, s).Select(e => (e.Index, -e.Value)).ToList();
+            var a = Column(coupling.MassFP, s).Select(e => (e.Index, -e.Value)).ToList();
             var known = new List<(double, TimeFunction)>();
-            var attached = u.Count > 0 || v.Count > 0;
+            var attached = u.Count > 0 || v.Count > 0 || a.Count > 0;
             for (var t = 0; t < coupling.Supports.Length; t++)
             {
                 var kst = coupling.StiffnessPP[s, t];
                 var cst = coupling.DampingPP[s, t];
-                attached |= kst != 0 || cst != 0;
+                var mst = coupling.MassPP[s, t];
+                attached |= kst != 0 || cst != 0 || mst != 0;
                 if (!supportMotion.TryGetValue(coupling.Supports[t], out var m)) continue;
                 if (kst != 0) known.Add((-kst, m.Displacement));
                 if (cst != 0) known.Add((-cst, m.Velocity));
+                if (mst != 0) known.Add((-mst, m.Acceleration));
             }
-            if (attached) probes.Add(new Probe(coupling.Supports[s], ResponseQuantity.Reaction, [.. u], [.. v], [], [.. known]));
+            if (attached) probes.Add(new Probe(coupling.Supports[s], ResponseQuantity.Reaction, [.. u], [.. v], [.. a], [.. known]));
         }
         return probes;
     }
@@ -500,7 +526,7 @@ public static class TransientAnalysis
     /// c_d·Δ̇_d on its end B, Δ through the attachment maps; a moving support's column adds its prescribed motion.
     /// </summary>
     private static IEnumerable<Probe> MountProbes(Network network, Dofs.DofMap dofs, SupportCoupling coupling,
-        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity)> supportMotion)
+        Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity, TimeFunction Acceleration)> supportMotion)
     {
         foreach (var row in SpatialLoads.MountRows(network, dofs, coupling.Supports))
         {
@@ -543,13 +569,13 @@ public static class TransientAnalysis
         }
     }
 
-    /// <summary>How the supports (ground first) couple to the free DOFs: K_fp, C_fp (n × p) and K_pp, C_pp (p × p).</summary>
+    /// <summary>How the supports (ground first) couple to the free DOFs: K_fp, C_fp, M_fp (n × p) and K_pp, C_pp, M_pp (p × p).</summary>
     private sealed record SupportCoupling(ImmutableArray<string> Supports, Matrix<double> StiffnessFP, Matrix<double> DampingFP,
-        Matrix<double> StiffnessPP, Matrix<double> DampingPP)
+        Matrix<double> StiffnessPP, Matrix<double> DampingPP, Matrix<double> MassFP, Matrix<double> MassPP)
     {
-        /// <summary>The coupling of a partition (its stiffness blocks) with the damping blocks given, or the partition's dampers when none.</summary>
+        /// <summary>The coupling of a partition (its stiffness and inerter blocks) with the damping blocks given, or the partition's dampers when none.</summary>
         public static SupportCoupling FromPartition(SupportPartition p, DampingMatrices? DampingMatrices) =>
-            new(p.Supports, p.StiffnessFP, DampingMatrices?.FP ?? p.DamperFP, p.StiffnessPP, DampingMatrices?.PP ?? p.DamperPP);
+            new(p.Supports, p.StiffnessFP, DampingMatrices?.FP ?? p.DamperFP, p.StiffnessPP, DampingMatrices?.PP ?? p.DamperPP, p.MassFP, p.MassPP);
 
         /// <summary>The coupling of the discrete springs and dampers, assembled the same way as K and C.</summary>
         public static SupportCoupling FromElements(Network network, Dofs.DofMap dofs)
@@ -561,6 +587,8 @@ public static class TransientAnalysis
             var cfp = Matrix<double>.Build.Sparse(n, p);
             var kpp = Matrix<double>.Build.Dense(p, p);
             var cpp = Matrix<double>.Build.Dense(p, p);
+            var mfp = Matrix<double>.Build.Sparse(n, p);
+            var mpp = Matrix<double>.Build.Dense(p, p);
             void Add(Matrix<double> fp, Matrix<double> pp, string a, string b, double value)
             {
                 int Free(string node) => dofs.IndexOf(node);
@@ -577,7 +605,8 @@ public static class TransientAnalysis
             }
             foreach (var s in network.Springs) Add(kfp, kpp, s.NodeA, s.NodeB, s.Stiffness);
             foreach (var d in network.Dampers) Add(cfp, cpp, d.NodeA, d.NodeB, d.Coefficient);
-            return new SupportCoupling(supports, kfp, cfp, kpp, cpp);
+            foreach (var b in network.Inerters) Add(mfp, mpp, b.NodeA, b.NodeB, b.Inertance);
+            return new SupportCoupling(supports, kfp, cfp, kpp, cpp, mfp, mpp);
         }
     }
 }

@@ -1,0 +1,137 @@
+using System.Globalization;
+using System.Text.Json;
+using ModalChain.Cli.Tests.Schemas;
+using static ModalChain.Cli.Tests.CliRun;
+
+namespace ModalChain.Cli.Tests.Circuits;
+
+/// <summary>The commands on a circuit model: the example's outputs in electrical terms and valid JSON, and every bad
+/// circuit a located error with exit code 2.</summary>
+public class CircuitCommandTests
+{
+    private static string Example => Path.Combine(RepositoryRoot, "docs", "examples", "series-circuit.yaml");
+
+    [Fact]
+    public void Example_IsValidAgainstTheModelSchema()
+    {
+        SchemaFiles.AssertValid("model.schema.json", SchemaFiles.YamlToJson(File.ReadAllText(Example)).GetRawText(), "series-circuit.yaml");
+    }
+
+    [Theory]
+    [InlineData("modes", "circuit-modes.schema.json")]
+    [InlineData("harmonic", "circuit-harmonic.schema.json")]
+    [InlineData("transient", "circuit-transient.schema.json")]
+    public void Example_JsonOutputs_AreValidAgainstTheCircuitSchemas(string command, string schema)
+    {
+        var o = Run(command, Example, "--format", "json");
+        Assert.True(o.ExitCode == 0, o.ToString());
+        SchemaFiles.AssertValid(schema, o.Stdout, $"{command} on series-circuit.yaml");
+    }
+
+    [Fact]
+    public void Example_Modes_GivesTheSeriesRlcClosedForms()
+    {
+        // 2.2 Ω, 470 µH, 22 µF: f0 = 1/(2π√(LC)), ζ = (R/2)√(C/L), Q = 1/(2ζ) (series RLC, any circuits text [from memory]).
+        double r = 2.2, l = 470e-6, c = 22e-6;
+        var o = Run("modes", Example, "--format", "json");
+        using var json = JsonDocument.Parse(o.Stdout);
+        var roots = json.RootElement.GetProperty("roots").EnumerateArray().ToArray();
+        Assert.Equal(["dc_level", "oscillation"], roots.Select(x => x.GetProperty("kind").GetString()));
+        var zeta = r / 2 * Math.Sqrt(c / l);
+        Assert.Equal(1 / (2 * Math.PI * Math.Sqrt(l * c)), roots[1].GetProperty("natural_frequency_hz").GetDouble(), 1e-9);
+        Assert.Equal(zeta, roots[1].GetProperty("damping_ratio").GetDouble(), 1e-12);
+        Assert.Equal(1 / (2 * zeta), roots[1].GetProperty("q_factor").GetDouble(), 1e-11);
+        var table = Run("modes", Example);
+        Assert.Contains("DC level", table.Stdout);
+        Assert.Contains((1 / (2 * zeta)).ToString("G6", CultureInfo.InvariantCulture), table.Stdout);
+        Assert.Contains("Caution:", table.Stdout);
+    }
+
+    [Fact]
+    public void Example_Transient_SettlesAtTheSourceVoltage()
+    {
+        // After a 24 V step the capacitor charges to 24 V (DC: no current in the steady state) [common practice].
+        var o = Run("transient", Example, "--duration", "20 ms", "--step", "20 us", "--format", "json");
+        using var json = JsonDocument.Parse(o.Stdout);
+        var output = json.RootElement.GetProperty("node_voltages").EnumerateArray().Single(n => n.GetProperty("node").GetString() == "output");
+        Assert.Equal(24, output.GetProperty("volts").EnumerateArray().Last().GetDouble(), 1e-6);
+        Assert.Contains("v(output) (V)", Run("transient", Example).Stdout);
+        Assert.Contains("|Z| (ohm)", Run("harmonic", Example).Stdout);
+    }
+
+    [Theory]
+    [InlineData("modes")]
+    [InlineData("harmonic")]
+    [InlineData("transient")]
+    public void Outputs_AreByteIdenticalUnderADecimalCommaCulture(string command)
+    {
+        // Rule of the project: output is the same under any locale (invariant culture everywhere).
+        var invariant = Run(command, Example);
+        var json = Run(command, Example, "--format", "json");
+        using (new ModalChain.TestSupport.CultureScope("de-DE"))
+        {
+            Assert.Equal(invariant.Stdout, Run(command, Example).Stdout);
+            Assert.Equal(json.Stdout, Run(command, Example, "--format", "json").Stdout);
+        }
+        Assert.Contains(".", invariant.Stdout);
+    }
+
+    [Theory]
+    [InlineData("check")]
+    [InlineData("report", "-o", "/tmp/modalchain-circuit-report-never-written")]
+    [InlineData("tune", "--host", "output", "--mass-ratio", "5 %")]
+    [InlineData("study", "--vary", "speed", "--from", "0", "--to", "10 Hz")]
+    public void CommandsWithoutACircuitForm_RefuseACircuitWithExitCode2(string command, params string[] options)
+    {
+        var o = Run([command, Example, .. options]);
+        Assert.True(o.ExitCode == 2, o.ToString());
+        Assert.Contains("does not take circuit models yet", o.Stderr);
+    }
+
+    private const string Tank = """
+        circuit:
+          nodes: [a, b]
+          resistors:
+            R1: {between: [a, ground], resistance: 10 ohm}
+          inductors:
+            L1: {between: [a, b], inductance: 1 mH}
+          capacitors:
+            C1: {between: [b, ground], capacitance: 1 uF}
+            C2: {between: [a, ground], capacitance: 1 uF}
+
+        """;
+
+    [Theory]
+    [InlineData("unused node", 2, "node 'spare' has nothing attached")]
+    [InlineData("voltage-source loop", 12, "voltage source 'V2' closes a loop of ideal voltage sources")]
+    [InlineData("current-source cut set", 13, "which only current sources join to the rest")]
+    [InlineData("negative inductance", 6, "inductance must be positive")]
+    public void BadCircuit_IsALocatedErrorWithExitCode2(string problem, int line, string message)
+    {
+        var text = problem switch
+        {
+            "unused node" => Tank.Replace("nodes: [a, b]", "nodes: [a, b, spare]"),
+            "voltage-source loop" => Tank + "  voltage-sources:\n    V1: {between: [a, ground]}\n    V2: {between: [a, ground]}\n",
+            "current-source cut set" => Tank.Replace("nodes: [a, b]", "nodes: [a, b, c, d]")
+                + "    C3: {between: [c, d], capacitance: 1 uF}\n  current-sources:\n    I1: {from: ground, to: a}\n    I2: {from: b, to: c}\n",
+            "negative inductance" => Tank.Replace("inductance: 1 mH", "inductance: -1 mH"),
+            _ => throw new ArgumentOutOfRangeException(nameof(problem)),
+        };
+        var path = Path.Combine(Path.GetTempPath(), $"modalchain-circuit-{Guid.NewGuid():N}.yaml");
+        File.WriteAllText(path, text);
+        try
+        {
+            foreach (var command in new[] { "validate", "modes", "harmonic", "transient" })
+            {
+                var o = Run(command, path);
+                Assert.True(o.ExitCode == 2, o.ToString());
+                Assert.Contains($"{path}:{line}:", o.Stderr);
+                Assert.Contains(message, o.Stderr);
+            }
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+}

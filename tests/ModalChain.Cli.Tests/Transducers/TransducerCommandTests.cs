@@ -1,0 +1,82 @@
+using System.Globalization;
+
+namespace ModalChain.Cli.Tests.Transducers;
+
+/// <summary>Transducer models through the commands: analysed end to end, and bad input is a located error with exit 2.</summary>
+public class TransducerCommandTests
+{
+    private const string Shaker = """
+        title: Bench shaker driving a test table
+        masses:
+          table: 2 kg
+          coil-plus: 1e-6 kg
+        supports:
+          amplifier:
+        springs:
+          flexure: {between: [ground, table], stiffness: 40 kN/m}
+        dampers:
+          flexure-loss: {between: [ground, table], coefficient: 15 N*s/m}
+          coil-resistance: {between: [amplifier, coil-plus], coefficient: 0.25 N*s/m}
+        transducers:
+          coil: {between: [table, ground], branch: [coil-plus, ground], force-factor: 12 T*m}
+        loads:
+          drive: {kind: base-motion, support: amplifier, velocity: 1 m/s}
+          step: {kind: base-motion, support: amplifier, time: {kind: half-sine, amplitude: 31.4159 m/s^2, duration: 50 ms}}
+        harmonic:
+          loads: [drive]
+          frequencies: {from: 1 Hz, to: 100 Hz, points: 20}
+        transient:
+          duration: 0.2 s
+          step: 0.1 ms
+          loads: [step]
+
+        """;
+
+    private static string Write(string text)
+    {
+        var dir = Path.Combine(Path.GetTempPath(), "modalchain-transducer-" + Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(dir);
+        var path = Path.Combine(dir, "shaker.yaml");
+        File.WriteAllText(path, text); // test input, not a product output
+        return path;
+    }
+
+    [Fact]
+    public void Shaker_RunsThroughModesHarmonicAndTransient()
+    {
+        // The table's frequency with the coil: √(k/m') with m' = m + C·Bl² = 2 + 1e-6·144 kg (closed form).
+        var path = Write(Shaker);
+        var modes = CliRun.Run("modes", path, "--format", "json");
+        Assert.True(modes.ExitCode == 0, modes.ToString());
+        var expected = Math.Sqrt(4e4 / (2 + 1e-6 * 144)) / (2 * Math.PI);
+        using (var json = System.Text.Json.JsonDocument.Parse(modes.Stdout))
+        {
+            var f = json.RootElement.GetProperty("modes")[0].GetProperty("frequency_hz").GetDouble();
+            Assert.True(Math.Abs(f - expected) <= 1e-9 * expected, $"{f} against {expected}");
+        }
+        Assert.DoesNotContain("no spring", modes.Stderr, StringComparison.Ordinal);
+        foreach (var command in new[] { "harmonic", "transient", "validate" })
+        {
+            var run = CliRun.Run(command, path);
+            Assert.True(run.ExitCode == 0, run.ToString());
+        }
+    }
+
+    [Theory]
+    [InlineData("  t2: {between: [table, ground], branch: [coil-plus, ground], force-factor: 0 T*m}\n", 13, 77, "force factor")]
+    [InlineData("  t2: {between: [table, ground], branch: [coil-plus, ground], force-factor: 1 T*m}\n", 14, 3, "already eliminates")]
+    [InlineData("  t2: {between: [table, ground], branch: [amplifier, ground], force-factor: 1 T*m}\n", 13, 3, "both branch terminals on supports")]
+    [InlineData("  t2: {between: [table, ground], branch: [nowhere, ground], force-factor: 1 T*m}\n", 13, 43, "unknown node 'nowhere'")]
+    public void BadTransducers_ExitTwo_WithALocatedMessage(string entry, int line, int column, string fragment)
+    {
+        // The bad entry goes first in the existing section (line 13), before 'coil' (then line 14).
+        var path = Write(Shaker.Replace("transducers:\n", "transducers:\n" + entry, StringComparison.Ordinal));
+        foreach (var command in new[] { "validate", "harmonic" })
+        {
+            var run = CliRun.Run(command, path);
+            Assert.True(run.ExitCode == 2, run.ToString());
+            Assert.Contains(string.Create(CultureInfo.InvariantCulture, $"shaker.yaml:{line}:{column}: error: "), run.Stderr, StringComparison.Ordinal);
+            Assert.Contains(fragment, run.Stderr, StringComparison.Ordinal);
+        }
+    }
+}
