@@ -30,7 +30,7 @@ internal static class ModesTable
                 m.NaturalFrequencyHz.ToString("F4", Inv),
                 m.AngularFrequency.ToString("F3", Inv),
                 m.IsRigidBody ? "rigid body" : m.PeriodSeconds.ToString("G5", Inv),
-                m.IsRigidBody ? "-" : (100 * Io.Json.ModesJson.DampingRatioOf(damping, m)).ToString("F2", Inv),
+                Io.Json.ModesJson.DampingRatioOf(damping, m) is var z && double.IsFinite(z) ? (100 * z).ToString("F2", Inv) : "-",
                 (100 * m.EffectiveMassFraction).ToString("F1", Inv),
                 (100 * m.CumulativeEffectiveMassFraction).ToString("F1", Inv),
                 MostStrained(n, m),
@@ -57,7 +57,7 @@ internal static class ModesTable
         {
             o.WriteLine();
             o.WriteLine(damping is { HasFirstOrderStates: true }
-                ? "Massless nodes with damping are first-order states: the modes above condense them through their springs only, and the damped system's own roots (relaxations included) are these."
+                ? "Massless nodes with damping are first-order states: the modes above condense them through their springs only and carry no damping ratio; the damped system's own roots (relaxations included) are these."
                 : "The damping is not classical (it couples the modes above, whose damping is then an estimate).");
             o.WriteLine("Complex modes of the damped system (state-space eigenproblem):");
             var complex = new TextTable("root", "undamped [Hz]", "damped [Hz]", "damping [%]");

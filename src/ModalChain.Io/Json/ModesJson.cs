@@ -189,11 +189,16 @@ public static class ModesJson
         _ => "elastic",
     };
 
-    /// <summary>The damping ratio of <paramref name="mode"/>: from <paramref name="damping"/>, 0 without one, NaN for a rigid-body mode.</summary>
+    /// <summary>
+    /// The damping ratio of <paramref name="mode"/>: from <paramref name="damping"/>, 0 without one, NaN for a rigid-body
+    /// mode, and NaN for every undamped mode of a model with first-order states (a damper at a massless node): those
+    /// modes condense the massless nodes through their springs only, so Φᵀ C Φ would damp them as if a massless node held
+    /// by no spring stood still; the complex roots give the damping there.
+    /// </summary>
     public static double DampingRatioOf(DampedSystem? damping, Mode mode)
     {
         ArgumentNullException.ThrowIfNull(mode);
-        if (mode.IsRigidBody) return double.NaN;
+        if (mode.IsRigidBody || damping is { HasFirstOrderStates: true }) return double.NaN;
         return damping is null ? 0 : damping.ModalDampingRatios[mode.Number - 1];
     }
 }

@@ -42,6 +42,46 @@ public class TransducerCommandTests
     }
 
     [Fact]
+    public void VelocitySensor_ReadAcrossALoadThroughAMasslessNode_HasTheShuntDampingOfTheSeriesResistance()
+    {
+        // A moving-coil velocity sensor on a fixed base, its coil resistance and the recorder's input resistance in
+        // series: the node between them is massless and touched by dampers only (a first-order state), the coil's
+        // own node is eliminated by the transducer. The electrical side is then a damper (Bl)²/(R_coil + R_load) on the
+        // seismic mass, so ζ = c/(2mω₀) + (Bl)²/(2mω₀(R_coil + R_load)) with ω₀ = √(k/m) unchanged (common practice for
+        // moving-coil sensors; derived in docs/methods.md, "Transducers"). The undamped modes carry no damping ratio
+        // here (docs/methods.md, "Massless nodes and mounts"): the complex root does.
+        const double m = 0.011, k = 8.8, c = 0.19, bl = 28, rCoil = 375, rLoad = 10_000;
+        var path = Write(string.Create(CultureInfo.InvariantCulture, $$"""
+            title: Velocity sensor read across a recorder input
+            masses:
+              seismic: {{m}} kg
+            nodes: [coil-plus, out]
+            springs:
+              suspension: {between: [ground, seismic], stiffness: {{k}} N/m}
+            dampers:
+              open-circuit: {between: [ground, seismic], coefficient: {{c}} N*s/m}
+              coil-resistance: {between: [coil-plus, out], coefficient: {{1 / rCoil}} N*s/m}
+              recorder: {between: [out, ground], coefficient: {{1 / rLoad}} N*s/m}
+            transducers:
+              sensor: {between: [seismic, ground], branch: [coil-plus, ground], force-factor: {{bl}} T*m}
+
+            """));
+        var modes = CliRun.Run("modes", path, "--format", "json");
+        Assert.True(modes.ExitCode == 0, modes.ToString());
+        using var json = System.Text.Json.JsonDocument.Parse(modes.Stdout);
+        var w0 = Math.Sqrt(k / m);
+        var undamped = json.RootElement.GetProperty("modes")[0];
+        Assert.True(Math.Abs(undamped.GetProperty("frequency_hz").GetDouble() - w0 / (2 * Math.PI)) <= 1e-10 * w0, undamped.ToString());
+        Assert.Equal(System.Text.Json.JsonValueKind.Null, undamped.GetProperty("damping_ratio").ValueKind);
+        var roots = json.RootElement.GetProperty("complex_modes").EnumerateArray().Where(r => r.GetProperty("oscillatory").GetBoolean()).ToList();
+        var root = Assert.Single(roots);
+        var expected = c / (2 * m * w0) + bl * bl / (2 * m * w0 * (rCoil + rLoad));
+        var zeta = root.GetProperty("damping_ratio").GetDouble();
+        Assert.True(Math.Abs(zeta - expected) <= 1e-9 * expected, $"ζ {zeta} against {expected}");
+        Assert.True(Math.Abs(root.GetProperty("undamped_frequency_hz").GetDouble() - w0 / (2 * Math.PI)) <= 1e-9 * w0, root.ToString());
+    }
+
+    [Fact]
     public void Shaker_RunsThroughModesHarmonicAndTransient()
     {
         // The table's frequency with the coil: √(k/m') with m' = m + C·Bl² = 2 + 1e-6·144 kg (closed form).
