@@ -13,6 +13,8 @@ internal static class DampingLine
     {
         var parts = Parts(system, lossFactorNote: "");
         if (parts.Count == 0) return "none";
+        // The condensed undamped modes of a model with first-order states have no damping ratio (docs/methods.md).
+        if (system.HasFirstOrderStates) return string.Join(", ", parts) + Classical(system) + "; massless nodes with damping are first-order states (their damped roots: `modes`)";
         var ratios = system.ModalDampingRatios.Where(double.IsFinite).Select(z => (100 * z).ToString("F2", Inv) + " %").Take(6);
         return string.Join(", ", parts) + Classical(system) + "; modal ratios " + string.Join(", ", ratios);
     }
