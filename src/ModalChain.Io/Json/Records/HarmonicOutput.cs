@@ -87,8 +87,24 @@ public sealed record HarmonicCaseOutput : HarmonicSweepFields
     public required IReadOnlyList<string> Warnings { get; init; }
 }
 
+/// <summary>
+/// The fields every curve over the sweep ends with (a DOF's response, an element's or mount's force, a reaction): the
+/// derived records name what the curve is of and its unit, and these follow them.
+/// </summary>
+public abstract record HarmonicCurveFields
+{
+    [Description("peak: magnitudes are zero-to-peak amplitudes."), SchemaConst("peak"), JsonPropertyOrder(1)]
+    public required string Amplitude { get; init; }
+
+    [Description("Amplitude in 'unit' at each frequency."), JsonPropertyOrder(2)]
+    public required IEnumerable<double> Magnitude { get; init; }
+
+    [Description("Phase in degrees at each frequency."), JsonPropertyOrder(3)]
+    public required IEnumerable<double> PhaseDeg { get; init; }
+}
+
 /// <summary>A DOF's response over the sweep.</summary>
-public sealed record HarmonicSeriesOutput
+public sealed record HarmonicSeriesOutput : HarmonicCurveFields
 {
     [Description("Degree-of-freedom label (mass name, or linked masses joined by '+').")]
     public required string Dof { get; init; }
@@ -98,19 +114,10 @@ public sealed record HarmonicSeriesOutput
 
     [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model).")]
     public required string Unit { get; init; }
-
-    [Description("peak: magnitudes are zero-to-peak amplitudes."), SchemaConst("peak")]
-    public required string Amplitude { get; init; }
-
-    [Description("Amplitude in 'unit' at each frequency.")]
-    public required IEnumerable<double> Magnitude { get; init; }
-
-    [Description("Phase in degrees at each frequency.")]
-    public required IEnumerable<double> PhaseDeg { get; init; }
 }
 
 /// <summary>A spring's or damper's force over the sweep.</summary>
-public sealed record HarmonicElementSeriesOutput
+public sealed record HarmonicElementSeriesOutput : HarmonicCurveFields
 {
     [Description("Name of the spring or damper.")]
     public required string Element { get; init; }
@@ -120,38 +127,20 @@ public sealed record HarmonicElementSeriesOutput
 
     [Description("N.")]
     public required string Unit { get; init; }
-
-    [Description("peak: magnitudes are zero-to-peak amplitudes."), SchemaConst("peak")]
-    public required string Amplitude { get; init; }
-
-    [Description("Amplitude in 'unit' at each frequency.")]
-    public required IEnumerable<double> Magnitude { get; init; }
-
-    [Description("Phase in degrees at each frequency.")]
-    public required IEnumerable<double> PhaseDeg { get; init; }
 }
 
 /// <summary>A support's reaction over the sweep.</summary>
-public sealed record HarmonicReactionSeriesOutput
+public sealed record HarmonicReactionSeriesOutput : HarmonicCurveFields
 {
     [Description("Name of the support.")]
     public required string Support { get; init; }
 
     [Description("N.")]
     public required string Unit { get; init; }
-
-    [Description("peak: magnitudes are zero-to-peak amplitudes."), SchemaConst("peak")]
-    public required string Amplitude { get; init; }
-
-    [Description("Amplitude in 'unit' at each frequency.")]
-    public required IEnumerable<double> Magnitude { get; init; }
-
-    [Description("Phase in degrees at each frequency.")]
-    public required IEnumerable<double> PhaseDeg { get; init; }
 }
 
 /// <summary>A mount's force per direction over the sweep (plane and 3d models).</summary>
-public sealed record HarmonicMountSeriesOutput
+public sealed record HarmonicMountSeriesOutput : HarmonicCurveFields
 {
     [Description("Name of the spring or damper.")]
     public required string Element { get; init; }
@@ -165,19 +154,11 @@ public sealed record HarmonicMountSeriesOutput
     [Description("N for a force, N*m for a moment.")]
     public required string Unit { get; init; }
 
-    [Description("peak: magnitudes are zero-to-peak amplitudes."), SchemaConst("peak")]
-    public required string Amplitude { get; init; }
 
-    [Description("Amplitude in 'unit' at each frequency.")]
-    public required IEnumerable<double> Magnitude { get; init; }
-
-    [Description("Phase in degrees at each frequency.")]
-    public required IEnumerable<double> PhaseDeg { get; init; }
-
-    [Description("The largest amplitude over the sweep, in 'unit'.")]
+    [Description("The largest amplitude over the sweep, in 'unit'."), JsonPropertyOrder(4)]
     public required double PeakMagnitude { get; init; }
 
-    [Description("Where it occurs, in Hz.")]
+    [Description("Where it occurs, in Hz."), JsonPropertyOrder(5)]
     public required double PeakFrequencyHz { get; init; }
 }
 
