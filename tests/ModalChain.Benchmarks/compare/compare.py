@@ -91,6 +91,8 @@ def main():
     parser.add_argument("--no-docs", action="store_true")
     args = parser.parse_args()
     work = Path(args.work)
+    # A framework-dependent build is a .dll run by `dotnet`; a native ahead-of-time build is an executable of its own.
+    launcher = ["dotnet", args.cli] if args.cli.endswith(".dll") else [args.cli]
     work.mkdir(parents=True, exist_ok=True)
     write_models(work)
     chosen = [c for c in args.cases.split(",") if c]
@@ -102,7 +104,7 @@ def main():
     for run in range(args.runs):
         for case in chosen:
             model, mc_args, kind, _ = CASES[case]
-            mc = timed(["dotnet", args.cli, mc_args[0], str(work / model), *mc_args[1:], "--format", "json"], work / f"{case}.mc.json")
+            mc = timed([*launcher, mc_args[0], str(work / model), *mc_args[1:], "--format", "json"], work / f"{case}.mc.json")
             py = timed(["/usr/bin/python3", str(HERE / "script.py"), kind, str(work / model), str(work / f"{case}.py.json")], work / f"{case}.py.out")
             for key, r in (("mc", mc), ("py", py)):
                 if r is None:
@@ -127,7 +129,7 @@ def main():
         if mc_args[0] != "modes" or kind != "all":
             continue
         env = dict(os.environ, MODALCHAIN_STAGE_TIMES="1")
-        mc = timed(["dotnet", args.cli, mc_args[0], str(work / model), *mc_args[1:], "--format", "json"], work / f"{case}.stages.json", env)
+        mc = timed([*launcher, mc_args[0], str(work / model), *mc_args[1:], "--format", "json"], work / f"{case}.stages.json", env)
         py = timed(["/usr/bin/python3", str(HERE / "script.py"), kind, str(work / model), str(work / f"{case}.py.json")], work / f"{case}.py.out")
         if mc and py:
             m = re.search(r"stage: eigen solve \(extra, timing only\): ([\d.]+) s \(processor ([\d.]+) s\)", mc[2])
