@@ -12,10 +12,16 @@ namespace ModalChain.Core.Solvers;
 /// <para>Lanczos with thick restart (Wu &amp; Simon, 2000, SIAM J. Matrix Anal. Appl. 22(2)): the basis V, Vᵀ M V = I,
 /// is extended one vector at a time and each new vector is orthogonalised against the whole basis twice (full
 /// reorthogonalisation in the M inner product, classical Gram–Schmidt repeated), so the projected matrix
-/// H = Vᵀ M (K − σM)⁻¹ M V is computed in full. When the basis holds m vectors, the Ritz vectors of the k largest θ are
-/// kept with the last residual vector, and H restarts as diag(θ) bordered by the residual couplings. A Ritz pair is
-/// accepted when its residual estimate |β sₘᵢ| ≤ 10⁻¹¹ θᵢ and the residual of K φ = λ M φ itself,
-/// ‖Kφ − λMφ‖/‖Kφ‖ (‖Kφ‖/(s‖Mφ‖) for a rigid-body mode), is at most 10⁻⁹.</para>
+/// H = Vᵀ M (K − σM)⁻¹ M V is computed in full. When the basis holds m vectors, the Ritz vectors of the largest θ not yet
+/// locked are kept with the last residual vector, and H restarts as diag(θ) bordered by the residual couplings. A Ritz
+/// pair is accepted when its residual estimate |β sₘᵢ| ≤ 10⁻¹¹ θᵢ and the residual of K φ = λ M φ itself,
+/// ‖Kφ − λMφ‖/‖Kφ‖ (‖Kφ‖/(s‖Mφ‖) for a rigid-body mode), is at most 10⁻⁹ or, for a low mode of a model whose
+/// eigenvalues span more decades than that allows (rounding φ alone leaves about u·s/λ), the normwise backward error
+/// ‖Kφ − λMφ‖/(s‖Mφ‖) is at most 10⁻¹⁴. An accepted pair is locked at once (deflation as in the ARPACK users' guide,
+/// Lehoucq, Sorensen &amp; Yang, 1998, §4.6): its vector leaves the active basis and every later vector is
+/// M-orthogonalised against it. Without locking (issue 13) each restart recombined the converged vectors, their
+/// residuals crept up with every restart, and a pass that needed all wanted pairs to pass at the same restart never
+/// ended on a 2,100-mass chain.</para>
 /// <para>Completeness (Grimes, Lewis &amp; Simon, 1994, SIAM J. Matrix Anal. Appl. 15(1)): a single-vector Krylov space
 /// holds one vector per distinct eigenvalue in exact arithmetic, so a repeated frequency or an unlucky start can hide
 /// a mode. After the wanted pairs converge, K − τM is factorised at a τ in the gap above the highest wanted
@@ -36,6 +42,8 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
     private const int MaxPasses = 6;
     private const int PassSize = 120;   // most pairs one pass looks for; more come in further, deflated passes
     private const int MaxRestarts = 400;
+    private const int StallRestarts = 5;
+    private const double BackwardErrorTolerance = 1e-14;
 
     /// <inheritdoc />
     public string Name => "shift-invert Lanczos on a sparse LDLᵀ, Sturm-checked (managed)";
@@ -80,11 +88,12 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
         var extra = eigenvalueLimit is null ? 1 : 0;   // one pair beyond the wanted, to place τ in the gap above them
         var target = Math.Min(Math.Min(n, count + extra), PassSize);
         var seed = 20001;
+        var restarts = 0;
         var passes = MaxPasses + 2 * ((count + PassSize - 1) / PassSize);
         for (var pass = 1; pass <= passes; pass++)
         {
             var locked = found.Select(f => f.Shape).ToList();
-            found.AddRange(RunPass(problem, factor, sigma, target, locked, seed++));
+            found.AddRange(RunPass(problem, factor, sigma, target, locked, seed++, ref restarts));
             found.Sort((a, b) => a.Lambda.CompareTo(b.Lambda));
             if (skipsLeft > 0 && found.Count > 0)
             {
@@ -104,7 +113,7 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
             var expected = SturmSequence.CountBelow(problem.Pattern, problem.K, problem.M, tau);
             var foundBelow = found.Count(f => f.Lambda < tau);
             if (expected == foundBelow && found.Count >= count)
-                return new Outcome(found.Take(count).ToList(), tau, expected, foundBelow, pass);
+                return new Outcome(found.Take(count).ToList(), tau, expected, foundBelow, pass, restarts);
             if (expected < foundBelow)
                 throw new NumericalFailureException(
                     $"Lanczos found {foundBelow} eigenvalues below {tau:G6} rad²/s² but the Sturm count of K − τM says {expected}.");
@@ -131,13 +140,17 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
     }
 
     /// <summary>One thick-restart Lanczos run from a random vector, deflated against <paramref name="locked"/>, until the <paramref name="target"/> largest θ converge.</summary>
+    /// <remarks>Each wanted pair is locked the first restart it passes both tests: its vector leaves the active basis and
+    /// every later vector is M-orthogonalised against it, so a converged vector is not recombined (and its round-off
+    /// compounded) by every later restart, and the pairs need not all pass at the same restart.</remarks>
     private static List<(double Lambda, double[] Shape, double Residual)> RunPass(
-        Problem problem, SparseLdlt factor, double sigma, int target, List<double[]> locked, int seed)
+        Problem problem, SparseLdlt factor, double sigma, int target, List<double[]> locked, int seed, ref int restarts)
     {
         var n = problem.Size;
+        var converged = new List<(double Lambda, double[] Shape, double Residual)>();
+        var deflation = new List<double[]>(locked);   // earlier passes' vectors and this pass's locked ones
         var room = n - locked.Count;
         var size = Math.Min(room, Math.Max(2 * target, target + 20));
-        var keep = Math.Min(size - 1, target + (size - target) / 2);
         var basis = new double[size + 1][];
         var h = new double[size + 1, size + 1];
         var random = new Random(seed);
@@ -145,24 +158,27 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
         var w = new double[n];
 
         basis[0] = RandomVector(random, n);
-        Orthonormalise(problem, basis[0], basis, 0, locked, mx);
+        if (!Orthonormalise(problem, basis[0], basis, 0, deflation, mx)) return converged;
         var j = 0;               // basis[0..j] are set; H columns 0..j−1 are complete
-        for (var restart = 0; restart < MaxRestarts; restart++)
+        var stalled = 0;
+        for (var restart = 0; restart < MaxRestarts; restart++, restarts++)
         {
+            var remaining = room - converged.Count;
+            var capacity = Math.Min(size, remaining);
             var exhausted = false;
-            for (; j < size; j++)
+            for (; j < capacity; j++)
             {
                 problem.M.Multiply(basis[j], mx);
                 factor.Solve(mx, w);
                 var norm0 = Math.Sqrt(Dot(w, problem.M, mx));
-                var coefficients = Orthogonalise(problem, w, basis, j + 1, locked, mx);
+                var coefficients = Orthogonalise(problem, w, basis, j + 1, deflation, mx);
                 for (var i = 0; i <= j; i++) h[i, j] = h[j, i] = coefficients[i];
                 var beta = Math.Sqrt(Dot(w, problem.M, mx));
                 if (!(beta > 1e-10 * norm0))
                 {
                     // The Krylov space is invariant: continue from a fresh random vector, coupled by β = 0.
                     w = RandomVector(random, n);
-                    if (!Orthonormalise(problem, w, basis, j + 1, locked, mx))
+                    if (!Orthonormalise(problem, w, basis, j + 1, deflation, mx))
                     {
                         exhausted = true;
                         j++;
@@ -177,6 +193,7 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
             }
 
             var m = j;
+            var complete = exhausted || m >= remaining;   // V spans all that is left: every Ritz pair is exact
             var projected = Matrix<double>.Build.Dense(m, m, (r, c) => 0.5 * (h[r, c] + h[c, r]));
             var evd = projected.Evd(Symmetricity.Symmetric);
             var theta = evd.EigenValues.Select(v => v.Real).ToArray();
@@ -184,40 +201,66 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
             var s = evd.EigenVectors;
             var lastBeta = exhausted ? 0 : h[m, m - 1];
 
-            var converged = new List<(double Lambda, double[] Shape, double Residual)>();
-            var wantedConverged = true;
-            for (var r = 0; r < m; r++)
+            // Lock every wanted pair (among the largest θ still needed) that passes both tests.
+            var needed = target - converged.Count;
+            var lockedNow = new bool[m];
+            var unconverged = 0;
+            var failedResidual = 0;
+            var worstResidual = 0.0;
+            var worstLambda = 0.0;
+            for (var r = 0; r < Math.Min(m, needed); r++)
             {
                 var i = order[r];
-                var estimate = Math.Abs(lastBeta * s[m - 1, i]);
+                var estimate = complete ? 0 : Math.Abs(lastBeta * s[m - 1, i]);
                 if (!(theta[i] > 0) || estimate > RitzTolerance * theta[i])
                 {
-                    if (r < target) wantedConverged = false;
+                    unconverged++;
                     continue;
                 }
                 var shape = Combine(basis, s, i, m, n);
                 var lambda = sigma + 1 / theta[i];
                 var residual = problem.Residual(shape, lambda);
-                if (residual <= ResidualTolerance) converged.Add((lambda, shape, residual));
-                else if (r < target) wantedConverged = false;
+                if (problem.Accepts(residual, lambda))
+                {
+                    converged.Add((lambda, shape, residual));
+                    deflation.Add(shape);
+                    lockedNow[i] = true;
+                }
+                else
+                {
+                    unconverged++;
+                    failedResidual++;
+                    if (residual > worstResidual) (worstResidual, worstLambda) = (residual, lambda);
+                }
             }
-            if (wantedConverged || exhausted || m == room) return converged;
+            if (converged.Count >= target || complete) return converged;
 
-            // Thick restart: keep the Ritz vectors of the largest θ and the residual vector.
+            // A pair whose Ritz estimate has converged but whose residual stays above the bound will not improve by more
+            // restarts: say so with the figure rather than spending the remaining restarts.
+            stalled = failedResidual == unconverged ? stalled + 1 : 0;
+            if (stalled >= StallRestarts)
+                throw new NumericalFailureException(
+                    $"Lanczos could not reach the residual bound: the mode at λ = {worstLambda:G6} rad²/s² keeps ‖Kφ − λMφ‖/‖Kφ‖ = {worstResidual:G3} after its Ritz estimate converged ({converged.Count} of {target} modes locked).");
+
+            // Thick restart (Wu & Simon, 2000): keep the Ritz vectors of the largest θ not locked, and the residual vector.
+            needed = target - converged.Count;
+            var nextCapacity = Math.Min(size, room - converged.Count);
+            var keptIndex = order.Where(i => !lockedNow[i]).ToArray();
+            var keep = Math.Max(0, Math.Min(Math.Min(nextCapacity - 1, keptIndex.Length), needed + (nextCapacity - needed) / 2));
             var kept = new double[size + 1][];
-            for (var r = 0; r < keep; r++) kept[r] = Combine(basis, s, order[r], m, n);
+            for (var r = 0; r < keep; r++) kept[r] = Combine(basis, s, keptIndex[r], m, n);
             kept[keep] = basis[m];
             Array.Clear(h);
             for (var r = 0; r < keep; r++)
             {
-                h[r, r] = theta[order[r]];
-                h[keep, r] = h[r, keep] = lastBeta * s[m - 1, order[r]];
+                h[r, r] = theta[keptIndex[r]];
+                h[keep, r] = h[r, keep] = lastBeta * s[m - 1, keptIndex[r]];
             }
             basis = kept;
             j = keep;
         }
         throw new NumericalFailureException(
-            $"Lanczos did not converge: the {target} wanted modes of {n} still had residuals above {ResidualTolerance:G2} after {MaxRestarts} restarts of {size} vectors.");
+            $"Lanczos did not converge: {converged.Count} of the {target} wanted modes of {n} passed the residual bound after {MaxRestarts} restarts of {size} vectors.");
     }
 
     private static double[] RandomVector(Random random, int n)
@@ -347,6 +390,16 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
 
         public static Problem Create(SymmetricSparseMatrix stiffness, SymmetricSparseMatrix mass) => new(stiffness, mass);
 
+        /// <summary>
+        /// True when the residual of <see cref="Residual"/> is at most 10⁻⁹, or when ‖Kφ − λMφ‖ ≤ 10⁻¹⁴ s‖Mφ‖: a normwise
+        /// backward error of 10⁻¹⁴, about 45 units of round-off (Higham &amp; Higham, 1998, SIAM J. Matrix Anal. Appl. 20(2), from memory), the most double
+        /// precision can give a low mode of a model whose eigenvalues span many decades, where φ's own rounding (u‖φ‖)
+        /// multiplied by K already leaves about u·s‖Mφ‖, i.e. a relative residual near u·s/λ.
+        /// </summary>
+        public bool Accepts(double residual, double lambda) =>
+            residual <= ResidualTolerance
+            || (lambda >= RigidBodyTolerance * Scale && residual * lambda <= BackwardErrorTolerance * Scale);
+
         /// <summary>‖Kφ − λMφ‖/‖Kφ‖, or ‖Kφ‖/(s‖Mφ‖) for λ below the rigid-body threshold: the figure the modal analysis reports.</summary>
         public double Residual(double[] phi, double lambda)
         {
@@ -365,8 +418,8 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
         }
     }
 
-    /// <summary>The pairs returned (ascending), the Sturm shift τ, its count, the pairs found below τ and the number of Lanczos passes it took.</summary>
-    internal sealed record Outcome(List<(double Lambda, double[] Shape, double Residual)> Pairs, double CheckShift, int SturmCount, int FoundBelowShift, int Passes)
+    /// <summary>The pairs returned (ascending), the Sturm shift τ, its count, the pairs found below τ, the number of Lanczos passes it took and their restarts in all.</summary>
+    internal sealed record Outcome(List<(double Lambda, double[] Shape, double Residual)> Pairs, double CheckShift, int SturmCount, int FoundBelowShift, int Passes, int Restarts)
     {
         public ImmutableArray<double> EigenValues => [.. Pairs.Select(p => p.Lambda)];
 

@@ -89,6 +89,65 @@ public class ShiftInvertLanczosTests
     }
 
     [Fact]
+    public void LongChainHeldAtOneEnd_31Modes_ConvergeInOnePass()
+    {
+        // Issue 13: the 2,100-mass chain held at one end (20 kg, 5 MN/m) made the solver restart 400 times and give up on
+        // its 31 lowest modes, which shift-invert separates well (θ_j ≈ 1/λ_j ∝ 1/(2j − 1)²). Converged pairs were not
+        // locked, so every restart recombined them and their residuals crept above the bound. Fixed–free closed form
+        // ω_j = 2√(k/m) sin((2j − 1)π/(2(2n + 1))) (REFERENCES §2, common practice).
+        const int n = 2100;
+        const double m = 20, k = 5e6;
+        var matrices = Assembler.Assemble(TestNetworks.UniformChain(n, m, k, ChainEnds.FixedFree));
+        var outcome = Solver.Run(ShiftInvertLanczos.Problem.Create(matrices.Stiffness, matrices.Mass), 31, null);
+        var exact = Enumerable.Range(1, 31).Select(j => Math.Pow(2 * Math.Sqrt(k / m) * Math.Sin((2 * j - 1) * Math.PI / (2 * (2 * n + 1))), 2)).ToArray();
+        NumericAssert.Close(exact, [.. outcome.EigenValues], Tolerance.Rel(1e-9), "λ");
+        Assert.Equal(1, outcome.Passes);
+        Assert.True(outcome.Restarts <= 5, $"{outcome.Restarts} restarts for 31 well separated modes");
+        Assert.Equal(31, outcome.FoundBelowShift);
+        Assert.Equal(outcome.SturmCount, outcome.FoundBelowShift);
+    }
+
+    [Fact]
+    public void SoftlyHeldChain_LowestModeIsAcceptedAtItsRoundOffResidual()
+    {
+        // A free chain of 300 (2 kg, 100 kN/m) held by a ground spring 10⁻⁴ as stiff: λ₁ is 10⁻⁷ of the stiffness scale
+        // s = 4k/m, so φ₁'s own rounding times K leaves a relative residual near u·s/λ₁ ≈ 10⁻⁹ whatever the solver. The
+        // residual check accepts that (backward error below 10⁻¹⁴) and the frequencies still meet the closed form, derived
+        // here from the chain equations: u_j = cos(q(n + ½ − j)) with λ = (4k/m) sin²(q/2) and, at the held end,
+        // r cos(q(n − ½)) = 2 sin(qn) sin(q/2), r = k_ground/k (common practice; roots by bisection, checked to 1e-15
+        // against a 40-digit solve).
+        const int n = 300;
+        const double m = 2, k = 1e5, r = 1e-4;
+        var b = new ModalChain.Core.Model.NetworkBuilder { Title = "softly held chain" };
+        for (var i = 1; i <= n; i++) b.AddMass($"m{i}", m);
+        b.AddSpring("s0", ModalChain.Core.Model.Network.Ground, "m1", r * k);
+        for (var i = 1; i < n; i++) b.AddSpring($"s{i}", $"m{i}", $"m{i + 1}", k);
+        var matrices = Assembler.Assemble(b.Build());
+        var problem = ShiftInvertLanczos.Problem.Create(matrices.Stiffness, matrices.Mass);
+        var outcome = Solver.Run(problem, 10, null);
+
+        double F(double q) => r * Math.Cos(q * (n - 0.5)) - 2 * Math.Sin(q * n) * Math.Sin(q / 2);
+        var exact = new double[10];
+        for (var j = 1; j <= 10; j++)
+        {
+            double lo = (j - 1) * Math.PI / n, hi = (2 * j - 1) * Math.PI / (2 * n + 1), fLo = F(lo);
+            Assert.True(fLo * F(hi) < 0, $"no sign change for root {j}");
+            for (var it = 0; it < 200 && hi - lo > 0; it++)
+            {
+                var mid = 0.5 * (lo + hi);
+                if (mid <= lo || mid >= hi) break;
+                if (F(mid) * fLo > 0) (lo, fLo) = (mid, F(mid));
+                else hi = mid;
+            }
+            exact[j - 1] = 4 * k / m * Math.Pow(Math.Sin(lo / 2), 2);
+        }
+        NumericAssert.Close(exact, [.. outcome.EigenValues], Tolerance.Rel(1e-8), "λ");
+        Assert.True(outcome.Pairs[0].Residual > 1e-9, $"λ₁'s residual {outcome.Pairs[0].Residual:G3} no longer shows the round-off floor this test is about");
+        Assert.True(problem.Accepts(outcome.Pairs[0].Residual, outcome.Pairs[0].Lambda));
+        Assert.False(problem.Accepts(1e-6, outcome.Pairs[0].Lambda), "a residual some 400 times the floor must still be refused");
+    }
+
+    [Fact]
     public void SolverThatKeepsSkipping_FailsInsteadOfReturningAGap()
     {
         var matrices = Assembler.Assemble(TestNetworks.UniformChain(200, 2.0, 5.0e4, ChainEnds.FixedFixed));
