@@ -26,9 +26,15 @@ public enum SolverChoice
 /// (<see cref="NativeLapack.IsAvailable"/>), by the managed <see cref="DenseGeneralizedEigen"/> when not. The managed
 /// solver is embedded and always works; the native one gives the same modes 10–20 times faster. The sparse solver is
 /// <see cref="ShiftInvertLanczos"/>, which proves by a Sturm count that no mode below the highest one it reports was missed.</para>
+/// <para>Between <see cref="WeighedFromSize"/> and <see cref="SparseFromSize"/> DOFs with the native library, a few
+/// modes go to whichever solver is estimated cheaper (<see cref="SparseIsCheaper"/>): the ordering's symbolic pass gives
+/// the factor's fill, which with the count prices the sparse solve, against the (4/3)n³ of the tridiagonal reduction
+/// the dense solve does whatever the count. Whenever Auto chose the sparse solver for a model no larger than
+/// <see cref="SparseFromSize"/> and it fails, the dense solver runs instead and its name says so.</para>
 /// <para>An upper limit on the eigenvalue (every mode below a frequency) works with every algorithm: the sparse solver
 /// counts the modes below the limit and finds exactly those; the dense ones solve every mode and keep those below. Auto
-/// treats a limit like a few modes wanted (the number is not known before the count).</para>
+/// treats a limit like a few modes wanted (the number is not known before the count), and in the weighed range counts
+/// them first (one factorisation) to price the sparse solve.</para>
 /// </remarks>
 public static class GeneralizedEigen
 {
@@ -38,6 +44,16 @@ public static class GeneralizedEigen
     /// <summary>Smallest model that Auto may give to the sparse solver when no native library is loaded.</summary>
     public const int ManagedSparseFromSize = 300;
 
+    /// <summary>Models above this many DOFs (and up to <see cref="SparseFromSize"/>) have the two solvers' costs weighed when the native library is loaded.</summary>
+    public const int WeighedFromSize = 800;
+
+    /// <summary>
+    /// How many times more processor time one estimated operation of the sparse solver costs than one of the native dense
+    /// reduction: calibrated on seeded random networks of 1,000 and 2,000 masses (docs/performance.md, "Few modes of
+    /// mid-size models"), where the sparse solve took 40× the time per estimated operation; 50 leaves margin for dense.
+    /// </summary>
+    internal const double SparseOperationWeight = 50;
+
     /// <summary>The lowest <paramref name="count"/> modes of <paramref name="matrices"/>, or all when null.</summary>
     public static EigenSolution Solve(StructuralMatrices matrices, int? count = null, IGeneralizedEigenSolver? solver = null,
         SolverChoice choice = SolverChoice.Auto) =>
@@ -45,21 +61,85 @@ public static class GeneralizedEigen
 
     /// <summary>The lowest <paramref name="count"/> modes (all when null) with λ below <paramref name="belowEigenvalue"/> (rad²/s²; no limit when null).</summary>
     public static EigenSolution Solve(StructuralMatrices matrices, int? count, IGeneralizedEigenSolver? solver,
-        SolverChoice choice, double? belowEigenvalue)
+        SolverChoice choice, double? belowEigenvalue) =>
+        Solve(matrices, count, solver, choice, belowEigenvalue, new ShiftInvertLanczos());
+
+    /// <summary>As the public overload, with the sparse solver Auto would run given (tests give a faulty one to see the fallback).</summary>
+    internal static EigenSolution Solve(StructuralMatrices matrices, int? count, IGeneralizedEigenSolver? solver,
+        SolverChoice choice, double? belowEigenvalue, ShiftInvertLanczos sparse)
     {
         ArgumentNullException.ThrowIfNull(matrices);
         var n = matrices.Size;
         if (n == 0) throw new ArgumentException("The model has no degrees of freedom.", nameof(matrices));
         var wanted = Math.Clamp(count ?? n, 1, n);
-        if (belowEigenvalue is not { } limit)
+        if (belowEigenvalue is { } l) Guard.Finite(l);
+        var automatic = solver is null && choice == SolverChoice.Auto;
+        var few = belowEigenvalue is null || count is not null ? wanted : 1;
+        solver ??= Choose(n, few, choice, NonZeros(matrices));
+        if (automatic && solver is ShiftInvertLanczos) solver = sparse;
+
+        ShiftInvertLanczos.Problem? problem = null;
+        if (automatic && solver is LapackEigen && n > WeighedFromSize && n <= SparseFromSize && 4L * few <= n)
         {
-            solver ??= Choose(n, wanted, choice, NonZeros(matrices));
-            return solver.Solve(matrices.Stiffness, matrices.Mass, wanted, matrices.MassIsDiagonal);
+            problem = ShiftInvertLanczos.Problem.Create(matrices.Stiffness, matrices.Mass);
+            if (belowEigenvalue is { } limit)
+                few = Math.Max(1, Math.Min(wanted, SturmSequence.CountBelow(problem.Pattern, problem.K, problem.M, limit)));
+            if (SparseIsCheaper(n, few, problem.Pattern)) solver = sparse;
         }
 
-        Guard.Finite(limit);
-        solver ??= Choose(n, count is null ? 1 : wanted, choice, NonZeros(matrices));
-        if (solver is ShiftInvertLanczos lanczos) return lanczos.SolveBelow(matrices.Stiffness, matrices.Mass, limit, count);
+        if (solver is not ShiftInvertLanczos lanczos) return SolveDense(matrices, solver, wanted, belowEigenvalue);
+        if (!automatic || n > SparseFromSize) return SolveSparse(matrices, lanczos, problem, wanted, count, belowEigenvalue);
+        try
+        {
+            return SolveSparse(matrices, lanczos, problem, wanted, count, belowEigenvalue);
+        }
+        catch (NumericalFailureException e)
+        {
+            var dense = NativeLapack.IsAvailable ? (IGeneralizedEigenSolver)new LapackEigen() : new DenseGeneralizedEigen();
+            var solution = SolveDense(matrices, dense, wanted, belowEigenvalue);
+            return solution with { Algorithm = $"{solution.Algorithm}, run because the sparse solver failed: {e.Message}" };
+        }
+    }
+
+    /// <summary>
+    /// True when the sparse solver's estimated work for the lowest <paramref name="wanted"/> of <paramref name="size"/>
+    /// modes, weighted by <see cref="SparseOperationWeight"/>, is below the (4/3)n³ multiply-adds of the dense
+    /// tridiagonal reduction (Golub &amp; Van Loan, Matrix Computations, 4th ed., §8.3.1).
+    /// </summary>
+    /// <remarks>
+    /// The sparse work is priced as <see cref="ShiftInvertLanczos"/> spends it: two factorisations (the shift and the
+    /// Sturm count), Σⱼ cⱼ² each; about 2m Lanczos steps for a basis of m = max(2(k + 1), k + 21) vectors (the basis and
+    /// one restart's worth), each a forward and back solve (4 nnz(L)); and the full reorthogonalisation, twice per step
+    /// against up to m vectors, 4 n m² in all.
+    /// </remarks>
+    public static bool SparseIsCheaper(int size, int wanted, SparseLdltPattern pattern)
+    {
+        ArgumentNullException.ThrowIfNull(pattern);
+        return SparseOperationWeight * SparseWork(size, wanted, pattern.FactorOperations, pattern.FactorNonZeros) < DenseWork(size);
+    }
+
+    /// <summary>Estimated multiply-adds of the sparse solve (see <see cref="SparseIsCheaper"/>).</summary>
+    internal static double SparseWork(int size, int wanted, double factorOperations, long factorNonZeros)
+    {
+        double n = size;
+        double m = Math.Min(size, Math.Max(2 * (wanted + 1), wanted + 21));
+        return 2 * factorOperations + 2 * m * 4 * factorNonZeros + 4 * n * m * m;
+    }
+
+    /// <summary>(4/3) n³: the Householder reduction to tridiagonal form.</summary>
+    internal static double DenseWork(int size) => 4.0 / 3.0 * size * (double)size * size;
+
+    private static EigenSolution SolveSparse(StructuralMatrices matrices, ShiftInvertLanczos lanczos, ShiftInvertLanczos.Problem? problem,
+        int wanted, int? count, double? belowEigenvalue)
+    {
+        problem ??= ShiftInvertLanczos.Problem.Create(matrices.Stiffness, matrices.Mass);
+        return belowEigenvalue is { } limit ? lanczos.SolveBelow(problem, limit, count) : lanczos.Solve(problem, wanted);
+    }
+
+    private static EigenSolution SolveDense(StructuralMatrices matrices, IGeneralizedEigenSolver solver, int wanted, double? belowEigenvalue)
+    {
+        var n = matrices.Size;
+        if (belowEigenvalue is not { } limit) return solver.Solve(matrices.Stiffness, matrices.Mass, wanted, matrices.MassIsDiagonal);
         var all = solver.Solve(matrices.Stiffness, matrices.Mass, solver is SubspaceIterationEigen ? wanted : n, matrices.MassIsDiagonal);
         var keep = Math.Min(wanted, all.EigenValues.Count(v => v < limit));
         return all with

@@ -59,12 +59,22 @@ public sealed class ShiftInvertLanczos : IGeneralizedEigenSolver
         return ToSolution(Run(problem, count, eigenvalueLimit: null));
     }
 
+    /// <summary>The lowest <paramref name="count"/> pairs of a problem already analysed (its ordering and pattern reused).</summary>
+    internal EigenSolution Solve(Problem problem, int count)
+    {
+        if (count < 1 || count > problem.Size) throw new ArgumentOutOfRangeException(nameof(count), count, $"count must be in 1..{problem.Size}.");
+        return ToSolution(Run(problem, count, eigenvalueLimit: null));
+    }
+
     /// <summary>Every eigenpair with λ &lt; <paramref name="eigenvalueLimit"/> (rad²/s²), at most <paramref name="maxCount"/> of the lowest.</summary>
     /// <returns>The pairs, possibly none; the Sturm count at the limit equals their number unless <paramref name="maxCount"/> cut it.</returns>
-    public EigenSolution SolveBelow(Matrix<double> stiffness, Matrix<double> mass, double eigenvalueLimit, int? maxCount = null)
+    public EigenSolution SolveBelow(Matrix<double> stiffness, Matrix<double> mass, double eigenvalueLimit, int? maxCount = null) =>
+        SolveBelow(Problem.Create(stiffness, mass), eigenvalueLimit, maxCount);
+
+    /// <summary>As the public overload, on a problem already analysed.</summary>
+    internal EigenSolution SolveBelow(Problem problem, double eigenvalueLimit, int? maxCount)
     {
         Guard.Finite(eigenvalueLimit);
-        var problem = Problem.Create(stiffness, mass);
         var below = SturmSequence.CountBelow(problem.Pattern, problem.K, problem.M, eigenvalueLimit);
         var wanted = Math.Min(below, maxCount ?? below);
         if (wanted == 0) return new EigenSolution([], Matrix<double>.Build.Dense(problem.Size, 0), Name);

@@ -51,6 +51,21 @@ public sealed class SparseLdltPattern
     /// <summary>Entries of L including its diagonal: the fill the ordering leaves.</summary>
     public long FactorNonZeros => Rows.Length;
 
+    /// <summary>Σⱼ cⱼ² over the columns of L, cⱼ the entries below the diagonal: the multiply-adds of one factorisation, to leading order.</summary>
+    public double FactorOperations
+    {
+        get
+        {
+            var sum = 0.0;
+            for (var j = 0; j < Size; j++)
+            {
+                double below = ColumnStart[j + 1] - ColumnStart[j] - 1;
+                sum += below * below;
+            }
+            return sum;
+        }
+    }
+
     /// <summary>Orders the union of the patterns of <paramref name="matrices"/> (all of one size) and finds the pattern of L.</summary>
     public static SparseLdltPattern Analyse(params ReadOnlySpan<SymmetricSparseMatrix> matrices)
     {
