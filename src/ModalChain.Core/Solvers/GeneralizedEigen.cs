@@ -81,10 +81,18 @@ public static class GeneralizedEigen
         ShiftInvertLanczos.Problem? problem = null;
         if (automatic && solver is LapackEigen && n > WeighedFromSize && n <= SparseFromSize && 4L * few <= n)
         {
-            problem = ShiftInvertLanczos.Problem.Create(matrices.Stiffness, matrices.Mass);
-            if (belowEigenvalue is { } limit)
-                few = Math.Max(1, Math.Min(wanted, SturmSequence.CountBelow(problem.Pattern, problem.K, problem.M, limit)));
-            if (SparseIsCheaper(n, few, problem.Pattern)) solver = sparse;
+            try
+            {
+                problem = ShiftInvertLanczos.Problem.Create(matrices.Stiffness, matrices.Mass);
+                if (belowEigenvalue is { } limit)
+                    few = Math.Max(1, Math.Min(wanted, SturmSequence.CountBelow(problem.Pattern, problem.K, problem.M, limit)));
+                if (SparseIsCheaper(n, few, problem.Pattern)) solver = sparse;
+            }
+            catch (NumericalFailureException)
+            {
+                // The sparse analysis itself failed (e.g. a singular shifted matrix at the limit): the dense solver decides.
+                problem = null;
+            }
         }
 
         if (solver is not ShiftInvertLanczos lanczos) return SolveDense(matrices, solver, wanted, belowEigenvalue);
