@@ -72,6 +72,20 @@ public class EnginePathTests
         }
     }
 
+    [Fact]
+    public void CoupledTanksInMicrofaradsAndMillihenries_RootsMatchA40DigitSolution()
+    {
+        // Own computation: the four roots of det(s²C + sG + Γ) = 0 of CircuitFixtures.CoupledTanks() found with mpmath at
+        // 40 digits (the quartic's coefficients from five exact evaluations, then polyroots). Capacitances of 1e-6 and
+        // inverse inductances of 1e3 put 1e9 between the entries of the network's first-order form: the balancing keeps ζ.
+        var roots = CircuitModes.Solve(CircuitAnalogy.Of(CircuitFixtures.CoupledTanks())).Where(r => r.Kind == CircuitRootKind.Oscillation).ToArray();
+        Assert.Equal(2, roots.Length);
+        NumericAssert.Close(2024.0895018345367577, roots[0].NaturalFrequencyHz, Tolerance.Rel(1e-12), "f1");
+        NumericAssert.Close(0.11372342882525052832, roots[0].DampingRatio, Tolerance.Rel(1e-12), "ζ1");
+        NumericAssert.Close(3251.2103307956127896, roots[1].NaturalFrequencyHz, Tolerance.Rel(1e-12), "f2");
+        NumericAssert.Close(0.10332220928413869477, roots[1].DampingRatio, Tolerance.Rel(1e-12), "ζ2");
+    }
+
     [Theory]
     [MemberData(nameof(Circuits))]
     public void FrequencyResponses_EqualTheDenseComplexSolve(string name)
