@@ -3,7 +3,7 @@ using ModalChain.Core.Model;
 
 namespace ModalChain.Core.Analyses.Circuits;
 
-/// <summary>Topological checks of a circuit that its state-space form needs.</summary>
+/// <summary>Topological checks of a circuit that its analyses need (on the analogue network's first-order form).</summary>
 public static class CircuitTopology
 {
     /// <summary>
