@@ -52,7 +52,8 @@ public class CircuitAnalogyTests
     {
         // Identity: circuit roots vs ComplexModes (state-space eigenproblem of M, C, K) of the analogue network. In F, H
         // and Ω of order one: with µF and mH, ComplexModes' unbalanced M⁻¹K loses ζ to 2e-10 relative (checked against a
-        // 40-digit solution of det(s²C + sG + Γ) = 0, which the circuit path matches to 1e-16).
+        // 40-digit solution of det(s²C + sG + Γ) = 0, which the circuit path, the network's first-order form balanced, matches
+        // to 1e-12: EnginePathTests.CoupledTanksInMicrofaradsAndMillihenries_RootsMatchA40DigitSolution).
         var analogy = CircuitAnalogy.Of(CircuitFixtures.CoupledTanks(normalised: true));
         var network = analogy.ToNetwork();
         var p = SupportPartition.Assemble(network);
