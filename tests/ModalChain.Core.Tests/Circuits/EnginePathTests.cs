@@ -18,9 +18,9 @@ public class EnginePathTests
 {
     private const double Tol = 1e-10;
 
-    public static TheoryData<string> Circuits => new() { "series", "parallel", "ladder", "floating", "source-capacitor" };
+    public static TheoryData<string> Circuits => new() { "series", "parallel", "ladder", "floating", "source-capacitor", "tanks" };
 
-    /// <summary>The five circuits the comparison runs on, each with a waveform on every source.</summary>
+    /// <summary>The circuits the comparison runs on, each with a waveform on every source.</summary>
     internal static Circuit Build(string name, Func<double, TimeFunction>? waveform = null)
     {
         waveform ??= v => new StepFunction(v, 0);
@@ -51,6 +51,8 @@ public class EnginePathTests
                 [new Capacitor("C1", "in", "out", 1e-6), new Capacitor("C2", "out", Circuit.Ground, 0.47e-6), new Capacitor("C3", "in", Circuit.Ground, 1e-9)],
                 [new VoltageSource("V1", Circuit.Ground, "in", 1, waveform(3))],
                 [new CurrentSource("I1", "x", "in", 1, waveform(0.05))]),
+            // Two tanks in µF, mH and ohms coupled by a capacitor: every node has capacitance (the sweep's Hessenberg engine).
+            "tanks" => CircuitFixtures.CoupledTanks(waveform(0.1)),
             _ => throw new ArgumentException(name),
         };
     }
