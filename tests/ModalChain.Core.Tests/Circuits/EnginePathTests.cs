@@ -122,9 +122,26 @@ public class EnginePathTests
         // A rectangular pulse starting and ending inside recording steps: both paths cut the steps at its ends.
         CompareTransients(Build(name, v => new RectangularPulse(v, 4.13e-4, 1.07e-4)), 2e-3, 2e-5);
 
-    private static void CompareTransients(Circuit circuit, double duration, double step)
+    [Theory]
+    [MemberData(nameof(Circuits))]
+    public void SineResponses_EqualTheChargeStateReference(string name) =>
+        // A sine from t = 0 with a phase (a jump at the start) and a half-sine pulse: smooth inputs, taken on each piece as
+        // its start value and the midpoint secant by both paths, so the two agree although neither is exact.
+        CompareTransients(Build(name, v => new SineFunction(v, 1.7e3, 0.6)), 2e-3, 2e-5, smooth: true);
+
+    [Theory]
+    [MemberData(nameof(Circuits))]
+    public void HalfSinePulseResponses_EqualTheChargeStateReference(string name) =>
+        CompareTransients(Build(name, v => new HalfSinePulse(v, 3.3e-4, 5.1e-5)), 2e-3, 2e-5, smooth: true);
+
+    private static void CompareTransients(Circuit circuit, double duration, double step, bool smooth = false)
     {
         var analogy = CircuitAnalogy.Of(circuit);
+        // The reference leaves a source's own rate dV/dt out of the capacitor currents (and so of the source's current)
+        // where a capacitor touches a source's node: wrong while the source voltage changes (KirchhoffTests shows it
+        // against the rate of the recorded voltages), right under steps and pulses. Those currents are compared only then.
+        var held = analogy.Nodes.Skip(analogy.FreeCount).ToHashSet();
+        var sourceRate = smooth && circuit.Capacitors.Any(c => held.Contains(c.NodeA) || held.Contains(c.NodeB));
         var expected = ReferenceTransient.Run(CircuitStateSpace.Of(analogy), duration, step);
         var actual = CircuitTransient.Run(analogy, duration, step);
         NumericAssert.Close([.. expected.Times], [.. actual.Times], Tolerance.Abs(1e-15), "times");
@@ -137,6 +154,7 @@ public class EnginePathTests
         Assert.Equal(expected.Currents.Select(b => (b.Element, b.Kind)), actual.Currents.Select(b => (b.Element, b.Kind)));
         for (var b = 0; b < actual.Currents.Length; b++)
         {
+            if (sourceRate && actual.Currents[b].Kind is "capacitor" or "voltage-source") continue;
             var scale = expected.Currents[b].Amperes.Max(Math.Abs);
             NumericAssert.Close([.. expected.Currents[b].Amperes], [.. actual.Currents[b].Amperes],
                 Tolerance.Abs(Tol * Math.Max(scale, 1e-300)), $"{circuit.Title}: i({actual.Currents[b].Element})");
