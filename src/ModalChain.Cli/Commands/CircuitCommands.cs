@@ -17,7 +17,7 @@ internal static class CircuitCommands
     public static int Modes(Streams io, ModelDocument document, CircuitModel model, OutputFormat format)
     {
         if (format == OutputFormat.Csv) return NoCsv(io);
-        var roots = CircuitModes.Solve(CircuitStateSpace.Of(CircuitAnalogy.Of(model.Circuit)));
+        var roots = CircuitModes.Solve(CircuitAnalogy.Of(model.Circuit));
         if (format == OutputFormat.Json) io.WriteJson(stream => CircuitJson.WriteModes(stream, document, roots, CliApp.Version));
         else CircuitTables.WriteRoots(io.Output, model.Circuit.Title, roots);
         return ExitCodes.Success;
@@ -59,7 +59,11 @@ internal static class CircuitCommands
         if (d is null || h is null) return Fail(io, $"{document.File}: the model has no 'transient' section; add one or give --duration");
         if (h > d) return Fail(io, "--step must not be longer than --duration");
         if (d / h > 1e6) return Fail(io, "the run asks for more than 1e+06 steps (duration / step); lengthen the step or shorten the run");
-        var result = CircuitTransient.Run(CircuitStateSpace.Of(CircuitAnalogy.Of(model.Circuit)), d.Value, h.Value);
+        var analogy = CircuitAnalogy.Of(model.Circuit);
+        if (analogy.FreeCount > CircuitTransient.MaxFreeNodes)
+            return Fail(io, string.Create(CultureInfo.InvariantCulture,
+                $"{document.File}: the circuit has {analogy.FreeCount} nodes not held by a voltage source; a transient run takes at most {CircuitTransient.MaxFreeNodes} (its first-order form is dense)"));
+        var result = CircuitTransient.Run(analogy, d.Value, h.Value);
         if (format == OutputFormat.Json) io.WriteJson(stream => CircuitJson.WriteTransient(stream, document, result, CliApp.Version));
         else CircuitTables.WriteTransient(io.Output, model.Circuit.Title, result);
         return ExitCodes.Success;

@@ -128,7 +128,7 @@ public sealed class CircuitAnalogy
     /// </summary>
     /// <remarks>
     /// Node ↔ mass (kg = the node's capacitance to ground in F) or support (a node a voltage source holds), capacitor
-    /// between two nodes ↔ inerter (kg = F), inductor ↔ spring (N/m = 1/H), resistor ↔ damper (N·s/m = 1/Ω); element
+    /// between two nodes, or from a held node to ground, ↔ inerter (kg = F), inductor ↔ spring (N/m = 1/H), resistor ↔ damper (N·s/m = 1/Ω); element
     /// names are kept. Current and voltage sources are loads on this network, not part of it.
     /// </remarks>
     public Network ToNetwork()
@@ -146,8 +146,14 @@ public sealed class CircuitAnalogy
             else builder.AddNode(Nodes[i]);
         }
         for (var i = FreeCount; i < Nodes.Length; i++) builder.AddSupport(Nodes[i]);
+        var held = new HashSet<string>(Nodes.Skip(FreeCount), StringComparer.Ordinal);
         foreach (var e in Circuit.Capacitors)
+        {
             if (e.NodeA != Circuit.Ground && e.NodeB != Circuit.Ground) builder.AddInerter(e.Name, e.NodeA, e.NodeB, e.Farads);
+            // A capacitor from a source's node to ground: an inerter between that support and ground, which only the
+            // source's current (the support's reaction) feels.
+            else if (held.Contains(e.NodeA == Circuit.Ground ? e.NodeB : e.NodeA)) builder.AddInerter(e.Name, e.NodeA, e.NodeB, e.Farads);
+        }
         foreach (var e in Circuit.Inductors) builder.AddSpring(e.Name, e.NodeA, e.NodeB, 1 / e.Henries);
         foreach (var e in Circuit.Resistors) builder.AddDamper(e.Name, e.NodeA, e.NodeB, 1 / e.Ohms);
         return builder.Build();

@@ -134,4 +134,35 @@ public class CircuitCommandTests
             File.Delete(path);
         }
     }
+
+    [Fact]
+    public void Transient_RefusesACircuitAboveTheEnginesSize_WithExitCode2_WhileModesAndHarmonicRun()
+    {
+        // An RC ladder of 401 capacitor nodes behind a voltage source: 401 free nodes, one more than the dense driven
+        // first-order form takes (TransientAnalysis.ExactMethodMaxDofs = 400). The sweep (sparse engine) has no such limit.
+        const int count = 401;
+        var text = new System.Text.StringBuilder();
+        text.Append("circuit:\n  nodes: [in");
+        for (var i = 1; i <= count; i++) text.Append(CultureInfo.InvariantCulture, $", n{i}");
+        text.Append("]\n  resistors:\n");
+        for (var i = 1; i <= count; i++) text.Append(CultureInfo.InvariantCulture, $"    R{i}: {{between: [{(i == 1 ? "in" : $"n{i - 1}")}, n{i}], resistance: 10 ohm}}\n");
+        text.Append("  capacitors:\n");
+        for (var i = 1; i <= count; i++) text.Append(CultureInfo.InvariantCulture, $"    C{i}: {{between: [n{i}, ground], capacitance: 1 uF}}\n");
+        text.Append("  voltage-sources:\n    V1: {between: [in, ground], amplitude: 1 V, time: {kind: step, value: 1 V}}\n");
+        text.Append("harmonic:\n  frequencies: [1 kHz]\ntransient:\n  duration: 1 ms\n  step: 0.5 ms\n");
+        var path = Path.Combine(Path.GetTempPath(), $"modalchain-circuit-{Guid.NewGuid():N}.yaml");
+        File.WriteAllText(path, text.ToString());
+        try
+        {
+            var transient = Run("transient", path);
+            Assert.True(transient.ExitCode == 2, transient.ToString());
+            Assert.Contains("has 401 nodes not held by a voltage source; a transient run takes at most 400", transient.Stderr);
+            var harmonic = Run("harmonic", path, "--format", "json");
+            Assert.True(harmonic.ExitCode == 0, harmonic.ToString());
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
 }

@@ -39,7 +39,7 @@ public class CircuitAnalogyTests
         var p = SupportPartition.Assemble(network);
         var mechanical = ModalChain.Core.Analyses.FirstOrder.FirstOrderSystem.Build(p.Mass, p.DamperFF, p.StiffnessFF, p.Free.Label)
             .ComplexModes().Where(m => m.IsOscillatory).ToArray();
-        var circuit = CircuitModes.Solve(CircuitStateSpace.Of(analogy)).Where(r => r.Kind == CircuitRootKind.Oscillation).ToArray();
+        var circuit = CircuitModes.Solve(analogy).Where(r => r.Kind == CircuitRootKind.Oscillation).ToArray();
         Assert.Equal(mechanical.Length, circuit.Length);
         Assert.Single(circuit);
         NumericAssert.Close(mechanical[0].UndampedFrequencyHz, circuit[0].NaturalFrequencyHz, Tolerance.Rel(1e-10), "f0");
@@ -52,13 +52,14 @@ public class CircuitAnalogyTests
     {
         // Identity: circuit roots vs ComplexModes (state-space eigenproblem of M, C, K) of the analogue network. In F, H
         // and Ω of order one: with µF and mH, ComplexModes' unbalanced M⁻¹K loses ζ to 2e-10 relative (checked against a
-        // 40-digit solution of det(s²C + sG + Γ) = 0, which the circuit path matches to 1e-16).
+        // 40-digit solution of det(s²C + sG + Γ) = 0, which the circuit path, the network's first-order form balanced, matches
+        // to 1e-12: EnginePathTests.CoupledTanksInMicrofaradsAndMillihenries_RootsMatchA40DigitSolution).
         var analogy = CircuitAnalogy.Of(CircuitFixtures.CoupledTanks(normalised: true));
         var network = analogy.ToNetwork();
         var p = SupportPartition.Assemble(network);
         var mechanical = ComplexModes.Solve(D(p.Mass), D(p.StiffnessFF), D(p.DamperFF))
             .Where(m => m.IsOscillatory).OrderBy(m => m.UndampedFrequencyHz).ToArray();
-        var circuit = CircuitModes.Solve(CircuitStateSpace.Of(analogy)).Where(r => r.Kind == CircuitRootKind.Oscillation).ToArray();
+        var circuit = CircuitModes.Solve(analogy).Where(r => r.Kind == CircuitRootKind.Oscillation).ToArray();
         Assert.Equal(mechanical.Length, circuit.Length);
         Assert.Equal(2, circuit.Length);
         for (var i = 0; i < circuit.Length; i++)
@@ -76,7 +77,7 @@ public class CircuitAnalogyTests
         const double r = 50, l = 2e-3, c = 4.7e-6;
         double m = c, k = 1 / l, d = 1 / r;
         var analogy = CircuitAnalogy.Of(CircuitFixtures.ParallelRlc(r, l, c));
-        var root = CircuitModes.Solve(CircuitStateSpace.Of(analogy)).Single();
+        var root = CircuitModes.Solve(analogy).Single();
         NumericAssert.Close(Math.Sqrt(k / m) / (2 * Math.PI), root.NaturalFrequencyHz, Tolerance.Rel(1e-10), "f_n");
         NumericAssert.Close(d / (2 * Math.Sqrt(k * m)), root.DampingRatio, Tolerance.Rel(1e-10), "ζ");
 
@@ -122,8 +123,8 @@ public class CircuitAnalogyTests
         // common practice); the node voltage under a current step must be the same curve.
         const double r = 50, l = 2e-3, c = 4.7e-6, amps = 0.2;
         double m = c, k = 1 / l, d = 1 / r;
-        var space = CircuitStateSpace.Of(CircuitAnalogy.Of(CircuitFixtures.ParallelRlc(r, l, c, new StepFunction(amps, 0))));
-        var result = CircuitTransient.Run(space, 5e-3, 2.5e-5);
+        var analogy = CircuitAnalogy.Of(CircuitFixtures.ParallelRlc(r, l, c, new StepFunction(amps, 0)));
+        var result = CircuitTransient.Run(analogy, 5e-3, 2.5e-5);
         var wn = Math.Sqrt(k / m);
         var zeta = d / (2 * Math.Sqrt(k * m));
         var wd = wn * Math.Sqrt(1 - zeta * zeta);

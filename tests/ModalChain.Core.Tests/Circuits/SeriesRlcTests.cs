@@ -22,7 +22,7 @@ public class SeriesRlcTests
     [InlineData(2.0)]     // ζ = 0.01, Q = 50
     public void Roots_MatchNaturalFrequencyDampingRatioAndQ(double r)
     {
-        var roots = CircuitModes.Solve(CircuitStateSpace.Of(CircuitAnalogy.Of(CircuitFixtures.SeriesRlc(r, L, C))));
+        var roots = CircuitModes.Solve(CircuitAnalogy.Of(CircuitFixtures.SeriesRlc(r, L, C)));
         var zeta = r / 2 * Math.Sqrt(C / L);
         // The flux of 'mid' and 'out' together is free (no inductor reaches ground): one DC level, never an oscillation.
         Assert.Equal([CircuitRootKind.DcLevel, CircuitRootKind.Oscillation], roots.Select(x => x.Kind));
@@ -37,7 +37,7 @@ public class SeriesRlcTests
     public void Overdamped_GivesTwoRelaxationsWithTheClosedFormTimeConstants()
     {
         const double r = 500; // ζ = 2.5
-        var roots = CircuitModes.Solve(CircuitStateSpace.Of(CircuitAnalogy.Of(CircuitFixtures.SeriesRlc(r, L, C))));
+        var roots = CircuitModes.Solve(CircuitAnalogy.Of(CircuitFixtures.SeriesRlc(r, L, C)));
         var alpha = r / (2 * L);
         var root = Math.Sqrt(alpha * alpha - W0 * W0);
         Assert.Equal([CircuitRootKind.DcLevel, CircuitRootKind.Relaxation, CircuitRootKind.Relaxation], roots.Select(x => x.Kind));
@@ -53,7 +53,7 @@ public class SeriesRlcTests
     {
         const double v = 12;
         var circuit = CircuitFixtures.SeriesRlc(r, L, C, new StepFunction(v, 0));
-        var result = CircuitTransient.Run(CircuitStateSpace.Of(CircuitAnalogy.Of(circuit)), 2e-3, 1e-5);
+        var result = CircuitTransient.Run(CircuitAnalogy.Of(circuit), 2e-3, 1e-5);
         var alpha = r / (2 * L);
         var outIndex = result.Nodes.IndexOf("out");
         var inductor = result.Currents.Single(b => b.Element == "L1");
@@ -73,7 +73,7 @@ public class SeriesRlcTests
         // Linearity (superposition of a step at 0 and a negative step at the pulse's end): v(t) = g(t) − g(t − T).
         const double r = 20, v = 5, width = 3.37e-4; // the end lies inside a recording step
         var circuit = CircuitFixtures.SeriesRlc(r, L, C, new RectangularPulse(v, width));
-        var result = CircuitTransient.Run(CircuitStateSpace.Of(CircuitAnalogy.Of(circuit)), 1.5e-3, 2e-5);
+        var result = CircuitTransient.Run(CircuitAnalogy.Of(circuit), 1.5e-3, 2e-5);
         var alpha = r / (2 * L);
         var outIndex = result.Nodes.IndexOf("out");
         for (var k = 0; k < result.Times.Length; k++)

@@ -1,6 +1,8 @@
 using System.Collections.Immutable;
 using System.Numerics;
-using MathNet.Numerics.LinearAlgebra;
+using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Analyses.Modal;
+using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 
 namespace ModalChain.Core.Analyses.Circuits;
@@ -15,17 +17,21 @@ namespace ModalChain.Core.Analyses.Circuits;
 public sealed record CircuitSourceResponse(string Source, bool IsVoltageSource, ImmutableArray<double> FrequenciesHz,
     ImmutableArray<Complex> Impedance, ImmutableArray<string> Nodes, ImmutableArray<ImmutableArray<Complex>> Transfer);
 
-/// <summary>Driving-point impedances and transfer functions of a circuit by a complex solve at each frequency.</summary>
+/// <summary>Driving-point impedances and transfer functions of a circuit, by the harmonic analysis of its analogue network.</summary>
 /// <remarks>
-/// With every source but one switched off (voltage sources shorted, current sources open), the node flux phasors solve
-/// (Γ + iωG − ω²C)_ff Λ_f = I_f − (Γ + iωG − ω²C)_fp Λ_p with Λ_p = ±V/(iω) at the node the driving voltage source
-/// holds; node voltages are iωΛ. The current a voltage source delivers is the current balance of its node,
-/// (Γ + iωG − ω²C)_p· Λ. Massless nodes need nothing special here. One dense LU per frequency.
+/// The circuit's analogue network (<see cref="CircuitAnalogy.ToNetwork"/>) is swept by
+/// <see cref="HarmonicAnalysis.Sweep"/> with the direct method, one source at a time (the others switched off: voltage
+/// sources shorted, as their supports stand still, current sources open). A voltage source is the harmonic motion of
+/// its support at unit velocity (<see cref="BaseMotionKind.Velocity"/>); the current it delivers is the force its
+/// support exerts on the network, minus the reaction the sweep reports. A current source is a unit force into its To
+/// node and the opposite force at its From node. A node voltage is the velocity iωX of its node. The direct solve of
+/// K − ω²M + iωC needs no mode and takes massless nodes as they are; the sparse complex LDLᵀ runs when a node has no
+/// capacitor, so no size limit applies beyond the sweep's own.
 /// </remarks>
 public static class CircuitFrequencyResponse
 {
     /// <summary>The response to each source of the circuit, alone, at <paramref name="frequenciesHz"/> (each positive).</summary>
-    /// <exception cref="NumericalFailureException">The circuit matrix is singular at a frequency (a lossless resonance hit exactly).</exception>
+    /// <exception cref="NumericalFailureException">The dynamic stiffness is singular at a frequency (a lossless resonance hit exactly).</exception>
     public static ImmutableArray<CircuitSourceResponse> Solve(CircuitAnalogy analogy, IReadOnlyList<double> frequenciesHz)
     {
         ArgumentNullException.ThrowIfNull(analogy);
@@ -33,69 +39,67 @@ public static class CircuitFrequencyResponse
         foreach (var f in frequenciesHz)
             if (!(f > 0) || !double.IsFinite(f)) throw new ArgumentOutOfRangeException(nameof(frequenciesHz), f, "Frequencies must be positive and finite.");
         var circuit = analogy.Circuit;
-        var order = circuit.Nodes.Select(analogy.IndexOf).ToArray();
+        if (circuit.VoltageSources.IsEmpty && circuit.CurrentSources.IsEmpty) return [];
+        var network = analogy.ToNetwork();
+        // A direct sweep solves the dynamic stiffness and reads no mode: none is solved.
+        var modes = new ModalResult(network, Assembler.Assemble(network), [], 0, new ModalQuality(0, 0), "none (a direct sweep needs no modes)");
+        var system = DampedSystem.Build(new StructuralModel(network, DampingModel.None, []), modes);
+        var free = analogy.Nodes.Take(analogy.FreeCount).ToImmutableArray();
         var responses = new List<CircuitSourceResponse>();
         for (var s = 0; s < circuit.VoltageSources.Length; s++)
-            responses.Add(Sweep(analogy, frequenciesHz, order, circuit.VoltageSources[s].Name, true, s));
+        {
+            var (node, sign) = analogy.VoltageSourceNodes[s];
+            var support = analogy.Nodes[node];
+            var load = new BaseMotionLoad(circuit.VoltageSources[s].Name, support, BaseMotionKind.Velocity, 1, 0);
+            var result = Sweep(system, frequenciesHz, [load], free);
+            var reaction = result.Reactions.Single(r => r.Support == support).Force;
+            // The sweep moved the node at +1 V; the source holds it at sign·1 V, and its current out of + is sign times the
+            // node's current into the circuit: Z = 1/(sign · sign · i₊) = 1/i₊ with i₊ = −reaction.
+            var impedance = reaction.Select(r => 1 / -r).ToArray();
+            responses.Add(Response(analogy, circuit.VoltageSources[s].Name, true, frequenciesHz, free, result,
+                impedance, held => held == node ? sign : 0, sign));
+        }
         for (var s = 0; s < circuit.CurrentSources.Length; s++)
-            responses.Add(Sweep(analogy, frequenciesHz, order, circuit.CurrentSources[s].Name, false, s));
+        {
+            var source = circuit.CurrentSources[s];
+            var loads = new List<Load>();
+            // A current into a node a voltage source holds flows into that source and moves nothing.
+            if (free.Contains(source.To)) loads.Add(new ForceLoad(source.Name + ":to", source.To, 1, 0));
+            if (free.Contains(source.From)) loads.Add(new ForceLoad(source.Name + ":from", source.From, 1, Math.PI));
+            var result = Sweep(system, frequenciesHz, loads, free);
+            var response = Response(analogy, source.Name, false, frequenciesHz, free, result, null, _ => 0, 1);
+            var to = source.To == Circuit.Ground ? -1 : response.Nodes.IndexOf(source.To);
+            var from = source.From == Circuit.Ground ? -1 : response.Nodes.IndexOf(source.From);
+            var impedance = response.Transfer.Select(v => (to >= 0 ? v[to] : Complex.Zero) - (from >= 0 ? v[from] : Complex.Zero)).ToImmutableArray();
+            responses.Add(response with { Impedance = impedance });
+        }
         return [.. responses];
     }
 
-    private static CircuitSourceResponse Sweep(CircuitAnalogy analogy, IReadOnlyList<double> frequencies, int[] order,
-        string name, bool voltage, int source)
+    private static HarmonicResult Sweep(DampedSystem system, IReadOnlyList<double> frequenciesHz, IReadOnlyList<Load> loads, ImmutableArray<string> free)
     {
-        var n = analogy.Nodes.Length;
-        var free = analogy.FreeCount;
-        var impedance = new Complex[frequencies.Count];
+        if (loads.Count > 0) return HarmonicAnalysis.Sweep(system, frequenciesHz, loads, free, HarmonicMethod.Direct);
+        // Nothing moves: a current source whose both ends a voltage source holds or ground.
+        var zero = ImmutableArray.Create(new Complex[frequenciesHz.Count]);
+        return new HarmonicResult([.. frequenciesHz], HarmonicMethod.Direct, 0, [], [.. free.Select(n => new DofResponse(n, zero))], [], [], [], [], []);
+    }
+
+    // Node voltages iωX of the free nodes; a held node is at held(index) volts (the driving source's, or 0).
+    private static CircuitSourceResponse Response(CircuitAnalogy analogy, string name, bool voltage, IReadOnlyList<double> frequencies,
+        ImmutableArray<string> free, HarmonicResult result, Complex[]? impedance, Func<int, double> held, double sign)
+    {
+        var circuit = analogy.Circuit;
+        var column = free.Select(n => result.Responses.Single(r => r.Dof == n).Displacement).ToArray();
         var transfer = new ImmutableArray<Complex>[frequencies.Count];
         for (var k = 0; k < frequencies.Count; k++)
         {
-            var w = 2 * Math.PI * frequencies[k];
-            var iw = new Complex(0, w);
-            var a = Matrix<Complex>.Build.Dense(n, n, (i, j) =>
-                new Complex(analogy.InverseInductance[i, j] - w * w * analogy.Capacitance[i, j], w * analogy.Conductance[i, j]));
-            var flux = new Complex[n];
-            int heldNode = -1, sign = 1;
-            if (voltage)
+            var iw = new Complex(0, 2 * Math.PI * frequencies[k]);
+            transfer[k] = [.. circuit.Nodes.Select(node =>
             {
-                (heldNode, sign) = analogy.VoltageSourceNodes[source];
-                flux[heldNode] = sign / iw;
-            }
-            var rhs = MathNet.Numerics.LinearAlgebra.Vector<Complex>.Build.Dense(free);
-            if (!voltage)
-            {
-                var cs = analogy.Circuit.CurrentSources[source];
-                if (cs.To != Circuit.Ground) rhs[analogy.IndexOf(cs.To)] += 1;
-                if (cs.From != Circuit.Ground) rhs[analogy.IndexOf(cs.From)] -= 1;
-            }
-            else
-            {
-                for (var i = 0; i < free; i++) rhs[i] -= a[i, heldNode] * flux[heldNode];
-            }
-            if (free > 0)
-            {
-                var aff = a.SubMatrix(0, free, 0, free);
-                var solved = aff.LU().Solve(rhs);
-                if (solved.Any(v => !double.IsFinite(v.Real) || !double.IsFinite(v.Imaginary)))
-                    throw new NumericalFailureException($"The circuit matrix is singular at {frequencies[k].ToString("G6", System.Globalization.CultureInfo.InvariantCulture)} Hz (a lossless resonance).");
-                for (var i = 0; i < free; i++) flux[i] = solved[i];
-            }
-            var volts = flux.Select(l => iw * l).ToArray();
-            if (voltage)
-            {
-                var delivered = Complex.Zero;
-                for (var j = 0; j < n; j++) delivered += a[heldNode, j] * flux[j];
-                impedance[k] = 1 / (sign * delivered);
-            }
-            else
-            {
-                var cs = analogy.Circuit.CurrentSources[source];
-                Complex At(string node) => node == Circuit.Ground ? Complex.Zero : volts[analogy.IndexOf(node)];
-                impedance[k] = At(cs.To) - At(cs.From);
-            }
-            transfer[k] = [.. order.Select(i => volts[i])];
+                var i = analogy.IndexOf(node);
+                return i < analogy.FreeCount ? sign * iw * column[i][k] : (Complex)held(i);
+            })];
         }
-        return new CircuitSourceResponse(name, voltage, [.. frequencies], [.. impedance], analogy.Circuit.Nodes, [.. transfer]);
+        return new CircuitSourceResponse(name, voltage, [.. frequencies], impedance is null ? [] : [.. impedance], circuit.Nodes, [.. transfer]);
     }
 }

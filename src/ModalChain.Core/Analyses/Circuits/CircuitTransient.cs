@@ -1,7 +1,7 @@
 using System.Collections.Immutable;
-using MathNet.Numerics.LinearAlgebra;
+using ModalChain.Core.Analyses.FirstOrder;
+using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
-using ModalChain.Core.Solvers;
 
 namespace ModalChain.Core.Analyses.Circuits;
 
@@ -19,157 +19,150 @@ public sealed record CircuitBranchHistory(string Element, string Kind, Immutable
 public sealed record CircuitTransientResult(ImmutableArray<double> Times, ImmutableArray<string> Nodes,
     ImmutableArray<ImmutableArray<double>> Volts, ImmutableArray<CircuitBranchHistory> Currents);
 
-/// <summary>Step, pulse and other responses of a circuit, by the exact solution of ẋ = F x + B u over each step.</summary>
+/// <summary>Step, pulse and other responses of a circuit, by the exact time integration of its analogue network.</summary>
 /// <remarks>
-/// Over a piece [a, b] of length τ on which the inputs are linear, x(b) = Φ x(a) + Γ₀ u(a) + Γ₁ (u(b) − u(a))/τ, where
-/// Φ, Γ₀ and Γ₁ are blocks of the exponential of [[F, B, 0], [0, 0, I], [0, 0, 0]]·τ (Van Loan, "Computing integrals
-/// involving the matrix exponential", IEEE Trans. Automatic Control 23 (1978) 395–404; <see cref="MatrixExponential"/>).
-/// Each step is cut at the sources' breakpoints (a step's instant, a pulse's ends), so steps, ramps and rectangular
-/// pulses are followed exactly whatever the time step; smooth waveforms (sine, half-sine) are taken as linear between
-/// the piece's start and its midpoint's secant, second order in the step. The circuit starts at rest: capacitors
-/// uncharged, no current in the inductors. The Dirac impulse of capacitor current at the instant a source voltage
-/// jumps is not shown (it carries the charge the jump needs; the recorded values are those just after it).
+/// The circuit's analogue network (<see cref="CircuitAnalogy.ToNetwork"/>) runs in its first-order form driven by its
+/// supports and forces (<see cref="DrivenFirstOrderSystem"/>): each voltage source moves its node's support at the
+/// velocity ±V(t) (+ when the node is its + terminal), each current source is a force I(t) into its To node and −I(t)
+/// at its From node. The inputs are followed exactly on pieces cut at their breakpoints (steps, ramps and rectangular
+/// pulses whatever the time step; smooth waveforms second order in the step). Branch currents are element forces: a
+/// resistor's is its damper's force (v_A − v_B)/R, an inductor's its spring's force (λ_A − λ_B)/L, a capacitor's its
+/// inerter's force C(v̇_A − v̇_B); a voltage source's is the force its support exerts on the network (its reaction with
+/// the sign turned, less any current a current source delivers into that node). The circuit starts at rest: capacitors
+/// uncharged, no current in the inductors. Where a source voltage jumps, a capacitor at its node passes a Dirac impulse
+/// of current (the charge the jump needs); it is not shown, and the recorded values are those just after it. At most
+/// <see cref="MaxFreeNodes"/> nodes not held by a voltage source (the dense first-order form).
 /// </remarks>
 public static class CircuitTransient
 {
-    /// <summary>Runs the circuit from rest for <paramref name="duration"/> s with recording step <paramref name="step"/> s.</summary>
-    public static CircuitTransientResult Run(CircuitStateSpace space, double duration, double step)
+    /// <summary>Largest number of free nodes (nodes not held by a voltage source) a transient run takes.</summary>
+    public const int MaxFreeNodes = Transient.TransientAnalysis.ExactMethodMaxDofs;
+
+    /// <summary>Runs the circuit <paramref name="analogy"/> maps from rest for <paramref name="duration"/> s with recording step <paramref name="step"/> s.</summary>
+    /// <exception cref="NumericalFailureException">The first-order form cannot be built, or the circuit has more than <see cref="MaxFreeNodes"/> free nodes.</exception>
+    public static CircuitTransientResult Run(CircuitAnalogy analogy, double duration, double step)
     {
-        ArgumentNullException.ThrowIfNull(space);
+        ArgumentNullException.ThrowIfNull(analogy);
         if (!(duration > 0) || !double.IsFinite(duration)) throw new ArgumentOutOfRangeException(nameof(duration));
         if (!(step > 0) || !(step <= duration)) throw new ArgumentOutOfRangeException(nameof(step));
-        var circuit = space.Analogy.Circuit;
-        var waveforms = circuit.VoltageSources.Select(v => v.Waveform).Concat(circuit.CurrentSources.Select(c => c.Waveform)).ToArray();
+        var circuit = analogy.Circuit;
+        var network = analogy.ToNetwork();
+        var partition = SupportPartition.Assemble(network);
+        var n = partition.FreeCount;
+        var supports = circuit.VoltageSources.Select((_, s) => analogy.Nodes[analogy.VoltageSourceNodes[s].Node]).ToArray();
+        var forces = circuit.CurrentSources.Select(source =>
+        {
+            var f = new double[n];
+            if (partition.Free.IndexOf(source.To) is var to and >= 0) f[to] += 1;
+            if (partition.Free.IndexOf(source.From) is var from and >= 0) f[from] -= 1;
+            return f;
+        }).ToArray();
+        var driven = DrivenFirstOrderSystem.Build(partition, supports, forces);
+        TimeFunction?[] inputs =
+        [
+            .. circuit.VoltageSources.Select((v, s) => analogy.VoltageSourceNodes[s].Sign > 0 || v.Waveform is null ? v.Waveform : new Negated(v.Waveform)),
+            .. circuit.CurrentSources.Select(c => c.Waveform),
+        ];
         var count = (int)Math.Ceiling(duration / step - 1e-9);
-        var breakpoints = waveforms.Where(w => w is not null).SelectMany(w => w!.Breakpoints)
-            .Where(t => t > 0 && t < count * step).Distinct().Order().ToArray();
-
-        var n = space.StateCount;
-        var nu = space.InputCount;
-        var full = Discretise(space, step);
-        var x = Vector<double>.Build.Dense(n);
-        var u = Vector<double>.Build.Dense(nu);
-        var times = new double[count + 1];
-        var recorder = new Recorder(space, count + 1);
-        Inputs(waveforms, 0, u);
-        recorder.Record(0, x, u);
-        var next = 0;
-        for (var k = 0; k < count; k++)
-        {
-            double a = k * step, b = (k + 1) * step;
-            times[k + 1] = b;
-            var start = a;
-            while (next < breakpoints.Length && breakpoints[next] <= start) next++;
-            var cuts = new List<double>();
-            while (next < breakpoints.Length && breakpoints[next] < b - 1e-12 * step) cuts.Add(breakpoints[next++]);
-            cuts.Add(b);
-            foreach (var end in cuts)
-            {
-                var d = cuts.Count == 1 ? full : Discretise(space, end - start);
-                x = Advance(d, x, waveforms, start, end, nu);
-                start = end;
-            }
-            Inputs(waveforms, b, u);
-            recorder.Record(k + 1, x, u);
-        }
-        return recorder.Result([.. times]);
+        var recorder = new Recorder(analogy, partition, count + 1);
+        driven.Run(inputs, duration, step, recorder.Accept);
+        return recorder.Result();
     }
 
-    private sealed record Discrete(Matrix<double> Phi, Matrix<double> Gamma0, Matrix<double> Gamma1, double Length);
-
-    private static Discrete Discretise(CircuitStateSpace space, double tau)
+    /// <summary>A waveform with its sign turned (a voltage source whose − terminal holds the node).</summary>
+    private sealed record Negated(TimeFunction Inner) : TimeFunction
     {
-        int n = space.StateCount, nu = space.InputCount;
-        var big = Matrix<double>.Build.Dense(n + 2 * nu, n + 2 * nu);
-        big.SetSubMatrix(0, 0, space.System * tau);
-        big.SetSubMatrix(0, n, space.Input * tau);
-        for (var i = 0; i < nu; i++) big[n + i, n + nu + i] = 1; // u̇ = Δu/τ: the third block multiplies the change Δu
-        var e = MatrixExponential.Compute(big);
-        return new Discrete(e.SubMatrix(0, n, 0, n), e.SubMatrix(0, n, n, nu), e.SubMatrix(0, n, n + nu, nu), tau);
-    }
+        public override double ValueAt(double time) => -Inner.ValueAt(time);
 
-    // u(t) = u_a + (t − a)/τ·Δu on the piece, Δu the secant through the midpoint (exact for a linear piece).
-    private static Vector<double> Advance(Discrete d, Vector<double> x, TimeFunction?[] waveforms, double a, double b, int nu)
-    {
-        var ua = Vector<double>.Build.Dense(nu);
-        var change = Vector<double>.Build.Dense(nu);
-        for (var i = 0; i < nu; i++)
-        {
-            if (waveforms[i] is not { } f) continue;
-            var start = f.ValueAt(a);
-            ua[i] = start;
-            change[i] = 2 * (f.ValueAt(0.5 * (a + b)) - start);
-        }
-        return d.Phi * x + d.Gamma0 * ua + d.Gamma1 * change;
-    }
-
-    private static void Inputs(TimeFunction?[] waveforms, double t, Vector<double> u)
-    {
-        for (var i = 0; i < waveforms.Length; i++) u[i] = waveforms[i]?.ValueAt(t) ?? 0;
+        public override IEnumerable<double> Breakpoints => Inner.Breakpoints;
     }
 
     private sealed class Recorder
     {
-        private readonly CircuitStateSpace _space;
-        private readonly int[] _order;
+        private readonly CircuitAnalogy _analogy;
+        private readonly SupportPartition _partition;
+        private readonly double[] _times;
         private readonly double[][] _volts;
-        private readonly List<(string Name, string Kind, Func<Vector<double>, Vector<double>, Vector<double>, double> Current)> _branches = [];
+        private readonly List<(string Name, string Kind, Func<DrivenSample, double> Current)> _branches = [];
         private readonly double[][] _currents;
 
-        public Recorder(CircuitStateSpace space, int samples)
+        public Recorder(CircuitAnalogy analogy, SupportPartition partition, int samples)
         {
-            _space = space;
-            var analogy = space.Analogy;
+            _analogy = analogy;
+            _partition = partition;
             var circuit = analogy.Circuit;
-            _order = [.. circuit.Nodes.Select(analogy.IndexOf)];
-            _volts = [.. _order.Select(_ => new double[samples])];
-            int At(string node) => node == Circuit.Ground ? -1 : analogy.IndexOf(node);
-            double Of(Vector<double> values, int i) => i < 0 ? 0 : values[i];
+            _times = new double[samples];
+            _volts = [.. circuit.Nodes.Select(_ => new double[samples])];
+            var p = partition;
+            // A node's displacement (flux), velocity (voltage) or acceleration (voltage rate): a free DOF or a support.
+            Func<DrivenSample, double> Of(string node, Func<DrivenSample, double[]> free, Func<DrivenSample, double[]> held)
+            {
+                if (p.Free.IndexOf(node) is var i and >= 0) return x => free(x)[i];
+                var s = p.SupportIndex(node);
+                return x => held(x)[s];
+            }
+            Func<DrivenSample, double> Flux(string node) => Of(node, x => x.Displacement, x => x.SupportDisplacement);
+            Func<DrivenSample, double> Volts(string node) => Of(node, x => x.Velocity, x => x.SupportVelocity);
+            Func<DrivenSample, double> Rate(string node) => Of(node, x => x.Acceleration, x => x.SupportAcceleration);
             foreach (var r in circuit.Resistors)
             {
-                var (a, b) = (At(r.NodeA), At(r.NodeB));
-                _branches.Add((r.Name, "resistor", (_, v, _) => (Of(v, a) - Of(v, b)) / r.Ohms));
+                var (a, b) = (Volts(r.NodeA), Volts(r.NodeB));
+                _branches.Add((r.Name, "resistor", x => (a(x) - b(x)) / r.Ohms));
             }
             foreach (var l in circuit.Inductors)
             {
-                var (a, b) = (At(l.NodeA), At(l.NodeB));
-                _branches.Add((l.Name, "inductor", (lambda, _, _) => (Of(lambda, a) - Of(lambda, b)) / l.Henries));
+                var (a, b) = (Flux(l.NodeA), Flux(l.NodeB));
+                _branches.Add((l.Name, "inductor", x => (a(x) - b(x)) / l.Henries));
             }
             foreach (var c in circuit.Capacitors)
             {
-                var (a, b) = (At(c.NodeA), At(c.NodeB));
-                _branches.Add((c.Name, "capacitor", (_, _, dv) => c.Farads * (Of(dv, a) - Of(dv, b))));
+                var (a, b) = (Rate(c.NodeA), Rate(c.NodeB));
+                _branches.Add((c.Name, "capacitor", x => c.Farads * (a(x) - b(x))));
             }
-            for (var s = 0; s < circuit.VoltageSources.Length; s++)
+            var nv = circuit.VoltageSources.Length;
+            for (var s = 0; s < nv; s++)
             {
                 var (node, sign) = analogy.VoltageSourceNodes[s];
-                var row = s;
-                _branches.Add((circuit.VoltageSources[s].Name, "voltage-source", (lambda, v, dv) =>
+                var column = p.SupportIndex(analogy.Nodes[node]);
+                var name = analogy.Nodes[node];
+                // Current sources into this node, with their input numbers and directions.
+                var injected = circuit.CurrentSources.Select((c, j) => (Input: nv + j, Sign: (c.To == name ? 1 : 0) - (c.From == name ? 1 : 0)))
+                    .Where(e => e.Sign != 0).ToArray();
+                _branches.Add((circuit.VoltageSources[s].Name, "voltage-source", x =>
                 {
+                    // The current the node passes into the elements, M_pf ẍ + C_pf ẋ + K_pf x + M_pp a_p + C_pp v_p + K_pp x_p
+                    // (minus the reaction the support receives), less the current sources' share.
                     var balance = 0.0;
-                    for (var j = 0; j < lambda.Count; j++)
-                        balance += analogy.Capacitance[node, j] * dv[j] + analogy.Conductance[node, j] * v[j] + analogy.InverseInductance[node, j] * lambda[j];
-                    return sign * (balance - _current![node]);
+                    for (var i = 0; i < p.FreeCount; i++)
+                    {
+                        var m = p.MassFP[i, column];
+                        balance += p.StiffnessFP[i, column] * x.Displacement[i] + p.DamperFP[i, column] * x.Velocity[i]
+                            + (m != 0 ? m * x.Acceleration[i] : 0);
+                    }
+                    for (var t = 0; t < p.SupportCount; t++)
+                        balance += p.StiffnessPP[column, t] * x.SupportDisplacement[t] + p.DamperPP[column, t] * x.SupportVelocity[t]
+                            + p.MassPP[column, t] * x.SupportAcceleration[t];
+                    foreach (var (input, direction) in injected) balance -= direction * x.Inputs[input];
+                    return sign * balance;
                 }));
             }
             _currents = [.. _branches.Select(_ => new double[samples])];
         }
 
-        private Vector<double>? _current;
-
-        public void Record(int k, Vector<double> x, Vector<double> u)
+        public void Accept(int index, double time, DrivenSample sample)
         {
-            var lambda = _space.Flux * x;
-            var v = _space.Voltage * x + _space.VoltageInput * u;
-            // Node voltage rates from ẋ = F x + B u; the source's own jumps (impulses) are left out.
-            var dv = _space.Voltage * (_space.System * x + _space.Input * u);
-            _current = _space.Injection * u;
-            for (var i = 0; i < _order.Length; i++) _volts[i][k] = v[_order[i]];
-            for (var b = 0; b < _branches.Count; b++) _currents[b][k] = _branches[b].Current(lambda, v, dv);
+            _times[index] = time;
+            var nodes = _analogy.Circuit.Nodes;
+            for (var j = 0; j < nodes.Length; j++)
+            {
+                var i = _partition.Free.IndexOf(nodes[j]);
+                _volts[j][index] = i >= 0 ? sample.Velocity[i] : sample.SupportVelocity[_partition.SupportIndex(nodes[j])];
+            }
+            for (var b = 0; b < _branches.Count; b++) _currents[b][index] = _branches[b].Current(sample);
         }
 
-        public CircuitTransientResult Result(ImmutableArray<double> times) =>
-            new(times, _space.Analogy.Circuit.Nodes, [.. _volts.Select(h => h.ToImmutableArray())],
+        public CircuitTransientResult Result() =>
+            new([.. _times], _analogy.Circuit.Nodes, [.. _volts.Select(h => h.ToImmutableArray())],
                 [.. _branches.Select((b, i) => new CircuitBranchHistory(b.Name, b.Kind, [.. _currents[i]]))]);
     }
 }
