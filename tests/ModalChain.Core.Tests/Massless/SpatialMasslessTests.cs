@@ -46,7 +46,7 @@ public class SpatialMasslessTests
     {
         // Closed form (docs/methods.md "Massless nodes and mounts"): a mass m on one Maxwell element (spring k, damper c)
         // has s(m c s² + m k s + k c) = 0. With the centre of mass in the plane of four symmetric mounts the bounce is
-        // decoupled by symmetry (REFERENCES.md: vertical decoupling of a symmetric mount layout, common practice), the four
+        // decoupled by symmetry (a symmetric mount layout in the plane of the centre of mass: common practice), the four
         // inner nodes move alike, and the mounts act as one of spring 4k and damper 4c: the bounce roots are those of
         // m·4c s² + m·4k s + 4k·4c. The same roots must come from the line model of that one element.
         var c = kz * tau;
