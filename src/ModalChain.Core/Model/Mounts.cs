@@ -59,7 +59,10 @@ public sealed record Mount(string Name, MountKind Kind, string NodeA, string Nod
 /// NodeA to the inner node) and the damper <c>M~damper</c> (c = kτ, from the inner node to NodeB); for the standard
 /// linear solid, the spring <c>M~long-term</c> (k1, NodeA to NodeB), the spring <c>M~series</c> (k2 = Δk1, NodeA to
 /// the inner node) and the damper <c>M~damper</c> (c = k2τ, inner node to NodeB). The '~' cannot appear in a name
-/// written in a model file, so the expansion never clashes with the user's names.
+/// written in a model file, so the expansion never clashes with the user's names. In a plane or 3d model
+/// (<see cref="Mount.Components"/> given) the inner node is a point at <see cref="Mount.InnerLocation"/> moving in the
+/// translations of the components, and each element carries one component per translation (its value times τ for the
+/// damper, times Δ for the branch spring).
 /// </remarks>
 public static class MountExpansion
 {

@@ -97,7 +97,9 @@ internal static class MasslessModes
         var wanted = Math.Clamp(options.Count ?? nk, 1, nk);
         double? limit = options.BelowFrequencyHz is { } below ? Math.Pow(2 * Math.PI * below, 2) : null;
         var solver = options.Solver ?? Solvers.GeneralizedEigen.Choose(nk, limit is null ? wanted : nk, options.Choice, (long)nk * nk);
-        var reduced = solver.Solve(condensation.Stiffness, mass, limit is null ? wanted : nk, diagonal);
+        var reduced = limit is { } below2 && solver is Solvers.ShiftInvertLanczos lanczos
+            ? lanczos.SolveBelow(condensation.Stiffness, mass, below2, options.Count)
+            : solver.Solve(condensation.Stiffness, mass, limit is null ? wanted : nk, diagonal);
         var count = limit is { } l ? Math.Min(wanted, reduced.EigenValues.Count(v => v < l)) : reduced.Count;
         var shapes = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(n, count);
         for (var j = 0; j < count; j++)
