@@ -80,5 +80,10 @@ public class SpatialMountCommandTests
         Assert.True(largest > 0, "the knock reaches the mount");
         for (var i = 0; i < spring.Length; i++)
             Assert.True(Math.Abs(spring[i] - damper[i]) <= 1e-8 * largest, $"step {i}: {spring[i]} against {damper[i]}");
+        // The knock's energy is ½ m v² = ½ · 420 kg · (20 mm/s)² = 0.084 J (closed form); the balance E₀ + W = T + V + D over
+        // every DOF, the massless ones included, closes (common practice: the library warns at 1 %).
+        var energy = json.RootElement.GetProperty("energy");
+        Assert.True(Math.Abs(energy.GetProperty("initial_j").GetDouble() - 0.5 * 420 * 0.02 * 0.02) <= 1e-12, energy.ToString());
+        Assert.True(energy.GetProperty("max_relative_error").GetDouble() < 5e-3, energy.ToString());
     }
 }
