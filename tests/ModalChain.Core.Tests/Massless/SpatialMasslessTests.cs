@@ -209,6 +209,54 @@ public class SpatialMasslessTests
         Assert.True(modes.Quality.MaxResidual < 1e-10, $"residual {modes.Quality.MaxResidual}");
     }
 
+    [Fact]
+    public void SpringOnlyMasslessJoints_ModalAndDirectHarmonicAndTransient_Agree()
+    {
+        // Identity: with modal damping C = MΦ diag(2ζω) ΦᵀM has zero rows at the massless joints, so they stay static
+        // (no first-order state) and the modal method runs on the condensed modes. Modal superposition of every mode
+        // and the direct solve (harmonic), and modal superposition and the exact state-space integration (transient),
+        // solve the same equations and must agree.
+        var builder = new NetworkBuilder { Space = ModelSpace.ThreeD };
+        var feet = new[] { (1, 1), (1, -1), (-1, 1), (-1, -1) }.Select(c => new Point3(c.Item1 * 0.8, c.Item2 * 0.5, -0.4)).ToArray();
+        builder.AddBody(new RigidBody("block", 1200, new Point3(0, 0, 0), InertiaMatrix.OfBox(1200, 2.0, 1.2, 1.0),
+            [.. feet.Select((p, i) => new BodyPoint($"foot-{i + 1}", p))]));
+        for (var i = 0; i < 4; i++)
+        {
+            builder.AddMass(new Mass($"joint-{i + 1}", 0) { Location = feet[i] with { Z = -0.5 } });
+            builder.AddSpring(new Spring($"upper-{i + 1}", $"block.foot-{i + 1}", $"joint-{i + 1}", 9e5)
+            { Components = [K(Direction.X, 3e5), K(Direction.Y, 3e5), K(Direction.Z, 9e5)] });
+            builder.AddSpring(new Spring($"lower-{i + 1}", $"joint-{i + 1}", Network.Ground, 1.8e6)
+            { Components = [K(Direction.X, 6e5), K(Direction.Y, 6e5), K(Direction.Z, 1.8e6)] });
+        }
+        var network = builder.Build();
+        var force = new ForceLoad("f", "block.foot-1", 1, 0) { Direction = Direction.Z };
+        var system = DampedSystem.Build(new StructuralModel(network, DampingModel.Modal(0.03), [force]));
+        Assert.False(system.HasFirstOrderStates);
+
+        double[] frequencies = [2, 5, 8, 11, 14, 20];
+        string[] outputs = ["block", "joint-1"];
+        var direct = HarmonicAnalysis.Sweep(system, frequencies, [force], outputs, HarmonicMethod.Direct);
+        var modal = HarmonicAnalysis.Sweep(system, frequencies, [force], outputs, HarmonicMethod.Modal);
+        var largest = direct.Responses.Max(r => r.Displacement.Max(x => x.Magnitude));
+        foreach (var r in direct.Responses)
+            for (var i = 0; i < frequencies.Length; i++)
+                NumericAssert.Small((modal.ResponseOf(r.Dof)!.Displacement[i] - r.Displacement[i]).Magnitude, 1e-9 * largest, $"{r.Dof} at {frequencies[i]} Hz");
+
+        var step = new StepFunction(800, 0);
+        ForceHistory Push() => new("push", "block.foot-1", 1, step) { Direction = Direction.Z };
+        var exact = TransientAnalysis.Run(system, [Push()], [], new TransientSettings(0.5, 1e-3, TransientMethod.Exact));
+        var superposed = TransientAnalysis.Run(system, [Push()], [], new TransientSettings(0.5, 1e-3, TransientMethod.Modal));
+        Assert.Contains("first-order form", exact.MethodDescription, StringComparison.Ordinal);
+        foreach (var o in new[] { "block.z", "block.ry", "joint-1.z" })
+        {
+            var e = exact.Get(o, ResponseQuantity.Displacement).Values;
+            var m = superposed.Get(o, ResponseQuantity.Displacement).Values;
+            var scale = e.Max(Math.Abs);
+            for (var s = 0; s < e.Length; s++)
+                NumericAssert.Small(Math.Abs(m[s] - e[s]), 1e-6 * scale, $"{o} at step {s}");
+        }
+    }
+
     /// <summary>
     /// The same chain in a plane model (everything moving in z only) and in a line model: a massless joint between two
     /// springs under m1, a standard-linear-solid mount under m1 and a Maxwell mount between m2 and ground.
