@@ -43,11 +43,11 @@ public sealed record DampedSystem(
     public bool IsClassical => NonClassicalIndex < ClassicalTolerance;
 
     /// <summary>
-    /// True when a massless DOF is touched by viscous damping (a line model with a Maxwell element, say): it is then a
+    /// True when a massless DOF is touched by viscous damping (a model with a Maxwell element, say): it is then a
     /// first-order state, the undamped modes condense it through its springs only, and only the complex modes
     /// (<see cref="Analyses.Modal.ComplexModes"/>) describe the damped system, however classical Φᵀ C Φ looks.
     /// </summary>
-    public bool HasFirstOrderStates => Model.Network.Space == ModelSpace.Line && Model.Network.Masses.Any(m => m.Kilograms == 0)
+    public bool HasFirstOrderStates => Model.Network.Masses.Any(m => m.Kilograms == 0)
         && MasslessReduction.Classify(Partition.Mass, Damping.FF).HasFirstOrderStates;
 
     /// <summary>True when the model has any viscous damping at all.</summary>

@@ -220,7 +220,8 @@ public static class DampingAssembly
         var rt = a0 * mt;
         if (modal)
         {
-            if (modes.Modes.Length != partition.FreeCount)
+            // Every mode there is: one per inertial DOF when massless DOFs were condensed (ModeCountAvailable), as in Build.
+            if (modes.Modes.Length != modes.ModeCountAvailable || modes.Matrices.Size != partition.FreeCount)
                 throw new ArgumentException("Modal damping needs every mode of the network.", nameof(modes));
             var phi = Shapes(modes);
             var w = phi.TransposeThisAndMultiply(mt);

@@ -1,3 +1,5 @@
+using System.Collections.Immutable;
+
 namespace ModalChain.Core.Model;
 
 /// <summary>The viscoelastic mount models that expand into springs, a damper and a massless inner node.</summary>
@@ -23,6 +25,20 @@ public enum MountKind
 /// <param name="RelaxationStrength">Δ = k2/k1 (dimensionless, positive) for the standard linear solid; 0 for Maxwell.</param>
 public sealed record Mount(string Name, MountKind Kind, string NodeA, string NodeB, double Stiffness, double RelaxationTime, double RelaxationStrength = 0)
 {
+    /// <summary>
+    /// Plane and 3d models: the stiffness per global translation (N/m; the Maxwell spring, or the standard linear solid's
+    /// long-term spring), each positive; <see cref="Stiffness"/> is then the largest of them. Empty in line models.
+    /// </summary>
+    /// <remarks>
+    /// One <see cref="RelaxationTime"/> and one <see cref="RelaxationStrength"/> hold in every direction: they describe
+    /// the elastomer (its creep and how much stiffer it is when fast), while the shape of the mount sets the stiffness
+    /// per direction; so each direction's damper is its spring times τ and the loss factor is the same in every direction.
+    /// </remarks>
+    public ImmutableArray<DirectionalValue> Components { get; init; } = [];
+
+    /// <summary>Plane and 3d models: the location (m) given to the inner node, the location of the mount's first end (or its second when the first is ground).</summary>
+    public Point3? InnerLocation { get; init; }
+
     /// <summary>The complex stiffness K*(ω) = K′ + iK″ in N/m at <paramref name="angularFrequency"/> rad/s.</summary>
     /// <remarks>
     /// Maxwell: K* = k(ωτ)²/(1+(ωτ)²) + i·kωτ/(1+(ωτ)²). Standard linear solid: K* = k1 + k2(ωτ)²/(1+(ωτ)²) + i·k2ωτ/(1+(ωτ)²).
@@ -43,7 +59,10 @@ public sealed record Mount(string Name, MountKind Kind, string NodeA, string Nod
 /// NodeA to the inner node) and the damper <c>M~damper</c> (c = kτ, from the inner node to NodeB); for the standard
 /// linear solid, the spring <c>M~long-term</c> (k1, NodeA to NodeB), the spring <c>M~series</c> (k2 = Δk1, NodeA to
 /// the inner node) and the damper <c>M~damper</c> (c = k2τ, inner node to NodeB). The '~' cannot appear in a name
-/// written in a model file, so the expansion never clashes with the user's names.
+/// written in a model file, so the expansion never clashes with the user's names. In a plane or 3d model
+/// (<see cref="Mount.Components"/> given) the inner node is a point at <see cref="Mount.InnerLocation"/> moving in the
+/// translations of the components, and each element carries one component per translation (its value times τ for the
+/// damper, times Δ for the branch spring).
 /// </remarks>
 public static class MountExpansion
 {
@@ -58,6 +77,11 @@ public static class MountExpansion
         Guard.Positive(mount.Stiffness, nameof(mount));
         Guard.Positive(mount.RelaxationTime, nameof(mount));
         var inner = InnerNode(mount.Name);
+        if (!mount.Components.IsDefaultOrEmpty)
+        {
+            ExpandInSpace(mount, builder, inner);
+            return;
+        }
         builder.AddNode(inner);
         if (mount.Kind == MountKind.Maxwell)
         {
@@ -70,6 +94,39 @@ public static class MountExpansion
         builder.AddSpring(mount.Name + "~long-term", mount.NodeA, mount.NodeB, mount.Stiffness);
         builder.AddSpring(mount.Name + "~series", mount.NodeA, inner, series);
         builder.AddDamper(mount.Name + "~damper", inner, mount.NodeB, series * mount.RelaxationTime);
+    }
+
+    /// <summary>
+    /// The expansion in a plane or 3d model: the inner node moves in the translations the stiffness names (no rotation),
+    /// at <see cref="Mount.InnerLocation"/>; each element carries one component per such translation.
+    /// </summary>
+    private static void ExpandInSpace(Mount mount, NetworkBuilder builder, string inner)
+    {
+        var location = mount.InnerLocation ?? throw new ArgumentException($"Mount '{mount.Name}' in a plane or 3d model needs the location of its inner node.", nameof(mount));
+        foreach (var c in mount.Components)
+            if (c.Direction.IsRotation() || c.Direction == Dofs.Direction.Along)
+                throw new ArgumentException($"Mount '{mount.Name}' acts in '{c.Direction}', but a mount's stiffness is given per translation.", nameof(mount));
+            else Guard.Positive(c.Value, nameof(mount));
+        var moves = mount.Components.Select(c => c.Direction).Order().ToImmutableArray();
+        ImmutableArray<DirectionalValue> Scaled(double factor) => [.. mount.Components.OrderBy(c => c.Direction).Select(c => c with { Value = factor * c.Value })];
+        double Largest(ImmutableArray<DirectionalValue> values) => values.Max(v => v.Value);
+        builder.AddMass(new Mass(inner, 0, new DrawingPosition(location.X, location.Z)) { Location = location, Moves = moves });
+        var tau = mount.RelaxationTime;
+        if (mount.Kind == MountKind.Maxwell)
+        {
+            var k = Scaled(1);
+            var c = Scaled(tau);
+            builder.AddSpring(new Spring(mount.Name + "~spring", mount.NodeA, inner, Largest(k)) { Components = k });
+            builder.AddDamper(new Damper(mount.Name + "~damper", inner, mount.NodeB, Largest(c)) { Components = c });
+            return;
+        }
+        Guard.Positive(mount.RelaxationStrength, nameof(mount));
+        var longTerm = Scaled(1);
+        var series = Scaled(mount.RelaxationStrength);
+        var damper = Scaled(mount.RelaxationStrength * tau);
+        builder.AddSpring(new Spring(mount.Name + "~long-term", mount.NodeA, mount.NodeB, Largest(longTerm)) { Components = longTerm });
+        builder.AddSpring(new Spring(mount.Name + "~series", mount.NodeA, inner, Largest(series)) { Components = series });
+        builder.AddDamper(new Damper(mount.Name + "~damper", inner, mount.NodeB, Largest(damper)) { Components = damper });
     }
 
     /// <summary>The largest loss factor a standard linear solid of relaxation strength Δ reaches: Δ / (2√(1 + Δ)).</summary>

@@ -90,7 +90,7 @@ public sealed class NetworkBuilder
 
     /// <summary>Adds a mass.</summary>
     /// <param name="name">Unique name.</param>
-    /// <param name="kilograms">Mass in kg, non-negative and finite; 0 declares a massless node (line models only).</param>
+    /// <param name="kilograms">Mass in kg, non-negative and finite; 0 declares a massless node.</param>
     /// <param name="position">Optional drawing position in m.</param>
     public NetworkBuilder AddMass(string name, double kilograms, DrawingPosition? position = null)
     {
@@ -100,7 +100,8 @@ public sealed class NetworkBuilder
         return this;
     }
 
-    /// <summary>Adds a massless node (line models): a mass of 0 kg where springs, dampers and inerters meet.</summary>
+    /// <summary>Adds a massless node of a line model: a mass of 0 kg where springs, dampers and inerters meet (plane and 3d
+    /// models add a <see cref="Mass"/> record of 0 kg with its location and translations).</summary>
     /// <param name="name">Unique name.</param>
     /// <param name="position">Optional drawing position in m.</param>
     public NetworkBuilder AddNode(string name, DrawingPosition? position = null) => AddMass(name, 0, position);
@@ -206,11 +207,11 @@ public sealed class NetworkBuilder
     }
 
     /// <summary>Produces the immutable network.</summary>
-    /// <exception cref="ArgumentException">A massless node (zero mass) in a plane or 3d model, which only line models take.</exception>
+    /// <exception cref="ArgumentException">A massless node of a plane or 3d model without a location.</exception>
     public Network Build()
     {
-        if (Space != ModelSpace.Line && _masses.FirstOrDefault(m => m.Kilograms == 0) is { } massless)
-            throw new ArgumentException($"Mass '{massless.Name}' has zero mass: massless nodes are taken in line models only.");
+        if (Space != ModelSpace.Line && _masses.FirstOrDefault(m => m.Kilograms == 0 && m.Location is null) is { } massless)
+            throw new ArgumentException($"Massless node '{massless.Name}' has no location; every node of a plane or 3d model needs one.");
         return new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters], Transducers = [.. _transducers] };
     }
 

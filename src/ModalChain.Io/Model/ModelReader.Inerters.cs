@@ -77,7 +77,7 @@ public static partial class ModelReader
             }
             foreach (var (c, cKey) in components)
             {
-                if (c.Direction.IsRotation() && (a.Kind == EndKind.Mass ? a : b.Kind == EndKind.Mass ? b : (End?)null) is { } pointMass)
+                if (c.Direction.IsRotation() && (a.Kind is EndKind.Mass or EndKind.Node ? a : b.Kind is EndKind.Mass or EndKind.Node ? b : (End?)null) is { } pointMass)
                 {
                     context.Error(cKey, $"{what} has a rotational component '{c.Direction.Label()}', but its end {Describe(pointMass)} is a point mass, which has no rotation; attach it to a body (or a support)");
                     ok = false;

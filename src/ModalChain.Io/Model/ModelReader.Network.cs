@@ -109,13 +109,7 @@ public static partial class ModelReader
         AddRepeatedMasses(repeated, builder, nodes, context);
         if (spatial is null) ReadNodes(top, context, builder, nodes);
         ReadSupports(top, context, builder, nodes, spatial);
-        if (spatial is not null)
-        {
-            foreach (var section in new[] { "nodes", "mounts" })
-                if (top[section] is { } refused)
-                    context.Error(refused, $"'{section}' (massless nodes{(section == "mounts" ? " and the mounts built on them" : "")}) are taken in line models only; this model has 'space: {(spatial.Space == ModelSpace.Plane ? "plane" : "3d")}'");
-            return ReadSpatialNetwork(top, builder, spatial, nodes, context);
-        }
+        if (spatial is not null) return ReadSpatialNetwork(top, builder, spatial, nodes, context);
         var springs = ReadTwoNodeSection(top, "springs", "spring", "stiffness", Quantity.Stiffness, StiffnessRange, nodes, context);
         var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
         var inerters = ReadTwoNodeSection(top, "inerters", "inerter", "inertance", Quantity.Mass, InertanceRange, nodes, context);
@@ -360,18 +354,24 @@ public static partial class ModelReader
         return x is { } xv && y is { } yv ? new DrawingPosition(xv, yv) : null;
     }
 
-    /// <summary>The rest of a plane or 3d model's network, after its masses and supports: bodies, springs, dampers and inerters.</summary>
+    /// <summary>The rest of a plane or 3d model's network, after its masses and supports: massless nodes, bodies, springs, dampers, inerters and mounts.</summary>
     private static CoreNetwork? ReadSpatialNetwork(YMapping top, NetworkBuilder builder, SpatialNodes spatial, HashSet<string> nodes, ReadContext context)
     {
+        ReadSpatialNodes(top, builder, spatial, nodes, context);
         ReadBodies(top, builder, spatial, nodes, context);
         var springs = ReadSpatialElements(top, "springs", spatial, context);
         var dampers = ReadSpatialElements(top, "dampers", spatial, context);
         var inerters = ReadSpatialInerters(top, spatial, context);
+        var mounts = ReadSpatialMounts(top, spatial, context);
         if (context.HasErrors) return null;
         foreach (var s in springs) builder.AddSpring(new Spring(s.Name, s.A, s.B, s.Scale) { Components = s.Components, Axial = s.Axial });
         foreach (var d in dampers) builder.AddDamper(new Damper(d.Name, d.A, d.B, d.Scale) { Components = d.Components, Axial = d.Axial });
         foreach (var i in inerters) builder.AddInerter(i);
+        foreach (var mount in mounts) MountExpansion.Expand(mount, builder);
         var network = builder.Build();
+        CheckMasslessNodes(network, context);
+        CheckSpatialNodeDirections(network, context);
+        if (context.HasErrors) return null;
         WarnAboutSpatialConnectivity(network, context);
         return network;
     }

@@ -23,14 +23,16 @@ public static partial class ModelReader
     {
         public ModelSpace Space { get; } = space;
         public Dictionary<string, (Point3? Location, ImmutableArray<Direction> Moves)> Masses { get; } = new(StringComparer.Ordinal);
+        public Dictionary<string, (Point3? Location, ImmutableArray<Direction> Moves)> Nodes { get; } = new(StringComparer.Ordinal);
         public Dictionary<string, Point3?> Supports { get; } = new(StringComparer.Ordinal) { [CoreNetwork.Ground] = null };
         public Dictionary<string, Dictionary<string, Point3?>> Bodies { get; } = new(StringComparer.Ordinal);
         public Dictionary<string, Point3?> CentresOfMass { get; } = new(StringComparer.Ordinal);
 
-        public IEnumerable<string> Names => Masses.Keys.Concat(Supports.Keys).Concat(Bodies.Keys);
+        public IEnumerable<string> Names => Masses.Keys.Concat(Nodes.Keys).Concat(Supports.Keys).Concat(Bodies.Keys);
     }
 
-    private enum EndKind { Mass, Support, Body }
+    /// <summary>What an element end is; a massless <see cref="Node"/> is a point like a mass (translations only) that takes no load.</summary>
+    private enum EndKind { Mass, Support, Body, Node }
 
     /// <summary>A resolved element end or load target: the node, what kind it is, where it is and the directions it moves in.</summary>
     private readonly record struct End(string Reference, string Node, EndKind Kind, Point3? Location, ImmutableArray<Direction> Moves);
@@ -401,6 +403,7 @@ public static partial class ModelReader
     private static End? ResolveEnd(YNode node, string text, SpatialNodes nodes, ReadContext context, string what)
     {
         if (nodes.Masses.TryGetValue(text, out var mass)) return new End(text, text, EndKind.Mass, mass.Location, mass.Moves);
+        if (nodes.Nodes.TryGetValue(text, out var massless)) return new End(text, text, EndKind.Node, massless.Location, massless.Moves);
         if (nodes.Supports.TryGetValue(text, out var support)) return new End(text, text, EndKind.Support, support, []);
         var all = Directions.All(nodes.Space);
         if (nodes.Bodies.ContainsKey(text)) return new End(text, text, EndKind.Body, nodes.CentresOfMass[text], all);
@@ -414,7 +417,7 @@ public static partial class ModelReader
             context.Error(node, $"{what} refers to '{text}', but body '{body}' has no point '{point}'{ReadContext.Suggest(point, points.Keys)}; {known}");
             return null;
         }
-        context.Error(node, $"{what} refers to unknown node '{text}'{ReadContext.Suggest(text, nodes.Names)}; declare it under 'masses', 'supports' or 'bodies', use 'body.point' for a point of a body, or 'ground'");
+        context.Error(node, $"{what} refers to unknown node '{text}'{ReadContext.Suggest(text, nodes.Names)}; declare it under 'masses', 'nodes', 'supports' or 'bodies', use 'body.point' for a point of a body, or 'ground'");
         return null;
     }
 
@@ -422,6 +425,7 @@ public static partial class ModelReader
     {
         EndKind.Support => $"support '{end.Node}'",
         EndKind.Body => $"body '{end.Node}'",
+        EndKind.Node => $"massless node '{end.Node}'",
         _ => $"mass '{end.Node}'",
     };
 
@@ -498,7 +502,7 @@ public static partial class ModelReader
             {
                 if (c.Direction.IsRotation())
                 {
-                    var pointMass = a.Kind == EndKind.Mass ? a : b.Kind == EndKind.Mass ? b : (End?)null;
+                    var pointMass = a.Kind is EndKind.Mass or EndKind.Node ? a : b.Kind is EndKind.Mass or EndKind.Node ? b : (End?)null;
                     if (pointMass is { } pm)
                     {
                         context.Error(cKey, $"{what} has a rotational component '{c.Direction.Label()}', but its end {Describe(pm)} is a point mass, which has no rotation; attach it to a body (or a support)");
@@ -628,6 +632,11 @@ public static partial class ModelReader
         }
         if (context.Text(node, $"'at' of {what}") is not { } text) return null;
         if (ResolveEnd(node, text, nodes, context, what) is not { } end) return null;
+        if (end.Kind == EndKind.Node)
+        {
+            context.Error(node, $"{what} acts at {Describe(end)}; loads act on masses, bodies and body points, as in line models (a massless node has no inertia to load)");
+            return null;
+        }
         if (end.Kind == EndKind.Support)
         {
             context.Error(node, $"{what} acts at {Describe(end)}, which does not move; apply it to a mass or a body (or use kind: base-motion)");
@@ -736,7 +745,8 @@ public static partial class ModelReader
             parent[Find(a)] = Find(b);
         }
         var held = Find(CoreNetwork.Ground);
-        var nodes = network.Masses.Select(m => (Name: m.Name, Kind: "mass", Key: $"masses.{m.Name}"))
+        // Massless nodes have no rigid-body mode of their own (they are condensed or first-order states): not warned about.
+        var nodes = network.Masses.Where(m => m.Kilograms > 0).Select(m => (Name: m.Name, Kind: "mass", Key: $"masses.{m.Name}"))
             .Concat(network.Bodies.Select(b => (Name: b.Name, Kind: "body", Key: $"bodies.{b.Name}"))).ToList();
         foreach (var (name, kind, key) in nodes.Where(n => !touched.Contains(n.Name)))
             if (context.Positions.TryGetValue(key, out var at))

@@ -93,7 +93,10 @@ public static partial class ModelReader
             var dofs = Core.Dofs.DofMap.For(network);
             var labels = Enumerable.Range(0, dofs.Count).Select(dofs.Label);
             outputNames = new HashSet<string>(massNames.Concat(network.Bodies.Select(b => b.Name)).Concat(labels), StringComparer.Ordinal);
-            initialNames = new HashSet<string>(Enumerable.Range(0, dofs.Count).Where(i => !Core.Model.Directions.IsRotation(dofs.Dofs[i].Direction)).Select(dofs.Label), StringComparer.Ordinal);
+            // A massless node's motion is no state of its own (it follows from the others): no initial condition.
+            var massless = network.Masses.Where(m => m.Kilograms == 0).Select(m => m.Name).ToHashSet(StringComparer.Ordinal);
+            initialNames = new HashSet<string>(Enumerable.Range(0, dofs.Count)
+                .Where(i => !Core.Model.Directions.IsRotation(dofs.Dofs[i].Direction) && !massless.Contains(dofs.Dofs[i].Node)).Select(dofs.Label), StringComparer.Ordinal);
         }
         var harmonic = ReadHarmonic(top, outputNames, loads, context);
         var caseSelection = ReadCaseSelection(top, loadCases, context);

@@ -181,7 +181,7 @@ internal sealed partial class ReadContext
                 ? $"but a {UnitTable.Describe(quantity)} must be positive"
                 : $"but a {UnitTable.Describe(quantity)} cannot be negative";
         if (value == 0 && quantity == Quantity.Mass && range.Minimum > 0)
-            return $"but a {UnitTable.Describe(quantity)} must be positive (a point without mass is declared under 'nodes:', line models only)";
+            return $"but a {UnitTable.Describe(quantity)} must be positive (a point without mass is declared under 'nodes:')";
         if (value == 0 && (range.Minimum > 0 || !range.MinimumInclusive))
             return $"but a {UnitTable.Describe(quantity)} must be positive";
         if (range.Minimum == 0 && !range.MinimumInclusive && range.Maximum == double.MaxValue) return "but it must be positive";

@@ -109,4 +109,31 @@ public class StaticCondensationTests
             }
         }
     }
+
+    [Fact]
+    public void ModalDampingRatio_OnSeriesSpringsThroughAJoint_GivesTheSingleDegreeOfFreedomResponse()
+    {
+        // Closed form (common practice): one mode of ω_n² = k/m with k = k1k2/(k1 + k2) and modal damping ratio ζ gives
+        // X = F / (k − ω²m + 2iζω_nωm). Modal damping is built from every mode there is (one per inertial DOF): the
+        // condensed joint has none of its own, and the direct solve's support blocks must accept that.
+        double m = 250, k1 = 4e5, k2 = 6e5, zeta = 0.02;
+        var k = k1 * k2 / (k1 + k2);
+        var wn = Math.Sqrt(k / m);
+        var network = new NetworkBuilder { Title = "series springs, modal damping" }
+            .AddMass("m", m).AddNode("joint")
+            .AddSpring("k1", "m", "joint", k1).AddSpring("k2", "joint", Network.Ground, k2)
+            .Build();
+        var force = new ForceLoad("f", "m", 1, 0);
+        var system = DampedSystem.Build(new StructuralModel(network, DampingModel.Modal(zeta), [force]));
+        double[] frequencies = [0.5 * wn / (2 * Math.PI), wn / (2 * Math.PI), 2 * wn / (2 * Math.PI)];
+        var result = HarmonicAnalysis.Sweep(system, frequencies, [force], ["m", "joint"], HarmonicMethod.Direct);
+        for (var i = 0; i < frequencies.Length; i++)
+        {
+            var w = 2 * Math.PI * frequencies[i];
+            var expected = 1 / new System.Numerics.Complex(k - w * w * m, 2 * zeta * wn * w * m);
+            var x = result.ResponseOf("m")!.Displacement[i];
+            NumericAssert.Small((x - expected).Magnitude, 1e-10 * expected.Magnitude, $"m at ω/ω_n = {w / wn}");
+            NumericAssert.Small((result.ResponseOf("joint")!.Displacement[i] - x * k1 / (k1 + k2)).Magnitude, 1e-10 * expected.Magnitude, $"joint at ω/ω_n = {w / wn}");
+        }
+    }
 }

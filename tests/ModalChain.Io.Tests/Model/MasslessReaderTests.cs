@@ -123,9 +123,10 @@ public class MasslessReaderTests
     }
 
     [Fact]
-    public void NodesAndMounts_AreRefusedInPlaneModels()
+    public void NodesAsAList_InAPlaneModel_AreRefused_ForWantOfALocation()
     {
+        // Plane and 3d models take nodes with their locations (SpatialMasslessReaderTests); a bare list has none.
         var result = ModelReader.Read("space: plane\nmasses:\n  fan: {mass: 180 kg, at: [0, 1]}\nnodes: [joint]\n", "m.yaml");
-        AssertError(result, 4, 8, "taken in line models only");
+        AssertError(result, 4, 9, "node 'joint' needs its location in a plane model");
     }
 }

@@ -186,8 +186,7 @@ public static class HarmonicAnalysis
         int used;
         HarmonicEngine engine;
         // Damping at a massless node makes it a first-order state that no undamped mode describes: solve directly.
-        if (method == HarmonicMethod.Modal && network.Space == ModelSpace.Line
-            && MasslessReduction.Classify(p.Mass, system.Damping.FF).HasFirstOrderStates)
+        if (method == HarmonicMethod.Modal && MasslessReduction.Classify(p.Mass, system.Damping.FF).HasFirstOrderStates)
         {
             method = HarmonicMethod.Direct;
             notes.Add("the modal method was asked for, but damping at a massless node makes it a first-order state that the undamped modes do not describe: solved directly instead");

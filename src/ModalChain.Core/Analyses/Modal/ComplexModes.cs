@@ -70,7 +70,7 @@ public static class ComplexModes
         ArgumentNullException.ThrowIfNull(system);
         var free = system.Partition.Free;
         // Massless DOFs: their damped ones are first-order states, the rest are condensed (no M⁻¹ exists).
-        if (system.Model.Network.Space == ModelSpace.Line && MasslessReduction.HasMasslessDofs(system.Partition.Mass))
+        if (MasslessReduction.HasMasslessDofs(system.Partition.Mass))
             return FirstOrder.FirstOrderSystem.Build(system.Partition.Mass, system.Damping.FF, system.Partition.StiffnessFF, free.Label).ComplexModes();
         // Plane and 3d models: no topological groups (rigid-body roots are recognised by size), M may be full.
         if (system.Model.Network.Space != ModelSpace.Line) return Solve(system.Partition.Mass, system.Partition.StiffnessFF, system.Damping.FF);

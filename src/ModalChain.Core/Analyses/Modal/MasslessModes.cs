@@ -5,7 +5,7 @@ using ModalChain.Core.Model;
 
 namespace ModalChain.Core.Analyses.Modal;
 
-/// <summary>Undamped modes of a line model with massless nodes: every massless DOF condensed statically, shapes expanded back.</summary>
+/// <summary>Undamped modes of a model with massless nodes: every massless DOF condensed statically, shapes expanded back.</summary>
 /// <remarks>
 /// <para>K φ = ω² M φ with zero rows in M has, for every massless DOF s, the equation K_sk φ_k + K_ss φ_s = 0, so
 /// φ_s = −K_ss⁻¹ K_sk φ_k and the inertial DOFs solve K̃ φ_k = ω² M_kk φ_k with the condensed K̃ = K_kk − K_ks K_ss⁻¹ K_sk
@@ -65,6 +65,55 @@ internal static class MasslessModes
             TotalByDirection = reduced.TotalByDirection,
             CondensedDofs = [.. massless],
         };
+    }
+
+    /// <summary>Undamped modes of a plane or 3d model with massless nodes: K̃ φ_k = ω² M_kk φ_k, shapes expanded, figures as for any spatial model.</summary>
+    /// <remarks>
+    /// The condensed K̃ of a spatial model is no spring network (a body point's row couples translations and rotations),
+    /// so the reduced pair (K̃, M_kk) goes to the eigen solver as it is; each shape is expanded with φ_s = T φ_k, which
+    /// satisfies the full problem's massless rows exactly, and <see cref="SpatialModes.Build"/> computes every figure
+    /// (rigid-body re-basing, participation per direction, energy shares, residuals) on the full M and K.
+    /// </remarks>
+    public static ModalResult SolveSpatial(Network network, StructuralMatrices matrices, ModalOptions options)
+    {
+        var n = matrices.Size;
+        var massless = Enumerable.Range(0, n).Where(i => MasslessReduction.IsMassless(matrices.Mass, i)).ToArray();
+        if (massless.Length == n)
+            throw new ArgumentException("Every node of the network is massless: it has no mode of vibration, only first-order relaxations (see the complex modes).", nameof(network));
+        var condensation = MasslessReduction.Condense(matrices.Stiffness, massless);
+        var kept = condensation.Kept;
+        var nk = kept.Length;
+        var slot = new Dictionary<int, int>(nk);
+        for (var k = 0; k < nk; k++) slot[kept[k]] = k;
+        var entries = new List<(int, int, double)>();
+        var diagonal = true;
+        foreach (var (i, j, v) in matrices.Mass.EnumerateIndexed(MathNet.Numerics.LinearAlgebra.Zeros.AllowSkip))
+            if (slot.TryGetValue(i, out var a) && slot.TryGetValue(j, out var b))
+            {
+                entries.Add((a, b, v));
+                diagonal &= a == b || v == 0;
+            }
+        var mass = Assembler.Summed(nk, entries);
+        var wanted = Math.Clamp(options.Count ?? nk, 1, nk);
+        double? limit = options.BelowFrequencyHz is { } below ? Math.Pow(2 * Math.PI * below, 2) : null;
+        var solver = options.Solver ?? Solvers.GeneralizedEigen.Choose(nk, limit is null ? wanted : nk, options.Choice, (long)nk * nk);
+        var reduced = limit is { } below2 && solver is Solvers.ShiftInvertLanczos lanczos
+            ? lanczos.SolveBelow(condensation.Stiffness, mass, below2, options.Count)
+            : solver.Solve(condensation.Stiffness, mass, limit is null ? wanted : nk, diagonal);
+        var count = limit is { } l ? Math.Min(wanted, reduced.EigenValues.Count(v => v < l)) : reduced.Count;
+        var shapes = MathNet.Numerics.LinearAlgebra.Matrix<double>.Build.Dense(n, count);
+        for (var j = 0; j < count; j++)
+        {
+            var full = condensation.Expand(reduced.Shapes.Column(j).AsArray() ?? reduced.Shapes.Column(j).ToArray());
+            for (var i = 0; i < n; i++) shapes[i, j] = full[i];
+        }
+        var solution = new Solvers.EigenSolution([.. reduced.EigenValues.Take(count)], shapes, reduced.Algorithm);
+        var result = SpatialModes.Build(network, matrices, solution);
+        var warnings = result.Warnings.ToList();
+        if (!condensation.Undetermined.IsEmpty)
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"massless node DOF(s) {string.Join(", ", condensation.Undetermined.Select(i => $"'{matrices.Dofs.Label(i)}'"))} are held by no spring: the undamped modes leave their motion undetermined and show it as 0 (only the complex modes and the responses, which include damping, determine it)"));
+        return result with { Warnings = [.. warnings], CondensedDofs = [.. massless] };
     }
 
     /// <summary>The spring network whose M and K are M_kk and the condensed K̃: masses (and inerters) of the inertial DOFs, equivalent springs.</summary>

@@ -23,7 +23,8 @@ public sealed record ModalOptions(int? Count = null, IGeneralizedEigenSolver? So
 /// EN 1998-1 §4.3.3.3.1). Rigid-body modes are decided by the topology and low modes are resolved to relative
 /// accuracy whatever the stiffness spread (see <see cref="ModeResolution"/>). Plane and 3d models take another
 /// path (<see cref="SpatialModes"/>): rigid-body modes from the null space of K, participation per direction about a
-/// reference point, kinetic-energy shares per direction and a motion name per mode.
+/// reference point, kinetic-energy shares per direction and a motion name per mode. Massless DOFs are condensed
+/// statically first (<see cref="MasslessModes"/>) in every space.
 /// </remarks>
 public static class ModalAnalysis
 {
@@ -40,8 +41,8 @@ public static class ModalAnalysis
         if (options.BelowFrequencyHz is { } belowHz) Guard.Positive(belowHz, nameof(options.BelowFrequencyHz));
         if (matrices.Size == 0) throw new ArgumentException("The network has no masses.", nameof(network));
 
-        if (network.Space == ModelSpace.Line && MasslessReduction.HasMasslessDofs(matrices.Mass))
-            return MasslessModes.Solve(network, matrices, options);
+        if (MasslessReduction.HasMasslessDofs(matrices.Mass))
+            return network.Space == ModelSpace.Line ? MasslessModes.Solve(network, matrices, options) : MasslessModes.SolveSpatial(network, matrices, options);
 
         double? limit = options.BelowFrequencyHz is { } below ? Math.Pow(2 * Math.PI * below, 2) : null;
         var solution = GeneralizedEigen.Solve(matrices, options.Count, options.Solver, options.Choice, limit);
@@ -138,12 +139,13 @@ public static class ModalAnalysis
         };
     }
 
-    /// <summary>maxᵢ Σⱼ |Kᵢⱼ| / Mᵢᵢ in rad²/s²: an upper bound on ω²_max for diagonal M, used to judge "zero".</summary>
+    /// <summary>maxᵢ Σⱼ |Kᵢⱼ| / Mᵢᵢ in rad²/s² over the rows with mass: an upper bound on ω²_max for diagonal M, used to judge "zero".</summary>
+    /// <remarks>A massless row (a node condensed before the solve) has no inertia to divide by and no eigenvalue of its own: skipped.</remarks>
     internal static double StiffnessScale(Matrix<double> k, Matrix<double> m)
     {
         var scale = 0.0;
         for (var i = 0; i < k.RowCount; i++)
-            scale = Math.Max(scale, k.Row(i).L1Norm() / m[i, i]);
+            if (m[i, i] > 0) scale = Math.Max(scale, k.Row(i).L1Norm() / m[i, i]);
         return scale > 0 ? scale : 1.0;
     }
 

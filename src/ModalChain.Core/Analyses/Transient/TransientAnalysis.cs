@@ -117,7 +117,7 @@ public static class TransientAnalysis
 
         // Massless nodes: no M⁻¹ exists, so the state-space form of FirstOrderSystem is integrated exactly, whatever
         // method was asked for, unless the modal method runs on a model whose massless nodes carry springs only.
-        var firstOrder = network.Space == ModelSpace.Line && MasslessReduction.HasMasslessDofs(matrices.Mass)
+        var firstOrder = MasslessReduction.HasMasslessDofs(matrices.Mass)
             && (settings.Method != TransientMethod.Modal || MasslessReduction.Classify(matrices.Mass, matrices.Damping).HasFirstOrderStates);
         if (firstOrder)
         {
