@@ -3,7 +3,8 @@ using System.Text.Json;
 
 namespace ModalChain.Io.Json;
 
-/// <summary>Number writing of the hand-written JSON writer of <c>modes</c> (the other outputs go through <see cref="OutputJson"/>): non-finite values become null, since JSON has no infinity.</summary>
+/// <summary>Number writing of the hand-written JSON writers (the circuit outputs; the commands' output records go through
+/// <see cref="OutputJson"/>) and the one-line keyed objects of <see cref="Records.NumbersByName"/>: non-finite values become null, since JSON has no infinity.</summary>
 internal static class JsonNumbers
 {
     public static void Number(this Utf8JsonWriter writer, string name, double value)
@@ -60,52 +61,52 @@ internal static class JsonNumbers
         return result;
     }
 
+    /// <summary>Bytes enough for any <see cref="KeyedLine"/> object with these keys.</summary>
+    public static int KeyedLineLength(byte[][] keys)
+    {
+        ArgumentNullException.ThrowIfNull(keys);
+        long length = 2;
+        foreach (var key in keys) length += key.Length + 1 + LongestNumber;
+        return checked((int)length);
+    }
+
+    // The longest shortest-round-trip double is 24 characters ("-2.2250738585072014E-308"); "null" is 4.
+    private const int LongestNumber = 32;
+
     /// <summary>
-    /// As <see cref="Keyed(Utf8JsonWriter, string, JsonEncodedText[], ReadOnlySpan{double})"/>, the object written on one
-    /// line without spaces: a mode shape of thousands of masses is one line of the file, not thousands, and it is
-    /// formatted straight into bytes. Numbers are the writer's own (shortest round-trip, invariant); non-finite ones null.
+    /// As <see cref="Keyed(Utf8JsonWriter, string, JsonEncodedText[], ReadOnlySpan{double})"/>, the object written as a
+    /// value on one line without spaces: a mode shape of thousands of masses is one line of the file, not thousands, and
+    /// it is formatted straight into bytes. Numbers are the writer's own (shortest round-trip, invariant); non-finite ones null.
     /// </summary>
-    /// <param name="writer">The writer, positioned where the property goes.</param>
-    /// <param name="name">The property name.</param>
+    /// <param name="writer">The writer, positioned where the value goes (after its property name).</param>
     /// <param name="keys">From <see cref="LineKeys"/>.</param>
     /// <param name="values">One per key.</param>
-    /// <param name="buffer">Scratch bytes, grown as needed and kept by the caller for the next object.</param>
-    public static void KeyedLine(this Utf8JsonWriter writer, JsonEncodedText name, byte[][] keys, ReadOnlySpan<double> values, ref byte[] buffer)
+    /// <param name="buffer">Scratch bytes, at least <see cref="KeyedLineLength"/> long.</param>
+    public static void KeyedLine(this Utf8JsonWriter writer, byte[][] keys, ReadOnlySpan<double> values, Span<byte> buffer)
     {
+        ArgumentNullException.ThrowIfNull(writer);
+        ArgumentNullException.ThrowIfNull(keys);
+        if (values.Length != keys.Length) throw new ArgumentException($"{values.Length} values for {keys.Length} keys", nameof(values));
         var at = 0;
-        Put(ref buffer, ref at, (byte)'{');
+        buffer[at++] = (byte)'{';
         for (var i = 0; i < keys.Length; i++)
         {
-            if (i > 0) Put(ref buffer, ref at, (byte)',');
+            if (i > 0) buffer[at++] = (byte)',';
             var key = keys[i];
-            Reserve(ref buffer, at, key.Length + 32);
-            key.CopyTo(buffer.AsSpan(at));
+            key.CopyTo(buffer[at..]);
             at += key.Length;
             if (double.IsFinite(values[i]))
             {
-                values[i].TryFormat(buffer.AsSpan(at), out var written, default, CultureInfo.InvariantCulture);
+                values[i].TryFormat(buffer[at..], out var written, default, CultureInfo.InvariantCulture);
                 at += written;
             }
             else
             {
-                "null"u8.CopyTo(buffer.AsSpan(at));
+                "null"u8.CopyTo(buffer[at..]);
                 at += 4;
             }
         }
-        Put(ref buffer, ref at, (byte)'}');
-        writer.WritePropertyName(name);
-        writer.WriteRawValue(buffer.AsSpan(0, at), skipInputValidation: true);
-    }
-
-    private static void Put(ref byte[] buffer, ref int at, byte value)
-    {
-        Reserve(ref buffer, at, 1);
-        buffer[at++] = value;
-    }
-
-    private static void Reserve(ref byte[] buffer, int at, int more)
-    {
-        if (at + more <= buffer.Length) return;
-        System.Array.Resize(ref buffer, Math.Max(2 * buffer.Length, at + more));
+        buffer[at++] = (byte)'}';
+        writer.WriteRawValue(buffer[..at], skipInputValidation: true);
     }
 }

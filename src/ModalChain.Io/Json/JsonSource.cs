@@ -4,7 +4,8 @@ using ModalChain.Io.Text;
 
 namespace ModalChain.Io.Json;
 
-/// <summary>The "source" object every JSON output carries, so a result can be traced back to its model file, and the format version.</summary>
+/// <summary>The "source" object and the format version for the hand-written JSON writers (the circuit outputs), as
+/// <see cref="Records.SourceOutput"/> and <see cref="Records.CommandOutput"/> write them for the output records.</summary>
 internal static class JsonSource
 {
     /// <summary>Writes <c>"format_version"</c> (<see cref="JsonFormat.Version"/>) and <c>"source": {"file", "sha256", "tool_version"}</c>.</summary>

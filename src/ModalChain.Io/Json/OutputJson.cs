@@ -27,6 +27,7 @@ public static class OutputJson
     /// description).</summary>
     public static IReadOnlyList<OutputSchemaFile> Schemas { get; } =
     [
+        new("modes.schema.json", "modalchain modes --format json", typeof(ModesOutput)),
         new("tune.schema.json", "modalchain tune --format json", typeof(TuneOutput)),
         new("check.schema.json", "modalchain check --format json", typeof(CheckOutput)),
         new("harmonic.schema.json", "modalchain harmonic --format json", typeof(HarmonicOutput)),
@@ -41,6 +42,10 @@ public static class OutputJson
     /// <summary>Writes <paramref name="value"/> to <paramref name="stream"/> as one JSON document.</summary>
     public static void Write<T>(Stream stream, T value) where T : class =>
         JsonSerializer.Serialize(stream, value, TypeInfo<T>());
+
+    /// <summary>Writes <paramref name="value"/> as the next value of <paramref name="writer"/> (a document embedded in another).</summary>
+    public static void Write<T>(Utf8JsonWriter writer, T value) where T : class =>
+        JsonSerializer.Serialize(writer, value, TypeInfo<T>());
 
     /// <summary>Reads one output back into its record (round-trip tests; a reader of the outputs).</summary>
     /// <exception cref="JsonException">The JSON is not a document of this record.</exception>
@@ -89,7 +94,7 @@ public static class OutputJson
 
     private static JsonSerializerOptions CreateOptions()
     {
-        var options = new JsonSerializerOptions(OutputJsonContext.Default.Options) { Encoder = JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
+        var options = new JsonSerializerOptions(OutputJsonContext.Default.Options) { Encoder = JsonFormat.Encoder };
         options.MakeReadOnly();
         return options;
     }
@@ -104,16 +109,23 @@ public static class OutputJson
         var type = context.TypeInfo.Type;
         if (type == typeof(double) || type == typeof(double?))
             node = new JsonObject { ["type"] = new JsonArray("number", "null") };
+        // Written by its own converter, which the exporter cannot see into: an object of numbers keyed by name.
+        else if (type == typeof(NumbersByName))
+            node = new JsonObject { ["type"] = "object", ["additionalProperties"] = new JsonObject { ["type"] = new JsonArray("number", "null") } };
         else if (property is { IsRequired: false } && node["type"] is JsonArray types)
         {
             // An optional field is left out when null, so where it appears it has a value.
             var kept = types.Select(t => t!.GetValue<string>()).Where(t => t != "null").ToArray();
             node["type"] = kept.Length == 1 ? kept[0] : new JsonArray([.. kept.Select(k => (JsonNode)k)]);
         }
-        // The exporter leaves out the items of an array of doubles (their converter is not one it knows).
+        // The exporter leaves out the items of an array of doubles and the values of an object of doubles (their
+        // converter is not one it knows).
         if (context.TypeInfo is { Kind: JsonTypeInfoKind.Enumerable, ElementType: { } element } && !node.ContainsKey("items")
             && (element == typeof(double) || element == typeof(double?)))
             node["items"] = new JsonObject { ["type"] = new JsonArray("number", "null") };
+        if (context.TypeInfo is { Kind: JsonTypeInfoKind.Dictionary, ElementType: { } value } && !node.ContainsKey("additionalProperties")
+            && (value == typeof(double) || value == typeof(double?)))
+            node["additionalProperties"] = new JsonObject { ["type"] = new JsonArray("number", "null") };
         // A list of nullable strings (IReadOnlyList<string?>): the exporter cannot see the item's annotation.
         if (attributes is PropertyInfo member && node["items"] is JsonObject { } items && items["type"] is JsonValue
             && new NullabilityInfoContext().Create(member).GenericTypeArguments is [{ ReadState: NullabilityState.Nullable }])
@@ -148,6 +160,7 @@ public static class OutputJson
     UnmappedMemberHandling = JsonUnmappedMemberHandling.Disallow,
     RespectNullableAnnotations = true,
     Converters = [typeof(FiniteNumberConverter)])]
+[JsonSerializable(typeof(ModesOutput))]
 [JsonSerializable(typeof(TuneOutput))]
 [JsonSerializable(typeof(CheckOutput))]
 [JsonSerializable(typeof(ParameterStudyOutput))]

@@ -202,9 +202,7 @@ public sealed class ModesSection : IReportSection
     /// <inheritdoc />
     public void WriteJson(Utf8JsonWriter json)
     {
-        json.WriteStartObject();
-        ModesJson.WriteBody(json, _context.Document, _result, _context.Options.ToolVersion, _context.Damped, _complexModes);
-        json.WriteEndObject();
+        ModesJson.Write(json, _context.Document, _result, _context.Options.ToolVersion, _context.Damped, _complexModes);
     }
 
     private static string Dominant(IReadOnlyList<string> names, ImmutableArray<double> shares, int count) =>

@@ -19,6 +19,7 @@ public class DerivedSchemaTests
     /// <summary>The commands whose output is written from a record, and the record.</summary>
     private static readonly IReadOnlyDictionary<string, Type> RecordOf = new Dictionary<string, Type>(StringComparer.Ordinal)
     {
+        ["modes"] = typeof(ModesOutput),
         ["tune"] = typeof(TuneOutput),
         ["check"] = typeof(CheckOutput),
         ["study"] = typeof(ParameterStudyOutput),

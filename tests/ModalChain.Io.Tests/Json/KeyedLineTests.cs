@@ -19,8 +19,12 @@ public class KeyedLineTests
         using (var writer = new Utf8JsonWriter(stream, ModesJson.WriterOptions))
         {
             writer.WriteStartObject();
-            var buffer = new byte[8];
-            if (line) writer.KeyedLine(JsonEncodedText.Encode("shape"), JsonNumbers.LineKeys(keys), Values, ref buffer);
+            if (line)
+            {
+                var lineKeys = JsonNumbers.LineKeys(keys);
+                writer.WritePropertyName("shape");
+                writer.KeyedLine(lineKeys, Values, new byte[JsonNumbers.KeyedLineLength(lineKeys)]);
+            }
             else writer.Keyed("shape", keys, Values);
             writer.WriteEndObject();
         }

@@ -229,4 +229,26 @@ public class ModesJsonTests
         Assert.Equal(0, root.GetProperty("energy_share_modes").GetInt32());
         Assert.All(root.GetProperty("modes").EnumerateArray(), m => Assert.False(m.TryGetProperty("strain_energy_share", out _)));
     }
+
+    // Peak memory: the modes go to the stream while they are being written, not after the document is complete (the
+    // serializer flushes its buffer between items of a sequence; common practice for System.Text.Json streams).
+    [Fact]
+    public void Modes_ReachTheStream_WhileTheyAreStillBeingWritten()
+    {
+        var (doc, result) = Solve(Chain(200));
+        using var stream = new MemoryStream();
+        long writtenBeforeLastMode = -1;
+        var output = ModesJson.Output(doc, result, "9.9.9-test", energyShareModes: int.MaxValue);
+        IEnumerable<ModalChain.Io.Json.Records.ModeOutput> Tracked()
+        {
+            var modes = output.Modes.ToArray();
+            for (var k = 0; k < modes.Length - 1; k++) yield return modes[k];
+            writtenBeforeLastMode = stream.Length;
+            yield return modes[^1];
+        }
+        OutputJson.Write(stream, output with { Modes = Tracked() });
+        Assert.Equal(200, Parse(Encoding.UTF8.GetString(stream.ToArray())).GetProperty("modes").GetArrayLength());
+        Assert.True(writtenBeforeLastMode > 0.95 * stream.Length,
+            $"{writtenBeforeLastMode} of {stream.Length} bytes had reached the stream before the last mode was read");
+    }
 }

@@ -10,17 +10,8 @@ namespace ModalChain.Io.Json.Records;
 /// Machine zones and floor curves compare r.m.s. velocity ("measure": "rms"); a floor curve's reserve is its worst band's.
 /// </remarks>
 [Description("Frequency separation and vibration limits checked against the model's criteria; reserves are fractions.")]
-public sealed record CheckOutput
+public sealed record CheckOutput : CommandOutput
 {
-    [Description(Describe.Title)]
-    public required string Title { get; init; }
-
-    [Description(Describe.FormatVersion), SchemaConst(JsonFormat.Version)]
-    public required string FormatVersion { get; init; }
-
-    [Description("The model file this result comes from.")]
-    public required SourceOutput Source { get; init; }
-
     [Description("Whether every evaluated criterion is met.")]
     public required bool Passes { get; init; }
 
@@ -42,9 +33,6 @@ public sealed record CheckOutput
 
     [Description("Criteria of the model that could not be evaluated, with the reason.")]
     public required IReadOnlyList<CheckNotEvaluatedOutput> NotEvaluated { get; init; }
-
-    [Description(Describe.Caution)]
-    public required string Caution { get; init; }
 }
 
 /// <summary>The frequency-separation check in <see cref="CheckOutput"/>.</summary>

@@ -5,17 +5,8 @@ namespace ModalChain.Io.Json.Records;
 /// <summary>The JSON of <c>modalchain study --format json</c> for a parameter varied over a range.</summary>
 /// <remarks>Every array of a step quantity has one item per studied value, in the order of <c>values</c>.</remarks>
 [Description("A parameter study: natural frequencies, mode tracking and criterion reserves at each value of the varied parameter.")]
-public sealed record ParameterStudyOutput
+public sealed record ParameterStudyOutput : CommandOutput
 {
-    [Description(Describe.Title)]
-    public required string Title { get; init; }
-
-    [Description(Describe.FormatVersion), SchemaConst(JsonFormat.Version)]
-    public required string FormatVersion { get; init; }
-
-    [Description("The model file this result comes from.")]
-    public required SourceOutput Source { get; init; }
-
     [Description("The field varied, as given to --vary: masses.NAME.mass, springs.NAME.stiffness, dampers.NAME.coefficient; in plane and 3d models also bodies.NAME.mass, springs.NAME.stiffness.z, springs.NAME.rotational-stiffness.rx, springs.NAME.axial and their damper forms.")]
     public required string Parameter { get; init; }
 
@@ -33,9 +24,6 @@ public sealed record ParameterStudyOutput
 
     [Description("Where a criterion changes from pass to fail between two studied values.")]
     public required IReadOnlyList<StudyThresholdOutput> Thresholds { get; init; }
-
-    [Description(Describe.Caution)]
-    public required string Caution { get; init; }
 }
 
 /// <summary>One mode followed through a study in <see cref="ParameterStudyOutput"/>.</summary>
@@ -100,17 +88,8 @@ public sealed record StudyThresholdOutput
 
 /// <summary>The JSON of <c>modalchain study --vary speed --format json</c>: a speed-frequency chart.</summary>
 [Description("A speed-frequency chart: natural frequencies against the running speed's order lines, and where they cross.")]
-public sealed record SpeedChartOutput
+public sealed record SpeedChartOutput : CommandOutput
 {
-    [Description(Describe.Title)]
-    public required string Title { get; init; }
-
-    [Description(Describe.FormatVersion), SchemaConst(JsonFormat.Version)]
-    public required string FormatVersion { get; init; }
-
-    [Description("The model file this result comes from.")]
-    public required SourceOutput Source { get; init; }
-
     [Description("The kind of chart."), SchemaConst("speed-frequency")]
     public required string Chart { get; init; }
 
@@ -128,9 +107,6 @@ public sealed record SpeedChartOutput
 
     [Description("Where each order line meets each natural frequency within the speed range.")]
     public required IReadOnlyList<SpeedChartCrossingOutput> Crossings { get; init; }
-
-    [Description(Describe.Caution)]
-    public required string Caution { get; init; }
 }
 
 /// <summary>A natural frequency in <see cref="SpeedChartOutput"/>.</summary>

@@ -9,17 +9,8 @@ namespace ModalChain.Io.Json.Records;
 /// in 'between'; a reaction is the force the support receives, positive along the direction of motion.
 /// </remarks>
 [Description("Time histories of a model's response, with peaks, RMS values and the energy balance (SI units).")]
-public sealed record TransientOutput
+public sealed record TransientOutput : CommandOutput
 {
-    [Description(Describe.Title)]
-    public required string Title { get; init; }
-
-    [Description(Describe.FormatVersion), SchemaConst(JsonFormat.Version)]
-    public required string FormatVersion { get; init; }
-
-    [Description("The model file this result comes from.")]
-    public required SourceOutput Source { get; init; }
-
     [Description("The integration method: newmark, hht, exact or modal.")]
     public required string Method { get; init; }
 
@@ -70,9 +61,6 @@ public sealed record TransientOutput
 
     [Description("Warnings of the model file, then of the analysis.")]
     public required IReadOnlyList<string> Warnings { get; init; }
-
-    [Description(Describe.Caution)]
-    public required string Caution { get; init; }
 }
 
 /// <summary>How the histories were thinned, in <see cref="TransientOutput"/>.</summary>

@@ -11,17 +11,8 @@ namespace ModalChain.Io.Json.Records;
 /// <see cref="JsonIgnoreCondition.Never"/>, which are written as null.
 /// </remarks>
 [Description("A tuned vibration absorber designed for one host mass and mode, with its performance (SI units).")]
-public sealed record TuneOutput
+public sealed record TuneOutput : CommandOutput
 {
-    [Description(Describe.Title)]
-    public required string Title { get; init; }
-
-    [Description(Describe.FormatVersion), SchemaConst(JsonFormat.Version)]
-    public required string FormatVersion { get; init; }
-
-    [Description("The model file this result comes from.")]
-    public required SourceOutput Source { get; init; }
-
     [Description("1-based number of the controlled mode.")]
     public required int Mode { get; init; }
 
@@ -118,9 +109,6 @@ public sealed record TuneOutput
 
     [Description("The caution specific to absorbers.")]
     public required string AbsorberCaution { get; init; }
-
-    [Description(Describe.Caution)]
-    public required string Caution { get; init; }
 }
 
 /// <summary>The absorber's elements in <see cref="TuneOutput"/>.</summary>
