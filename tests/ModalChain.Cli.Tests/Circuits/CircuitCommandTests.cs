@@ -78,7 +78,6 @@ public class CircuitCommandTests
 
     [Theory]
     [InlineData("check")]
-    [InlineData("report", "-o", "/tmp/modalchain-circuit-report-never-written")]
     [InlineData("tune", "--host", "output", "--mass-ratio", "5 %")]
     [InlineData("study", "--vary", "speed", "--from", "0", "--to", "10 Hz")]
     public void CommandsWithoutACircuitForm_RefuseACircuitWithExitCode2(string command, params string[] options)
