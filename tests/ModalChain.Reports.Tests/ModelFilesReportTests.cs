@@ -38,11 +38,20 @@ public sealed class ModelFilesReportTests
             var title = SvgAssert.Texts(root).First();
             Assert.StartsWith($"Mode {mode.Number}: ", title, StringComparison.Ordinal);
             Assert.Matches(@" Hz( \(rigid-body mode\))?$", title);
-            var (shape, _) = ModalChain.Reports.Sections.ModesSection.Normalised(mode);
+            var shape = ModalChain.Reports.Sections.ModesSection.Normalised(mode).Shape;
             // Line models: each mass's block is displaced by its shape value. Plane and 3d mode figures are drawn in views and
             // checked by SpatialReportTests (pure lift of a bounce, equal turn of a yaw, the centre of mass moved by the shape).
             // Large or plan-laid-out line models are drawn as colour maps: each mass's cell has the colour step of its value.
             var view = ModalChain.Reports.Sections.ModesSection.ViewOf(document.Network);
+            // Transducer models: the electrical nodes (the examples' are massless nodes) are drawn at rest and the drawing is
+            // scaled by the mechanical masses only (TransducerModeFigureTests checks the floor test against its constraint).
+            if (!document.Network.Transducers.IsEmpty)
+            {
+                var byMass = modal.ShapeByMass(mode);
+                var masses = document.Network.Masses;
+                var peak = byMass[Enumerable.Range(0, masses.Length).Where(i => masses[i].Kilograms > 0).MaxBy(i => Math.Abs(byMass[i]))];
+                shape = [.. byMass.Select((v, i) => masses[i].Kilograms > 0 ? v / peak : 0)];
+            }
             if (view == ModalChain.Reports.Sections.ModeView.Schematic)
                 Sections.ModesSectionTests.AssertDisplacements(root, [.. document.Network.Masses.Select(m => m.Name)], shape, $"{model} mode {mode.Number}");
             else if (view == ModalChain.Reports.Sections.ModeView.Map)
