@@ -8,7 +8,7 @@ using static ModalChain.Cli.Tests.CliRun;
 
 namespace ModalChain.Cli.Tests;
 
-/// <summary>Every file in models/ goes through the program end to end: validate, modes as table, JSON and CSV.</summary>
+/// <summary>Every mechanical model in models/ goes through the program end to end: validate, modes as table, JSON and CSV (circuit models: CircuitModelsEndToEndTests).</summary>
 public class ModelsEndToEndTests
 {
     private static Network Network(string model)
@@ -27,7 +27,7 @@ public class ModelsEndToEndTests
     }
 
     [Theory]
-    [MemberData(nameof(CliRun.Models), MemberType = typeof(CliRun))]
+    [MemberData(nameof(CliRun.MechanicalModels), MemberType = typeof(CliRun))]
     public void Validate_Succeeds(string model)
     {
         var path = ModelPath(model);
@@ -41,7 +41,7 @@ public class ModelsEndToEndTests
     }
 
     [Theory]
-    [MemberData(nameof(CliRun.Models), MemberType = typeof(CliRun))]
+    [MemberData(nameof(CliRun.MechanicalModels), MemberType = typeof(CliRun))]
     public void ModesTable_HasARowPerMode_AscendingInFrequency_AndTheCaution(string model)
     {
         var o = Run("modes", ModelPath(model));
@@ -67,7 +67,7 @@ public class ModelsEndToEndTests
     }
 
     [Theory]
-    [MemberData(nameof(CliRun.Models), MemberType = typeof(CliRun))]
+    [MemberData(nameof(CliRun.MechanicalModels), MemberType = typeof(CliRun))]
     public void ModesJson_IsOneObject_WithModesAscending_AndEffectiveMassesSummingToTheTotal(string model)
     {
         var o = Run("modes", ModelPath(model), "--format", "json");
@@ -117,7 +117,7 @@ public class ModelsEndToEndTests
     }
 
     [Theory]
-    [MemberData(nameof(CliRun.Models), MemberType = typeof(CliRun))]
+    [MemberData(nameof(CliRun.MechanicalModels), MemberType = typeof(CliRun))]
     public void ModesCsv_ParsesWithOneRowPerMode(string model)
     {
         var o = Run("modes", ModelPath(model), "--format", "csv");
@@ -137,7 +137,7 @@ public class ModelsEndToEndTests
     }
 
     [Theory]
-    [MemberData(nameof(CliRun.Models), MemberType = typeof(CliRun))]
+    [MemberData(nameof(CliRun.MechanicalModels), MemberType = typeof(CliRun))]
     public void CountOne_LimitsEveryFormatToTheFundamental(string model)
     {
         var path = ModelPath(model);
@@ -154,7 +154,7 @@ public class ModelsEndToEndTests
     }
 
     [Theory]
-    [MemberData(nameof(CliRun.Models), MemberType = typeof(CliRun))]
+    [MemberData(nameof(CliRun.MechanicalModels), MemberType = typeof(CliRun))]
     public void Study_FollowsEveryMode_AndItsFirstValueGivesTheModesOfTheModel(string model)
     {
         // Line, plane and 3d models alike: vary the first spring with a stiffness (its scale in space, every direction

@@ -13,10 +13,39 @@ public sealed class ModelFilesReportTests
 {
     private static readonly ReportOptions Options = new("test", new DateTimeOffset(2026, 12, 1, 12, 0, 0, TimeSpan.Zero));
 
-    public static IEnumerable<object[]> Models() => Repository.ModelFiles();
+    public static IEnumerable<object[]> Models() => Repository.MechanicalModelFiles();
+
+    public static IEnumerable<object[]> CircuitModels() => Repository.CircuitModelFiles();
 
     [Fact]
     public void ModelsFolder_HasAtLeastOneModel() => Assert.NotEmpty(Repository.ModelFiles());
+
+    [Theory]
+    [MemberData(nameof(CircuitModels))]
+    public void CircuitReport_IsWrittenWithWellFormedFigures_AndTheCircuitCommandsNumbers(string model)
+    {
+        var document = Repository.Load(model);
+        var dir = Path.Combine(Repository.TempDirectory(), "report");
+        var files = ReportWriter.Write(ReportBuilder.Build(document, Options), dir, ReportFormat.Html);
+        foreach (var svg in files.Where(f => f.EndsWith(".svg", StringComparison.Ordinal)))
+            SvgAssert.WellFormedWithViewBox(File.ReadAllText(Path.Combine(dir, svg)));
+        Assert.Contains("circuit.svg", files);
+        Assert.DoesNotContain(files, f => f.StartsWith("mode-", StringComparison.Ordinal));
+        // The roots in results.json are those of the circuit's own solve (identity with `modalchain modes` on it).
+        var roots = ModalChain.Core.Analyses.Circuits.CircuitModes.Solve(ModalChain.Core.Analyses.Circuits.CircuitStateSpace.Of(
+            ModalChain.Core.Model.CircuitAnalogy.Of(document.Circuit!.Circuit)));
+        using var json = JsonDocument.Parse(File.ReadAllBytes(Path.Combine(dir, "results.json")));
+        var jsonRoots = json.RootElement.GetProperty("circuit_roots").GetProperty("roots").EnumerateArray().ToArray();
+        Assert.Equal(roots.Length, jsonRoots.Length);
+        for (var j = 0; j < roots.Length; j++)
+            NumericAssert.Close(roots[j].NaturalFrequencyHz, jsonRoots[j].GetProperty("natural_frequency_hz").GetDouble(), Tolerance.Rel(1e-12), $"root {j + 1} Hz");
+        Assert.False(json.RootElement.TryGetProperty("model", out _));
+        var html = File.ReadAllText(Path.Combine(dir, "report.html"));
+        Assert.Contains(System.Net.WebUtility.HtmlEncode(ModalChain.Core.Cautions.Text), html, StringComparison.Ordinal);
+        Assert.Contains(document.Sha256, html, StringComparison.Ordinal);
+        Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
+        Assert.DoesNotMatch(@"(src|href)\s*=\s*""(https?:|//)", html);
+    }
 
     [Theory]
     [MemberData(nameof(Models))]

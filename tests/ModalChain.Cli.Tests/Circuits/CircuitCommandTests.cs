@@ -9,7 +9,7 @@ namespace ModalChain.Cli.Tests.Circuits;
 /// circuit a located error with exit code 2.</summary>
 public class CircuitCommandTests
 {
-    private static string Example => Path.Combine(RepositoryRoot, "docs", "examples", "series-circuit.yaml");
+    private static string Example => Path.Combine(RepositoryRoot, "models", "series-circuit.yaml");
 
     [Fact]
     public void Example_IsValidAgainstTheModelSchema()

@@ -7,7 +7,7 @@ namespace ModalChain.Cli.Tests.Commands;
 /// <summary><c>modalchain report</c> on a circuit model: exit code, files, results.json against its schema and against the circuit commands' own JSON.</summary>
 public sealed class CircuitReportCommandTests
 {
-    private static string Example => Path.Combine(CliRun.RepositoryRoot, "docs", "examples", "series-circuit.yaml");
+    private static string Example => Path.Combine(CliRun.RepositoryRoot, "models", "series-circuit.yaml");
 
     private static string Temp()
     {
