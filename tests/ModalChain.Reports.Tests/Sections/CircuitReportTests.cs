@@ -201,6 +201,46 @@ public sealed class CircuitReportTests
     }
 
     [Fact]
+    public void ParallelTankDrivenByACurrentSource_LargestImpedanceIsR_AtTheNaturalFrequency()
+    {
+        // Parallel R-L-C from one node to ground, fed by a current source: Z = 1/(1/R + iωC + 1/(iωL)) peaks at
+        // |Z| = R, purely resistive, at ω₀ = 1/√(LC) (parallel resonant circuit, closed form, common practice):
+        // R = 100 Ω, L = 1 mH, C = 10 µF give f₀ = 1591.549 Hz, ζ = 1/(2R)·√(L/C) = 0.05. The transfer is in V/A.
+        const string tank = """
+            title: Parallel tank
+            circuit:
+              nodes: [top]
+              resistors:
+                load: {between: [top, ground], resistance: 100 ohm}
+              inductors:
+                coil: {between: [top, ground], inductance: 1 mH}
+              capacitors:
+                cap: {between: [top, ground], capacitance: 10 uF}
+              current-sources:
+                feed: {from: ground, to: top, amplitude: 1 A}
+            harmonic:
+              frequencies: {from: 100 Hz, to: 30 kHz, points: 53, spacing: log}
+
+            """;
+        var report = ReportBuilder.Build(Repository.Parse(tank, "tank.yaml"), Options);
+        Assert.Equal(["circuit", "circuit_roots", "circuit_sweep"], report.Sections.Select(s => s.Key));
+        var f0 = 1 / (2 * Math.PI * Math.Sqrt(1e-3 * 10e-6));
+        var section = (CircuitSweepSection)report.Sections.Single(s => s.Key == "circuit_sweep");
+        Assert.False(section.Responses[0].IsVoltageSource);
+        var largest = section.Points[0].Single(p => p.What == "largest |Z|");
+        Assert.True(largest.Located, "located between sweep points");
+        NumericAssert.Close(100, largest.Impedance.Magnitude, Tolerance.Rel(1e-9), "largest |Z| = R");
+        NumericAssert.Close(f0, largest.FrequencyHz, Tolerance.Rel(1e-5), "at f0");
+        NumericAssert.Close(f0, section.Points[0].Single(p => p.What.StartsWith("arg Z = 0°", StringComparison.Ordinal)).FrequencyHz, Tolerance.Rel(1e-9), "arg Z = 0 at f0");
+        var roots = ((CircuitRootsSection)report.Sections.Single(s => s.Key == "circuit_roots")).Roots;
+        NumericAssert.Close(0.05, roots.Single(r => r.Kind == CircuitRootKind.Oscillation).DampingRatio, Tolerance.Rel(1e-9), "ζ = (1/2R)√(L/C)");
+        Assert.Contains("|H| (V/A)", SvgAssert.Texts(SvgAssert.WellFormedWithViewBox(report.Figures.Single(f => f.Name == "transfer-feed").Svg(true))));
+        var groups = SvgAssert.WellFormedWithViewBox(report.Figures.Single(f => f.Name == "circuit").Svg(true))
+            .Descendants(Repository.Svg + "g").Select(g => (string?)g.Attribute("class")).Where(c => c?.StartsWith("element ", StringComparison.Ordinal) == true);
+        Assert.Equal(["element resistor", "element inductor", "element capacitor", "element current-source"], groups);
+    }
+
+    [Fact]
     public void ElectricalUnits_PickThePrefixOfTheMagnitude()
     {
         // SI prefixes (BIPM, The International System of Units, 9th ed., table 7): the value shown is between 1 and 1000.
