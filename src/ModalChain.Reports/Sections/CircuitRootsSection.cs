@@ -47,14 +47,14 @@ public sealed class CircuitRootsSection : IReportSection
 
     /// <summary>The column headers of the roots table.</summary>
     public static readonly ImmutableArray<string> Headers =
-        ["#", "Kind", "Natural frequency f₀ (Hz)", "ω₀ (rad/s)", "Damping ratio ζ", "Q factor", "Damped frequency (Hz)", "Time constant τ", "Root s (1/s)"];
+        ["#", "Kind", "f₀ (Hz)", "ω₀ (rad/s)", "ζ", "Q", "f_d (Hz)", "τ", "Root s (1/s)"];
 
     /// <inheritdoc />
     public void WriteHtml(HtmlWriter html)
     {
         ArgumentNullException.ThrowIfNull(html);
-        html.Paragraph("The roots s of the circuit's free response e^{st} with every source switched off (voltage sources shorted, current sources open). " +
-            "A complex pair is a decaying oscillation: natural frequency f₀ = |s|/2π, damping ratio ζ = −Re s/|s|, Q factor = 1/(2ζ). " +
+        html.Paragraph("The roots s of the circuit's free response e^(st) with every source switched off (voltage sources shorted, current sources open). " +
+            "A complex pair is a decaying oscillation: natural frequency f₀ = |s|/2π, damping ratio ζ = −Re s/|s|, Q factor Q = 1/(2ζ), damped frequency f_d = Im s/2π. " +
             "A real root is an exponential relaxation with time constant τ = −1/s. A DC level is a zero root: the voltage level a part of the circuit keeps when no inductor or resistor ties it to ground.");
         if (Roots.IsEmpty)
         {
