@@ -17,14 +17,14 @@ public static class ReportBuilder
     /// <summary>Builds the report of <paramref name="document"/>; nothing is written to disk.</summary>
     /// <param name="document">The model as read.</param>
     /// <param name="options">Run options (version, date, units, mode count).</param>
-    /// <param name="sections">Section factories in order; <see cref="ReportSections.Default"/> when null.</param>
+    /// <param name="sections">Section factories in order; when null, <see cref="ReportSections.For"/> the document (the circuit sections for a circuit model).</param>
     /// <exception cref="NumericalFailureException">An analysis failed; no report exists.</exception>
     public static Report Build(ModelDocument document, ReportOptions options, IReadOnlyList<ReportSectionFactory>? sections = null)
     {
         ArgumentNullException.ThrowIfNull(document);
         ArgumentNullException.ThrowIfNull(options);
         var context = new ReportContext(document, options);
-        var present = (sections ?? ReportSections.Default).Select(f => f(context)).OfType<IReportSection>().ToImmutableArray();
+        var present = (sections ?? ReportSections.For(document)).Select(f => f(context)).OfType<IReportSection>().ToImmutableArray();
         var figures = present.SelectMany(s => s.Figures).ToImmutableArray();
         var duplicate = figures.GroupBy(f => f.Name).FirstOrDefault(g => g.Count() > 1);
         if (duplicate is not null) throw new InvalidOperationException($"Two figures are named '{duplicate.Key}'; figure names must be unique in a report.");
@@ -49,7 +49,7 @@ public static class ReportBuilder
             json.WriteString("sha256", context.Document.Sha256);
             json.WriteEndObject();
             json.WriteString("display_units", context.Units.System == UnitSystem.Imperial ? "imperial" : "si");
-            json.WriteString("units", "SI throughout this file (kg, N/m, N*s/m, m, s, Hz)");
+            json.WriteString("units", context.Document.Circuit is null ? "SI throughout this file (kg, N/m, N*s/m, m, s, Hz)" : "SI throughout this file (V, A, ohm, H, F, s, Hz)");
             json.WriteStartArray("sections");
             foreach (var s in sections) json.WriteStringValue(s.Key);
             json.WriteEndArray();

@@ -38,6 +38,15 @@ internal static partial class CliRun
 
     public static string ModelPath(string name) => Path.Combine(RepositoryRoot, "models", name);
 
+    /// <summary>True when the example <paramref name="name"/> is a circuit model (a top-level 'circuit' section): its outputs speak V, A and Ω and have their own schemas.</summary>
+    public static bool IsCircuit(string name) => ModalChain.Io.Model.ModelReader.ReadFile(ModelPath(name)).Model?.Circuit is not null;
+
+    /// <summary>The mechanical models of models/ (every one but the circuit models), for tests of mechanical outputs.</summary>
+    public static TheoryData<string> MechanicalModels() => [.. ModelNames().Where(n => !IsCircuit(n))];
+
+    /// <summary>The circuit models of models/.</summary>
+    public static TheoryData<string> CircuitModels() => [.. ModelNames().Where(IsCircuit)];
+
     /// <summary>
     /// The tune options naming a host of <paramref name="network"/>: the heaviest mass of a line model; in a plane or 3d
     /// model the translation DOF label (from <see cref="ModalChain.Core.Dofs.DofMap"/>) that moves most in the first

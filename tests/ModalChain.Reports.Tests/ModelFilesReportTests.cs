@@ -13,10 +13,39 @@ public sealed class ModelFilesReportTests
 {
     private static readonly ReportOptions Options = new("test", new DateTimeOffset(2026, 12, 1, 12, 0, 0, TimeSpan.Zero));
 
-    public static IEnumerable<object[]> Models() => Repository.ModelFiles();
+    public static IEnumerable<object[]> Models() => Repository.MechanicalModelFiles();
+
+    public static IEnumerable<object[]> CircuitModels() => Repository.CircuitModelFiles();
 
     [Fact]
     public void ModelsFolder_HasAtLeastOneModel() => Assert.NotEmpty(Repository.ModelFiles());
+
+    [Theory]
+    [MemberData(nameof(CircuitModels))]
+    public void CircuitReport_IsWrittenWithWellFormedFigures_AndTheCircuitCommandsNumbers(string model)
+    {
+        var document = Repository.Load(model);
+        var dir = Path.Combine(Repository.TempDirectory(), "report");
+        var files = ReportWriter.Write(ReportBuilder.Build(document, Options), dir, ReportFormat.Html);
+        foreach (var svg in files.Where(f => f.EndsWith(".svg", StringComparison.Ordinal)))
+            SvgAssert.WellFormedWithViewBox(File.ReadAllText(Path.Combine(dir, svg)));
+        Assert.Contains("circuit.svg", files);
+        Assert.DoesNotContain(files, f => f.StartsWith("mode-", StringComparison.Ordinal));
+        // The roots in results.json are those of the circuit's own solve (identity with `modalchain modes` on it).
+        var roots = ModalChain.Core.Analyses.Circuits.CircuitModes.Solve(
+            ModalChain.Core.Model.CircuitAnalogy.Of(document.Circuit!.Circuit));
+        using var json = JsonDocument.Parse(File.ReadAllBytes(Path.Combine(dir, "results.json")));
+        var jsonRoots = json.RootElement.GetProperty("circuit_roots").GetProperty("roots").EnumerateArray().ToArray();
+        Assert.Equal(roots.Length, jsonRoots.Length);
+        for (var j = 0; j < roots.Length; j++)
+            NumericAssert.Close(roots[j].NaturalFrequencyHz, jsonRoots[j].GetProperty("natural_frequency_hz").GetDouble(), Tolerance.Rel(1e-12), $"root {j + 1} Hz");
+        Assert.False(json.RootElement.TryGetProperty("model", out _));
+        var html = File.ReadAllText(Path.Combine(dir, "report.html"));
+        Assert.Contains(System.Net.WebUtility.HtmlEncode(ModalChain.Core.Cautions.Text), html, StringComparison.Ordinal);
+        Assert.Contains(document.Sha256, html, StringComparison.Ordinal);
+        Assert.DoesNotContain("<script", html, StringComparison.OrdinalIgnoreCase);
+        Assert.DoesNotMatch(@"(src|href)\s*=\s*""(https?:|//)", html);
+    }
 
     [Theory]
     [MemberData(nameof(Models))]
@@ -38,11 +67,20 @@ public sealed class ModelFilesReportTests
             var title = SvgAssert.Texts(root).First();
             Assert.StartsWith($"Mode {mode.Number}: ", title, StringComparison.Ordinal);
             Assert.Matches(@" Hz( \(rigid-body mode\))?$", title);
-            var (shape, _) = ModalChain.Reports.Sections.ModesSection.Normalised(mode);
+            var shape = ModalChain.Reports.Sections.ModesSection.Normalised(mode).Shape;
             // Line models: each mass's block is displaced by its shape value. Plane and 3d mode figures are drawn in views and
             // checked by SpatialReportTests (pure lift of a bounce, equal turn of a yaw, the centre of mass moved by the shape).
             // Large or plan-laid-out line models are drawn as colour maps: each mass's cell has the colour step of its value.
             var view = ModalChain.Reports.Sections.ModesSection.ViewOf(document.Network);
+            // Transducer models: the electrical nodes (the examples' are massless nodes) are drawn at rest and the drawing is
+            // scaled by the mechanical masses only (TransducerModeFigureTests checks the floor test against its constraint).
+            if (!document.Network.Transducers.IsEmpty)
+            {
+                var byMass = modal.ShapeByMass(mode);
+                var masses = document.Network.Masses;
+                var peak = byMass[Enumerable.Range(0, masses.Length).Where(i => masses[i].Kilograms > 0).MaxBy(i => Math.Abs(byMass[i]))];
+                shape = [.. byMass.Select((v, i) => masses[i].Kilograms > 0 ? v / peak : 0)];
+            }
             if (view == ModalChain.Reports.Sections.ModeView.Schematic)
                 Sections.ModesSectionTests.AssertDisplacements(root, [.. document.Network.Masses.Select(m => m.Name)], shape, $"{model} mode {mode.Number}");
             else if (view == ModalChain.Reports.Sections.ModeView.Map)

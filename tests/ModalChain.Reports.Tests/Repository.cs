@@ -18,6 +18,12 @@ internal static class Repository
             .Order(StringComparer.Ordinal)
             .Select(f => new object[] { Path.GetRelativePath(Root, f) });
 
+    /// <summary>The mechanical models of models/ (circuit models left out: their report has no modes and no mechanical units).</summary>
+    public static IEnumerable<object[]> MechanicalModelFiles() => ModelFiles().Where(m => Load((string)m[0]).Circuit is null);
+
+    /// <summary>The circuit models of models/ (a top-level 'circuit' section).</summary>
+    public static IEnumerable<object[]> CircuitModelFiles() => ModelFiles().Where(m => Load((string)m[0]).Circuit is not null);
+
     public static ModelDocument Load(string relativePath)
     {
         var result = ModelReader.ReadFile(Path.Combine(Root, relativePath));

@@ -28,7 +28,8 @@ internal static class ReportCommand
         var absorberMethod = AbsorberArguments.Method("--absorber-method");
         var command = new Command("report",
             "Write a reviewer's report of the model into a folder: report.html (one self-contained file: model summary, " +
-            "network drawing, modes table, one figure per mode shape, the tuned absorber with --absorber-host and --mass-ratio, caution and traceability to the model file), each figure " +
+            "network drawing, modes table, one figure per mode shape, the tuned absorber with --absorber-host and --mass-ratio, caution and traceability to the model file; " +
+            "for a circuit model: the schematic, roots, impedance and transfer sweeps and time response in V, A and Ω), each figure " +
             "as its own SVG, results.json with every number behind the report (SI), and with --format pdf the whole report as one A4 PDF, report.pdf.")
         { file, output, format, units, modes, absorberHost, massRatio, absorberMode, absorberMethod };
         var solver = CommonOptions.Solver();
@@ -44,7 +45,6 @@ internal static class ReportCommand
             }
             var document = CommonOptions.Load(path, io);
             if (document is null) return ExitCodes.InputError;
-            if (document.Circuit is not null) return CircuitCommands.NotForCircuits(io, path, "report");
             if (CommonOptions.SolverOf(parse, solver, io) is not { } choice) return ExitCodes.InputError;
             if (!Generated(io, out var generated)) return ExitCodes.InputError;
             var options = new ReportOptions(CliApp.Version, generated, parse.GetValue(units), parse.GetValue(modes) ?? 20) { Solver = choice };
@@ -53,6 +53,11 @@ internal static class ReportCommand
             if (hostName is null != ratioText is null)
             {
                 io.Error.WriteLine("modalchain: error: --absorber-host and --mass-ratio go together: give both to add the absorber section, or neither.");
+                return ExitCodes.InputError;
+            }
+            if (hostName is not null && document.Circuit is not null)
+            {
+                io.Error.WriteLine($"modalchain: error: {path}: --absorber-host and --mass-ratio size a tuned absorber on a mechanical model; a circuit's report takes neither.");
                 return ExitCodes.InputError;
             }
             if (hostName is not null && ratioText is not null)

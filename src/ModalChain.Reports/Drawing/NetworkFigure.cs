@@ -9,7 +9,14 @@ namespace ModalChain.Reports.Drawing;
 /// <param name="ReferenceMass">The mass where |φ| is largest (φ = +1 there).</param>
 /// <param name="ShapeScale">Drawing length in m that a normalised displacement of 1 is drawn as.</param>
 /// <param name="Frames">Animation frames (1 for a still; the still is frame 0 at full positive amplitude).</param>
-public sealed record ModeOverlay(ImmutableArray<double> Shape, string ReferenceMass, double ShapeScale, int Frames = 1);
+public sealed record ModeOverlay(ImmutableArray<double> Shape, string ReferenceMass, double ShapeScale, int Frames = 1)
+{
+    /// <summary>
+    /// Indexes of the masses drawn at rest whatever their shape value: the electrical nodes of a transducer model, whose
+    /// values are flux linkages, not displacements. Their value is printed beside them, marked as electrical.
+    /// </summary>
+    public ImmutableHashSet<int> AtRest { get; init; } = [];
+}
 
 /// <summary>Draws a network as a schematic (masses as blocks, springs as zigzags, dampers as dashpots, supports hatched), optionally with a mode shape.</summary>
 /// <remarks>
@@ -80,7 +87,7 @@ public static class NetworkFigure
         var across = frame.AcrossPixels(mode.ShapeScale);
         var frames = Enumerable.Range(0, Math.Max(1, mode.Frames))
             .Select(k => Math.Cos(2 * Math.PI * k / Math.Max(1, mode.Frames - 1)))
-            .Select(phase => rest.Select((c, i) => c + phase * mode.Shape[i] * across).ToArray())
+            .Select(phase => rest.Select((c, i) => mode.AtRest.Contains(i) ? c : c + phase * mode.Shape[i] * across).ToArray())
             .ToArray();
 
         DrawSupports(shapes, layout, frame, rest);
@@ -93,13 +100,17 @@ public static class NetworkFigure
             {
                 var tip = frames[0][i];
                 // The label sits on the outer side of the displaced block, away from the undeformed one.
-                var outward = mode.Shape[i] >= 0;
+                var outward = mode.AtRest.Contains(i) || mode.Shape[i] >= 0;
                 var offset = frame.Axis == ChainAxis.Vertical
                     ? new Point(outward ? frame.HalfWidth + 4 : -frame.HalfWidth - 4, 4)
                     : new Point(0, outward ? -frame.HalfHeight - 5 : frame.HalfHeight + 13);
                 var anchor = frame.Axis == ChainAxis.Horizontal ? TextAnchor.Middle : outward ? TextAnchor.Start : TextAnchor.End;
-                shapes.Add(new TextShape(tip + offset, Signed(mode.Shape[i]), 10, anchor, false, Palette.Vermillion)
-                { Class = "amplitude", Data = ImmutableDictionary<string, string>.Empty.Add("mass", layout.Masses[i].Name) });
+                if (mode.AtRest.Contains(i))
+                    shapes.Add(new TextShape(tip + offset, "electrical " + Signed(mode.Shape[i]), 10, anchor, false, Palette.Grey)
+                    { Class = "amplitude electrical", Data = ImmutableDictionary<string, string>.Empty.Add("mass", layout.Masses[i].Name) });
+                else
+                    shapes.Add(new TextShape(tip + offset, Signed(mode.Shape[i]), 10, anchor, false, Palette.Vermillion)
+                    { Class = "amplitude", Data = ImmutableDictionary<string, string>.Empty.Add("mass", layout.Masses[i].Name) });
             }
         var data = frame.Data
             .Add("shape-scale-m", Invariant(mode.ShapeScale))

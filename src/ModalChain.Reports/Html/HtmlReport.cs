@@ -20,6 +20,7 @@ internal static class HtmlReport
     {
         var document = context.Document;
         var title = document.Network.Title;
+        var circuit = document.Circuit is not null;
         var generated = Generated(context);
         var e = (Func<string, string>)HtmlWriter.Encode;
         var html = new StringBuilder();
@@ -27,9 +28,9 @@ internal static class HtmlReport
         html.Append("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n");
         html.Append("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">\n");
         html.Append($"<meta name=\"generator\" content=\"ModalChain {e(context.Options.ToolVersion)}\">\n");
-        html.Append($"<title>{e("Vibration report: " + title)}</title>\n<style>\n").Append(Css).Append("</style>\n</head>\n<body>\n");
+        html.Append($"<title>{e((circuit ? "Circuit report: " : "Vibration report: ") + title)}</title>\n<style>\n").Append(Css).Append("</style>\n</head>\n<body>\n");
 
-        html.Append("<header class=\"report-header\">\n<div class=\"kicker\">ModalChain vibration report</div>\n");
+        html.Append($"<header class=\"report-header\">\n<div class=\"kicker\">ModalChain {(circuit ? "circuit" : "vibration")} report</div>\n");
         html.Append($"<h1>{e(title)}</h1>\n");
         var traceFacts = Trace(context);
         var trace = new HtmlWriter().Facts(traceFacts, "facts trace");
@@ -71,7 +72,7 @@ internal static class HtmlReport
         ("SHA-256 of the model file", context.Document.Sha256),
         ("Tool", "ModalChain " + context.Options.ToolVersion),
         ("Generated", Generated(context)),
-        ("Units shown", UnitsShown(context.Units)),
+        ("Units shown", context.Document.Circuit is null ? UnitsShown(context.Units) : CircuitUnitsShown),
     ];
 
     // Print layout: the page box is left to the print dialogue (A4 or Letter) and content is sized for the smaller of the
@@ -133,6 +134,8 @@ internal static class HtmlReport
         }
 
         """;
+
+    private const string CircuitUnitsShown = "SI with the usual prefixes (voltage V, current A, resistance and impedance Ω, inductance H, capacitance F, time s, frequency Hz); results.json in SI without prefixes";
 
     private static string UnitsShown(DisplayUnits u) =>
         (u.System == UnitSystem.Imperial ? "US customary" : "SI") +

@@ -24,6 +24,7 @@ public sealed class ModesSection : IReportSection
     private readonly ImmutableArray<SchematicFigure> _modeFigures;
     private readonly ImmutableArray<ComplexMode> _complexModes;
     private readonly ModeView _view;
+    private readonly ImmutableHashSet<int> _electrical;
 
     private ModesSection(ReportContext context)
     {
@@ -32,6 +33,7 @@ public sealed class ModesSection : IReportSection
         _complexModes = context.Damped.IsClassical && !context.Damped.HasFirstOrderStates ? [] : ComplexModes.Solve(context.Damped);
         _massChart = MassChart(_result);
         _view = ViewOf(_result.Network);
+        _electrical = _result.Network.Space == Core.Model.ModelSpace.Line ? ElectricalNodes(_result.Network) : [];
         if (_view == ModeView.Map)
         {
             _modeFigures = [.. _result.Modes.Select(MapFigure)];
@@ -125,6 +127,57 @@ public sealed class ModesSection : IReportSection
             if (Math.Abs(mode.Shape[i]) > Math.Abs(mode.Shape[reference])) reference = i;
         var peak = mode.Shape[reference];
         return ([.. mode.Shape.Select(v => v / peak)], reference);
+    }
+
+    /// <summary>
+    /// Indexes into the network's masses of the nodes on the electrical side of its transducers: each transducer's two
+    /// electrical terminals and every node joined to them by springs, dampers or inerters (supports stop the search).
+    /// Empty for a model without transducers.
+    /// </summary>
+    /// <remarks>
+    /// The values of these nodes in a mode shape are flux linkages per unit modal coordinate (V·s), not displacements; a
+    /// mode figure draws them at rest and scales the drawing by the mechanical nodes only. The transducers themselves are
+    /// not followed, so the search never crosses to the mechanical side.
+    /// </remarks>
+    public static ImmutableHashSet<int> ElectricalNodes(Core.Model.Network network)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        if (network.Transducers.IsEmpty) return [];
+        var index = network.Masses.Select((m, i) => (m.Name, i)).ToDictionary(p => p.Name, p => p.i, StringComparer.Ordinal);
+        var neighbours = new Dictionary<string, List<string>>(StringComparer.Ordinal);
+        void Join(string a, string b)
+        {
+            (neighbours.TryGetValue(a, out var la) ? la : neighbours[a] = []).Add(b);
+            (neighbours.TryGetValue(b, out var lb) ? lb : neighbours[b] = []).Add(a);
+        }
+        foreach (var e in network.Springs) Join(e.NodeA, e.NodeB);
+        foreach (var e in network.Dampers) Join(e.NodeA, e.NodeB);
+        foreach (var e in network.Inerters) Join(e.NodeA, e.NodeB);
+        var seen = new HashSet<string>(StringComparer.Ordinal);
+        var queue = new Queue<string>(network.Transducers.SelectMany(t => new[] { t.BranchA, t.BranchB }).Where(index.ContainsKey));
+        while (queue.TryDequeue(out var node))
+        {
+            if (!seen.Add(node)) continue;
+            foreach (var next in neighbours.GetValueOrDefault(node) ?? [])
+                if (index.ContainsKey(next) && !seen.Contains(next)) queue.Enqueue(next);
+        }
+        // A side that takes in every node would leave nothing to scale by: then nothing is set apart.
+        return seen.Count >= network.Masses.Length ? [] : [.. seen.Select(n => index[n])];
+    }
+
+    /// <summary>
+    /// A shape given at every mass normalised to max |φ| = 1 over the masses not in <paramref name="electrical"/>, and the
+    /// index of that largest entry; the electrical entries are divided by the same value.
+    /// </summary>
+    public static (ImmutableArray<double> Shape, int Reference) NormalisedOverMechanical(ImmutableArray<double> byMass, IReadOnlySet<int> electrical)
+    {
+        ArgumentNullException.ThrowIfNull(electrical);
+        var reference = -1;
+        for (var i = 0; i < byMass.Length; i++)
+            if (!electrical.Contains(i) && (reference < 0 || Math.Abs(byMass[i]) > Math.Abs(byMass[reference]))) reference = i;
+        if (reference < 0) throw new ArgumentException("Every entry is electrical: nothing to scale the drawing by.", nameof(electrical));
+        var peak = byMass[reference];
+        return peak == 0 ? ([.. byMass], reference) : ([.. byMass.Select(v => v / peak)], reference);
     }
 
     /// <summary>"Mode 2: 12.34 Hz", the title line of a mode figure.</summary>
@@ -245,7 +298,8 @@ public sealed class ModesSection : IReportSection
     private SchematicFigure MapFigure(Mode mode)
     {
         var network = _result.Network;
-        var (shape, reference) = Normalised(mode with { Shape = _result.ShapeByMass(mode) });
+        var (shape, reference) = NormalisedOverMechanical(_result.ShapeByMass(mode), _electrical);
+        shape = [.. shape.Select((v, i) => _electrical.Contains(i) ? 0 : v)]; // the map shows motion: electrical nodes at 0
         var referenceName = network.Masses[reference].Name;
         var supported = network.Springs.Select(s => (s.NodeA, s.NodeB)).Concat(network.Dampers.Select(d => (d.NodeA, d.NodeB)))
             .SelectMany(e => network.IsSupport(e.NodeA) ? [e.NodeB] : network.IsSupport(e.NodeB) ? new[] { e.NodeA } : [])
@@ -271,8 +325,8 @@ public sealed class ModesSection : IReportSection
     private SchematicFigure LargestMotionsFigure(Mode mode)
     {
         var network = _result.Network;
-        var (shape, reference) = Normalised(mode with { Shape = _result.ShapeByMass(mode) });
-        var largest = Largest([.. shape.Select(Math.Abs)], LargestMotionsShown).Select(i => (network.Masses[i].Name, shape[i])).ToArray();
+        var (shape, reference) = NormalisedOverMechanical(_result.ShapeByMass(mode), _electrical);
+        var largest = Largest([.. shape.Select((v, i) => _electrical.Contains(i) ? -1 : Math.Abs(v))], LargestMotionsShown).Where(i => !_electrical.Contains(i)).Select(i => (network.Masses[i].Name, shape[i])).ToArray();
         string[] header =
         [
             ModeTitle(mode),
@@ -288,8 +342,9 @@ public sealed class ModesSection : IReportSection
 
     private SchematicFigure ModeFigure(Mode mode, NetworkLayout layout, double scale, bool animate)
     {
-        // The drawing has every mass; linked masses share their DOF's value.
-        var (shape, reference) = Normalised(mode with { Shape = _result.ShapeByMass(mode) });
+        // The drawing has every mass; linked masses share their DOF's value. The electrical nodes of a transducer model are
+        // drawn at rest and left out of the scale (their values are flux linkages).
+        var (shape, reference) = NormalisedOverMechanical(_result.ShapeByMass(mode), _electrical);
         var referenceName = layout.Masses[reference].Name;
         var header = new[]
         {
@@ -302,7 +357,14 @@ public sealed class ModesSection : IReportSection
             string.Create(Inv, $"Shape scale: normalised so that max |φ| = 1 (at {referenceName}); 1 is drawn as {ScaleText(scale)} m of the drawing."),
             $"Displacements act in the network's direction of motion and are drawn across the chain, {direction}.",
         };
-        var overlay = new ModeOverlay(shape, referenceName, scale, animate ? 25 : 1);
+        if (!_electrical.IsEmpty)
+            footer =
+            [
+                .. footer,
+                $"Electrical nodes, drawn at rest and left out of the scale: {string.Join(", ", _electrical.Order().Select(i => layout.Masses[i].Name))}.",
+                "Their values (grey) are flux linkages in V·s on the same normalisation, not displacements.",
+            ];
+        var overlay = new ModeOverlay(shape, referenceName, scale, animate ? 25 : 1) { AtRest = _electrical };
         var scene = NetworkFigure.Mode(layout, overlay, header, footer);
         var caption = string.Create(Inv,
             $"Mode {mode.Number} at {DisplayUnits.Number(mode.NaturalFrequencyHz)} Hz ({(mode.IsRigidBody ? "rigid-body mode" : "period " + DisplayUnits.Number(mode.PeriodSeconds) + " s")}), effective mass {DisplayUnits.Percent(mode.EffectiveMassFraction)} %. Shape normalised to +1 at {referenceName}.");

@@ -9,7 +9,7 @@ namespace ModalChain.Cli.Tests.Circuits;
 /// circuit a located error with exit code 2.</summary>
 public class CircuitCommandTests
 {
-    private static string Example => Path.Combine(RepositoryRoot, "docs", "examples", "series-circuit.yaml");
+    private static string Example => Path.Combine(RepositoryRoot, "models", "series-circuit.yaml");
 
     [Fact]
     public void Example_IsValidAgainstTheModelSchema()
@@ -78,7 +78,6 @@ public class CircuitCommandTests
 
     [Theory]
     [InlineData("check")]
-    [InlineData("report", "-o", "/tmp/modalchain-circuit-report-never-written")]
     [InlineData("tune", "--host", "output", "--mass-ratio", "5 %")]
     [InlineData("study", "--vary", "speed", "--from", "0", "--to", "10 Hz")]
     public void CommandsWithoutACircuitForm_RefuseACircuitWithExitCode2(string command, params string[] options)

@@ -42,7 +42,8 @@ public sealed partial class DisplayUnitsTests
     public static TheoryData<string, string> ModelsAndSystems()
     {
         var data = new TheoryData<string, string>();
-        foreach (var m in ModelNames())
+        // Circuit models print V, A and Ω whatever --units says, and their element names are their own (CircuitModelsEndToEndTests).
+        foreach (var m in ModelNames().Where(n => !IsCircuit(n)))
         {
             data.Add(m, "si");
             data.Add(m, "imperial");

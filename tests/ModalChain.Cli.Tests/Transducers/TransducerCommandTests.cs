@@ -85,12 +85,12 @@ public class TransducerCommandTests
     [Fact]
     public void FloorTestExample_SensorVoltageFollowsTheFloorVelocityAsAMovingCoilSensorOnAMovingBase()
     {
-        // docs/examples/floor-shaker-test.yaml: the sensor on bay B, read across a 10 kΩ recorder input through its
+        // models/floor-shaker-test.yaml: the sensor on bay B, read across a 10 kΩ recorder input through its
         // 375 Ω coil. Per unit base velocity its output is Bl·R_load/(R_coil + R_load)·ω²/|ω₀² − ω² + 2iζω₀ω| with
         // ζ = c/(2mω₀) + (Bl)²/(2mω₀(R_coil + R_load)) (common practice for moving-coil sensors, the open-circuit
         // sensitivity of docs/methods.md "Transducers" with the load divider). The closed form neglects the sensor's
         // reaction on the 5,000 kg bay (mass ratio 2e-6), hence 1e-4 relative (4.5e-6 seen).
-        var example = Path.Combine(CliRun.RepositoryRoot, "docs", "examples", "floor-shaker-test.yaml");
+        var example = Path.Combine(CliRun.RepositoryRoot, "models", "floor-shaker-test.yaml");
         SchemaFiles.AssertValid("model.schema.json", SchemaFiles.YamlToJson(File.ReadAllText(example)).GetRawText(), "floor-shaker-test.yaml");
         var o = CliRun.Run("harmonic", example, "--format", "json");
         Assert.True(o.ExitCode == 0, o.ToString());

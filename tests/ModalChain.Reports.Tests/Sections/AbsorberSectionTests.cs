@@ -115,7 +115,7 @@ public sealed class AbsorberSectionTests
         Assert.All(figure.Model.Annotations.OfType<CurveLabel>(), l => Assert.True(l.Placed));
     }
 
-    public static IEnumerable<object[]> LineModels() => Repository.ModelFiles()
+    public static IEnumerable<object[]> LineModels() => Repository.MechanicalModelFiles()
         .Where(m => Repository.Load((string)m[0]).Network.Space == ModalChain.Core.Model.ModelSpace.Line);
 
     [Theory]

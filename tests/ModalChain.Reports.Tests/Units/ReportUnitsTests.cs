@@ -7,7 +7,8 @@ namespace ModalChain.Reports.Tests.Units;
 /// <summary>The report's tables and chart texts are in the units asked for and in words, never JSON keys, for every model in models/.</summary>
 public sealed partial class ReportUnitsTests
 {
-    public static IEnumerable<object[]> Models() => Repository.ModelFiles();
+    // Circuit models speak V, A and Ω in every unit system (CircuitReportTests).
+    public static IEnumerable<object[]> Models() => Repository.MechanicalModelFiles();
 
     [GeneratedRegex(@"<table.*?</table>|<svg.*?</svg>", RegexOptions.Singleline)]
     private static partial Regex TablesAndCharts();
