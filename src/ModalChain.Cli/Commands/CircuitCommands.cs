@@ -81,7 +81,7 @@ internal static class CircuitCommands
         o.WriteLine(string.Create(inv, $"  nodes:               {c.Nodes.Length} besides ground ({analogy.MassiveCount} with capacitance, {analogy.MasslessCount} without, {analogy.PrescribedCount} held by voltage sources)"));
         o.WriteLine(string.Create(inv, $"  R, L, C:             {c.Resistors.Length}, {c.Inductors.Length}, {c.Capacitors.Length}"));
         o.WriteLine(string.Create(inv, $"  sources (V, I):      {c.VoltageSources.Length}, {c.CurrentSources.Length}"));
-        o.WriteLine(string.Create(inv, $"  DC levels:           {CircuitTopology.ZeroRootCount(analogy)} (zero roots of parts no inductor or resistor ties to ground)"));
+        o.WriteLine(string.Create(inv, $"  DC levels:           {CircuitTopology.VoltageLevelCount(analogy)} (zero roots of parts no inductor or resistor ties to ground or to a source)"));
         o.WriteLine(string.Create(inv, $"  warnings:            {CommonOptions.WarningCount(document)}"));
         o.WriteLine($"  sha256:              {document.Sha256}");
         return ExitCodes.Success;

@@ -30,7 +30,7 @@ internal static class CircuitTables
                 Maybe(r.TimeConstant), Root(r.Root));
         table.Write(o);
         if (roots.Any(r => r.Kind == CircuitRootKind.DcLevel))
-            o.WriteLine("A DC level is a zero root: the flux (or voltage) level of a part no inductor or resistor ties to ground; it is not an oscillation.");
+            o.WriteLine("A DC level is a zero root: the voltage a part keeps when no inductor or resistor ties it to ground or to a source (a charge that stays); it is not an oscillation.");
         Cautions(o);
     }
 

@@ -55,7 +55,7 @@ public sealed class CircuitRootsSection : IReportSection
         ArgumentNullException.ThrowIfNull(html);
         html.Paragraph("The roots s of the circuit's free response e^(st) with every source switched off (voltage sources shorted, current sources open). " +
             "A complex pair is a decaying oscillation: natural frequency f₀ = |s|/2π, damping ratio ζ = −Re s/|s|, Q factor Q = 1/(2ζ), damped frequency f_d = Im s/2π. " +
-            "A real root is an exponential relaxation with time constant τ = −1/s. A DC level is a zero root: the voltage level a part of the circuit keeps when no inductor or resistor ties it to ground.");
+            "A real root is an exponential relaxation with time constant τ = −1/s. A DC level is a zero root: the voltage level a part of the circuit keeps when no inductor or resistor ties it to ground or to a source.");
         if (Roots.IsEmpty)
         {
             html.Paragraph("The circuit has no free response: every node's voltage is set by a source.", "note");

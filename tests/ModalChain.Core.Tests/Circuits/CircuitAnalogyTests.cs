@@ -150,8 +150,13 @@ public class CircuitAnalogyTests
         var integrator = new Circuit("integrator", ["a"], [], [], [new Capacitor("C1", "a", Circuit.Ground, 1e-6)], [],
             [new CurrentSource("I1", Circuit.Ground, "a", 1, null)]);
         Assert.Equal(2, CircuitTopology.ZeroRootCount(CircuitAnalogy.Of(integrator)));
+        // Of these, one is the flux level (shows in no voltage), one the voltage the capacitor keeps: a DC level.
+        Assert.Equal(1, CircuitTopology.FluxLevelCount(CircuitAnalogy.Of(integrator)));
+        Assert.Equal(1, CircuitTopology.VoltageLevelCount(CircuitAnalogy.Of(integrator)));
+        Assert.Equal(CircuitRootKind.DcLevel, Assert.Single(CircuitModes.Solve(CircuitAnalogy.Of(integrator))).Kind);
         Assert.Equal(0, CircuitTopology.ZeroRootCount(CircuitAnalogy.Of(CircuitFixtures.ParallelRlc(1, 1, 1))));
         Assert.Equal(1, CircuitTopology.ZeroRootCount(CircuitAnalogy.Of(CircuitFixtures.SeriesRlc(1, 1, 1))));
+        Assert.Equal(0, CircuitTopology.VoltageLevelCount(CircuitAnalogy.Of(CircuitFixtures.SeriesRlc(1, 1, 1))));
     }
 
     private static Matrix<double> D(Matrix<double> m) => Matrix<double>.Build.DenseOfMatrix(m);

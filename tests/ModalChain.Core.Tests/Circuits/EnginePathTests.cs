@@ -62,7 +62,8 @@ public class EnginePathTests
     public void Roots_EqualTheStateSpaceReference(string name)
     {
         var analogy = CircuitAnalogy.Of(Build(name));
-        var expected = ReferenceModes.Solve(CircuitStateSpace.Of(analogy));
+        // The reference lists every zero root; the network path leaves out the flux levels, which no voltage or current shows.
+        var expected = ReferenceModes.Solve(CircuitStateSpace.Of(analogy)).Skip(CircuitTopology.FluxLevelCount(analogy)).ToArray();
         var actual = CircuitModes.Solve(analogy);
         Assert.Equal(expected.Select(r => r.Kind), actual.Select(r => r.Kind));
         Assert.NotEmpty(actual);

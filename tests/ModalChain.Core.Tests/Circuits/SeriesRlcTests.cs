@@ -24,9 +24,10 @@ public class SeriesRlcTests
     {
         var roots = CircuitModes.Solve(CircuitAnalogy.Of(CircuitFixtures.SeriesRlc(r, L, C)));
         var zeta = r / 2 * Math.Sqrt(C / L);
-        // The flux of 'mid' and 'out' together is free (no inductor reaches ground): one DC level, never an oscillation.
-        Assert.Equal([CircuitRootKind.DcLevel, CircuitRootKind.Oscillation], roots.Select(x => x.Kind));
-        var osc = roots[1];
+        // The flux of 'mid' and 'out' together is free (no inductor reaches ground), a zero root of the flux coordinate that
+        // no voltage or current shows: the circuit's roots are the two of its second-order equation, one oscillation.
+        Assert.Equal([CircuitRootKind.Oscillation], roots.Select(x => x.Kind));
+        var osc = roots[0];
         NumericAssert.Close(W0 / (2 * Math.PI), osc.NaturalFrequencyHz, Tolerance.Rel(1e-12), "f0 = 1/(2π√(LC))");
         NumericAssert.Close(zeta, osc.DampingRatio, Tolerance.Rel(1e-12), "ζ = (R/2)√(C/L)");
         NumericAssert.Close(1 / (2 * zeta), osc.QualityFactor, Tolerance.Rel(1e-12), "Q = 1/(2ζ)");
@@ -40,9 +41,9 @@ public class SeriesRlcTests
         var roots = CircuitModes.Solve(CircuitAnalogy.Of(CircuitFixtures.SeriesRlc(r, L, C)));
         var alpha = r / (2 * L);
         var root = Math.Sqrt(alpha * alpha - W0 * W0);
-        Assert.Equal([CircuitRootKind.DcLevel, CircuitRootKind.Relaxation, CircuitRootKind.Relaxation], roots.Select(x => x.Kind));
-        NumericAssert.Close(1 / (alpha - root), roots[1].TimeConstant, Tolerance.Rel(1e-12), "slow τ = −1/s₁");
-        NumericAssert.Close(1 / (alpha + root), roots[2].TimeConstant, Tolerance.Rel(1e-12), "fast τ = −1/s₂");
+        Assert.Equal([CircuitRootKind.Relaxation, CircuitRootKind.Relaxation], roots.Select(x => x.Kind));
+        NumericAssert.Close(1 / (alpha - root), roots[0].TimeConstant, Tolerance.Rel(1e-12), "slow τ = −1/s₁");
+        NumericAssert.Close(1 / (alpha + root), roots[1].TimeConstant, Tolerance.Rel(1e-12), "fast τ = −1/s₂");
     }
 
     [Theory]

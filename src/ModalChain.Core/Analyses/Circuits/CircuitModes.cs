@@ -9,7 +9,7 @@ namespace ModalChain.Core.Analyses.Circuits;
 /// <summary>What a root of a circuit's free response stands for.</summary>
 public enum CircuitRootKind
 {
-    /// <summary>A zero root: the DC level of a part no inductor (or resistor) ties to ground, like a rigid-body mode; never an oscillation.</summary>
+    /// <summary>A zero root: the voltage level a part keeps when no inductor or resistor ties it to ground or to a source (a charge that stays), like a rigid-body mode; never an oscillation.</summary>
     DcLevel,
     /// <summary>A complex pair: a decaying oscillation with a natural frequency, damping ratio and Q factor.</summary>
     Oscillation,
@@ -35,8 +35,9 @@ public sealed record CircuitRoot(int Number, CircuitRootKind Kind, Complex Root,
 /// (<see cref="FirstOrderRoots"/>) of its first-order form (<see cref="FirstOrderSystem"/>, built from the network's
 /// assembled M, C and K with the nodes voltage sources hold as fixed supports: sources switched off), whose state holds
 /// two entries per node with capacitance and one per node without. The <see cref="CircuitTopology.ZeroRootCount"/>
-/// smallest roots are the DC levels, the network's rigid-body roots, counted from the topology rather than judged by
-/// size; a pair whose imaginary parts are below 1e-7 of its magnitude is taken as two real roots (critical damping
+/// smallest roots are the network's rigid-body roots, counted from the topology rather than judged by size: of these,
+/// the <see cref="CircuitTopology.VoltageLevelCount"/> DC levels are listed, and the flux levels
+/// (<see cref="CircuitTopology.FluxLevelCount"/>), which no voltage or current shows, are left out; a pair whose imaginary parts are below 1e-7 of its magnitude is taken as two real roots (critical damping
 /// rounds to such a pair). A series RLC gives ω₀ = 1/√(LC), ζ = (R/2)√(C/L).
 /// </remarks>
 public static class CircuitModes
@@ -53,9 +54,10 @@ public static class CircuitModes
         var system = FirstOrderSystem.Build(partition.Mass, partition.DamperFF, partition.StiffnessFF, partition.Free.Label);
         var values = FirstOrderRoots.Of(system);
         var zeros = Math.Min(CircuitTopology.ZeroRootCount(analogy), values.Length);
+        var levels = Math.Min(CircuitTopology.VoltageLevelCount(analogy), zeros);
         var ordered = values.OrderBy(v => v.Magnitude).ToList();
         var roots = new List<(CircuitRootKind Kind, Complex S)>();
-        for (var i = 0; i < zeros; i++) roots.Add((CircuitRootKind.DcLevel, Complex.Zero));
+        for (var i = 0; i < levels; i++) roots.Add((CircuitRootKind.DcLevel, Complex.Zero));
         foreach (var s in ordered.Skip(zeros))
         {
             if (Math.Abs(s.Imaginary) > RealTolerance * s.Magnitude)

@@ -45,13 +45,29 @@ public static class CircuitTopology
     /// to a source node (its flux level is arbitrary), and one more per group that neither an inductor nor a resistor
     /// path ties to them (its voltage level is arbitrary too: a charge that stays).
     /// </summary>
-    public static int ZeroRootCount(CircuitAnalogy analogy)
+    public static int ZeroRootCount(CircuitAnalogy analogy) => FluxLevelCount(analogy) + VoltageLevelCount(analogy);
+
+    /// <summary>
+    /// The zero roots that only the flux coordinate has: one per group of free nodes that no inductor path ties to ground
+    /// or to a source node. Shifting the group's fluxes by a constant changes no voltage (λ̇) and no current (inductor
+    /// currents depend on flux differences within the group, resistor and capacitor currents on λ̇ and λ̈), so no voltage
+    /// or current shows these roots: they are not roots of the circuit and are not listed.
+    /// </summary>
+    public static int FluxLevelCount(CircuitAnalogy analogy)
+    {
+        ArgumentNullException.ThrowIfNull(analogy);
+        return FloatingGroups(analogy, [.. analogy.Circuit.Inductors.Select(e => (e.NodeA, e.NodeB))]);
+    }
+
+    /// <summary>
+    /// The DC levels: one per group of free nodes that neither an inductor nor a resistor path ties to ground or to a
+    /// source node. Its voltage may stay at any constant (a charge its capacitors keep): a zero root the voltages show.
+    /// </summary>
+    public static int VoltageLevelCount(CircuitAnalogy analogy)
     {
         ArgumentNullException.ThrowIfNull(analogy);
         var circuit = analogy.Circuit;
-        var inductive = circuit.Inductors.Select(e => (e.NodeA, e.NodeB)).ToList();
-        var both = inductive.Concat(circuit.Resistors.Select(e => (e.NodeA, e.NodeB))).ToList();
-        return FloatingGroups(analogy, inductive) + FloatingGroups(analogy, both);
+        return FloatingGroups(analogy, [.. circuit.Inductors.Select(e => (e.NodeA, e.NodeB)).Concat(circuit.Resistors.Select(e => (e.NodeA, e.NodeB)))]);
     }
 
     private static int FloatingGroups(CircuitAnalogy analogy, List<(string A, string B)> edges)
