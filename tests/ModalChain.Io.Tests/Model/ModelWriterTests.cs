@@ -207,8 +207,11 @@ public class ModelWriterInPlaceTests
         throw new InvalidOperationException("ModalChain.sln not found");
     }
 
+    // The mechanical example models: an absorber is added to each (a circuit model has no mass to host one).
     public static TheoryData<string> ExampleModels() =>
-        [.. Directory.GetFiles(Path.Combine(Root(), "models"), "*.yaml").Select(f => Path.GetFileName(f)).Order(StringComparer.Ordinal)];
+        [.. Directory.GetFiles(Path.Combine(Root(), "models"), "*.yaml")
+            .Where(f => ModelReader.Read(File.ReadAllText(f), f).Model is { Circuit: null })
+            .Select(f => Path.GetFileName(f)).Order(StringComparer.Ordinal)];
 
     /// <summary>Adds an absorber on the heaviest mass of <paramref name="original"/> and writes the file; returns the expected network and the text.</summary>
     private static (Network Expected, string Text) WithAbsorber(string original, string file = "in.yaml")
