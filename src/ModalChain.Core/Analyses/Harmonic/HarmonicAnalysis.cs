@@ -186,8 +186,9 @@ public static class HarmonicAnalysis
         int used;
         HarmonicEngine engine;
         // Damping at a massless node makes it a first-order state that no undamped mode describes: solve directly.
-        if (method == HarmonicMethod.Modal && network.Space == ModelSpace.Line
-            && MasslessReduction.Classify(p.Mass, system.Damping.FF).HasFirstOrderStates)
+        // (Asked of the system, which looks at C only when a mass is massless: reading C forms it, a dense n×n product
+        // for modal damping ratios that the modal method never uses.)
+        if (method == HarmonicMethod.Modal && system.HasFirstOrderStates)
         {
             method = HarmonicMethod.Direct;
             notes.Add("the modal method was asked for, but damping at a massless node makes it a first-order state that the undamped modes do not describe: solved directly instead");
