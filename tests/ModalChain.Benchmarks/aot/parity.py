@@ -3,7 +3,8 @@
 usage: parity.py AOT_EXECUTABLE NORMAL_DLL WORK_DIR [--models DIR] [--pdf]
 
 Each command runs with each format its --help lists (read from the normal build). Compared: exit code, stdout and stderr;
-for `report`, the list of files written and results.json byte for byte, and report.html and the SVG figures too
+for `report`, the list of files written and results.json byte for byte (its generation time blanked), and report.html
+and the SVG figures too
 (reported separately, since a report may carry what differs between builds legitimately). Prints one line per difference
 and a summary; exit code 1 when any command's output differs.
 """
@@ -36,6 +37,11 @@ def first_mass(model):
         return next(iter(masses)) if masses else None
     except Exception:
         return None
+
+
+def stamped(path):
+    """The bytes of a results.json with its generation time blanked: two runs a second apart differ only there."""
+    return re.sub(rb'"generated_utc": "[^"]*"', b'"generated_utc": ""', path.read_bytes())
 
 
 def run(command, cwd):
@@ -71,14 +77,20 @@ def main():
                     extra += ["--format", fmt]
                 results = {}
                 for name, build in builds.items():
-                    out_dir = None
+                    kept = None
                     line = build + [command, str(model)] + extra
                     if command == "report":
-                        out_dir = work / name / f"{model.stem}-{fmt}"
+                        # Both builds write to the same folder (its path may be printed), moved aside after each run.
+                        out_dir = work / "report"
+                        kept = work / name / f"{model.stem}-{fmt}"
                         shutil.rmtree(out_dir, ignore_errors=True)
+                        shutil.rmtree(kept, ignore_errors=True)
+                        kept.parent.mkdir(parents=True, exist_ok=True)
                         line += ["--output", str(out_dir)]
                     # Both run from the models folder, so paths printed relative to it agree.
-                    results[name] = (run(line, models_dir), out_dir)
+                    results[name] = (run(line, models_dir), kept)
+                    if kept is not None and out_dir.exists():
+                        out_dir.rename(kept)
                 runs += 1
                 what = f"{command} {model.name}" + (f" --format {fmt}" if fmt else "")
                 (a_code, a_out, a_err), a_dir = results["aot"]
@@ -90,7 +102,7 @@ def main():
                     problems.append(f"stdout differs ({len(a_out)} vs {len(n_out)} bytes)")
                 if a_err != n_err:
                     problems.append(f"stderr differs ({len(a_err)} vs {len(n_err)} bytes)")
-                if command == "report" and a_code == 0 and n_code == 0:
+                if command == "report" and a_code == 0 and n_code == 0 and a_dir.exists() and n_dir.exists():
                     a_files = sorted(str(p.relative_to(a_dir)) for p in a_dir.rglob("*") if p.is_file())
                     n_files = sorted(str(p.relative_to(n_dir)) for p in n_dir.rglob("*") if p.is_file())
                     if a_files != n_files:
@@ -98,7 +110,7 @@ def main():
                     elif "results.json" not in a_files:
                         problems.append("no results.json")
                     else:
-                        if not filecmp.cmp(a_dir / "results.json", n_dir / "results.json", shallow=False):
+                        if stamped(a_dir / "results.json") != stamped(n_dir / "results.json"):
                             problems.append("results.json differs")
                         other = [f for f in a_files if f != "results.json" and not f.endswith(".pdf")
                                  and not filecmp.cmp(a_dir / f, n_dir / f, shallow=False)]
