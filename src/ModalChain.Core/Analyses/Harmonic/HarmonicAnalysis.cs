@@ -186,7 +186,9 @@ public static class HarmonicAnalysis
         int used;
         HarmonicEngine engine;
         // Damping at a massless node makes it a first-order state that no undamped mode describes: solve directly.
-        if (method == HarmonicMethod.Modal && MasslessReduction.Classify(p.Mass, system.Damping.FF).HasFirstOrderStates)
+        // (Asked of the system, which looks at C only when a mass is massless: reading C forms it, a dense n×n product
+        // for modal damping ratios that the modal method never uses.)
+        if (method == HarmonicMethod.Modal && system.HasFirstOrderStates)
         {
             method = HarmonicMethod.Direct;
             notes.Add("the modal method was asked for, but damping at a massless node makes it a first-order state that the undamped modes do not describe: solved directly instead");
@@ -226,17 +228,27 @@ public static class HarmonicAnalysis
         var failed = -1;
         // Contiguous chunks, one per worker, each with its workspace allocated once: no allocation per frequency.
         var workers = Math.Max(1, Math.Min(Environment.ProcessorCount, nf / 64 + 1));
+        // An engine may solve several frequencies at once (the modal engine's products over a block); results do not depend on it.
+        var block = engine.BlockSize;
         Parallel.For(0, workers, new ParallelOptions { MaxDegreeOfParallelism = workers }, w =>
         {
             var workspace = engine.CreateWorkspace();
-            var coefficients = new Complex[terms];
+            var omegas = new double[block];
+            var coefficients = new Complex[block * terms];
             var powers = new Complex[HarmonicLoading.MaxPower - HarmonicLoading.MinPower + 1];
-            for (var k = (int)((long)nf * w / workers); k < (int)((long)nf * (w + 1) / workers); k++)
+            var end = (int)((long)nf * (w + 1) / workers);
+            for (var k0 = (int)((long)nf * w / workers); k0 < end; k0 += block)
             {
-                var omega = 2 * Math.PI * frequenciesHz[k];
-                HarmonicLoading.Powers(omega, powers);
-                for (var r = 0; r < terms; r++) coefficients[r] = powers[loading.Terms[r].Power - HarmonicLoading.MinPower];
-                if (!engine.Solve(omega, coefficients, x.AsSpan(k * nk, nk), workspace)) Interlocked.Exchange(ref failed, k);
+                var count = Math.Min(block, end - k0);
+                for (var f = 0; f < count; f++)
+                {
+                    var omega = 2 * Math.PI * frequenciesHz[k0 + f];
+                    omegas[f] = omega;
+                    HarmonicLoading.Powers(omega, powers);
+                    for (var r = 0; r < terms; r++) coefficients[f * terms + r] = powers[loading.Terms[r].Power - HarmonicLoading.MinPower];
+                }
+                var singular = engine.SolveBlock(omegas.AsSpan(0, count), coefficients.AsSpan(0, count * terms), terms, x.AsSpan(k0 * nk, count * nk), workspace);
+                if (singular >= 0) Interlocked.Exchange(ref failed, k0 + singular);
             }
         });
         if (failed >= 0)

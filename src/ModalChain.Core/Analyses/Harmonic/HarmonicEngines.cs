@@ -34,6 +34,24 @@ internal abstract class HarmonicEngine(double[][] observations)
     /// <param name="x">One value per observation row (m for a unit row, N for a stiffness row, N·s/m·m for a damping row).</param>
     /// <param name="workspace">Scratch memory from <see cref="CreateWorkspace"/>.</param>
     public abstract bool Solve(double omega, ReadOnlySpan<Complex> coefficients, Span<Complex> x, EngineWorkspace workspace);
+
+    /// <summary>How many frequencies <see cref="SolveBlock"/> handles best at once; 1 for engines that gain nothing from it.</summary>
+    public virtual int BlockSize => 1;
+
+    /// <summary>Solves at each of <paramref name="omegas"/> in turn; the index of the first singular frequency, else −1.</summary>
+    /// <param name="omegas">Circular frequencies in rad/s.</param>
+    /// <param name="coefficients">Per frequency, <paramref name="terms"/> values (iω)^{p_r}: frequency-major.</param>
+    /// <param name="terms">Load terms per frequency.</param>
+    /// <param name="x">Per frequency, one value per observation row: frequency-major.</param>
+    /// <param name="workspace">Scratch memory from <see cref="CreateWorkspace"/>.</param>
+    public virtual int SolveBlock(ReadOnlySpan<double> omegas, ReadOnlySpan<Complex> coefficients, int terms, Span<Complex> x, EngineWorkspace workspace)
+    {
+        var nk = Observations.Length;
+        var failed = -1;
+        for (var f = 0; f < omegas.Length; f++)
+            if (!Solve(omegas[f], coefficients.Slice(f * terms, terms), x.Slice(f * nk, nk), workspace) && failed < 0) failed = f;
+        return failed;
+    }
 }
 
 /// <summary>Chooses the engine of the direct method by the size and storage of the model.</summary>
@@ -350,60 +368,158 @@ internal sealed class ModalEngine : HarmonicEngine
         }
     }
 
+    /// <summary>Frequencies per block: the modal amplitudes of a block are laid out so that x = Φ_obs Q runs over frequencies in SIMD lanes.</summary>
+    private const int Block = 32;
+
     private sealed class Workspace(int m, bool coupled) : EngineWorkspace
     {
         public readonly Complex[] Q = new Complex[m];
         public readonly Complex[]? Matrix = coupled ? new Complex[m * m] : null;
         public readonly int[]? Pivots = coupled ? new int[m] : null;
+        /// <summary>Modal amplitudes of one block, mode-major: q_j at frequency f is (QRe, QIm)[j·Block + f].</summary>
+        public readonly double[] QRe = new double[m * Block];
+        public readonly double[] QIm = new double[m * Block];
     }
 
     public override EngineWorkspace CreateWorkspace() => new Workspace(_m, _coupling is not null);
 
-    public override bool Solve(double omega, ReadOnlySpan<Complex> coefficients, Span<Complex> x, EngineWorkspace workspace)
+    public override int BlockSize => Block;
+
+    public override bool Solve(double omega, ReadOnlySpan<Complex> coefficients, Span<Complex> x, EngineWorkspace workspace) =>
+        SolveBlock(new ReadOnlySpan<double>(in omega), coefficients, _terms, x, workspace) < 0;
+
+    /// <remarks>
+    /// Per block of up to <see cref="Block"/> frequencies: the modal amplitudes q_j(ω) (the diagonal division, or the
+    /// coupled solve), then y = Φ_obs Q as real products over the block's frequencies. Every y_k(ω) is summed over the
+    /// modes in the same order, with the same operations, as one frequency at a time, so the result does not depend on
+    /// the block size, the SIMD width or the split between threads.
+    /// </remarks>
+    public override int SolveBlock(ReadOnlySpan<double> omegas, ReadOnlySpan<Complex> coefficients, int terms, Span<Complex> x, EngineWorkspace workspace)
     {
-        var ws = (Workspace)workspace;
+        var nk = Observations.Length;
+        for (var start = 0; start < omegas.Length; start += Block)
+        {
+            var count = Math.Min(Block, omegas.Length - start);
+            var failed = SolveChunk(omegas.Slice(start, count), coefficients.Slice(start * terms, count * terms), x.Slice(start * nk, count * nk), (Workspace)workspace);
+            if (failed >= 0) return start + failed;
+        }
+        return -1;
+    }
+
+    private int SolveChunk(ReadOnlySpan<double> omegas, ReadOnlySpan<Complex> coefficients, Span<Complex> x, Workspace ws)
+    {
+        var m = _m;
+        var terms = _terms;
+        var count = omegas.Length;
+        var qRe = ws.QRe;
+        var qIm = ws.QIm;
+        // Lanes past the block's last frequency are summed too (whole vectors); zeros keep them finite.
+        if (count < Block)
+        {
+            Array.Clear(qRe);
+            Array.Clear(qIm);
+        }
         var q = ws.Q.AsSpan();
-        var w2 = omega * omega;
-        for (var j = 0; j < _m; j++)
+        for (var f = 0; f < count; f++)
         {
-            var s = Complex.Zero;
-            var pj = _p.AsSpan(j * _terms, _terms);
-            for (var r = 0; r < _terms; r++) s += coefficients[r] * pj[r];
-            q[j] = s;
-        }
-        if (_coupling is null)
-        {
-            for (var j = 0; j < _m; j++)
+            var omega = omegas[f];
+            var w2 = omega * omega;
+            var cf = coefficients.Slice(f * terms, terms);
+            for (var j = 0; j < m; j++)
             {
-                var den = _lambda[j] * _hysteretic - w2 + new Complex(0, omega * _damping[j]);
-                if (den == Complex.Zero) return false;
-                q[j] /= den;
+                var s = Complex.Zero;
+                var pj = _p.AsSpan(j * terms, terms);
+                for (var r = 0; r < terms; r++) s += cf[r] * pj[r];
+                q[j] = s;
+            }
+            if (_coupling is null)
+            {
+                for (var j = 0; j < m; j++)
+                {
+                    var den = _lambda[j] * _hysteretic - w2 + new Complex(0, omega * _damping[j]);
+                    if (den == Complex.Zero) return f;
+                    q[j] /= den;
+                }
+            }
+            else
+            {
+                var z = ws.Matrix!.AsSpan();
+                for (var j = 0; j < m; j++)
+                {
+                    for (var l = 0; l < m; l++) z[j * m + l] = new Complex(0, omega * _coupling[j * m + l]);
+                    z[j * m + j] += _lambda[j] * _hysteretic - w2;
+                }
+                if (!ComplexLu.Factor(z, m, ws.Pivots)) return f;
+                ComplexLu.Solve(z, m, ws.Pivots, q);
+            }
+            for (var j = 0; j < m; j++)
+            {
+                qRe[j * Block + f] = q[j].Real;
+                qIm[j * Block + f] = q[j].Imaginary;
             }
         }
-        else
+
+        var nk = Observations.Length;
+        Span<double> yRe = stackalloc double[Block];
+        Span<double> yIm = stackalloc double[Block];
+        for (var k = 0; k < nk; k++)
         {
-            var z = ws.Matrix!.AsSpan();
-            for (var j = 0; j < _m; j++)
+            ObservedBlock(_phi.AsSpan(k * m, m), qRe, qIm, yRe, yIm);
+            for (var f = 0; f < count; f++)
             {
-                for (var l = 0; l < _m; l++) z[j * _m + l] = new Complex(0, omega * _coupling[j * _m + l]);
-                z[j * _m + j] += _lambda[j] * _hysteretic - w2;
+                var s = new Complex(yRe[f], yIm[f]);
+                if (_residual is not null)
+                {
+                    var rr = _residual.AsSpan(k * terms, terms);
+                    var cf = coefficients.Slice(f * terms, terms);
+                    for (var r = 0; r < terms; r++) s += cf[r] * rr[r];
+                }
+                x[f * nk + k] = s;
             }
-            if (!ComplexLu.Factor(z, _m, ws.Pivots)) return false;
-            ComplexLu.Solve(z, _m, ws.Pivots, q);
         }
-        for (var k = 0; k < x.Length; k++)
+        return -1;
+    }
+
+    /// <summary>y(f) = Σ_j φ_kj q_j(f) for every frequency f of a block, accumulated over j in order (as a scalar loop would).</summary>
+    private static void ObservedBlock(ReadOnlySpan<double> phi, double[] qRe, double[] qIm, Span<double> yRe, Span<double> yIm)
+    {
+        var width = Vector<double>.Count;
+        if (!Vector.IsHardwareAccelerated || Block % (2 * width) != 0)
         {
-            var s = Complex.Zero;
-            var row = _phi.AsSpan(k * _m, _m);
-            for (var j = 0; j < _m; j++) s += row[j] * q[j];
-            if (_residual is not null)
+            yRe.Clear();
+            yIm.Clear();
+            for (var j = 0; j < phi.Length; j++)
             {
-                var rr = _residual.AsSpan(k * _terms, _terms);
-                for (var r = 0; r < _terms; r++) s += coefficients[r] * rr[r];
+                var w = phi[j];
+                for (var f = 0; f < Block; f++)
+                {
+                    yRe[f] += w * qRe[j * Block + f];
+                    yIm[f] += w * qIm[j * Block + f];
+                }
             }
-            x[k] = s;
+            return;
         }
-        return true;
+        // Two vectors of frequencies at a time, four accumulators held in registers over all the modes.
+        for (var f0 = 0; f0 < Block; f0 += 2 * width)
+        {
+            var re0 = Vector<double>.Zero;
+            var re1 = Vector<double>.Zero;
+            var im0 = Vector<double>.Zero;
+            var im1 = Vector<double>.Zero;
+            for (var j = 0; j < phi.Length; j++)
+            {
+                var w = new Vector<double>(phi[j]);
+                var at = j * Block + f0;
+                re0 += w * new Vector<double>(qRe, at);
+                re1 += w * new Vector<double>(qRe, at + width);
+                im0 += w * new Vector<double>(qIm, at);
+                im1 += w * new Vector<double>(qIm, at + width);
+            }
+            re0.CopyTo(yRe[f0..]);
+            re1.CopyTo(yRe[(f0 + width)..]);
+            im0.CopyTo(yIm[f0..]);
+            im1.CopyTo(yIm[(f0 + width)..]);
+        }
     }
 }
 
