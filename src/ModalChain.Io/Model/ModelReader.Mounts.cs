@@ -71,11 +71,7 @@ public static partial class ModelReader
         {
             if (!CheckName(key, context, "mount")) continue;
             var what = $"mount '{key.Value}'";
-            context.Positions[$"mounts.{key.Value}"] = key.Position;
-            // The expansion's elements are found at their mount (warnings and reports look them up by section).
-            context.Positions[$"masses.{MountExpansion.InnerNode(key.Value)}"] = key.Position;
-            foreach (var part in new[] { "~spring", "~long-term", "~series" }) context.Positions[$"springs.{key.Value}{part}"] = key.Position;
-            context.Positions[$"dampers.{key.Value}~damper"] = key.Position;
+            RecordMountPositions(key, context);
             if (value is not YMapping entry)
             {
                 context.Error(value, $"{what} must be a mapping such as '{{kind: maxwell, between: [fan, ground], stiffness: 80 kN/m, damping: 400 N*s/m}}'");
@@ -217,5 +213,14 @@ public static partial class ModelReader
         CheckGroups(elements, "massless node(s) {0} are joined to no mass or support: with no inertia and nothing to hold them their motion is undefined; join them to a mass or support, or give one of them a mass");
         CheckGroups(elements.Where(e => e.Kind == "damper"), "the dampers at massless node(s) {0} lead to no mass or support through dampers: such a node drifts at the speed of its neighbour and its position is undefined; add a damper to a mass or support, or give the node a mass");
         CheckGroups(elements.Where(e => e.Kind == "inerter"), "the inerters at massless node(s) {0} lead to no mass or support through inerters: their inertance has nothing to accelerate against and the mass matrix is singular; join an inerter to a mass or support, or give the node a mass");
+    }
+
+    /// <summary>The mount and its expansion's elements are found at the mount's key (warnings and reports look them up by section).</summary>
+    private static void RecordMountPositions(YScalar key, ReadContext context)
+    {
+        context.Positions[$"mounts.{key.Value}"] = key.Position;
+        context.Positions[$"masses.{MountExpansion.InnerNode(key.Value)}"] = key.Position;
+        foreach (var part in new[] { "~spring", "~long-term", "~series" }) context.Positions[$"springs.{key.Value}{part}"] = key.Position;
+        context.Positions[$"dampers.{key.Value}~damper"] = key.Position;
     }
 }

@@ -96,10 +96,7 @@ public static partial class ModelReader
         {
             if (!CheckName(key, context, "mount")) continue;
             var what = $"mount '{key.Value}'";
-            context.Positions[$"mounts.{key.Value}"] = key.Position;
-            context.Positions[$"masses.{MountExpansion.InnerNode(key.Value)}"] = key.Position;
-            foreach (var part in new[] { "~spring", "~long-term", "~series" }) context.Positions[$"springs.{key.Value}{part}"] = key.Position;
-            context.Positions[$"dampers.{key.Value}~damper"] = key.Position;
+            RecordMountPositions(key, context);
             if (value is not YMapping entry)
             {
                 context.Error(value, $"{what} must be a mapping such as '{{kind: maxwell, between: [skid.foot-1, ground], stiffness: {example}, relaxation-time: 8 ms}}'");
