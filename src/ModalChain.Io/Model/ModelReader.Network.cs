@@ -359,8 +359,8 @@ public static partial class ModelReader
     {
         ReadSpatialNodes(top, builder, spatial, nodes, context);
         ReadBodies(top, builder, spatial, nodes, context);
-        var springs = ReadSpatialElements(top, "springs", spatial, context);
-        var dampers = ReadSpatialElements(top, "dampers", spatial, context);
+        var springs = ReadSpatialElements(top, SpringKind, spatial, context);
+        var dampers = ReadSpatialElements(top, DamperKind, spatial, context);
         var inerters = ReadSpatialInerters(top, spatial, context);
         var mounts = ReadSpatialMounts(top, spatial, context);
         if (context.HasErrors) return null;

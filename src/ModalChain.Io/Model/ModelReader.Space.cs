@@ -432,21 +432,30 @@ public static partial class ModelReader
     /// <summary>A spring or damper of a plane or 3d model, in SI.</summary>
     private sealed record SpatialElement(string Name, string A, string B, double Scale, ImmutableArray<DirectionalValue> Components, bool Axial);
 
-    /// <summary>Reads 'springs' or 'dampers' of a plane or 3d model: components per direction, or axial.</summary>
-    private static List<SpatialElement> ReadSpatialElements(YMapping top, string section, SpatialNodes nodes, ReadContext context)
+    /// <summary>The vocabulary of one two-node element section of a plane or 3d model: its keys, quantities, ranges and the examples its messages give.</summary>
+    private sealed record SpatialElementKind(string Section, string Element, string ValueKey, string RotationKey, Quantity Quantity, Range Range,
+        Quantity RotationQuantity, Range RotationRange, string PlaneExample, string SpaceExample, string ExampleBetween);
+
+    // Properties, not fields: the ranges they take are static fields of other files of this partial class, whose
+    // initialisation order relative to these is not defined.
+    private static SpatialElementKind SpringKind => new("springs", "spring", "stiffness", "rotational-stiffness",
+        Quantity.Stiffness, StiffnessRange, Quantity.RotationalStiffness, RotationalStiffnessRange,
+        "{x: 0.8 kN/mm, z: 2.4 kN/mm}", "{x: 0.8 kN/mm, y: 0.8 kN/mm, z: 2.4 kN/mm}", "skid.foot-1, ground");
+
+    private static SpatialElementKind DamperKind => new("dampers", "damper", "coefficient", "rotational-coefficient",
+        Quantity.Damping, DampingRange, Quantity.RotationalDamping, RotationalDampingRange,
+        "{z: 1.5 kN*s/m}", "{x: 1.5 kN*s/m, y: 1.5 kN*s/m, z: 1.5 kN*s/m}", "skid.foot-1, ground");
+
+    /// <summary>Reads 'springs', 'dampers' or 'inerters' of a plane or 3d model: components per direction, or axial.</summary>
+    private static List<SpatialElement> ReadSpatialElements(YMapping top, SpatialElementKind kind, SpatialNodes nodes, ReadContext context)
     {
         var result = new List<SpatialElement>();
+        var (section, element, valueKey, rotationKey) = (kind.Section, kind.Element, kind.ValueKey, kind.RotationKey);
+        var (quantity, range, rotQuantity, rotRange) = (kind.Quantity, kind.Range, kind.RotationQuantity, kind.RotationRange);
         if (top[section] is not { } sectionNode || sectionNode is YScalar { IsPlainNull: true }) return result;
         if (context.Mapping(sectionNode, $"'{section}'") is not { } mapping) return result;
-        var spring = section == "springs";
-        var element = spring ? "spring" : "damper";
-        var valueKey = spring ? "stiffness" : "coefficient";
-        var rotationKey = spring ? "rotational-stiffness" : "rotational-coefficient";
-        var (quantity, range) = spring ? (Quantity.Stiffness, StiffnessRange) : (Quantity.Damping, DampingRange);
-        var (rotQuantity, rotRange) = spring ? (Quantity.RotationalStiffness, RotationalStiffnessRange) : (Quantity.RotationalDamping, RotationalDampingRange);
         var space = nodes.Space;
-        var example = spring ? (space == ModelSpace.Plane ? "{x: 0.8 kN/mm, z: 2.4 kN/mm}" : "{x: 0.8 kN/mm, y: 0.8 kN/mm, z: 2.4 kN/mm}")
-                             : (space == ModelSpace.Plane ? "{z: 1.5 kN*s/m}" : "{x: 1.5 kN*s/m, y: 1.5 kN*s/m, z: 1.5 kN*s/m}");
+        var example = space == ModelSpace.Plane ? kind.PlaneExample : kind.SpaceExample;
 
         foreach (var (key, value) in mapping.Entries)
         {
@@ -455,7 +464,7 @@ public static partial class ModelReader
             context.Positions[$"{section}.{key.Value}"] = key.Position;
             if (value is not YMapping entry)
             {
-                context.Error(value, $"{what} must be a mapping such as '{{between: [skid.foot-1, ground], {valueKey}: {example}}}'");
+                context.Error(value, $"{what} must be a mapping such as '{{between: [{kind.ExampleBetween}], {valueKey}: {example}}}'");
                 continue;
             }
             context.RejectUnknownKeys(entry, what, "between", valueKey, "axial", rotationKey);
