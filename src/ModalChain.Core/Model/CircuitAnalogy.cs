@@ -156,6 +156,7 @@ public sealed class CircuitAnalogy
         }
         foreach (var e in Circuit.Inductors) builder.AddSpring(e.Name, e.NodeA, e.NodeB, 1 / e.Henries);
         foreach (var e in Circuit.Resistors) builder.AddDamper(e.Name, e.NodeA, e.NodeB, 1 / e.Ohms);
+        foreach (var n in Nodes) builder.MarkElectrical(n);
         return builder.Build();
     }
 

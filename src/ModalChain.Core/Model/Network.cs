@@ -149,6 +149,17 @@ public sealed record Network
     /// <summary>The transducers (line models only), in declaration order; each removes one electrical coordinate (see <see cref="Transducer"/>).</summary>
     public ImmutableArray<Transducer> Transducers { get; internal init; } = [];
 
+    /// <summary>
+    /// The nodes that are electrical circuit nodes (a circuit model's, or a <c>circuit:</c> section's inside a line
+    /// model), in declaration order: masses (capacitance in F to ground, or massless) and supports (held by a voltage
+    /// source) whose coordinate is the node flux linkage in V·s, so their velocity is a voltage in V (see
+    /// <see cref="CircuitAnalogy"/>). Empty for a purely mechanical network.
+    /// </summary>
+    public ImmutableArray<string> ElectricalNodes { get; internal init; } = [];
+
+    /// <summary>True when <paramref name="node"/> is one of <see cref="ElectricalNodes"/>.</summary>
+    public bool IsElectrical(string node) => !ElectricalNodes.IsEmpty && NodeNames.Of(this).Electrical.Contains(node);
+
     /// <summary>The space the nodes move in; <see cref="ModelSpace.Line"/> unless the model declares another.</summary>
     public ModelSpace Space { get; internal init; } = ModelSpace.Line;
 
@@ -188,7 +199,7 @@ public sealed record Network
     public Network WithMassOrder(IReadOnlyList<int> order)
     {
         Guard.Permutation(order, Masses.Length, nameof(order));
-        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links, Space = Space, Bodies = Bodies, Inerters = Inerters, Transducers = Transducers };
+        return new Network(Title, [.. order.Select(i => Masses[i])], Supports, Springs, Dampers) { Links = Links, Space = Space, Bodies = Bodies, Inerters = Inerters, Transducers = Transducers, ElectricalNodes = ElectricalNodes };
     }
 }
 
@@ -203,7 +214,10 @@ internal sealed class NodeNames
         Masses = network.Masses.Select(m => m.Name).ToHashSet(StringComparer.Ordinal);
         Supports = network.Supports.Select(s => s.Name).ToHashSet(StringComparer.Ordinal);
         Bodies = network.Bodies.ToDictionary(b => b.Name, StringComparer.Ordinal);
+        Electrical = network.ElectricalNodes.ToHashSet(StringComparer.Ordinal);
     }
+
+    public HashSet<string> Electrical { get; }
 
     public Dictionary<string, RigidBody> Bodies { get; }
 

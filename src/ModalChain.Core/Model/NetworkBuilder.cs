@@ -18,6 +18,7 @@ public sealed class NetworkBuilder
     private readonly List<Inerter> _inerters = [];
     private readonly HashSet<string> _inerterNames = [];
     private readonly List<Transducer> _transducers = [];
+    private readonly List<string> _electrical = [];
 
     /// <summary>Title of the network being built.</summary>
     public string Title { get; set; } = "Untitled network";
@@ -187,6 +188,17 @@ public sealed class NetworkBuilder
         return this;
     }
 
+    /// <summary>Marks an existing mass, massless node or support (not ground) as an electrical circuit node (see <see cref="Network.ElectricalNodes"/>).</summary>
+    /// <param name="node">The node's name.</param>
+    public NetworkBuilder MarkElectrical(string node)
+    {
+        ArgumentException.ThrowIfNullOrWhiteSpace(node);
+        if (node == Network.Ground || !_names.Contains(node) || _bodyByName.ContainsKey(node))
+            throw new ArgumentException($"'{node}' is not a mass, massless node or support of the network (ground is shared and never marked).", nameof(node));
+        if (!_electrical.Contains(node)) _electrical.Add(node);
+        return this;
+    }
+
     /// <summary>Ties existing masses rigidly together: they will share one degree of freedom and their masses add.</summary>
     /// <param name="name">Unique link name.</param>
     /// <param name="masses">At least two different masses (never a support).</param>
@@ -212,7 +224,7 @@ public sealed class NetworkBuilder
     {
         if (Space != ModelSpace.Line && _masses.FirstOrDefault(m => m.Kilograms == 0 && m.Location is null) is { } massless)
             throw new ArgumentException($"Massless node '{massless.Name}' has no location; every node of a plane or 3d model needs one.");
-        return new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters], Transducers = [.. _transducers] };
+        return new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters], Transducers = [.. _transducers], ElectricalNodes = [.. _electrical] };
     }
 
     /// <summary>Checks a two-node element's ends and name (unique among its kind) and appends it.</summary>

@@ -120,7 +120,7 @@ public static class NetworkEdits
 
     private static Network Copy(Network n, ImmutableArray<Mass>? masses = null, ImmutableArray<Spring>? springs = null,
         ImmutableArray<Damper>? dampers = null, ImmutableArray<RigidBody>? bodies = null) =>
-        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers) { Links = n.Links, Space = n.Space, Bodies = bodies ?? n.Bodies, Inerters = n.Inerters };
+        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers) { Links = n.Links, Space = n.Space, Bodies = bodies ?? n.Bodies, Inerters = n.Inerters, Transducers = n.Transducers, ElectricalNodes = n.ElectricalNodes };
 
     private static int IndexOf<T>(ImmutableArray<T> items, Func<T, bool> match, string kind, string name)
     {
