@@ -30,7 +30,7 @@ public sealed class ModelSummarySection : IReportSection
         {
             "Network: " + network.Title,
             string.Create(CultureInfo.InvariantCulture,
-                $"{Count(network.Masses.Length, "mass", "masses")}, {Count(network.Springs.Length, "spring", "springs")}, {Count(network.Dampers.Length, "damper", "dampers")}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
+                $"{ModelCounts.Of(network).Phrase(withBodies: false)}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
         };
         var footer = new[] { PositionNote(layout) };
         var scene = NetworkFigure.Network(layout, header, footer, units, network.Masses.ToDictionary(m => m.Name, m => m.Kilograms));
@@ -71,7 +71,7 @@ public sealed class ModelSummarySection : IReportSection
         {
             "Network: " + network.Title,
             string.Create(CultureInfo.InvariantCulture,
-                $"{Count(network.Bodies.Length, "body", "bodies")}, {Count(network.Masses.Length, "mass", "masses")}, {Count(network.Springs.Length, "spring", "springs")}, {Count(network.Dampers.Length, "damper", "dampers")}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
+                $"{ModelCounts.Of(network).Phrase(withBodies: true)}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
         };
         var boxes = ModesSection.BoxNote(geometry);
         var placed = geometry.Elements.Any(e => e.A.Placed || e.B.Placed)
@@ -96,7 +96,8 @@ public sealed class ModelSummarySection : IReportSection
     /// <inheritdoc />
     public IReadOnlyList<ReportFigure> Figures => [_drawing];
 
-    private static string Count(int n, string one, string many) => n.ToString(CultureInfo.InvariantCulture) + " " + (n == 1 ? one : many);
+    private static IEnumerable<(string, string)> ExtraFacts(Network network) =>
+        ModelCounts.Of(network).ExtraFact() is { } fact ? [fact] : [];
 
     /// <summary>Says where the drawing's positions came from.</summary>
     public static string PositionNote(NetworkLayout layout) => layout.Automatic
@@ -121,6 +122,7 @@ public sealed class ModelSummarySection : IReportSection
                 + (network.Links.IsEmpty ? " (one direction of motion per mass)" : " (one direction of motion per mass; masses tied by a link share one)")),
             ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass, given: true)),
             ("Masses, springs, dampers", string.Create(CultureInfo.InvariantCulture, $"{network.Masses.Length}, {network.Springs.Length}, {network.Dampers.Length}")),
+            .. ExtraFacts(network),
             ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
             ("Parts not held by a spring to a support", groups.Length == 0 ? "none" : string.Join("; ", groups.Select(g => string.Join(", ", g))) + " (rigid-body modes at 0 Hz)"),
         ]);
@@ -142,6 +144,14 @@ public sealed class ModelSummarySection : IReportSection
             html.Table("Dampers", ["Name", "Between", $"Coefficient ({u.DampingSymbol})"],
                 network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}", u.Damping(d.Coefficient, given: true)]),
                 new HashSet<int> { 2 });
+        if (network.Inerters.Length > 0)
+            html.Table("Inerters", ["Name", "Between", $"Inertance ({u.MassSymbol})"],
+                network.Inerters.Select(i => (IReadOnlyList<string>)[i.Name, $"{i.NodeA} – {i.NodeB}", u.Mass(i.Inertance, given: true)]),
+                new HashSet<int> { 2 });
+        if (network.Transducers.Length > 0)
+            html.Table("Transducers", ["Name", "Mechanical pair", "Electrical branch", "Force factor (T·m)"],
+                network.Transducers.Select(t => (IReadOnlyList<string>)[t.Name, $"{t.NodeA} – {t.NodeB}", $"{t.BranchA} – {t.BranchB}", t.ForceFactor.ToString("G4", CultureInfo.InvariantCulture)]),
+                new HashSet<int> { 3 });
         if (_context.Document.Warnings.Length > 0)
         {
             html.Heading("Warnings from reading the model");
@@ -170,6 +180,7 @@ public sealed class ModelSummarySection : IReportSection
             ("Degrees of freedom", dofs.Count.ToString(inv) + " (each point mass its translations, each body every direction of the space at its centre of mass)"),
             ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass, given: true)),
             ("Bodies, masses, springs, dampers", string.Create(inv, $"{network.Bodies.Length}, {network.Masses.Length}, {network.Springs.Length}, {network.Dampers.Length}")),
+            .. ExtraFacts(network),
             ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
         ]);
         if (network.Bodies.Length > 0)
@@ -193,6 +204,10 @@ public sealed class ModelSummarySection : IReportSection
             html.Table("Dampers", ["Name", "Between", "Coefficient"],
                 network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}",
                     Values(d.Components, d.Axial, d.Coefficient, v => u.Damping(v, given: true), u.DampingSymbol, "N·m·s/rad")]));
+        if (network.Inerters.Length > 0)
+            html.Table("Inerters", ["Name", "Between", "Inertance"],
+                network.Inerters.Select(i => (IReadOnlyList<string>)[i.Name, $"{i.NodeA} – {i.NodeB}",
+                    Values(i.Components, i.Axial, i.Inertance, v => u.Mass(v, given: true), u.MassSymbol, "kg·m²/rad")]));
         if (_context.Document.Warnings.Length > 0)
         {
             html.Heading("Warnings from reading the model");
