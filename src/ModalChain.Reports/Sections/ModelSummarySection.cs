@@ -34,7 +34,7 @@ public sealed class ModelSummarySection : IReportSection
         };
         var footer = new[] { PositionNote(layout) };
         var scene = NetworkFigure.Network(layout, header, footer, units, network.Masses.ToDictionary(m => m.Name, m => m.Kilograms));
-        _drawing = new SchematicFigure("network", "The network as modelled: masses (blocks), springs (zigzags), dampers (dashpots) and supports (hatched). "
+        _drawing = new SchematicFigure("network", "The network as modelled: " + SymbolList(network, "masses (blocks)") + " and supports (hatched). "
             + PositionNote(layout), "network", scene, animated: false);
     }
 
@@ -80,7 +80,7 @@ public sealed class ModelSummarySection : IReportSection
         var note = "Locations from the model, to scale." + (boxes.Length > 0 ? " " + boxes : "") + placed;
         var scene = SpatialFigure.Network(geometry, header, [note], units);
         var views = geometry.Space == ModelSpace.ThreeD ? "in a side view (x–z) and a plan view (x–y)" : "in a side view (x–z)";
-        return new SchematicFigure("network", $"The model as built, {views}: bodies (boxes, centre of mass marked), point masses (squares), springs (zigzags), dampers (dashpots) between their attachment points, and supports (hatched). " + note,
+        return new SchematicFigure("network", $"The model as built, {views}: {SymbolList(network, "bodies (boxes, centre of mass marked), point masses (squares)")} between their attachment points, and supports (hatched). " + note,
             "network", scene, animated: false);
     }
 
@@ -95,6 +95,15 @@ public sealed class ModelSummarySection : IReportSection
 
     /// <inheritdoc />
     public IReadOnlyList<ReportFigure> Figures => [_drawing];
+
+    /// <summary>What each symbol of the drawing stands for, naming inerters and transducers only when the model has them.</summary>
+    private static string SymbolList(Network network, string nodes)
+    {
+        var parts = new List<string> { nodes, "springs (zigzags)", "dampers (dashpots)" };
+        if (network.Inerters.Length > 0) parts.Add("inerters (flywheels: a disc with crossed spokes)");
+        if (network.Transducers.Length > 0) parts.Add("transducers (a magnet block and a coil between the mechanical pair, with a dashed line to each electrical node of the branch)");
+        return string.Join(", ", parts);
+    }
 
     private static IEnumerable<(string, string)> ExtraFacts(Network network) =>
         ModelCounts.Of(network).ExtraFact() is { } fact ? [fact] : [];
