@@ -142,4 +142,25 @@ public class InerterAndTransducerStudyCommandTests
         Assert.Equal(2, unit.ExitCode);
         Assert.Contains("mass", unit.Error);
     }
+
+    [Fact]
+    public void AnInertanceOfZeroOnAMasslessNode_IsAnInputError()
+    {
+        // It was an internal error (exit 4): the node lost its coordinate part-way through the study.
+        var model = CommandRun.ModelFile("""
+            title: Node carried by an inerter
+            masses:
+              m: 40 kg
+            nodes: [j]
+            springs:
+              k1: {between: [ground, j], stiffness: 100 kN/m}
+              k2: {between: [j, m], stiffness: 50 kN/m}
+            inerters:
+              b: {between: [j, ground], inertance: 10 kg}
+            """);
+        var run = CommandRun.Of("study", model, "--vary", "inerters.b.inertance", "--from", "0 kg", "--to", "20 kg", "--steps", "3");
+        Assert.Equal(2, run.ExitCode);
+        Assert.Contains("the inerter carries the massless node 'j', which has no inertia without it", run.Error);
+        Assert.Equal(0, CommandRun.Of("study", model, "--vary", "inerters.b.inertance", "--from", "1 kg", "--to", "20 kg", "--steps", "3").ExitCode);
+    }
 }

@@ -122,8 +122,18 @@ public sealed record ParameterPath(ParameterKind Kind, string Element)
     /// <summary>The smallest value admitted, SI (itself excluded when <see cref="MinimumExcluded"/>).</summary>
     public double Minimum => Kind is ParameterKind.Mass or ParameterKind.BodyMass ? 1e-6 : 0;
 
-    /// <summary>True when <see cref="Minimum"/> itself is not admitted: a force factor must be above zero.</summary>
-    public bool MinimumExcluded => Kind == ParameterKind.ForceFactor;
+    /// <summary>
+    /// True when <see cref="Minimum"/> itself is not admitted: a force factor must be above zero, and so must the
+    /// inertance of an inerter with an end on a massless node (<see cref="MasslessEnd"/>).
+    /// </summary>
+    public bool MinimumExcluded => Kind == ParameterKind.ForceFactor || MasslessEnd is not null;
+
+    /// <summary>
+    /// For an inertance: the massless node at one of the inerter's ends, or null. At zero inertance that node would lose
+    /// its only inertia and change from a moving coordinate to a condensed one part-way through the study, so a study
+    /// of such an inertance stays above zero.
+    /// </summary>
+    public string? MasslessEnd { get; init; }
 
     /// <summary>The largest value admitted, SI.</summary>
     public double Maximum => (Kind, Component?.IsRotation() == true) switch
@@ -193,8 +203,19 @@ public sealed record ParameterPath(ParameterKind Kind, string Element)
                 : $"the model has no entry '{name}' under '{section.Section}' (it has: {string.Join(", ", names)})";
             return null;
         }
-        if (section.Kind is ParameterKind.Stiffness or ParameterKind.DamperCoefficient or ParameterKind.Inertance && network.Space != ModelSpace.Line)
+        if (section.Kind is ParameterKind.Stiffness or ParameterKind.DamperCoefficient && network.Space != ModelSpace.Line)
             return ResolveDirectional(text!, network, section.Section, section.Kind, name, field, direction, out error);
+        if (section.Kind == ParameterKind.Inertance)
+        {
+            var inerter = network.Inerters.First(i => i.Name == name);
+            var massless = new[] { inerter.NodeA, inerter.NodeB }
+                .FirstOrDefault(n => network.Masses.Any(m => m.Name == n && m.Kilograms == 0));
+            var path = section.Kind == ParameterKind.Inertance && network.Space != ModelSpace.Line
+                ? ResolveDirectional(text!, network, section.Section, section.Kind, name, field, direction, out error)
+                : field == section.Field && direction is null ? new ParameterPath(section.Kind, name) : null;
+            if (path is not null) return path with { MasslessEnd = massless };
+            if (error is not null) return null;
+        }
         if (field != section.Field || direction is not null)
         {
             error = section.OtherFields.Contains(field) && direction is null

@@ -53,6 +53,7 @@ public sealed record StudyRequest(
         var p = ImmutableArray.CreateBuilder<string>();
         var range = Parameter.MinimumExcluded
             ? string.Create(inv, $"above {Parameter.Minimum:G3} up to {Parameter.Maximum:G3}, SI")
+              + (Parameter.MasslessEnd is { } node ? $"; the inerter carries the massless node '{node}', which has no inertia without it" : "")
             : string.Create(inv, $"from {Parameter.Minimum:G3} to {Parameter.Maximum:G3}, SI");
         if (!Parameter.Admits(From)) p.Add(string.Create(inv, $"--from {From:G6} is not a valid value of {Parameter.Text} ({range})"));
         if (!Parameter.Admits(To)) p.Add(string.Create(inv, $"--to {To:G6} is not a valid value of {Parameter.Text} ({range})"));

@@ -307,4 +307,28 @@ public class InerterAndTransducerStudyTests
         Assert.False(b.Admits(-1));
         Assert.False(b.Admits(2e9));
     }
+
+    [Fact]
+    public void AnInerterCarryingAMasslessNode_IsStudiedAboveZeroOnly()
+    {
+        // At b = 0 the node 'j' would have no inertia and turn from a moving coordinate into a condensed one part-way
+        // through the study (an internal error before: steps with 1 and 2 modes). Above 0 the study runs and the node
+        // keeps its coordinate; the 2×2 closed form det(K − λM) = 0 with M = diag(b, m), K = [[k1 + k2, −k2], [−k2, k2]].
+        const double m = 40, k1 = 1e5, k2 = 5e4;
+        var network = new NetworkBuilder().AddMass("m", m).AddNode("j")
+            .AddSpring("k1", Network.Ground, "j", k1).AddSpring("k2", "j", "m", k2)
+            .AddInerter("b", "j", Network.Ground, 10).Build();
+        var path = Path("inerters.b.inertance", network);
+        Assert.Equal("j", path.MasslessEnd);
+        Assert.False(path.Admits(0));
+        Assert.Contains("the inerter carries the massless node 'j'", Assert.Single(new StudyRequest(path, 0, 20, 3, StudySpacing.Linear, []).Problems()));
+        var result = ParameterStudy.Run(network, Request(path, 1, 20, 5));
+        for (var s = 0; s < result.Steps.Length; s++)
+        {
+            var b = result.Steps[s].Value;
+            var (low, high) = SpatialNetworks.TwoByTwo(k1 + k2, -k2, k2, b, m);
+            NumericAssert.Close(new[] { Hz(low), Hz(high) }, result.Steps[s].FrequenciesHz, Tolerance.Rel(1e-10), $"b = {b}");
+        }
+        Assert.Null(Path("inerters.b.inertance", Grounded(15)).MasslessEnd);
+    }
 }
