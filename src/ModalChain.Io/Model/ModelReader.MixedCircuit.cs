@@ -132,7 +132,7 @@ public static partial class ModelReader
             var (node, _) = CircuitSources.DrivenNode(i);
             if (elimination.Find(node) is { } e)
                 context.Error(context.Positions[$"circuit.{i.Name}"],
-                    $"current source '{i.Name}' drives '{node}', whose coordinate transducer '{e.Transducer.Name}' eliminates (its voltage is Bl times the relative velocity of '{e.Transducer.NodeA}' and '{e.Transducer.NodeB}'); drive the coil through a node of its own (a resistor between the source's node and the coil), or write the transducer's branch the other way round");
+                    $"current source '{i.Name}' drives '{node}', whose coordinate transducer '{e.Transducer.Name}' eliminates (its voltage is Bl times the relative velocity of '{e.Transducer.NodeA}' and '{e.Transducer.NodeB}'); drive the coil through a node of its own (the source into a node joined to the coil by a resistor, its Norton form), or drive it by a voltage source");
         }
     }
 
