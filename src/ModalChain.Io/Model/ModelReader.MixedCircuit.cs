@@ -123,6 +123,19 @@ public static partial class ModelReader
         _ => "transducer",
     };
 
+    /// <summary>Refuses distributed damping in a model with a circuit: it would act on the circuit's analogue too.</summary>
+    /// <remarks>
+    /// Rayleigh damping a0·M + a1·K would add conductances a0·C and a1/L to the circuit (its capacitances are masses, its
+    /// inductors springs), modal ratios and a loss factor would damp its electrical roots: a silent change of the circuit.
+    /// </remarks>
+    private static void RefuseDistributedDampingWithCircuit(YMapping top, DampingModel damping, ReadContext context)
+    {
+        if (damping.IsNone) return;
+        foreach (var (k, _) in top.Entries)
+            if (k.Value == "damping")
+                context.Error(k, "'damping' (Rayleigh, modal or a loss factor) cannot be used in a model with a 'circuit': it would act on the circuit's analogue too (its capacitances are masses and its inductors springs of the same matrices) and change the circuit; give the structure's damping as dampers");
+    }
+
     /// <summary>Refuses a current source at a node a transducer eliminates (the node has no coordinate to load).</summary>
     private static void CheckEmbeddedSources(CoreNetwork network, CircuitEmbedding embedding, ReadContext context)
     {

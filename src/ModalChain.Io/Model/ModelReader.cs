@@ -76,6 +76,7 @@ public static partial class ModelReader
         massNames.UnionWith(repeated.MassNames);
         var supportNames = DeclaredNames(top, "supports");
         var damping = ReadDamping(top, context);
+        if (embedding is not null) RefuseDistributedDampingWithCircuit(top, damping, context);
         var loads = ReadLoads(top, massNames, supportNames, context, spatial);
         // A circuit's sources are loads named after them (Core/Analyses/Circuits/CircuitSources).
         loads = loads.AddRange(EmbeddedSourceLoads(embedding, context));
