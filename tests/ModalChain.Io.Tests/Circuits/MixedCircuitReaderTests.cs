@@ -2,6 +2,7 @@ using ModalChain.Core.Analyses.Transient;
 using ModalChain.Core.Model;
 using ModalChain.Io.Diagnostics;
 using ModalChain.Io.Model;
+using ModalChain.TestSupport;
 
 namespace ModalChain.Io.Tests.Circuits;
 
@@ -177,6 +178,23 @@ public class MixedCircuitReaderTests
             """);
         var e = Assert.Single(r.Errors, d => d.Message.StartsWith("'circuit' cannot be used in a plane or 3d model", StringComparison.Ordinal));
         Assert.Equal(new SourcePosition(6, 1), e.Position);
+    }
+
+    [Fact]
+    public void StiffnessSpreadWarning_LeavesOutTheInductorsAnalogueSprings()
+    {
+        // A 1 nH inductor is an analogue spring of 1e9 N/m beside the 8.8 N/m suspension, a ratio of 1.1e8, above the
+        // warned 1e8 (Topology.WarnedStiffnessRatio). Written as a circuit it is no stiffness of the structure: no warning.
+        // The same stiffness as a spring of the structure is warned about (the control).
+        var withInductor = Good.Replace("    load: {between: [out, ground], resistance: 10 kohm}",
+            "    load: {between: [out, ground], resistance: 10 kohm}\n  inductors:\n    choke: {between: [out, ground], inductance: 1 nH}");
+        var r = Read(withInductor);
+        Assert.True(r.Succeeded, string.Join("\n", r.Diagnostics));
+        NumericAssert.Close(1e9, r.Model!.Network.Springs.Single(s => s.Name == "choke").Stiffness, Tolerance.Rel(1e-15), "1/L in N/m");
+        Assert.DoesNotContain(r.Diagnostics, d => d.Message.Contains("spring stiffnesses span a ratio", StringComparison.Ordinal));
+        var control = Read(Good.Replace("  suspension: {between: [base, seismic], stiffness: 8.8 N/m}",
+            "  suspension: {between: [base, seismic], stiffness: 8.8 N/m}\n  stiff: {between: [base, seismic], stiffness: 1e9 N/m}"));
+        Assert.Contains(control.Diagnostics, d => d.Severity == Severity.Warning && d.Message.Contains("spring stiffnesses span a ratio", StringComparison.Ordinal));
     }
 
     [Fact]
