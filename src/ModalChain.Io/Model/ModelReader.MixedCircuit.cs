@@ -10,9 +10,11 @@ using CoreNetwork = ModalChain.Core.Model.Network;
 namespace ModalChain.Io.Model;
 
 /// <summary>What the line reader needs of a <c>circuit:</c> section inside a line model, filled while it reads.</summary>
-/// <param name="ErrorsBefore">How many errors the file had before the section was read (only the section's own stop it).</param>
-internal sealed record CircuitEmbedding(int ErrorsBefore)
+internal sealed class CircuitEmbedding
 {
+    /// <summary>How many errors the file had just before the section was read (only the section's own stop it).</summary>
+    public int ErrorsBefore { get; set; }
+
     /// <summary>Where each circuit node is listed.</summary>
     public Dictionary<string, SourcePosition> NodePositions { get; } = new(StringComparer.Ordinal);
 
@@ -52,6 +54,7 @@ public static partial class ModelReader
         if (node is YMapping { } section && section["nodes"] is YSequence listed)
             foreach (var item in listed.Items)
                 if (item is YScalar { IsPlainNull: false } name && name.Value != Circuit.Ground) embedding.DeclaredNodes.Add(name.Value);
+        embedding.ErrorsBefore = context.ErrorCount;
         embedding.Circuit = ReadCircuit(node, title, context, embedding);
         if (embedding.Circuit is not { } circuit) return;
         foreach (var v in circuit.VoltageSources)

@@ -68,7 +68,7 @@ public static partial class ModelReader
         CheckSectionsForSpace(top, space, context);
         RefuseTransducersOutsideLine(top, space, context);
         if (space != Core.Model.ModelSpace.Line) RefuseCircuitOutsideLine(top, context);
-        var embedding = space == Core.Model.ModelSpace.Line && top["circuit"] is not null ? new CircuitEmbedding(context.ErrorCount) : null;
+        var embedding = space == Core.Model.ModelSpace.Line && top["circuit"] is not null ? new CircuitEmbedding() : null;
         var referencePoint = ReadReferencePoint(top, space, context);
         var repeated = spatial is null ? ReadRepeat(top, context) : new Repeated();
         var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file), repeated, spatial, embedding);
