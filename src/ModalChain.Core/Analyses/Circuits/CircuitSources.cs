@@ -14,8 +14,7 @@ namespace ModalChain.Core.Analyses.Circuits;
 /// the harmonic and transient sections name sources as they name loads. A negative amplitude, or a source whose sign is
 /// turned, is a load of the amplitude's magnitude with its phase turned by π. A source without a waveform is a
 /// harmonic load only: in transient runs it is 0 V (a short circuit, its node held at rest) or 0 A (an open circuit).
-/// Floating sources (no terminal at ground) are refused by the reader: a circuit model maps them, a line model's load
-/// acts at one node.
+/// Floating sources (no terminal at ground) are refused by the line model's reader: a load acts at one node.
 /// </remarks>
 public static class CircuitSources
 {
