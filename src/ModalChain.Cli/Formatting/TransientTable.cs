@@ -105,11 +105,14 @@ internal static class TransientTable
         ForceHistory { Direction: var d } f when d.IsRotation() => $"{f.Name} ({Shape(f.Time, MomentUnit)} moment about {d.Label()} on {f.Mass})",
         ForceHistory f => $"{f.Name} ({Shape(f.Time, units.Force)} force{In(f.Direction)} at {f.Mass})",
         SupportAccelerationHistory b => $"{b.Name} ({Shape(b.Acceleration, units.Acceleration)} acceleration of {b.Support}{In(b.Direction)})",
+        // A circuit's voltage source: its node's velocity is the voltage, in V whatever the unit system.
+        SupportVelocityHistory v => $"{v.Name} ({(v.Scale < 0 ? "minus " : "")}{Shape(v.Velocity, VoltUnit)} at {v.Support})",
         _ => load.Name,
     };
 
     // Moments are printed in N*m whatever the unit system, as the harmonic table does.
     private static readonly DisplayUnit MomentUnit = new("N·m", "N*m", 1);
+    private static readonly DisplayUnit VoltUnit = new("V", "V", 1);
 
     private static string In(Direction d) => d == Direction.Along ? "" : $" in {d.Label()}";
 

@@ -134,6 +134,25 @@ public sealed class CircuitAnalogy
     public Network ToNetwork()
     {
         var builder = new NetworkBuilder { Title = Circuit.Title };
+        AddTo(builder);
+        return builder.Build();
+    }
+
+    /// <summary>
+    /// Adds the circuit's analogue nodes and elements to <paramref name="builder"/>, marking its nodes electrical: the one
+    /// stamping path of a circuit model's network (<see cref="ToNetwork"/>) and of a circuit inside a line model.
+    /// </summary>
+    /// <remarks>
+    /// The builder must hold none of the circuit's node or element names yet (the reader checks the one namespace);
+    /// ground is the network's ground. Sources are not added: they are loads (see
+    /// <c>Analyses.Circuits.CircuitSources</c>), the nodes voltage sources hold being supports.
+    /// </remarks>
+    /// <param name="builder">A line-model builder.</param>
+    public void AddTo(NetworkBuilder builder)
+    {
+        ArgumentNullException.ThrowIfNull(builder);
+        if (builder.Space != ModelSpace.Line)
+            throw new ArgumentException("A circuit joins line models only.", nameof(builder));
         var grounded = new Dictionary<string, double>(StringComparer.Ordinal);
         foreach (var e in Circuit.Capacitors)
         {
@@ -157,7 +176,6 @@ public sealed class CircuitAnalogy
         foreach (var e in Circuit.Inductors) builder.AddSpring(e.Name, e.NodeA, e.NodeB, 1 / e.Henries);
         foreach (var e in Circuit.Resistors) builder.AddDamper(e.Name, e.NodeA, e.NodeB, 1 / e.Ohms);
         foreach (var n in Nodes) builder.MarkElectrical(n);
-        return builder.Build();
     }
 
     // The two-node stamp of the network assembly (SupportPartition.Blocks.AddTwoNode): ground (−1) drops its row.

@@ -109,6 +109,8 @@ public static class Topology
         foreach (var s in network.Springs)
         {
             if (!(s.Stiffness > 0)) continue;
+            // An inductor's analogue spring (1/L in N/m standing for 1/H) is no stiffness of the structure.
+            if (network.IsElectrical(s.NodeA) || network.IsElectrical(s.NodeB)) continue;
             var (a, b) = (nodes.Of(s.NodeA), nodes.Of(s.NodeB));
             var (aIsSupport, bIsSupport) = (nodes.IsSupport(a), nodes.IsSupport(b));
             if (aIsSupport && bIsSupport) continue;

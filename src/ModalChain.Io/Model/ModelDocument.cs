@@ -54,6 +54,11 @@ public sealed record ModelDocument(
     /// <summary>The circuit of a model with a <c>circuit:</c> section, or null for a mechanical model. For a circuit,
     /// <see cref="Network"/> is its mechanical analogue (massless nodes where a node has no capacitance to ground).</summary>
     public CircuitModel? Circuit { get; init; }
+
+    /// <summary>The circuit of a line model's <c>circuit:</c> section, or null when it has none. Its analogue nodes and
+    /// elements are part of <see cref="Network"/> (marked in <see cref="Network.ElectricalNodes"/>) and its sources are
+    /// loads named after them (<see cref="Core.Analyses.Circuits.CircuitSources"/>).</summary>
+    public Circuit? EmbeddedCircuit { get; init; }
 }
 
 /// <summary>The outcome of reading a model file: the model, or the complete list of problems found.</summary>

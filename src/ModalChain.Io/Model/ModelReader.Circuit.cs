@@ -52,7 +52,8 @@ public static partial class ModelReader
         return Finish(context, document);
     }
 
-    private static Circuit? ReadCircuit(YNode node, string title, ReadContext context)
+    /// <summary>Reads a 'circuit' section; <paramref name="embedding"/> is given for a circuit inside a line model, whose topology the line reader checks once the transducers are known.</summary>
+    private static Circuit? ReadCircuit(YNode node, string title, ReadContext context, CircuitEmbedding? embedding = null)
     {
         if (context.Mapping(node, "'circuit'") is not { } c) return null;
         context.RejectUnknownKeys(c, "'circuit'", CircuitKeys);
@@ -88,6 +89,13 @@ public static partial class ModelReader
             .Select(e => new VoltageSource(e.Name, e.A, e.B, e.Amplitude, e.Waveform)).ToImmutableArray();
         var currentSources = ReadSources(c, "current-sources", "current source", Quantity.Current, SourceCurrentRange, known, names, context)
             .Select(e => new CurrentSource(e.Name, e.A, e.B, e.Amplitude, e.Waveform)).ToImmutableArray();
+        if (embedding is not null)
+        {
+            foreach (var (name, at) in nodePositions) embedding.NodePositions[name] = at;
+            // Only this section's own errors stop it: the line model's others are reported beside them.
+            if (context.ErrorCount > embedding.ErrorsBefore) return null;
+            return new Circuit(title, [.. nodes], resistors, inductors, capacitors, voltageSources, currentSources);
+        }
         if (context.HasErrors) return null;
 
         var circuit = new Circuit(title, [.. nodes], resistors, inductors, capacitors, voltageSources, currentSources);
@@ -197,9 +205,13 @@ public static partial class ModelReader
 
     // The circuit's topology: every node used, no loop of voltage sources, no cut set of current sources, voltage sources
     // from ground, and the groups the state-space form cannot take.
-    private static void CheckCircuitTopology(Circuit circuit, Dictionary<string, SourcePosition> nodePositions, ReadContext context)
+    private static void CheckCircuitTopology(Circuit circuit, Dictionary<string, SourcePosition> nodePositions, ReadContext context,
+        IReadOnlyList<(string A, string B)>? branches = null)
     {
-        var used = circuit.ElementNodes().ToHashSet(StringComparer.Ordinal);
+        // Inside a line model, transducer branches also join circuit nodes (to each other, to ground or to supports).
+        var embedded = branches is not null;
+        branches ??= [];
+        var used = circuit.ElementNodes().Concat(branches.SelectMany(b => new[] { b.A, b.B })).ToHashSet(StringComparer.Ordinal);
         foreach (var node in circuit.Nodes.Where(n => !used.Contains(n)))
             context.Error(nodePositions[node], $"node '{node}' has nothing attached: no element names it; connect it or remove it from 'nodes'");
 
@@ -216,7 +228,9 @@ public static partial class ModelReader
             }
             if (v.Positive != Circuit.Ground && v.Negative != Circuit.Ground)
                 context.Error(context.Positions[$"circuit.{v.Name}"],
-                    $"voltage source '{v.Name}' has neither terminal at ground; only sources from ground are supported (a floating source would need a constraint the node flux form does not take yet): redraw it with one terminal at ground, or model it as a current source with a resistor (its Norton equivalent)");
+                    embedded
+                        ? $"voltage source '{v.Name}' has neither terminal at ground; inside a line model a voltage source holds one node against ground (a floating source would need a constraint the node flux form does not take yet): redraw it with one terminal at ground, or replace it and its series resistor R by two current sources from ground, V/R into its + node and V/R out of its − node, with R between those nodes (its Norton equivalent)"
+                        : $"voltage source '{v.Name}' has neither terminal at ground; only sources from ground are supported (a floating source would need a constraint the node flux form does not take yet): redraw it with one terminal at ground, or model it as a current source with a resistor (its Norton equivalent)");
         }
 
         // A group of nodes that only current sources join to the rest (ground included): Kirchhoff's current law at
@@ -226,6 +240,7 @@ public static partial class ModelReader
         foreach (var e in circuit.Inductors) joined.Union(e.NodeA, e.NodeB);
         foreach (var e in circuit.Capacitors) joined.Union(e.NodeA, e.NodeB);
         foreach (var e in circuit.VoltageSources) joined.Union(e.Positive, e.Negative);
+        foreach (var (a, b) in branches) joined.Union(a, b);
         var reported = new HashSet<string>(StringComparer.Ordinal);
         foreach (var i in circuit.CurrentSources)
             foreach (var end in new[] { i.From, i.To })
@@ -235,7 +250,8 @@ public static partial class ModelReader
                 context.Error(context.Positions[$"circuit.{i.Name}"],
                     $"current source '{i.Name}' drives nodes {string.Join(", ", group)}, which only current sources join to the rest of the circuit (a cut set of current sources): no current can return; add a path to ground (a resistor or a capacitor)");
             }
-        if (context.HasErrors) return;
+        // Inside a line model the network's own checks (massless nodes) apply instead of the circuit solver's limits.
+        if (context.HasErrors || embedded) return;
 
         var analogy = CircuitAnalogy.Of(circuit);
         foreach (var (groupNodes, lacks) in CircuitTopology.UnsupportedGroups(analogy))

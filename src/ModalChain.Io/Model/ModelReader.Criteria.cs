@@ -162,6 +162,12 @@ public static partial class ModelReader
     private static bool Measurable(YNode node, string name, string what, ReadContext context, CoreNetwork? network)
     {
         if (network is null) return true;
+        if (network.IsElectrical(name))
+        {
+            // A circuit node's "motion" is its flux linkage and voltage: a vibration limit there would compare volts with m/s.
+            context.Error(node, $"{what} is at '{name}', a node of the model's circuit (its velocity is a voltage in V): criteria limit the vibration of masses; name a mass of the structure");
+            return false;
+        }
         var points = new MeasuringPoints(network);
         if (points.Resolve(name, out var error, out var unknown) is not null) return true;
         var names = points.Names();

@@ -14,7 +14,9 @@ public static partial class ModelReader
     public const int MaxSweepPoints = 100_000;
 
     /// <summary>Reads 'harmonic': the loads, frequencies, outputs and method of a steady-state sweep.</summary>
-    private static HarmonicSpec? ReadHarmonic(YMapping top, IReadOnlySet<string> masses, ImmutableArray<Load> loads, ReadContext context)
+    /// <remarks><paramref name="sources"/>: the names of a line model's circuit sources, loads named after them.</remarks>
+    private static HarmonicSpec? ReadHarmonic(YMapping top, IReadOnlySet<string> masses, ImmutableArray<Load> loads, ReadContext context,
+        IReadOnlyDictionary<string, bool>? sources = null)
     {
         if (top["harmonic"] is not { } node || node is YScalar { IsPlainNull: true }) return null;
         if (context.Mapping(node, "'harmonic'") is not { } h) return null;
@@ -22,6 +24,7 @@ public static partial class ModelReader
         context.RejectUnknownKeys(h, what, "loads", "frequencies", "refine", "outputs", "method", "modes", "cases", "combine");
         context.Positions["harmonic"] = h.Position;
         var declaredLoads = (top["loads"] as YMapping)?.Entries.Select(e => e.Key.Value).ToImmutableHashSet() ?? [];
+        if (sources is { Count: > 0 }) declaredLoads = declaredLoads.Union(sources.Keys);
 
         var loadNames = NameList(h, "loads", declaredLoads, "load", "'loads'", context);
         if (h["loads"] is YSequence named)

@@ -170,6 +170,7 @@ public static partial class ModelReader
             if (context.Positions.TryGetValue($"nodes.{node}", out var p)) return p;
             var tilde = node.IndexOf('~', StringComparison.Ordinal);
             if (tilde > 0 && context.Positions.TryGetValue($"mounts.{node[..tilde]}", out p)) return p;
+            if (context.Positions.TryGetValue($"circuit.nodes.{node}", out p)) return p;
             return context.Positions.TryGetValue($"masses.{node}", out p) ? p : new SourcePosition(1, 1);
         }
         var elements = network.Springs.Where(s => s.Stiffness > 0).Select(s => (Kind: "spring", s.NodeA, s.NodeB))

@@ -40,7 +40,8 @@ public static partial class ModelReader
         return true;
     }
 
-    private static CoreNetwork? ReadNetwork(YMapping top, ReadContext context, string defaultTitle, Repeated repeated, SpatialNodes? spatial)
+    private static CoreNetwork? ReadNetwork(YMapping top, ReadContext context, string defaultTitle, Repeated repeated, SpatialNodes? spatial,
+        CircuitEmbedding? embedding = null)
     {
         var builder = new NetworkBuilder { Title = defaultTitle, Space = spatial?.Space ?? ModelSpace.Line };
         if (top["title"] is { } titleNode && context.Text(titleNode, "'title'") is { } title) builder.Title = title;
@@ -110,15 +111,27 @@ public static partial class ModelReader
         if (spatial is null) ReadNodes(top, context, builder, nodes);
         ReadSupports(top, context, builder, nodes, spatial);
         if (spatial is not null) return ReadSpatialNetwork(top, builder, spatial, nodes, context);
+        if (embedding is not null) ReadEmbeddedCircuit(top, builder.Title, embedding, context);
         var springs = ReadTwoNodeSection(top, "springs", "spring", "stiffness", Quantity.Stiffness, StiffnessRange, nodes, context);
         var dampers = ReadTwoNodeSection(top, "dampers", "damper", "coefficient", Quantity.Damping, DampingRange, nodes, context);
         var inerters = ReadTwoNodeSection(top, "inerters", "inerter", "inertance", Quantity.Mass, InertanceRange, nodes, context);
         CheckRepeatedSprings(repeated, springs, context);
         // The set of mass names is asked for only by a 'links' section (absent, ReadLinks returns at once).
         var links = ReadLinks(top, context, top["links"] is null ? new HashSet<string>() : masses.Walk().Select(e => e.Key.Value).Concat(repeated.MassNames).ToHashSet(), nodes);
-        var transducers = ReadTransducers(top, context, nodes, DeclaredNames(top, "supports"), links);
+        // A transducer's branch may name the circuit's nodes; those a voltage source holds are supports.
+        var supportNames = DeclaredNames(top, "supports");
+        var branchNodes = nodes;
+        if (embedding is not null)
+        {
+            branchNodes = [.. nodes, .. embedding.DeclaredNodes];
+            supportNames.UnionWith(embedding.HeldNodes);
+        }
+        var transducers = ReadTransducers(top, context, branchNodes, supportNames, links);
         var mounts = ReadMounts(top, nodes, context);
+        if (embedding is not null) CheckEmbeddedCircuit(embedding, transducers, supportNames, context);
         if (context.HasErrors) return null;
+
+        embedding?.Analogy?.AddTo(builder);
 
         foreach (var (name, a, b, k) in springs) builder.AddSpring(name, a, b, k);
         foreach (var (name, a, b, k, _) in repeated.Springs) builder.AddSpring(name, a, b, k);
@@ -129,6 +142,7 @@ public static partial class ModelReader
         foreach (var mount in mounts) MountExpansion.Expand(mount, builder);
         var network = builder.Build();
         CheckMasslessNodes(network, context);
+        if (embedding is not null) CheckEmbeddedSources(network, embedding, context);
         if (context.HasErrors) return null;
         WarnAboutLinkedElements(network, context);
         WarnAboutConnectivity(network, context);
@@ -398,6 +412,8 @@ public static partial class ModelReader
             context.Warning(at, spread);
         // A massless node has no rigid-body mode of its own (it is condensed or a first-order state): not warned about here.
         var massless = network.Masses.Where(m => m.Kilograms == 0).Select(m => m.Name).ToHashSet(StringComparer.Ordinal);
+        // A circuit's node without an inductor is no loose mass: its "rigid-body mode" is a charge held at rest.
+        massless.UnionWith(network.ElectricalNodes);
         var loose = Topology.MassesWithoutSpring(network).Where(name => !massless.Contains(name)).ToHashSet();
         foreach (var name in loose)
             context.Warning(context.Positions[$"masses.{name}"],
@@ -405,8 +421,10 @@ public static partial class ModelReader
         foreach (var group in Topology.UnsupportedGroups(network))
         {
             if (group.All(g => loose.Contains(g) || massless.Contains(g))) continue;
-            context.Warning(context.Positions[$"masses.{group[0]}"],
-                $"masses {string.Join(", ", group.Select(g => $"'{g}'"))} are not connected to ground by springs: " +
+            var shown = group.Where(g => !network.IsElectrical(g)).ToArray();
+            if (shown.Length == 0) continue;
+            context.Warning(context.Positions[$"masses.{shown[0]}"],
+                $"masses {string.Join(", ", shown.Select(g => $"'{g}'"))} are not connected to ground by springs: " +
                 "that part of the network has a rigid-body mode (reported at 0 Hz)");
         }
     }

@@ -141,7 +141,8 @@ public static partial class ModelReader
         Scan(top["criteria"], "a criterion", keys: false);
 
         var moving = loads.OfType<BaseMotionLoad>().Select(l => (l.Name, l.Support))
-            .Concat(timed.OfType<SupportAccelerationHistory>().Select(l => (l.Name, l.Support)));
+            .Concat(timed.OfType<SupportAccelerationHistory>().Select(l => (l.Name, l.Support)))
+            .Concat(timed.OfType<SupportVelocityHistory>().Select(l => (l.Name, l.Support)));
         var massOf = network.Masses.ToDictionary(m => m.Name, m => m.Kilograms, StringComparer.Ordinal);
         foreach (var (name, support) in moving)
             foreach (var e in elimination.Nodes)

@@ -87,8 +87,9 @@ public static partial class ModelReader
     }
 
     /// <summary>Reads 'transient': duration, step, method, loads, outputs, initial conditions and the RMS window.</summary>
+    /// <remarks><paramref name="sources"/>: a line model's circuit sources by name, true for those with a waveform ('time').</remarks>
     private static TransientSpec? ReadTransient(YMapping top, IReadOnlySet<string> masses, ImmutableArray<TransientExcitation> timedLoads,
-        ReadContext context, IReadOnlySet<string>? initialNames = null, bool spatial = false)
+        ReadContext context, IReadOnlySet<string>? initialNames = null, bool spatial = false, IReadOnlyDictionary<string, bool>? sources = null)
     {
         if (top["transient"] is not { } node || node is YScalar { IsPlainNull: true }) return null;
         if (context.Mapping(node, "'transient'") is not { } t) return null;
@@ -140,7 +141,14 @@ public static partial class ModelReader
                 {
                     if (context.Text(item, $"'loads' of {what}") is not { } name) continue;
                     var declared = (top["loads"] as YMapping)?[name];
-                    if (declared is YMapping entry && entry["time"] is null)
+                    if (sources is not null && sources.TryGetValue(name, out var timed))
+                    {
+                        if (!timed)
+                            context.Error(item, $"'loads' of {what} names circuit source '{name}', which has no 'time' waveform (it drives harmonic runs only); give it one, e.g. time: {{kind: step, value: 1 V, at: 0 s}}");
+                        else if (loadNames.Contains(name)) context.Error(item, $"'loads' of {what} names '{name}' twice");
+                        else loadNames.Add(name);
+                    }
+                    else if (declared is YMapping entry && entry["time"] is null)
                         context.Error(item, $"'loads' of {what} names '{name}', which has no 'time' function (it is a harmonic load); give it one, e.g. time: {{kind: step, value: 2 kN, at: 0.1 s}}");
                     else if (declared is null)
                         context.Error(item, $"'loads' of {what} names unknown load '{name}'{ReadContext.Suggest(name, timedNames)}; declare it under 'loads' with a 'time' function");

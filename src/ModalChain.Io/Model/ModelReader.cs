@@ -59,21 +59,28 @@ public static partial class ModelReader
         if (context.Mapping(root, "the model file") is not { } top) return Finish(context, null);
 
         context.RejectUnknownKeys(top, "the model file", TopLevelKeys);
-        // A circuit model has a reader of its own (ModelReader.Circuit.cs): no masses, supports or loads.
-        if (top["circuit"] is not null) return ReadCircuitModel(top, context, file, bytes);
+        // A circuit model has a reader of its own (ModelReader.Circuit.cs): no masses, supports or loads. A model with
+        // masses and a circuit is a line model with the circuit inside (ModelReader.MixedCircuit.cs).
+        if (top["circuit"] is not null && !HasMechanicalNetwork(top)) return ReadCircuitModel(top, context, file, bytes);
         // The space decides how masses, supports, springs and loads read: after a wrong one nothing else can be read sensibly.
         if (ReadSpace(top, context) is not { } space) return Finish(context, null);
         var spatial = space == Core.Model.ModelSpace.Line ? null : new SpatialNodes(space);
         CheckSectionsForSpace(top, space, context);
         RefuseTransducersOutsideLine(top, space, context);
+        if (space != Core.Model.ModelSpace.Line) RefuseCircuitOutsideLine(top, context);
+        var embedding = space == Core.Model.ModelSpace.Line && top["circuit"] is not null ? new CircuitEmbedding() : null;
         var referencePoint = ReadReferencePoint(top, space, context);
         var repeated = spatial is null ? ReadRepeat(top, context) : new Repeated();
-        var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file), repeated, spatial);
+        var network = ReadNetwork(top, context, Path.GetFileNameWithoutExtension(file), repeated, spatial, embedding);
         var massNames = DeclaredNames(top, "masses");
         massNames.UnionWith(repeated.MassNames);
         var supportNames = DeclaredNames(top, "supports");
         var damping = ReadDamping(top, context);
+        if (embedding is not null) RefuseDistributedDampingWithCircuit(top, damping, context);
         var loads = ReadLoads(top, massNames, supportNames, context, spatial);
+        // A circuit's sources are loads named after them (Core/Analyses/Circuits/CircuitSources).
+        loads = loads.AddRange(EmbeddedSourceLoads(embedding, context));
+        var sources = EmbeddedSourceNames(embedding);
         var loadCases = ReadLoadCases(top, loads, context);
         // Plane and 3d models: outputs may name masses, bodies and DOF labels (skid.z, skid.ry); initial conditions a
         // translation DOF label (a mass that moves in one direction by its bare name).
@@ -88,6 +95,8 @@ public static partial class ModelReader
             withNodes.UnionWith(DeclaredNames(top, "mounts").Select(Core.Model.MountExpansion.InnerNode));
             outputNames = withNodes;
         }
+        // A circuit's free nodes are outputs too: their velocity is the node voltage.
+        if (embedding?.Analogy is not null) outputNames = new HashSet<string>(outputNames.Concat(embedding.FreeNodes), StringComparer.Ordinal);
         if (spatial is not null && network is not null)
         {
             var dofs = Core.Dofs.DofMap.For(network);
@@ -98,10 +107,10 @@ public static partial class ModelReader
             initialNames = new HashSet<string>(Enumerable.Range(0, dofs.Count)
                 .Where(i => !Core.Model.Directions.IsRotation(dofs.Dofs[i].Direction) && !massless.Contains(dofs.Dofs[i].Node)).Select(dofs.Label), StringComparer.Ordinal);
         }
-        var harmonic = ReadHarmonic(top, outputNames, loads, context);
+        var harmonic = ReadHarmonic(top, outputNames, loads, context, sources);
         var caseSelection = ReadCaseSelection(top, loadCases, context);
-        var timedLoads = ReadTimedLoads(top, massNames, supportNames, context, spatial);
-        var transient = ReadTransient(top, outputNames, timedLoads, context, initialNames, spatial is not null);
+        var timedLoads = ReadTimedLoads(top, massNames, supportNames, context, spatial).AddRange(EmbeddedSourceHistories(embedding));
+        var transient = ReadTransient(top, outputNames, timedLoads, context, initialNames, spatial is not null, sources);
         var criteria = ReadCriteria(top, context, network);
         if (network is not null) CheckTransducerReferences(top, network, loads, timedLoads, context);
         if (network is null || context.HasErrors) return Finish(context, null);
@@ -124,6 +133,7 @@ public static partial class ModelReader
             Criteria = criteria,
             ReferencePoint = referencePoint,
             WrittenUnits = context.WrittenUnits(),
+            EmbeddedCircuit = embedding?.Circuit,
         };
         return Finish(context, document);
     }

@@ -49,6 +49,9 @@ internal sealed partial class ReadContext
         }
     }
 
+    /// <summary>How many errors have been reported so far.</summary>
+    public int ErrorCount => Diagnostics.Count(d => d.Severity == Severity.Error);
+
     public void Error(YNode node, string message) => Error(node.Position, message);
     public void Error(SourcePosition at, string message) => Diagnostics.Add(new Diagnostic(Severity.Error, File, at, message));
     public void Warning(SourcePosition at, string message) => Diagnostics.Add(new Diagnostic(Severity.Warning, File, at, message));

@@ -116,8 +116,10 @@ public class CircuitReaderTests
     [Fact]
     public void CircuitModel_RefusesMechanicalSections()
     {
-        var r = Read(Good + "\nmasses:\n  deck: 10 kg\n");
-        Assert.Contains(r.Errors, e => e.Message.Contains("'masses' belongs to mechanical models", StringComparison.Ordinal));
+        // A model with 'masses' and 'circuit' is a line model with a circuit inside (MixedCircuitReaderTests); without masses,
+        // a mechanical section is refused.
+        var r = Read(Good + "\nsprings:\n  deck-spring: {between: [ground, deck], stiffness: 1 kN/m}\n");
+        Assert.Contains(r.Errors, e => e.Message.Contains("'springs' belongs to mechanical models", StringComparison.Ordinal));
     }
 
     [Fact]

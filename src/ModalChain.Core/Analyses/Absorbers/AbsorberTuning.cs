@@ -108,6 +108,11 @@ public static class AbsorberTuning
         var problems = ImmutableArray.CreateBuilder<string>();
         var inv = CultureInfo.InvariantCulture;
         var point = AbsorberHost.Resolve(modal.Network, request.Host, out var hostProblem);
+        if (modal.Network.IsElectrical(request.Host))
+        {
+            point = null;
+            hostProblem = $"host '{request.Host}' is a node of the model's circuit (its velocity is a voltage): an absorber hangs on a mass of the structure; name one";
+        }
         if (hostProblem is not null) problems.Add(hostProblem);
         if (!(request.MassRatio > 0) || !double.IsFinite(request.MassRatio))
             problems.Add(string.Create(inv, $"mass ratio must be positive, got {request.MassRatio * 100:G4} %"));

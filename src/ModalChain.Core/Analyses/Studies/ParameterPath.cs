@@ -203,6 +203,11 @@ public sealed record ParameterPath(ParameterKind Kind, string Element)
                 : $"the model has no entry '{name}' under '{section.Section}' (it has: {string.Join(", ", names)})";
             return null;
         }
+        if (!network.ElectricalNodes.IsEmpty && IsCircuitPart(network, section.Kind, name))
+        {
+            error = $"'{name}' is part of the model's circuit (a circuit node or element, held in its analogue form): a study varies the structure's masses, springs and dampers; change the circuit's value in the file and run again";
+            return null;
+        }
         if (section.Kind is ParameterKind.Stiffness or ParameterKind.DamperCoefficient && network.Space != ModelSpace.Line)
             return ResolveDirectional(text!, network, section.Section, section.Kind, name, field, direction, out error);
         if (section.Kind == ParameterKind.Inertance)
@@ -224,6 +229,20 @@ public sealed record ParameterPath(ParameterKind Kind, string Element)
             return null;
         }
         return new ParameterPath(section.Kind, name);
+    }
+
+    /// <summary>Whether <paramref name="name"/> under <paramref name="kind"/>'s section is a circuit node, or an element with no end off the circuit (inductors, resistors and capacitors).</summary>
+    private static bool IsCircuitPart(Network network, ParameterKind kind, string name)
+    {
+        bool Electrical(string a, string b) => (network.IsElectrical(a) || a == Network.Ground) && (network.IsElectrical(b) || b == Network.Ground);
+        return kind switch
+        {
+            ParameterKind.Mass => network.IsElectrical(name),
+            ParameterKind.Stiffness => network.Springs.Any(s => s.Name == name && Electrical(s.NodeA, s.NodeB)),
+            ParameterKind.DamperCoefficient => network.Dampers.Any(d => d.Name == name && Electrical(d.NodeA, d.NodeB)),
+            ParameterKind.Inertance => network.Inerters.Any(i => i.Name == name && Electrical(i.NodeA, i.NodeB)),
+            _ => false,
+        };
     }
 
     /// <summary>A spring's, damper's or inerter's field in a plane or 3d model: the scale, one direction, or the axial value.</summary>

@@ -336,7 +336,7 @@ public static class TransientAnalysis
 
         foreach (var e in excitations)
         {
-            var f = e switch { ForceHistory fh => fh.Time, SupportAccelerationHistory sa => sa.Acceleration, _ => null };
+            var f = e switch { ForceHistory fh => fh.Time, SupportAccelerationHistory sa => sa.Acceleration, SupportVelocityHistory sv => sv.Velocity, _ => null };
             var highestHz = f switch
             {
                 SineFunction s => Math.Abs(s.FrequencyHz),
@@ -374,24 +374,39 @@ public static class TransientAnalysis
         return false;
     }
 
-    /// <summary>Displacement and velocity histories of each moving support, integrated on the step grid.</summary>
+    /// <summary>Displacement, velocity and acceleration histories of each moving support on the step grid.</summary>
+    /// <remarks>
+    /// A prescribed acceleration a(t) is integrated exactly for a linear between steps. A prescribed velocity v(t)
+    /// (<see cref="SupportVelocityHistory"/>) is sampled at the steps; its acceleration is the derivative of the
+    /// parabola through three neighbouring samples (the central difference (v₊ − v₋)/2h, and the one-sided
+    /// (∓3v₀ ± 4v₁ ∓ v₂)/2h at the two ends), and its displacement the corrected trapezoid
+    /// d₁ = d₀ + h(v₀ + v₁)/2 + h²(a₀ − a₁)/12, exact for a cubic. So a velocity that is the integral of an acceleration
+    /// linear in time gives exactly the histories of that acceleration; a jump of the velocity (a voltage step) becomes an
+    /// acceleration pulse over the two steps around it whose area is the jump. Both kinds may move one support: they add.
+    /// </remarks>
     private static Dictionary<string, (TimeFunction Displacement, TimeFunction Velocity, TimeFunction Acceleration)> SupportMotion(
         Network network, IReadOnlyList<TransientExcitation> excitations, double h, int steps)
     {
         var motion = new Dictionary<string, (TimeFunction, TimeFunction, TimeFunction)>();
         // Keyed by the support's prescribed column: its name in line models, 'support.z' in plane and 3d models.
-        string Column(SupportAccelerationHistory e)
+        string Column(TransientExcitation e)
         {
+            if (e is SupportVelocityHistory sv)
+                return network.Space == ModelSpace.Line ? sv.Support
+                    : throw new ArgumentException($"Support velocity '{e.Name}' moves a support of a line model only.", nameof(excitations));
+            var sa = (SupportAccelerationHistory)e;
             if (network.Space == ModelSpace.Line)
-                return e.Direction == Dofs.Direction.Along ? e.Support
-                    : throw new ArgumentException($"Support motion '{e.Name}' has direction '{e.Direction.Label()}', but a line model moves along its one line only.", nameof(excitations));
-            if (!Directions.Translations(network.Space).Contains(e.Direction))
+                return sa.Direction == Dofs.Direction.Along ? sa.Support
+                    : throw new ArgumentException($"Support motion '{e.Name}' has direction '{sa.Direction.Label()}', but a line model moves along its one line only.", nameof(excitations));
+            if (!Directions.Translations(network.Space).Contains(sa.Direction))
                 throw new ArgumentException($"Support motion '{e.Name}' needs a translation of the model's space ({string.Join(", ", Directions.Translations(network.Space).Select(d => d.Label()))}) as its direction.", nameof(excitations));
-            return $"{e.Support}.{e.Direction.Label()}";
+            return $"{sa.Support}.{sa.Direction.Label()}";
         }
-        foreach (var group in excitations.OfType<SupportAccelerationHistory>().GroupBy(Column))
+        static string SupportOf(TransientExcitation e) => e is SupportVelocityHistory v ? v.Support : ((SupportAccelerationHistory)e).Support;
+        var moving = excitations.Where(e => e is SupportAccelerationHistory or SupportVelocityHistory);
+        foreach (var group in moving.GroupBy(Column))
         {
-            var support = group.First().Support;
+            var support = SupportOf(group.First());
             if (support == Network.Ground)
                 throw new ArgumentException("Ground is fixed; prescribe motion at another support.", nameof(excitations));
             if (!network.IsSupport(support))
@@ -399,16 +414,52 @@ public static class TransientAnalysis
             var d = new double[steps + 1];
             var v = new double[steps + 1];
             var a = new double[steps + 1];
-            a[0] = group.Sum(e => e.Acceleration.ValueAt(0));
-            for (var s = 1; s <= steps; s++)
+            var accelerations = group.OfType<SupportAccelerationHistory>().ToList();
+            if (accelerations.Count > 0)
             {
-                a[s] = group.Sum(e => e.Acceleration.ValueAt(s * h));
-                d[s] = d[s - 1] + h * v[s - 1] + h * h / 6 * (2 * a[s - 1] + a[s]);
-                v[s] = v[s - 1] + 0.5 * h * (a[s - 1] + a[s]);
+                a[0] = accelerations.Sum(e => e.Acceleration.ValueAt(0));
+                for (var s = 1; s <= steps; s++)
+                {
+                    a[s] = accelerations.Sum(e => e.Acceleration.ValueAt(s * h));
+                    d[s] = d[s - 1] + h * v[s - 1] + h * h / 6 * (2 * a[s - 1] + a[s]);
+                    v[s] = v[s - 1] + 0.5 * h * (a[s - 1] + a[s]);
+                }
+            }
+            var velocities = group.OfType<SupportVelocityHistory>().ToList();
+            if (velocities.Count > 0)
+            {
+                var (dv, vv, av) = PrescribedVelocity(s => velocities.Sum(e => e.Scale * e.Velocity.ValueAt(s * h)), h, steps);
+                for (var s = 0; s <= steps; s++)
+                {
+                    d[s] += dv[s];
+                    v[s] += vv[s];
+                    a[s] += av[s];
+                }
             }
             motion[group.Key] = (new GridHistory(h, d), new GridHistory(h, v), new GridHistory(h, a));
         }
         return motion;
+    }
+
+    /// <summary>The displacement, the samples and the grid derivative of a prescribed velocity (see <see cref="SupportMotion"/>).</summary>
+    internal static (double[] Displacement, double[] Velocity, double[] Acceleration) PrescribedVelocity(Func<int, double> velocityAtStep, double h, int steps)
+    {
+        var d = new double[steps + 1];
+        var v = new double[steps + 1];
+        var a = new double[steps + 1];
+        for (var s = 0; s <= steps; s++) v[s] = velocityAtStep(s);
+        if (steps == 1)
+        {
+            a[0] = a[1] = (v[1] - v[0]) / h;
+        }
+        else
+        {
+            a[0] = (-3 * v[0] + 4 * v[1] - v[2]) / (2 * h);
+            for (var s = 1; s < steps; s++) a[s] = (v[s + 1] - v[s - 1]) / (2 * h);
+            a[steps] = (3 * v[steps] - 4 * v[steps - 1] + v[steps - 2]) / (2 * h);
+        }
+        for (var s = 1; s <= steps; s++) d[s] = d[s - 1] + 0.5 * h * (v[s - 1] + v[s]) + h * h / 12 * (a[s - 1] - a[s]);
+        return (d, v, a);
     }
 
     private static LoadSet BuildLoad(Network network, Dofs.DofMap dofs, IReadOnlyList<TransientExcitation> excitations, SupportCoupling coupling,

@@ -50,6 +50,21 @@ public sealed record SupportAccelerationHistory(string Name, string Support, Tim
     public Dofs.Direction Direction { get; init; } = Dofs.Direction.Along;
 }
 
+/// <summary>A prescribed velocity history of a support (not <see cref="Network.Ground"/>): u̇_s(t) = <see cref="Scale"/> × <see cref="Velocity"/>.ValueAt(t) in m/s.</summary>
+/// <remarks>
+/// The support starts at zero displacement; its displacement is integrated from the velocity and its acceleration is the
+/// velocity differentiated on the step grid (see <c>TransientAnalysis</c>). A voltage source of a circuit inside a line
+/// model becomes one: the node it holds is a support whose velocity is the node voltage in V.
+/// </remarks>
+/// <param name="Name">Load name.</param>
+/// <param name="Support">Name of the moving support.</param>
+/// <param name="Velocity">The support's velocity in m/s (a node voltage in V for an electrical node).</param>
+public sealed record SupportVelocityHistory(string Name, string Support, TimeFunction Velocity) : TransientExcitation(Name)
+{
+    /// <summary>Factor on <see cref="Velocity"/>: 1, or −1 for a voltage source whose + terminal is ground.</summary>
+    public double Scale { get; init; } = 1.0;
+}
+
 /// <summary>Initial displacement and velocity of one mass; masses not listed start at rest at zero.</summary>
 /// <param name="Mass">Mass name.</param>
 /// <param name="Displacement">u(0) in m.</param>
