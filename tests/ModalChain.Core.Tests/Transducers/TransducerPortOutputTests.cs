@@ -1,5 +1,8 @@
 using System.Numerics;
 using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Analyses.Transient;
+using TQ = ModalChain.Core.Analyses.Transient.ResponseQuantity;
+using ResponseQuantity = ModalChain.Core.Analyses.Harmonic.ResponseQuantity;
 using ModalChain.Core.Assembly;
 using ModalChain.Core.Model;
 using ModalChain.TestSupport;
@@ -126,6 +129,51 @@ public class TransducerPortOutputTests
         {
             var expected = new Complex(1.5e7, 2 * Math.PI * Frequencies[k] * 1.2e4) * bay.Displacement[k];
             NumericAssert.Close(0, (expected - ground.Force[k]).Magnitude, Tolerance.Abs(1e-10 * expected.Magnitude), $"ground reaction at {Frequencies[k]} Hz");
+        }
+    }
+}
+
+/// <summary>The transient histories of the port terms and source currents against instant-by-instant closed forms.</summary>
+public class TransducerPortTransientTests
+{
+    [Fact]
+    public void TransientPortHistories_FollowOhmsLawAtEveryInstant()
+    {
+        // Closed forms (Ohm's law and the voltage divider, which hold at every instant in a purely resistive loop): a
+        // force pulse on the bay with the amplifier held at 0 V gives, at each recorded instant, the shaker's port current
+        // i = u/R_s and the amplifier's current −u/R_s; the sensor's port current u/(R_c + R_L) and, at its output node,
+        // V_out = u·R_L/(R_c + R_L); ground's reaction k·x + c·v by the element laws. 1e-9 of each history's largest value. Port voltage = Bl·(v_a − v_b) from the recorded
+        // velocities (identity of the constraint, 1e-12 of its largest value).
+        const double rs = 2, rc = 375, rl = 1e4;
+        var network = ElectricalSideTests.FloorTest();
+        var system = DampedSystem.Build(StructuralModel.Of(network));
+        var pulse = new ForceHistory("hit", "bay", 1, new HalfSinePulse(5000, 0.01));
+        var result = TransientAnalysis.Run(system, [pulse], [], new TransientSettings(0.2, 1e-4, TransientMethod.Exact));
+        double[] H(string name, TQ q) => [.. result.Get(name, q).Values];
+        var uShaker = H("shaker", TQ.PortVoltage);
+        var iShaker = H("shaker", TQ.PortCurrent);
+        var source = H("amp", TQ.SourceCurrent);
+        var uSensor = H("sensor", TQ.PortVoltage);
+        var iSensor = H("sensor", TQ.PortCurrent);
+        var vOut = H("out", TQ.Velocity);
+        var vReaction = H("reaction", TQ.Velocity);
+        var vBay = H("bay", TQ.Velocity);
+        var xBay = H("bay", TQ.Displacement);
+        var ground = H(Network.Ground, TQ.Reaction);
+        Assert.Equal("V", result.Get("shaker", TQ.PortVoltage).Unit);
+        Assert.Equal("A", result.Get("amp", TQ.SourceCurrent).Unit);
+        Assert.DoesNotContain(result.Responses, r => r.Name == "amp" && r.Quantity == TQ.Reaction);
+        static double Max(double[] x) => x.Max(Math.Abs);
+        Assert.True(Max(iSensor) > 0 && Max(iShaker) > 0, "the pulse drives both ports");
+        for (var k = 0; k < uShaker.Length; k++)
+        {
+            NumericAssert.Close(uShaker[k] / rs, iShaker[k], Tolerance.Abs(1e-9 * Max(iShaker)), "shaker port current");
+            NumericAssert.Close(-uShaker[k] / rs, source[k], Tolerance.Abs(1e-9 * Max(iShaker)), "amplifier current");
+            NumericAssert.Close(uSensor[k] / (rc + rl), iSensor[k], Tolerance.Abs(1e-9 * Max(iSensor)), "sensor port current");
+            NumericAssert.Close(uSensor[k] * rl / (rc + rl), vOut[k], Tolerance.Abs(1e-9 * Max(vOut)), "divider");
+            NumericAssert.Close(20 * (vReaction[k] - vBay[k]), uShaker[k], Tolerance.Abs(1e-12 * Max(uShaker)), "u = Bl(v_a − v_b)");
+            // Element laws: ground receives k·x_bay + c·v_bay from the floor, in N, and no current.
+            NumericAssert.Close(1.5e7 * xBay[k] + 1.2e4 * vBay[k], ground[k], Tolerance.Abs(1e-9 * Max(ground)), "ground reaction");
         }
     }
 }

@@ -133,7 +133,7 @@ public static class HarmonicAnalysis
         }
         // Port terms, and the electrical elements whose share of a support's reaction is a current: their ends are needed too.
         var ports = spatial ? [] : TransducerPortTerms.Of(network);
-        var electricalShare = spatial || network.ElectricalNodes.IsEmpty ? [] : ElectricalShares(network, elimination);
+        var electricalShare = spatial || network.ElectricalNodes.IsEmpty ? [] : TransducerPortTerms.ElectricalShares(network, elimination);
         foreach (var node in ports.SelectMany(port => port.Voltage.Concat(port.Current)).Select(t => t.Node)
             .Concat(electricalShare.SelectMany(e => e.NodeB is null ? new[] { e.NodeA } : [e.NodeA, e.NodeB])))
         {
@@ -389,45 +389,6 @@ public static class HarmonicAnalysis
 
     private static Complex ElementFactor(int derivative, Complex iw, Complex hysteretic) =>
         derivative switch { 0 => hysteretic, 1 => iw, _ => iw * iw };
-
-    /// <summary>
-    /// An electrical element (an end on an electrical node) or a capacitance on an eliminated node, with the weight each
-    /// support has in its row t_A − t_B (or t_e): its force f times that weight is the share of the support's
-    /// generalised force that is a current, not a force (NodeB null for a capacitance to ground).
-    /// </summary>
-    private sealed record ElectricalElement(string NodeA, string? NodeB, int Derivative, double Value, Dictionary<string, double> Weights)
-    {
-        public double Weight(string support) => Weights.GetValueOrDefault(support);
-    }
-
-    private static ImmutableArray<ElectricalElement> ElectricalShares(Network network, ConstraintElimination? elimination)
-    {
-        var result = ImmutableArray.CreateBuilder<ElectricalElement>();
-        var terms = new List<(string Node, double Weight)>();
-        void Add(string a, string? b, int derivative, double value)
-        {
-            if (!network.IsElectrical(a) && (b is null || !network.IsElectrical(b))) return;
-            terms.Clear();
-            if (elimination is null) terms.Add((a, 1));
-            else elimination.AddTerms(a, 1, terms);
-            if (b is not null)
-            {
-                if (elimination is null) terms.Add((b, -1));
-                else elimination.AddTerms(b, -1, terms);
-            }
-            var weights = new Dictionary<string, double>(StringComparer.Ordinal);
-            foreach (var (node, w) in terms)
-                if (network.IsSupport(node)) weights[node] = weights.GetValueOrDefault(node) + w;
-            if (weights.Values.Any(w => w != 0)) result.Add(new ElectricalElement(a, b, derivative, value, weights));
-        }
-        foreach (var x in network.Springs) Add(x.NodeA, x.NodeB, 0, x.Stiffness);
-        foreach (var x in network.Dampers) Add(x.NodeA, x.NodeB, 1, x.Coefficient);
-        foreach (var x in network.Inerters) Add(x.NodeA, x.NodeB, 2, x.Inertance);
-        if (elimination is not null)
-            foreach (var m in network.Masses)
-                if (m.Kilograms > 0 && elimination.IsEliminated(m.Name)) Add(m.Name, null, 2, m.Kilograms);
-        return result.ToImmutable();
-    }
 
     /// <summary>The outputs when none are named: every mass (line models) or every DOF label (plane and 3d models).</summary>
     private static ImmutableArray<string> DefaultOutputs(DampedSystem system)
