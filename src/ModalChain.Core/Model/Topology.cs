@@ -93,6 +93,21 @@ public static class Topology
         return [.. masses.Concat(supports).Where(seen.Contains)];
     }
 
+    /// <summary>
+    /// The groups of <see cref="UnsupportedGroups"/> made of electrical nodes only: circuit node groups that no inductor
+    /// (spring) joins to a support or to a mechanical node. Each has a root at 0 that only sets a constant flux level
+    /// (a flux linkage is defined up to a constant where no inductor fixes it), not a motion.
+    /// </summary>
+    public static ImmutableArray<ImmutableArray<string>> FluxLevelGroups(Network network)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        if (network.ElectricalNodes.IsEmpty || network.Space != ModelSpace.Line) return [];
+        return [.. UnsupportedGroups(network).Where(g => g.All(network.IsElectrical))];
+    }
+
+    /// <summary>The number of <see cref="FluxLevelGroups"/>: the zero roots that set a flux level and are left out of the complex roots.</summary>
+    public static int FluxLevelCount(Network network) => FluxLevelGroups(network).Length;
+
     /// <summary>Masses (and, in plane and 3d models, bodies) that no spring of positive stiffness touches, neither directly nor through a link.</summary>
     public static ImmutableArray<string> MassesWithoutSpring(Network network)
     {

@@ -398,13 +398,14 @@ public static partial class ModelReader
             context.Warning(at, spread);
         // A massless node has no rigid-body mode of its own (it is condensed or a first-order state): not warned about here.
         var massless = network.Masses.Where(m => m.Kilograms == 0).Select(m => m.Name).ToHashSet(StringComparer.Ordinal);
-        var loose = Topology.MassesWithoutSpring(network).Where(name => !massless.Contains(name)).ToHashSet();
+        // An electrical node is a circuit node: no inductor at it is ordinary (its flux level is set by nothing, Topology.FluxLevelGroups).
+        var loose = Topology.MassesWithoutSpring(network).Where(name => !massless.Contains(name) && !network.IsElectrical(name)).ToHashSet();
         foreach (var name in loose)
             context.Warning(context.Positions[$"masses.{name}"],
                 $"mass '{name}' has no spring: nothing holds it, so it has a rigid-body mode (reported at 0 Hz)");
         foreach (var group in Topology.UnsupportedGroups(network))
         {
-            if (group.All(g => loose.Contains(g) || massless.Contains(g))) continue;
+            if (group.All(g => loose.Contains(g) || massless.Contains(g) || network.IsElectrical(g))) continue;
             context.Warning(context.Positions[$"masses.{group[0]}"],
                 $"masses {string.Join(", ", group.Select(g => $"'{g}'"))} are not connected to ground by springs: " +
                 "that part of the network has a rigid-body mode (reported at 0 Hz)");

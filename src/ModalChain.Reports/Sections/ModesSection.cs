@@ -179,7 +179,8 @@ public sealed class ModesSection : IReportSection
             "f is the undamped natural frequency, T = 1/f the period, ω = 2πf, ζ the modal damping ratio. Shapes are mass-normalised (φᵀMφ = 1); M* is the effective modal mass, " +
             "the part of the total mass that moves with the mode when all supports move together, and Σ M* its running total. " +
             "Dominant masses carry the largest shares of the mode's kinetic energy; the key spring stores the largest share of its " +
-            "strain energy, so it is the one whose stiffness moves the mode most.");
+            "strain energy, so it is the one whose stiffness moves the mode most." +
+            (network.ElectricalNodes.IsEmpty ? "" : " On the electrical side the kinetic energy is the capacitors' electric energy ½Cv² and the strain energy the inductors' magnetic energy ½λ²/L; electrical nodes carry no effective mass."));
         var rows = _result.Modes.Select(m => (IReadOnlyList<string>)
         [
             m.Number.ToString(Inv),
@@ -210,6 +211,8 @@ public sealed class ModesSection : IReportSection
                         _ => c.IsOscillatory ? DisplayUnits.Number(c.DampedFrequencyHz) : "overdamped",
                     }, c.IsOscillatory ? DisplayUnits.Percent(c.DampingRatio) : "—"]),
                 new HashSet<int> { 0, 1, 2, 3 });
+        if (!_complexModes.IsEmpty && Core.Model.Topology.FluxLevelCount(network) is var levels and > 0)
+            html.Paragraph(string.Create(Inv, $"{levels} root(s) at 0 are left out: a circuit node group held by no inductor only sets a constant flux level there, not a motion."));
         html.Paragraph(string.Create(Inv,
             $"Quality: largest eigen residual ‖Kφ − ω²Mφ‖/‖Kφ‖ = {_result.Quality.MaxResidual:0.0e+00}; largest M-orthogonality error |ΦᵀMΦ − I| = {_result.Quality.MaxOrthogonalityError:0.0e+00}; solver: {_result.Algorithm}."),
             "quality");
