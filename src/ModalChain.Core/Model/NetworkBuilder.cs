@@ -225,7 +225,7 @@ public sealed class NetworkBuilder
         if (Space != ModelSpace.Line && _masses.FirstOrDefault(m => m.Kilograms == 0 && m.Location is null) is { } massless)
             throw new ArgumentException($"Massless node '{massless.Name}' has no location; every node of a plane or 3d model needs one.");
         // The electrical side of the transducers is electrical too, so Network.IsElectrical is the one source of truth.
-        var side = Topology.ElectricalSide([.. _masses.Select(m => m.Name)], [.. _supports.Select(s => s.Name)],
+        var side = _transducers.Count == 0 ? [] : Topology.ElectricalSide([.. _masses.Select(m => m.Name)], [.. _supports.Select(s => s.Name)],
             _springs.Select(e => (e.NodeA, e.NodeB)).Concat(_dampers.Select(e => (e.NodeA, e.NodeB))).Concat(_inerters.Select(e => (e.NodeA, e.NodeB))),
             _transducers);
         ImmutableArray<string> electrical = [.. _electrical.Concat(side.Where(n => !_electrical.Contains(n)))];
