@@ -262,6 +262,9 @@ public static class HarmonicJson
                     Magnitude = r.Force[0].Magnitude,
                     PhaseDeg = PhaseDegrees(r.Force[0]),
                 })],
+                SourceCurrents = op.Response.SourceCurrents.IsEmpty ? null : [.. op.Response.SourceCurrents.Select(c => Point(c.Support, "current", c.Current[0]))],
+                TransducerPorts = op.Response.TransducerPorts.IsEmpty ? null : [.. op.Response.TransducerPorts.SelectMany(port =>
+                    new[] { Point(port.Transducer, "voltage", port.Voltage[0]), Point(port.Transducer, "current", port.Current[0]) })],
                 MountForces = op.Response.MountForces.IsEmpty ? null : [.. op.Response.MountForces.Select(m => new HarmonicMountPointOutput
                 {
                     Element = m.Element,
@@ -276,6 +279,16 @@ public static class HarmonicJson
             Notes = [.. result.Notes],
         };
     }
+
+    private static HarmonicElectricalPointOutput Point(string name, string quantity, Complex z) => new()
+    {
+        Name = name,
+        Quantity = quantity,
+        Unit = quantity == "voltage" ? "V" : "A",
+        Amplitude = "peak",
+        Magnitude = z.Magnitude,
+        PhaseDeg = PhaseDegrees(z),
+    };
 
     private static string Kind(ElementKind kind) => kind == ElementKind.Spring ? "spring" : "damper";
 

@@ -148,4 +148,50 @@ public class ElectricalOutputCommandTests
         Assert.Contains("amplifier source current [A]", header);
         Assert.Contains("coil-resistance resistor current [A]", header);
     }
+
+    [Fact]
+    public void OperatingPoint_CarriesPortAndSourceCurrents()
+    {
+        // A blocked coil (its pair held: [frame, ground], both supports) behind R = 4 Ω from a 1 V source running at
+        // 50 Hz: at the operating point the source delivers I = V/R = 0.25 A in phase with the source, the port current
+        // (out of n1 into the circuit) is −0.25 A and the port voltage 0 (Ohm's law; 1e-12 relative).
+        var dir = Path.Combine(Path.GetTempPath(), "modalchain-electrical-" + Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(dir);
+        var path = Path.Combine(dir, "blocked.yaml");
+        File.WriteAllText(path, """
+            title: Blocked coil on a bench
+            masses:
+              bench: 50 kg
+            nodes: [coil-plus]
+            supports:
+              frame: {}
+              amplifier: {}
+            springs:
+              bench-feet: {between: [ground, bench], stiffness: 200 kN/m}
+            dampers:
+              bench-loss: {between: [ground, bench], coefficient: 300 N*s/m}
+              coil-resistance: {between: [amplifier, coil-plus], coefficient: 0.25 N*s/m}
+            transducers:
+              coil: {between: [frame, ground], branch: [coil-plus, ground], force-factor: 12 T*m}
+            loads:
+              drive: {kind: base-motion, support: amplifier, velocity: 1 m/s, speed: 50 Hz}
+            harmonic:
+              loads: [drive]
+              frequencies: {from: 10 Hz, to: 100 Hz, points: 10}
+            """); // test input, not a product output
+        var o = CliRun.Run("harmonic", path, "--format", "json");
+        Assert.True(o.ExitCode == 0, o.ToString());
+        SchemaFiles.AssertValid("harmonic.schema.json", o.Stdout, "harmonic of the blocked coil");
+        using var json = JsonDocument.Parse(o.Stdout);
+        var point = Assert.Single(json.RootElement.GetProperty("operating_points").EnumerateArray());
+        var source = Assert.Single(point.GetProperty("source_currents").EnumerateArray());
+        Assert.Equal("amplifier", source.GetProperty("name").GetString());
+        Assert.Equal("A", source.GetProperty("unit").GetString());
+        Assert.True(Math.Abs(source.GetProperty("magnitude").GetDouble() - 0.25) <= 1e-12 * 0.25, "source current");
+        Assert.True(Math.Abs(source.GetProperty("phase_deg").GetDouble()) <= 1e-9, "in phase with the source");
+        var ports = point.GetProperty("transducer_ports").EnumerateArray().ToDictionary(p => p.GetProperty("quantity").GetString()!);
+        Assert.Equal(0, ports["voltage"].GetProperty("magnitude").GetDouble());
+        Assert.True(Math.Abs(ports["current"].GetProperty("magnitude").GetDouble() - 0.25) <= 1e-12 * 0.25, "port current");
+        Assert.True(Math.Abs(Math.Abs(ports["current"].GetProperty("phase_deg").GetDouble()) - 180) <= 1e-9, "opposite to the source current");
+    }
 }

@@ -259,11 +259,39 @@ public sealed record HarmonicOperatingPointOutput
     [Description("Each spring's and damper's force.")]
     public required IReadOnlyList<HarmonicElementPointOutput> ElementForces { get; init; }
 
-    [Description("Each support's reaction.")]
+    [Description("Each mechanical support's reaction, in N.")]
     public required IReadOnlyList<HarmonicReactionPointOutput> Reactions { get; init; }
 
     [Description("Plane and 3d models only: each spring's and damper's force (or moment) per direction at the running speed.")]
     public IReadOnlyList<HarmonicMountPointOutput>? MountForces { get; init; }
+
+    [Description("Models with electrical voltage sources only: the current each source delivers at the running speed, in A.")]
+    public IReadOnlyList<HarmonicElectricalPointOutput>? SourceCurrents { get; init; }
+
+    [Description("Models with transducers only: each transducer's port voltage (V) and port current (A, out of branch terminal n1 into the circuit) at the running speed.")]
+    public IReadOnlyList<HarmonicElectricalPointOutput>? TransducerPorts { get; init; }
+}
+
+/// <summary>A source current, or a transducer's port voltage or current, at one frequency.</summary>
+public sealed record HarmonicElectricalPointOutput
+{
+    [Description("The source's support or the transducer.")]
+    public required string Name { get; init; }
+
+    [Description("current (a source's or a port's) or voltage (a port's)."), SchemaEnum("voltage", "current")]
+    public required string Quantity { get; init; }
+
+    [Description("V for a voltage, A for a current."), SchemaEnum("V", "A")]
+    public required string Unit { get; init; }
+
+    [Description("peak: the magnitude is the zero-to-peak amplitude."), SchemaConst("peak")]
+    public required string Amplitude { get; init; }
+
+    [Description("Amplitude in 'unit'.")]
+    public required double Magnitude { get; init; }
+
+    [Description("In degrees.")]
+    public required double PhaseDeg { get; init; }
 }
 
 /// <summary>A DOF's response at one frequency.</summary>
