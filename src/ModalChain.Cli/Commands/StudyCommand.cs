@@ -32,15 +32,16 @@ internal static class StudyCommand
         var file = CommonOptions.ModelFile();
         var vary = new Option<string>("--vary")
         {
-            Description = "The numeric field to vary, as section.name.field: masses.NAME.mass, springs.NAME.stiffness or " +
-                          "dampers.NAME.coefficient. In plane and 3d models also bodies.NAME.mass (inertia kept), one direction " +
-                          "(springs.NAME.stiffness.z, springs.NAME.rotational-stiffness.rx, dampers.NAME.coefficient.x) or " +
-                          "springs.NAME.axial; springs.NAME.stiffness then scales every direction in proportion. 'speed' instead " +
+            Description = "The numeric field to vary, as section.name.field: masses.NAME.mass, springs.NAME.stiffness, " +
+                          "dampers.NAME.coefficient or inerters.NAME.inertance; in line models also transducers.NAME.force-factor. " +
+                          "In plane and 3d models also bodies.NAME.mass (inertia kept), one direction " +
+                          "(springs.NAME.stiffness.z, springs.NAME.rotational-stiffness.rx, dampers.NAME.coefficient.x, inerters.NAME.inertance.y) or " +
+                          "springs.NAME.axial (dampers and inerters alike); springs.NAME.stiffness then scales every direction in proportion. 'speed' instead " +
                           "gives the speed-frequency chart (natural frequencies against running speed with the order lines and their crossings).",
             Required = true,
         };
         const string fieldUnits = "A number with an optional unit of the varied field's kind; a bare number is in the field's SI unit " +
-                                  "(kg for a mass, N/m for a stiffness, N*s/m for a damping coefficient, N*m/rad and N*m*s/rad for rotational ones, Hz for speed), which the output states.";
+                                  "(kg for a mass or an inertance, N/m for a stiffness, N*s/m for a damping coefficient, N*m/rad, N*m*s/rad and kg*m^2 for rotational ones, T*m for a force factor, Hz for speed), which the output states.";
         var from = new Option<string>("--from") { Description = "First value, e.g. '50 kN/mm' (for speed: '0 rpm'). " + fieldUnits, HelpName = "value", Required = true };
         var to = new Option<string>("--to") { Description = "Last value, e.g. '200 kN/mm'. " + fieldUnits, HelpName = "value", Required = true };
         var steps = CommandValues.Count("--steps", "Number of values including both ends (at least 2; default 31).", 2);
@@ -70,6 +71,11 @@ internal static class StudyCommand
                 io.Error.WriteLine($"modalchain: error: --vary: {error}");
                 return ExitCodes.InputError;
             }
+            if (parameter.Kind == ParameterKind.ForceFactor)
+                io.Error.WriteLine("note: the force factor couples the mechanical pair to the transducer's electrical branch: the study's modes are " +
+                                   "the undamped modes of the coupled M and K, where the branch's capacitances (masses) and inductances (springs) " +
+                                   "enter through Bl squared; its resistances (dampers) do not, so the electrical damping the transducer adds, " +
+                                   "and the port voltage and current, are not in the table (see them with `harmonic` or `transient` at chosen force factors).");
             var a = Value(parse.GetValue(from)!, parameter.Quantity, "--from", varied, ValueBound.Any, io);
             var b = Value(parse.GetValue(to)!, parameter.Quantity, "--to", varied, ValueBound.Any, io);
             if (a is null || b is null) return ExitCodes.InputError;

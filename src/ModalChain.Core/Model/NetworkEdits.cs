@@ -75,6 +75,41 @@ public static class NetworkEdits
         return Copy(network, dampers: network.Dampers.SetItem(i, damper with { Coefficient = Scale(components), Components = components }));
     }
 
+    /// <summary>A copy in which inerter <paramref name="name"/> has inertance <paramref name="inertance"/> kg.</summary>
+    /// <remarks>A per-direction inerter (plane and 3d models) has every component scaled in proportion, as <see cref="WithSpringStiffness"/> does; an axial one has its axial inertance set.</remarks>
+    /// <exception cref="ArgumentException">A per-direction inerter whose scale is 0 asked for a non-zero value.</exception>
+    public static Network WithInerterInertance(this Network network, string name, double inertance)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        Guard.NonNegative(inertance, nameof(inertance));
+        var i = IndexOf(network.Inerters, b => b.Name == name, "inerter", name);
+        var inerter = network.Inerters[i];
+        var components = Scaled(inerter.Components, inerter.Inertance, inertance, "inerter", name);
+        return Copy(network, inerters: network.Inerters.SetItem(i, inerter with { Inertance = inertance, Components = components }));
+    }
+
+    /// <summary>A copy in which per-direction inerter <paramref name="name"/> has <paramref name="value"/> (kg, or kg·m²/rad for a rotation) in <paramref name="direction"/>; its other directions are kept.</summary>
+    /// <exception cref="ArgumentException">The inerter has no component in <paramref name="direction"/>.</exception>
+    public static Network WithInerterComponent(this Network network, string name, Dofs.Direction direction, double value)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        Guard.NonNegative(value, nameof(value));
+        var i = IndexOf(network.Inerters, b => b.Name == name, "inerter", name);
+        var inerter = network.Inerters[i];
+        var components = WithComponent(inerter.Components, direction, value, "inerter", name);
+        return Copy(network, inerters: network.Inerters.SetItem(i, inerter with { Inertance = Scale(components), Components = components }));
+    }
+
+    /// <summary>A copy in which transducer <paramref name="name"/> has force factor <paramref name="forceFactor"/> T·m (above zero).</summary>
+    /// <remarks>The transducer's ends and branch are kept, so the same electrical coordinate is eliminated and the DOF numbering is unchanged.</remarks>
+    public static Network WithTransducerForceFactor(this Network network, string name, double forceFactor)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        Guard.Positive(forceFactor, nameof(forceFactor));
+        var i = IndexOf(network.Transducers, t => t.Name == name, "transducer", name);
+        return Copy(network, transducers: network.Transducers.SetItem(i, network.Transducers[i] with { ForceFactor = forceFactor }));
+    }
+
     /// <summary>The scale of per-direction values: the largest translational one (0 when there is none), as the model reader sets it.</summary>
     private static double Scale(ImmutableArray<DirectionalValue> components) =>
         components.Where(c => !c.Direction.IsRotation()).Select(c => c.Value).DefaultIfEmpty(0).Max();
@@ -119,8 +154,13 @@ public static class NetworkEdits
     }
 
     private static Network Copy(Network n, ImmutableArray<Mass>? masses = null, ImmutableArray<Spring>? springs = null,
-        ImmutableArray<Damper>? dampers = null, ImmutableArray<RigidBody>? bodies = null) =>
-        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers) { Links = n.Links, Space = n.Space, Bodies = bodies ?? n.Bodies, Inerters = n.Inerters, Transducers = n.Transducers, ElectricalNodes = n.ElectricalNodes };
+        ImmutableArray<Damper>? dampers = null, ImmutableArray<RigidBody>? bodies = null, ImmutableArray<Inerter>? inerters = null,
+        ImmutableArray<Transducer>? transducers = null) =>
+        new(n.Title, masses ?? n.Masses, n.Supports, springs ?? n.Springs, dampers ?? n.Dampers)
+        {
+            Links = n.Links, Space = n.Space, Bodies = bodies ?? n.Bodies, Inerters = inerters ?? n.Inerters,
+            Transducers = transducers ?? n.Transducers, ElectricalNodes = n.ElectricalNodes,
+        };
 
     private static int IndexOf<T>(ImmutableArray<T> items, Func<T, bool> match, string kind, string name)
     {

@@ -44,6 +44,32 @@ public static class TextMetrics
         return em * size;
     }
 
+    /// <summary>
+    /// <paramref name="lines"/> broken at spaces into lines whose estimated width at <paramref name="size"/> fits
+    /// <paramref name="width"/>; a single word longer than that stays whole on a line of its own.
+    /// </summary>
+    public static List<string> Wrap(IReadOnlyList<string> lines, double size, double width)
+    {
+        ArgumentNullException.ThrowIfNull(lines);
+        var wrapped = new List<string>();
+        foreach (var line in lines)
+        {
+            var current = "";
+            foreach (var word in line.Split(' '))
+            {
+                var candidate = current.Length == 0 ? word : current + " " + word;
+                if (current.Length > 0 && Width(candidate, size) > width)
+                {
+                    wrapped.Add(current);
+                    current = word;
+                }
+                else current = candidate;
+            }
+            wrapped.Add(current);
+        }
+        return wrapped;
+    }
+
     /// <summary>The box of a text label at its anchor.</summary>
     public static Rect Box(TextShape text)
     {
@@ -109,6 +135,42 @@ public sealed class LabelPlacer(Rect bounds)
             yield return (new Point(p.X + 0.75 * r, p.Y + 0.75 * r + 0.8 * size), TextAnchor.Start);
             yield return (new Point(p.X - 0.75 * r, p.Y + 0.75 * r + 0.8 * size), TextAnchor.End);
         }
+    }
+
+    /// <summary>
+    /// Candidate positions for a label of estimated width <paramref name="width"/> beside a drawn line element from
+    /// <paramref name="a"/> to <paramref name="b"/> whose symbol reaches <paramref name="clearance"/> to each side: beside
+    /// its middle on either side, then beside points 0.3, 0.7, 0.15 and 0.85 of the way along, each round a little
+    /// farther out. The anchor follows the side (a label right of the line starts there, one left of it ends there, one
+    /// above or below a level line is centred), and each position is pushed out until the nearest corner of the label's
+    /// box (<see cref="TextMetrics.Box"/>) is more than the clearance from the line.
+    /// </summary>
+    public static IEnumerable<(Point At, TextAnchor Anchor)> AlongLine(Point a, Point b, double clearance, double size, double width)
+    {
+        var d = b - a;
+        var length = d.Length;
+        var u = length > 1e-9 ? (1 / length) * d : new Point(0, -1);
+        var n = new Point(-u.Y, u.X);
+        if (n.X < 0 || (n.X == 0 && n.Y > 0)) n = -1 * n; // the first side tried is the right (or, for a level line, the top)
+        foreach (var step in new[] { 0.0, 0.8, 1.8, 3.0, 4.5, 6.5 })
+            foreach (var t in new[] { 0.5, 0.3, 0.7, 0.15, 0.85 })
+                foreach (var side in new[] { 1.0, -1.0 })
+                {
+                    var normal = side * n;
+                    var anchor = normal.X > 0.35 ? TextAnchor.Start : normal.X < -0.35 ? TextAnchor.End : TextAnchor.Middle;
+                    var (left, right) = anchor switch
+                    {
+                        TextAnchor.Start => (0.0, width),
+                        TextAnchor.End => (-width, 0.0),
+                        _ => (-width / 2, width / 2),
+                    };
+                    // The box's corners relative to the anchor point; the one nearest the line sets how far out to go.
+                    var nearest = new[] { left, right }
+                        .SelectMany(x => new[] { -TextMetrics.Ascent * size, TextMetrics.Descent * size }.Select(y => x * normal.X + y * normal.Y))
+                        .Min();
+                    var r = clearance + 2 + step * size - nearest;
+                    yield return (a + t * d + r * normal, anchor);
+                }
     }
 
     /// <summary>Candidate positions for the label of a drawn area: inside along its top edge, above it, below it, beside it, then around its centre.</summary>

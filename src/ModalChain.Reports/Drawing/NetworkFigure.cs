@@ -34,6 +34,7 @@ public static class NetworkFigure
     private const double BodyMargin = 34;
     private const double HeaderLine = 18;
     private const double FooterLine = 16;
+    private const double FooterSize = 10.5;
     private const double MaxBodyHeight = 520;
     private const double MaxPixelsPerSpacing = 150;
 
@@ -55,6 +56,8 @@ public static class NetworkFigure
     {
         ArgumentNullException.ThrowIfNull(layout);
         ArgumentNullException.ThrowIfNull(units);
+        footer = Wrap(footer);
+        // One spare footer line for the note on labels left out, if any.
         var frame = Frame.For(layout, header.Count, footer.Count + 1, null);
         var shapes = ImmutableArray.CreateBuilder<Shape>();
         Headers(shapes, header);
@@ -69,9 +72,72 @@ public static class NetworkFigure
                 var value = units.Mass(massKilograms[name], given: true) + " " + units.MassSymbol;
                 shapes.Add(new TextShape(centres[i] + new Point(frame.HalfWidth + 5, 4), value, 10, TextAnchor.Start, false, "#333333") { Class = "mass-value" });
             }
+        var omitted = frame.Labels ? PlacedElementLabels(shapes, layout, frame, centres, units) : 0;
+        if (omitted > 0)
+            footer = [.. footer, string.Create(CultureInfo.InvariantCulture,
+                $"{omitted} label{(omitted == 1 ? " was" : "s were")} left out where {(omitted == 1 ? "it" : "they")} would overlap others; the tables list every element.")];
         Footer(shapes, frame, footer, legend: null);
         return new Scene(Width, frame.Height, header.Count > 0 ? header[0] : "Network", shapes.ToImmutable(), frame.Data);
     }
+
+    /// <summary>Font size of the placed labels of inerters and transducers.</summary>
+    public const double PlacedLabelSize = 9.5;
+
+    /// <summary>
+    /// Labels each inerter ("name 360 kg") and transducer ("name Bl 15 T·m") beside its symbol through a
+    /// <see cref="LabelPlacer"/> that first blocks every mass block and every text drawn so far, so a placed label
+    /// overlaps none of them nor another placed label. Returns how many found no free place.
+    /// </summary>
+    private static int PlacedElementLabels(ImmutableArray<Shape>.Builder shapes, NetworkLayout layout, Frame frame, Point[] centres, DisplayUnits units)
+    {
+        var placer = new LabelPlacer(new Rect(4, frame.Top - BodyMargin + 6, Width - 4, frame.Height - 12 - frame.FooterLines * FooterLine));
+        foreach (var c in centres)
+            placer.Block(new Rect(c.X - frame.HalfWidth, c.Y - frame.HalfHeight, c.X + frame.HalfWidth, c.Y + frame.HalfHeight));
+        foreach (var text in Texts(shapes)) placer.Block(TextMetrics.Box(text));
+        var index = layout.Masses.Select((m, i) => (m.Name, i)).ToDictionary(p => p.Name, p => p.i);
+        ImmutableArray<Point>[] Lines(DrawnElement e) => ElementGeometry(e,
+            e.A.Mass is { } ma ? centres[index[ma]] : frame.Map(e.A.Anchor),
+            e.B.Mass is { } mb ? centres[index[mb]] : frame.Map(e.B.Anchor), e.A.Mass is not null, e.B.Mass is not null, frame, []);
+        // Every element's body (not its rods, which may run far across the figure) is blocked, so a label sits beside
+        // the symbols, not on them: a spring's teeth, a damper's cup and plate, a flywheel's disc, a magnet and its coil.
+        foreach (var e in layout.Elements)
+        {
+            var lines = Lines(e);
+            var body = e.Kind switch
+            {
+                ElementKind.Spring => lines[0][1..^1],
+                ElementKind.Damper => [.. lines[1], .. lines[3]],
+                _ => [.. lines[1..4].SelectMany(l => l)],
+            };
+            if (body.Length > 0) placer.Block(new Rect(body.Min(p => p.X), body.Min(p => p.Y), body.Max(p => p.X), body.Max(p => p.Y)));
+        }
+        var omitted = 0;
+        foreach (var e in layout.Elements.Where(e => e.Kind is ElementKind.Inerter or ElementKind.Transducer))
+        {
+            var lines = Lines(e);
+            var text = e.Kind == ElementKind.Inerter
+                ? $"{e.Name} {units.Mass(e.Value, given: true)} {units.MassSymbol}"
+                : $"{e.Name} Bl {e.Value.ToString("G4", CultureInfo.InvariantCulture)} T·m";
+            var label = placer.Place(text, PlacedLabelSize, LabelPlacer.AlongLine(lines[0][0], lines[4][^1], 9, PlacedLabelSize, TextMetrics.Width(text, PlacedLabelSize)), "#333333",
+                "label element-label " + KindClass(e.Kind), ImmutableDictionary<string, string>.Empty.Add("element", e.Name));
+            if (label is null) omitted++;
+            else shapes.Add(label);
+        }
+        return omitted;
+    }
+
+    private static IEnumerable<TextShape> Texts(IEnumerable<Shape> shapes)
+    {
+        foreach (var s in shapes)
+        {
+            if (s is TextShape t) yield return t;
+            if (s is GroupShape g)
+                foreach (var c in Texts(g.Children)) yield return c;
+        }
+    }
+
+    /// <summary>The footer notes broken at spaces into lines that fit the figure's width.</summary>
+    private static List<string> Wrap(IReadOnlyList<string> lines) => TextMetrics.Wrap(lines, FooterSize, Width - 32);
 
     /// <summary>The network undeformed (grey, dashed) with a mode shape drawn over it (blue, solid).</summary>
     public static Scene Mode(NetworkLayout layout, ModeOverlay mode, IReadOnlyList<string> header, IReadOnlyList<string> footer)
@@ -161,7 +227,7 @@ public static class NetworkFigure
             shapes.Add(new TextShape(new Point(x0 + bar + 6, ly), "|φ| = 1", 10.5) { Class = "legend" });
         }
         for (var i = 0; i < footer.Count; i++)
-            shapes.Add(new TextShape(new Point(16, y + i * FooterLine), footer[i], 10.5, TextAnchor.Start, false, "#333333") { Class = "figure-note" });
+            shapes.Add(new TextShape(new Point(16, y + i * FooterLine), footer[i], FooterSize, TextAnchor.Start, false, "#333333") { Class = "figure-note" });
     }
 
     private static void DrawSupports(ImmutableArray<Shape>.Builder shapes, NetworkLayout layout, Frame frame, Point[] centres)
@@ -200,26 +266,36 @@ public static class NetworkFigure
             {
                 var a = e.A.Mass is { } ma ? centres[index[ma]] : frame.Map(e.A.Anchor);
                 var b = e.B.Mass is { } mb ? centres[index[mb]] : frame.Map(e.B.Anchor);
-                return ElementGeometry(e, a, b, e.A.Mass is not null, e.B.Mass is not null, frame);
+                return ElementGeometry(e, a, b, e.A.Mass is not null, e.B.Mass is not null, frame, [.. e.Branch.Select(n => centres[index[n]])]);
             }).ToArray();
             var parts = ImmutableArray.CreateBuilder<Shape>();
+            var dashedFrom = geometry[0].Length - e.Branch.Length;
+            var dashed = pen with { Width = Math.Min(pen.Width, 1.1), Dash = pen.Dash ?? ImmutableArray.Create(4.0, 3.0) };
             for (var p = 0; p < geometry[0].Length; p++)
-                parts.Add(new PathShape([.. geometry.Select(g => g[p])], pen));
+                parts.Add(new PathShape([.. geometry.Select(g => g[p])], p < dashedFrom ? pen : dashed)
+                {
+                    Class = p < dashedFrom ? null : "branch-link",
+                    Data = p < dashedFrom ? ImmutableDictionary<string, string>.Empty : ImmutableDictionary<string, string>.Empty.Add("branch", e.Branch[p - dashedFrom]),
+                });
             var start = geometry[0][0][0];
             var end = e.Kind == ElementKind.Spring ? geometry[0][0][^1] : geometry[0][2][0];
             // Labels of very short elements would sit on the blocks; the tables of the report list every value anyway.
-            if (labels && units is not null && (end - start).Length >= 60)
+            // Inerters and transducers are labelled afterwards through the label placer (see Network).
+            if (labels && units is not null && e.Kind is ElementKind.Spring or ElementKind.Damper && (end - start).Length >= 60)
             {
                 var mid = 0.5 * (start + end);
                 var u = Unit(end - start, frame.Axis);
-                var n = new Point(-u.Y, u.X);
+                var along = new Point(-u.Y, u.X);                 // the side ElementGeometry offsets the body to
+                var n = along;
                 if (n.X < 0 || (n.X == 0 && n.Y > 0)) n = -1 * n;
                 var value = e.Kind == ElementKind.Spring
                     ? units.Stiffness(e.Value, given: true) + " " + units.StiffnessSymbol
                     : units.Damping(e.Value, given: true) + " " + units.DampingSymbol;
                 // Two elements side by side get their labels on either side; more stack their labels on one side.
                 var spread = 0.5 * Math.Max(0, e.ParallelCount - 1) * Math.Min(24, 1.5 * frame.HalfWidth / Math.Max(1, e.ParallelCount - 1));
-                var left = e.ParallelCount == 2 && e.ParallelIndex == 0;
+                // The label goes on the side its body is offset to, whichever way round the element is written.
+                var bodySide = Math.Sign(e.ParallelIndex - (e.ParallelCount - 1) / 2.0) * (e.Reversed ? -1 : 1);
+                var left = e.ParallelCount == 2 && bodySide * (along.X * n.X + along.Y * n.Y) < 0;
                 var stack = e.ParallelCount > 2 ? 24 * e.ParallelIndex - 12 * (e.ParallelCount - 1) : 0;
                 var at = mid + (left ? -1 : 1) * (spread + 13) * n + stack * u;
                 var anchor = left ? TextAnchor.End : TextAnchor.Start;
@@ -228,28 +304,48 @@ public static class NetworkFigure
             }
             shapes.Add(new GroupShape(parts.ToImmutable())
             {
-                Class = cssClass + (e.Kind == ElementKind.Spring ? " spring" : " damper"),
+                Class = cssClass + " " + KindClass(e.Kind),
                 Data = ImmutableDictionary<string, string>.Empty.Add("element", e.Name),
             });
         }
     }
 
-    /// <summary>The polylines of one spring (one zigzag) or damper (rod, cup, piston rod, plate), in a fixed count and order so frames can be animated.</summary>
-    private static ImmutableArray<Point>[] ElementGeometry(DrawnElement e, Point a, Point b, bool aIsMass, bool bIsMass, Frame frame)
+    /// <summary>The class word of an element kind in the SVG ("spring", "damper", "inerter", "transducer").</summary>
+    public static string KindClass(ElementKind kind) => kind.ToString().ToLowerInvariant();
+
+    /// <summary>
+    /// The polylines of one spring (one zigzag), damper (rod, cup, piston rod, plate), inerter (rod, flywheel disc, two
+    /// spokes, rod) or transducer (rod, magnet, pole line, coil, rod, then one dashed line to each drawn branch terminal
+    /// in <paramref name="branch"/>), in a fixed count and order so frames can be animated.
+    /// </summary>
+    private static ImmutableArray<Point>[] ElementGeometry(DrawnElement e, Point a, Point b, bool aIsMass, bool bIsMass, Frame frame,
+        IReadOnlyList<Point> branch)
     {
         var u = Unit(b - a, frame.Axis);
         var n = new Point(-u.Y, u.X);
-        var offset = (e.ParallelIndex - (e.ParallelCount - 1) / 2.0) * Math.Min(24, 1.5 * frame.HalfWidth / Math.Max(1, e.ParallelCount - 1));
+        var offset = (e.ParallelIndex - (e.ParallelCount - 1) / 2.0) * Math.Min(24, 1.5 * frame.HalfWidth / Math.Max(1, e.ParallelCount - 1))
+                     * (e.Reversed ? -1 : 1);
         if (aIsMass) a = Clip(a, u, frame);
         if (bIsMass) b = Clip(b, -1 * u, frame);
         a += offset * n;
         b += offset * n;
         var d = b - a;
         var length = d.Length;
-        if (length < 1e-9) return e.Kind == ElementKind.Spring ? [[a, b]] : [[a, b], [a, b], [a, b], [a, b]];
+        if (length < 1e-9)
+        {
+            var count = e.Kind switch { ElementKind.Spring => 1, ElementKind.Damper => 4, ElementKind.Inerter => 5, _ => 5 };
+            return [.. Enumerable.Repeat(ImmutableArray.Create(a, b), count), .. branch.Select(p => ImmutableArray.Create(a, p))];
+        }
         u = (1 / length) * d;
         n = new Point(-u.Y, u.X);
         Point At(double t, double across) => a + (t * length) * u + across * n;
+        if (e.Kind == ElementKind.Inerter) return Flywheel(At, length);
+        if (e.Kind == ElementKind.Transducer)
+        {
+            var symbol = MagnetAndCoil(At, length);
+            var centre = At(0.6, 0);
+            return [.. symbol, .. branch.Select(p => ImmutableArray.Create(centre, Clip(p, Unit(centre - p, frame.Axis), frame)))];
+        }
         if (e.Kind == ElementKind.Spring)
         {
             const int teeth = 8;
@@ -267,6 +363,53 @@ public static class NetworkFigure
             [At(0.64, c), At(0.36, c), At(0.36, -c), At(0.64, -c)],
             [b, At(0.52, 0)],
             [At(0.52, 0.7 * c), At(0.52, -0.7 * c)],
+        ];
+    }
+
+    /// <summary>
+    /// A flywheel: a rod to the disc, the disc (a closed 20-sided outline), two crossed spokes, a rod from the disc. The
+    /// disc's radius follows the element's length, at most 9 figure units.
+    /// </summary>
+    internal static ImmutableArray<Point>[] Flywheel(Func<double, double, Point> at, double length)
+    {
+        var r = Math.Min(9, 0.22 * Math.Max(length, 30));
+        var rt = r / length; // the radius as a fraction of the length
+        Point Rim(double angle) => at(0.5 + rt * Math.Cos(angle), r * Math.Sin(angle));
+        return
+        [
+            [at(0, 0), at(0.5 - rt, 0)],
+            [.. Enumerable.Range(0, 21).Select(k => Rim(2 * Math.PI * k / 20))],
+            [Rim(Math.PI / 4), Rim(5 * Math.PI / 4)],
+            [Rim(3 * Math.PI / 4), Rim(7 * Math.PI / 4)],
+            [at(0.5 + rt, 0), at(1, 0)],
+        ];
+    }
+
+    /// <summary>
+    /// A magnet and a coil: a rod to the magnet (a closed block across the line, split by its pole line), an air gap,
+    /// the coil (four loops drawn as a prolate cycloid along the line) and a rod from the coil.
+    /// </summary>
+    internal static ImmutableArray<Point>[] MagnetAndCoil(Func<double, double, Point> at, double length)
+    {
+        var c = Math.Min(8, 0.2 * Math.Max(length, 30));
+        const int turns = 4, perTurn = 12;
+        const double span = 0.24;                         // the coil runs from t = 0.48 to 0.72
+        // Along the line t = 0.48 + pθ + q(1 − cos θ), across 0.8c·sin θ: with q > p the curve runs back on itself once a
+        // turn, so each turn is a loop, and it starts and ends on the line.
+        var p = span / (2 * Math.PI * turns);
+        var q = 1.8 * p;
+        var coil = Enumerable.Range(0, turns * perTurn + 1).Select(k =>
+        {
+            var theta = 2 * Math.PI * k / perTurn;
+            return at(0.48 + p * theta + q * (1 - Math.Cos(theta)), 0.8 * c * Math.Sin(theta));
+        });
+        return
+        [
+            [at(0, 0), at(0.28, 0)],
+            [at(0.28, -c), at(0.28, c), at(0.42, c), at(0.42, -c), at(0.28, -c)],
+            [at(0.35, -c), at(0.35, c)],
+            [.. coil],
+            [at(0.72, 0), at(1, 0)],
         ];
     }
 
@@ -314,7 +457,7 @@ public static class NetworkFigure
 
     /// <summary>The mapping from drawing metres (y up) to figure units (y down) and the sizes of symbols.</summary>
     private sealed record Frame(double MinX, double MaxY, double Left, double Top, double PixelsPerMetre, double Height,
-        double HalfWidth, double HalfHeight, bool Labels, ChainAxis Axis)
+        double HalfWidth, double HalfHeight, bool Labels, ChainAxis Axis, int FooterLines)
     {
         public Point Map(Point p) => new(Left + (p.X - MinX) * PixelsPerMetre, Top + (MaxY - p.Y) * PixelsPerMetre);
 
@@ -355,7 +498,7 @@ public static class NetworkFigure
             var body = spanY * s;
             var height = top + body + BodyMargin + 10 + footerLines * FooterLine + 8;
             var left = (Width - spanX * s) / 2;
-            return new Frame(minX, maxY, left, top, s, Math.Ceiling(height), halfWidth, halfHeight, halfHeight >= 9, layout.Axis);
+            return new Frame(minX, maxY, left, top, s, Math.Ceiling(height), halfWidth, halfHeight, halfHeight >= 9, layout.Axis, footerLines);
         }
     }
 }

@@ -18,6 +18,12 @@ public enum ElementKind
 {
     Spring,
     Damper,
+
+    /// <summary>An inerter, drawn as a flywheel: a disc with crossed spokes between two rods.</summary>
+    Inerter,
+
+    /// <summary>A transducer, drawn between its mechanical pair as a magnet and a coil with a dashed line to its electrical branch.</summary>
+    Transducer,
 }
 
 /// <summary>One end of a drawn element: a mass (moves with it) or a fixed anchor point in drawing metres.</summary>
@@ -25,19 +31,29 @@ public enum ElementKind
 /// <param name="Anchor">For a support end, where its symbol is drawn (m, y up); unused for a mass end.</param>
 public readonly record struct ElementEnd(string? Mass, Point Anchor);
 
-/// <summary>A spring or damper as drawn.</summary>
+/// <summary>A spring, damper, inerter or transducer as drawn.</summary>
 /// <param name="Name">Element name.</param>
-/// <param name="Kind">Spring or damper.</param>
-/// <param name="A">First end.</param>
+/// <param name="Kind">Spring, damper, inerter or transducer.</param>
+/// <param name="A">First end (a transducer's mechanical terminal a).</param>
 /// <param name="B">Second end.</param>
-/// <param name="Value">Stiffness in N/m or coefficient in N·s/m.</param>
+/// <param name="Value">Stiffness in N/m, coefficient in N·s/m, inertance in kg or force factor in T·m.</param>
 /// <param name="ParallelIndex">Index among elements joining the same two ends (drawn side by side).</param>
 /// <param name="ParallelCount">Number of elements joining the same two ends.</param>
-public sealed record DrawnElement(string Name, ElementKind Kind, ElementEnd A, ElementEnd B, double Value, int ParallelIndex, int ParallelCount);
+public sealed record DrawnElement(string Name, ElementKind Kind, ElementEnd A, ElementEnd B, double Value, int ParallelIndex, int ParallelCount)
+{
+    /// <summary>
+    /// True when the element is written from the other end than the first element of its parallel group (a spring
+    /// ground→table beside a transducer table→ground), so its sideways offset is turned round to keep the group apart.
+    /// </summary>
+    public bool Reversed { get; init; }
+
+    /// <summary>A transducer's branch terminals that are drawn nodes (its electrical nodes; a support terminal is left out); empty for other kinds.</summary>
+    public ImmutableArray<string> Branch { get; init; } = [];
+}
 
 /// <summary>Where each part of a network is drawn, in drawing metres with y upwards.</summary>
 /// <param name="Masses">Mass name to position, in declaration order of the network.</param>
-/// <param name="Elements">Springs then dampers.</param>
+/// <param name="Elements">Springs, dampers, inerters, then transducers.</param>
 /// <param name="Automatic">True when positions were laid out by the tool rather than taken from the model's <c>at</c>.</param>
 /// <param name="Axis">The direction the network is drawn along.</param>
 /// <param name="Spacing">Typical distance between neighbouring masses in m; sets symbol sizes and mode scales.</param>
@@ -139,7 +155,8 @@ public sealed record NetworkLayout(
     }
 
     private static IEnumerable<(string A, string B)> Links(Network network) =>
-        network.Springs.Select(s => (s.NodeA, s.NodeB)).Concat(network.Dampers.Select(d => (d.NodeA, d.NodeB)));
+        network.Springs.Select(s => (s.NodeA, s.NodeB)).Concat(network.Dampers.Select(d => (d.NodeA, d.NodeB)))
+            .Concat(network.Inerters.Select(i => (i.NodeA, i.NodeB)));
 
     private static double TypicalSpacing(Network network, Point[] positions, Dictionary<string, int> index)
     {
@@ -180,13 +197,22 @@ public sealed record NetworkLayout(
 
         var raw = network.Springs.Select(s => (s.Name, Kind: ElementKind.Spring, s.NodeA, s.NodeB, Value: s.Stiffness))
             .Concat(network.Dampers.Select(d => (d.Name, Kind: ElementKind.Damper, d.NodeA, d.NodeB, Value: d.Coefficient)))
+            .Concat(network.Inerters.Select(i => (i.Name, Kind: ElementKind.Inerter, i.NodeA, i.NodeB, Value: i.Inertance)))
+            .Concat(network.Transducers.Select(t => (t.Name, Kind: ElementKind.Transducer, t.NodeA, t.NodeB, Value: t.ForceFactor)))
             .ToArray();
+        var branches = network.Transducers.ToDictionary(t => t.Name,
+            t => new[] { t.BranchA, t.BranchB }.Where(index.ContainsKey).ToImmutableArray(), StringComparer.Ordinal);
         string Key(string a, string b) => string.CompareOrdinal(a, b) < 0 ? a + "\u0001" + b : b + "\u0001" + a;
         var groups = raw.GroupBy(e => Key(e.NodeA, e.NodeB)).ToDictionary(g => g.Key, g => g.Select(e => e.Name).ToList());
+        var firstA = raw.GroupBy(e => Key(e.NodeA, e.NodeB)).ToDictionary(g => g.Key, g => g.First().NodeA);
         return [.. raw.Select(e =>
         {
             var group = groups[Key(e.NodeA, e.NodeB)];
-            return new DrawnElement(e.Name, e.Kind, End(e.NodeA, e.NodeB), End(e.NodeB, e.NodeA), e.Value, group.IndexOf(e.Name), group.Count);
+            return new DrawnElement(e.Name, e.Kind, End(e.NodeA, e.NodeB), End(e.NodeB, e.NodeA), e.Value, group.IndexOf(e.Name), group.Count)
+            {
+                Branch = e.Kind == ElementKind.Transducer ? branches[e.Name] : [],
+                Reversed = e.NodeA != firstA[Key(e.NodeA, e.NodeB)],
+            };
         })];
     }
 }

@@ -188,27 +188,7 @@ public static class SpatialFigure
         : [.. footer, string.Create(Inv, $"{omitted} label{(omitted == 1 ? " was" : "s were")} left out where {(omitted == 1 ? "it" : "they")} would overlap others; the tables list every name.")];
 
     /// <summary>The footer notes broken at spaces into lines that fit the figure's width.</summary>
-    private static List<string> Wrap(IReadOnlyList<string> lines)
-    {
-        var width = Width - 32;
-        var wrapped = new List<string>();
-        foreach (var line in lines)
-        {
-            var current = "";
-            foreach (var word in line.Split(' '))
-            {
-                var candidate = current.Length == 0 ? word : current + " " + word;
-                if (current.Length > 0 && TextMetrics.Width(candidate, FooterSize) > width)
-                {
-                    wrapped.Add(current);
-                    current = word;
-                }
-                else current = candidate;
-            }
-            wrapped.Add(current);
-        }
-        return wrapped;
-    }
+    private static List<string> Wrap(IReadOnlyList<string> lines) => TextMetrics.Wrap(lines, FooterSize, Width - 32);
 
     private static IEnumerable<Point3> DrawnPoints(SpatialNode n)
     {
@@ -298,7 +278,7 @@ public static class SpatialFigure
                 lines.Add(new PathShape([.. geometryPerFrame.Select(g => g[p])], pen, Closed: endOn && p == 1));
             parts.Add(new GroupShape(lines.ToImmutable())
             {
-                Class = cssClass + (e.Kind == ElementKind.Spring ? " spring" : " damper") + (endOn ? " end-on" : ""),
+                Class = cssClass + " " + NetworkFigure.KindClass(e.Kind) + (endOn ? " end-on" : ""),
                 Data = ImmutableDictionary<string, string>.Empty.Add("element", e.Name),
             });
         }
@@ -372,6 +352,7 @@ public static class SpatialFigure
             points.Add(b);
             return [[.. points]];
         }
+        if (kind == ElementKind.Inerter) return NetworkFigure.Flywheel(At, length);
         var c = Math.Clamp(0.14 * length, 3, 7);
         return
         [

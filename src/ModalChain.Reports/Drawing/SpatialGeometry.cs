@@ -53,9 +53,9 @@ public sealed record SpatialNode(string Name, SpatialNodeKind Kind, Point3 Locat
 /// <param name="Placed">True for a support end with no location of its own, drawn below the other end for the picture only.</param>
 public sealed record SpatialEnd(string Node, Point3 Location, bool IsSupport, bool Placed);
 
-/// <summary>A spring or damper (a mount) as drawn between its two attachment points.</summary>
+/// <summary>A spring, damper or inerter as drawn between its two attachment points.</summary>
 /// <param name="Name">Element name.</param>
-/// <param name="Kind">Spring or damper.</param>
+/// <param name="Kind">Spring, damper or inerter.</param>
 /// <param name="A">First end.</param>
 /// <param name="B">Second end.</param>
 public sealed record SpatialElement(string Name, ElementKind Kind, SpatialEnd A, SpatialEnd B);
@@ -63,7 +63,7 @@ public sealed record SpatialElement(string Name, ElementKind Kind, SpatialEnd A,
 /// <summary>The mechanical geometry of a plane or 3d model as the figures draw it, in the model's global axes (m, z up).</summary>
 /// <param name="Space">Plane (side view only) or 3d (side and plan views).</param>
 /// <param name="Nodes">Masses, then bodies, then the supports that have a location (anchors are drawn per element end).</param>
-/// <param name="Elements">Springs then dampers.</param>
+/// <param name="Elements">Springs, then dampers, then inerters.</param>
 /// <param name="Size">The model's largest dimension in m (at least a small positive length): sets the drawn size of motion and of placed anchors.</param>
 public sealed record SpatialGeometry(ModelSpace Space, ImmutableArray<SpatialNode> Nodes, ImmutableArray<SpatialElement> Elements, double Size)
 {
@@ -148,6 +148,7 @@ public sealed record SpatialGeometry(ModelSpace Space, ImmutableArray<SpatialNod
 
         var elements = network.Springs.Select(s => new SpatialElement(s.Name, ElementKind.Spring, End(s.NodeA, s.NodeB), End(s.NodeB, s.NodeA)))
             .Concat(network.Dampers.Select(d => new SpatialElement(d.Name, ElementKind.Damper, End(d.NodeA, d.NodeB), End(d.NodeB, d.NodeA))))
+            .Concat(network.Inerters.Select(i => new SpatialElement(i.Name, ElementKind.Inerter, End(i.NodeA, i.NodeB), End(i.NodeB, i.NodeA))))
             .ToImmutableArray();
         foreach (var s in network.Supports.Where(s => s.Location is not null))
             nodes.Add(new SpatialNode(s.Name, SpatialNodeKind.Support, s.Location!.Value, 0, null, []));

@@ -30,11 +30,11 @@ public sealed class ModelSummarySection : IReportSection
         {
             "Network: " + network.Title,
             string.Create(CultureInfo.InvariantCulture,
-                $"{Count(network.Masses.Length, "mass", "masses")}, {Count(network.Springs.Length, "spring", "springs")}, {Count(network.Dampers.Length, "damper", "dampers")}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
+                $"{ModelCounts.Of(network).Phrase(withBodies: false)}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
         };
         var footer = new[] { PositionNote(layout) };
         var scene = NetworkFigure.Network(layout, header, footer, units, network.Masses.ToDictionary(m => m.Name, m => m.Kilograms));
-        _drawing = new SchematicFigure("network", "The network as modelled: masses (blocks), springs (zigzags), dampers (dashpots) and supports (hatched). "
+        _drawing = new SchematicFigure("network", "The network as modelled: " + SymbolList(network, "masses (blocks)") + " and supports (hatched). "
             + PositionNote(layout), "network", scene, animated: false);
     }
 
@@ -71,7 +71,7 @@ public sealed class ModelSummarySection : IReportSection
         {
             "Network: " + network.Title,
             string.Create(CultureInfo.InvariantCulture,
-                $"{Count(network.Bodies.Length, "body", "bodies")}, {Count(network.Masses.Length, "mass", "masses")}, {Count(network.Springs.Length, "spring", "springs")}, {Count(network.Dampers.Length, "damper", "dampers")}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
+                $"{ModelCounts.Of(network).Phrase(withBodies: true)}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
         };
         var boxes = ModesSection.BoxNote(geometry);
         var placed = geometry.Elements.Any(e => e.A.Placed || e.B.Placed)
@@ -80,7 +80,7 @@ public sealed class ModelSummarySection : IReportSection
         var note = "Locations from the model, to scale." + (boxes.Length > 0 ? " " + boxes : "") + placed;
         var scene = SpatialFigure.Network(geometry, header, [note], units);
         var views = geometry.Space == ModelSpace.ThreeD ? "in a side view (x–z) and a plan view (x–y)" : "in a side view (x–z)";
-        return new SchematicFigure("network", $"The model as built, {views}: bodies (boxes, centre of mass marked), point masses (squares), springs (zigzags), dampers (dashpots) between their attachment points, and supports (hatched). " + note,
+        return new SchematicFigure("network", $"The model as built, {views}: {SymbolList(network, "bodies (boxes, centre of mass marked), point masses (squares)")} between their attachment points, and supports (hatched). " + note,
             "network", scene, animated: false);
     }
 
@@ -96,7 +96,17 @@ public sealed class ModelSummarySection : IReportSection
     /// <inheritdoc />
     public IReadOnlyList<ReportFigure> Figures => [_drawing];
 
-    private static string Count(int n, string one, string many) => n.ToString(CultureInfo.InvariantCulture) + " " + (n == 1 ? one : many);
+    /// <summary>What each symbol of the drawing stands for, naming inerters and transducers only when the model has them.</summary>
+    private static string SymbolList(Network network, string nodes)
+    {
+        var parts = new List<string> { nodes, "springs (zigzags)", "dampers (dashpots)" };
+        if (network.Inerters.Length > 0) parts.Add("inerters (flywheels: a disc with crossed spokes)");
+        if (network.Transducers.Length > 0) parts.Add("transducers (a magnet block and a coil between the mechanical pair, with a dashed line to each electrical node of the branch)");
+        return string.Join(", ", parts);
+    }
+
+    private static IEnumerable<(string, string)> ExtraFacts(Network network) =>
+        ModelCounts.Of(network).ExtraFact() is { } fact ? [fact] : [];
 
     /// <summary>Says where the drawing's positions came from.</summary>
     public static string PositionNote(NetworkLayout layout) => layout.Automatic
@@ -121,6 +131,7 @@ public sealed class ModelSummarySection : IReportSection
                 + (network.Links.IsEmpty ? " (one direction of motion per mass)" : " (one direction of motion per mass; masses tied by a link share one)")),
             ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass, given: true)),
             ("Masses, springs, dampers", string.Create(CultureInfo.InvariantCulture, $"{network.Masses.Length}, {network.Springs.Length}, {network.Dampers.Length}")),
+            .. ExtraFacts(network),
             ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
             ("Parts not held by a spring to a support", groups.Length == 0 ? "none" : string.Join("; ", groups.Select(g => string.Join(", ", g))) + " (rigid-body modes at 0 Hz)"),
         ]);
@@ -142,6 +153,14 @@ public sealed class ModelSummarySection : IReportSection
             html.Table("Dampers", ["Name", "Between", $"Coefficient ({u.DampingSymbol})"],
                 network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}", u.Damping(d.Coefficient, given: true)]),
                 new HashSet<int> { 2 });
+        if (network.Inerters.Length > 0)
+            html.Table("Inerters", ["Name", "Between", $"Inertance ({u.MassSymbol})"],
+                network.Inerters.Select(i => (IReadOnlyList<string>)[i.Name, $"{i.NodeA} – {i.NodeB}", u.Mass(i.Inertance, given: true)]),
+                new HashSet<int> { 2 });
+        if (network.Transducers.Length > 0)
+            html.Table("Transducers", ["Name", "Mechanical pair", "Electrical branch", "Force factor (T·m)"],
+                network.Transducers.Select(t => (IReadOnlyList<string>)[t.Name, $"{t.NodeA} – {t.NodeB}", $"{t.BranchA} – {t.BranchB}", t.ForceFactor.ToString("G4", CultureInfo.InvariantCulture)]),
+                new HashSet<int> { 3 });
         if (_context.Document.Warnings.Length > 0)
         {
             html.Heading("Warnings from reading the model");
@@ -170,6 +189,7 @@ public sealed class ModelSummarySection : IReportSection
             ("Degrees of freedom", dofs.Count.ToString(inv) + " (each point mass its translations, each body every direction of the space at its centre of mass)"),
             ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass, given: true)),
             ("Bodies, masses, springs, dampers", string.Create(inv, $"{network.Bodies.Length}, {network.Masses.Length}, {network.Springs.Length}, {network.Dampers.Length}")),
+            .. ExtraFacts(network),
             ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
         ]);
         if (network.Bodies.Length > 0)
@@ -193,6 +213,10 @@ public sealed class ModelSummarySection : IReportSection
             html.Table("Dampers", ["Name", "Between", "Coefficient"],
                 network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}",
                     Values(d.Components, d.Axial, d.Coefficient, v => u.Damping(v, given: true), u.DampingSymbol, "N·m·s/rad")]));
+        if (network.Inerters.Length > 0)
+            html.Table("Inerters", ["Name", "Between", "Inertance"],
+                network.Inerters.Select(i => (IReadOnlyList<string>)[i.Name, $"{i.NodeA} – {i.NodeB}",
+                    Values(i.Components, i.Axial, i.Inertance, v => u.Mass(v, given: true), u.MassSymbol, "kg·m²/rad")]));
         if (_context.Document.Warnings.Length > 0)
         {
             html.Heading("Warnings from reading the model");

@@ -3,6 +3,7 @@ using ModalChain.Core.Dofs;
 using ModalChain.Core.Model;
 using ModalChain.Reports.Drawing;
 using ModalChain.Reports.Units;
+using ModalChain.TestSupport;
 using SkiaSharp;
 using Point = ModalChain.Reports.Drawing.Point;
 
@@ -20,7 +21,7 @@ public sealed class LabelPlacementTests
     }
 
     /// <summary>The box a text really occupies: its advance width, and the font's ascent and descent around the baseline.</summary>
-    private static Rect Measured(TextShape text)
+    internal static Rect Measured(TextShape text)
     {
         using var paint = Font(text.Size, text.Bold);
         var width = paint.MeasureText(text.Text);
@@ -34,7 +35,7 @@ public sealed class LabelPlacementTests
         return new Rect(left, text.At.Y + metrics.Ascent, left + width, text.At.Y + metrics.Descent);
     }
 
-    private static IEnumerable<TextShape> Texts(IEnumerable<Shape> shapes)
+    internal static IEnumerable<TextShape> Texts(IEnumerable<Shape> shapes)
     {
         foreach (var s in shapes)
         {
@@ -125,5 +126,55 @@ public sealed class LabelPlacementTests
         Assert.Equal(new Point(100, 130), second!.At);
         Assert.Null(placer.Place("third", 10, [(new Point(101, 101), TextAnchor.Start)], "#000000", "label"));
         Assert.Equal(1, placer.Omitted);
+    }
+
+    [Fact]
+    public void AlongLine_TriesTheRightOfAnUprightLineFirst_AndAboveALevelOne()
+    {
+        var upright = LabelPlacer.AlongLine(new Point(100, 200), new Point(100, 100), 8, 10, 60).First();
+        Assert.Equal(TextAnchor.Start, upright.Anchor);
+        // Closed form: right of the line by the clearance and 2 units of air; its middle at mid-height.
+        NumericAssert.Close(100 + 8 + 2, upright.At.X, Tolerance.Abs(1e-12), "x of the first candidate");
+        NumericAssert.Close(150, upright.At.Y, Tolerance.Abs(1e-12), "y of the first candidate");
+        var level = LabelPlacer.AlongLine(new Point(0, 50), new Point(200, 50), 8, 10, 60).First();
+        Assert.Equal(TextAnchor.Middle, level.Anchor);
+        Assert.True(level.At.Y <= 50 - 8, "the first candidate of a level line is above it");
+    }
+
+    [Fact]
+    public void AlongLine_NoCandidateBoxReachesTheSymbol()
+    {
+        // Geometry: for a line at any angle, each candidate label's box (the estimated box the placer checks) lies wholly
+        // on one side of the line, every corner more than 'clearance' from it, so it cannot cover the symbol drawn on it.
+        const double clearance = 9, size = 9.5;
+        foreach (var angle in new[] { 0.0, 30, 45, 90, 120, 180, 250, 300 })
+        {
+            var a = new Point(300, 300);
+            var r = angle * Math.PI / 180;
+            var b = a + 120 * new Point(Math.Cos(r), -Math.Sin(r));
+            var u = (1.0 / 120) * (b - a);
+            var n = new Point(-u.Y, u.X);
+            const string text = "flywheel 360 kg";
+            foreach (var (at, anchor) in LabelPlacer.AlongLine(a, b, clearance, size, TextMetrics.Width(text, size)))
+            {
+                var box = TextMetrics.Box(new TextShape(at, text, size, anchor));
+                var corners = new[] { new Point(box.Left, box.Top), new Point(box.Right, box.Top), new Point(box.Left, box.Bottom), new Point(box.Right, box.Bottom) };
+                var across = corners.Select(c => (c - a).X * n.X + (c - a).Y * n.Y).ToArray();
+                var sameSide = across.All(d => d > 0) || across.All(d => d < 0);
+                Assert.True(sameSide && across.Min(Math.Abs) >= clearance, $"angle {angle}: box {box} at {at} ({anchor}) reaches the line's band");
+            }
+        }
+    }
+
+    [Fact]
+    public void Wrap_KeepsEveryWordInOrder_AndFitsTheWidth()
+    {
+        var text = "Positions laid out automatically (masses stacked by their distance from the supports), since not every mass has a distinct 'at'.";
+        var lines = TextMetrics.Wrap([text, "short"], 10.5, 300);
+        Assert.True(lines.Count >= 3);
+        Assert.Equal("short", lines[^1]);
+        Assert.Equal(text, string.Join(" ", lines.Take(lines.Count - 1)));        // identity: nothing lost or reordered
+        Assert.All(lines, l => Assert.True(TextMetrics.Width(l, 10.5) <= 300, $"'{l}' is wider than 300"));
+        Assert.Equal(["a-single-word-longer-than-the-width"], TextMetrics.Wrap(["a-single-word-longer-than-the-width"], 10.5, 50));
     }
 }

@@ -51,8 +51,12 @@ public sealed record StudyRequest(
     {
         var inv = CultureInfo.InvariantCulture;
         var p = ImmutableArray.CreateBuilder<string>();
-        if (!Parameter.Admits(From)) p.Add(string.Create(inv, $"--from {From:G6} is not a valid value of {Parameter.Text} (from {Parameter.Minimum:G3} to {Parameter.Maximum:G3}, SI)"));
-        if (!Parameter.Admits(To)) p.Add(string.Create(inv, $"--to {To:G6} is not a valid value of {Parameter.Text} (from {Parameter.Minimum:G3} to {Parameter.Maximum:G3}, SI)"));
+        var range = Parameter.MinimumExcluded
+            ? string.Create(inv, $"above {Parameter.Minimum:G3} up to {Parameter.Maximum:G3}, SI")
+              + (Parameter.MasslessEnd is { } node ? $"; the inerter carries the massless node '{node}', which has no inertia without it" : "")
+            : string.Create(inv, $"from {Parameter.Minimum:G3} to {Parameter.Maximum:G3}, SI");
+        if (!Parameter.Admits(From)) p.Add(string.Create(inv, $"--from {From:G6} is not a valid value of {Parameter.Text} ({range})"));
+        if (!Parameter.Admits(To)) p.Add(string.Create(inv, $"--to {To:G6} is not a valid value of {Parameter.Text} ({range})"));
         if (From == To) p.Add(string.Create(inv, $"--from and --to are both {From:G6}: a study needs a range"));
         if (Steps < 2) p.Add($"--steps must be at least 2 (got {Steps})");
         if (Steps > 100_000) p.Add($"--steps {Steps} is more than 100000; use fewer steps and let threshold bisection refine");

@@ -7,7 +7,7 @@ namespace ModalChain.Io.Json.Records;
 [Description("A parameter study: natural frequencies, mode tracking and criterion reserves at each value of the varied parameter.")]
 public sealed record ParameterStudyOutput : CommandOutput
 {
-    [Description("The field varied, as given to --vary: masses.NAME.mass, springs.NAME.stiffness, dampers.NAME.coefficient; in plane and 3d models also bodies.NAME.mass, springs.NAME.stiffness.z, springs.NAME.rotational-stiffness.rx, springs.NAME.axial and their damper forms.")]
+    [Description("The field varied, as given to --vary: masses.NAME.mass, springs.NAME.stiffness, dampers.NAME.coefficient, inerters.NAME.inertance; in line models also transducers.NAME.force-factor; in plane and 3d models also bodies.NAME.mass, springs.NAME.stiffness.z, springs.NAME.rotational-stiffness.rx, springs.NAME.axial and their damper and inerter forms (inerters.NAME.inertance.y, inerters.NAME.rotational-inertance.rz, inerters.NAME.axial).")]
     public required string Parameter { get; init; }
 
     [Description("SI unit of the parameter's values (kg, N/m, N*s/m, ...).")]
