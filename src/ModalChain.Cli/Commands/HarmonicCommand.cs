@@ -117,7 +117,7 @@ internal static class HarmonicCommand
                         io.WriteJson(stream => HarmonicJson.Write(stream, document, byCase, CliApp.Version));
                         break;
                     case OutputFormat.Csv:
-                        HarmonicCsv.Write(io.Output, byCase);
+                        HarmonicCsv.Write(io.Output, byCase, document.Network);
                         break;
                     default:
                         HarmonicCaseTable.Write(io.Output, document, system, byCase, CommonOptions.UnitsOf(parse, units, document));
@@ -133,7 +133,7 @@ internal static class HarmonicCommand
                     io.WriteJson(stream => HarmonicJson.Write(stream, document, result, CliApp.Version));
                     break;
                 case OutputFormat.Csv:
-                    HarmonicCsv.Write(io.Output, result);
+                    HarmonicCsv.Write(io.Output, result, document.Network);
                     break;
                 default:
                     HarmonicTable.Write(io.Output, document, system, result, CommonOptions.UnitsOf(parse, units, document));

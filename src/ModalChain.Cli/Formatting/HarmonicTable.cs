@@ -24,7 +24,7 @@ internal static class HarmonicTable
         o.WriteLine(caseName is null ? TerminalText.Line(document.Network.Title) : $"Load case {caseName}");
         o.WriteLine(string.Create(Inv,
             $"Harmonic response, {(result.Method == HarmonicMethod.Modal ? "modal superposition" : "direct solve")}, {f.Length} frequencies from {f.Min():G4} to {f.Max():G4} Hz"));
-        o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!, units))));
+        o.WriteLine("Loads acting together: " + string.Join("; ", result.Loads.Select(n => Describe(system.Model.FindLoad(n)!, units, system.Model.Network))));
         o.WriteLine("Damping: " + DampingLine.ForSweep(system));
         o.WriteLine();
 
@@ -34,7 +34,8 @@ internal static class HarmonicTable
         var peaks = new TextTable("output", $"displacement [{du.Plain} peak]", "at [Hz]", $"velocity [{vu.Plain} peak]", "at [Hz]", $"acceleration [{au.Plain} peak]", "at [Hz]");
         var rotationPeaks = new TextTable("output", $"rotation [{ru.Plain} peak]", "at [Hz]", $"angular velocity [{rv.Plain} peak]", "at [Hz]", $"angular acceleration [{ra.Plain} peak]", "at [Hz]");
         var all = result.Peaks();
-        foreach (var r in result.Responses)
+        var network = system.Model.Network;
+        foreach (var r in result.Responses.Where(r => !network.IsElectrical(r.Dof)))
         {
             var p = all.Where(x => x.Dof == r.Dof).ToDictionary(x => x.Quantity);
             var turns = isRotation(r.Dof);
@@ -50,6 +51,7 @@ internal static class HarmonicTable
             o.WriteLine();
             rotationPeaks.Write(o);
         }
+        WriteElectricalPeaks(o, network, result, all);
         foreach (var p in all.Where(p => p.EdgeWarning is not null))
             o.WriteLine(string.Create(Inv,
                 $"  {p.Dof} {HarmonicJson.Name(p.Quantity)}: {p.EdgeWarning} ({(p.IsInterior ? "the peak shown is the largest inside the sweep" : "no peak inside the sweep; the value shown is at its end")})"));
@@ -98,12 +100,24 @@ internal static class HarmonicTable
                 rotationTable.Write(o);
             }
             var forces = new TextTable("element or support", $"force [{fu.Plain} peak]", "phase [deg]");
-            foreach (var e in at.ElementForces)
+            var currents = new TextTable("element or source", "current [A peak]", "phase [deg]");
+            foreach (var e in at.ElementForces.Where(e => ElectricalLabels.IsElement(network, e.Element, e.Kind == ElementKind.Spring)))
+                currents.Add($"{(e.Kind == ElementKind.Spring ? "inductor (spring)" : "resistor (damper)")} {e.Element}", Num(e.Force[0].Magnitude), HarmonicJson.PhaseDegrees(e.Force[0]).ToString("F1", Inv));
+            foreach (var c in at.SourceCurrents)
+                currents.Add($"source at {c.Support}", Num(c.Current[0].Magnitude), HarmonicJson.PhaseDegrees(c.Current[0]).ToString("F1", Inv));
+            foreach (var port in at.TransducerPorts)
+                currents.Add($"port of {port.Transducer}", Num(port.Current[0].Magnitude), HarmonicJson.PhaseDegrees(port.Current[0]).ToString("F1", Inv));
+            foreach (var e in at.ElementForces.Where(e => !ElectricalLabels.IsElement(network, e.Element, e.Kind == ElementKind.Spring)))
                 forces.Add($"{(e.Kind == ElementKind.Spring ? "spring" : "damper")} {e.Element}", Num(fu.From(e.Force[0].Magnitude)), HarmonicJson.PhaseDegrees(e.Force[0]).ToString("F1", Inv));
             foreach (var r in at.Reactions)
                 forces.Add($"reaction at {r.Support}", Num(fu.From(r.Force[0].Magnitude)), HarmonicJson.PhaseDegrees(r.Force[0]).ToString("F1", Inv));
             o.WriteLine();
             forces.Write(o);
+            if (currents.Count > 0)
+            {
+                o.WriteLine();
+                currents.Write(o);
+            }
             if (!at.MountForces.IsEmpty)
             {
                 o.WriteLine();
@@ -152,8 +166,11 @@ internal static class HarmonicTable
 
     internal static string Num(double v) => v == 0 ? "0" : Math.Abs(v) >= 1e-3 && Math.Abs(v) < 1e6 ? v.ToString("G4", Inv) : v.ToString("0.000E+00", Inv);
 
-    internal static string Describe(Load load, DisplayUnits units) => load switch
+    internal static string Describe(Load load, DisplayUnits units, Network? network = null) => load switch
     {
+        // An electrical support moved at a velocity is a voltage source (node flux form): its amplitude is in V.
+        BaseMotionLoad { Kind: BaseMotionKind.Velocity } b when network is not null && network.IsElectrical(b.Support) =>
+            string.Create(Inv, $"{b.Name} (source voltage {b.Amplitude:G4} V at {b.Support}{Speed(b.SpeedHz)})"),
         ForceLoad { Direction: var d } f when d.IsRotation() => string.Create(Inv, $"{f.Name} (moment {f.Amplitude:G4} N*m about {d.Label()} on {f.At}{Speed(f.SpeedHz)})"),
         ForceLoad f => string.Create(Inv, $"{f.Name} (force {units.Force.From(f.Amplitude):G4} {units.Force.Plain}{In(f.Direction)} at {f.At}{Speed(f.SpeedHz)})"),
         UnbalanceLoad u => string.Create(Inv, $"{u.Name} (unbalance {units.MassRadius.From(u.MassRadius):G4} {units.MassRadius.Plain} at {u.At}{(u.Plane.IsDefaultOrEmpty ? "" : $" turning in {string.Concat(u.Plane.Select(p => p.Label()))}")}{Speed(u.SpeedHz)})"),
@@ -173,4 +190,34 @@ internal static class HarmonicTable
     private static string In(Core.Dofs.Direction d) => d == Core.Dofs.Direction.Along ? "" : " in " + d.Label();
 
     private static string Speed(double? hz) => hz is { } s ? string.Create(Inv, $", {60 * s:G6} rpm") : "";
+
+    /// <summary>
+    /// The electrical side's peaks (<see cref="ElectricalLabels"/>): each electrical output's voltage and each transducer
+    /// port's voltage and current and each voltage source's current, in V and A; nothing for a mechanical model.
+    /// </summary>
+    private static void WriteElectricalPeaks(TextWriter o, Network network, HarmonicResult result, IReadOnlyList<ResponsePeak> all)
+    {
+        var f = result.FrequenciesHz;
+        var table = new TextTable("electrical", "quantity", "amplitude [peak]", "unit", "at [Hz]");
+        foreach (var r in result.Responses.Where(r => network.IsElectrical(r.Dof)))
+        {
+            var p = all.First(x => x.Dof == r.Dof && x.Quantity == ResponseQuantity.Velocity);
+            table.Add($"node {r.Dof}", "voltage", Num(p.Magnitude), "V", p.FrequencyHz.ToString("F3", Inv));
+        }
+        void Largest(string what, string quantity, string unit, System.Collections.Immutable.ImmutableArray<System.Numerics.Complex> values)
+        {
+            var k = Enumerable.Range(0, f.Length).MaxBy(i => values[i].Magnitude);
+            table.Add(what, quantity, Num(values[k].Magnitude), unit, f[k].ToString("F3", Inv));
+        }
+        foreach (var port in result.TransducerPorts)
+        {
+            Largest($"port of {port.Transducer}", "voltage", "V", port.Voltage);
+            Largest($"port of {port.Transducer}", "current", "A", port.Current);
+        }
+        foreach (var c in result.SourceCurrents) Largest($"source at {c.Support}", "current", "A", c.Current);
+        if (table.Count == 0) return;
+        o.WriteLine();
+        o.WriteLine("Electrical side: largest amplitude over the sweep (a node's voltage is its velocity in the node flux form; a port current leaves the branch terminal n1 into the circuit)");
+        table.Write(o);
+    }
 }

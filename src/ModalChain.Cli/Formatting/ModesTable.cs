@@ -72,6 +72,8 @@ internal static class ModesTable
                     },
                     c.IsOscillatory ? (100 * c.DampingRatio).ToString("F2", Inv) : "-");
             complex.Write(o);
+            if (Topology.FluxLevelCount(result.Network) is var levels and > 0)
+                o.WriteLine(string.Create(Inv, $"{levels} root(s) at 0 left out: a circuit node group held by no inductor only sets a constant flux level there, not a motion."));
             o.WriteLine();
         }
         if (result.RigidBodyModeCount > 0)

@@ -7,6 +7,9 @@ internal sealed class TextTable(params string[] headers)
 
     public void Add(params string[] cells) => _rows.Add(cells);
 
+    /// <summary>The number of rows added.</summary>
+    public int Count => _rows.Count;
+
     public void Write(TextWriter writer, bool lastColumnLeftAligned = false)
     {
         var widths = headers.Select((h, i) => Math.Max(h.Length, _rows.Select(r => r[i].Length).DefaultIfEmpty(0).Max())).ToArray();

@@ -32,7 +32,8 @@ internal static class TransientTable
         var motion = new TextTable("output", $"displacement [{du.Plain} peak]", "at [s]", $"displacement [{du.Plain} rms]", $"velocity [{vu.Plain} peak]", "at [s]", $"acceleration [{au.Plain} peak]", "at [s]");
         var rotation = new TextTable("output", $"rotation [{ru.Plain} peak]", "at [s]", $"rotation [{ru.Plain} rms]", $"angular velocity [{rv.Plain} peak]", "at [s]", $"angular acceleration [{ra.Plain} peak]", "at [s]");
         var rotations = 0;
-        foreach (var name in result.Responses.Where(r => r.Quantity == ResponseQuantity.Displacement).Select(r => r.Name))
+        var network = result.Network;
+        foreach (var name in result.Responses.Where(r => r.Quantity == ResponseQuantity.Displacement && !network.IsElectrical(r.Name)).Select(r => r.Name))
         {
             var u = result.Get(name, ResponseQuantity.Displacement);
             var v = result.Get(name, ResponseQuantity.Velocity);
@@ -50,7 +51,30 @@ internal static class TransientTable
             rotation.Write(o);
         }
 
-        var forces = result.Responses.Where(r => !Io.Json.TransientJson.IsMotion(r.Quantity) && r.Direction is null).ToArray();
+        // The electrical side in V and A (Io.Json.ElectricalLabels): node voltages, element and port currents, sources.
+        var electrical = result.Responses.Where(r => r.Direction is null && Io.Json.ElectricalLabels.Unit(network, r.Name, r.Quantity, r.Unit) is "V" or "A").ToArray();
+        if (electrical.Length > 0)
+        {
+            o.WriteLine();
+            o.WriteLine("Electrical side (a node's voltage is its velocity in the node flux form; a port current leaves the branch terminal n1 into the circuit)");
+            var table = new TextTable("electrical", "quantity", "peak", "unit", "at [s]", "rms");
+            foreach (var r in electrical)
+            {
+                var label = r.Quantity switch
+                {
+                    ResponseQuantity.PortVoltage or ResponseQuantity.PortCurrent => "port of " + r.Name,
+                    ResponseQuantity.SourceCurrent => "source at " + r.Name,
+                    ResponseQuantity.SpringForce => "inductor (spring) " + r.Name,
+                    ResponseQuantity.DamperForce => "resistor (damper) " + r.Name,
+                    _ => "node " + r.Name,
+                };
+                var quantity = Io.Json.ElectricalLabels.Quantity(network, r.Name, r.Quantity).Replace('_', ' ');
+                table.Add(label, quantity, Num(r.Peak.Value), Io.Json.ElectricalLabels.Unit(network, r.Name, r.Quantity, r.Unit), Time(r.Peak.Time), Rms(r.Rms));
+            }
+            table.Write(o);
+        }
+
+        var forces = result.Responses.Where(r => !Io.Json.TransientJson.IsMotion(r.Quantity) && r.Direction is null && !electrical.Contains(r)).ToArray();
         if (forces.Length > 0)
         {
             o.WriteLine();

@@ -72,7 +72,7 @@ public static class Assembler
             Summed(n, mass),
             Summed(n, stiffness),
             Summed(n, damping),
-            Vector<double>.Build.Dense(n, 1.0),
+            LineInfluence(network, dofs),
             MassIsDiagonal: !coupled);
     }
 
@@ -89,10 +89,25 @@ public static class Assembler
         var damping = new List<(int, int, double)>(4 * network.Dampers.Length);
         foreach (var d in network.Dampers) elimination.AddTwoEnd(damping, Index, d.NodeA, d.NodeB, d.Coefficient);
         var summedMass = Summed(n, mass);
-        // The influence vector stays a unit motion of every coordinate, as in a network without transducers.
-        return new StructuralMatrices(dofs, summedMass, Summed(n, stiffness), Summed(n, damping), Vector<double>.Build.Dense(n, 1.0),
+        // The influence vector is a unit motion of every mechanical coordinate: the transducer constraints leave the
+        // flux linkages unchanged under a rigid motion (x_a − x_b = 0), so it is 0 at the electrical ones.
+        return new StructuralMatrices(dofs, summedMass, Summed(n, stiffness), Summed(n, damping), LineInfluence(network, dofs),
             // The flexibility refinement reads springs as two-node edges, which an eliminated end is not: keep it out.
             MassIsDiagonal: IsDiagonal(summedMass) && !elimination.TouchesSpring(network));
+    }
+
+    /// <summary>
+    /// The rigid-body influence vector ι of a line model: 1 at every mechanical DOF and 0 at an electrical node's (a flux
+    /// linkage, which a rigid motion of the structure and its supports leaves unchanged), so effective modal masses,
+    /// participation factors and the total mass ιᵀMι count no capacitance.
+    /// </summary>
+    internal static Vector<double> LineInfluence(Network network, DofMap dofs)
+    {
+        var iota = Vector<double>.Build.Dense(dofs.Count, 1.0);
+        if (network.ElectricalNodes.IsEmpty) return iota;
+        for (var i = 0; i < dofs.Count; i++)
+            if (network.IsElectrical(dofs.Dofs[i].Node)) iota[i] = 0;
+        return iota;
     }
 
     /// <summary>True when <paramref name="m"/> has no non-zero entry off its diagonal (lumped masses; no inerter between two masses).</summary>

@@ -166,8 +166,11 @@ public sealed record Network
     /// <summary>The rigid bodies (plane and 3d models only), in declaration order, numbered after the masses.</summary>
     public ImmutableArray<RigidBody> Bodies { get; internal init; } = [];
 
-    /// <summary>Sum of all masses and bodies in kg: the physical mass (inerters carry no mass of their own).</summary>
-    public double TotalMass => Masses.Sum(m => m.Kilograms) + Bodies.Sum(b => b.Kilograms);
+    /// <summary>
+    /// Sum of all masses and bodies in kg: the physical mass (inerters carry no mass of their own, and an electrical
+    /// node's "mass" is a capacitance in F, not counted).
+    /// </summary>
+    public double TotalMass => Masses.Where(m => !IsElectrical(m.Name)).Sum(m => m.Kilograms) + Bodies.Sum(b => b.Kilograms);
 
     /// <summary>True when <paramref name="node"/> names a rigid body.</summary>
     public bool IsBody(string node) => NodeNames.Of(this).Bodies.ContainsKey(node);

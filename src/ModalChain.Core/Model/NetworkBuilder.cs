@@ -218,13 +218,18 @@ public sealed class NetworkBuilder
         return this;
     }
 
-    /// <summary>Produces the immutable network.</summary>
+    /// <summary>Produces the immutable network; the electrical side of its transducers (<see cref="Topology.ElectricalSide"/>) joins the nodes marked electrical.</summary>
     /// <exception cref="ArgumentException">A massless node of a plane or 3d model without a location.</exception>
     public Network Build()
     {
         if (Space != ModelSpace.Line && _masses.FirstOrDefault(m => m.Kilograms == 0 && m.Location is null) is { } massless)
             throw new ArgumentException($"Massless node '{massless.Name}' has no location; every node of a plane or 3d model needs one.");
-        return new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters], Transducers = [.. _transducers], ElectricalNodes = [.. _electrical] };
+        // The electrical side of the transducers is electrical too, so Network.IsElectrical is the one source of truth.
+        var side = _transducers.Count == 0 ? [] : Topology.ElectricalSide([.. _masses.Select(m => m.Name)], [.. _supports.Select(s => s.Name)],
+            _springs.Select(e => (e.NodeA, e.NodeB)).Concat(_dampers.Select(e => (e.NodeA, e.NodeB))).Concat(_inerters.Select(e => (e.NodeA, e.NodeB))),
+            _transducers);
+        ImmutableArray<string> electrical = [.. _electrical.Concat(side.Where(n => !_electrical.Contains(n)))];
+        return new(Title, [.. _masses], [.. _supports], [.. _springs], [.. _dampers]) { Links = [.. _links], Space = Space, Bodies = [.. _bodies], Inerters = [.. _inerters], Transducers = [.. _transducers], ElectricalNodes = electrical };
     }
 
     /// <summary>Checks a two-node element's ends and name (unique among its kind) and appends it.</summary>

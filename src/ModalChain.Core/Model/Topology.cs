@@ -53,6 +53,61 @@ public static class Topology
         return result.MoveToImmutable();
     }
 
+    /// <summary>
+    /// The electrical side of a line model's transducers: each transducer's branch terminals and every node joined to
+    /// them by springs, dampers or inerters, in network order (masses, then supports). Empty without transducers.
+    /// </summary>
+    /// <remarks>
+    /// Ground is shared by both sides and never on it. A support reached (a voltage source) is on the electrical side
+    /// but the search does not go on through it, and it never enters a transducer's mechanical terminal: the
+    /// transducers themselves are the only coupling between the sides, so the search never crosses to the mechanical
+    /// one. <see cref="NetworkBuilder.Build"/> marks these nodes electrical (<see cref="Network.ElectricalNodes"/>).
+    /// </remarks>
+    /// <param name="masses">Mass names in network order.</param>
+    /// <param name="supports">Support names, ground first.</param>
+    /// <param name="edges">Ends of every spring, damper and inerter.</param>
+    /// <param name="transducers">The transducers.</param>
+    public static ImmutableArray<string> ElectricalSide(IReadOnlyList<string> masses, IReadOnlyList<string> supports,
+        IEnumerable<(string A, string B)> edges, IReadOnlyList<Transducer> transducers)
+    {
+        ArgumentNullException.ThrowIfNull(masses);
+        ArgumentNullException.ThrowIfNull(supports);
+        ArgumentNullException.ThrowIfNull(edges);
+        ArgumentNullException.ThrowIfNull(transducers);
+        if (transducers.Count == 0) return [];
+        var isSupport = supports.ToHashSet(StringComparer.Ordinal);
+        var mechanical = transducers.SelectMany(t => new[] { t.NodeA, t.NodeB }).ToHashSet(StringComparer.Ordinal);
+        var neighbours = new Dictionary<string, List<string>>(StringComparer.Ordinal);
+        foreach (var (a, b) in edges)
+        {
+            (neighbours.TryGetValue(a, out var la) ? la : neighbours[a] = []).Add(b);
+            (neighbours.TryGetValue(b, out var lb) ? lb : neighbours[b] = []).Add(a);
+        }
+        var seen = new HashSet<string>(StringComparer.Ordinal);
+        var queue = new Queue<string>(transducers.SelectMany(t => new[] { t.BranchA, t.BranchB }));
+        while (queue.TryDequeue(out var node))
+        {
+            if (node == Network.Ground || mechanical.Contains(node) || !seen.Add(node) || isSupport.Contains(node)) continue;
+            foreach (var next in neighbours.GetValueOrDefault(node) ?? []) queue.Enqueue(next);
+        }
+        return [.. masses.Concat(supports).Where(seen.Contains)];
+    }
+
+    /// <summary>
+    /// The groups of <see cref="UnsupportedGroups"/> made of electrical nodes only: circuit node groups that no inductor
+    /// (spring) joins to a support or to a mechanical node. Each has a root at 0 that only sets a constant flux level
+    /// (a flux linkage is defined up to a constant where no inductor fixes it), not a motion.
+    /// </summary>
+    public static ImmutableArray<ImmutableArray<string>> FluxLevelGroups(Network network)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        if (network.ElectricalNodes.IsEmpty || network.Space != ModelSpace.Line) return [];
+        return [.. UnsupportedGroups(network).Where(g => g.All(network.IsElectrical))];
+    }
+
+    /// <summary>The number of <see cref="FluxLevelGroups"/>: the zero roots that set a flux level and are left out of the complex roots.</summary>
+    public static int FluxLevelCount(Network network) => FluxLevelGroups(network).Length;
+
     /// <summary>Masses (and, in plane and 3d models, bodies) that no spring of positive stiffness touches, neither directly nor through a link.</summary>
     public static ImmutableArray<string> MassesWithoutSpring(Network network)
     {

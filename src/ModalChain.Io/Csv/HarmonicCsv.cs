@@ -1,5 +1,6 @@
 using System.Numerics;
 using ModalChain.Core.Analyses.Harmonic;
+using ModalChain.Core.Model;
 using ModalChain.Io.Json;
 
 namespace ModalChain.Io.Csv;
@@ -8,16 +9,19 @@ namespace ModalChain.Io.Csv;
 public static class HarmonicCsv
 {
     /// <summary>Writes the header and one row per frequency to <paramref name="writer"/>.</summary>
-    public static void Write(TextWriter writer, HarmonicResult result) => Write(writer, result, null, true);
+    /// <param name="writer">The target.</param>
+    /// <param name="result">The sweep.</param>
+    /// <param name="network">The network swept, to name electrical columns in V and A (<see cref="ElectricalLabels"/>); null writes every column in mechanical units.</param>
+    public static void Write(TextWriter writer, HarmonicResult result, Network? network = null) => Write(writer, result, null, true, network);
 
     /// <summary>Writes the sweeps of a model with load cases as one table: a first column names the case, then each case's rows (every case has the same columns).</summary>
-    public static void Write(TextWriter writer, LoadCaseResult result)
+    public static void Write(TextWriter writer, LoadCaseResult result, Network? network = null)
     {
         ArgumentNullException.ThrowIfNull(result);
-        for (var c = 0; c < result.Cases.Length; c++) Write(writer, result.Cases[c].Result, result.Cases[c].Case.Name, c == 0);
+        for (var c = 0; c < result.Cases.Length; c++) Write(writer, result.Cases[c].Result, result.Cases[c].Case.Name, c == 0, network);
     }
 
-    private static void Write(TextWriter writer, HarmonicResult result, string? caseName, bool withHeader)
+    private static void Write(TextWriter writer, HarmonicResult result, string? caseName, bool withHeader, Network? network)
     {
         ArgumentNullException.ThrowIfNull(writer);
         ArgumentNullException.ThrowIfNull(result);
@@ -27,16 +31,20 @@ public static class HarmonicCsv
         foreach (var r in result.Responses)
             foreach (var q in Enum.GetValues<ResponseQuantity>())
             {
-                header.Add($"{r.Dof} {HarmonicJson.Name(q)} magnitude [{HarmonicJson.Unit(q)}]");
-                header.Add($"{r.Dof} {HarmonicJson.Name(q)} phase [deg]");
+                var (name, unit) = network is null ? (HarmonicJson.Name(q), HarmonicJson.Unit(q))
+                    : (ElectricalLabels.Quantity(network, r.Dof, q).Replace('_', ' '), ElectricalLabels.Unit(network, r.Dof, q, rotation: false));
+                header.Add($"{r.Dof} {name} magnitude [{unit}]");
+                header.Add($"{r.Dof} {name} phase [deg]");
                 var response = r;
                 var quantity = q;
                 columns.Add(k => response.At(k, result.FrequenciesHz[k], quantity));
             }
         foreach (var e in result.ElementForces)
         {
-            header.Add($"{e.Element} {(e.Kind == ElementKind.Spring ? "spring" : "damper")} force magnitude [N]");
-            header.Add($"{e.Element} {(e.Kind == ElementKind.Spring ? "spring" : "damper")} force phase [deg]");
+            var kind = e.Kind == ElementKind.Spring ? "spring" : "damper";
+            var current = network is not null && ElectricalLabels.IsElement(network, e.Element, e.Kind == ElementKind.Spring);
+            header.Add(current ? $"{e.Element} {kind} current magnitude [A]" : $"{e.Element} {kind} force magnitude [N]");
+            header.Add(current ? $"{e.Element} {kind} current phase [deg]" : $"{e.Element} {kind} force phase [deg]");
             var force = e;
             columns.Add(k => force.Force[k]);
         }
@@ -54,6 +62,23 @@ public static class HarmonicCsv
             header.Add($"reaction {s.Support} phase [deg]");
             var reaction = s;
             columns.Add(k => reaction.Force[k]);
+        }
+        foreach (var c in result.SourceCurrents)
+        {
+            header.Add($"source current {c.Support} magnitude [A]");
+            header.Add($"source current {c.Support} phase [deg]");
+            var source = c;
+            columns.Add(k => source.Current[k]);
+        }
+        foreach (var port in result.TransducerPorts)
+        {
+            header.Add($"port {port.Transducer} voltage magnitude [V]");
+            header.Add($"port {port.Transducer} voltage phase [deg]");
+            header.Add($"port {port.Transducer} current magnitude [A]");
+            header.Add($"port {port.Transducer} current phase [deg]");
+            var p = port;
+            columns.Add(k => p.Voltage[k]);
+            columns.Add(k => p.Current[k]);
         }
         if (withHeader)
         {

@@ -17,7 +17,7 @@ public static class TransientCsv
                 ? $"reaction {r.Name} [{r.Unit}]"
                 : r.Direction is { } d
                     ? $"{r.Name} {TransientJson.QuantityName(r.Quantity).Replace('_', ' ')} {d} [{r.Unit}]"
-                    : $"{r.Name} {TransientJson.QuantityName(r.Quantity).Replace('_', ' ')} [{r.Unit}]");
+                    : $"{r.Name} {ElectricalLabels.Quantity(result.Network, r.Name, r.Quantity).Replace('_', ' ')} [{ElectricalLabels.Unit(result.Network, r.Name, r.Quantity, r.Unit)}]");
         writer.Write(CsvText.Row(header));
         writer.Write('\n');
         var fields = new string[result.Responses.Length + 1];

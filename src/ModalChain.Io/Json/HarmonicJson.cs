@@ -16,7 +16,10 @@ namespace ModalChain.Io.Json;
 /// combination for a model with load cases). Phases are
 /// in degrees in (−180, 180], of Re(A e^{iωt}) relative to the loads' phase reference. Plane and 3d models add
 /// mount_forces (element, kind, direction, unit, magnitude, phase_deg, and over the sweep peak_magnitude and
-/// peak_frequency_hz): the force (N) or moment (N*m) each spring and damper applies to its second end per direction. Every magnitude is the
+/// peak_frequency_hz): the force (N) or moment (N*m) each spring and damper applies to its second end per direction.
+/// With electrical nodes (<see cref="ElectricalLabels"/>) a node's quantities are flux_linkage (V*s), voltage (V) and
+/// voltage_rate (V/s), an element with an end on one carries a current in A, and source_currents (support, A) and
+/// transducer_ports (transducer, quantity voltage in V or current in A) are added. Every magnitude is the
 /// peak (zero-to-peak) amplitude of the sinusoid, said by "amplitude": "peak" beside its unit; r.m.s. is peak/√2.
 /// </remarks>
 public static class HarmonicJson
@@ -34,7 +37,7 @@ public static class HarmonicJson
     {
         ArgumentNullException.ThrowIfNull(document);
         ArgumentNullException.ThrowIfNull(result);
-        var sweep = Sweep(result, DofMap.RotationLabels(document.Network));
+        var sweep = Sweep(result, document.Network, DofMap.RotationLabels(document.Network));
         return new()
         {
             Title = MarkupText.Clean(document.Network.Title),
@@ -48,6 +51,8 @@ public static class HarmonicJson
             ElementForces = sweep.ElementForces,
             Reactions = sweep.Reactions,
             MountForces = sweep.MountForces,
+            SourceCurrents = sweep.SourceCurrents,
+            TransducerPorts = sweep.TransducerPorts,
             Transmissibility = sweep.Transmissibility,
             Peaks = sweep.Peaks,
             OperatingPoints = sweep.OperatingPoints,
@@ -84,7 +89,7 @@ public static class HarmonicJson
             Notes = ["the model has load cases: each case is swept on its own under 'cases', and the cases are combined at their running speeds under 'combination'"],
             Cases = [.. result.Cases.Select(c =>
             {
-                var sweep = Sweep(c.Result, rotation);
+                var sweep = Sweep(c.Result, document.Network, rotation);
                 return new HarmonicCaseOutput
                 {
                     Name = c.Case.Name,
@@ -96,6 +101,8 @@ public static class HarmonicJson
                     ElementForces = sweep.ElementForces,
                     Reactions = sweep.Reactions,
                     MountForces = sweep.MountForces,
+                    SourceCurrents = sweep.SourceCurrents,
+                    TransducerPorts = sweep.TransducerPorts,
                     Transmissibility = sweep.Transmissibility,
                     Peaks = sweep.Peaks,
                     OperatingPoints = sweep.OperatingPoints,
@@ -114,8 +121,8 @@ public static class HarmonicJson
                                 select new HarmonicCombinedOutput
                                 {
                                     Dof = r.Dof,
-                                    Quantity = Name(q),
-                                    Unit = Unit(q, rotation(r.Dof)),
+                                    Quantity = ElectricalLabels.Quantity(document.Network, r.Dof, q),
+                                    Unit = ElectricalLabels.Unit(document.Network, r.Dof, q, rotation(r.Dof)),
                                     Amplitude = rms ? "rms" : "peak",
                                     Magnitude = rms ? r.Rms(q, result.Rule) : r.Peak(q, result.Rule),
                                     Components = [.. r.Components.Select(c => new HarmonicComponentOutput
@@ -135,7 +142,7 @@ public static class HarmonicJson
     }
 
     /// <summary>The fields of one sweep, from "method" to "notes" (a case record carrying them, used as a holder).</summary>
-    private static HarmonicCaseOutput Sweep(HarmonicResult result, Func<string, bool> rotation)
+    private static HarmonicCaseOutput Sweep(HarmonicResult result, Network network, Func<string, bool> rotation)
     {
         var f = result.FrequenciesHz;
         return new()
@@ -152,8 +159,8 @@ public static class HarmonicJson
                             select new HarmonicSeriesOutput
                             {
                                 Dof = r.Dof,
-                                Quantity = Name(q),
-                                Unit = Unit(q, rotation(r.Dof)),
+                                Quantity = ElectricalLabels.Quantity(network, r.Dof, q),
+                                Unit = ElectricalLabels.Unit(network, r.Dof, q, rotation(r.Dof)),
                                 Amplitude = "peak",
                                 Magnitude = Enumerable.Range(0, f.Length).Select(k => r.At(k, f[k], q).Magnitude),
                                 PhaseDeg = Enumerable.Range(0, f.Length).Select(k => PhaseDegrees(r.At(k, f[k], q))),
@@ -162,7 +169,7 @@ public static class HarmonicJson
             {
                 Element = e.Element,
                 Kind = Kind(e.Kind),
-                Unit = "N",
+                Unit = ElectricalLabels.ElementUnit(network, e.Element, e.Kind == ElementKind.Spring),
                 Amplitude = "peak",
                 Magnitude = e.Force.Select(z => z.Magnitude),
                 PhaseDeg = e.Force.Select(PhaseDegrees),
@@ -188,12 +195,31 @@ public static class HarmonicJson
                 PeakMagnitude = x.Magnitude,
                 PeakFrequencyHz = x.FrequencyHz,
             })],
+            SourceCurrents = result.SourceCurrents.IsEmpty ? null : [.. result.SourceCurrents.Select(c => new HarmonicSourceCurrentSeriesOutput
+            {
+                Support = c.Support,
+                Unit = "A",
+                Amplitude = "peak",
+                Magnitude = c.Current.Select(z => z.Magnitude),
+                PhaseDeg = c.Current.Select(PhaseDegrees),
+            })],
+            TransducerPorts = result.TransducerPorts.IsEmpty ? null : [.. from port in result.TransducerPorts
+                from q in new[] { ("voltage", "V", port.Voltage), ("current", "A", port.Current) }
+                select new HarmonicPortSeriesOutput
+                {
+                    Transducer = port.Transducer,
+                    Quantity = q.Item1,
+                    Unit = q.Item2,
+                    Amplitude = "peak",
+                    Magnitude = q.Item3.Select(z => z.Magnitude),
+                    PhaseDeg = q.Item3.Select(PhaseDegrees),
+                }],
             Transmissibility = [.. result.Transmissibilities.Select(t => new HarmonicTransmissibilityOutput { Kind = t.Kind, Dof = t.Dof, Reference = t.Reference, Ratio = t.Ratio })],
             Peaks = [.. result.Peaks().Select(p => new HarmonicPeakOutput
             {
                 Dof = p.Dof,
-                Quantity = Name(p.Quantity),
-                Unit = Unit(p.Quantity, rotation(p.Dof)),
+                Quantity = ElectricalLabels.Quantity(network, p.Dof, p.Quantity),
+                Unit = ElectricalLabels.Unit(network, p.Dof, p.Quantity, rotation(p.Dof)),
                 Amplitude = "peak",
                 Magnitude = p.Magnitude,
                 FrequencyHz = p.FrequencyHz,
@@ -213,8 +239,8 @@ public static class HarmonicJson
                                 select new HarmonicPointOutput
                                 {
                                     Dof = r.Dof,
-                                    Quantity = Name(q),
-                                    Unit = Unit(q, rotation(r.Dof)),
+                                    Quantity = ElectricalLabels.Quantity(network, r.Dof, q),
+                                    Unit = ElectricalLabels.Unit(network, r.Dof, q, rotation(r.Dof)),
                                     Amplitude = "peak",
                                     Magnitude = z.Magnitude,
                                     PhaseDeg = PhaseDegrees(z),
@@ -223,7 +249,7 @@ public static class HarmonicJson
                 {
                     Element = e.Element,
                     Kind = Kind(e.Kind),
-                    Unit = "N",
+                    Unit = ElectricalLabels.ElementUnit(network, e.Element, e.Kind == ElementKind.Spring),
                     Amplitude = "peak",
                     Magnitude = e.Force[0].Magnitude,
                     PhaseDeg = PhaseDegrees(e.Force[0]),
@@ -236,6 +262,9 @@ public static class HarmonicJson
                     Magnitude = r.Force[0].Magnitude,
                     PhaseDeg = PhaseDegrees(r.Force[0]),
                 })],
+                SourceCurrents = op.Response.SourceCurrents.IsEmpty ? null : [.. op.Response.SourceCurrents.Select(c => Point(c.Support, "current", c.Current[0]))],
+                TransducerPorts = op.Response.TransducerPorts.IsEmpty ? null : [.. op.Response.TransducerPorts.SelectMany(port =>
+                    new[] { Point(port.Transducer, "voltage", port.Voltage[0]), Point(port.Transducer, "current", port.Current[0]) })],
                 MountForces = op.Response.MountForces.IsEmpty ? null : [.. op.Response.MountForces.Select(m => new HarmonicMountPointOutput
                 {
                     Element = m.Element,
@@ -250,6 +279,16 @@ public static class HarmonicJson
             Notes = [.. result.Notes],
         };
     }
+
+    private static HarmonicElectricalPointOutput Point(string name, string quantity, Complex z) => new()
+    {
+        Name = name,
+        Quantity = quantity,
+        Unit = quantity == "voltage" ? "V" : "A",
+        Amplitude = "peak",
+        Magnitude = z.Magnitude,
+        PhaseDeg = PhaseDegrees(z),
+    };
 
     private static string Kind(ElementKind kind) => kind == ElementKind.Spring ? "spring" : "damper";
 

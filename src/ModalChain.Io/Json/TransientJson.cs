@@ -16,7 +16,9 @@ namespace ModalChain.Io.Json;
 /// number is: "instantaneous" for a time history, "peak" for a peak's value (largest magnitude, with sign); a peak's
 /// "rms" is the r.m.s. over rms_window_s. Plane and 3d models add mount_forces (element, kind, direction, unit, values,
 /// peak_abs, peak_value, peak_time_s, rms): the force or moment each spring and damper applies to its second end per
-/// direction; those histories are not repeated in element_forces or peaks.
+/// direction; those histories are not repeated in element_forces or peaks. With electrical nodes the names and units
+/// of <see cref="ElectricalLabels"/> apply, and source_currents (support, A) and transducer_ports (transducer, quantity
+/// voltage in V or current in A) are added.
 /// </remarks>
 public static class TransientJson
 {
@@ -44,6 +46,7 @@ public static class TransientJson
         IEnumerable<double> Pick(ImmutableArray<double> values) => samples is null ? values : samples.Select(i => values[i]);
         static string Kind(ResponseQuantity q) => q == ResponseQuantity.SpringForce ? "spring" : "damper";
         var e = result.Energy;
+        var network = result.Network;
         return new()
         {
             Title = MarkupText.Clean(document.Network.Title),
@@ -68,13 +71,13 @@ public static class TransientJson
             Responses = [.. result.Responses.Where(r => IsMotion(r.Quantity)).Select(r => new TransientResponseOutput
             {
                 Dof = r.Name,
-                Quantity = QuantityName(r.Quantity),
-                Unit = r.Unit,
+                Quantity = ElectricalLabels.Quantity(network, r.Name, r.Quantity),
+                Unit = ElectricalLabels.Unit(network, r.Name, r.Quantity, r.Unit),
                 Amplitude = "instantaneous",
                 Values = Pick(r.Values),
             })],
             ElementForces = [.. result.Responses.Where(r => r.Quantity is ResponseQuantity.SpringForce or ResponseQuantity.DamperForce && r.Direction is null)
-                .Select(r => new TransientElementForceOutput { Element = r.Name, Kind = Kind(r.Quantity), Unit = "N", Amplitude = "instantaneous", Values = Pick(r.Values) })],
+                .Select(r => new TransientElementForceOutput { Element = r.Name, Kind = Kind(r.Quantity), Unit = ElectricalLabels.Unit(network, r.Name, r.Quantity, "N"), Amplitude = "instantaneous", Values = Pick(r.Values) })],
             // Plane and 3d models only: each spring's and damper's force (N) or moment (N*m) per direction, with its peak.
             MountForces = result.Network.Space == Core.Model.ModelSpace.Line ? null : [.. result.Responses.Where(r => r.Direction is not null)
                 .Select(r => new TransientMountForceOutput
@@ -92,12 +95,27 @@ public static class TransientJson
                 })],
             Reactions = [.. result.Responses.Where(r => r.Quantity == ResponseQuantity.Reaction)
                 .Select(r => new TransientReactionOutput { Support = r.Name, Unit = "N", Amplitude = "instantaneous", Values = Pick(r.Values) })],
+            SourceCurrents = result.Responses.Any(r => r.Quantity == ResponseQuantity.SourceCurrent)
+                ? [.. result.Responses.Where(r => r.Quantity == ResponseQuantity.SourceCurrent)
+                    .Select(r => new TransientSourceCurrentOutput { Support = r.Name, Unit = "A", Amplitude = "instantaneous", Values = Pick(r.Values) })]
+                : null,
+            TransducerPorts = result.Responses.Any(r => r.Quantity is ResponseQuantity.PortVoltage or ResponseQuantity.PortCurrent)
+                ? [.. result.Responses.Where(r => r.Quantity is ResponseQuantity.PortVoltage or ResponseQuantity.PortCurrent)
+                    .Select(r => new TransientPortOutput
+                    {
+                        Transducer = r.Name,
+                        Quantity = r.Quantity == ResponseQuantity.PortVoltage ? "voltage" : "current",
+                        Unit = r.Unit,
+                        Amplitude = "instantaneous",
+                        Values = Pick(r.Values),
+                    })]
+                : null,
             RmsWindowS = new() { From = result.Settings.RmsFrom ?? 0, To = result.Settings.RmsTo ?? result.StepCount * result.Settings.Step },
             Peaks = [.. result.Responses.Where(r => r.Direction is null).Select(r => new TransientPeakOutput
             {
                 Name = r.Name,
-                Quantity = QuantityName(r.Quantity),
-                Unit = r.Unit,
+                Quantity = ElectricalLabels.Quantity(network, r.Name, r.Quantity),
+                Unit = ElectricalLabels.Unit(network, r.Name, r.Quantity, r.Unit),
                 Amplitude = "peak",
                 Value = r.Peak.Value,
                 TimeS = r.Peak.Time,
@@ -168,6 +186,9 @@ public static class TransientJson
         ResponseQuantity.Acceleration => "acceleration",
         ResponseQuantity.SpringForce => "spring_force",
         ResponseQuantity.DamperForce => "damper_force",
+        ResponseQuantity.PortVoltage => "port_voltage",
+        ResponseQuantity.PortCurrent => "port_current",
+        ResponseQuantity.SourceCurrent => "source_current",
         _ => "reaction",
     };
 

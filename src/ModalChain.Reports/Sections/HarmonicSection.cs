@@ -38,7 +38,8 @@ public sealed class HarmonicSection : IReportSection
         _case = caseName;
         var log = context.Document.Harmonic?.Frequencies is FrequencyRange { Spacing: FrequencySpacing.Logarithmic };
         // A chart per output up to a readable number; beyond it, the outputs with the largest peak displacement.
-        Charted = [.. result.Responses
+        // Electrical outputs (a flux linkage, not a displacement) are in the electrical table, not charted as motion.
+        Charted = [.. result.Responses.Where(r => !context.Document.Network.IsElectrical(r.Dof))
             .Select((r, i) => (r, i, peak: r.Displacement.Max(x => x.Magnitude)))
             .OrderByDescending(p => result.Responses.Length <= MaxCharts ? -p.i : p.peak)
             .Take(MaxCharts)
@@ -110,7 +111,7 @@ public sealed class HarmonicSection : IReportSection
         var isRotation = Core.Dofs.DofMap.RotationLabels(_context.Document.Network);
         foreach (var rotation in new[] { false, true })
         {
-            var rows = _result.Responses.Where(r => isRotation(r.Dof) == rotation).ToArray();
+            var rows = _result.Responses.Where(r => isRotation(r.Dof) == rotation && !_context.Document.Network.IsElectrical(r.Dof)).ToArray();
             if (rotation && rows.Length == 0) continue;
             var (du, vu, au) = (_context.Units.Of(ResponseQuantity.Displacement, rotation), _context.Units.Of(ResponseQuantity.Velocity, rotation), _context.Units.Of(ResponseQuantity.Acceleration, rotation));
             html.Table(rotation ? "Largest rotation over the sweep" : "Largest response over the sweep",
@@ -130,6 +131,7 @@ public sealed class HarmonicSection : IReportSection
             html.Paragraph(string.Create(Inv,
                 $"{p.Dof}, {HarmonicJson.Name(p.Quantity)}: {p.EdgeWarning} ({(p.IsInterior ? "the peak shown is the largest inside the sweep" : "no peak inside the sweep; the value shown is at its end")})."), "note");
 
+        ElectricalTables.WriteHarmonic(html, _context.Document.Network, _result);
         MountForceTables.WriteHarmonic(html, _result, _context.Units);
 
         foreach (var op in _result.OperatingPoints)
@@ -160,8 +162,9 @@ public sealed class HarmonicSection : IReportSection
         }
         html.Paragraph("Amplitudes are peak (zero-to-peak) values of the steady sinusoid; its r.m.s. value is peak/√2. In each chart the upper panel is the amplitude on a logarithmic axis and the lower panel its phase relative to the loads; dashed grey lines mark the natural frequencies and dash-dot orange lines the running speeds." +
             (ChartedQuantities.Length > 1 ? " Velocity" + (ChartedQuantities.Contains(ResponseQuantity.Acceleration) ? " and acceleration" : "") + " charts are drawn because the model's criteria use them." : ""));
-        if (Charted.Length < _result.Responses.Length)
-            html.Paragraph(string.Create(Inv, $"Charts are drawn for the {Charted.Length} of {_result.Responses.Length} outputs with the largest peak displacement; results.json holds every output."), "note");
+        var motions = _result.Responses.Count(r => !_context.Document.Network.IsElectrical(r.Dof));
+        if (Charted.Length < motions)
+            html.Paragraph(string.Create(Inv, $"Charts are drawn for the {Charted.Length} of {motions} outputs with the largest peak displacement; results.json holds every output."), "note");
         foreach (var figure in _figures) html.Figure(figure);
     }
 

@@ -130,39 +130,21 @@ public sealed class ModesSection : IReportSection
     }
 
     /// <summary>
-    /// Indexes into the network's masses of the nodes on the electrical side of its transducers: each transducer's two
-    /// electrical terminals and every node joined to them by springs, dampers or inerters (supports stop the search).
-    /// Empty for a model without transducers.
+    /// Indexes into the network's masses of its electrical nodes (<see cref="Core.Model.Network.IsElectrical"/>: a
+    /// transducer's electrical side, see <see cref="Core.Model.Topology.ElectricalSide"/>, or a circuit's nodes).
+    /// Empty for a purely mechanical model.
     /// </summary>
     /// <remarks>
     /// The values of these nodes in a mode shape are flux linkages per unit modal coordinate (V·s), not displacements; a
-    /// mode figure draws them at rest and scales the drawing by the mechanical nodes only. The transducers themselves are
-    /// not followed, so the search never crosses to the mechanical side.
+    /// mode figure draws them at rest and scales the drawing by the mechanical nodes only.
     /// </remarks>
     public static ImmutableHashSet<int> ElectricalNodes(Core.Model.Network network)
     {
         ArgumentNullException.ThrowIfNull(network);
-        if (network.Transducers.IsEmpty) return [];
-        var index = network.Masses.Select((m, i) => (m.Name, i)).ToDictionary(p => p.Name, p => p.i, StringComparer.Ordinal);
-        var neighbours = new Dictionary<string, List<string>>(StringComparer.Ordinal);
-        void Join(string a, string b)
-        {
-            (neighbours.TryGetValue(a, out var la) ? la : neighbours[a] = []).Add(b);
-            (neighbours.TryGetValue(b, out var lb) ? lb : neighbours[b] = []).Add(a);
-        }
-        foreach (var e in network.Springs) Join(e.NodeA, e.NodeB);
-        foreach (var e in network.Dampers) Join(e.NodeA, e.NodeB);
-        foreach (var e in network.Inerters) Join(e.NodeA, e.NodeB);
-        var seen = new HashSet<string>(StringComparer.Ordinal);
-        var queue = new Queue<string>(network.Transducers.SelectMany(t => new[] { t.BranchA, t.BranchB }).Where(index.ContainsKey));
-        while (queue.TryDequeue(out var node))
-        {
-            if (!seen.Add(node)) continue;
-            foreach (var next in neighbours.GetValueOrDefault(node) ?? [])
-                if (index.ContainsKey(next) && !seen.Contains(next)) queue.Enqueue(next);
-        }
+        if (network.ElectricalNodes.IsEmpty) return [];
+        var electrical = Enumerable.Range(0, network.Masses.Length).Where(i => network.IsElectrical(network.Masses[i].Name)).ToArray();
         // A side that takes in every node would leave nothing to scale by: then nothing is set apart.
-        return seen.Count >= network.Masses.Length ? [] : [.. seen.Select(n => index[n])];
+        return electrical.Length >= network.Masses.Length ? [] : [.. electrical];
     }
 
     /// <summary>
@@ -197,7 +179,8 @@ public sealed class ModesSection : IReportSection
             "f is the undamped natural frequency, T = 1/f the period, ω = 2πf, ζ the modal damping ratio. Shapes are mass-normalised (φᵀMφ = 1); M* is the effective modal mass, " +
             "the part of the total mass that moves with the mode when all supports move together, and Σ M* its running total. " +
             "Dominant masses carry the largest shares of the mode's kinetic energy; the key spring stores the largest share of its " +
-            "strain energy, so it is the one whose stiffness moves the mode most.");
+            "strain energy, so it is the one whose stiffness moves the mode most." +
+            (network.ElectricalNodes.IsEmpty ? "" : " On the electrical side the kinetic energy is the capacitors' electric energy ½Cv² and the strain energy the inductors' magnetic energy ½λ²/L; electrical nodes carry no effective mass."));
         var rows = _result.Modes.Select(m => (IReadOnlyList<string>)
         [
             m.Number.ToString(Inv),
@@ -228,6 +211,8 @@ public sealed class ModesSection : IReportSection
                         _ => c.IsOscillatory ? DisplayUnits.Number(c.DampedFrequencyHz) : "overdamped",
                     }, c.IsOscillatory ? DisplayUnits.Percent(c.DampingRatio) : "—"]),
                 new HashSet<int> { 0, 1, 2, 3 });
+        if (!_complexModes.IsEmpty && Core.Model.Topology.FluxLevelCount(network) is var levels and > 0)
+            html.Paragraph(string.Create(Inv, $"{levels} root(s) at 0 are left out: a circuit node group held by no inductor only sets a constant flux level there, not a motion."));
         html.Paragraph(string.Create(Inv,
             $"Quality: largest eigen residual ‖Kφ − ω²Mφ‖/‖Kφ‖ = {_result.Quality.MaxResidual:0.0e+00}; largest M-orthogonality error |ΦᵀMΦ − I| = {_result.Quality.MaxOrthogonalityError:0.0e+00}; solver: {_result.Algorithm}."),
             "quality");

@@ -47,7 +47,7 @@ public sealed class TransientSection : IReportSection
             Core.Analyses.Harmonic.ResponseQuantity.Acceleration => ResponseQuantity.Acceleration,
             _ => ResponseQuantity.Displacement,
         }).ToArray();
-        var names = result.Responses.Where(r => r.Quantity == ResponseQuantity.Displacement).Take(MaxCharts).Select(r => r.Name).ToArray();
+        var names = result.Responses.Where(r => r.Quantity == ResponseQuantity.Displacement && !result.Network.IsElectrical(r.Name)).Take(MaxCharts).Select(r => r.Name).ToArray();
         _figures = [.. names.SelectMany(n => quantities.Select(q => result.Responses.FirstOrDefault(r => r.Name == n && r.Quantity == q)))
             .OfType<ResponseHistory>().Select(HistoryChart)];
     }
@@ -94,15 +94,18 @@ public sealed class TransientSection : IReportSection
         var u = _context.Units;
         html.Table("Peaks and RMS of each recorded response",
             ["Response", "Quantity", "Unit", "Peak (largest magnitude, signed)", "at (s)", "RMS"],
-            _result.Responses.Where(r => !MountForceTables.IsMount(r)).Select(r => (IReadOnlyList<string>)
+            _result.Responses.Where(r => !MountForceTables.IsMount(r) && !ElectricalTables.IsElectrical(_result.Network, r)).Select(r => (IReadOnlyList<string>)
                 [r.Name, Rotation(r) ? Word(r).ToLowerInvariant() : DisplayUnits.Words(r.Quantity), UnitOf(r).Symbol, UnitOf(r).Format(r.Peak.Value), DisplayUnits.Number(r.Peak.Time),
                     double.IsNaN(r.Rms) ? "n/a" : UnitOf(r).Format(r.Rms)]),
             new HashSet<int> { 3, 4, 5 });
+        ElectricalTables.WriteTransient(html, _result.Network, _result.Responses);
         MountForceTables.WriteTransient(html, _result, u);
         var e = _result.Energy;
         var j = u.Energy;
+        // On the electrical side the "kinetic" energy is the capacitors' ½Cv² and the "strain" energy the inductors' ½λ²/L.
+        var (kinetic, strain) = _result.Network.ElectricalNodes.IsEmpty ? ("kinetic", "strain") : ("kinetic and capacitor", "strain and inductor");
         html.Paragraph(string.Create(Inv,
-            $"Energy balance (quality figure): initial {j.Format(e.InitialEnergy)} {j.Symbol} + input work {j.Format(e.InputWork)} {j.Symbol} = kinetic {j.Format(e.FinalKineticEnergy)} {j.Symbol} + strain {j.Format(e.FinalStrainEnergy)} {j.Symbol} + dissipated {j.Format(e.Dissipated)} {j.Symbol}, largest relative error {e.MaxRelativeError:0.0e+00}."), "quality");
+            $"Energy balance (quality figure): initial {j.Format(e.InitialEnergy)} {j.Symbol} + input work {j.Format(e.InputWork)} {j.Symbol} = {kinetic} {j.Format(e.FinalKineticEnergy)} {j.Symbol} + {strain} {j.Format(e.FinalStrainEnergy)} {j.Symbol} + dissipated {j.Format(e.Dissipated)} {j.Symbol}, largest relative error {e.MaxRelativeError:0.0e+00}."), "quality");
         foreach (var figure in _figures) html.Figure(figure);
     }
 

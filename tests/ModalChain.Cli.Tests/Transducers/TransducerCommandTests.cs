@@ -96,8 +96,9 @@ public class TransducerCommandTests
         Assert.True(o.ExitCode == 0, o.ToString());
         SchemaFiles.AssertValid("harmonic.schema.json", o.Stdout, "harmonic on floor-shaker-test.yaml");
         using var json = System.Text.Json.JsonDocument.Parse(o.Stdout);
+        // An electrical node's velocity is written as its voltage (docs/model-format.md, outputs on the electrical side).
         double[] Velocity(string dof) => [.. json.RootElement.GetProperty("responses").EnumerateArray()
-            .Single(r => r.GetProperty("dof").GetString() == dof && r.GetProperty("quantity").GetString() == "velocity")
+            .Single(r => r.GetProperty("dof").GetString() == dof && r.GetProperty("quantity").GetString() == (dof == "sensor-out" ? "voltage" : "velocity"))
             .GetProperty("magnitude").EnumerateArray().Select(v => v.GetDouble())];
         var f = json.RootElement.GetProperty("frequencies_hz").EnumerateArray().Select(v => v.GetDouble()).ToArray();
         var floor = Velocity("bay-b");

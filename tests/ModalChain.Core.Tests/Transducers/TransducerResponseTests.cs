@@ -87,9 +87,9 @@ public class TransducerResponseTests
             var x = r.Responses.Single().Displacement[0];
             var expectedX = bl * volts / re / (k - mEff * w * w + new Complex(0, w * (c + bl * bl / re)));
             NumericAssert.Small((x - expectedX).Magnitude, 1e-10 * expectedX.Magnitude, $"table at {f} Hz");
-            // The force the source support receives is minus the current it delivers: r = −(V − λ̇_port)/R_e (the resistor
-            // pulls the source node towards the port's flux, as a damper pulls its end).
-            var current = -r.Reactions.Single(s => s.Support == "amp").Force[0];
+            // The source's current is minus the force its support receives, r = −(V − λ̇_port)/R_e (the resistor pulls the
+            // source node towards the port's flux, as a damper pulls its end); the sweep reports it as a source current.
+            var current = r.SourceCurrents.Single(s => s.Support == "amp").Current[0];
             var zm = new Complex(c, w * mEff - k / w);
             var expectedZ = re + bl * bl / zm;
             var z = volts / current;

@@ -52,10 +52,12 @@ public static class CircuitFrequencyResponse
             var support = analogy.Nodes[node];
             var load = new BaseMotionLoad(circuit.VoltageSources[s].Name, support, BaseMotionKind.Velocity, 1, 0);
             var result = Sweep(system, frequenciesHz, [load], free);
-            var reaction = result.Reactions.Single(r => r.Support == support).Force;
+            // The analogue network's nodes are electrical, so the sweep gives the support's current into the circuit
+            // (minus its reaction) as a source current.
+            var current = result.SourceCurrents.Single(r => r.Support == support).Current;
             // The sweep moved the node at +1 V; the source holds it at sign·1 V, and its current out of + is sign times the
-            // node's current into the circuit: Z = 1/(sign · sign · i₊) = 1/i₊ with i₊ = −reaction.
-            var impedance = reaction.Select(r => 1 / -r).ToArray();
+            // node's current into the circuit: Z = 1/(sign · sign · i₊) = 1/i₊.
+            var impedance = current.Select(i => 1 / i).ToArray();
             responses.Add(Response(analogy, circuit.VoltageSources[s].Name, true, frequenciesHz, free, result,
                 impedance, held => held == node ? sign : 0, sign));
         }

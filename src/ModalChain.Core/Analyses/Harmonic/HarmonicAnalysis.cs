@@ -131,6 +131,18 @@ public static class HarmonicAnalysis
             foreach (var (node, _) in ends)
                 if (p.Free.IndexOf(node) is var a and >= 0) neededSet.Add(a);
         }
+        // Port terms, and the electrical elements whose share of a support's reaction is a current: their ends are needed too.
+        var ports = spatial ? [] : TransducerPortTerms.Of(network);
+        var electricalShare = spatial || network.ElectricalNodes.IsEmpty ? [] : TransducerPortTerms.ElectricalShares(network, elimination);
+        foreach (var node in ports.SelectMany(port => port.Voltage.Concat(port.Current)).Select(t => t.Node)
+            .Concat(electricalShare.SelectMany(e => e.NodeB is null ? new[] { e.NodeA } : [e.NodeA, e.NodeB])))
+        {
+            ends.Clear();
+            if (elimination is null) ends.Add((node, 1));
+            else elimination.AddTerms(node, 1, ends);
+            foreach (var (kept, _) in ends)
+                if (p.Free.IndexOf(kept) is var a and >= 0) neededSet.Add(a);
+        }
         var needed = neededSet.ToArray();
         var slot = new Dictionary<int, int>();
         for (var k = 0; k < needed.Length; k++) slot[needed[k]] = k;
@@ -304,10 +316,12 @@ public static class HarmonicAnalysis
         var mountForces = MountForces(network.Space, mountRows, mountObservation, frequenciesHz, x, nk, u, p.SupportCount, hysteretic);
 
         var reactions = ImmutableArray.CreateBuilder<SupportReaction>();
+        var sourceCurrents = ImmutableArray.CreateBuilder<SourceCurrent>();
         var total = new Complex[nf];
         var inertial = p.HasInertialCoupling;
         for (var s = 0; s < p.SupportCount; s++)
         {
+            var electricalSupport = network.IsElectrical(p.Supports[s]);
             var r = new Complex[nf];
             for (var k = 0; k < nf; k++)
             {
@@ -323,10 +337,22 @@ public static class HarmonicAnalysis
                         sum += (p.StiffnessPP[s, t] * hysteretic + iw * system.Damping.PP[s, t] + iw * iw * (inertial ? p.MassPP[s, t] : 0)) * ut;
                 }
                 r[k] = -sum;
-                total[k] += r[k];
+                // An electrical element's force on a mechanical support (ground) is a current: taken back out of the reaction.
+                if (!electricalSupport)
+                    foreach (var e in electricalShare)
+                        if (e.Weight(p.Supports[s]) is var w and not 0)
+                            r[k] += w * e.Value * ElementFactor(e.Derivative, iw, hysteretic) * (At(k, e.NodeA) - (e.NodeB is null ? Complex.Zero : At(k, e.NodeB)));
+                if (!electricalSupport) total[k] += r[k];
             }
-            reactions.Add(new SupportReaction(p.Supports[s], [.. r]));
+            if (electricalSupport) sourceCurrents.Add(new SourceCurrent(p.Supports[s], [.. r.Select(v => -v)]));
+            else reactions.Add(new SupportReaction(p.Supports[s], [.. r]));
         }
+        var portResponses = ports.Select(port => new TransducerPortResponse(port.Transducer.Name,
+            [.. Enumerable.Range(0, nf).Select(k => TransducerPortTerms.Harmonic(port.Voltage, 2 * Math.PI * frequenciesHz[k], hysteretic, node => At(k, node)))],
+            [.. Enumerable.Range(0, nf).Select(k => TransducerPortTerms.Harmonic(port.Current, 2 * Math.PI * frequenciesHz[k], hysteretic, node => At(k, node)))]))
+            .ToImmutableArray();
+        if ((!ports.IsEmpty || !electricalShare.IsEmpty) && (!system.Model.Damping.ModalRatios.IsDefaultOrEmpty || system.Model.Damping.Rayleigh is not null))
+            notes.Add("port currents, source currents and the mechanical reactions are separated by the electrical elements alone: the model's modal or Rayleigh damping acts on the electrical side too and is not in the port currents");
 
         var transmissibilities = ImmutableArray.CreateBuilder<Transmissibility>();
         var moving = loading.SupportMotion.Select(m => m.Support).Distinct().ToArray();
@@ -356,8 +382,13 @@ public static class HarmonicAnalysis
         {
             Warnings = warnings.ToImmutable(),
             MountForces = mountForces,
+            TransducerPorts = portResponses,
+            SourceCurrents = sourceCurrents.ToImmutable(),
         };
     }
+
+    private static Complex ElementFactor(int derivative, Complex iw, Complex hysteretic) =>
+        derivative switch { 0 => hysteretic, 1 => iw, _ => iw * iw };
 
     /// <summary>The outputs when none are named: every mass (line models) or every DOF label (plane and 3d models).</summary>
     private static ImmutableArray<string> DefaultOutputs(DampedSystem system)

@@ -67,6 +67,17 @@ public sealed record MountForce(string Element, ElementKind Kind, string Directi
 /// <param name="Force">Complex force amplitude in N at each frequency.</param>
 public sealed record SupportReaction(string Support, ImmutableArray<Complex> Force);
 
+/// <summary>A transducer's port voltage and current over the sweep (<see cref="Assembly.TransducerPortTerms"/>).</summary>
+/// <param name="Transducer">Name of the transducer.</param>
+/// <param name="Voltage">Complex port voltage u = Bl·(v_a − v_b) in V at each frequency.</param>
+/// <param name="Current">Complex port current i in A at each frequency: the current the transducer drives out of its branch terminal n1 into the circuit.</param>
+public sealed record TransducerPortResponse(string Transducer, ImmutableArray<Complex> Voltage, ImmutableArray<Complex> Current);
+
+/// <summary>The current a voltage source (an electrical support moved at the source voltage) delivers over the sweep.</summary>
+/// <param name="Support">Name of the source's support.</param>
+/// <param name="Current">Complex current in A at each frequency, out of the source into the circuit: minus the support's reaction.</param>
+public sealed record SourceCurrent(string Support, ImmutableArray<Complex> Current);
+
 /// <summary>A transmissibility over the sweep.</summary>
 /// <param name="Kind">"force" (|Σ reactions| / |Σ applied forces|) or "motion" (|X_dof| / |U_support| for one moving support).</param>
 /// <param name="Dof">The mass for "motion"; null for "force".</param>
@@ -162,7 +173,11 @@ public sealed record OperatingPoint(double SpeedHz, ImmutableArray<string> Loads
 /// <param name="Loads">Names of the loads that acted together.</param>
 /// <param name="Responses">Per output mass (per output DOF label such as <c>skid.z</c> in plane and 3d models), its displacement amplitudes.</param>
 /// <param name="ElementForces">Per spring and damper touching an output mass, its force amplitudes.</param>
-/// <param name="Reactions">Per support, the force it receives.</param>
+/// <param name="Reactions">
+/// Per mechanical support, the force it receives in N: with electrical nodes, the currents of the electrical elements
+/// (and the share a transducer's eliminated node puts on a support) are left out, and an electrical support is in
+/// <see cref="HarmonicResult.SourceCurrents"/> instead.
+/// </param>
 /// <param name="Transmissibilities">Force and motion transmissibilities where they are defined.</param>
 /// <param name="OperatingPoints">The responses at the loads' running speeds.</param>
 /// <param name="Notes">Facts about the solution a reviewer should read (method limits, damping treatment).</param>
@@ -187,6 +202,15 @@ public sealed record HarmonicResult(
     /// (<see cref="MountForce"/>); empty in line models, whose element forces are <see cref="ElementForces"/>.
     /// </summary>
     public ImmutableArray<MountForce> MountForces { get; init; } = [];
+
+    /// <summary>Per transducer of a line model, its port voltage and current (<see cref="TransducerPortResponse"/>); empty without transducers.</summary>
+    public ImmutableArray<TransducerPortResponse> TransducerPorts { get; init; } = [];
+
+    /// <summary>
+    /// Per electrical support (a voltage source, <see cref="Model.Network.IsElectrical"/>), the current it delivers;
+    /// such a support is not in <see cref="Reactions"/>, whose forces are the mechanical ones only.
+    /// </summary>
+    public ImmutableArray<SourceCurrent> SourceCurrents { get; init; } = [];
 
     /// <summary>The largest amplitude of each mount force over the sweep and the frequency where it occurs (the first such frequency).</summary>
     public ImmutableArray<(MountForce Force, double Magnitude, double FrequencyHz)> MountForcePeaks() =>

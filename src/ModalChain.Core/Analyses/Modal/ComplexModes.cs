@@ -65,9 +65,28 @@ public static class ComplexModes
     private const double UndampedTolerance = 1e-12;
 
     /// <summary>The complex modes of <paramref name="system"/> (viscous damping C_ff of every source).</summary>
+    /// <remarks>
+    /// The zero roots of circuit node groups that no inductor holds (<see cref="Topology.FluxLevelCount"/>) only set a
+    /// constant flux level: they are left out (one zero root per such group), so the roots listed are those of motions
+    /// and of the circuit's own dynamics.
+    /// </remarks>
     public static ImmutableArray<ComplexMode> Solve(DampedSystem system)
     {
         ArgumentNullException.ThrowIfNull(system);
+        var roots = SolveAll(system);
+        var fluxLevels = Topology.FluxLevelCount(system.Model.Network);
+        if (fluxLevels == 0) return roots;
+        var kept = ImmutableArray.CreateBuilder<ComplexMode>(roots.Length);
+        foreach (var root in roots)
+        {
+            if (fluxLevels > 0 && root.Kind == ComplexModeKind.RigidBody) { fluxLevels--; continue; }
+            kept.Add(root with { Number = kept.Count + 1 });
+        }
+        return kept.ToImmutable();
+    }
+
+    private static ImmutableArray<ComplexMode> SolveAll(DampedSystem system)
+    {
         var free = system.Partition.Free;
         // Massless DOFs: their damped ones are first-order states, the rest are condensed (no M⁻¹ exists).
         if (MasslessReduction.HasMasslessDofs(system.Partition.Mass))

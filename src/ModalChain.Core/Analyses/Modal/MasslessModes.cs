@@ -56,9 +56,11 @@ internal static class MasslessModes
         var warnings = reduced.Warnings.ToList();
         if (Topology.StiffnessRatioWarning(equivalent) is { } equivalentWarning) warnings.Remove(equivalentWarning);
         if (Topology.StiffnessRatioWarning(network) is { } ratioWarning) warnings.Add(ratioWarning);
-        if (!condensation.Undetermined.IsEmpty)
+        // An electrical node held by no inductor is an ordinary circuit node (resistors and capacitors): no warning for it.
+        var loose = condensation.Undetermined.Where(i => !network.IsElectrical(matrices.Dofs.Dofs[i].Node)).ToArray();
+        if (loose.Length > 0)
             warnings.Add(string.Create(CultureInfo.InvariantCulture,
-                $"massless node(s) {string.Join(", ", condensation.Undetermined.Select(i => $"'{matrices.Dofs.Label(i)}'"))} are held by no spring: the undamped modes leave their motion undetermined and show it as 0 (only the complex modes and the responses, which include damping, determine it)"));
+                $"massless node(s) {string.Join(", ", loose.Select(i => $"'{matrices.Dofs.Label(i)}'"))} are held by no spring: the undamped modes leave their motion undetermined and show it as 0 (only the complex modes and the responses, which include damping, determine it)"));
         return new ModalResult(network, matrices, modes.MoveToImmutable(), reduced.TotalMass, reduced.Quality, reduced.Algorithm)
         {
             Warnings = [.. warnings],
@@ -140,6 +142,8 @@ internal static class MasslessModes
         {
             var kg = rowSum[k] > 1e-12 * diagonal[k] ? rowSum[k] : 0;
             builder.AddMass(names[k], kg);
+            // An electrical DOF stays electrical, so the equivalent's influence vector leaves it out too.
+            if (network.IsElectrical(matrices.Dofs.Dofs[kept[k]].Node)) builder.MarkElectrical(names[k]);
         }
         var count = 0;
         foreach (var (a, b, inertance) in inerters) builder.AddInerter($"#b{count++}", names[a], names[b], inertance);

@@ -25,6 +25,8 @@ internal sealed record Probe(
         ResponseQuantity.Displacement => Rotation ? "rad" : "m",
         ResponseQuantity.Velocity => Rotation ? "rad/s" : "m/s",
         ResponseQuantity.Acceleration => Rotation ? "rad/s^2" : "m/s^2",
+        ResponseQuantity.PortVoltage => "V",
+        ResponseQuantity.PortCurrent or ResponseQuantity.SourceCurrent => "A",
         _ when Direction is "rx" or "ry" or "rz" => "N*m",
         _ => "N",
     };

@@ -494,6 +494,8 @@ public static class TransientAnalysis
         return new LoadSet(dofs.Count, [.. terms]);
     }
 
+    private static (int, double) Negated((int Index, double Value) e) => (e.Index, -e.Value);
+
     private static (int Index, double Value)[] Column(Matrix<double> m, int column) =>
         [.. Enumerable.Range(0, m.RowCount).Select(i => (i, m[i, column])).Where(e => e.Item2 != 0)];
 
@@ -548,6 +550,32 @@ public static class TransientAnalysis
             probes.Add(new Probe(d.Name, ResponseQuantity.DamperForce, [], [.. state], [], [.. known]));
         }
 
+        // weight × the derivative-th time derivative of a node (an eliminated one through its terms), into the probe's lists.
+        void Term(string node, double weight, int derivative, List<(int, double)> u, List<(int, double)> v, List<(int, double)> a,
+            List<(double, TimeFunction)> known)
+        {
+            var kept = new List<(string Node, double Weight)>(4);
+            if (ConstraintElimination.Of(network) is { } elimination) elimination.AddTerms(node, weight, kept);
+            else kept.Add((node, weight));
+            foreach (var (n, w) in kept)
+            {
+                var i = dofs.IndexOf(n);
+                if (i >= 0) (derivative == 0 ? u : derivative == 1 ? v : a).Add((i, w));
+                else if (supportMotion.TryGetValue(n, out var m)) known.Add((w, derivative == 0 ? m.Displacement : derivative == 1 ? m.Velocity : m.Acceleration));
+            }
+        }
+
+        // Transducer ports: u = Bl(v_a − v_b) and i by Kirchhoff's law at the eliminated node (TransducerPortTerms).
+        if (!spatial)
+            foreach (var port in TransducerPortTerms.Of(network))
+                foreach (var (quantity, terms) in new[] { (ResponseQuantity.PortVoltage, port.Voltage), (ResponseQuantity.PortCurrent, port.Current) })
+                {
+                    var (u, v, a, known) = (new List<(int, double)>(), new List<(int, double)>(), new List<(int, double)>(), new List<(double, TimeFunction)>());
+                    foreach (var t in terms) Term(t.Node, t.Weight, t.Derivative, u, v, a, known);
+                    probes.Add(new Probe(port.Transducer.Name, quantity, [.. u], [.. v], [.. a], [.. known]));
+                }
+        var electricalShares = spatial || network.ElectricalNodes.IsEmpty ? [] : TransducerPortTerms.ElectricalShares(network, ConstraintElimination.Of(network));
+
         // Force received by support s: r_s = −(K_pf u + C_pf u̇ + M_pf ü + K_pp u_p + C_pp u̇_p + M_pp ü_p), K_pf = K_fpᵀ.
         for (var s = 0; s < coupling.Supports.Length; s++)
         {
@@ -567,7 +595,22 @@ public static class TransientAnalysis
                 if (cst != 0) known.Add((-cst, m.Velocity));
                 if (mst != 0) known.Add((-mst, m.Acceleration));
             }
-            if (attached) probes.Add(new Probe(coupling.Supports[s], ResponseQuantity.Reaction, [.. u], [.. v], [.. a], [.. known]));
+            if (!attached) continue;
+            // An electrical support is a voltage source: its current is minus its reaction. At a mechanical support the
+            // electrical elements' share (a current) is taken back out, as in the harmonic sweep.
+            if (network.IsElectrical(coupling.Supports[s]))
+            {
+                probes.Add(new Probe(coupling.Supports[s], ResponseQuantity.SourceCurrent, [.. u.Select(Negated)], [.. v.Select(Negated)], [.. a.Select(Negated)],
+                    [.. known.Select(k => (-k.Item1, k.Item2))]));
+                continue;
+            }
+            foreach (var e in electricalShares)
+                if (e.Weight(coupling.Supports[s]) is var w and not 0)
+                {
+                    Term(e.NodeA, w * e.Value, e.Derivative, u, v, a, known);
+                    if (e.NodeB is not null) Term(e.NodeB, -w * e.Value, e.Derivative, u, v, a, known);
+                }
+            probes.Add(new Probe(coupling.Supports[s], ResponseQuantity.Reaction, [.. u], [.. v], [.. a], [.. known]));
         }
         return probes;
     }

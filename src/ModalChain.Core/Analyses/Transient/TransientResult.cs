@@ -21,8 +21,20 @@ public enum ResponseQuantity
     /// <summary>Damper force c (u̇_A − u̇_B) in N, same sign convention as the springs.</summary>
     DamperForce,
 
-    /// <summary>Force a support receives from the network in N, positive along the direction of motion.</summary>
+    /// <summary>
+    /// Force a support receives from the network in N, positive along the direction of motion; with electrical nodes, the
+    /// mechanical force only (the electrical elements' share, a current, is left out), and never at an electrical support.
+    /// </summary>
     Reaction,
+
+    /// <summary>A transducer's port voltage u = Bl·(v_a − v_b) in V (<see cref="Assembly.TransducerPortTerms"/>).</summary>
+    PortVoltage,
+
+    /// <summary>A transducer's port current i in A: the current it drives out of its branch terminal n1 into the circuit.</summary>
+    PortCurrent,
+
+    /// <summary>The current in A a voltage source (an electrical support) delivers into the circuit: minus its support's reaction.</summary>
+    SourceCurrent,
 }
 
 /// <summary>The largest magnitude of a history and when it occurred.</summary>

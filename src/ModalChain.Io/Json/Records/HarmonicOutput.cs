@@ -26,14 +26,20 @@ public abstract record HarmonicSweepFields
     [Description("Each output DOF's displacement, velocity and acceleration over the sweep.")]
     public required IReadOnlyList<HarmonicSeriesOutput> Responses { get; init; }
 
-    [Description("Each spring's and damper's force over the sweep (line models).")]
+    [Description("Each spring's and damper's force over the sweep (line models); the current in A of one with an end on an electrical node (an inductor or resistor).")]
     public required IReadOnlyList<HarmonicElementSeriesOutput> ElementForces { get; init; }
 
-    [Description("Each support's reaction over the sweep.")]
+    [Description("Each mechanical support's reaction over the sweep, in N (electrical elements' currents left out; a voltage source's support is in 'source_currents').")]
     public required IReadOnlyList<HarmonicReactionSeriesOutput> Reactions { get; init; }
 
     [Description("Plane and 3d models only: the force (or moment) each spring and damper applies to its second end, per direction, over the sweep, with its largest amplitude: what a mount is selected on.")]
     public IReadOnlyList<HarmonicMountSeriesOutput>? MountForces { get; init; }
+
+    [Description("Models with electrical voltage sources (an electrical support moved at the source voltage) only: the current each source delivers into its circuit over the sweep, in A (minus its support's reaction; such a support is not in 'reactions').")]
+    public IReadOnlyList<HarmonicSourceCurrentSeriesOutput>? SourceCurrents { get; init; }
+
+    [Description("Models with transducers only: each transducer's port voltage u = Bl*(v_a - v_b) in V and port current in A (the current it drives out of its branch terminal n1 into the circuit) over the sweep.")]
+    public IReadOnlyList<HarmonicPortSeriesOutput>? TransducerPorts { get; init; }
 
     [Description("Transmissibility ratios over the sweep.")]
     public required IReadOnlyList<HarmonicTransmissibilityOutput> Transmissibility { get; init; }
@@ -109,10 +115,10 @@ public sealed record HarmonicSeriesOutput : HarmonicCurveFields
     [Description("Degree-of-freedom label (mass name, or linked masses joined by '+').")]
     public required string Dof { get; init; }
 
-    [Description("displacement, velocity or acceleration.")]
+    [Description("displacement, velocity or acceleration; at an electrical node flux_linkage, voltage or voltage_rate.")]
     public required string Quantity { get; init; }
 
-    [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model).")]
+    [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model; V*s, V, V/s at an electrical node).")]
     public required string Unit { get; init; }
 }
 
@@ -125,7 +131,30 @@ public sealed record HarmonicElementSeriesOutput : HarmonicCurveFields
     [Description("spring or damper.")]
     public required string Kind { get; init; }
 
-    [Description("N.")]
+    [Description("N for a force; A for the current of an element with an end on an electrical node (an inductor or resistor).")]
+    public required string Unit { get; init; }
+}
+
+/// <summary>A voltage source's current over the sweep.</summary>
+public sealed record HarmonicSourceCurrentSeriesOutput : HarmonicCurveFields
+{
+    [Description("Name of the source's support.")]
+    public required string Support { get; init; }
+
+    [Description("A."), SchemaEnum("A")]
+    public required string Unit { get; init; }
+}
+
+/// <summary>A transducer's port voltage or current over the sweep.</summary>
+public sealed record HarmonicPortSeriesOutput : HarmonicCurveFields
+{
+    [Description("Name of the transducer.")]
+    public required string Transducer { get; init; }
+
+    [Description("voltage (u = Bl*(v_a - v_b), V) or current (out of branch terminal n1 into the circuit, A)."), SchemaEnum("voltage", "current")]
+    public required string Quantity { get; init; }
+
+    [Description("V for a voltage, A for a current."), SchemaEnum("V", "A")]
     public required string Unit { get; init; }
 }
 
@@ -184,10 +213,10 @@ public sealed record HarmonicPeakOutput
     [Description("Degree-of-freedom label (mass name, or linked masses joined by '+').")]
     public required string Dof { get; init; }
 
-    [Description("displacement, velocity or acceleration.")]
+    [Description("displacement, velocity or acceleration; at an electrical node flux_linkage, voltage or voltage_rate.")]
     public required string Quantity { get; init; }
 
-    [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model).")]
+    [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model; V*s, V, V/s at an electrical node).")]
     public required string Unit { get; init; }
 
     [Description("peak: magnitudes are zero-to-peak amplitudes."), SchemaConst("peak")]
@@ -230,11 +259,39 @@ public sealed record HarmonicOperatingPointOutput
     [Description("Each spring's and damper's force.")]
     public required IReadOnlyList<HarmonicElementPointOutput> ElementForces { get; init; }
 
-    [Description("Each support's reaction.")]
+    [Description("Each mechanical support's reaction, in N.")]
     public required IReadOnlyList<HarmonicReactionPointOutput> Reactions { get; init; }
 
     [Description("Plane and 3d models only: each spring's and damper's force (or moment) per direction at the running speed.")]
     public IReadOnlyList<HarmonicMountPointOutput>? MountForces { get; init; }
+
+    [Description("Models with electrical voltage sources only: the current each source delivers at the running speed, in A.")]
+    public IReadOnlyList<HarmonicElectricalPointOutput>? SourceCurrents { get; init; }
+
+    [Description("Models with transducers only: each transducer's port voltage (V) and port current (A, out of branch terminal n1 into the circuit) at the running speed.")]
+    public IReadOnlyList<HarmonicElectricalPointOutput>? TransducerPorts { get; init; }
+}
+
+/// <summary>A source current, or a transducer's port voltage or current, at one frequency.</summary>
+public sealed record HarmonicElectricalPointOutput
+{
+    [Description("The source's support or the transducer.")]
+    public required string Name { get; init; }
+
+    [Description("current (a source's or a port's) or voltage (a port's)."), SchemaEnum("voltage", "current")]
+    public required string Quantity { get; init; }
+
+    [Description("V for a voltage, A for a current."), SchemaEnum("V", "A")]
+    public required string Unit { get; init; }
+
+    [Description("peak: the magnitude is the zero-to-peak amplitude."), SchemaConst("peak")]
+    public required string Amplitude { get; init; }
+
+    [Description("Amplitude in 'unit'.")]
+    public required double Magnitude { get; init; }
+
+    [Description("In degrees.")]
+    public required double PhaseDeg { get; init; }
 }
 
 /// <summary>A DOF's response at one frequency.</summary>
@@ -243,10 +300,10 @@ public sealed record HarmonicPointOutput
     [Description("Degree-of-freedom label (mass name, or linked masses joined by '+').")]
     public required string Dof { get; init; }
 
-    [Description("displacement, velocity or acceleration.")]
+    [Description("displacement, velocity or acceleration; at an electrical node flux_linkage, voltage or voltage_rate.")]
     public required string Quantity { get; init; }
 
-    [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model).")]
+    [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model; V*s, V, V/s at an electrical node).")]
     public required string Unit { get; init; }
 
     [Description("peak: the magnitude is the zero-to-peak amplitude."), SchemaConst("peak")]
@@ -268,7 +325,7 @@ public sealed record HarmonicElementPointOutput
     [Description("spring or damper.")]
     public required string Kind { get; init; }
 
-    [Description("N.")]
+    [Description("N for a force; A for the current of an element with an end on an electrical node (an inductor or resistor).")]
     public required string Unit { get; init; }
 
     [Description("peak: the magnitude is the zero-to-peak amplitude."), SchemaConst("peak")]
@@ -347,10 +404,10 @@ public sealed record HarmonicCombinedOutput
     [Description("Degree-of-freedom label.")]
     public required string Dof { get; init; }
 
-    [Description("displacement, velocity or acceleration.")]
+    [Description("displacement, velocity or acceleration; at an electrical node flux_linkage, voltage or voltage_rate.")]
     public required string Quantity { get; init; }
 
-    [Description("SI unit (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF).")]
+    [Description("SI unit (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF; V*s, V, V/s at an electrical node).")]
     public required string Unit { get; init; }
 
     [Description("peak or rms: the measure of 'magnitude' and of the components'."), SchemaEnum("peak", "rms")]

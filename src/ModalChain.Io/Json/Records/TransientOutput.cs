@@ -47,8 +47,14 @@ public sealed record TransientOutput : CommandOutput
     [Description("Plane and 3d models only: the force (or moment) each spring and damper applies to its second end, per direction, over time, with its peak; these histories are not repeated in element_forces or peaks.")]
     public IReadOnlyList<TransientMountForceOutput>? MountForces { get; init; }
 
-    [Description("The force each support receives over time.")]
+    [Description("The force each mechanical support receives over time, in N (electrical elements' currents left out; a voltage source's support is in 'source_currents').")]
     public required IReadOnlyList<TransientReactionOutput> Reactions { get; init; }
+
+    [Description("Models with electrical voltage sources only: the current each source delivers into its circuit over time, in A (minus its support's reaction).")]
+    public IReadOnlyList<TransientSourceCurrentOutput>? SourceCurrents { get; init; }
+
+    [Description("Models with transducers only: each transducer's port voltage u = Bl*(v_a - v_b) in V and port current in A (out of its branch terminal n1 into the circuit) over time.")]
+    public IReadOnlyList<TransientPortOutput>? TransducerPorts { get; init; }
 
     [Description("The window the r.m.s. values are taken over, in s.")]
     public required TransientWindowOutput RmsWindowS { get; init; }
@@ -82,10 +88,10 @@ public sealed record TransientResponseOutput
     [Description("Degree-of-freedom label (mass name, or linked masses joined by '+').")]
     public required string Dof { get; init; }
 
-    [Description("What the values measure: displacement, velocity or acceleration.")]
+    [Description("What the values measure: displacement, velocity or acceleration; at an electrical node flux_linkage, voltage or voltage_rate.")]
     public required string Quantity { get; init; }
 
-    [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model).")]
+    [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model; V*s, V, V/s at an electrical node).")]
     public required string Unit { get; init; }
 
     [Description("Instantaneous values."), SchemaConst("instantaneous")]
@@ -104,7 +110,7 @@ public sealed record TransientElementForceOutput
     [Description("spring or damper.")]
     public required string Kind { get; init; }
 
-    [Description("N.")]
+    [Description("N for a force; A for the current of an element with an end on an electrical node (an inductor or resistor).")]
     public required string Unit { get; init; }
 
     [Description("Instantaneous values."), SchemaConst("instantaneous")]
@@ -164,6 +170,41 @@ public sealed record TransientReactionOutput
     public required IEnumerable<double> Values { get; init; }
 }
 
+/// <summary>A voltage source's current history in <see cref="TransientOutput"/>.</summary>
+public sealed record TransientSourceCurrentOutput
+{
+    [Description("Name of the source's support.")]
+    public required string Support { get; init; }
+
+    [Description("A."), SchemaEnum("A")]
+    public required string Unit { get; init; }
+
+    [Description("Instantaneous values."), SchemaConst("instantaneous")]
+    public required string Amplitude { get; init; }
+
+    [Description("One value per written time, in 'unit'.")]
+    public required IEnumerable<double> Values { get; init; }
+}
+
+/// <summary>A transducer's port voltage or current history in <see cref="TransientOutput"/>.</summary>
+public sealed record TransientPortOutput
+{
+    [Description("Name of the transducer.")]
+    public required string Transducer { get; init; }
+
+    [Description("voltage (u = Bl*(v_a - v_b), V) or current (out of branch terminal n1 into the circuit, A)."), SchemaEnum("voltage", "current")]
+    public required string Quantity { get; init; }
+
+    [Description("V for a voltage, A for a current."), SchemaEnum("V", "A")]
+    public required string Unit { get; init; }
+
+    [Description("Instantaneous values."), SchemaConst("instantaneous")]
+    public required string Amplitude { get; init; }
+
+    [Description("One value per written time, in 'unit'.")]
+    public required IEnumerable<double> Values { get; init; }
+}
+
 /// <summary>The r.m.s. window in <see cref="TransientOutput"/>.</summary>
 public sealed record TransientWindowOutput
 {
@@ -180,10 +221,10 @@ public sealed record TransientPeakOutput
     [Description("The DOF, element or support.")]
     public required string Name { get; init; }
 
-    [Description("What the value measures: displacement, velocity, acceleration, spring_force, damper_force or reaction.")]
+    [Description("What the value measures: displacement, velocity, acceleration, spring_force, damper_force or reaction; flux_linkage, voltage, voltage_rate at an electrical node, inductor_current or resistor_current for an electrical element, port_voltage, port_current, source_current.")]
     public required string Quantity { get; init; }
 
-    [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model, N, ...).")]
+    [Description("SI unit of the values (m, m/s, m/s^2; rad, rad/s, rad/s^2 at a rotation DOF of a plane or 3d model, N, ...; V*s, V, V/s, A on the electrical side).")]
     public required string Unit { get; init; }
 
     [Description("A peak: the largest magnitude, with its sign."), SchemaConst("peak")]
