@@ -97,9 +97,10 @@ public static class TransducerPortTerms
     }
 
     /// <summary>
-    /// An electrical element (an end on an electrical node) or a capacitance on an eliminated node, with the weight each
-    /// support has in its row t_A − t_B (or t_e): its force f times that weight is the share of the support's
-    /// generalised force that is a current, not a force (NodeB null for a capacitance to ground).
+    /// An electrical element (an end on an electrical node) or a capacitance on an eliminated node, with the weight (±1)
+    /// of each support its current reaches, through its own end or through the other branch terminal of the transducer
+    /// that eliminates its end: its force f times that weight is the share of the support's reaction that is a current,
+    /// not a force (NodeB null for a capacitance to ground).
     /// </summary>
     internal sealed record ElectricalElement(string NodeA, string? NodeB, int Derivative, double Value, Dictionary<string, double> Weights)
     {
@@ -108,27 +109,28 @@ public static class TransducerPortTerms
 
     internal static ImmutableArray<ElectricalElement> ElectricalShares(Network network, ConstraintElimination? elimination)
     {
+        // An electrical element's current reaches a support through its own end there, or, when that end is a node a
+        // transducer eliminates (λ_e = λ_other ± Bl·(x_a − x_b)), through the branch's other terminal (weight 1). The
+        // share that reaches the mechanical pair through ±Bl is the transducer's force Bl·i: newtons, kept in the reaction.
         var result = ImmutableArray.CreateBuilder<ElectricalElement>();
-        var terms = new List<(string Node, double Weight)>();
+        void Current(string node, double sign, Dictionary<string, double> weights)
+        {
+            if (elimination?.Find(node) is { } e)
+                node = e.Transducer.BranchA == e.Node ? e.Transducer.BranchB : e.Transducer.BranchA;
+            if (network.IsSupport(node)) weights[node] = weights.GetValueOrDefault(node) + sign;
+        }
         void Add(string a, string? b, int derivative, double value)
         {
             if (!network.IsElectrical(a) && (b is null || !network.IsElectrical(b))) return;
-            terms.Clear();
-            if (elimination is null) terms.Add((a, 1));
-            else elimination.AddTerms(a, 1, terms);
-            if (b is not null)
-            {
-                if (elimination is null) terms.Add((b, -1));
-                else elimination.AddTerms(b, -1, terms);
-            }
             var weights = new Dictionary<string, double>(StringComparer.Ordinal);
-            foreach (var (node, w) in terms)
-                if (network.IsSupport(node)) weights[node] = weights.GetValueOrDefault(node) + w;
+            Current(a, 1, weights);
+            if (b is not null) Current(b, -1, weights);
             if (weights.Values.Any(w => w != 0)) result.Add(new ElectricalElement(a, b, derivative, value, weights));
         }
         foreach (var x in network.Springs) Add(x.NodeA, x.NodeB, 0, x.Stiffness);
         foreach (var x in network.Dampers) Add(x.NodeA, x.NodeB, 1, x.Coefficient);
         foreach (var x in network.Inerters) Add(x.NodeA, x.NodeB, 2, x.Inertance);
+        // A capacitance to ground on an eliminated node: its current returns to ground, reaching the other terminal's support.
         if (elimination is not null)
             foreach (var m in network.Masses)
                 if (m.Kilograms > 0 && elimination.IsEliminated(m.Name)) Add(m.Name, null, 2, m.Kilograms);

@@ -20,9 +20,9 @@ public class ElectricalOutputCommandTests
     [Fact]
     public void HarmonicJson_OfTheFloorTest_SpeaksVoltsAndAmperesOnTheElectricalSide()
     {
-        // models/floor-shaker-test.yaml: amplifier (1 V) → 1/0.5 S = 2 Ω → shaker-coil (branch [shaker-coil, ground]);
-        // sensor-coil → 1/2.667e-3 S → sensor-out → 1/1e-4 S → ground. Closed forms (Ohm's law, the divider), with the
-        // conductances as the model gives them: shaker port current i = (u − 1 V)·0.5 S, source current −i; the sensor's
+        // models/floor-shaker-test.yaml: amplifier-out (1 V) → 2 Ω → shaker-coil (branch [shaker-coil, ground]);
+        // sensor-coil → 375 Ω → sensor-out → 10 kΩ → ground. Closed forms (Ohm's law, the divider), with the
+        // conductances of the model's resistors: shaker port current i = (u − 1 V)·0.5 S, source current −i; the sensor's
         // i = u·G₁G₂/(G₁ + G₂) and V_out = u·G₁/(G₁ + G₂). 1e-9 of each value (JSON numbers round-trip their doubles;
         // magnitude and phase through polar form).
         var o = CliRun.Run("harmonic", Example, "--format", "json");
@@ -40,12 +40,12 @@ public class ElectricalOutputCommandTests
         Assert.Equal("N", units["bay-b-beams"]);
         Assert.Equal(["ground"], root.GetProperty("reactions").EnumerateArray().Select(r => r.GetProperty("support").GetString()));
 
-        var source = Curve(root.GetProperty("source_currents").EnumerateArray().Single(s => s.GetProperty("support").GetString() == "amplifier"));
+        var source = Curve(root.GetProperty("source_currents").EnumerateArray().Single(s => s.GetProperty("support").GetString() == "amplifier-out"));
         var ports = root.GetProperty("transducer_ports").EnumerateArray().ToArray();
         Complex[] Port(string name, string quantity) => Curve(ports.Single(p => p.GetProperty("transducer").GetString() == name && p.GetProperty("quantity").GetString() == quantity));
         var (uShaker, iShaker, uSensor, iSensor) = (Port("shaker", "voltage"), Port("shaker", "current"), Port("sensor", "voltage"), Port("sensor", "current"));
         var vOut = Curve(responses.Single(r => r.GetProperty("dof").GetString() == "sensor-out" && r.GetProperty("quantity").GetString() == "voltage"));
-        const double g1 = 2.667e-3, g2 = 1e-4;
+        const double g1 = 1.0 / 375, g2 = 1.0 / 10e3;
         Assert.True(uShaker.Length > 100);
         for (var k = 0; k < uShaker.Length; k++)
         {
@@ -66,16 +66,16 @@ public class ElectricalOutputCommandTests
         Assert.True(csv.ExitCode == 0, csv.ToString());
         var header = csv.Stdout.Split('\n')[0].Split(',');
         Assert.Contains("sensor-out voltage magnitude [V]", header);
-        Assert.Contains("recorder-input damper current magnitude [A]", header);
-        Assert.Contains("source current amplifier magnitude [A]", header);
+        Assert.Contains("recorder-input resistor current magnitude [A]", header);
+        Assert.Contains("source current amplifier-out magnitude [A]", header);
         Assert.Contains("port shaker current magnitude [A]", header);
         Assert.Contains("port sensor voltage magnitude [V]", header);
         Assert.DoesNotContain(header, h => h.StartsWith("sensor-out velocity", StringComparison.Ordinal));
-        Assert.DoesNotContain(header, h => h.StartsWith("reaction amplifier", StringComparison.Ordinal));
+        Assert.DoesNotContain(header, h => h.StartsWith("reaction amplifier-out", StringComparison.Ordinal));
 
         var text = CliRun.Run("harmonic", Example);
         Assert.True(text.ExitCode == 0, text.ToString());
-        Assert.Contains("drive (source voltage 1 V at amplifier)", text.Stdout);
+        Assert.Contains("amplifier (source voltage 1 V at amplifier-out)", text.Stdout);
         Assert.Matches(@"port of shaker\s+current\s+0\.4998\s+A", text.Stdout); // 1 V over 2 Ω where the coil barely moves
         Assert.Matches(@"node sensor-out\s+voltage\s+\S+\s+V", text.Stdout);
     }

@@ -21,7 +21,7 @@ public sealed class ElectricalOutputSectionTests
         // amplitude over the sweep is printed to four digits, 499.8 mA at 40 Hz). The sensor's output node is not a motion row.
         var report = ReportBuilder.Build(Repository.Load("models/floor-shaker-test.yaml"), Options);
         Assert.Contains(ElectricalTables.HarmonicCaption, report.Html);
-        Assert.Matches(@"<td[^>]*>current</td><td[^>]*>499\.8 mA</td>", Row(report.Html, ElectricalTables.HarmonicCaption, "source at amplifier"));
+        Assert.Matches(@"<td[^>]*>current</td><td[^>]*>499\.8 mA</td>", Row(report.Html, ElectricalTables.HarmonicCaption, "source at amplifier-out"));
         Assert.Matches(@"<td[^>]*>voltage</td><td[^>]*>[0-9.]+ mV</td>", Row(report.Html, ElectricalTables.HarmonicCaption, "node sensor-out"));
         Assert.Matches(@"<td[^>]*>current</td><td[^>]*>[0-9.]+ (µ|&#181;)A</td>", Row(report.Html, ElectricalTables.HarmonicCaption, "resistor recorder-input"));
         Assert.DoesNotMatch(@"Largest response over the sweep.*?<tr><td>sensor-out</td>.*?Electrical side", report.Html.Replace("\n", " "));
