@@ -28,14 +28,29 @@ internal static class ValidateCommand
             o.WriteLine($"{path}: valid");
             o.WriteLine($"  title:               {TerminalText.Line(n.Title)}");
             if (n.Space == Core.Model.ModelSpace.Line)
-                o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.ForScalarNetwork(n).Count} (one direction per mass{(n.Links.IsEmpty ? "" : "; linked masses share one")})"));
+            {
+                var dofs = Core.Dofs.DofMap.ForScalarNetwork(n);
+                var electrical = dofs.Dofs.Count(d => n.IsElectrical(d.Node));
+                o.WriteLine(string.Create(inv, $"  degrees of freedom:  {dofs.Count} (one direction per mass{(n.Links.IsEmpty ? "" : "; linked masses share one")}{(electrical > 0 ? $"; {electrical} of them circuit nodes' flux linkages" : "")})"));
+            }
             else
                 o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.For(n).Count} ({(n.Space == Core.Model.ModelSpace.Plane ? "plane" : "3d")} model: the translations of each mass, every direction of each rigid body)"));
             var mass = CommonOptions.UnitsOf(parse, units, document).MassUnit;
             o.WriteLine(string.Create(inv, $"  total mass:          {mass.From(n.TotalMass):G6} {mass.Plain}"));
-            o.WriteLine(string.Create(inv, $"  springs, dampers:    {n.Springs.Length}, {n.Dampers.Length}"));
-            if (n.Inerters.Length > 0) o.WriteLine(string.Create(inv, $"  inerters:            {n.Inerters.Length}"));
-            var groups = Topology.UnsupportedGroups(n);
+            // The electrical side (a circuit's analogue, a transducer's branch) is counted apart: its dampers are resistors,
+            // its springs inductors, its inerters capacitors, and a group of its nodes no inductor holds is a flux level, not
+            // a rigid-body mode.
+            bool Electrical(string a, string b) => n.IsElectrical(a) || n.IsElectrical(b);
+            var (resistors, inductors, capacitors) = (n.Dampers.Count(d => Electrical(d.NodeA, d.NodeB)),
+                n.Springs.Count(x => Electrical(x.NodeA, x.NodeB)), n.Inerters.Count(b => Electrical(b.NodeA, b.NodeB)));
+            o.WriteLine(string.Create(inv, $"  springs, dampers:    {n.Springs.Length - inductors}, {n.Dampers.Length - resistors}"));
+            if (n.Inerters.Length > capacitors) o.WriteLine(string.Create(inv, $"  inerters:            {n.Inerters.Length - capacitors}"));
+            if (!n.ElectricalNodes.IsEmpty)
+            {
+                o.WriteLine(string.Create(inv, $"  electrical side:     {n.ElectricalNodes.Length} nodes, {resistors} resistors, {inductors} inductors, {capacitors} capacitors between nodes"));
+                o.WriteLine(string.Create(inv, $"  transducers:         {n.Transducers.Length}"));
+            }
+            var groups = Topology.UnsupportedGroups(n).Where(g => !g.All(n.IsElectrical)).ToArray();
             o.WriteLine(string.Create(inv, $"  unsupported groups:  {groups.Length}{(groups.Length > 0 ? " (rigid-body modes expected)" : "")}"));
             o.WriteLine(string.Create(inv, $"  warnings:            {CommonOptions.WarningCount(document)}"));
             o.WriteLine($"  sha256:              {document.Sha256}");
