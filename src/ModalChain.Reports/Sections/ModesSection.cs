@@ -173,7 +173,7 @@ public sealed class ModesSection : IReportSection
         var network = _result.Network;
         var dofs = _result.Matrices.Dofs.Dofs.Select(d => d.ToString()).ToArray();
         var shown = _result.Modes.Length;
-        var total = _context.Geometry is null ? network.Masses.Length : _result.Matrices.Dofs.Count;
+        var total = _result.ModeCountAvailable; // the DOFs less those condensed (massless nodes, eliminated terminals are not DOFs)
         var limit = shown < total ? string.Create(Inv, $" (the report shows at most the lowest {_context.Options.MaxModes})") : "";
         html.Paragraph(string.Create(Inv, $"The undamped natural modes (K φ = ω² M φ), lowest first: {shown} of {total} mode{(total == 1 ? "" : "s")}{limit}. ") +
             "f is the undamped natural frequency, T = 1/f the period, ω = 2πf, ζ the modal damping ratio. Shapes are mass-normalised (φᵀMφ = 1); M* is the effective modal mass, " +

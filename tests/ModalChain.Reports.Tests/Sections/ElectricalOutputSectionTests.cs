@@ -14,6 +14,17 @@ public sealed class ElectricalOutputSectionTests
             : throw new Xunit.Sdk.XunitException($"no row '{first}' under '{caption}'");
 
     [Fact]
+    public void FloorTestModes_CountTheModesTheModelHas()
+    {
+        // Hand count from models/floor-shaker-test.yaml: 4 masses and the massless circuit node sensor-out are the 5
+        // coordinates (the coil nodes are eliminated by their transducers, amplifier-out is held by its source); the
+        // massless node is condensed, so the undamped problem has 4 modes, all shown (the report's limit is 20).
+        var report = ReportBuilder.Build(Repository.Load("models/floor-shaker-test.yaml"), Options);
+        Assert.Contains("lowest first: 4 of 4 modes.", report.Html);
+        Assert.DoesNotContain("the report shows at most", report.Html);
+    }
+
+    [Fact]
     public void FloorTestHarmonic_HasAnElectricalTableInVoltsAndAmperes()
     {
         // models/floor-shaker-test.yaml: 1 V behind the shaker's 2 Ω coil resistance; above the shaker's suspension
