@@ -193,8 +193,17 @@ public static class NetworkFigure
             var data = ImmutableDictionary<string, string>.Empty.Add("element", e.Name);
             var pair = placer.PlacePair(e.Name, PlacedNameSize, value, PlacedLabelSize, 12, LabelPlacer.AlongLine(start, end, 9, PlacedNameSize, width),
                 "#333333", "#555555", "label element-name " + KindClass(e.Kind), "label element-value " + KindClass(e.Kind) + (e.Electrical ? " electrical" : ""), data);
-            if (pair is not { } placed) omitted++;
-            else shapes.AddRange(placed.First, placed.Second);
+            if (pair is { } placed)
+            {
+                shapes.AddRange(placed.First, placed.Second);
+                continue;
+            }
+            // No room for two lines: the name and the value on one line, else the label is left out.
+            var line = e.Name + " " + value;
+            var single = placer.Place(line, PlacedLabelSize, LabelPlacer.AlongLine(start, end, 9, PlacedLabelSize, TextMetrics.Width(line, PlacedLabelSize)),
+                "#333333", "label element-name element-value " + KindClass(e.Kind) + (e.Electrical ? " electrical" : ""), data);
+            if (single is null) omitted++;
+            else shapes.Add(single);
         }
         foreach (var e in layout.Elements.Where(e => e.Kind is ElementKind.Inerter or ElementKind.Transducer))
         {

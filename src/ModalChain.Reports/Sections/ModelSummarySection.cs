@@ -121,6 +121,11 @@ public sealed class ModelSummarySection : IReportSection
     {
         var parts = new List<string> { nodes, "springs (zigzags)", "dampers (dashpots)" };
         if (network.Inerters.Length > 0) parts.Add("inerters (flywheels: a disc with crossed spokes)");
+        var counts = ModelCounts.Of(network);
+        if (counts.Resistors > 0) parts.Add("resistors (a box with a zigzag, labelled in Ω)");
+        if (counts.Inductors > 0) parts.Add("inductors (zigzags labelled in H)");
+        if (counts.Capacitors > 0) parts.Add("capacitors between nodes (flywheels labelled in F)");
+        if (counts.CircuitNodes > 0) parts.Add("circuit nodes (blocks labelled with their capacitance to ground in F, or nothing when they have none)");
         if (network.Transducers.Length > 0) parts.Add("transducers (a magnet block and a coil between the mechanical pair, with a dashed line to each electrical node of the branch)");
         return string.Join(", ", parts);
     }
