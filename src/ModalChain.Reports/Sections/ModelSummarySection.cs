@@ -58,6 +58,27 @@ public sealed class ModelSummarySection : IReportSection
         return labels;
     }
 
+    /// <summary>
+    /// The circuit's nodes (capacitance to ground in F, or none) when <paramref name="nodes"/> has any, and its elements
+    /// in their own units: R = 1/c, L = 1/k, C = the inertance in kg = F (the analogy of <see cref="Network.ElectricalNodes"/>).
+    /// </summary>
+    private static void CircuitTables(HtmlWriter html, Network network, IReadOnlyList<Mass> nodes)
+    {
+        bool Electrical(string a, string b) => network.IsElectrical(a) || network.IsElectrical(b);
+        if (nodes.Count > 0)
+            html.Table("Circuit nodes", ["Name", "Capacitance to ground"],
+                nodes.Select(m => (IReadOnlyList<string>)[m.Name, m.Kilograms > 0 ? ElectricalUnits.Format(m.Kilograms, ElectricalUnits.Farad, given: true) : "none"]),
+                new HashSet<int> { 1 });
+        var circuit = network.Dampers.Where(d => Electrical(d.NodeA, d.NodeB)).Select(d => (d.Name, d.NodeA, d.NodeB, Kind: "resistor", Value: ElectricalUnits.Format(1 / d.Coefficient, ElectricalUnits.Ohm, given: true)))
+            .Concat(network.Springs.Where(s => Electrical(s.NodeA, s.NodeB)).Select(s => (s.Name, s.NodeA, s.NodeB, Kind: "inductor", Value: ElectricalUnits.Format(1 / s.Stiffness, ElectricalUnits.Henry, given: true))))
+            .Concat(network.Inerters.Where(i => Electrical(i.NodeA, i.NodeB)).Select(i => (i.Name, i.NodeA, i.NodeB, Kind: "capacitor", Value: ElectricalUnits.Format(i.Inertance, ElectricalUnits.Farad, given: true))))
+            .ToArray();
+        if (circuit.Length > 0)
+            html.Table("Circuit elements", ["Name", "Kind", "Between", "Value"],
+                circuit.Select(c => (IReadOnlyList<string>)[c.Name, c.Kind, $"{c.NodeA} – {c.NodeB}", c.Value]),
+                new HashSet<int> { 3 });
+    }
+
     /// <summary>Large line models: masses, springs and dampers grouped by equal value (count and first names), not one row each.</summary>
     private void GroupedTables(HtmlWriter html, Network network, Units.DisplayUnits u)
     {
@@ -70,14 +91,20 @@ public sealed class ModelSummarySection : IReportSection
             ]);
         string Caption(string what, int count, int groups) => string.Create(CultureInfo.InvariantCulture,
             $"{what}: {count} in {groups} group{(groups == 1 ? "" : "s")} of equal value (every one is listed in results.json)");
-        html.Table(Caption("Masses", network.Masses.Length, network.Masses.Select(m => m.Kilograms).Distinct().Count()),
-            [$"Mass ({u.MassSymbol})", "Count", "First names"], Rows(network.Masses, m => m.Kilograms, m => m.Name, v => u.Mass(v, given: true)), new HashSet<int> { 0, 1 });
-        if (network.Springs.Length > 0)
-            html.Table(Caption("Springs", network.Springs.Length, network.Springs.Select(s => s.Stiffness).Distinct().Count()),
-                [$"Stiffness ({u.StiffnessSymbol})", "Count", "First names"], Rows(network.Springs, s => s.Stiffness, s => s.Name, v => u.Stiffness(v, given: true)), new HashSet<int> { 0, 1 });
-        if (network.Dampers.Length > 0)
-            html.Table(Caption("Dampers", network.Dampers.Length, network.Dampers.Select(d => d.Coefficient).Distinct().Count()),
-                [$"Coefficient ({u.DampingSymbol})", "Count", "First names"], Rows(network.Dampers, d => d.Coefficient, d => d.Name, v => u.Damping(v, given: true)), new HashSet<int> { 0, 1 });
+        // The circuit's nodes and elements are listed in their own units (CircuitTables), not as masses, springs and dampers.
+        bool Electrical(string a, string b) => network.IsElectrical(a) || network.IsElectrical(b);
+        var masses = network.Masses.Where(m => !network.IsElectrical(m.Name)).ToArray();
+        var springs = network.Springs.Where(s => !Electrical(s.NodeA, s.NodeB)).ToArray();
+        var dampers = network.Dampers.Where(d => !Electrical(d.NodeA, d.NodeB)).ToArray();
+        html.Table(Caption("Masses", masses.Length, masses.Select(m => m.Kilograms).Distinct().Count()),
+            [$"Mass ({u.MassSymbol})", "Count", "First names"], Rows(masses, m => m.Kilograms, m => m.Name, v => u.Mass(v, given: true)), new HashSet<int> { 0, 1 });
+        if (springs.Length > 0)
+            html.Table(Caption("Springs", springs.Length, springs.Select(s => s.Stiffness).Distinct().Count()),
+                [$"Stiffness ({u.StiffnessSymbol})", "Count", "First names"], Rows(springs, s => s.Stiffness, s => s.Name, v => u.Stiffness(v, given: true)), new HashSet<int> { 0, 1 });
+        if (dampers.Length > 0)
+            html.Table(Caption("Dampers", dampers.Length, dampers.Select(d => d.Coefficient).Distinct().Count()),
+                [$"Coefficient ({u.DampingSymbol})", "Count", "First names"], Rows(dampers, d => d.Coefficient, d => d.Name, v => u.Damping(v, given: true)), new HashSet<int> { 0, 1 });
+        CircuitTables(html, network, [.. network.Masses.Where(m => network.IsElectrical(m.Name))]);
         if (_context.Document.Warnings.Length > 0)
         {
             html.Heading("Warnings from reading the model");
@@ -176,10 +203,6 @@ public sealed class ModelSummarySection : IReportSection
                 masses.Select(m => (IReadOnlyList<string>)[m.Name, u.Mass(m.Kilograms, given: true),
                     m.Position is { } p ? $"({u.Length(p.X, given: true)}, {u.Length(p.Y, given: true)})" : "—"]),
                 new HashSet<int> { 1 });
-        if (nodes.Length > 0)
-            html.Table("Circuit nodes", ["Name", "Capacitance to ground"],
-                nodes.Select(m => (IReadOnlyList<string>)[m.Name, m.Kilograms > 0 ? ElectricalUnits.Format(m.Kilograms, ElectricalUnits.Farad, given: true) : "none"]),
-                new HashSet<int> { 1 });
         var springs = network.Springs.Where(s => !Electrical(s.NodeA, s.NodeB)).ToArray();
         var dampers = network.Dampers.Where(d => !Electrical(d.NodeA, d.NodeB)).ToArray();
         var inerters = network.Inerters.Where(i => !Electrical(i.NodeA, i.NodeB)).ToArray();
@@ -195,15 +218,7 @@ public sealed class ModelSummarySection : IReportSection
             html.Table("Inerters", ["Name", "Between", $"Inertance ({u.MassSymbol})"],
                 inerters.Select(i => (IReadOnlyList<string>)[i.Name, $"{i.NodeA} – {i.NodeB}", u.Mass(i.Inertance, given: true)]),
                 new HashSet<int> { 2 });
-        // The circuit's elements in their own units: R = 1/c, L = 1/k, C = the inertance in kg = F (the analogy of Network.ElectricalNodes).
-        var circuit = network.Dampers.Where(d => Electrical(d.NodeA, d.NodeB)).Select(d => (d.Name, d.NodeA, d.NodeB, Kind: "resistor", Value: ElectricalUnits.Format(1 / d.Coefficient, ElectricalUnits.Ohm, given: true)))
-            .Concat(network.Springs.Where(s => Electrical(s.NodeA, s.NodeB)).Select(s => (s.Name, s.NodeA, s.NodeB, Kind: "inductor", Value: ElectricalUnits.Format(1 / s.Stiffness, ElectricalUnits.Henry, given: true))))
-            .Concat(network.Inerters.Where(i => Electrical(i.NodeA, i.NodeB)).Select(i => (i.Name, i.NodeA, i.NodeB, Kind: "capacitor", Value: ElectricalUnits.Format(i.Inertance, ElectricalUnits.Farad, given: true))))
-            .ToArray();
-        if (circuit.Length > 0)
-            html.Table("Circuit elements", ["Name", "Kind", "Between", "Value"],
-                circuit.Select(c => (IReadOnlyList<string>)[c.Name, c.Kind, $"{c.NodeA} – {c.NodeB}", c.Value]),
-                new HashSet<int> { 3 });
+        CircuitTables(html, network, nodes);
         if (network.Transducers.Length > 0)
             html.Table("Transducers", ["Name", "Mechanical pair", "Electrical branch", "Force factor (T·m)"],
                 network.Transducers.Select(t => (IReadOnlyList<string>)[t.Name, $"{t.NodeA} – {t.NodeB}", $"{t.BranchA} – {t.BranchB}", t.ForceFactor.ToString("G4", CultureInfo.InvariantCulture)]),

@@ -211,4 +211,33 @@ public sealed class ElectricalDrawingTests
         Assert.Equal("4, 5, 3", facts["Masses, springs, dampers"]);
         Assert.Equal("3, 3, 0, 0", facts["Circuit nodes, resistors, inductors, capacitors"]);
     }
+
+    [Fact]
+    public void LargeModelSummary_GroupsOnlyTheMechanicalSide_AndListsTheCircuitApart()
+    {
+        // Invented: a chain of 70 equal masses (more than ModesSection.LargeModelMasses, so the tables are grouped by
+        // value) read by a velocity sensor across a 470 Ω resistor. Hand count: 70 masses of 100 kg, 70 springs of
+        // 1 MN/m, no mechanical damper; circuit nodes: coil (massless); 1 resistor.
+        var yaml = new System.Text.StringBuilder("title: Long chain read by a coil\nmasses:\n");
+        for (var i = 1; i <= 70; i++) yaml.Append(CultureInfo.InvariantCulture, $"  m{i}: 100 kg\n");
+        yaml.Append("springs:\n");
+        for (var i = 1; i <= 70; i++) yaml.Append(CultureInfo.InvariantCulture, $"  k{i}: {{between: [{(i == 1 ? "ground" : $"m{i - 1}")}, m{i}], stiffness: 1 MN/m}}\n");
+        yaml.Append("""
+            circuit:
+              nodes: [coil]
+              resistors:
+                load: {between: [coil, ground], resistance: 470 ohm}
+            transducers:
+              sensor: {between: [m70, ground], branch: [coil, ground], force-factor: 10 T*m}
+            """);
+        var report = ReportBuilder.Build(Repository.Parse(yaml.ToString()), Options);
+        var summary = report.Document!.Sections.Single(s => s.Key == "model");
+        var tables = summary.Blocks.OfType<TableBlock>().ToList();
+        var masses = tables.Single(t => (t.Caption ?? "").StartsWith("Masses", StringComparison.Ordinal));
+        Assert.StartsWith("Masses: 70 in 1 group", masses.Caption, StringComparison.Ordinal);
+        Assert.Equal<string>(["100", "70"], masses.Rows.Single().Take(2));
+        Assert.DoesNotContain(tables, t => (t.Caption ?? "").StartsWith("Dampers", StringComparison.Ordinal)); // the resistor is no damper
+        Assert.Equal<string>(["load", "resistor", "coil – ground", "470 Ω"], tables.Single(t => t.Caption == "Circuit elements").Rows.Single());
+        Assert.Equal<string>(["coil", "none"], tables.Single(t => t.Caption == "Circuit nodes").Rows.Single());
+    }
 }
