@@ -120,6 +120,30 @@ public sealed class LabelPlacer(Rect bounds)
         return null;
     }
 
+    /// <summary>
+    /// Two lines placed together (a name and its value below it, <paramref name="lineGap"/> lower, same anchor) at the
+    /// first candidate where both stay inside the bounds and overlap nothing placed; null (counted once in
+    /// <see cref="Omitted"/>) when every candidate collides.
+    /// </summary>
+    public (TextShape First, TextShape Second)? PlacePair(string first, double firstSize, string second, double secondSize, double lineGap,
+        IEnumerable<(Point At, TextAnchor Anchor)> candidates, string firstColor, string secondColor, string firstClass, string secondClass,
+        ImmutableDictionary<string, string>? data = null)
+    {
+        ArgumentNullException.ThrowIfNull(candidates);
+        foreach (var (at, anchor) in candidates)
+        {
+            var one = new TextShape(at, first, firstSize, anchor, false, firstColor) { Class = firstClass, Data = data ?? ImmutableDictionary<string, string>.Empty, Halo = true };
+            var two = new TextShape(at + new Point(0, lineGap), second, secondSize, anchor, false, secondColor) { Class = secondClass, Data = data ?? ImmutableDictionary<string, string>.Empty, Halo = true };
+            var boxes = new[] { TextMetrics.Box(one), TextMetrics.Box(two) };
+            if (!boxes.All(bounds.Contains)) continue;
+            if (boxes.Any(b => _taken.Any(t => t.Intersects(b.Inflate(Gap))))) continue;
+            _taken.AddRange(boxes);
+            return (one, two);
+        }
+        Omitted++;
+        return null;
+    }
+
     /// <summary>Candidate positions around a point symbol of half-size <paramref name="clearance"/>: right, left, above, below, then the diagonals, then farther out.</summary>
     public static IEnumerable<(Point At, TextAnchor Anchor)> AroundPoint(Point p, double clearance, double size)
     {

@@ -51,11 +51,18 @@ public static class NetworkFigure
     }
 
     /// <summary>The network alone: names, masses and element values.</summary>
+    /// <param name="layout">Where each part is drawn.</param>
+    /// <param name="header">Title line and the lines below it.</param>
+    /// <param name="footer">Notes under the drawing.</param>
+    /// <param name="units">Display units of the mechanical values.</param>
+    /// <param name="massKilograms">Each drawn node's mass in kg (an electrical node's capacitance in F).</param>
+    /// <param name="supportLabels">Labels for supports by name (a voltage source's node: "source amplifier 1 V"); others get none.</param>
     public static Scene Network(NetworkLayout layout, IReadOnlyList<string> header, IReadOnlyList<string> footer, DisplayUnits units,
-        IReadOnlyDictionary<string, double> massKilograms)
+        IReadOnlyDictionary<string, double> massKilograms, IReadOnlyDictionary<string, string>? supportLabels = null)
     {
         ArgumentNullException.ThrowIfNull(layout);
         ArgumentNullException.ThrowIfNull(units);
+        ArgumentNullException.ThrowIfNull(massKilograms);
         footer = Wrap(footer);
         // One spare footer line for the note on labels left out, if any.
         var frame = Frame.For(layout, header.Count, footer.Count + 1, null);
@@ -63,16 +70,11 @@ public static class NetworkFigure
         Headers(shapes, header);
         var centres = layout.Masses.Select(m => frame.Map(m.At)).ToArray();
         DrawSupports(shapes, layout, frame, centres);
-        DrawElements(shapes, layout, frame, [centres], Palette.Structure, "element", labels: frame.Labels, units);
+        DrawElements(shapes, layout, frame, [centres], Palette.Structure, "element");
         DrawMasses(shapes, layout, frame, [centres], Palette.Structure, "#E8E8E8", 1, "mass", frame.Labels);
-        if (frame.Labels)
-            for (var i = 0; i < centres.Length; i++)
-            {
-                var name = layout.Masses[i].Name;
-                var value = units.Mass(massKilograms[name], given: true) + " " + units.MassSymbol;
-                shapes.Add(new TextShape(centres[i] + new Point(frame.HalfWidth + 5, 4), value, 10, TextAnchor.Start, false, "#333333") { Class = "mass-value" });
-            }
-        var omitted = frame.Labels ? PlacedElementLabels(shapes, layout, frame, centres, units) : 0;
+        var omitted = frame.Labels
+            ? PlacedLabels(shapes, layout, frame, centres, units, massKilograms, supportLabels ?? ImmutableDictionary<string, string>.Empty)
+            : 0;
         if (omitted > 0)
             footer = [.. footer, string.Create(CultureInfo.InvariantCulture,
                 $"{omitted} label{(omitted == 1 ? " was" : "s were")} left out where {(omitted == 1 ? "it" : "they")} would overlap others; the tables list every element.")];
@@ -80,15 +82,53 @@ public static class NetworkFigure
         return new Scene(Width, frame.Height, header.Count > 0 ? header[0] : "Network", shapes.ToImmutable(), frame.Data);
     }
 
+    /// <summary>
+    /// The value printed beside a drawn node: its mass ("6000 kg"), or for an electrical node its capacitance to ground
+    /// ("22 µF"); null for a massless electrical node, which has no capacitance to print.
+    /// </summary>
+    public static string? NodeValue(NetworkLayout layout, string name, double kilograms, DisplayUnits units)
+    {
+        ArgumentNullException.ThrowIfNull(layout);
+        ArgumentNullException.ThrowIfNull(units);
+        if (!layout.ElectricalNodes.Contains(name)) return units.Mass(kilograms, given: true) + " " + units.MassSymbol;
+        return kilograms > 0 ? ElectricalUnits.Format(kilograms, ElectricalUnits.Farad, given: true) : null;
+    }
+
+    /// <summary>
+    /// The value printed with an element: a spring's stiffness, a damper's coefficient, an inerter's inertance, a
+    /// transducer's force factor; on the electrical side (<see cref="DrawnElement.Electrical"/>) an inductor's
+    /// L = 1/k in H, a resistor's R = 1/c in Ω, a capacitor's C in F.
+    /// </summary>
+    public static string ElementValue(DrawnElement e, DisplayUnits units)
+    {
+        ArgumentNullException.ThrowIfNull(e);
+        ArgumentNullException.ThrowIfNull(units);
+        return e.Kind switch
+        {
+            ElementKind.Spring when e.Electrical => ElectricalUnits.Format(1 / e.Value, ElectricalUnits.Henry, given: true),
+            ElementKind.Damper when e.Electrical => ElectricalUnits.Format(1 / e.Value, ElectricalUnits.Ohm, given: true),
+            ElementKind.Inerter when e.Electrical => ElectricalUnits.Format(e.Value, ElectricalUnits.Farad, given: true),
+            ElementKind.Spring => units.Stiffness(e.Value, given: true) + " " + units.StiffnessSymbol,
+            ElementKind.Damper => units.Damping(e.Value, given: true) + " " + units.DampingSymbol,
+            ElementKind.Inerter => units.Mass(e.Value, given: true) + " " + units.MassSymbol,
+            _ => "Bl " + e.Value.ToString("G4", CultureInfo.InvariantCulture) + " T·m",
+        };
+    }
+
     /// <summary>Font size of the placed labels of inerters and transducers.</summary>
     public const double PlacedLabelSize = 9.5;
 
+    /// <summary>Font size of a placed spring or damper name (its value below it is <see cref="PlacedLabelSize"/>).</summary>
+    public const double PlacedNameSize = 10;
+
     /// <summary>
-    /// Labels each inerter ("name 360 kg") and transducer ("name Bl 15 T·m") beside its symbol through a
-    /// <see cref="LabelPlacer"/> that first blocks every mass block and every text drawn so far, so a placed label
-    /// overlaps none of them nor another placed label. Returns how many found no free place.
+    /// Places every value label through one <see cref="LabelPlacer"/> that first blocks every mass block, every text drawn
+    /// so far and every element's body, so no placed label overlaps a symbol or another label: each node's value beside
+    /// its block, a voltage source's label beside its support, each spring's and damper's name with its value below it,
+    /// each inerter's ("name 360 kg") and transducer's ("name Bl 15 T·m") on one line. Returns how many found no free place.
     /// </summary>
-    private static int PlacedElementLabels(ImmutableArray<Shape>.Builder shapes, NetworkLayout layout, Frame frame, Point[] centres, DisplayUnits units)
+    private static int PlacedLabels(ImmutableArray<Shape>.Builder shapes, NetworkLayout layout, Frame frame, Point[] centres, DisplayUnits units,
+        IReadOnlyDictionary<string, double> massKilograms, IReadOnlyDictionary<string, string> supportLabels)
     {
         var placer = new LabelPlacer(new Rect(4, frame.Top - BodyMargin + 6, Width - 4, frame.Height - 12 - frame.FooterLines * FooterLine));
         foreach (var c in centres)
@@ -99,7 +139,7 @@ public static class NetworkFigure
             e.A.Mass is { } ma ? centres[index[ma]] : frame.Map(e.A.Anchor),
             e.B.Mass is { } mb ? centres[index[mb]] : frame.Map(e.B.Anchor), e.A.Mass is not null, e.B.Mass is not null, frame, []);
         // Every element's body (not its rods, which may run far across the figure) is blocked, so a label sits beside
-        // the symbols, not on them: a spring's teeth, a damper's cup and plate, a flywheel's disc, a magnet and its coil.
+        // the symbols, not on them: a spring's teeth, a damper's cup and plate, a resistor's box, a flywheel's disc, a magnet and its coil.
         foreach (var e in layout.Elements)
         {
             var lines = Lines(e);
@@ -112,14 +152,65 @@ public static class NetworkFigure
             if (body.Length > 0) placer.Block(new Rect(body.Min(p => p.X), body.Min(p => p.Y), body.Max(p => p.X), body.Max(p => p.Y)));
         }
         var omitted = 0;
+        // The nodes' values first: beside the block on the right as before, else on its left, above or below.
+        for (var i = 0; i < centres.Length; i++)
+        {
+            var name = layout.Masses[i].Name;
+            if (NodeValue(layout, name, massKilograms[name], units) is not { } value) continue;
+            var c = centres[i];
+            (Point, TextAnchor)[] candidates =
+            [
+                (c + new Point(frame.HalfWidth + 5, 4), TextAnchor.Start),
+                (c + new Point(-frame.HalfWidth - 5, 4), TextAnchor.End),
+                (c + new Point(0, -frame.HalfHeight - 4), TextAnchor.Middle),
+                (c + new Point(0, frame.HalfHeight + 12), TextAnchor.Middle),
+                (c + new Point(frame.HalfWidth + 5, -frame.HalfHeight - 2), TextAnchor.Start),
+                (c + new Point(frame.HalfWidth + 5, frame.HalfHeight + 10), TextAnchor.Start),
+            ];
+            var label = placer.Place(value, 10, candidates, "#333333", layout.ElectricalNodes.Contains(name) ? "mass-value electrical" : "mass-value",
+                ImmutableDictionary<string, string>.Empty.Add("mass", name));
+            if (label is null) omitted++;
+            else shapes.Add(label);
+        }
+        // A voltage source's support: its label beside the support symbol.
+        var labelled = new HashSet<string>(StringComparer.Ordinal);
+        foreach (var e in layout.Elements)
+            foreach (var end in new[] { e.A, e.B })
+            {
+                if (end.Mass is not null || end.Support is not { } support || !supportLabels.TryGetValue(support, out var text) || !labelled.Add(support)) continue;
+                var label = placer.Place(text, PlacedLabelSize, LabelPlacer.AroundPoint(frame.Map(end.Anchor), 14, PlacedLabelSize), "#333333", "label source-label",
+                    ImmutableDictionary<string, string>.Empty.Add("support", support));
+                if (label is null) omitted++;
+                else shapes.Add(label);
+            }
+        foreach (var e in layout.Elements.Where(e => e.Kind is ElementKind.Spring or ElementKind.Damper))
+        {
+            var lines = Lines(e);
+            var start = lines[0][0];
+            var end = e.Kind == ElementKind.Spring ? lines[0][^1] : lines[2][0];
+            var value = ElementValue(e, units);
+            var width = Math.Max(TextMetrics.Width(e.Name, PlacedNameSize), TextMetrics.Width(value, PlacedLabelSize));
+            var data = ImmutableDictionary<string, string>.Empty.Add("element", e.Name);
+            var pair = placer.PlacePair(e.Name, PlacedNameSize, value, PlacedLabelSize, 12, LabelPlacer.AlongLine(start, end, 9, PlacedNameSize, width),
+                "#333333", "#555555", "label element-name " + KindClass(e.Kind), "label element-value " + KindClass(e.Kind) + (e.Electrical ? " electrical" : ""), data);
+            if (pair is { } placed)
+            {
+                shapes.AddRange(placed.First, placed.Second);
+                continue;
+            }
+            // No room for two lines: the name and the value on one line, else the label is left out.
+            var line = e.Name + " " + value;
+            var single = placer.Place(line, PlacedLabelSize, LabelPlacer.AlongLine(start, end, 9, PlacedLabelSize, TextMetrics.Width(line, PlacedLabelSize)),
+                "#333333", "label element-name element-value " + KindClass(e.Kind) + (e.Electrical ? " electrical" : ""), data);
+            if (single is null) omitted++;
+            else shapes.Add(single);
+        }
         foreach (var e in layout.Elements.Where(e => e.Kind is ElementKind.Inerter or ElementKind.Transducer))
         {
             var lines = Lines(e);
-            var text = e.Kind == ElementKind.Inerter
-                ? $"{e.Name} {units.Mass(e.Value, given: true)} {units.MassSymbol}"
-                : $"{e.Name} Bl {e.Value.ToString("G4", CultureInfo.InvariantCulture)} T·m";
+            var text = e.Name + " " + ElementValue(e, units);
             var label = placer.Place(text, PlacedLabelSize, LabelPlacer.AlongLine(lines[0][0], lines[4][^1], 9, PlacedLabelSize, TextMetrics.Width(text, PlacedLabelSize)), "#333333",
-                "label element-label " + KindClass(e.Kind), ImmutableDictionary<string, string>.Empty.Add("element", e.Name));
+                "label element-label " + KindClass(e.Kind) + (e.Electrical ? " electrical" : ""), ImmutableDictionary<string, string>.Empty.Add("element", e.Name));
             if (label is null) omitted++;
             else shapes.Add(label);
         }
@@ -157,9 +248,9 @@ public static class NetworkFigure
             .ToArray();
 
         DrawSupports(shapes, layout, frame, rest);
-        DrawElements(shapes, layout, frame, [rest], Palette.Undeformed, "element undeformed", labels: false, null);
+        DrawElements(shapes, layout, frame, [rest], Palette.Undeformed, "element undeformed");
         DrawMasses(shapes, layout, frame, [rest], Palette.Undeformed, null, 1, "mass undeformed", frame.Labels);
-        DrawElements(shapes, layout, frame, frames, Palette.Deformed, "element deformed", labels: false, null);
+        DrawElements(shapes, layout, frame, frames, Palette.Deformed, "element deformed");
         DrawMasses(shapes, layout, frame, frames, Palette.Deformed, Palette.Blue, 0.14, "mass deformed", labels: false);
         if (frame.Labels)
             for (var i = 0; i < rest.Length; i++)
@@ -257,7 +348,7 @@ public static class NetworkFigure
     }
 
     private static void DrawElements(ImmutableArray<Shape>.Builder shapes, NetworkLayout layout, Frame frame, Point[][] frames,
-        Pen pen, string cssClass, bool labels, DisplayUnits? units)
+        Pen pen, string cssClass)
     {
         var index = layout.Masses.Select((m, i) => (m.Name, i)).ToDictionary(p => p.Name, p => p.i);
         foreach (var e in layout.Elements)
@@ -277,38 +368,22 @@ public static class NetworkFigure
                     Class = p < dashedFrom ? null : "branch-link",
                     Data = p < dashedFrom ? ImmutableDictionary<string, string>.Empty : ImmutableDictionary<string, string>.Empty.Add("branch", e.Branch[p - dashedFrom]),
                 });
-            var start = geometry[0][0][0];
-            var end = e.Kind == ElementKind.Spring ? geometry[0][0][^1] : geometry[0][2][0];
-            // Labels of very short elements would sit on the blocks; the tables of the report list every value anyway.
-            // Inerters and transducers are labelled afterwards through the label placer (see Network).
-            if (labels && units is not null && e.Kind is ElementKind.Spring or ElementKind.Damper && (end - start).Length >= 60)
-            {
-                var mid = 0.5 * (start + end);
-                var u = Unit(end - start, frame.Axis);
-                var along = new Point(-u.Y, u.X);                 // the side ElementGeometry offsets the body to
-                var n = along;
-                if (n.X < 0 || (n.X == 0 && n.Y > 0)) n = -1 * n;
-                var value = e.Kind == ElementKind.Spring
-                    ? units.Stiffness(e.Value, given: true) + " " + units.StiffnessSymbol
-                    : units.Damping(e.Value, given: true) + " " + units.DampingSymbol;
-                // Two elements side by side get their labels on either side; more stack their labels on one side.
-                var spread = 0.5 * Math.Max(0, e.ParallelCount - 1) * Math.Min(24, 1.5 * frame.HalfWidth / Math.Max(1, e.ParallelCount - 1));
-                // The label goes on the side its body is offset to, whichever way round the element is written.
-                var bodySide = Math.Sign(e.ParallelIndex - (e.ParallelCount - 1) / 2.0) * (e.Reversed ? -1 : 1);
-                var left = e.ParallelCount == 2 && bodySide * (along.X * n.X + along.Y * n.Y) < 0;
-                var stack = e.ParallelCount > 2 ? 24 * e.ParallelIndex - 12 * (e.ParallelCount - 1) : 0;
-                var at = mid + (left ? -1 : 1) * (spread + 13) * n + stack * u;
-                var anchor = left ? TextAnchor.End : TextAnchor.Start;
-                parts.Add(new TextShape(at + new Point(0, -2), e.Name, 10, anchor, false, "#333333") { Class = "element-name" });
-                parts.Add(new TextShape(at + new Point(0, 10), value, 9.5, anchor, false, "#555555") { Class = "element-value" });
-            }
+            // The labels are placed afterwards through the label placer (see Network), so none overlaps another.
             shapes.Add(new GroupShape(parts.ToImmutable())
             {
-                Class = cssClass + " " + KindClass(e.Kind),
+                Class = cssClass + " " + KindClass(e.Kind) + (e.Electrical ? " electrical " + ElectricalClass(e.Kind) : ""),
                 Data = ImmutableDictionary<string, string>.Empty.Add("element", e.Name),
             });
         }
     }
+
+    /// <summary>The class word of an electrical element: "inductor", "resistor" or "capacitor".</summary>
+    private static string ElectricalClass(ElementKind kind) => kind switch
+    {
+        ElementKind.Spring => "inductor",
+        ElementKind.Damper => "resistor",
+        _ => "capacitor",
+    };
 
     /// <summary>The class word of an element kind in the SVG ("spring", "damper", "inerter", "transducer").</summary>
     public static string KindClass(ElementKind kind) => kind.ToString().ToLowerInvariant();
@@ -357,12 +432,32 @@ public static class NetworkFigure
             return [[.. points]];
         }
         var c = Math.Min(8, 0.2 * Math.Max(length, 30));
+        if (e.Electrical) return Resistor(At, c);
         return
         [
             [a, At(0.36, 0)],
             [At(0.64, c), At(0.36, c), At(0.36, -c), At(0.64, -c)],
             [b, At(0.52, 0)],
             [At(0.52, 0.7 * c), At(0.52, -0.7 * c)],
+        ];
+    }
+
+    /// <summary>
+    /// A resistor: a rod to a box across the line (half-height <paramref name="c"/>, from 0.32 to 0.68 of the length),
+    /// the box, a rod from the box, and a zigzag of six strokes inside the box; four polylines like a dashpot's, with
+    /// the box second and the zigzag fourth so the label placer blocks the same parts.
+    /// </summary>
+    internal static ImmutableArray<Point>[] Resistor(Func<double, double, Point> at, double c)
+    {
+        const int strokes = 6;
+        var zigzag = Enumerable.Range(0, strokes + 1).Select(k =>
+            at(0.35 + 0.30 * k / strokes, k == 0 || k == strokes ? 0 : (k % 2 == 1 ? 0.55 * c : -0.55 * c)));
+        return
+        [
+            [at(0, 0), at(0.32, 0)],
+            [at(0.32, -0.6 * c), at(0.68, -0.6 * c), at(0.68, 0.6 * c), at(0.32, 0.6 * c), at(0.32, -0.6 * c)],
+            [at(1, 0), at(0.68, 0)],
+            [.. zigzag],
         ];
     }
 

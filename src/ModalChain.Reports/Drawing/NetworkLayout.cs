@@ -29,7 +29,11 @@ public enum ElementKind
 /// <summary>One end of a drawn element: a mass (moves with it) or a fixed anchor point in drawing metres.</summary>
 /// <param name="Mass">The mass name, or null for a support end.</param>
 /// <param name="Anchor">For a support end, where its symbol is drawn (m, y up); unused for a mass end.</param>
-public readonly record struct ElementEnd(string? Mass, Point Anchor);
+public readonly record struct ElementEnd(string? Mass, Point Anchor)
+{
+    /// <summary>For a support end, the support's name (a voltage source's node on the electrical side); null for a mass end.</summary>
+    public string? Support { get; init; }
+}
 
 /// <summary>A spring, damper, inerter or transducer as drawn.</summary>
 /// <param name="Name">Element name.</param>
@@ -46,6 +50,13 @@ public sealed record DrawnElement(string Name, ElementKind Kind, ElementEnd A, E
     /// ground→table beside a transducer table→ground), so its sideways offset is turned round to keep the group apart.
     /// </summary>
     public bool Reversed { get; init; }
+
+    /// <summary>
+    /// True for a spring, damper or inerter with an end on an electrical node (<see cref="Network.IsElectrical"/>): by the
+    /// analogy an inductor (stiffness 1/L), a resistor (coefficient 1/R) or a capacitor (inertance C in F). False for a
+    /// transducer, which always joins the two sides.
+    /// </summary>
+    public bool Electrical { get; init; }
 
     /// <summary>A transducer's branch terminals that are drawn nodes (its electrical nodes; a support terminal is left out); empty for other kinds.</summary>
     public ImmutableArray<string> Branch { get; init; } = [];
@@ -66,6 +77,9 @@ public sealed record NetworkLayout(
 {
     private const double LevelGap = 1.2;
     private const double SideGap = 1.6;
+
+    /// <summary>The network's electrical nodes (<see cref="Network.ElectricalNodes"/>): drawn masses whose value is a capacitance in F, and supports held by a voltage source.</summary>
+    public ImmutableHashSet<string> ElectricalNodes { get; init; } = [];
 
     /// <summary>Position of mass <paramref name="name"/>.</summary>
     public Point PositionOf(string name) => Masses.First(m => m.Name == name).At;
@@ -94,7 +108,10 @@ public sealed record NetworkLayout(
 
         var masses = network.Masses.Select((m, i) => (m.Name, positions[i])).ToImmutableArray();
         var elements = DrawnElements(network, positions, index, axis, spacing);
-        return new NetworkLayout(masses, elements, !usable, axis, spacing);
+        return new NetworkLayout(masses, elements, !usable, axis, spacing)
+        {
+            ElectricalNodes = [.. network.ElectricalNodes],
+        };
     }
 
     private static Point[] AutomaticPositions(Network network)
@@ -186,13 +203,13 @@ public sealed record NetworkLayout(
         ElementEnd End(string node, string other)
         {
             if (index.TryGetValue(node, out _)) return new ElementEnd(node, default);
-            if (supportsByName[node].Position is { } at) return new ElementEnd(null, new Point(at.X, at.Y));
-            if (!index.TryGetValue(other, out var m)) return new ElementEnd(null, default);
+            if (supportsByName[node].Position is { } at) return new ElementEnd(null, new Point(at.X, at.Y)) { Support = node };
+            if (!index.TryGetValue(other, out var m)) return new ElementEnd(null, default) { Support = node };
             var local = ToLocal(positions[m]);
             var anchor = local.X - lowest < 0.25 * spacing
                 ? new Point(lowest - spacing, local.Y)                              // on the common ground line
                 : new Point(local.X - 0.7 * spacing, local.Y + 0.8 * spacing);      // a local support beside the mass
-            return new ElementEnd(null, FromLocal(anchor));
+            return new ElementEnd(null, FromLocal(anchor)) { Support = node };
         }
 
         var raw = network.Springs.Select(s => (s.Name, Kind: ElementKind.Spring, s.NodeA, s.NodeB, Value: s.Stiffness))
@@ -212,6 +229,7 @@ public sealed record NetworkLayout(
             {
                 Branch = e.Kind == ElementKind.Transducer ? branches[e.Name] : [],
                 Reversed = e.NodeA != firstA[Key(e.NodeA, e.NodeB)],
+                Electrical = e.Kind != ElementKind.Transducer && (network.IsElectrical(e.NodeA) || network.IsElectrical(e.NodeB)),
             };
         })];
     }

@@ -33,9 +33,50 @@ public sealed class ModelSummarySection : IReportSection
                 $"{ModelCounts.Of(network).Phrase(withBodies: false)}; total mass {units.Mass(network.TotalMass, given: true)} {units.MassSymbol}"),
         };
         var footer = new[] { PositionNote(layout) };
-        var scene = NetworkFigure.Network(layout, header, footer, units, network.Masses.ToDictionary(m => m.Name, m => m.Kilograms));
+        var scene = NetworkFigure.Network(layout, header, footer, units, network.Masses.ToDictionary(m => m.Name, m => m.Kilograms),
+            SourceLabels(context.Document.Structure));
         _drawing = new SchematicFigure("network", "The network as modelled: " + SymbolList(network, "masses (blocks)") + " and supports (hatched). "
             + PositionNote(layout), "network", scene, animated: false);
+    }
+
+    /// <summary>
+    /// A label for each support held by a voltage source (an electrical support): "source NAME 1 V" with the amplitude of
+    /// the velocity load (a voltage by the analogy) that moves it, or "voltage source" where no such load is given.
+    /// </summary>
+    public static IReadOnlyDictionary<string, string> SourceLabels(StructuralModel structure)
+    {
+        ArgumentNullException.ThrowIfNull(structure);
+        var network = structure.Network;
+        var labels = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var support in network.Supports.Where(s => s.Name != Network.Ground && network.IsElectrical(s.Name)))
+        {
+            var load = structure.Loads.OfType<BaseMotionLoad>().FirstOrDefault(l => l.Support == support.Name && l.Kind == BaseMotionKind.Velocity);
+            labels[support.Name] = load is null
+                ? "voltage source"
+                : "source " + load.Name + " " + ElectricalUnits.Format(load.Amplitude, ElectricalUnits.Volt, given: true);
+        }
+        return labels;
+    }
+
+    /// <summary>
+    /// The circuit's nodes (capacitance to ground in F, or none) when <paramref name="nodes"/> has any, and its elements
+    /// in their own units: R = 1/c, L = 1/k, C = the inertance in kg = F (the analogy of <see cref="Network.ElectricalNodes"/>).
+    /// </summary>
+    private static void CircuitTables(HtmlWriter html, Network network, IReadOnlyList<Mass> nodes)
+    {
+        bool Electrical(string a, string b) => network.IsElectrical(a) || network.IsElectrical(b);
+        if (nodes.Count > 0)
+            html.Table("Circuit nodes", ["Name", "Capacitance to ground"],
+                nodes.Select(m => (IReadOnlyList<string>)[m.Name, m.Kilograms > 0 ? ElectricalUnits.Format(m.Kilograms, ElectricalUnits.Farad, given: true) : "none"]),
+                new HashSet<int> { 1 });
+        var circuit = network.Dampers.Where(d => Electrical(d.NodeA, d.NodeB)).Select(d => (d.Name, d.NodeA, d.NodeB, Kind: "resistor", Value: ElectricalUnits.Format(1 / d.Coefficient, ElectricalUnits.Ohm, given: true)))
+            .Concat(network.Springs.Where(s => Electrical(s.NodeA, s.NodeB)).Select(s => (s.Name, s.NodeA, s.NodeB, Kind: "inductor", Value: ElectricalUnits.Format(1 / s.Stiffness, ElectricalUnits.Henry, given: true))))
+            .Concat(network.Inerters.Where(i => Electrical(i.NodeA, i.NodeB)).Select(i => (i.Name, i.NodeA, i.NodeB, Kind: "capacitor", Value: ElectricalUnits.Format(i.Inertance, ElectricalUnits.Farad, given: true))))
+            .ToArray();
+        if (circuit.Length > 0)
+            html.Table("Circuit elements", ["Name", "Kind", "Between", "Value"],
+                circuit.Select(c => (IReadOnlyList<string>)[c.Name, c.Kind, $"{c.NodeA} – {c.NodeB}", c.Value]),
+                new HashSet<int> { 3 });
     }
 
     /// <summary>Large line models: masses, springs and dampers grouped by equal value (count and first names), not one row each.</summary>
@@ -50,14 +91,20 @@ public sealed class ModelSummarySection : IReportSection
             ]);
         string Caption(string what, int count, int groups) => string.Create(CultureInfo.InvariantCulture,
             $"{what}: {count} in {groups} group{(groups == 1 ? "" : "s")} of equal value (every one is listed in results.json)");
-        html.Table(Caption("Masses", network.Masses.Length, network.Masses.Select(m => m.Kilograms).Distinct().Count()),
-            [$"Mass ({u.MassSymbol})", "Count", "First names"], Rows(network.Masses, m => m.Kilograms, m => m.Name, v => u.Mass(v, given: true)), new HashSet<int> { 0, 1 });
-        if (network.Springs.Length > 0)
-            html.Table(Caption("Springs", network.Springs.Length, network.Springs.Select(s => s.Stiffness).Distinct().Count()),
-                [$"Stiffness ({u.StiffnessSymbol})", "Count", "First names"], Rows(network.Springs, s => s.Stiffness, s => s.Name, v => u.Stiffness(v, given: true)), new HashSet<int> { 0, 1 });
-        if (network.Dampers.Length > 0)
-            html.Table(Caption("Dampers", network.Dampers.Length, network.Dampers.Select(d => d.Coefficient).Distinct().Count()),
-                [$"Coefficient ({u.DampingSymbol})", "Count", "First names"], Rows(network.Dampers, d => d.Coefficient, d => d.Name, v => u.Damping(v, given: true)), new HashSet<int> { 0, 1 });
+        // The circuit's nodes and elements are listed in their own units (CircuitTables), not as masses, springs and dampers.
+        bool Electrical(string a, string b) => network.IsElectrical(a) || network.IsElectrical(b);
+        var masses = network.Masses.Where(m => !network.IsElectrical(m.Name)).ToArray();
+        var springs = network.Springs.Where(s => !Electrical(s.NodeA, s.NodeB)).ToArray();
+        var dampers = network.Dampers.Where(d => !Electrical(d.NodeA, d.NodeB)).ToArray();
+        html.Table(Caption("Masses", masses.Length, masses.Select(m => m.Kilograms).Distinct().Count()),
+            [$"Mass ({u.MassSymbol})", "Count", "First names"], Rows(masses, m => m.Kilograms, m => m.Name, v => u.Mass(v, given: true)), new HashSet<int> { 0, 1 });
+        if (springs.Length > 0)
+            html.Table(Caption("Springs", springs.Length, springs.Select(s => s.Stiffness).Distinct().Count()),
+                [$"Stiffness ({u.StiffnessSymbol})", "Count", "First names"], Rows(springs, s => s.Stiffness, s => s.Name, v => u.Stiffness(v, given: true)), new HashSet<int> { 0, 1 });
+        if (dampers.Length > 0)
+            html.Table(Caption("Dampers", dampers.Length, dampers.Select(d => d.Coefficient).Distinct().Count()),
+                [$"Coefficient ({u.DampingSymbol})", "Count", "First names"], Rows(dampers, d => d.Coefficient, d => d.Name, v => u.Damping(v, given: true)), new HashSet<int> { 0, 1 });
+        CircuitTables(html, network, [.. network.Masses.Where(m => network.IsElectrical(m.Name))]);
         if (_context.Document.Warnings.Length > 0)
         {
             html.Heading("Warnings from reading the model");
@@ -101,6 +148,11 @@ public sealed class ModelSummarySection : IReportSection
     {
         var parts = new List<string> { nodes, "springs (zigzags)", "dampers (dashpots)" };
         if (network.Inerters.Length > 0) parts.Add("inerters (flywheels: a disc with crossed spokes)");
+        var counts = ModelCounts.Of(network);
+        if (counts.Resistors > 0) parts.Add("resistors (a box with a zigzag, labelled in Ω)");
+        if (counts.Inductors > 0) parts.Add("inductors (zigzags labelled in H)");
+        if (counts.Capacitors > 0) parts.Add("capacitors between nodes (flywheels labelled in F)");
+        if (counts.CircuitNodes > 0) parts.Add("circuit nodes (blocks labelled with their capacitance to ground in F, or nothing when they have none)");
         if (network.Transducers.Length > 0) parts.Add("transducers (a magnet block and a coil between the mechanical pair, with a dashed line to each electrical node of the branch)");
         return string.Join(", ", parts);
     }
@@ -124,14 +176,16 @@ public sealed class ModelSummarySection : IReportSection
             return;
         }
         var groups = Topology.UnsupportedGroups(network);
+        var counts = ModelCounts.Of(network);
         html.Facts(
         [
             ("Title", network.Title),
             ("Degrees of freedom", Core.Dofs.DofMap.ForScalarNetwork(network).Count.ToString(CultureInfo.InvariantCulture)
                 + (network.Links.IsEmpty ? " (one direction of motion per mass)" : " (one direction of motion per mass; masses tied by a link share one)")),
             ($"Total mass ({u.MassSymbol})", u.Mass(network.TotalMass, given: true)),
-            ("Masses, springs, dampers", string.Create(CultureInfo.InvariantCulture, $"{network.Masses.Length}, {network.Springs.Length}, {network.Dampers.Length}")),
+            ("Masses, springs, dampers", string.Create(CultureInfo.InvariantCulture, $"{counts.Masses}, {counts.Springs}, {counts.Dampers}")),
             .. ExtraFacts(network),
+            .. (counts.CircuitFact() is { } circuitFact ? [circuitFact] : Array.Empty<(string, string)>()),
             ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
             ("Parts not held by a spring to a support", groups.Length == 0 ? "none" : string.Join("; ", groups.Select(g => string.Join(", ", g))) + " (rigid-body modes at 0 Hz)"),
         ]);
@@ -141,22 +195,30 @@ public sealed class ModelSummarySection : IReportSection
             html.Figure(_drawing);
             return;
         }
-        html.Table("Masses", ["Name", $"Mass ({u.MassSymbol})", $"Drawing position ({u.LengthSymbol})"],
-            network.Masses.Select(m => (IReadOnlyList<string>)[m.Name, u.Mass(m.Kilograms, given: true),
-                m.Position is { } p ? $"({u.Length(p.X, given: true)}, {u.Length(p.Y, given: true)})" : "—"]),
-            new HashSet<int> { 1 });
-        if (network.Springs.Length > 0)
+        bool Electrical(string a, string b) => network.IsElectrical(a) || network.IsElectrical(b);
+        var masses = network.Masses.Where(m => !network.IsElectrical(m.Name)).ToArray();
+        var nodes = network.Masses.Where(m => network.IsElectrical(m.Name)).ToArray();
+        if (masses.Length > 0 || nodes.Length == 0)
+            html.Table("Masses", ["Name", $"Mass ({u.MassSymbol})", $"Drawing position ({u.LengthSymbol})"],
+                masses.Select(m => (IReadOnlyList<string>)[m.Name, u.Mass(m.Kilograms, given: true),
+                    m.Position is { } p ? $"({u.Length(p.X, given: true)}, {u.Length(p.Y, given: true)})" : "—"]),
+                new HashSet<int> { 1 });
+        var springs = network.Springs.Where(s => !Electrical(s.NodeA, s.NodeB)).ToArray();
+        var dampers = network.Dampers.Where(d => !Electrical(d.NodeA, d.NodeB)).ToArray();
+        var inerters = network.Inerters.Where(i => !Electrical(i.NodeA, i.NodeB)).ToArray();
+        if (springs.Length > 0)
             html.Table("Springs", ["Name", "Between", $"Stiffness ({u.StiffnessSymbol})"],
-                network.Springs.Select(s => (IReadOnlyList<string>)[s.Name, $"{s.NodeA} – {s.NodeB}", u.Stiffness(s.Stiffness, given: true)]),
+                springs.Select(s => (IReadOnlyList<string>)[s.Name, $"{s.NodeA} – {s.NodeB}", u.Stiffness(s.Stiffness, given: true)]),
                 new HashSet<int> { 2 });
-        if (network.Dampers.Length > 0)
+        if (dampers.Length > 0)
             html.Table("Dampers", ["Name", "Between", $"Coefficient ({u.DampingSymbol})"],
-                network.Dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}", u.Damping(d.Coefficient, given: true)]),
+                dampers.Select(d => (IReadOnlyList<string>)[d.Name, $"{d.NodeA} – {d.NodeB}", u.Damping(d.Coefficient, given: true)]),
                 new HashSet<int> { 2 });
-        if (network.Inerters.Length > 0)
+        if (inerters.Length > 0)
             html.Table("Inerters", ["Name", "Between", $"Inertance ({u.MassSymbol})"],
-                network.Inerters.Select(i => (IReadOnlyList<string>)[i.Name, $"{i.NodeA} – {i.NodeB}", u.Mass(i.Inertance, given: true)]),
+                inerters.Select(i => (IReadOnlyList<string>)[i.Name, $"{i.NodeA} – {i.NodeB}", u.Mass(i.Inertance, given: true)]),
                 new HashSet<int> { 2 });
+        CircuitTables(html, network, nodes);
         if (network.Transducers.Length > 0)
             html.Table("Transducers", ["Name", "Mechanical pair", "Electrical branch", "Force factor (T·m)"],
                 network.Transducers.Select(t => (IReadOnlyList<string>)[t.Name, $"{t.NodeA} – {t.NodeB}", $"{t.BranchA} – {t.BranchB}", t.ForceFactor.ToString("G4", CultureInfo.InvariantCulture)]),
