@@ -175,7 +175,8 @@ public sealed class ModelSummarySection : IReportSection
             WriteSpatialHtml(html, network, u);
             return;
         }
-        var groups = Topology.UnsupportedGroups(network);
+        // A group of circuit nodes that no inductor holds sets a flux level, not a rigid-body mode: only mechanical parts are listed.
+        var groups = Topology.UnsupportedGroups(network).Where(g => !g.All(network.IsElectrical)).ToArray();
         var counts = ModelCounts.Of(network);
         html.Facts(
         [
@@ -186,7 +187,7 @@ public sealed class ModelSummarySection : IReportSection
             ("Masses, springs, dampers", string.Create(CultureInfo.InvariantCulture, $"{counts.Masses}, {counts.Springs}, {counts.Dampers}")),
             .. ExtraFacts(network),
             .. (counts.CircuitFact() is { } circuitFact ? [circuitFact] : Array.Empty<(string, string)>()),
-            ("Supports", string.Join(", ", network.Supports.Select(s => s.Name)) + " (fixed)"),
+            ("Supports", SupportsFact(network)),
             ("Parts not held by a spring to a support", groups.Length == 0 ? "none" : string.Join("; ", groups.Select(g => string.Join(", ", g))) + " (rigid-body modes at 0 Hz)"),
         ]);
         if (network.Masses.Length > ModesSection.LargeModelMasses)
@@ -374,5 +375,15 @@ public sealed class ModelSummarySection : IReportSection
             json.WriteEndObject();
         }
         json.WriteEndArray();
+    }
+
+    /// <summary>The supports, fixed ones first; a support a voltage source holds is named as such (it moves with the source's voltage).</summary>
+    private static string SupportsFact(Network network)
+    {
+        var fixedOnes = network.Supports.Where(s => !network.IsElectrical(s.Name)).Select(s => s.Name).ToArray();
+        var sources = network.Supports.Where(s => network.IsElectrical(s.Name)).Select(s => s.Name).ToArray();
+        var text = fixedOnes.Length == 0 ? "" : string.Join(", ", fixedOnes) + " (fixed)";
+        if (sources.Length > 0) text += (text.Length > 0 ? "; " : "") + string.Join(", ", sources) + " (circuit nodes held by voltage sources)";
+        return text;
     }
 }

@@ -25,6 +25,17 @@ public sealed class ElectricalOutputSectionTests
     }
 
     [Fact]
+    public void FloorTestSummary_NamesTheSourceNodeAndFindsNoLoosePart()
+    {
+        // From models/floor-shaker-test.yaml: ground is the one fixed support and amplifier-out the node its voltage source
+        // holds; every bay is held by its beams, and the circuit nodes no inductor holds set a flux level (no rigid-body
+        // mode), so no part is listed as loose.
+        var report = ReportBuilder.Build(Repository.Load("models/floor-shaker-test.yaml"), Options);
+        Assert.Contains("Supports</th><td>ground (fixed); amplifier-out (circuit nodes held by voltage sources)</td>", report.Html);
+        Assert.Contains("Parts not held by a spring to a support</th><td>none</td>", report.Html);
+    }
+
+    [Fact]
     public void FloorTestHarmonic_HasAnElectricalTableInVoltsAndAmperes()
     {
         // models/floor-shaker-test.yaml: 1 V behind the shaker's 2 Ω coil resistance; above the shaker's suspension
