@@ -26,12 +26,24 @@ public static class DivergingScale
     public static readonly ImmutableArray<string> Colours = [.. Enumerable.Range(0, BandCount).Select(BandColour)];
 
     /// <summary>The band of <paramref name="value"/> (clamped to [−1, 1]): 0 for the lowest values, <see cref="BandCount"/> − 1 for the highest.</summary>
+    /// <remarks>
+    /// A value within <see cref="EdgeSnap"/> (in band widths) of a band edge counts as on the edge, so the band above it:
+    /// a shape value the closed form puts on an edge (½ at the corners of a square grid's first mode) comes out of an
+    /// eigen solver a few ulps to either side, and nodes that symmetry makes equal must still share one colour whichever
+    /// solver ran.
+    /// </remarks>
     public static int Band(double value)
     {
         if (double.IsNaN(value)) throw new ArgumentException("A shape value is NaN.", nameof(value));
         var v = Math.Clamp(value, -1, 1);
-        return Math.Min(BandCount - 1, (int)Math.Floor((v + 1) / 2 * BandCount));
+        var position = (v + 1) / 2 * BandCount;
+        var edge = Math.Round(position);
+        if (Math.Abs(position - edge) < EdgeSnap) position = edge;
+        return Math.Min(BandCount - 1, (int)Math.Floor(position));
     }
+
+    /// <summary>How close to a band edge (in band widths) a value counts as on it: far above an eigen solver's round-off (1e-12 relative), far below anything a reader could see.</summary>
+    public const double EdgeSnap = 1e-9;
 
     /// <summary>The colour of <paramref name="value"/>.</summary>
     public static string ColourOf(double value) => Colours[Band(value)];

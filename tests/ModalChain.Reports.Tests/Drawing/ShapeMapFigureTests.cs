@@ -103,6 +103,21 @@ public sealed class ShapeMapFigureTests
     }
 
     [Fact]
+    public void ColourScale_AValueOnABandEdge_KeepsItsBandUnderRoundOff()
+    {
+        // Identity: ½ is the lower edge of band 12 of 16; a solver's round-off (a few ulps either side) must not move it to
+        // band 11, or nodes symmetry makes equal would be drawn in two colours depending on which eigen solver ran. A step
+        // a reader could see (1e-6) still changes the band.
+        var edge = DivergingScale.Band(0.5);
+        Assert.Equal(12, edge);
+        foreach (var ulps in new[] { -8, -1, 1, 8 })
+            Assert.Equal(edge, DivergingScale.Band(0.5 + ulps * Math.BitIncrement(0.5) - ulps * 0.5));
+        Assert.Equal(edge, DivergingScale.Band(0.5 - 1e-13));
+        Assert.Equal(11, DivergingScale.Band(0.5 - 1e-6));
+        Assert.Equal(DivergingScale.BandCount / 2, DivergingScale.Band(-1e-15));
+    }
+
+    [Fact]
     public void ColourScale_BandAndColourAreMonotoneInTheValue()
     {
         // Identity: a sweep over [−1, 1] never steps back a band; luminance falls from the centre outwards on both sides
