@@ -37,20 +37,18 @@ internal static class ValidateCommand
                 o.WriteLine(string.Create(inv, $"  degrees of freedom:  {Core.Dofs.DofMap.For(n).Count} ({(n.Space == Core.Model.ModelSpace.Plane ? "plane" : "3d")} model: the translations of each mass, every direction of each rigid body)"));
             var mass = CommonOptions.UnitsOf(parse, units, document).MassUnit;
             o.WriteLine(string.Create(inv, $"  total mass:          {mass.From(n.TotalMass):G6} {mass.Plain}"));
-            // The electrical side (a circuit's analogue, a transducer's branch) is counted apart: its dampers are resistors,
-            // its springs inductors, its inerters capacitors, and a group of its nodes no inductor holds is a flux level, not
-            // a rigid-body mode.
-            bool Electrical(string a, string b) => n.IsElectrical(a) || n.IsElectrical(b);
-            var (resistors, inductors, capacitors) = (n.Dampers.Count(d => Electrical(d.NodeA, d.NodeB)),
-                n.Springs.Count(x => Electrical(x.NodeA, x.NodeB)), n.Inerters.Count(b => Electrical(b.NodeA, b.NodeB)));
-            o.WriteLine(string.Create(inv, $"  springs, dampers:    {n.Springs.Length - inductors}, {n.Dampers.Length - resistors}"));
-            if (n.Inerters.Length > capacitors) o.WriteLine(string.Create(inv, $"  inerters:            {n.Inerters.Length - capacitors}"));
+            // The electrical side (a circuit's analogue, a transducer's branch) is counted apart, as the report's summary
+            // counts it (ModelCounts): its dampers are resistors, its springs inductors, its inerters capacitors; a group
+            // of its nodes no inductor holds is a flux level, not a rigid-body mode, so only Topology.RigidBodyGroups count.
+            var counts = Reports.Sections.ModelCounts.Of(n);
+            o.WriteLine(string.Create(inv, $"  springs, dampers:    {counts.Springs}, {counts.Dampers}"));
+            if (counts.Inerters > 0) o.WriteLine(string.Create(inv, $"  inerters:            {counts.Inerters}"));
             if (!n.ElectricalNodes.IsEmpty)
             {
-                o.WriteLine(string.Create(inv, $"  electrical side:     {n.ElectricalNodes.Length} nodes, {resistors} resistors, {inductors} inductors, {capacitors} capacitors between nodes"));
-                o.WriteLine(string.Create(inv, $"  transducers:         {n.Transducers.Length}"));
+                o.WriteLine(string.Create(inv, $"  electrical side:     {n.ElectricalNodes.Length} nodes, {counts.Resistors} resistors, {counts.Inductors} inductors, {counts.Capacitors} capacitors between nodes"));
+                o.WriteLine(string.Create(inv, $"  transducers:         {counts.Transducers}"));
             }
-            var groups = Topology.UnsupportedGroups(n).Where(g => !g.All(n.IsElectrical)).ToArray();
+            var groups = Topology.RigidBodyGroups(n);
             o.WriteLine(string.Create(inv, $"  unsupported groups:  {groups.Length}{(groups.Length > 0 ? " (rigid-body modes expected)" : "")}"));
             o.WriteLine(string.Create(inv, $"  warnings:            {CommonOptions.WarningCount(document)}"));
             o.WriteLine($"  sha256:              {document.Sha256}");

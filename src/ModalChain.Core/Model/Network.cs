@@ -160,6 +160,13 @@ public sealed record Network
     /// <summary>True when <paramref name="node"/> is one of <see cref="ElectricalNodes"/>.</summary>
     public bool IsElectrical(string node) => !ElectricalNodes.IsEmpty && NodeNames.Of(this).Electrical.Contains(node);
 
+    /// <summary>
+    /// True when an element between <paramref name="nodeA"/> and <paramref name="nodeB"/> is on the electrical side (an
+    /// end on an electrical node): in the node flux form a spring is then an inductor, a damper a resistor and an inerter
+    /// a capacitor, and its force is a current.
+    /// </summary>
+    public bool IsElectricalElement(string nodeA, string nodeB) => IsElectrical(nodeA) || IsElectrical(nodeB);
+
     /// <summary>The space the nodes move in; <see cref="ModelSpace.Line"/> unless the model declares another.</summary>
     public ModelSpace Space { get; internal init; } = ModelSpace.Line;
 

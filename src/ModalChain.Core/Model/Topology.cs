@@ -105,6 +105,17 @@ public static class Topology
         return [.. UnsupportedGroups(network).Where(g => g.All(network.IsElectrical))];
     }
 
+    /// <summary>
+    /// The groups of <see cref="UnsupportedGroups"/> that hold a mechanical node: each has a rigid-body mode. The others
+    /// are <see cref="FluxLevelGroups"/>, which only set a flux level.
+    /// </summary>
+    public static ImmutableArray<ImmutableArray<string>> RigidBodyGroups(Network network)
+    {
+        ArgumentNullException.ThrowIfNull(network);
+        var groups = UnsupportedGroups(network);
+        return network.ElectricalNodes.IsEmpty ? groups : [.. groups.Where(g => !g.All(network.IsElectrical))];
+    }
+
     /// <summary>The number of <see cref="FluxLevelGroups"/>: the zero roots that set a flux level and are left out of the complex roots.</summary>
     public static int FluxLevelCount(Network network) => FluxLevelGroups(network).Length;
 
@@ -165,7 +176,7 @@ public static class Topology
         {
             if (!(s.Stiffness > 0)) continue;
             // An inductor's analogue spring (1/L in N/m standing for 1/H) is no stiffness of the structure.
-            if (network.IsElectrical(s.NodeA) || network.IsElectrical(s.NodeB)) continue;
+            if (network.IsElectricalElement(s.NodeA, s.NodeB)) continue;
             var (a, b) = (nodes.Of(s.NodeA), nodes.Of(s.NodeB));
             var (aIsSupport, bIsSupport) = (nodes.IsSupport(a), nodes.IsSupport(b));
             if (aIsSupport && bIsSupport) continue;

@@ -41,9 +41,10 @@ public static class HarmonicCsv
             }
         foreach (var e in result.ElementForces)
         {
-            var current = network is not null && ElectricalLabels.IsElement(network, e.Element, e.Kind == ElementKind.Spring);
+            var spring = e.Kind == ElementKind.Spring;
+            var current = network is not null && ElectricalLabels.IsElement(network, e.Element, spring);
             // An electrical element is named as the transient CSV names it: an inductor or a resistor carries a current.
-            var kind = e.Kind == ElementKind.Spring ? (current ? "inductor" : "spring") : (current ? "resistor" : "damper");
+            var kind = network is null ? (spring ? "spring" : "damper") : ElectricalLabels.ElementWord(network, e.Element, spring);
             header.Add(current ? $"{e.Element} {kind} current magnitude [A]" : $"{e.Element} {kind} force magnitude [N]");
             header.Add(current ? $"{e.Element} {kind} current phase [deg]" : $"{e.Element} {kind} force phase [deg]");
             var force = e;

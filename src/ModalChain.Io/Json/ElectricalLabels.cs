@@ -31,8 +31,12 @@ public static class ElectricalLabels
         var (a, b) = spring
             ? network.Springs.FirstOrDefault(s => s.Name == element) is { } s ? (s.NodeA, s.NodeB) : (null, null)
             : network.Dampers.FirstOrDefault(d => d.Name == element) is { } d ? (d.NodeA, d.NodeB) : ((string?)null, (string?)null);
-        return (a is not null && network.IsElectrical(a)) || (b is not null && network.IsElectrical(b));
+        return a is not null && network.IsElectricalElement(a, b!);
     }
+
+    /// <summary>The word for a spring (<paramref name="spring"/> true) or damper: "inductor" or "resistor" on the electrical side, else "spring" or "damper".</summary>
+    public static string ElementWord(Network network, string element, bool spring) =>
+        IsElement(network, element, spring) ? (spring ? "inductor" : "resistor") : spring ? "spring" : "damper";
 
     /// <summary>The unit of a spring's or damper's force: "A" for an electrical element (its current), else "N".</summary>
     public static string ElementUnit(Network network, string element, bool spring) => IsElement(network, element, spring) ? "A" : "N";

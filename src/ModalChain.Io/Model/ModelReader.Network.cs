@@ -418,11 +418,10 @@ public static partial class ModelReader
         foreach (var name in loose)
             context.Warning(context.Positions[$"masses.{name}"],
                 $"mass '{name}' has no spring: nothing holds it, so it has a rigid-body mode (reported at 0 Hz)");
-        foreach (var group in Topology.UnsupportedGroups(network))
+        foreach (var group in Topology.RigidBodyGroups(network))
         {
             if (group.All(g => loose.Contains(g) || massless.Contains(g))) continue;
             var shown = group.Where(g => !network.IsElectrical(g)).ToArray();
-            if (shown.Length == 0) continue;
             context.Warning(context.Positions[$"masses.{shown[0]}"],
                 $"masses {string.Join(", ", shown.Select(g => $"'{g}'"))} are not connected to ground by springs: " +
                 "that part of the network has a rigid-body mode (reported at 0 Hz)");

@@ -229,7 +229,7 @@ public sealed record NetworkLayout(
             {
                 Branch = e.Kind == ElementKind.Transducer ? branches[e.Name] : [],
                 Reversed = e.NodeA != firstA[Key(e.NodeA, e.NodeB)],
-                Electrical = e.Kind != ElementKind.Transducer && (network.IsElectrical(e.NodeA) || network.IsElectrical(e.NodeB)),
+                Electrical = e.Kind != ElementKind.Transducer && network.IsElectricalElement(e.NodeA, e.NodeB),
             };
         })];
     }

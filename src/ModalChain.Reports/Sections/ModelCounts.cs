@@ -31,11 +31,10 @@ public sealed record ModelCounts(int Bodies, int Masses, int Springs, int Damper
     public static ModelCounts Of(Network network)
     {
         ArgumentNullException.ThrowIfNull(network);
-        bool Electrical(string a, string b) => network.IsElectrical(a) || network.IsElectrical(b);
         var circuitNodes = network.Masses.Count(m => network.IsElectrical(m.Name));
-        var inductors = network.Springs.Count(s => Electrical(s.NodeA, s.NodeB));
-        var resistors = network.Dampers.Count(d => Electrical(d.NodeA, d.NodeB));
-        var capacitors = network.Inerters.Count(i => Electrical(i.NodeA, i.NodeB));
+        var inductors = network.Springs.Count(s => network.IsElectricalElement(s.NodeA, s.NodeB));
+        var resistors = network.Dampers.Count(d => network.IsElectricalElement(d.NodeA, d.NodeB));
+        var capacitors = network.Inerters.Count(i => network.IsElectricalElement(i.NodeA, i.NodeB));
         return new ModelCounts(network.Bodies.Length, network.Masses.Length - circuitNodes, network.Springs.Length - inductors,
             network.Dampers.Length - resistors, network.Inerters.Length - capacitors,
             network.Masses.Count(m => m.Kilograms == 0 && m.Name.EndsWith(InnerSuffix, StringComparison.Ordinal)), network.Transducers.Length)

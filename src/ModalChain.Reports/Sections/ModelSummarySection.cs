@@ -64,14 +64,13 @@ public sealed class ModelSummarySection : IReportSection
     /// </summary>
     private static void CircuitTables(HtmlWriter html, Network network, IReadOnlyList<Mass> nodes)
     {
-        bool Electrical(string a, string b) => network.IsElectrical(a) || network.IsElectrical(b);
         if (nodes.Count > 0)
             html.Table("Circuit nodes", ["Name", "Capacitance to ground"],
                 nodes.Select(m => (IReadOnlyList<string>)[m.Name, m.Kilograms > 0 ? ElectricalUnits.Format(m.Kilograms, ElectricalUnits.Farad, given: true) : "none"]),
                 new HashSet<int> { 1 });
-        var circuit = network.Dampers.Where(d => Electrical(d.NodeA, d.NodeB)).Select(d => (d.Name, d.NodeA, d.NodeB, Kind: "resistor", Value: ElectricalUnits.Format(1 / d.Coefficient, ElectricalUnits.Ohm, given: true)))
-            .Concat(network.Springs.Where(s => Electrical(s.NodeA, s.NodeB)).Select(s => (s.Name, s.NodeA, s.NodeB, Kind: "inductor", Value: ElectricalUnits.Format(1 / s.Stiffness, ElectricalUnits.Henry, given: true))))
-            .Concat(network.Inerters.Where(i => Electrical(i.NodeA, i.NodeB)).Select(i => (i.Name, i.NodeA, i.NodeB, Kind: "capacitor", Value: ElectricalUnits.Format(i.Inertance, ElectricalUnits.Farad, given: true))))
+        var circuit = network.Dampers.Where(d => network.IsElectricalElement(d.NodeA, d.NodeB)).Select(d => (d.Name, d.NodeA, d.NodeB, Kind: "resistor", Value: ElectricalUnits.Format(1 / d.Coefficient, ElectricalUnits.Ohm, given: true)))
+            .Concat(network.Springs.Where(s => network.IsElectricalElement(s.NodeA, s.NodeB)).Select(s => (s.Name, s.NodeA, s.NodeB, Kind: "inductor", Value: ElectricalUnits.Format(1 / s.Stiffness, ElectricalUnits.Henry, given: true))))
+            .Concat(network.Inerters.Where(i => network.IsElectricalElement(i.NodeA, i.NodeB)).Select(i => (i.Name, i.NodeA, i.NodeB, Kind: "capacitor", Value: ElectricalUnits.Format(i.Inertance, ElectricalUnits.Farad, given: true))))
             .ToArray();
         if (circuit.Length > 0)
             html.Table("Circuit elements", ["Name", "Kind", "Between", "Value"],
@@ -92,10 +91,9 @@ public sealed class ModelSummarySection : IReportSection
         string Caption(string what, int count, int groups) => string.Create(CultureInfo.InvariantCulture,
             $"{what}: {count} in {groups} group{(groups == 1 ? "" : "s")} of equal value (every one is listed in results.json)");
         // The circuit's nodes and elements are listed in their own units (CircuitTables), not as masses, springs and dampers.
-        bool Electrical(string a, string b) => network.IsElectrical(a) || network.IsElectrical(b);
         var masses = network.Masses.Where(m => !network.IsElectrical(m.Name)).ToArray();
-        var springs = network.Springs.Where(s => !Electrical(s.NodeA, s.NodeB)).ToArray();
-        var dampers = network.Dampers.Where(d => !Electrical(d.NodeA, d.NodeB)).ToArray();
+        var springs = network.Springs.Where(s => !network.IsElectricalElement(s.NodeA, s.NodeB)).ToArray();
+        var dampers = network.Dampers.Where(d => !network.IsElectricalElement(d.NodeA, d.NodeB)).ToArray();
         html.Table(Caption("Masses", masses.Length, masses.Select(m => m.Kilograms).Distinct().Count()),
             [$"Mass ({u.MassSymbol})", "Count", "First names"], Rows(masses, m => m.Kilograms, m => m.Name, v => u.Mass(v, given: true)), new HashSet<int> { 0, 1 });
         if (springs.Length > 0)
@@ -176,7 +174,7 @@ public sealed class ModelSummarySection : IReportSection
             return;
         }
         // A group of circuit nodes that no inductor holds sets a flux level, not a rigid-body mode: only mechanical parts are listed.
-        var groups = Topology.UnsupportedGroups(network).Where(g => !g.All(network.IsElectrical)).ToArray();
+        var groups = Topology.RigidBodyGroups(network);
         var counts = ModelCounts.Of(network);
         html.Facts(
         [
@@ -196,7 +194,6 @@ public sealed class ModelSummarySection : IReportSection
             html.Figure(_drawing);
             return;
         }
-        bool Electrical(string a, string b) => network.IsElectrical(a) || network.IsElectrical(b);
         var masses = network.Masses.Where(m => !network.IsElectrical(m.Name)).ToArray();
         var nodes = network.Masses.Where(m => network.IsElectrical(m.Name)).ToArray();
         if (masses.Length > 0 || nodes.Length == 0)
@@ -204,9 +201,9 @@ public sealed class ModelSummarySection : IReportSection
                 masses.Select(m => (IReadOnlyList<string>)[m.Name, u.Mass(m.Kilograms, given: true),
                     m.Position is { } p ? $"({u.Length(p.X, given: true)}, {u.Length(p.Y, given: true)})" : "—"]),
                 new HashSet<int> { 1 });
-        var springs = network.Springs.Where(s => !Electrical(s.NodeA, s.NodeB)).ToArray();
-        var dampers = network.Dampers.Where(d => !Electrical(d.NodeA, d.NodeB)).ToArray();
-        var inerters = network.Inerters.Where(i => !Electrical(i.NodeA, i.NodeB)).ToArray();
+        var springs = network.Springs.Where(s => !network.IsElectricalElement(s.NodeA, s.NodeB)).ToArray();
+        var dampers = network.Dampers.Where(d => !network.IsElectricalElement(d.NodeA, d.NodeB)).ToArray();
+        var inerters = network.Inerters.Where(i => !network.IsElectricalElement(i.NodeA, i.NodeB)).ToArray();
         if (springs.Length > 0)
             html.Table("Springs", ["Name", "Between", $"Stiffness ({u.StiffnessSymbol})"],
                 springs.Select(s => (IReadOnlyList<string>)[s.Name, $"{s.NodeA} – {s.NodeB}", u.Stiffness(s.Stiffness, given: true)]),
